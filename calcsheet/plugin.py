@@ -1,0 +1,406 @@
+"""The plugin contract: declare, validate, load and call plugin functions.
+
+A plugin is a ``Namespace`` object exposed through the ``calcsheet.plugins``
+entry-point group. Each function declares its parameters and result fields
+with their dimensions, so the checker can catch a wrong unit at a call
+without running anything. The contract is checked when a function registers:
+a parameter the Python signature lacks (or the reverse) is an error naming
+the plugin.
+
+A function receives a ``Work`` first: the scope holding its arguments, and
+the recorder of its traced working (formulas the engine evaluates, tables,
+figures, notes). It returns a dict of its declared fields.
+"""
+from __future__ import annotations
+
+import inspect
+import os
+from dataclasses import dataclass, field
+from importlib import metadata
+from typing import Any, Callable
+
+from .errors import (
+    PluginArgumentError,
+    PluginDefinitionError,
+    PluginInputError,
+    UnknownFieldError,
+    UnknownPluginError,
+)
+from .trace import CheckResult, Figure, Note, Step, Table, Working
+from . import units as U
+
+ENTRY_POINT_GROUP = "calcsheet.plugins"
+KINDS = ("quantity", "number", "text", "record", "list", "points", "flag")
+REQUIRED = inspect.Parameter.empty
+
+
+@dataclass(frozen=True)
+class Param:
+    """A declared parameter.
+
+    kind: 'quantity' (give ``dim``), 'number' (dimensionless), 'text'
+    (optionally one of ``choices``), 'record' (a record of type ``record``),
+    'list' (of quantities of ``dim``, or of records of type ``record``),
+    'points' (a list of (x, y) pairs of ``dim``), 'flag' (true/false text).
+    """
+
+    name: str
+    dim: str | None = None
+    doc: str = ""
+    kind: str | None = None
+    default: Any = REQUIRED
+    choices: tuple[str, ...] | None = None
+    record: str | None = None
+
+    @property
+    def kind_(self) -> str:
+        if self.kind:
+            return self.kind
+        return "quantity" if self.dim is not None else "number"
+
+    @property
+    def required(self) -> bool:
+        return self.default is REQUIRED
+
+    @property
+    def dimension(self) -> U.Dim | None:
+        return U.parse_dimension(self.dim) if self.dim is not None else None
+
+    def describe(self) -> str:
+        k = self.kind_
+        if k == "quantity":
+            what = U.describe_dim(self.dimension)
+        elif k == "record":
+            what = f"{self.record} record"
+        elif k == "list":
+            what = f"list of {self.record + ' records' if self.record else U.describe_dim(self.dimension)}"
+        elif k == "points":
+            what = f"list of (x, y) points, {U.describe_dim(self.dimension)}"
+        elif k == "text" and self.choices:
+            what = "one of " + ", ".join(f'"{c}"' for c in self.choices)
+        else:
+            what = k
+        if not self.required:
+            what += f", optional (default {self.default!r})" if self.default is not None else ", optional"
+        return what
+
+
+@dataclass(frozen=True)
+class Field:
+    """A declared result field. kind: 'quantity', 'number', 'text' or 'record'."""
+
+    name: str
+    dim: str | None = None
+    doc: str = ""
+    kind: str | None = None
+    record: str | None = None
+
+    @property
+    def kind_(self) -> str:
+        if self.kind:
+            return self.kind
+        return "quantity" if self.dim is not None else "number"
+
+    @property
+    def dimension(self) -> U.Dim | None:
+        return U.parse_dimension(self.dim) if self.dim is not None else None
+
+
+@dataclass
+class PluginFunction:
+    namespace: str
+    name: str
+    func: Callable
+    params: tuple[Param, ...]
+    fields: tuple[Field, ...]
+    doc: str
+    returns: str  # record type of the result
+    version: str
+
+    @property
+    def qualname(self) -> str:
+        return f"{self.namespace}.{self.name}"
+
+    def param(self, name: str) -> Param | None:
+        return next((p for p in self.params if p.name == name), None)
+
+    def field(self, name: str) -> Field | None:
+        """Exact name, or a numbered pattern: Field('R_{i}') matches R_1, R_2, ..."""
+        for f in self.fields:
+            if f.name == name:
+                return f
+            if "{i}" in f.name:
+                head, tail = f.name.split("{i}", 1)
+                mid = name[len(head): len(name) - len(tail) if tail else None]
+                if name.startswith(head) and name.endswith(tail) and mid.isdigit():
+                    return f
+        return None
+
+
+class Namespace:
+    """A group of plugin functions under one name (``section``, ``beam``)."""
+
+    def __init__(self, name: str, version: str = "0", doc: str = ""):
+        self.name = name
+        self.version = version
+        self.doc = doc
+        self.functions: dict[str, PluginFunction] = {}
+
+    def function(
+        self,
+        name: str | None = None,
+        *,
+        params: list[Param] | tuple[Param, ...] = (),
+        fields: list[Field] | tuple[Field, ...] = (),
+        returns: str | None = None,
+        doc: str | None = None,
+    ):
+        def register(func: Callable) -> Callable:
+            fname = name or func.__name__
+            pf = PluginFunction(
+                namespace=self.name,
+                name=fname,
+                func=func,
+                params=tuple(params),
+                fields=tuple(fields),
+                doc=(doc or inspect.getdoc(func) or "").strip(),
+                returns=returns or self.name,
+                version=self.version,
+            )
+            validate(pf)
+            self.functions[fname] = pf
+            return func
+
+        return register
+
+
+def validate(pf: PluginFunction) -> None:
+    """The contract, checked at registration; each failure names the plugin."""
+    where = f"plugin {pf.qualname}"
+    sig = inspect.signature(pf.func)
+    names = list(sig.parameters)
+    if not names:
+        raise PluginDefinitionError(f"{where}: its first parameter must receive the Work")
+    py_params = names[1:]
+    declared = [p.name for p in pf.params]
+    if len(set(declared)) != len(declared):
+        raise PluginDefinitionError(f"{where}: a parameter is declared twice")
+    extra = [n for n in declared if n not in py_params]
+    missing = [n for n in py_params if n not in declared]
+    if extra:
+        raise PluginDefinitionError(f"{where}: declares parameter(s) {extra} its function does not take")
+    if missing:
+        raise PluginDefinitionError(f"{where}: function takes parameter(s) {missing} that are not declared")
+    for p in pf.params:
+        if p.kind_ not in KINDS:
+            raise PluginDefinitionError(f"{where}: parameter {p.name} has unknown kind {p.kind_!r}")
+        if p.kind_ in ("quantity", "points") and p.dim is None:
+            raise PluginDefinitionError(f"{where}: parameter {p.name} needs a dimension")
+        if p.kind_ == "record" and not p.record:
+            raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
+        if p.dim is not None:
+            try:
+                U.parse_dimension(p.dim)
+            except Exception as exc:
+                raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
+    seen = set()
+    for f in pf.fields:
+        if f.name in seen:
+            raise PluginDefinitionError(f"{where}: field {f.name} is declared twice")
+        seen.add(f.name)
+        if f.dim is not None:
+            try:
+                U.parse_dimension(f.dim)
+            except Exception as exc:
+                raise PluginDefinitionError(f"{where}: field {f.name} has a bad dimension {f.dim!r}: {exc}")
+
+
+@dataclass
+class Record:
+    """A plugin's result: named fields plus the working that produced them."""
+
+    type: str
+    fields: dict[str, Any]
+    working: Working | None = None
+    source: str = ""  # "section.rectangle"
+    declared: dict[str, Field] = field(default_factory=dict)
+
+    def get(self, name: str):
+        if name in self.fields:
+            return self.fields[name]
+        import difflib
+
+        close = difflib.get_close_matches(name, list(self.fields), n=1)
+        hint = f"did you mean '{close[0]}'?" if close else f"fields: {', '.join(self.fields)}"
+        raise UnknownFieldError(f"{self.source or self.type} result has no field '{name}'", hint=hint)
+
+    def __repr__(self) -> str:
+        return f"<{self.source or self.type} record>"
+
+
+class Work:
+    """What a plugin function receives: its arguments, and its working recorder."""
+
+    def __init__(self, pf: PluginFunction, args: dict[str, Any], settings: dict[str, Any], evaluator):
+        self.plugin = pf
+        self.scope: dict[str, Any] = dict(args)
+        self.settings = settings
+        self.working = Working(title=pf.qualname)
+        self.warnings: list[tuple[str, str | None]] = []
+        self._evaluator = evaluator
+
+    # --- reading arguments
+    def __getitem__(self, name: str):
+        return self.scope[name]
+
+    def __contains__(self, name: str) -> bool:
+        return name in self.scope
+
+    # --- traced working
+    def calc(self, name: str, formula: str, unit: str | None = None, desc: str | None = None, note: str | None = None):
+        """Evaluate ``formula`` (sheet syntax) in this call's scope; trace and bind it."""
+        step = self._evaluator.plugin_step(self, name, formula, unit, desc)
+        step.note = note
+        self.working.items.append(step)
+        self.scope[name] = step.value
+        return step.value
+
+    def let(self, name: str, value, unit: str | None = None, desc: str | None = None, note: str | None = None):
+        """Record a result found by a method rather than a formula (say which in ``note``)."""
+        step = Step(name=name, expr=None, value=value, description=desc, note=note)
+        step.display_unit = self._evaluator.display_unit_for(value, unit)
+        self.working.items.append(step)
+        self.scope[name] = value
+        return value
+
+    def check(self, text: str, desc: str | None = None) -> CheckResult:
+        """A pass/fail inside the working (e.g. the two-method agreement)."""
+        result = self._evaluator.plugin_check(self, text, desc)
+        self.working.items.append(result)
+        return result
+
+    def table(self, title: str, columns: list[str], rows: list[list[Any]], units=None, footer=None, note=None):
+        units = [self._evaluator.display_unit_for(None, u) if isinstance(u, str) else u for u in (units or [])] or None
+        self.working.items.append(Table(title, list(columns), rows, units, footer, note))
+
+    def figure(self, svg: str, caption: str = ""):
+        self.working.items.append(Figure(svg, caption))
+
+    def note(self, text: str, kind: str = "note"):
+        self.working.items.append(Note(text, kind))
+
+    def warn(self, message: str, param: str | None = None):
+        """A warning shown at the call (and in the working)."""
+        self.warnings.append((message, param))
+        self.working.items.append(Note(message, "warning"))
+
+    def fail(self, message: str, param: str | None = None, hint: str | None = None):
+        """Refuse the input; the error points at ``param`` in the call."""
+        err = PluginInputError(f"{self.plugin.qualname}: {message}", hint=hint)
+        err.param = param
+        raise err
+
+    def q(self, value, unit: str):
+        """A quantity from a plugin's own number (trusted text)."""
+        return U.Quantity(value, unit)
+
+
+# ---------------------------------------------------------------- registry
+
+
+class PluginRegistry:
+    """Built-in and third-party namespaces, loaded lazily through entry points."""
+
+    def __init__(self, blocked: set[str] | None = None):
+        env_block = {b.strip() for b in os.environ.get("CALCSHEET_BLOCK_PLUGINS", "").split(",") if b.strip()}
+        self.blocked = set(blocked or ()) | env_block
+        self._entry_points: dict[str, Any] | None = None
+        self._loaded: dict[str, Namespace] = {}
+
+    def _eps(self) -> dict[str, Any]:
+        if self._entry_points is None:
+            eps = metadata.entry_points(group=ENTRY_POINT_GROUP)
+            self._entry_points = {ep.name: ep for ep in eps}
+        return self._entry_points
+
+    def register(self, ns: Namespace) -> None:
+        """Add a namespace directly (tests, embedding)."""
+        if not isinstance(ns, Namespace):
+            raise PluginDefinitionError(f"{ns!r} is not a calcsheet Namespace")
+        self._loaded[ns.name] = ns
+
+    def names(self) -> list[str]:
+        return sorted((set(self._eps()) | set(self._loaded)) - self.blocked)
+
+    def namespace(self, name: str) -> Namespace | None:
+        if name in self.blocked:
+            return None
+        if name in self._loaded:
+            return self._loaded[name]
+        ep = self._eps().get(name)
+        if ep is None:
+            return None
+        try:
+            ns = ep.load()
+        except PluginDefinitionError:
+            raise
+        except Exception as exc:  # a broken third-party plugin names itself
+            raise PluginDefinitionError(f"plugin {name!r} ({ep.value}) failed to load: {exc}") from exc
+        if not isinstance(ns, Namespace):
+            raise PluginDefinitionError(f"plugin {name!r} ({ep.value}) is not a calcsheet Namespace")
+        if ns.name != name:
+            raise PluginDefinitionError(f"plugin entry point {name!r} gives namespace {ns.name!r}")
+        self._loaded[name] = ns
+        return ns
+
+    def function(self, namespace: str, name: str) -> PluginFunction:
+        import difflib
+
+        ns = self.namespace(namespace)
+        if ns is None:
+            close = difflib.get_close_matches(namespace, self.names(), n=1)
+            hint = f"did you mean '{close[0]}'?" if close else f"plugins: {', '.join(self.names())}"
+            if namespace in self.blocked:
+                hint = "it is blocked (CALCSHEET_BLOCK_PLUGINS)"
+            raise UnknownPluginError(f"unknown plugin '{namespace}'", hint=hint)
+        pf = ns.functions.get(name)
+        if pf is None:
+            close = difflib.get_close_matches(name, list(ns.functions), n=1)
+            hint = f"did you mean '{namespace}.{close[0]}'?" if close else f"functions: {', '.join(ns.functions)}"
+            raise UnknownPluginError(f"plugin '{namespace}' has no function '{name}'", hint=hint)
+        return pf
+
+    def is_namespace(self, name: str) -> bool:
+        return name not in self.blocked and (name in self._loaded or name in self._eps())
+
+    def loaded_versions(self) -> dict[str, str]:
+        return {n: ns.version for n, ns in self._loaded.items()}
+
+
+_default_registry: PluginRegistry | None = None
+
+
+def default_registry() -> PluginRegistry:
+    global _default_registry
+    if _default_registry is None:
+        _default_registry = PluginRegistry()
+    return _default_registry
+
+
+def check_argument_kinds(pf: PluginFunction, given: dict[str, Any]) -> None:
+    """Missing and unknown keyword arguments (dimensions are checked by the caller)."""
+    import difflib
+
+    for name in given:
+        if pf.param(name) is None:
+            close = difflib.get_close_matches(name, [p.name for p in pf.params], n=1)
+            hint = f"did you mean '{close[0]}'?" if close else "parameters: " + ", ".join(p.name for p in pf.params)
+            err = PluginArgumentError(f"{pf.qualname} has no parameter '{name}'", hint=hint)
+            err.param = name
+            raise err
+    for p in pf.params:
+        if p.required and p.name not in given:
+            raise PluginArgumentError(
+                f"{pf.qualname} needs '{p.name}' ({p.describe()})",
+                hint=f"add {p.name}=… to the call",
+            )

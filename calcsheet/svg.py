@@ -1,0 +1,73 @@
+"""A small SVG builder for plugin figures: every text is escaped on the way in.
+
+Plugins draw with trusted code, but labels can carry sheet text; nothing
+written through this builder can inject markup or reach a URL.
+"""
+from __future__ import annotations
+
+import html
+
+_NUM = "{:.3f}"
+
+
+def esc(text) -> str:
+    return html.escape(str(text), quote=True)
+
+
+def _n(v: float) -> str:
+    s = _NUM.format(float(v)).rstrip("0").rstrip(".")
+    return "0" if s in ("-0", "") else s
+
+
+class Svg:
+    """Collects elements in user coordinates (y up) and writes an SVG (y down)."""
+
+    def __init__(self, width: float, height: float, *, title: str = "", css_class: str = "figure"):
+        self.width = width
+        self.height = height
+        self.title = title
+        self.css_class = css_class
+        self.parts: list[str] = []
+
+    def _attrs(self, attrs: dict) -> str:
+        out = []
+        for key, val in attrs.items():
+            if val is None:
+                continue
+            out.append(f'{key.rstrip("_").replace("_", "-")}="{esc(val)}"')
+        return " ".join(out)
+
+    def line(self, x1, y1, x2, y2, **attrs):
+        self.parts.append(f'<line x1="{_n(x1)}" y1="{_n(y1)}" x2="{_n(x2)}" y2="{_n(y2)}" {self._attrs(attrs)}/>')
+
+    def polyline(self, points, **attrs):
+        pts = " ".join(f"{_n(x)},{_n(y)}" for x, y in points)
+        self.parts.append(f'<polyline points="{pts}" {self._attrs(attrs)}/>')
+
+    def polygon(self, points, **attrs):
+        pts = " ".join(f"{_n(x)},{_n(y)}" for x, y in points)
+        self.parts.append(f'<polygon points="{pts}" {self._attrs(attrs)}/>')
+
+    def path(self, d: str, **attrs):
+        self.parts.append(f'<path d="{esc(d)}" {self._attrs(attrs)}/>')
+
+    def circle(self, cx, cy, r, **attrs):
+        self.parts.append(f'<circle cx="{_n(cx)}" cy="{_n(cy)}" r="{_n(r)}" {self._attrs(attrs)}/>')
+
+    def rect(self, x, y, w, h, **attrs):
+        self.parts.append(f'<rect x="{_n(x)}" y="{_n(y)}" width="{_n(w)}" height="{_n(h)}" {self._attrs(attrs)}/>')
+
+    def text(self, x, y, content, **attrs):
+        self.parts.append(f'<text x="{_n(x)}" y="{_n(y)}" {self._attrs(attrs)}>{esc(content)}</text>')
+
+    def raw_group(self, inner: "Svg", transform: str):
+        """Nest another builder's elements under a transform we compute (numbers only)."""
+        self.parts.append(f'<g transform="{esc(transform)}">' + "".join(inner.parts) + "</g>")
+
+    def render(self) -> str:
+        title = f"<title>{esc(self.title)}</title>" if self.title else ""
+        return (
+            f'<svg xmlns="http://www.w3.org/2000/svg" class="{esc(self.css_class)}" '
+            f'width="{_n(self.width)}" height="{_n(self.height)}" '
+            f'viewBox="0 0 {_n(self.width)} {_n(self.height)}">{title}' + "".join(self.parts) + "</svg>"
+        )

@@ -1,0 +1,236 @@
+"""The one unit registry of the process, and our curated unit vocabulary.
+
+Sheet text never reaches pint's string parser: the grammar splits a unit
+expression into names and exponents, and each name is looked up here, in a
+vocabulary of engineering units we chose on purpose (pint alone would read
+``kNm`` as kilo-number-metre and ``in`` as an inch without a word).
+"""
+from __future__ import annotations
+
+import difflib
+import math
+from functools import lru_cache
+
+import pint
+
+from .errors import UnknownUnitError
+
+# Trade units pint lacks, defined exactly from their parts.
+_EXTRA_DEFINITIONS = [
+    "kip = 1000 * force_pound = kip",  # pint already has kip; kept for clarity below
+    "psf = force_pound / foot ** 2 = psf",
+    "ksf = kip / foot ** 2 = ksf",
+    "pcf = force_pound / foot ** 3 = pcf",
+    "plf = force_pound / foot = plf",
+    "klf = kip / foot = klf",
+]
+
+_registry: pint.UnitRegistry | None = None
+
+
+def registry() -> pint.UnitRegistry:
+    """The process-wide registry, created on first use."""
+    global _registry
+    if _registry is None:
+        try:
+            reg = pint.UnitRegistry(cache_folder=":auto:", autoconvert_offset_to_baseunit=False)
+        except Exception:  # an unwritable cache folder must not stop a build
+            reg = pint.UnitRegistry(autoconvert_offset_to_baseunit=False)
+        for line in _EXTRA_DEFINITIONS:
+            name = line.split("=")[0].strip()
+            if name not in reg:
+                reg.define(line)
+        reg.formatter.default_format = "~"
+        pint.set_application_registry(reg)
+        _registry = reg
+    return _registry
+
+
+def Quantity(value, unit):
+    reg = registry()
+    if isinstance(unit, str):
+        unit = reg.Unit(unit)
+    return reg.Quantity(value, unit)
+
+
+# Our spelling -> pint's canonical unit name. Only these may follow a number.
+VOCABULARY: dict[str, str] = {
+    # length
+    "mm": "millimeter", "cm": "centimeter", "m": "meter", "km": "kilometer", "um": "micrometer",
+    "µm": "micrometer", "in": "inch", "ft": "foot", "yd": "yard", "mi": "mile",
+    # area / volume
+    "ha": "hectare", "L": "liter", "l": "liter",
+    # force
+    "N": "newton", "kN": "kilonewton", "MN": "meganewton", "lbf": "force_pound", "kip": "kip",
+    "kips": "kip", "kgf": "kilogram_force", "tf": "tonne_force",
+    # pressure / stress
+    "Pa": "pascal", "kPa": "kilopascal", "MPa": "megapascal", "GPa": "gigapascal",
+    "psi": "psi", "ksi": "ksi", "psf": "psf", "ksf": "ksf", "bar": "bar",
+    # line load, unit weight (US)
+    "plf": "plf", "klf": "klf", "pcf": "pcf",
+    # mass
+    "kg": "kilogram", "g": "gram", "t": "tonne", "tonne": "tonne", "lbm": "pound",
+    # time, frequency
+    "s": "second", "min": "minute", "h": "hour", "hr": "hour", "Hz": "hertz",
+    # energy, power
+    "J": "joule", "kJ": "kilojoule", "W": "watt", "kW": "kilowatt",
+    # angle
+    "rad": "radian", "deg": "degree", "°": "degree", "mrad": "milliradian",
+    # temperature (offset units: allowed as values, refused in arithmetic)
+    "K": "kelvin", "degC": "degree_Celsius", "degF": "degree_Fahrenheit",
+    # ratio
+    "%": "percent", "percent": "percent", "permille": "permille",
+}
+
+# Spellings engineers type that we refuse, with what to write instead.
+REFUSED: dict[str, str] = {
+    "kNm": "write kN*m (a moment); 'kNm' is not a unit here",
+    "Nm": "write N*m",
+    "kipft": "write kip*ft",
+    "lb": "write lbf for a force or lbm for a mass",
+    "lbs": "write lbf for a force or lbm for a mass",
+    "Mpa": "unit names are case-sensitive: write MPa",
+    "mpa": "unit names are case-sensitive: write MPa",
+    "kpa": "unit names are case-sensitive: write kPa",
+    "gpa": "unit names are case-sensitive: write GPa",
+    "KN": "unit names are case-sensitive: write kN",
+    "kn": "unit names are case-sensitive: write kN",
+    "ton": "say t (tonne, 1000 kg) or tf; 'ton' is ambiguous",
+    "sec": "write s",
+}
+
+ANGLE_UNITS = {"radian", "degree", "milliradian", "arcminute", "arcsecond", "turn"}
+OFFSET_UNITS = {"degree_Celsius", "degree_Fahrenheit"}
+
+
+@lru_cache(maxsize=None)
+def unit_named(symbol: str) -> pint.Unit:
+    """Look up one unit name from the vocabulary (not pint's parser)."""
+    if symbol in VOCABULARY:
+        return registry().Unit(VOCABULARY[symbol])
+    if symbol in REFUSED:
+        raise UnknownUnitError(f"unknown unit '{symbol}'", hint=REFUSED[symbol])
+    close = difflib.get_close_matches(symbol, list(VOCABULARY), n=1)
+    hint = f"did you mean '{close[0]}'?" if close else "see 'calcsheet units' for the unit names"
+    raise UnknownUnitError(f"unknown unit '{symbol}'", hint=hint)
+
+
+def build_unit(factors: tuple[tuple[str, float], ...]) -> pint.Unit:
+    """A unit from (name, exponent) factors, as the grammar split them."""
+    unit = registry().Unit("")
+    for name, exp in factors:
+        base = unit_named(name)
+        unit = unit * (base if exp == 1 else base**exp)
+    return unit
+
+
+# ---------------------------------------------------------------- dimensions
+# pint treats angles as dimensionless; a calculation must not (sin(30) is a
+# mistake). A Dim is pint's dimensionality plus an angle exponent.
+
+Dim = tuple  # sorted tuple of (dimension name, exponent) pairs, hashable
+
+DIMENSIONLESS: Dim = ()
+ANGLE: Dim = (("[angle]", 1),)
+
+
+def _angle_exponent(units) -> float:
+    return sum(exp for name, exp in units.items() if name in ANGLE_UNITS)
+
+
+@lru_cache(maxsize=4096)
+def _dim_of_unit(unit: pint.Unit) -> Dim:
+    items = dict(unit.dimensionality)
+    ang = _angle_exponent(unit._units)
+    if ang:
+        items["[angle]"] = ang
+    return tuple(sorted((k, v) for k, v in items.items() if v))
+
+
+def dim_of(value) -> Dim:
+    """The Dim of a pint quantity or unit (a plain number is dimensionless)."""
+    if isinstance(value, pint.Unit):
+        return _dim_of_unit(value)
+    if isinstance(value, pint.Quantity):
+        return _dim_of_unit(value.units)
+    return DIMENSIONLESS
+
+
+def dim_mul(a: Dim, b: Dim, sign: int = 1) -> Dim:
+    out = dict(a)
+    for k, v in b:
+        out[k] = out.get(k, 0) + sign * v
+    return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))
+
+
+def dim_pow(a: Dim, p: float) -> Dim:
+    return tuple(sorted((k, v * p) for k, v in a if abs(v * p) > 1e-12))
+
+
+def without_angle(a: Dim) -> Dim:
+    return tuple((k, v) for k, v in a if k != "[angle]")
+
+
+@lru_cache(maxsize=None)
+def parse_dimension(text: str) -> Dim:
+    """A plugin's declared dimension, e.g. '[force]/[length]' or '[angle]'."""
+    if text in ("", "1", "[]", "dimensionless"):
+        return DIMENSIONLESS
+    reg = registry()
+    angle = 0
+    cleaned = text
+    if "[angle]" in text:
+        # only simple forms: "[angle]" alone or times/divided by others
+        if text.strip() == "[angle]":
+            return ANGLE
+        raise ValueError(f"unsupported dimension expression {text!r}")
+    dims = reg.get_dimensionality(cleaned)
+    items = {k: v for k, v in dict(dims).items() if v}
+    if angle:
+        items["[angle]"] = angle
+    return tuple(sorted(items.items()))
+
+
+_DIM_NAMES = {
+    (): "dimensionless",
+    (("[angle]", 1),): "angle",
+    (("[length]", 1),): "length",
+    (("[length]", 2),): "area",
+    (("[length]", 3),): "length³ (section modulus, volume)",
+    (("[length]", 4),): "length⁴ (second moment of area)",
+    (("[length]", 1), ("[mass]", 1), ("[time]", -2)): "force",
+    (("[mass]", 1), ("[time]", -2)): "force/length (line load)",
+    (("[length]", -1), ("[mass]", 1), ("[time]", -2)): "pressure (stress, area load)",
+    (("[length]", 2), ("[mass]", 1), ("[time]", -2)): "force × length (moment)",
+    (("[length]", -2), ("[mass]", 1), ("[time]", -2)): "force/volume (unit weight)",
+    (("[mass]", 1),): "mass",
+    (("[length]", -3), ("[mass]", 1)): "density",
+    (("[length]", -1), ("[mass]", 1)): "mass/length",
+    (("[time]", 1),): "time",
+    (("[temperature]", 1),): "temperature",
+}
+
+
+def describe_dim(d: Dim) -> str:
+    """Words an engineer reads: 'force/length (line load)', not '[mass]/[time]**2'."""
+    if d in _DIM_NAMES:
+        return _DIM_NAMES[d]
+    parts = []
+    for k, v in d:
+        name = k.strip("[]")
+        parts.append(name if v == 1 else f"{name}^{_fmt_exp(v)}")
+    return "·".join(parts) or "dimensionless"
+
+
+def _fmt_exp(v: float) -> str:
+    return str(int(v)) if float(v).is_integer() else f"{v:g}"
+
+
+def is_finite(value) -> bool:
+    m = value.magnitude if isinstance(value, pint.Quantity) else value
+    try:
+        return math.isfinite(m)
+    except TypeError:
+        import numpy as np
+
+        return bool(np.all(np.isfinite(m)))
