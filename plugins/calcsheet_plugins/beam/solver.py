@@ -1,0 +1,609 @@
+"""Exact Euler–Bernoulli analysis of a line of spans by the direct stiffness method.
+
+Why this shape: a real member has whatever spans, supports and loads it has,
+and the answer must be exact for them, not a meshed approximation. Cubic
+(Hermite) elements loaded by their work-equivalent nodal loads give the exact
+nodal rotations and deflections of a prismatic beam for any load; between the
+nodes we integrate the load exactly, piece by piece, so V, M, θ and δ are
+piecewise polynomials with no discretisation error.
+
+The stiffness matrix is banded (half-bandwidth ≤ 4 with hinges), solved by a
+banded Cholesky factorisation, so cost grows linearly with the number of spans.
+
+Units: consistent SI base units (N, m, Pa, m⁴) as plain floats.
+Signs (the sheet's): loads act downward when positive; reactions are upward
+positive; an applied moment is clockwise positive; M is sagging positive;
+V = dM/dx (the sum of upward forces to the left); δ is downward positive and
+θ = dδ/dx.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+import numpy as np
+
+SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided")
+HOLDS_DEFLECTION = {"pinned", "roller", "fixed"}
+HOLDS_ROTATION = {"fixed", "guided"}
+
+
+class BeamInputError(ValueError):
+    """Bad beam input; ``param`` names the sheet parameter at fault."""
+
+    def __init__(self, message: str, param: str | None = None):
+        super().__init__(message)
+        self.param = param
+
+
+@dataclass(frozen=True)
+class PointLoad:
+    x: float
+    P: float  # downward
+    case: str = ""
+
+
+@dataclass(frozen=True)
+class MomentLoad:
+    x: float
+    M: float  # clockwise
+    case: str = ""
+
+
+@dataclass(frozen=True)
+class LineLoad:
+    x1: float
+    x2: float
+    w1: float  # downward intensity at x1
+    w2: float  # downward intensity at x2
+    case: str = ""
+
+    @property
+    def total(self) -> float:
+        return 0.5 * (self.w1 + self.w2) * (self.x2 - self.x1)
+
+    @property
+    def centroid(self) -> float:
+        a, b, L = self.w1, self.w2, self.x2 - self.x1
+        if abs(a + b) < 1e-300:
+            return 0.5 * (self.x1 + self.x2)
+        return self.x1 + L * (a + 2 * b) / (3 * (a + b))
+
+
+Load = PointLoad | MomentLoad | LineLoad
+
+
+@dataclass
+class Model:
+    spans: list[float]
+    supports: list[str]
+    EI: list[float]  # one per span
+
+    def __post_init__(self):
+        self.spans = [float(s) for s in self.spans]
+        self.EI = [float(e) for e in self.EI]
+        validate_model(self)
+
+    @property
+    def nodes(self) -> np.ndarray:
+        return np.concatenate([[0.0], np.cumsum(self.spans)])
+
+    @property
+    def length(self) -> float:
+        return float(sum(self.spans))
+
+
+def validate_model(m: Model) -> None:
+    if not m.spans:
+        raise BeamInputError("give at least one span", "spans")
+    for i, s in enumerate(m.spans, 1):
+        if not np.isfinite(s) or s <= 0:
+            raise BeamInputError(f"span {i} has length {s:g} m; every span must be longer than zero", "spans")
+    if len(m.supports) != len(m.spans) + 1:
+        raise BeamInputError(
+            f"{len(m.spans)} span(s) need {len(m.spans) + 1} supports (one at each end of every span), "
+            f"got {len(m.supports)}",
+            "supports",
+        )
+    for i, k in enumerate(m.supports, 1):
+        if k not in SUPPORT_KINDS:
+            raise BeamInputError(f"support {i} is {k!r}; use one of {', '.join(SUPPORT_KINDS)}", "supports")
+    if m.supports[0] == "hinge" or m.supports[-1] == "hinge":
+        raise BeamInputError("a hinge at an end of the beam releases nothing; use \"free\" or a support", "supports")
+    if len(m.EI) != len(m.spans):
+        raise BeamInputError(f"give EI for each of the {len(m.spans)} spans", "I")
+    for i, e in enumerate(m.EI, 1):
+        if not np.isfinite(e) or e <= 0:
+            raise BeamInputError(f"EI of span {i} is {e:g} N·m²; E and I must be greater than zero", "I")
+
+
+def validate_loads(m: Model, loads) -> None:
+    L = m.length
+    tol = 1e-9 * L
+    for ld in loads:
+        if isinstance(ld, (PointLoad, MomentLoad)):
+            if not (-tol <= ld.x <= L + tol):
+                raise BeamInputError(f"a load at x = {ld.x:g} m lies outside the beam (0 to {L:g} m)", "loads")
+        else:
+            if ld.x2 < ld.x1:
+                raise BeamInputError(f"a line load ends (x = {ld.x2:g} m) before it starts (x = {ld.x1:g} m)", "loads")
+            if ld.x1 < -tol or ld.x2 > L + tol:
+                raise BeamInputError(
+                    f"a line load from x = {ld.x1:g} m to {ld.x2:g} m runs outside the beam (0 to {L:g} m)", "loads"
+                )
+
+
+# ---------------------------------------------------------------- degrees of freedom
+
+
+@dataclass
+class Dofs:
+    w: list[int]  # deflection dof per node
+    rl: list[int]  # rotation dof at a node, as seen by the element on its left
+    rr: list[int]  # ... and by the element on its right (differs at a hinge)
+    restrained: np.ndarray  # bool per dof
+    n: int
+
+
+def number_dofs(m: Model) -> Dofs:
+    w, rl, rr, fixed = [], [], [], []
+    k = 0
+    last = len(m.supports) - 1
+    for i, kind in enumerate(m.supports):
+        w.append(k)
+        fixed.append(kind in HOLDS_DEFLECTION)
+        k += 1
+        rl.append(k)
+        fixed.append(kind in HOLDS_ROTATION)
+        k += 1
+        if kind == "hinge" and 0 < i < last:
+            rr.append(k)
+            fixed.append(False)
+            k += 1
+        else:
+            rr.append(rl[-1])
+    return Dofs(w, rl, rr, np.array(fixed, dtype=bool), k)
+
+
+def element_stiffness(EI: float, L: float) -> np.ndarray:
+    c = EI / L**3
+    return c * np.array(
+        [
+            [12, 6 * L, -12, 6 * L],
+            [6 * L, 4 * L * L, -6 * L, 2 * L * L],
+            [-12, -6 * L, 12, -6 * L],
+            [6 * L, 2 * L * L, -6 * L, 4 * L * L],
+        ]
+    )
+
+
+def _hermite(L: float) -> list[np.ndarray]:
+    """Hermite shape functions as ascending polynomial coefficients in local x."""
+    return [
+        np.array([1.0, 0.0, -3.0 / L**2, 2.0 / L**3]),
+        np.array([0.0, 1.0, -2.0 / L, 1.0 / L**2]),
+        np.array([0.0, 0.0, 3.0 / L**2, -2.0 / L**3]),
+        np.array([0.0, 0.0, -1.0 / L, 1.0 / L**2]),
+    ]
+
+
+_P = np.polynomial.polynomial
+
+
+def equivalent_loads(L: float, loads_local) -> np.ndarray:
+    """Work-equivalent nodal loads (y up, θ anticlockwise) = minus the exact fixed-end actions."""
+    N = _hermite(L)
+    dN = [_P.polyder(n) for n in N]
+    f = np.zeros(4)
+    for kind, a, b, v1, v2 in loads_local:
+        if kind == "P":  # downward force v1 at a
+            f -= v1 * np.array([_P.polyval(a, n) for n in N])
+        elif kind == "M":  # clockwise couple v1 at a: anticlockwise -v1
+            f -= v1 * np.array([_P.polyval(a, d) for d in dN])
+        else:  # downward linear load v1..v2 on [a, b]
+            if b - a <= 0:
+                continue
+            slope = (v2 - v1) / (b - a)
+            q = np.array([-(v1 - slope * a), -slope])  # upward q(x) in local x
+            for i in range(4):
+                prim = _P.polyint(_P.polymul(N[i], q))
+                f[i] += _P.polyval(b, prim) - _P.polyval(a, prim)
+    return f
+
+
+# ---------------------------------------------------------------- banded solver
+
+HALF_BAND = 4
+
+
+class Mechanism(Exception):
+    def __init__(self, dof: int):
+        self.dof = dof
+
+
+def banded_cholesky_solve(band: np.ndarray, rhs: np.ndarray, diag_scale: np.ndarray) -> np.ndarray:
+    """Solve K u = f with K symmetric positive definite, stored as band[i, d] = K[i, i-d].
+
+    A pivot that vanishes relative to its diagonal means the structure can
+    move without resistance: that dof is reported as a mechanism.
+    """
+    n, p1 = band.shape
+    p = p1 - 1
+    Lb = np.zeros_like(band)  # Lb[i, d] = L[i, i-d]
+    for i in range(n):
+        j0 = max(0, i - p)
+        for j in range(j0, i + 1):
+            s = band[i, i - j]
+            # sum_k L[i,k] L[j,k] for k in [max(i,j)-p .. j-1]
+            k0 = max(j0, j - p)
+            if k0 < j:
+                ks = np.arange(k0, j)
+                s -= float(np.dot(Lb[i, i - ks], Lb[j, j - ks]))
+            if j == i:
+                if not (s > 1e-10 * diag_scale[i]):
+                    raise Mechanism(i)
+                Lb[i, 0] = np.sqrt(s)
+            else:
+                Lb[i, i - j] = s / Lb[j, 0]
+    y = np.array(rhs, dtype=float)
+    for i in range(n):
+        k0 = max(0, i - p)
+        if k0 < i:
+            ks = np.arange(k0, i)
+            y[i] -= float(np.dot(Lb[i, i - ks], y[ks]))
+        y[i] /= Lb[i, 0]
+    x = y
+    for i in range(n - 1, -1, -1):
+        k1 = min(n, i + p + 1)
+        if i + 1 < k1:
+            ks = np.arange(i + 1, k1)
+            x[i] -= float(np.dot(Lb[ks, ks - i], x[ks]))
+        x[i] /= Lb[i, 0]
+    return x
+
+
+# ---------------------------------------------------------------- the solution
+
+
+@dataclass
+class Pieces:
+    """Piecewise polynomials in u = x - start, ascending coefficients."""
+
+    start: np.ndarray
+    length: np.ndarray
+    span: np.ndarray  # span index of each piece
+    V: np.ndarray  # (n, 3)
+    M: np.ndarray  # (n, 4)
+    theta: np.ndarray  # (n, 5)  sheet sign: θ = dδ/dx
+    delta: np.ndarray  # (n, 6)  downward positive
+
+
+@dataclass
+class Solution:
+    model: Model
+    reactions: np.ndarray  # upward force at each node (0 where none)
+    reaction_moments: np.ndarray  # anticlockwise couple from each support on the beam
+    nodal_w: np.ndarray  # downward deflection at each node
+    end_actions: list[tuple[float, float, float, float]]  # per span: V_left, M_left, V_right, M_right (beam signs)
+    fixed_end: list[np.ndarray]  # per span: fixed-end actions (nodal loads) used
+    pieces: Pieces
+    loads: list = field(default_factory=list)
+
+    def at(self, what: str, x, side: str = "right") -> np.ndarray:
+        """V, M, theta or delta at points x (the piece starting at x when side='right')."""
+        p = self.pieces
+        x = np.atleast_1d(np.asarray(x, dtype=float))
+        if side == "right":
+            idx = np.searchsorted(p.start, x, side="right") - 1
+        else:
+            idx = np.searchsorted(p.start, x, side="left") - 1
+        idx = np.clip(idx, 0, len(p.start) - 1)
+        return horner(getattr(p, what)[idx], x - p.start[idx])
+
+
+def horner(C: np.ndarray, u: np.ndarray) -> np.ndarray:
+    """Evaluate rows of ascending coefficients C at u (same leading shape, u may add a trailing axis)."""
+    if u.ndim == C.ndim:  # u is (n, k)
+        out = np.broadcast_to(C[:, -1:], u.shape).copy()
+        for j in range(C.shape[1] - 2, -1, -1):
+            out = out * u + C[:, j : j + 1]
+        return out
+    out = C[:, -1].copy()
+    for j in range(C.shape[1] - 2, -1, -1):
+        out = out * u + C[:, j]
+    return out
+
+
+def breakpoints(m: Model, loads) -> np.ndarray:
+    X = m.nodes
+    pts = [X]
+    for ld in loads:
+        if isinstance(ld, LineLoad):
+            pts.append([ld.x1, ld.x2])
+        else:
+            pts.append([ld.x])
+    b = np.unique(np.clip(np.concatenate([np.atleast_1d(np.asarray(p, float)) for p in pts]), 0.0, m.length))
+    # merge points closer than a hair (a load placed "at" a support by arithmetic)
+    keep = np.concatenate([[True], np.diff(b) > 1e-9 * m.length])
+    b = b[keep]
+    # snap to nodes
+    for xn in X:
+        j = np.argmin(np.abs(b - xn))
+        b[j] = xn
+    return np.unique(b)
+
+
+def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
+    """Solve one set of (already factored) loads. ``grid`` fixes the piece breakpoints."""
+    loads = list(loads)
+    validate_loads(m, loads)
+    if grid is None:
+        grid = breakpoints(m, loads)
+    loads = [_snap(ld, grid, 1e-9 * m.length) for ld in loads]
+    X = m.nodes
+    L_tot = m.length
+    dofs = number_dofs(m)
+    nspan = len(m.spans)
+
+    # loads per element, in local coordinates
+    per_el: list[list] = [[] for _ in range(nspan)]
+    for ld in loads:
+        if isinstance(ld, LineLoad):
+            for e in range(nspan):
+                a, b = max(ld.x1, X[e]), min(ld.x2, X[e + 1])
+                if b - a > 1e-12 * L_tot:
+                    slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1) if ld.x2 > ld.x1 else 0.0
+                    wa = ld.w1 + slope * (a - ld.x1)
+                    wb = ld.w1 + slope * (b - ld.x1)
+                    per_el[e].append(("w", a - X[e], b - X[e], wa, wb))
+        else:
+            x = min(max(ld.x, 0.0), L_tot)
+            e = int(np.clip(np.searchsorted(X, x, side="right") - 1, 0, nspan - 1))
+            kind = "P" if isinstance(ld, PointLoad) else "M"
+            per_el[e].append((kind, x - X[e], 0.0, ld.P if kind == "P" else ld.M, 0.0))
+
+    # assemble (full system, banded lower storage)
+    n = dofs.n
+    band = np.zeros((n, HALF_BAND + 1))
+    F = np.zeros(n)
+    el_dofs, el_k, el_f = [], [], []
+    for e in range(nspan):
+        d = [dofs.w[e], dofs.rr[e], dofs.w[e + 1], dofs.rl[e + 1]]
+        k = element_stiffness(m.EI[e], m.spans[e])
+        f = equivalent_loads(m.spans[e], per_el[e])
+        for a in range(4):
+            F[d[a]] += f[a]
+            for b in range(4):
+                if d[a] >= d[b]:
+                    band[d[a], d[a] - d[b]] += k[a, b]
+        el_dofs.append(d)
+        el_k.append(k)
+        el_f.append(f)
+
+    free = np.flatnonzero(~dofs.restrained)
+    pos = -np.ones(n, dtype=int)
+    pos[free] = np.arange(len(free))
+    rb = np.zeros((len(free), HALF_BAND + 1))
+    for gi in free:
+        for dd in range(HALF_BAND + 1):
+            gj = gi - dd
+            if gj >= 0 and pos[gj] >= 0:
+                rb[pos[gi], pos[gi] - pos[gj]] = band[gi, dd]
+    u = np.zeros(n)
+    if len(free):
+        scale = np.maximum(rb[:, 0], 1e-300)
+        try:
+            u[free] = banded_cholesky_solve(rb, F[free], scale)
+        except Mechanism as mech:
+            raise BeamInputError(_mechanism_message(m, dofs, int(free[mech.dof])), "supports") from None
+
+    # element end forces and reactions
+    R = np.zeros(n)
+    ends = []
+    for e in range(nspan):
+        d = el_dofs[e]
+        fe = el_k[e] @ u[d] - el_f[e]  # forces the nodes put on the element (y up, anticlockwise)
+        R[d] += fe
+        ends.append((fe[0], -fe[1], -fe[2], fe[3]))  # V(0+), M(0+), V(L-), M(L-) in beam signs
+    # reaction = what the supports must supply: K u - F at restrained dofs plus loads at nodes
+    reactions = np.array([R[dofs.w[i]] if dofs.restrained[dofs.w[i]] else 0.0 for i in range(nspan + 1)])
+    rmom = np.array([R[dofs.rl[i]] if dofs.restrained[dofs.rl[i]] else 0.0 for i in range(nspan + 1)])
+    # R above already includes equivalent loads of point loads at nodes through fe; a point load
+    # exactly at a node sits inside one element's load vector, so R is correct as assembled.
+
+    pieces = _integrate(m, per_el, ends, u, dofs, grid)
+    fem = [-f for f in el_f]
+    return Solution(m, reactions, rmom, -u[dofs.w], ends, fem, pieces, loads)
+
+
+def _snap_x(x: float, grid: np.ndarray, tol: float) -> float:
+    j = int(np.argmin(np.abs(grid - x)))
+    return float(grid[j]) if abs(grid[j] - x) <= tol else x
+
+
+def _snap(ld, grid: np.ndarray, tol: float):
+    """Put a load that sits a hair from a breakpoint exactly on it, so its jump lands on a piece start."""
+    if isinstance(ld, PointLoad):
+        return PointLoad(_snap_x(ld.x, grid, tol), ld.P, ld.case)
+    if isinstance(ld, MomentLoad):
+        return MomentLoad(_snap_x(ld.x, grid, tol), ld.M, ld.case)
+    return LineLoad(_snap_x(ld.x1, grid, tol), _snap_x(ld.x2, grid, tol), ld.w1, ld.w2, ld.case)
+
+
+def _mechanism_message(m: Model, dofs: Dofs, g: int) -> str:
+    X = m.nodes
+    for i in range(len(X)):
+        if g == dofs.w[i]:
+            return (
+                f"the supports cannot hold the beam: it can move up and down at x = {X[i]:g} m "
+                f"(support {i + 1}) without resistance — it is a mechanism; add a support or remove a hinge"
+            )
+        if g in (dofs.rl[i], dofs.rr[i]):
+            return (
+                f"the supports cannot hold the beam: it can rotate at x = {X[i]:g} m (support {i + 1}) "
+                f"without resistance — it is a mechanism; add a support or remove a hinge"
+            )
+    return "the supports cannot hold the beam: it is a mechanism"
+
+
+def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Pieces:
+    """March along each span from its left end, integrating the load exactly."""
+    X = m.nodes
+    starts, lens, spans, Vc, Mc, Tc, Wc = [], [], [], [], [], [], []
+    for e in range(len(m.spans)):
+        x0, x1 = X[e], X[e + 1]
+        EI = m.EI[e]
+        inner = grid[(grid > x0 + 1e-12 * m.length) & (grid < x1 - 1e-12 * m.length)]
+        cuts = np.concatenate([[x0], inner, [x1]])
+        V, M = ends[e][0], ends[e][1]
+        th = u[dofs.rr[e]]  # y-up slope
+        w = u[dofs.w[e]]
+        loads = per_el[e]
+        for s, t in zip(cuts[:-1], cuts[1:]):
+            ls, lt = s - x0, t - x0
+            # jumps at the piece start (the end forces are what the node supplies, so a load
+            # sitting on the span's left end still acts here)
+            for kind, a, _b, v1, _v2 in loads:
+                if kind in ("P", "M") and abs(a - ls) <= 1e-12 * m.length:
+                    if kind == "P":
+                        V -= v1
+                    else:
+                        M += v1
+            # linear upward q on this piece: q(u) = q0 + q1 u
+            q0 = q1 = 0.0
+            for kind, a, b, v1, v2 in loads:
+                if kind == "w" and a <= ls + 1e-12 * m.length and b >= lt - 1e-12 * m.length and b > a:
+                    slope = (v2 - v1) / (b - a)
+                    q0 -= v1 + slope * (ls - a)
+                    q1 -= slope
+            h = t - s
+            Vp = np.array([V, q0, q1 / 2])
+            Mp = np.array([M, V, q0 / 2, q1 / 6])
+            Tp = np.array([th, M / EI, V / (2 * EI), q0 / (6 * EI), q1 / (24 * EI)])
+            Wp = np.array([w, th, M / (2 * EI), V / (6 * EI), q0 / (24 * EI), q1 / (120 * EI)])
+            starts.append(s)
+            lens.append(h)
+            spans.append(e)
+            Vc.append(Vp)
+            Mc.append(Mp)
+            Tc.append(-Tp)
+            Wc.append(-Wp)
+            V = float(_P.polyval(h, Vp))
+            M = float(_P.polyval(h, Mp))
+            th = float(_P.polyval(h, Tp))
+            w = float(_P.polyval(h, Wp))
+    return Pieces(
+        np.array(starts), np.array(lens), np.array(spans, dtype=int),
+        np.array(Vc), np.array(Mc), np.array(Tc), np.array(Wc),
+    )
+
+
+# ---------------------------------------------------------------- extrema and sampling
+
+
+@dataclass
+class Extreme:
+    value: float
+    x: float
+
+
+def piece_extrema(C: np.ndarray, start: np.ndarray, length: np.ndarray, samples: int = 12):
+    """Max and min of each piece's polynomial, exactly (derivative roots by bisection).
+
+    Returns (max_val, x_max, min_val, x_min) arrays per piece.
+    """
+    n = len(start)
+    t = np.linspace(0.0, 1.0, samples + 1)
+    U = length[:, None] * t[None, :]
+    dC = C[:, 1:] * np.arange(1, C.shape[1])[None, :]
+    vals = horner(C, U)
+    cand_u = [U]
+    cand_v = [vals]
+    if dC.shape[1] > 0:
+        D = horner(dC, U)
+        sc = np.signbit(D[:, :-1]) != np.signbit(D[:, 1:])
+        rows, cols = np.nonzero(sc)
+        if len(rows):
+            lo = U[rows, cols].copy()
+            hi = U[rows, cols + 1].copy()
+            dlo = D[rows, cols]
+            Cr = dC[rows]
+            for _ in range(60):
+                mid = 0.5 * (lo + hi)
+                dm = horner(Cr, mid)
+                same = np.signbit(dm) == np.signbit(dlo)
+                lo = np.where(same, mid, lo)
+                hi = np.where(same, hi, mid)
+            r = 0.5 * (lo + hi)
+            extra_u = np.full((n, samples), np.nan)
+            extra_u[rows, cols] = r
+            extra_v = np.full((n, samples), np.nan)
+            extra_v[rows, cols] = horner(C[rows], r)
+            cand_u.append(extra_u)
+            cand_v.append(extra_v)
+    Ua = np.concatenate(cand_u, axis=1)
+    Va = np.concatenate(cand_v, axis=1)
+    vmax = np.where(np.isnan(Va), -np.inf, Va)
+    vmin = np.where(np.isnan(Va), np.inf, Va)
+    imax = np.argmax(vmax, axis=1)
+    imin = np.argmin(vmin, axis=1)
+    ar = np.arange(n)
+    return vmax[ar, imax], start + Ua[ar, imax], vmin[ar, imin], start + Ua[ar, imin]
+
+
+def extremes(sol: Solution, what: str, spans=None) -> tuple[Extreme, Extreme]:
+    """(max, min) of V, M, theta or delta over the beam (or over given span indices)."""
+    p = sol.pieces
+    sel = np.ones(len(p.start), bool) if spans is None else np.isin(p.span, list(spans))
+    mx, xmx, mn, xmn = piece_extrema(getattr(p, what)[sel], p.start[sel], p.length[sel])
+    i, j = int(np.argmax(mx)), int(np.argmin(mn))
+    return Extreme(float(mx[i]), float(xmx[i])), Extreme(float(mn[j]), float(xmn[j]))
+
+
+def zero_shear_points(sol: Solution) -> list[float]:
+    """Where V passes through zero: inside a piece, or by a jump across zero at a point load."""
+    p = sol.pieces
+    out = []
+    L = sol.model.length
+    Vs = p.V
+    # inside pieces: quadratic roots
+    for C, s, h in zip(Vs, p.start, p.length):
+        c0, c1, c2 = C
+        roots = np.roots([c2, c1, c0]) if abs(c2) > 0 or abs(c1) > 0 else []
+        for r in np.atleast_1d(roots):
+            if abs(np.imag(r)) < 1e-12 and 1e-9 * L < np.real(r) < h - 1e-9 * L:
+                out.append(float(s + np.real(r)))
+    # jumps at piece boundaries
+    ends_V = horner(Vs, p.length)
+    starts_V = Vs[:, 0]
+    for k in range(len(p.start) - 1):
+        a, b = ends_V[k], starts_V[k + 1]
+        if a * b < 0:
+            out.append(float(p.start[k + 1]))
+    return sorted(out)
+
+
+def sample(sol: Solution, per_span: int = 200):
+    """x and V, M, θ, δ at about ``per_span`` points per span, both sides of every jump."""
+    p = sol.pieces
+    span_len = np.asarray(sol.model.spans)[p.span]
+    counts = np.maximum(2, np.ceil(per_span * p.length / span_len).astype(int) + 1)
+    idx = np.repeat(np.arange(len(p.start)), counts)
+    first = np.concatenate([[0], np.cumsum(counts)[:-1]])
+    k = np.arange(int(counts.sum())) - np.repeat(first, counts)
+    u = p.length[idx] * k / (counts[idx] - 1)
+    x = p.start[idx] + u
+    return x, horner(p.V[idx], u), horner(p.M[idx], u), horner(p.theta[idx], u), horner(p.delta[idx], u)
+
+
+def combine(model: Model, case_loads: dict[str, list], factors: dict[str, float]) -> list:
+    """The loads of a combination: each case's loads scaled by its factor."""
+    out = []
+    for case, f in factors.items():
+        for ld in case_loads.get(case, []):
+            if isinstance(ld, PointLoad):
+                out.append(PointLoad(ld.x, f * ld.P, ld.case))
+            elif isinstance(ld, MomentLoad):
+                out.append(MomentLoad(ld.x, f * ld.M, ld.case))
+            else:
+                out.append(LineLoad(ld.x1, ld.x2, f * ld.w1, f * ld.w2, ld.case))
+    return out
