@@ -1,0 +1,269 @@
+"""Built-up sections: parts placed, rotated, mirrored, holes cut, materials transformed.
+
+A part is any shape moved into the built-up section's own frame: first
+mirrored (``"left-right"`` flips x, ``"up-down"`` flips y), then rotated
+anticlockwise about its origin, then shifted so its ``anchor`` lands on
+(x, y). Anchors name a point of the moved part's bounding box
+(``bottom-left``, ``bottom-centre``, ``top-left``, ``top-centre``, ``centre``)
+or its ``centroid``. A hole is placed the same way and subtracts from the part
+it lies in, at that part's modular ratio. Parts of another material count at
+n = E_i/E_ref (transformed section).
+"""
+from __future__ import annotations
+
+import hashlib
+import math
+from dataclasses import dataclass, replace
+
+import numpy as np
+
+from . import polygon as P
+from .properties import tabular
+from .shapes import ARC_TOLERANCE, EXACT_TOLERANCE, Row, Shape, ShapeError
+
+ANCHORS = ("bottom-left", "bottom-centre", "bottom-right", "top-left", "top-centre", "top-right", "centre",
+           "centroid")
+MIRRORS = ("none", "left-right", "up-down")
+
+
+@dataclass
+class Placed:
+    name: str
+    role: str  # "part" | "hole"
+    shape: Shape  # rows and rings already in the built-up frame
+    E: float | None = None  # MPa
+    rho: float | None = None  # kg/mm³
+
+
+def place(shape: Shape, x: float, y: float, anchor: str = "bottom-left", rotate: float = 0.0,
+          mirror: str = "none") -> Shape:
+    """A copy of ``shape`` moved into the built-up frame (closed forms dropped: they describe the original)."""
+    if anchor not in ANCHORS:
+        raise ShapeError(f"anchor must be one of {', '.join(ANCHORS)}", "anchor")
+    if mirror not in MIRRORS:
+        raise ShapeError(f"mirror must be one of {', '.join(MIRRORS)}", "mirror")
+    c, s = math.cos(rotate), math.sin(rotate)
+
+    def move_xy(px, py):
+        if mirror == "left-right":
+            px = -px
+        elif mirror == "up-down":
+            py = -py
+        return px * c - py * s, px * s + py * c
+
+    rings = []
+    for r in shape.rings:
+        mx, my = move_xy(r.x, r.y)
+        rings.append(P.make_ring(np.column_stack([mx, my]), r.sign, r.n))
+    rows = [row.transformed(None, rotate, 0.0, 0.0, mirror) for row in shape.rows]
+    solid = [r for r in rings if r.sign > 0]
+    xs = np.concatenate([r.x for r in solid])
+    ys = np.concatenate([r.y for r in solid])
+    x0, x1, y0, y1 = xs.min(), xs.max(), ys.min(), ys.max()
+    if anchor == "centroid":
+        b = tabular(rows)
+        ax, ay = b.x_c, b.y_c
+    else:
+        vert, _, horiz = anchor.partition("-") if anchor != "centre" else ("centre", "", "centre")
+        ay = {"bottom": y0, "top": y1, "centre": (y0 + y1) / 2}[vert]
+        ax = {"left": x0, "right": x1, "centre": (x0 + x1) / 2}[horiz]
+    dx, dy = x - ax, y - ay
+    return replace(
+        shape, rows=[replace(r, x=r.x + dx, y=r.y + dy) for r in rows], rings=[r.moved(dx, dy) for r in rings],
+        closed_form=None, pre_steps=[], J_steps=[], dims=[],
+    )
+
+
+def _sample(ring: P.Ring, limit: int = 256) -> P.Ring:
+    k = max(1, len(ring.x) // limit)
+    return P.Ring(ring.x[::k], ring.y[::k], ring.sign, ring.n) if k > 1 else ring
+
+
+def _boundary_points(ring: P.Ring, per_edge: int = 8):
+    """Vertices and points along every edge (subsampled rings of arcs keep their density)."""
+    r = _sample(ring, 512)
+    x0, y0 = r.x, r.y
+    x1, y1 = np.roll(r.x, -1), np.roll(r.y, -1)
+    t = np.linspace(0, 1, per_edge, endpoint=False)[None, :]
+    return (x0[:, None] + t * (x1 - x0)[:, None]).ravel(), (y0[:, None] + t * (y1 - y0)[:, None]).ravel()
+
+
+def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
+    """Points inside the shape's material (strict: farther than tol from every boundary)."""
+    inside = np.zeros(len(px), bool)
+    for r in shape.rings:
+        if r.sign > 0:
+            inside |= P.point_in_ring(px, py, r)
+    for r in shape.rings:
+        if r.sign < 0:
+            inside &= ~P.point_in_ring(px, py, r)
+    near = np.zeros(len(px), bool)
+    for r in shape.rings:
+        near |= P.distance_to_ring(px, py, _sample(r, 1024)) <= tol
+    return inside & ~near if strict else inside | near
+
+
+def _rows_centroid(shape: Shape):
+    b = tabular(shape.rows)
+    return np.array([b.x_c]), np.array([b.y_c])
+
+
+def _overlap(a: Shape, b: Shape, tol: float) -> bool:
+    for ra in a.rings:
+        for rb in b.rings:
+            if P.segments_cross(_sample(ra), _sample(rb), tol):
+                return True
+    for u, v in ((a, b), (b, a)):
+        pts = [np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])]
+        cx, cy = _rows_centroid(u)
+        px, py = np.concatenate([_sample(P.Ring(pts[0], pts[1]), 512).x, cx]), np.concatenate(
+            [_sample(P.Ring(pts[0], pts[1]), 512).y, cy])
+        if _in_material(px, py, v, tol, strict=True).any() and _in_material(cx, cy, u, tol, strict=True).any():
+            # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
+            vx, vy = _sample(P.Ring(pts[0], pts[1]), 512).x, _sample(P.Ring(pts[0], pts[1]), 512).y
+            if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():
+                return True
+    return False
+
+
+def _gap(a: Shape, b: Shape) -> float:
+    best = math.inf
+    for ra in (r for r in a.rings if r.sign > 0):
+        for rb in (r for r in b.rings if r.sign > 0):
+            sa, sb = _sample(ra), _sample(rb)
+            if P.segments_cross(sa, sb, 0.0):
+                return 0.0
+            best = min(best, float(P.distance_to_ring(sa.x, sa.y, sb).min()),
+                       float(P.distance_to_ring(sb.x, sb.y, sa).min()))
+    return best
+
+
+def _collapse(name: str, shape: Shape, sign: int, n: float, rho) -> Row:
+    """One parts-table row for a whole placed shape: its own area, centroid and centroidal moments."""
+    b = tabular(shape.rows)
+    return Row(name, b.A, b.x_c, b.y_c, b.I_x, b.I_y, b.I_xy, sign=sign, n=n, rho=rho)
+
+
+@dataclass
+class Assembly:
+    shape: Shape
+    n: list[float]  # per row
+    E_ref: float | None
+    warnings: list[tuple[str, str | None]]
+    part_of_row: list[int]
+
+
+def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
+    solids = [p for p in parts if p.role == "part"]
+    holes = [p for p in parts if p.role == "hole"]
+    if not solids:
+        raise ShapeError("a built-up section needs at least one part that is not a hole", "parts")
+    if E_ref is None:
+        E_ref = next((p.E for p in solids if p.E is not None), None)
+    if E_ref is not None and E_ref <= 0:
+        raise ShapeError("E_ref must be greater than zero", "E_ref")
+    xs = np.concatenate([r.x for p in solids for r in p.shape.rings])
+    ys = np.concatenate([r.y for p in solids for r in p.shape.rings])
+    size = float(max(np.ptp(xs), np.ptp(ys)))
+    tol = 1e-6 * size
+    has_arcs = any(p.shape.has_arcs for p in parts)
+    sag = size * (1 - math.cos(math.pi / 256)) if has_arcs else 0.0
+    touch_tol = 1e-4 * size + sag
+
+    def n_of(p):
+        if p.E is None:
+            return 1.0
+        if E_ref is None:
+            return 1.0
+        return p.E / E_ref
+
+    warnings: list[tuple[str, str | None]] = []
+    for i in range(len(solids)):
+        for j in range(i + 1, len(solids)):
+            if _overlap(solids[i].shape, solids[j].shape, tol + sag):
+                raise ShapeError(f"parts '{solids[i].name}' and '{solids[j].name}' overlap: material would count "
+                                 "twice (cut a hole in one where the other sits)", "parts")
+    # connectivity (union-find over touching parts)
+    parent = list(range(len(solids)))
+
+    def root(k):
+        while parent[k] != k:
+            parent[k] = parent[parent[k]]
+            k = parent[k]
+        return k
+
+    for i in range(len(solids)):
+        for j in range(i + 1, len(solids)):
+            if _gap(solids[i].shape, solids[j].shape) <= touch_tol:
+                parent[root(i)] = root(j)
+    groups = {}
+    for k in range(len(solids)):
+        groups.setdefault(root(k), []).append(solids[k].name)
+    if len(groups) > 1:
+        listing = "; ".join(", ".join(g) for g in groups.values())
+        warnings.append((f"parts do not touch: the section is not connected ({len(groups)} pieces: {listing}); "
+                         "its properties assume the pieces act together", "parts"))
+
+    rows, rings, n_rows, owner = [], [], [], []
+    for k, p in enumerate(solids):
+        n = n_of(p)
+        rows.append(_collapse(p.name, p.shape, 1, n, p.rho))
+        rings += [P.Ring(r.x, r.y, r.sign, r.n * n) for r in p.shape.rings]
+        n_rows.append(n)
+        owner.append(k)
+    for h_i, h in enumerate(holes):
+        solid_rings = [r for r in h.shape.rings if r.sign > 0]
+        px = np.concatenate([_boundary_points(r)[0] for r in solid_rings])
+        py = np.concatenate([_boundary_points(r)[1] for r in solid_rings])
+        where = np.full(len(px), -1)
+        for k, p in enumerate(solids):
+            m = _in_material(px, py, p.shape, touch_tol, strict=False) & (where < 0)
+            where[m] = k
+        if (where < 0).any():
+            bad = int(np.argmax(where < 0))
+            raise ShapeError(f"hole '{h.name}' is not fully inside the material (its edge passes ({px[bad]:.4g}, "
+                             f"{py[bad]:.4g}) mm, outside every part)", "parts")
+        # the material a hole cuts: parts holding its centroid or its boundary points strictly
+        # (a boundary point on the line where two parts touch belongs to neither)
+        cx, cy = _rows_centroid(h.shape)
+        qx, qy = np.concatenate([px, cx]), np.concatenate([py, cy])
+        cut = [k for k, p in enumerate(solids) if _in_material(qx, qy, p.shape, touch_tol, strict=True).any()]
+        cut = cut or sorted(set(where.tolist()))
+        ns = {n_of(solids[k]) for k in cut}
+        if len(ns) > 1:
+            raise ShapeError(f"hole '{h.name}' crosses parts of different materials: split it into one hole per part",
+                             "parts")
+        for other in holes[:h_i]:
+            if _overlap(h.shape, other.shape, tol + sag) or _gap(h.shape, other.shape) <= tol:
+                raise ShapeError(f"holes '{other.name}' and '{h.name}' overlap or touch", "parts")
+        for p in solids:
+            for r in p.shape.rings:
+                if r.sign < 0:
+                    void = replace(p.shape, rings=[P.Ring(r.x, r.y, 1, 1.0)])
+                    if _overlap(h.shape, void, tol + sag):
+                        raise ShapeError(f"hole '{h.name}' overlaps the open inside of part '{p.name}'", "parts")
+        k0 = cut[0]
+        n = n_of(solids[k0])
+        rows.append(_collapse(h.name, h.shape, -1, n, solids[k0].rho))
+        rings += [P.Ring(r.x, r.y, -r.sign, r.n * n) for r in h.shape.rings]
+        n_rows.append(n)
+        owner.append(k0)
+    J = sum(p.shape.J for p in solids)
+    digest = hashlib.sha1()
+    for r in rings:
+        digest.update(np.round(r.x, 9).tobytes())
+        digest.update(np.round(r.y, 9).tobytes())
+        digest.update(repr((r.sign, r.n)).encode())
+    label = (f"built-up section of {len(solids)} part{'s' * (len(solids) != 1)}"
+             + (f" and {len(holes)} hole{'s' * (len(holes) != 1)}" if holes else "") + f" #{digest.hexdigest()[:10]}")
+    shape = Shape(
+        "built-up", label, rows, rings, J=J,
+        J_method="sum of the parts' own torsion constants, J = Σ J_i (each part's method as in its own working; "
+                 "closed cells formed between parts and the effect of holes are not counted)",
+        has_arcs=has_arcs, warnings=warnings,
+    )
+    return Assembly(shape, n_rows, E_ref, warnings, owner)
+
+
+def tolerance_for(shape: Shape) -> float:
+    return ARC_TOLERANCE if shape.has_arcs else EXACT_TOLERANCE
