@@ -71,3 +71,46 @@ class Svg:
             f'width="{_n(self.width)}" height="{_n(self.height)}" '
             f'viewBox="0 0 {_n(self.width)} {_n(self.height)}">{title}' + "".join(self.parts) + "</svg>"
         )
+
+
+def dimension(svg: Svg, x1, y1, x2, y2, label, offset: float = 0.0, *, colour: str = "#333",
+              font_size: float = 10) -> None:
+    """A dimension line between two points (SVG pixel coordinates), ``offset`` px to its left.
+
+    Draws extension lines from the points, the dimension line with an arrowhead
+    at each end, and the label (escaped) at its middle, reading along the line.
+    """
+    import math
+
+    dx, dy = x2 - x1, y2 - y1
+    length = math.hypot(dx, dy)
+    if length == 0:
+        return
+    ux, uy = dx / length, dy / length
+    nx, ny = uy, -ux  # left of the direction on screen (y down)
+    ax, ay = x1 + nx * offset, y1 + ny * offset
+    bx, by = x2 + nx * offset, y2 + ny * offset
+    if offset:
+        gap = 2 if offset > 0 else -2
+        ext = offset + (4 if offset > 0 else -4)
+        svg.line(x1 + nx * gap, y1 + ny * gap, x1 + nx * ext, y1 + ny * ext, stroke=colour, stroke_width=0.6)
+        svg.line(x2 + nx * gap, y2 + ny * gap, x2 + nx * ext, y2 + ny * ext, stroke=colour, stroke_width=0.6)
+    svg.line(ax, ay, bx, by, stroke=colour, stroke_width=0.7)
+    head = min(6.0, length / 3)
+    for px, py, sx in ((ax, ay, 1), (bx, by, -1)):
+        tipx, tipy = px, py
+        basex, basey = px + sx * ux * head, py + sx * uy * head
+        svg.polygon([(tipx, tipy), (basex + nx * head * 0.35, basey + ny * head * 0.35),
+                     (basex - nx * head * 0.35, basey - ny * head * 0.35)], fill=colour)
+    angle = math.degrees(math.atan2(dy, dx))
+    if angle > 90 or angle <= -90:
+        angle -= 180 if angle > 0 else -180
+    mx, my = (ax + bx) / 2, (ay + by) / 2
+    lift = font_size * 0.35 + 2
+    tx, ty = mx + nx * lift * (1 if offset >= 0 else -1), my + ny * lift * (1 if offset >= 0 else -1)
+    if abs(angle) < 1e-9:
+        ty = min(ay, by) - 3 if offset >= 0 else max(ay, by) + font_size + 1
+        tx = mx
+    svg.text(tx, ty, label, font_size=font_size, text_anchor="middle", fill=colour,
+             transform=f"rotate({angle:.2f} {tx:.2f} {ty:.2f})" if abs(angle) > 1e-9 else None,
+             dominant_baseline="middle" if abs(angle) > 1e-9 else None)

@@ -1,0 +1,179 @@
+"""The ``calcsheet`` command: build, check, plugins.
+
+Exit status: 0 done; 1 a sheet has errors; 2 usage error; 3 checks NG under
+--fail-on-ng (or warnings under --strict for ``check``).
+"""
+from __future__ import annotations
+
+import argparse
+import sys
+from pathlib import Path
+
+EXIT_OK, EXIT_ERRORS, EXIT_USAGE, EXIT_NG = 0, 1, 2, 3
+FORMATS = ("html", "pdf", "json")
+
+
+class _Parser(argparse.ArgumentParser):
+    def error(self, message):  # usage errors exit 2 with a short message
+        self.print_usage(sys.stderr)
+        print(f"calcsheet: error: {message}", file=sys.stderr)
+        raise SystemExit(EXIT_USAGE)
+
+
+def _parser() -> argparse.ArgumentParser:
+    p = _Parser(prog="calcsheet", description="Checkable engineering calculation sheets.")
+    p.add_argument("--version", action="store_true", help="print the version")
+    sub = p.add_subparsers(dest="command")
+
+    b = sub.add_parser("build", help="evaluate sheets and write their packages")
+    b.add_argument("sheets", nargs="+", type=Path)
+    b.add_argument("-o", "--out", type=Path, default=Path("out"), help="output folder (default: out)")
+    b.add_argument("--format", default="html,pdf", help="comma-separated: html,pdf,json (default html,pdf)")
+    b.add_argument("--set", dest="overrides", action="append", default=[], metavar="NAME=QUANTITY",
+                   help="replace an input value for this build, e.g. --set L=7.5m")
+    b.add_argument("--fail-on-ng", action="store_true", help="exit 3 when any check is NG")
+    b.add_argument("--paper", choices=["A4", "Letter"], help="paper size (default: front matter, else A4)")
+
+    c = sub.add_parser("check", help="parse, resolve and dimension-check sheets without rendering")
+    c.add_argument("sheets", nargs="+", type=Path)
+    c.add_argument("--format", choices=["human", "json", "line"], default="human")
+    c.add_argument("--strict", action="store_true", help="warnings fail the check (exit 3)")
+
+    sub.add_parser("plugins", help="list plugin functions with their parameters and result fields")
+    return p
+
+
+def parse_sets(items: list[str]) -> dict[str, str]:
+    out = {}
+    for item in items:
+        name, sep, value = item.partition("=")
+        if not sep or not name.strip() or not value.strip():
+            raise ValueError(f"--set expects NAME=QUANTITY, got {item!r}")
+        out[name.strip()] = value.strip()
+    return out
+
+
+def main(argv: list[str] | None = None) -> int:
+    args = _parser().parse_args(argv)
+    if args.version:
+        from . import __version__
+
+        print(f"calcsheet {__version__}")
+        return EXIT_OK
+    if args.command == "build":
+        return cmd_build(args)
+    if args.command == "check":
+        return cmd_check(args)
+    if args.command == "plugins":
+        return cmd_plugins()
+    _parser().print_help()
+    return EXIT_USAGE
+
+
+def _missing(paths) -> list[Path]:
+    return [p for p in paths if not p.is_file()]
+
+
+def cmd_build(args) -> int:
+    formats = [f.strip().lower() for f in args.format.split(",") if f.strip()]
+    bad = [f for f in formats if f not in FORMATS]
+    if bad or not formats:
+        print(f"calcsheet: error: unknown format(s) {', '.join(bad) or '(none)'}; choose from html, pdf, json",
+              file=sys.stderr)
+        return EXIT_USAGE
+    try:
+        overrides = parse_sets(args.overrides)
+    except ValueError as exc:
+        print(f"calcsheet: error: {exc}", file=sys.stderr)
+        return EXIT_USAGE
+    missing = _missing(args.sheets)
+    if missing:
+        print(f"calcsheet: error: no such sheet: {missing[0]}", file=sys.stderr)
+        return EXIT_USAGE
+    from .engine import run
+    from .package import write_package
+
+    status = EXIT_OK
+    many = len(args.sheets) > 1
+    for i, sheet in enumerate(args.sheets, 1):
+        if many:
+            print(f"[{i}/{len(args.sheets)}] {sheet}", file=sys.stderr)
+        result = run(sheet, overrides=overrides)
+        if result.diagnostics:
+            print(result.format_diagnostics(), file=sys.stderr)
+        if not result.ok:
+            print(f"{sheet}: not built ({len(result.errors)} error(s)); previous package left as it was",
+                  file=sys.stderr)
+            status = EXIT_ERRORS
+            continue
+        try:
+            written = write_package(result, args.out, formats, paper=args.paper)
+        except OSError as exc:
+            print(f"calcsheet: error: cannot write the package: {exc}", file=sys.stderr)
+            status = EXIT_ERRORS
+            continue
+        n_ng = sum(1 for c in result.checks if not c.ok)
+        verdict = f"{len(result.checks)} checks, {n_ng} NG" if result.checks else "no checks"
+        print(f"{sheet}: {verdict} -> " + ", ".join(str(p) for p in written))
+        if n_ng and args.fail_on_ng and status == EXIT_OK:
+            status = EXIT_NG
+    return status
+
+
+def cmd_check(args) -> int:
+    missing = _missing(args.sheets)
+    if missing:
+        print(f"calcsheet: error: no such sheet: {missing[0]}", file=sys.stderr)
+        return EXIT_USAGE
+    from .engine import run
+
+    status = EXIT_OK
+    all_json = []
+    for sheet in args.sheets:
+        result = run(sheet, evaluate=False)
+        diags = [d for d in result.diagnostics if not d.suppressed]
+        if args.format == "json":
+            all_json.append({"path": str(sheet), "diagnostics": [d.to_json() for d in diags]})
+        elif args.format == "line":
+            for d in diags:
+                print(d.one_line())
+        else:
+            for d in diags:
+                print(d.format(result.source))
+            if not diags:
+                print(f"{sheet}: no problems found")
+        if any(d.severity == "error" for d in diags):
+            status = EXIT_ERRORS
+        elif args.strict and any(d.severity == "warning" for d in diags) and status == EXIT_OK:
+            status = EXIT_NG
+    if args.format == "json":
+        import json
+
+        print(json.dumps(all_json if len(all_json) != 1 else all_json[0], indent=2, ensure_ascii=False))
+    return status
+
+
+def cmd_plugins() -> int:
+    from .plugin import PluginDefinitionError, default_registry
+    from . import units as U
+
+    reg = default_registry()
+    status = EXIT_OK
+    for ns_name in reg.names():
+        try:
+            ns = reg.namespace(ns_name)
+        except PluginDefinitionError as exc:
+            print(f"{ns_name}: cannot load: {exc}")
+            status = EXIT_ERRORS
+            continue
+        print(f"{ns.name} {ns.version} — {ns.doc}".rstrip(" —"))
+        for pf in ns.functions.values():
+            summary = pf.doc.splitlines()[0] if pf.doc else ""
+            print(f"  {pf.qualname}(…)  {summary}")
+            for p in pf.params:
+                print(f"      {p.name:<10} {p.describe()}" + (f" — {p.doc}" if p.doc else ""))
+            if pf.fields:
+                fields = ", ".join(f.name + (f" [{U.describe_dim(f.dimension)}]" if f.dim else "")
+                                   for f in pf.fields)
+                print(f"      → {fields}")
+    return status

@@ -1,0 +1,195 @@
+"""How values are shown: preferred units per dimension, significant figures.
+
+Printers ask this module which unit a value is shown in and how its number
+is written; they only decide the markup.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+
+import pint
+
+from . import units as U
+
+F = (("[length]", 1), ("[mass]", 1), ("[time]", -2))  # force
+
+
+@dataclass(frozen=True)
+class DisplayPolicy:
+    system: str = "SI"  # "SI" | "US"
+    sigfigs: int = 3
+
+    def unit_for(self, value) -> pint.Unit | None:
+        """The preferred unit for a computed value with no declared unit."""
+        if not isinstance(value, pint.Quantity):
+            return None
+        return preferred_unit(U.dim_of(value), self.system, _magnitude_hint(value))
+
+
+def _magnitude_hint(q: pint.Quantity) -> float | None:
+    try:
+        m = q.to_base_units().magnitude
+        return abs(float(m)) if not hasattr(m, "__len__") else float(abs(m).max())
+    except Exception:
+        return None
+
+
+def _u(text: str) -> pint.Unit:
+    return _unit_cache(text)
+
+
+@lru_cache(maxsize=None)
+def _unit_cache(text: str) -> pint.Unit:
+    from .parser import split_unit
+
+    return U.build_unit(split_unit(text))
+
+
+# For each dimension: a list of (upper bound in SI base units, unit), first match wins.
+_SI = {
+    (("[length]", 1),): [(1.0, "mm"), (math.inf, "m")],
+    (("[length]", 2),): [(1.0, "mm^2"), (math.inf, "m^2")],
+    (("[length]", 3),): [(1.0, "mm^3"), (math.inf, "m^3")],
+    (("[length]", 4),): [(1.0, "mm^4"), (math.inf, "m^4")],
+    (("[length]", 6),): [(math.inf, "mm^6")],
+    F: [(1e6, "kN"), (math.inf, "MN")],
+    (("[mass]", 1), ("[time]", -2)): [(math.inf, "kN/m")],
+    (("[length]", -1), ("[mass]", 1), ("[time]", -2)): [(1e5, "kPa"), (1e10, "MPa"), (math.inf, "GPa")],
+    (("[length]", 2), ("[mass]", 1), ("[time]", -2)): [(math.inf, "kN*m")],
+    (("[length]", -2), ("[mass]", 1), ("[time]", -2)): [(math.inf, "kN/m^3")],
+    (("[length]", 1), ("[mass]", 1), ("[time]", -2), ("[angle]", -1)): [(math.inf, "kN*m/rad")],
+    (("[mass]", 1),): [(math.inf, "kg")],
+    (("[length]", -1), ("[mass]", 1)): [(math.inf, "kg/m")],
+    (("[length]", -3), ("[mass]", 1)): [(math.inf, "kg/m^3")],
+    (("[time]", 1),): [(math.inf, "s")],
+    (("[time]", -1),): [(math.inf, "Hz")],
+    (("[angle]", 1),): [(math.inf, "deg")],
+    (("[temperature]", 1),): [(math.inf, "K")],
+}
+_US = {
+    (("[length]", 1),): [(3.048, "in"), (math.inf, "ft")],  # below 10 ft in inches
+    (("[length]", 2),): [(0.9290304, "in^2"), (math.inf, "ft^2")],
+    (("[length]", 3),): [(math.inf, "in^3")],
+    (("[length]", 4),): [(math.inf, "in^4")],
+    (("[length]", 6),): [(math.inf, "in^6")],
+    F: [(math.inf, "kip")],
+    (("[mass]", 1), ("[time]", -2)): [(math.inf, "kip/ft")],
+    (("[length]", -1), ("[mass]", 1), ("[time]", -2)): [(6894.757 * 0.5, "psf"), (6.894757e6, "psi"),
+                                                        (math.inf, "ksi")],
+    (("[length]", 2), ("[mass]", 1), ("[time]", -2)): [(math.inf, "kip*ft")],
+    (("[length]", -2), ("[mass]", 1), ("[time]", -2)): [(math.inf, "pcf")],
+    (("[mass]", 1),): [(math.inf, "lbm")],
+    (("[length]", -1), ("[mass]", 1)): [(math.inf, "lbm/ft")],
+    (("[length]", -3), ("[mass]", 1)): [(math.inf, "lbm/ft^3")],
+    (("[time]", 1),): [(math.inf, "s")],
+    (("[time]", -1),): [(math.inf, "Hz")],
+    (("[angle]", 1),): [(math.inf, "deg")],
+    (("[temperature]", 1),): [(math.inf, "K")],
+}
+
+
+def preferred_unit(dim: U.Dim, system: str = "SI", magnitude_si: float | None = None) -> pint.Unit | None:
+    """The unit an engineer expects for this dimension and size; None for dimensionless."""
+    if dim == U.DIMENSIONLESS:
+        return None
+    table = _US if system.upper() == "US" else _SI
+    bands = table.get(dim)
+    if bands:
+        m = magnitude_si if magnitude_si is not None else 0.0
+        for bound, unit in bands:
+            if m < bound:
+                return _u(unit)
+        return _u(bands[-1][1])
+    # Fallback: any force^a * length^b (moment per length, stiffness, flexural rigidity...)
+    d = dict(dim)
+    if set(d) <= {"[length]", "[mass]", "[time]"} and math.isclose(d.get("[time]", 0), -2 * d.get("[mass]", 0)):
+        a = d.get("[mass]", 0)
+        b = d.get("[length]", 0) - a
+        force, length = ("kip", "in") if system.upper() == "US" else ("kN", "m")
+        unit = _u(force) ** a if a else None
+        if b:
+            lu = _u(length) ** b
+            unit = lu if unit is None else unit * lu
+        return unit
+    return None
+
+
+# ------------------------------------------------------------------ numbers
+
+
+def split_number(x: float, sigfigs: int = 3) -> tuple[str, int | None]:
+    """Mantissa text and power of ten (None when written plainly).
+
+    Values from 0.001 up to below 100 000 are written plainly (2437 -> 2440 at
+    three figures); others as ×10ⁿ.
+    """
+    if x == 0:
+        return "0", None
+    if not math.isfinite(x):
+        return str(x), None
+    sigfigs = max(1, int(sigfigs))
+    x = float(f"{x:.{sigfigs - 1}e}")  # round to the significant figures first
+    exp = math.floor(math.log10(abs(x)))
+    if 1e-3 <= abs(x) < 1e5:
+        return f"{x:.{max(0, sigfigs - 1 - exp)}f}", None
+    return f"{x / 10**exp:.{sigfigs - 1}f}", exp
+
+
+def plain_number(x: float, sigfigs: int = 3) -> str:
+    """A number for machine-friendly text: '1.23e5'."""
+    text, exp = split_number(x, sigfigs)
+    return text if exp is None else f"{text}e{exp}"
+
+
+# ------------------------------------------------------------------ units
+
+
+@lru_cache(maxsize=2048)
+def unit_factors(unit: pint.Unit) -> tuple[tuple[tuple[str, float], ...], tuple[tuple[str, float], ...]]:
+    """Numerator and denominator (symbol, exponent) pairs, as a reviewer writes them."""
+    reg = U.registry()
+    num, den = [], []
+    for name, exp in unit._units.items():
+        sym = _SYMBOLS.get(name) or reg.get_symbol(name)
+        (num if exp > 0 else den).append((sym, abs(exp)))
+    return tuple(num), tuple(den)
+
+
+_SYMBOLS = {
+    "degree": "°", "percent": "%", "force_pound": "lbf", "pound": "lbm", "kip": "kip", "psi": "psi",
+    "ksi": "ksi", "psf": "psf", "ksf": "ksf", "plf": "plf", "klf": "klf", "pcf": "pcf", "micrometer": "µm",
+    "degree_Celsius": "°C", "degree_Fahrenheit": "°F", "tonne": "t", "liter": "L", "hour": "h",
+    "minute": "min", "kilogram_force": "kgf", "tonne_force": "tf", "permille": "‰",
+}
+
+_SUP = str.maketrans("0123456789-.", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻·")
+
+
+def superscript(n) -> str:
+    text = str(int(n)) if float(n).is_integer() else f"{n:g}"
+    return text.translate(_SUP)
+
+
+def unit_text(unit: pint.Unit | None) -> str:
+    """Typeset unit in plain Unicode: kN·m, mm⁴, N/mm², kN/(m·s)."""
+    if unit is None:
+        return ""
+    num, den = unit_factors(unit)
+
+    def part(items):
+        return "·".join(s + (superscript(e) if e != 1 else "") for s, e in items)
+
+    top = part(num) or ("1" if den else "")
+    if not den:
+        return top
+    bottom = part(den)
+    return f"{top}/({bottom})" if len(den) > 1 else f"{top}/{bottom}"
+
+
+def pint_unit_string(unit: pint.Unit | None) -> str:
+    """The unit as pint parses it back: 'kN * m', 'mm ** 4'."""
+    if unit is None:
+        return ""
+    return format(unit, "~")

@@ -1,0 +1,273 @@
+"""The pipeline in one place: parse -> resolve -> check -> evaluate -> trace.
+
+``run`` never raises for a problem in the sheet: every problem becomes a
+diagnostic on the result, and statements downstream of a broken one are
+skipped rather than reported again.
+"""
+from __future__ import annotations
+
+import hashlib
+import os
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+import pint
+
+from . import __version__
+from . import nodes as N
+from . import trace as TR
+from . import units as U
+from .checker import Checker
+from .display import DisplayPolicy, pint_unit_string
+from .errors import CalcError, Diagnostic, OverrideError, SheetErrors, Span
+from .evaluator import Evaluator
+from .parser import parse_sheet, parse_statement
+from .plugin import PluginRegistry, Record, default_registry
+from .resolver import Resolution, check_key, resolve
+
+MAX_SIGFIGS = 8
+
+
+@dataclass
+class Result:
+    """Everything a printer or a test needs from one run of a sheet."""
+
+    path: str
+    source: str
+    meta: dict[str, Any]
+    items: list[Any] = field(default_factory=list)  # trace: Heading | Prose | Step | CheckResult
+    values: dict[str, Any] = field(default_factory=dict)
+    steps: dict[str, TR.Step] = field(default_factory=dict)
+    checks: list[TR.CheckResult] = field(default_factory=list)
+    diagnostics: list[Diagnostic] = field(default_factory=list)
+    resolution: Resolution | None = None
+    policy: DisplayPolicy = field(default_factory=DisplayPolicy)
+    overrides: dict[str, Any] = field(default_factory=dict)
+    plugin_versions: dict[str, str] = field(default_factory=dict)
+    sheet: N.Sheet | None = None
+
+    @property
+    def errors(self) -> list[Diagnostic]:
+        return [d for d in self.diagnostics if d.severity == "error"]
+
+    @property
+    def ok(self) -> bool:
+        """No errors (checks may still be NG)."""
+        return not self.errors
+
+    @property
+    def all_checks_ok(self) -> bool:
+        return all(c.ok for c in self.checks)
+
+    @property
+    def sha256(self) -> str:
+        return hashlib.sha256(self.source.encode("utf-8")).hexdigest()
+
+    @property
+    def engine_version(self) -> str:
+        return __version__
+
+    @property
+    def precedents(self) -> dict[str, list[str]]:
+        return self.resolution.precedents if self.resolution else {}
+
+    @property
+    def dependents(self) -> dict[str, list[str]]:
+        return self.resolution.dependents if self.resolution else {}
+
+    @property
+    def inputs(self) -> list[str]:
+        return self.resolution.inputs if self.resolution else []
+
+    def to_json(self) -> dict:
+        from .render.json import JsonPrinter
+
+        return JsonPrinter().result(self)
+
+    def format_diagnostics(self) -> str:
+        return "\n".join(d.format(self.source) for d in self.diagnostics)
+
+
+def _policy(meta: dict, diags: list[Diagnostic], path: str) -> DisplayPolicy:
+    system = str(meta.get("units", "SI")).strip().upper()
+    if system not in ("SI", "US"):
+        diags.append(Diagnostic("warning", "front-matter", f"units: {meta.get('units')!r} is not SI or US; using SI",
+                                Span(1, 1, 1, 2), path=path))
+        system = "SI"
+    sig = meta.get("sigfigs", 3)
+    try:
+        sig = int(sig)
+        if not 1 <= sig <= MAX_SIGFIGS:
+            raise ValueError
+    except (TypeError, ValueError):
+        diags.append(Diagnostic("warning", "front-matter", f"sigfigs must be a whole number 1–{MAX_SIGFIGS}; using 3",
+                                Span(1, 1, 1, 2), path=path))
+        sig = 3
+    return DisplayPolicy(system=system, sigfigs=sig)
+
+
+def read_source(path_or_text, path: str | None = None) -> tuple[str, str]:
+    """A path to a .calc file, or the sheet text itself."""
+    if isinstance(path_or_text, Path) or (
+        isinstance(path_or_text, str) and "\n" not in path_or_text and path_or_text.endswith(".calc")
+    ):
+        p = Path(path_or_text)
+        return p.read_text(encoding="utf-8"), path or str(p)
+    return str(path_or_text), path or "<sheet>"
+
+
+def parse_override(name: str, text: str) -> N.Expr:
+    """A --set value: a constant expression such as '7.5 m' or '2*150 mm'."""
+    try:
+        stmt = parse_statement(f"{name} = {text}")
+    except CalcError as exc:
+        raise OverrideError(f"--set {name}={text}: {exc.message}") from None
+    if any(isinstance(n, (N.Name, N.PluginCall, N.FieldAccess)) for n in N.walk(stmt.expr)):
+        raise OverrideError(f"--set {name}={text}: an override must be a value, not refer to other names")
+    return stmt.expr
+
+
+def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | None = None,
+        plugins: PluginRegistry | None = None, evaluate: bool = True) -> Result:
+    source, path = read_source(path_or_text, path)
+    plugins = plugins or default_registry()
+    try:
+        sheet, diags = parse_sheet(source, path)
+    except SheetErrors as exc:
+        return Result(path=path, source=source, meta={}, diagnostics=list(exc.diagnostics))
+    meta = sheet.meta_dict
+    policy = _policy(meta, diags, path)
+    result = Result(path=path, source=sheet.source, meta=meta, diagnostics=diags, policy=policy, sheet=sheet)
+
+    res = resolve(sheet, plugins)
+    result.resolution = res
+    result.diagnostics.extend(res.diagnostics)
+    override_exprs = _prepare_overrides(overrides or {}, res, result)
+    checker = Checker(plugins, path)
+    result.diagnostics.extend(checker.check_sheet(sheet, res))
+    for name, expr in override_exprs.items():
+        _check_override_dim(name, expr, checker, result)
+    if evaluate:
+        _evaluate(sheet, res, result, plugins, override_exprs)
+    result.diagnostics.sort(key=lambda d: (d.span.line, d.span.col))
+    return result
+
+
+def _prepare_overrides(overrides: dict[str, Any], res: Resolution, result: Result) -> dict[str, N.Expr]:
+    out = {}
+    import difflib
+
+    for name, value in overrides.items():
+        if name not in res.defined_at:
+            close = difflib.get_close_matches(name, list(res.defined_at), n=1)
+            result.diagnostics.append(OverrideError(
+                f"--set {name}: the sheet defines no '{name}'", Span(1, 1, 1, 2),
+                hint=f"did you mean '{close[0]}'?" if close else None).diagnostic(result.path))
+            continue
+        if name not in res.inputs:
+            stmt = res.statements[name]
+            result.diagnostics.append(OverrideError(
+                f"--set {name}: '{name}' is calculated on line {stmt.span.line}, not an input",
+                stmt.span, hint="override one of the inputs it depends on").diagnostic(result.path))
+            continue
+        try:
+            if isinstance(value, pint.Quantity):
+                out[name] = value
+            else:
+                out[name] = parse_override(name, str(value))
+        except CalcError as exc:
+            result.diagnostics.append(exc.with_span(res.statements[name].span).diagnostic(result.path))
+    return out
+
+
+def _check_override_dim(name, expr, checker: Checker, result: Result):
+    if isinstance(expr, pint.Quantity):
+        new = U.dim_of(expr)
+    else:
+        try:
+            t = checker.infer(expr)
+        except CalcError as exc:
+            result.diagnostics.append(exc.with_span(result.resolution.statements[name].span).diagnostic(result.path))
+            result.resolution.broken.add(name)
+            return
+        new = t.dim if t.kind == "q" else None
+    old = checker.types.get(name)
+    if old is not None and old.kind == "q" and new is not None and new != old.dim:
+        stmt = result.resolution.statements[name]
+        result.diagnostics.append(OverrideError(
+            f"--set {name}: the sheet's {name} is {U.describe_dim(old.dim)}, the override is {U.describe_dim(new)}",
+            stmt.span).diagnostic(result.path))
+        result.resolution.broken.add(name)
+        for key in result.resolution.downstream(name):
+            result.resolution.broken.add(key)
+
+
+def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, overrides: dict) -> None:
+    ev = Evaluator(result.policy, plugins)
+    env: dict[str, Any] = {}
+    display: dict[str, Any] = {}
+    check_no = 0
+    for stmt in sheet.body:
+        if isinstance(stmt, N.Heading):
+            result.items.append(TR.Heading(stmt.text, stmt.level))
+            continue
+        if isinstance(stmt, N.Prose):
+            result.items.append(TR.Prose(stmt.text))
+            continue
+        key = stmt.name if isinstance(stmt, N.Definition) else check_key(stmt)
+        if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
+            res.broken.add(key)
+            continue
+        try:
+            if isinstance(stmt, N.Definition):
+                original = None
+                if stmt.name in overrides:
+                    original = ev.evaluate_definition(stmt, env, display).value
+                    o = overrides[stmt.name]
+                    stmt_used = stmt if isinstance(o, pint.Quantity) else _with_expr(stmt, o)
+                    if isinstance(o, pint.Quantity):
+                        step = ev.evaluate_definition(stmt, env, display)
+                        step.value = o
+                    else:
+                        step = ev.evaluate_definition(stmt_used, env, display)
+                    step.overridden = original
+                    result.overrides[stmt.name] = (original, step.value)
+                else:
+                    step = ev.evaluate_definition(stmt, env, display)
+                step.is_input = stmt.name in res.inputs
+                step.anchor = "v-" + stmt.name
+                env[stmt.name] = step.value
+                display[stmt.name] = step.display_unit
+                result.values[stmt.name] = step.value
+                result.steps[stmt.name] = step
+                result.items.append(step)
+            else:
+                check = ev.evaluate_check(stmt, env, lambda k, v: display.get(k) if k in display else
+                                          (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None))
+                check_no += 1
+                check.anchor = f"check-{check_no}"
+                check.text = _check_text(stmt, result.source)
+                result.checks.append(check)
+                result.items.append(check)
+        except CalcError as exc:
+            res.broken.add(key)
+            result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))
+        for message, span in ev.warnings:
+            result.diagnostics.append(Diagnostic("warning", "plugin-warning", message, span or stmt.span,
+                                                 path=result.path))
+        ev.warnings.clear()
+    result.plugin_versions = dict(ev.plugin_versions)
+
+
+def _with_expr(stmt: N.Definition, expr: N.Expr) -> N.Definition:
+    import dataclasses
+
+    return dataclasses.replace(stmt, expr=expr)
+
+
+def _check_text(stmt: N.Check, source: str) -> str:
+    """The check as written in the sheet (one line, no description)."""
+    from .render.text import TextPrinter
+
+    return TextPrinter().expr(stmt.left) + f" {stmt.op} " + TextPrinter().expr(stmt.right)

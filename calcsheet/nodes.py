@@ -1,0 +1,248 @@
+"""The AST: frozen dataclasses, each carrying its source span.
+
+Nodes list their children in ``_children`` apart from position attributes,
+so visitors can walk any node without knowing its class. Nothing past the
+parser sees lark objects: only these.
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Any
+
+from .errors import Span
+
+
+@dataclass(frozen=True)
+class Node:
+    _children: tuple[str, ...] = field(default=(), init=False, repr=False, compare=False)
+
+    def children(self):
+        for name in self._children:
+            value = getattr(self, name)
+            if isinstance(value, tuple):
+                yield from (v for v in value if isinstance(v, Node))
+            elif isinstance(value, Node):
+                yield value
+
+
+# ------------------------------------------------------------ expressions
+
+
+@dataclass(frozen=True)
+class Expr(Node):
+    pass
+
+
+@dataclass(frozen=True)
+class Number(Expr):
+    """A literal, optionally with a unit: ``150 mm``, ``2.1e5 N/mm^2``, ``0.6``."""
+
+    value: float
+    text: str  # the number as written
+    unit: tuple[tuple[str, float], ...] = ()  # (unit name, exponent) factors
+    unit_text: str = ""
+    span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class Name(Expr):
+    id: str
+    span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class Text(Expr):
+    value: str
+    span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class Neg(Expr):
+    operand: Expr
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("operand",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class BinOp(Expr):
+    """Base of the arithmetic operators; subclasses are made by ``_binop``."""
+
+    left: Expr
+    right: Expr
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("left", "right"), init=False, repr=False, compare=False)
+    op = "?"
+
+
+def _binop(name: str, op: str) -> type[BinOp]:
+    return dataclass(frozen=True)(type(name, (BinOp,), {"op": op, "__doc__": f"``a {op} b``"}))
+
+
+Add = _binop("Add", "+")
+Sub = _binop("Sub", "-")
+Mul = _binop("Mul", "*")
+Div = _binop("Div", "/")
+Pow = _binop("Pow", "^")
+
+BINOPS: dict[str, type[BinOp]] = {cls.op: cls for cls in (Add, Sub, Mul, Div, Pow)}
+
+
+@dataclass(frozen=True)
+class Keyword(Node):
+    name: str
+    value: Expr
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("value",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class Call(Expr):
+    """A built-in or sheet function: ``sqrt(x)``, ``max(a, b)``."""
+
+    func: str
+    args: tuple[Expr, ...]
+    kwargs: tuple[Keyword, ...] = ()
+    span: Span | None = field(default=None, compare=False)
+    func_span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("args", "kwargs"), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class PluginCall(Expr):
+    """``ns.func(k=v, ...)``: keyword arguments only, so a reviewer reads what each value is."""
+
+    namespace: str
+    func: str
+    kwargs: tuple[Keyword, ...]
+    args: tuple[Expr, ...] = ()  # positional arguments are refused by the resolver
+    span: Span | None = field(default=None, compare=False)
+    func_span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("args", "kwargs"), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class FieldAccess(Expr):
+    """``rec.field``."""
+
+    obj: Expr
+    field_name: str
+    span: Span | None = field(default=None, compare=False)
+    field_span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("obj",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class ListExpr(Expr):
+    items: tuple[Expr, ...]
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("items",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class TupleExpr(Expr):
+    """A point ``(x, y)``."""
+
+    items: tuple[Expr, ...]
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("items",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class Paren(Expr):
+    """Parentheses as written, kept so a printed formula matches the sheet."""
+
+    inner: Expr
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("inner",), init=False, repr=False, compare=False)
+
+
+# ------------------------------------------------------------ statements
+
+
+@dataclass(frozen=True)
+class Statement(Node):
+    pass
+
+
+@dataclass(frozen=True)
+class Definition(Statement):
+    """``name [unit] = expr  -- description``."""
+
+    name: str
+    expr: Expr
+    unit: tuple[tuple[str, float], ...] | None = None
+    unit_text: str | None = None
+    description: str | None = None
+    span: Span | None = field(default=None, compare=False)
+    name_span: Span | None = field(default=None, compare=False)
+    unit_span: Span | None = field(default=None, compare=False)
+    comment: str | None = None  # the hidden `//` comment on the line (suppressions live here)
+    _children: tuple[str, ...] = field(default=("expr",), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class Check(Statement):
+    """``check a <= b  -- description``."""
+
+    left: Expr
+    op: str
+    right: Expr
+    description: str | None = None
+    span: Span | None = field(default=None, compare=False)
+    comment: str | None = None
+    _children: tuple[str, ...] = field(default=("left", "right"), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
+class Heading(Statement):
+    level: int
+    text: str
+    span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class Prose(Statement):
+    text: str
+    span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class Sheet(Node):
+    meta: tuple[tuple[str, Any], ...]
+    body: tuple[Statement, ...]
+    path: str = "<sheet>"
+    source: str = field(default="", repr=False, compare=False)
+    _children: tuple[str, ...] = field(default=("body",), init=False, repr=False, compare=False)
+
+    @property
+    def meta_dict(self) -> dict[str, Any]:
+        return dict(self.meta)
+
+
+class Visitor:
+    """Dispatch ``visit_<ClassName>`` up the class hierarchy, with a generic fallback."""
+
+    def visit(self, node, *args, **kwargs):
+        for cls in type(node).__mro__:
+            method = getattr(self, "visit_" + cls.__name__, None)
+            if method is not None:
+                return method(node, *args, **kwargs)
+        return self.generic_visit(node, *args, **kwargs)
+
+    def generic_visit(self, node, *args, **kwargs):
+        for child in node.children():
+            self.visit(child, *args, **kwargs)
+
+
+def walk(node: Node):
+    """Every node below (and including) ``node``, iteratively (deep sums are fine)."""
+    stack = [node]
+    while stack:
+        n = stack.pop()
+        yield n
+        stack.extend(reversed(list(n.children())))
+
+
+def names_used(expr: Expr) -> list[Name]:
+    """Names an expression reads, in order (plugin namespaces excluded)."""
+    return [n for n in walk(expr) if isinstance(n, Name)]

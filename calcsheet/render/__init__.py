@@ -1,0 +1,1 @@
+"""Printers: one class per output format (text, HTML math, JSON)."""

@@ -1,0 +1,70 @@
+"""JSON printer: every value, check and diagnostic, in the documented shape.
+
+Units are written the way pint parses them back (``pint.Quantity(v, unit)``).
+"""
+from __future__ import annotations
+
+import pint
+
+from ..display import pint_unit_string
+from ..plugin import Record
+from .base import Printer
+
+
+class JsonPrinter(Printer):
+    default_settings = {"sigfigs": None}
+
+    def value(self, value, unit=None) -> dict:
+        if isinstance(value, pint.Quantity):
+            if unit is not None:
+                try:
+                    value = value.to(unit)
+                except pint.DimensionalityError:
+                    pass
+            elif value.dimensionless:
+                value = value.to_reduced_units()
+            mag = value.magnitude
+            try:
+                mag = float(mag)
+            except TypeError:
+                mag = [float(x) for x in mag]
+            return {"value": mag, "unit": pint_unit_string(value.units) if value.units._units else ""}
+        if isinstance(value, str):
+            return {"text": value}
+        if isinstance(value, Record):
+            return {"record": value.source, "fields": {k: self.value(v) for k, v in value.fields.items()
+                                                       if isinstance(v, (pint.Quantity, str))}}
+        if isinstance(value, tuple):
+            return {"list": [self.value(v) for v in value]}
+        return {"text": str(value)}
+
+    def result(self, result) -> dict:
+        values = {}
+        for name, step in result.steps.items():
+            entry = self.value(step.value, step.display_unit)
+            entry["line"] = step.span.line if step.span else None
+            if step.description:
+                entry["description"] = step.description
+            entry["input"] = step.is_input
+            if step.overridden is not None:
+                entry["overridden_from"] = self.value(step.overridden, step.display_unit)
+            values[name] = entry
+        checks = []
+        for c in result.checks:
+            checks.append({
+                "line": c.span.line if c.span else None,
+                "text": c.text,
+                "ok": bool(c.ok),
+                "ratio": c.ratio,
+                "demand": self.value(c.demand),
+                "capacity": self.value(c.capacity, c.demand.units if isinstance(c.demand, pint.Quantity) else None),
+                "description": c.description,
+            })
+        return {
+            "meta": {k: v for k, v in result.meta.items()},
+            "values": values,
+            "checks": checks,
+            "diagnostics": [d.to_json() for d in result.diagnostics],
+            "source": {"path": result.path, "sha256": result.sha256},
+            "versions": {"calcsheet": result.engine_version, "plugins": dict(result.plugin_versions)},
+        }
