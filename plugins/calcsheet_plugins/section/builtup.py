@@ -141,6 +141,10 @@ def _gap(a: Shape, b: Shape) -> float:
 def _collapse(name: str, shape: Shape, sign: int, n: float, rho) -> Row:
     """One parts-table row for a whole placed shape: its own area, centroid and centroidal moments."""
     b = tabular(shape.rows)
+    if rho is None:  # the shape's own densities, as one equivalent density over its area
+        m = sum(r.sign * (r.rho or 0.0) * r.A for r in shape.rows)
+        a = sum(r.sign * r.A for r in shape.rows)
+        rho = m / a if m else None
     return Row(name, b.A, b.x_c, b.y_c, b.I_x, b.I_y, b.I_xy, sign=sign, n=n, rho=rho)
 
 

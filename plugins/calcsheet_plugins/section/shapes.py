@@ -74,7 +74,8 @@ class Step:
 
 @dataclass(frozen=True)
 class Dimension:
-    """A dimension line for the drawing: from (x1, y1) to (x2, y2), drawn ``offset`` mm to its left."""
+    """A dimension line for the drawing from (x1, y1) to (x2, y2); ``offset`` in drawing levels to its
+    left (-1: one level to its right, 0: on the measured line itself)."""
 
     x1: float
     y1: float
@@ -204,7 +205,7 @@ def circle(d: float) -> Shape:
                      Step("y_c", "d/2", "mm", "centroid above the base"),
                      Step("I_x", "pi*d^4/64", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "pi*d^4/64", "mm^4", "second moment about the centroidal y axis")],
-        dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)}", -r - 0.15 * d)],
+        dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)}", 0)],
         has_arcs=True,
     )
 
@@ -235,7 +236,7 @@ def tube(d: float, t: float | None = None, d_i: float | None = None) -> Shape:
                      Step("y_c", "d/2", "mm", "centroid above the base"),
                      Step("I_x", "pi*(d^4 - d_i^4)/64", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "pi*(d^4 - d_i^4)/64", "mm^4", "second moment about the centroidal y axis")],
-        dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)} × {_fmt((d - di) / 2)}", -r - 0.15 * d)],
+        dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)} × {_fmt((d - di) / 2)}", 0)],
         has_arcs=True,
     )
 
