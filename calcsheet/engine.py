@@ -267,7 +267,12 @@ def _with_expr(stmt: N.Definition, expr: N.Expr) -> N.Definition:
 
 
 def _check_text(stmt: N.Check, source: str) -> str:
-    """The check as written in the sheet (one line, no description)."""
-    from .render.text import TextPrinter
-
-    return TextPrinter().expr(stmt.left) + f" {stmt.op} " + TextPrinter().expr(stmt.right)
+    """The check as written in the sheet, without 'check' and its description."""
+    a, b = stmt.left.span, stmt.right.span
+    lines = source.split("\n")
+    if a is None or b is None:
+        return ""
+    if a.line == b.end_line:
+        return lines[a.line - 1][a.col - 1:b.end_col - 1]
+    chunk = [lines[a.line - 1][a.col - 1:]] + lines[a.line:b.end_line - 1] + [lines[b.end_line - 1][:b.end_col - 1]]
+    return " ".join(part.strip() for part in chunk)

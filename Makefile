@@ -1,0 +1,30 @@
+# Two commands do everything on a fresh machine:
+#   make demo   set up, then build the demo packages into out/
+#   make test   set up, then run the test suite
+PY      ?= python3
+VENV    := .venv
+BIN     := $(VENV)/bin
+STAMP   := $(VENV)/.installed
+
+.PHONY: demo test setup system-deps bench clean
+
+$(STAMP): pyproject.toml
+	bash .ci/system-deps
+	$(PY) -m venv $(VENV)
+	$(BIN)/pip install --quiet --upgrade pip
+	$(BIN)/pip install --quiet -e '.[test]'
+	touch $(STAMP)
+
+setup: $(STAMP)
+
+demo: $(STAMP)
+	$(BIN)/calcsheet build sheets/*.calc -o out --format html,pdf,json
+
+test: $(STAMP)
+	$(BIN)/python -m pytest
+
+bench: $(STAMP)
+	for b in benchmarks/bench_*.py; do $(BIN)/python $$b || exit 1; done
+
+clean:
+	rm -rf out build *.egg-info
