@@ -1,0 +1,303 @@
+"""beam.solve and beam.stresses: the sheet-facing functions, gluing model, solver, working and diagrams.
+
+Why thin: each job (reading the sheet's arguments, solving, tracing, drawing)
+lives in its own module; this one only orders them and states the results.
+"""
+from __future__ import annotations
+
+import numpy as np
+
+from calcsheet.plugin import Field, Param
+
+from . import diagrams, results, working
+from . import namespace
+from .model import build, letters
+from .solver import BeamInputError
+
+FORCE, LEN, MOM = "[force]", "[length]", "[force]*[length]"
+
+SOLVE_PARAMS = [
+    Param("spans", kind="list", dim=LEN, doc="span lengths, left to right, e.g. [6 m, 6 m]"),
+    Param("supports", kind="text",
+          doc="one per span end: pinned, roller, fixed, free, guided or hinge, e.g. \"pinned, roller, roller\""),
+    Param("loads", kind="list", record="load", doc="beam.point / moment / udl / varying records"),
+    Param("combos", kind="list", record="combo", default=None,
+          doc="beam.combo records; results are enveloped over them (default: every load at factor 1)"),
+    Param("E", "[pressure]", "modulus of elasticity (default: material.E)", default=None),
+    Param("I", "[length]**4", "second moment of area (default: section.I_x)", default=None),
+    Param("I_spans", kind="list", dim="[length]**4", doc="I of each span, for a member that changes section",
+          default=None),
+    Param("material", kind="record", record="material", doc="a material record giving E", default=None),
+    Param("section", kind="record", record="section", doc="a section record giving I_x", default=None),
+    Param("limit", doc="deflection limit as span/δ, e.g. 360 for L/360 (default 360)", default=None),
+    Param("deflection", kind="text", doc="name of the combination the deflection limit applies to "
+                                         "(default: all)", default=None),
+    Param("samples", doc="diagram points per span (default 200)", default=None),
+]
+
+SOLVE_FIELDS = [
+    Field("L", LEN, "total length"),
+    Field("n_spans", doc="number of spans"),
+    Field("R_{i}", FORCE, "largest (upward) reaction at support i over the combinations"),
+    Field("R_min_{i}", FORCE, "smallest reaction at support i (negative: uplift)"),
+    Field("M_sup_{i}", MOM, "bending moment in the member at support i, largest in magnitude"),
+    Field("M_max", MOM, "largest sagging moment"),
+    Field("x_M_max", LEN, "where it occurs"),
+    Field("M_min", MOM, "largest hogging moment (negative)"),
+    Field("x_M_min", LEN, "where it occurs"),
+    Field("M_abs", MOM, "largest moment in magnitude"),
+    Field("V_max", FORCE, "largest shear in magnitude"),
+    Field("x_V_max", LEN, "where it occurs"),
+    Field("x_V0", LEN, "point of zero shear at the largest sagging moment"),
+    Field("delta_max", LEN, "largest deflection in magnitude"),
+    Field("x_delta_max", LEN, "where it occurs"),
+    Field("theta_max", "[angle]", "largest slope in magnitude"),
+    Field("delta_gov", LEN, "deflection of the span with the smallest span/δ"),
+    Field("L_gov", LEN, "length of that span"),
+    Field("span_ratio", doc="smallest span/δ over the spans"),
+    Field("delta_allow", LEN, "allowed deflection L_gov/limit"),
+    Field("limit", doc="the limit span/δ used"),
+    Field("EI", "[force]*[length]**2", "flexural stiffness (of span 1)"),
+]
+
+
+def _number(q, name, lo=None):
+    v = float(q.m_as(""))
+    if not np.isfinite(v) or (lo is not None and v < lo):
+        raise BeamInputError(f"{name} must be a number of at least {lo:g}, got {v:g}", name)
+    return v
+
+
+@namespace.function("solve", params=SOLVE_PARAMS, fields=SOLVE_FIELDS, returns="beam")
+def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=None, material=None, section=None,
+          limit=None, deflection=None, samples=None):
+    """Reactions, shear, moment, slope and deflection of a beam on any supports, exactly, with its working."""
+    try:
+        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section)
+        per_span = int(_number(samples, "samples", 10)) if samples is not None else 200
+        lim = _number(limit, "limit", 1) if limit is not None else None
+        res = results.run(setup, per_span=min(per_span, 5000))
+    except BeamInputError as exc:
+        work.fail(str(exc), param=exc.param)
+    lit = working.Lit(setup.units)
+    u = setup.units
+    model = setup.model
+    X = model.nodes
+    Ls = letters(len(X))
+
+    _input_tables(work, setup, lit)
+    if len(set(model.EI)) == 1:
+        if E is not None and I is not None:
+            work.calc("EI", "E*I", unit=u["EI"], desc="flexural stiffness")
+        else:
+            work.let("EI", lit.q(model.EI[0], "EI"), unit=u["EI"], desc="flexural stiffness E·I",
+                     note="E from " + ("the material" if E is None else "E") + ", I from " +
+                          ("the section's I_x" if I is None and I_spans is None else "I"))
+    else:
+        work.table("Flexural stiffness by span", ["Span", "E", "I", "EI"],
+                   [[f"{Ls[k]}–{Ls[k + 1]}", lit.q(e, "modulus"), lit.q(i, "inertia"), lit.q(e * i, "EI")]
+                    for k, (e, i) in enumerate(zip(setup.E_si, setup.I_si))],
+                   units=[None, u["modulus"], u["inertia"], u["EI"]])
+        work.let("EI", lit.q(model.EI[0], "EI"), unit=u["EI"], desc="flexural stiffness of span 1")
+    if setup.default_combo and len({ld.case for ld in setup.loads}) > 1:
+        work.note("No combinations were given: every load acts at once, each at factor 1.0.")
+
+    working.write(work, setup, res, lit)
+    _result_tables(work, setup, res, lit)
+    out = _envelope(work, setup, res, lit, lim, deflection)
+    for svg, caption in diagrams.figures(setup, res, lit):
+        work.figure(svg, caption=caption)
+    return out
+
+
+def _input_tables(work, setup, lit):
+    X = setup.model.nodes
+    Ls = letters(len(X))
+    u = setup.units
+    work.table("Supports", ["Support", "x", "Type"],
+               [[Ls[i], lit.q(X[i], "length"), k] for i, k in enumerate(setup.kinds)], units=[None, u["length"], None])
+    rows = []
+    for ld in setup.loads:
+        s = ld.solver
+        if ld.kind == "point":
+            rows.append([ld.index, ld.case or "–", "point", f"P = {working.num(lit.value(s.P, 'force'))} {u['force']}",
+                         lit.q(s.x, "length"), "–"])
+        elif ld.kind == "moment":
+            rows.append([ld.index, ld.case or "–", "couple (clockwise +)",
+                         f"M = {working.num(lit.value(s.M, 'moment'))} {u['moment']}", lit.q(s.x, "length"), "–"])
+        else:
+            w1, w2 = working.num(lit.value(s.w1, "line")), working.num(lit.value(s.w2, "line"))
+            what = f"w = {w1} {u['line']}" if s.w1 == s.w2 else f"w = {w1} → {w2} {u['line']}"
+            name = "uniform" if s.w1 == s.w2 else ("triangular" if 0 in (s.w1, s.w2) else "trapezoidal")
+            rows.append([ld.index, ld.case or "–", name, what, lit.q(s.x1, "length"), lit.q(s.x2, "length")])
+    if len(rows) <= 60:
+        work.table("Loads (unfactored; downward positive)", ["No.", "Case", "Type", "Value", "from x", "to x"], rows,
+                   units=[None, None, None, None, u["length"], u["length"]])
+    else:
+        work.note(f"{len(rows)} loads were given; the table is left out for length.")
+    if len(setup.combos) > 1 or not setup.default_combo:
+        work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
+
+
+def _result_tables(work, setup, res, lit):
+    X = setup.model.nodes
+    Ls = letters(len(X))
+    u = setup.units
+    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided")]
+    if len(sup) <= 40:
+        cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
+        rows = [[Ls[i], lit.q(X[i], "length")] + [lit.q(c.sol.reactions[i], "force") for c in res.combos]
+                for i in sup]
+        work.table("Reactions (upward positive)", cols, rows, units=[None, u["length"]] + [u["force"]] * len(res.combos))
+        fixed = [i for i in sup if setup.kinds[i] in ("fixed", "guided")]
+        if fixed:
+            work.table("Support moments (bending moment in the member at the support, sagging positive)",
+                       ["Support"] + [c.combo.name for c in res.combos],
+                       [[Ls[i]] + [lit.q(c.support_M[i], "moment") for c in res.combos] for i in fixed],
+                       units=[None] + [u["moment"]] * len(res.combos))
+    rows = []
+    for c in res.combos:
+        rows.append([c.combo.name, lit.q(c.M_max.value, "moment"), lit.q(c.M_max.x, "length"),
+                     lit.q(c.M_min.value, "moment"), lit.q(c.M_min.x, "length"),
+                     lit.q(abs(c.V_max.value), "force"), lit.q(c.V_max.x, "length"),
+                     lit.q(c.d_max.value, "defl"), lit.q(c.d_max.x, "length")])
+    work.table("Maxima by combination (found exactly from the piecewise polynomials)",
+               ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"], rows,
+               units=[None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"],
+                      u["length"]])
+
+
+def _envelope(work, setup, res, lit, lim, deflection):
+    model = setup.model
+    X = model.nodes
+    u = setup.units
+    many = len(res.combos) > 1
+    env = " (envelope of the combinations)" if many else ""
+    out = {"L": lit.q(model.length, "length"), "n_spans": work.q(len(model.spans), "")}
+    for i, k in enumerate(setup.kinds):
+        if k in ("pinned", "roller", "fixed"):
+            vals = [c.sol.reactions[i] for c in res.combos]
+            out[f"R_{i + 1}"] = lit.q(max(vals), "force")
+            out[f"R_min_{i + 1}"] = lit.q(min(vals), "force")
+        if k in ("pinned", "roller", "fixed", "guided"):
+            ms = [c.support_M[i] for c in res.combos]
+            out[f"M_sup_{i + 1}"] = lit.q(max(ms, key=abs), "moment")
+    gmax = res.governing("M_max")
+    gmin = res.governing("M_min", -1)
+    gV = max(res.combos, key=lambda c: abs(c.V_max.value))
+    gd = max(res.combos, key=lambda c: abs(c.d_max.value))
+    gt = max(res.combos, key=lambda c: abs(c.theta_max.value))
+
+    def tagged(c):
+        return f" ({c.combo.name})" if many else ""
+
+    out["M_max"] = work.let("M_max", lit.q(gmax.M_max.value, "moment"), unit=u["moment"],
+                            desc=f"largest sagging moment{env}", note=f"at x = {_x(lit, gmax.M_max.x)}{tagged(gmax)}")
+    out["x_M_max"] = lit.q(gmax.M_max.x, "length")
+    out["M_min"] = work.let("M_min", lit.q(gmin.M_min.value, "moment"), unit=u["moment"],
+                            desc=f"largest hogging moment{env}", note=f"at x = {_x(lit, gmin.M_min.x)}{tagged(gmin)}")
+    out["x_M_min"] = lit.q(gmin.M_min.x, "length")
+    out["M_abs"] = work.calc("M_abs", "max(abs(M_max), abs(M_min))", unit=u["moment"],
+                             desc="largest moment in magnitude")
+    out["V_max"] = work.let("V_max", lit.q(abs(gV.V_max.value), "force"), unit=u["force"],
+                            desc=f"largest shear in magnitude{env}", note=f"at x = {_x(lit, gV.V_max.x)}{tagged(gV)}")
+    out["x_V_max"] = lit.q(gV.V_max.x, "length")
+    zs = gmax.zero_shear
+    x0 = min(zs, key=lambda z: abs(z - gmax.M_max.x)) if zs else gmax.M_max.x
+    out["x_V0"] = lit.q(x0, "length")
+    direction = "downward" if gd.d_max.value >= 0 else "upward"
+    out["delta_max"] = work.let("delta_max", lit.q(abs(gd.d_max.value), "defl"), unit=u["defl"],
+                                desc=f"largest deflection{env}",
+                                note=f"{direction}, at x = {_x(lit, gd.d_max.x)}{tagged(gd)}")
+    out["x_delta_max"] = lit.q(gd.d_max.x, "length")
+    out["theta_max"] = work.q(abs(gt.theta_max.value), "rad")
+
+    # deflection against the limit
+    pool = res.combos
+    if deflection is not None:
+        pool = [c for c in res.combos if c.combo.name == deflection]
+        if not pool:
+            work.fail(f"no combination is named {deflection!r} (combinations: "
+                      + ", ".join(c.combo.name for c in res.combos) + ")", param="deflection")
+    best = None
+    for c in pool:
+        for k, e in enumerate(c.span_delta):
+            if abs(e.value) <= 0:
+                continue
+            ratio = model.spans[k] / abs(e.value)
+            if best is None or ratio < best[0]:
+                best = (ratio, k, e, c)
+    if lim is None:
+        out["limit"] = work.let("limit_d", work.q(360, ""), desc="deflection limit span/δ",
+                                note="not given: 360 assumed (common practice for floor live load); pass limit=…")
+        lim_name = "limit_d"
+    else:
+        lim_name = "limit"
+        out["limit"] = work.q(lim, "")
+    Ls = letters(len(X))
+    if best is None:
+        work.note("The beam does not deflect under these loads.")
+        zero = lit.q(0.0, "defl")
+        out.update(delta_gov=zero, L_gov=lit.q(model.spans[0], "length"), span_ratio=work.q(1e9, ""))
+        out["delta_allow"] = lit.q(model.spans[0] / float(out["limit"].m_as("")), "defl")
+        out["EI"] = lit.q(model.EI[0], "EI")
+        return out
+    ratio, k, e, c = best
+    span_name = f"{Ls[k]}–{Ls[k + 1]}"
+    cant = setup.kinds[k] == "free" or setup.kinds[k + 1] == "free"
+    out["L_gov"] = work.calc("L_gov", lit(model.spans[k], "length"), unit=u["length"],
+                             desc=f"span {span_name}" + (" (a cantilever: its own length)" if cant else ""))
+    out["delta_gov"] = work.let("delta_gov", lit.q(abs(e.value), "length"), unit=u["defl"],
+                                desc=f"largest deflection in span {span_name}",
+                                note=f"at x = {_x(lit, e.x)}" + (f", {c.combo.name}" if many else ""))
+    out["span_ratio"] = work.calc("span_ratio", "L_gov/delta_gov", desc="span/deflection (smallest over the spans)")
+    out["span_ratio"] = work.q(float(out["span_ratio"].m_as("")), "")
+    out["delta_allow"] = work.calc("delta_allow", f"L_gov/{lim_name}", unit=u["defl"], desc="allowed deflection")
+    work.check("delta_gov <= delta_allow", desc=f"deflection within span/{working.num(float(out['limit'].m_as('')))}")
+    out["EI"] = lit.q(model.EI[0], "EI")
+    return out
+
+
+def _x(lit, x):
+    return f"{working.num(round(lit.value(x, 'length'), 4))} {lit.units['length']}"
+
+
+# ---------------------------------------------------------------- stresses
+
+STRESS_FIELDS = [
+    Field("sigma_top", "[pressure]", "largest bending stress at the top fibre, M·y_top/I"),
+    Field("sigma_bot", "[pressure]", "largest bending stress at the bottom fibre, M·y_bot/I"),
+    Field("sigma_max", "[pressure]", "the larger of the two"),
+    Field("tau_max", "[pressure]", "largest shear stress at the neutral axis, V·Q/(I·t)"),
+    Field("M", MOM, "moment used"),
+    Field("V", FORCE, "shear used"),
+]
+
+
+@namespace.function(
+    "stresses",
+    params=[Param("member", kind="record", record="beam", doc="a beam.solve result"),
+            Param("section", kind="record", record="section", doc="its cross-section (I_x, y_top, y_bot, Q_x, t_x)")],
+    fields=STRESS_FIELDS,
+    returns="stresses",
+)
+def stresses(work, member, section):
+    """Bending stress σ = M·c/I at both fibres and shear stress τ = V·Q/(I·t), from the member's envelope."""
+    for name in ("I_x", "y_top", "y_bot", "Q_x", "t_x"):
+        if name not in section.fields:
+            work.fail(f"the section record has no {name}; stresses need I_x, y_top, y_bot, Q_x and t_x",
+                      param="section")
+    system = str(work.settings.get("system", "SI")).upper()
+    st, mo, fo = ("ksi", "kip*ft", "kip") if system == "US" else ("MPa", "kN*m", "kN")
+    work.calc("M", "member.M_abs", unit=mo, desc="largest moment in magnitude (envelope)")
+    work.calc("V", "member.V_max", unit=fo, desc="largest shear in magnitude (envelope)")
+    top = work.calc("sigma_top", "M*section.y_top/section.I_x", unit=st, desc="bending stress, top fibre: σ = M·c/I")
+    bot = work.calc("sigma_bot", "M*section.y_bot/section.I_x", unit=st,
+                    desc="bending stress, bottom fibre: σ = M·c/I")
+    work.calc("sigma_max", "max(sigma_top, sigma_bot)", unit=st, desc="largest bending stress")
+    tau = work.calc("tau_max", "V*section.Q_x/(section.I_x*section.t_x)", unit=st,
+                    desc="shear stress at the neutral axis: τ = V·Q/(I·t)")
+    work.note("Sagging compresses the top fibre and hogging the bottom; the magnitudes here are the larger of "
+              "the two for each fibre, with M = max(|M_max|, |M_min|).")
+    return {"sigma_top": top, "sigma_bot": bot, "sigma_max": work["sigma_max"], "tau_max": tau,
+            "M": work["M"], "V": work["V"]}

@@ -1,0 +1,269 @@
+"""Beam figures to scale: the member with its supports and loads, then shear, moment and deflection.
+
+Why drawn from the exact solution: the curves come from the same piecewise
+polynomials as the numbers in the working, and the labelled values (maxima,
+values at supports, points of zero shear) are the exact ones, not read off
+the sampled curve.
+"""
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from calcsheet.svg import Svg
+
+from . import solver as S
+from .model import letters
+
+W, LEFT, RIGHT = 680.0, 56.0, 24.0
+INK, GREY, SOFT = "#222", "#777", "#ddd"
+DASHES = [None, "6 3", "2 3", "8 3 2 3", "1 2"]
+FONT = "sans-serif"
+
+
+def fmt(v: float) -> str:
+    a = abs(v)
+    if a >= 1000:
+        return f"{v:.0f}"
+    if a >= 10:
+        return f"{v:.1f}"
+    if a >= 0.01 or a == 0:
+        return f"{v:.2f}"
+    return f"{v:.3g}"
+
+
+class Frame:
+    """Maps beam x (SI metres) to the drawing's pixels."""
+
+    def __init__(self, length: float):
+        self.length = length
+        self.scale = (W - LEFT - RIGHT) / length
+
+    def px(self, x):
+        return LEFT + np.asarray(x) * self.scale
+
+
+def _text(svg, x, y, s, size=10, anchor="middle", color=INK, weight=None):
+    x = min(max(x, 4 + (0 if anchor != "middle" else 30)), W - 4 - (0 if anchor != "middle" else 30))
+    svg.text(x, y, s, font_size=size, text_anchor=anchor, fill=color, font_family=FONT, font_weight=weight)
+
+
+def beam_figure(setup, lit) -> str:
+    model = setup.model
+    X = model.nodes
+    fr = Frame(model.length)
+    H = 170.0
+    y0 = 92.0
+    svg = Svg(W, H, title="Beam, supports and loads")
+    svg.line(fr.px(0), y0, fr.px(model.length), y0, stroke=INK, stroke_width=3)
+    names = letters(len(X))
+    for i, (x, k) in enumerate(zip(X, setup.kinds)):
+        px = float(fr.px(x))
+        _support(svg, px, y0, k, i == 0)
+        if k not in ("free",):
+            _text(svg, px, y0 + 36, names[i], 11, weight="bold")
+    # dimension line
+    yd = y0 + 58
+    for a, b in zip(X[:-1], X[1:]):
+        pa, pb = float(fr.px(a)), float(fr.px(b))
+        svg.line(pa, yd, pb, yd, stroke=GREY, stroke_width=0.8)
+        svg.line(pa, yd - 4, pa, yd + 4, stroke=GREY, stroke_width=0.8)
+        svg.line(pb, yd - 4, pb, yd + 4, stroke=GREY, stroke_width=0.8)
+        if pb - pa > 26:
+            _text(svg, (pa + pb) / 2, yd - 3, f"{fmt(lit.value(b - a, 'length'))} {lit.units['length']}", 9,
+                  color=GREY)
+    loads = setup.loads
+    label = len(loads) <= 16
+    line_loads = [ld for ld in loads if ld.kind in ("udl", "varying")]
+    wmax = max((max(abs(l.solver.w1), abs(l.solver.w2)) for l in line_loads), default=1.0) or 1.0
+    band = 0
+    for ld in line_loads:
+        s = ld.solver
+        top = y0 - 8 - 14 * band
+        h1, h2 = 22 * abs(s.w1) / wmax, 22 * abs(s.w2) / wmax
+        pa, pb = float(fr.px(s.x1)), float(fr.px(s.x2))
+        svg.polygon([(pa, top), (pa, top - h1), (pb, top - h2), (pb, top)], fill=SOFT, stroke=GREY,
+                    stroke_width=0.8, fill_opacity=0.6)
+        n = max(2, int((pb - pa) / 22))
+        for t in np.linspace(0, 1, n):
+            px = pa + t * (pb - pa)
+            hh = h1 + t * (h2 - h1)
+            if hh > 3:
+                _arrow(svg, px, top - hh, top, GREY)
+        if label:
+            w1, w2 = lit.value(s.w1, "line"), lit.value(s.w2, "line")
+            txt = f"{fmt(w1)}" if s.w1 == s.w2 else f"{fmt(w1)}→{fmt(w2)}"
+            _text(svg, (pa + pb) / 2, top - max(h1, h2) - 3, f"{txt} {lit.units['line']}" +
+                  (f" ({ld.case})" if ld.case else ""), 9)
+        band = (band + 1) % 2
+    for ld in loads:
+        s = ld.solver
+        if ld.kind == "point":
+            px = float(fr.px(s.x))
+            up = s.P < 0
+            if up:
+                _arrow(svg, px, y0 + 2 + 34, y0 + 2, INK)
+            else:
+                _arrow(svg, px, y0 - 46, y0 - 2, INK)
+            if label:
+                _text(svg, px, y0 - 50 if not up else y0 + 46,
+                      f"{fmt(lit.value(abs(s.P), 'force'))} {lit.units['force']}" + (f" ({ld.case})" if ld.case else ""),
+                      9)
+        elif ld.kind == "moment":
+            px = float(fr.px(s.x))
+            _couple(svg, px, y0, s.M >= 0)
+            if label:
+                _text(svg, px, y0 - 24, f"{fmt(lit.value(abs(s.M), 'moment'))} {lit.units['moment']}", 9)
+    return svg.render()
+
+
+def _arrow(svg, x, y_from, y_to, color):
+    svg.line(x, y_from, x, y_to, stroke=color, stroke_width=1.2)
+    d = 4 if y_to > y_from else -4
+    svg.polygon([(x, y_to), (x - 3, y_to - d), (x + 3, y_to - d)], fill=color)
+
+
+def _couple(svg, x, y, clockwise: bool):
+    r = 14
+    a0, a1 = (200, -20) if clockwise else (-20, 200)
+    pts = [(x + r * math.cos(math.radians(a)), y - r * math.sin(math.radians(a))) for a in np.linspace(a0, a1, 14)]
+    svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.2)
+    (xe, ye), (xp, yp) = pts[-1], pts[-2]
+    ang = math.atan2(ye - yp, xe - xp)
+    svg.polygon([(xe, ye), (xe - 6 * math.cos(ang - 0.5), ye - 6 * math.sin(ang - 0.5)),
+                 (xe - 6 * math.cos(ang + 0.5), ye - 6 * math.sin(ang + 0.5))], fill=INK)
+
+
+def _support(svg, px, y0, kind, first):
+    if kind in ("pinned", "roller"):
+        svg.polygon([(px, y0 + 2), (px - 9, y0 + 16), (px + 9, y0 + 16)], fill="white", stroke=INK, stroke_width=1.2)
+        if kind == "roller":
+            svg.circle(px - 5, y0 + 20, 3, fill="white", stroke=INK, stroke_width=1)
+            svg.circle(px + 5, y0 + 20, 3, fill="white", stroke=INK, stroke_width=1)
+            svg.line(px - 12, y0 + 24, px + 12, y0 + 24, stroke=INK, stroke_width=1)
+        else:
+            svg.line(px - 12, y0 + 16, px + 12, y0 + 16, stroke=INK, stroke_width=1)
+            for k in range(5):
+                svg.line(px - 10 + 5 * k, y0 + 16, px - 14 + 5 * k, y0 + 21, stroke=INK, stroke_width=0.7)
+    elif kind in ("fixed", "guided"):
+        s = -1 if first else 1
+        xw = px + s * 2
+        svg.line(xw, y0 - 16, xw, y0 + 16, stroke=INK, stroke_width=2)
+        for k in range(7):
+            yy = y0 - 15 + 5 * k
+            svg.line(xw, yy, xw + s * 6, yy + 5, stroke=INK, stroke_width=0.7)
+        if kind == "guided":
+            svg.circle(px - s * 4, y0 - 8, 2.5, fill="white", stroke=INK)
+            svg.circle(px - s * 4, y0 + 8, 2.5, fill="white", stroke=INK)
+    elif kind == "hinge":
+        svg.circle(px, y0, 4, fill="white", stroke=INK, stroke_width=1.4)
+
+
+def _budget(model) -> int:
+    return max(12, int(1600 / len(model.spans)))
+
+
+def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_positive: bool = False) -> str:
+    model = setup.model
+    X = model.nodes
+    fr = Frame(model.length)
+    H = 160.0
+    top, bot = 36.0, H - 24.0
+    mid = (top + bot) / 2
+    curves = []
+    for cr in res.combos:
+        x, V, M, T, D = S.sample(cr.sol, _budget(model))
+        y = {"V": V, "M": M, "delta": D}[what]
+        curves.append((cr, x, y))
+    vmax = max(float(np.max(np.abs(y))) for _, _, y in curves) or 1.0
+    half = (bot - top) / 2
+    sgn = 1.0 if down_positive else -1.0  # pixel y grows downward
+
+    def py(v):
+        return mid + sgn * np.asarray(v) / vmax * half
+
+    svg = Svg(W, H, title=title)
+    svg.line(fr.px(0), mid, fr.px(model.length), mid, stroke=GREY, stroke_width=0.8)
+    for xn in X:
+        svg.line(float(fr.px(xn)), top - 6, float(fr.px(xn)), bot + 6, stroke=SOFT, stroke_width=0.8)
+    for k, (cr, x, y) in enumerate(curves):
+        pts = list(zip(fr.px(x).tolist(), py(y).tolist()))
+        if k == 0:
+            poly = [(float(fr.px(0)), mid)] + pts + [(float(fr.px(model.length)), mid)]
+            svg.polygon(poly, fill=SOFT, fill_opacity=0.5, stroke="none")
+        svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.3, stroke_dasharray=DASHES[k % len(DASHES)])
+    u = lit.units[unit_kind]
+    _text(svg, 6, 12, title, 10, anchor="start", weight="bold")
+    if len(curves) > 1:
+        legend = "   ".join(f"{'—' if k == 0 else '- -' if k == 1 else '···'} {cr.combo.name}"
+                           for k, (cr, _, _) in enumerate(curves[:5]))
+        _text(svg, W - 6, 12, legend, 9, anchor="end", color=GREY)
+
+    labels = []
+    key = {"V": "V", "M": "M", "delta": "delta"}[what]
+    for cr in res.combos:
+        hi, lo = S.extremes(cr.sol, key)
+        labels.append((hi, cr))
+        labels.append((lo, cr))
+    hi = max(labels, key=lambda t: t[0].value)
+    lo = min(labels, key=lambda t: t[0].value)
+    placed = []
+    for ext, _ in (hi, lo):
+        if abs(ext.value) <= 1e-9 * vmax:
+            continue
+        _mark(svg, fr, py, ext.x, ext.value, f"{fmt(lit.value(ext.value, unit_kind))} {u} at "
+              f"{fmt(lit.value(ext.x, 'length'))} {lit.units['length']}", placed, down_positive, vmax)
+    if what == "M" and len(model.spans) <= 8:
+        gov = res.governing_abs("M_min") if len(res.combos) > 1 else res.combos[0]
+        for i, xn in enumerate(X):
+            if setup.kinds[i] in ("free",) or i in (0, len(X) - 1) and abs(gov.support_M[i]) < 1e-9 * vmax:
+                continue
+            v = gov.support_M[i]
+            if abs(v) > 1e-6 * vmax:
+                _mark(svg, fr, py, xn, v, f"{fmt(lit.value(v, 'moment'))}", placed, down_positive, vmax)
+    if what == "V":
+        gov = res.governing("M_max")
+        for z in gov.zero_shear[:8]:
+            pz = float(fr.px(z))
+            svg.circle(pz, mid, 2.5, fill="white", stroke=INK)
+            if len(gov.zero_shear) <= 4:
+                _text(svg, pz, mid + 13 if all(abs(pz - p[0]) > 40 or abs(mid + 13 - p[1]) > 10 for p in placed)
+                      else mid - 6, f"V = 0 at {fmt(lit.value(z, 'length'))}", 8, color=GREY)
+        if len(model.spans) <= 6:
+            for i, xn in enumerate(X):
+                if setup.kinds[i] in ("pinned", "roller", "fixed"):
+                    for side in ("left", "right"):
+                        if xn <= 0 or xn >= model.length:  # end values are the labelled extremes
+                            continue
+                        v = float(gov.sol.at("V", xn, side=side)[0])
+                        if abs(v) > 0.02 * vmax:
+                            off = -3 if side == "left" else 3
+                            _text(svg, float(fr.px(xn)) + off * 6, float(py(v)) + (-4 if v > 0 else 11),
+                                  fmt(lit.value(v, "force")), 8, anchor="end" if side == "left" else "start")
+    _text(svg, 6, H - 6, f"{u}; " + ("downward positive" if what == "delta" else
+                                      "sagging positive, drawn up" if what == "M" else "V = dM/dx"), 8,
+          anchor="start", color=GREY)
+    return svg.render()
+
+
+def _mark(svg, fr, py, x, v, text, placed, down_positive, vmax):
+    px, pv = float(fr.px(x)), float(py(v))
+    svg.circle(px, pv, 2.6, fill=INK)
+    above = (v > 0) != down_positive
+    ty = pv - 6 if above else pv + 13
+    for (ox, oy) in placed:
+        if abs(ox - px) < 90 and abs(oy - ty) < 11:
+            ty += -11 if above else 11
+    placed.append((px, ty))
+    anchor = "start" if px < LEFT + 40 else "end" if px > W - RIGHT - 40 else "middle"
+    _text(svg, px + (4 if anchor == "start" else -4 if anchor == "end" else 0), ty, text, 9, anchor=anchor)
+
+
+def figures(setup, res, lit):
+    return [
+        (beam_figure(setup, lit), "Beam to scale, with its supports and loads (unfactored)"),
+        (value_figure(setup, res, lit, "V", "Shear V", "force"), "Shear diagram"),
+        (value_figure(setup, res, lit, "M", "Bending moment M", "moment"), "Bending moment diagram"),
+        (value_figure(setup, res, lit, "delta", "Deflection δ", "defl", down_positive=True), "Deflection diagram"),
+    ]

@@ -1,0 +1,307 @@
+"""The beam's traced working: what a checker would write by hand, as formulas the engine evaluates.
+
+Why formulas with the numbers written in: a reviewer reads ΣM_A = 0 with the
+loads and lever arms substituted, and the engine evaluates exactly that text,
+so the package cannot show one thing and compute another.
+"""
+from __future__ import annotations
+
+from calcsheet.units import Quantity
+
+from . import handbook
+from .model import _SI_OF, letters
+from .solver import LineLoad, MomentLoad, PointLoad
+
+MAX_TERMS = 12
+
+
+def num(v: float) -> str:
+    """A plain literal the sheet grammar reads back (no '+' in exponents)."""
+    v = float(v)
+    if v == 0:
+        return "0"
+    a = abs(v)
+    if 1e-4 <= a < 1e9:
+        s = f"{v:.10g}"
+        if "e" not in s:
+            return s
+    mant, exp = f"{v:.9e}".split("e")
+    mant = mant.rstrip("0").rstrip(".")
+    return f"{mant}e{int(exp)}"
+
+
+class Lit:
+    """Writes SI floats as literals in the sheet's display units."""
+
+    def __init__(self, units: dict):
+        self.units = units
+
+    def value(self, v_si: float, what: str) -> float:
+        return float(Quantity(v_si, _SI_OF[what]).m_as(self.units[what]))
+
+    def __call__(self, v_si: float, what: str) -> str:
+        val = self.value(v_si, what)
+        s = f"{num(val)} {self.units[what]}"
+        return f"({s})" if val < 0 else s
+
+    def q(self, v_si: float, what: str):
+        return Quantity(self.value(v_si, what), self.units[what])
+
+
+def _sanitize_case(c: str) -> str:
+    return f"_{c}" if c else ""
+
+
+# ---------------------------------------------------------------- load resultants
+
+
+def load_terms(ld, x_ref: float, lit: Lit):
+    """(force term, moment-about-x_ref term) for one load, clockwise moments positive."""
+    if isinstance(ld, PointLoad):
+        return lit(ld.P, "force"), f"{lit(ld.P, 'force')}*{lit(ld.x - x_ref, 'length')}"
+    if isinstance(ld, MomentLoad):
+        return None, lit(ld.M, "moment")
+    length = ld.x2 - ld.x1
+    if abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), abs(ld.w2), 1e-300):
+        W = f"{lit(ld.w1, 'line')}*{lit(length, 'length')}"
+    else:
+        W = f"0.5*({lit(ld.w1, 'line')} + {lit(ld.w2, 'line')})*{lit(length, 'length')}"
+    return W, f"{W}*{lit(ld.centroid - x_ref, 'length')}"
+
+
+def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment: bool = True) -> dict:
+    """Per case: total downward load W_c and its moment about the reference support M_ref_c."""
+    names = {}
+    for case, loads in setup.case_loads().items():
+        tag = _sanitize_case(case)
+        label = f"case {case}" if case else "the loads"
+        W_name, M_name = f"W{tag}", f"M_{ref_letter}{tag}"
+        if len(loads) > MAX_TERMS:
+            W, Mo = _resultants(loads, x_ref)
+            work.let(W_name, lit.q(W, "force"), unit=lit.units["force"], desc=f"total downward load of {label}",
+                     note=f"sum of the {len(loads)} loads listed in the loads table")
+            if with_moment:
+                work.let(M_name, lit.q(Mo, "moment"), unit=lit.units["moment"],
+                         desc=f"moment of {label} about {ref_letter}, clockwise positive",
+                         note=f"Σ W·a over the {len(loads)} loads in the loads table")
+        else:
+            terms = [load_terms(ld, x_ref, lit) for ld in loads]
+            Wt = [t[0] for t in terms if t[0]]
+            work.calc(W_name, " + ".join(Wt) if Wt else f"0 {lit.units['force']}", unit=lit.units["force"],
+                      desc=f"total downward load of {label}")
+            if with_moment:
+                work.calc(M_name, " + ".join(t[1] for t in terms), unit=lit.units["moment"],
+                          desc=f"moment of {label} about {ref_letter} (load × lever arm, clockwise positive)")
+        names[case] = (W_name, M_name)
+    return names
+
+
+def _resultants(loads, x_ref):
+    W = Mo = 0.0
+    for ld in loads:
+        if isinstance(ld, PointLoad):
+            W += ld.P
+            Mo += ld.P * (ld.x - x_ref)
+        elif isinstance(ld, MomentLoad):
+            Mo += ld.M
+        else:
+            W += ld.total
+            Mo += ld.total * (ld.centroid - x_ref)
+    return W, Mo
+
+
+def combo_sum(factors: dict, names: dict, which: int) -> str:
+    """'1.2*W_D + 1.6*W_L' — a combination's factored sum of per-case names."""
+    parts = []
+    for case, f in factors.items():
+        n = names[case][which]
+        parts.append(n if f == 1.0 else f"{num(f)}*{n}" if f > 0 else f"({num(f)})*{n}")
+    return " + ".join(parts)
+
+
+# ---------------------------------------------------------------- determinate beams
+
+
+def simple_span(work, setup, res, iA: int, iB: int, lit: Lit):
+    """Two vertical supports, no rotational restraint, no hinge: the two equilibrium equations."""
+    X = setup.model.nodes
+    L = letters(len(X))
+    A, B = L[iA], L[iB]
+    work.note(f"The beam is statically determinate: supports {A} and {B} carry it, so two equilibrium "
+              f"equations give the reactions. Moments are taken about {A}, clockwise positive.", kind="method")
+    LAB = f"L_{A}{B}"
+    work.calc(LAB, lit(X[iB] - X[iA], "length"), unit=lit.units["length"], desc=f"distance from {A} to {B}")
+    names = case_sums(work, setup, X[iA], A, lit)
+    for cr in res.combos:
+        cb = cr.combo
+        RB, RA = f"R_{B}{cb.tag}", f"R_{A}{cb.tag}"
+        label = f" ({cb.name})" if len(res.combos) > 1 else ""
+        msum = combo_sum(cb.factors, names, 1)
+        work.calc(RB, f"({msum})/{LAB}" if " " in msum else f"{msum}/{LAB}", unit=lit.units["force"],
+                  desc=f"ΣM about {A} = 0: R_{B}·L_{A}{B} = moment of the loads{label}")
+        work.calc(RA, f"{combo_sum(cb.factors, names, 0)} - {RB}", unit=lit.units["force"],
+                  desc=f"ΣF_y = 0: R_{A} = total load − R_{B}{label}")
+        max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit, label)
+
+
+def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
+    """How M_max was found: where the shear changes sign, then the moments of the forces to its left."""
+    X = setup.model.nodes
+    x0 = cr.M_max.x
+    tag = cr.combo.tag
+    if cr.M_max.value <= 0:
+        work.note(f"No sagging moment{label}: the largest moment is hogging, at a support.")
+        return
+    at_load = any(abs(x0 - ld.x) < 1e-9 * setup.model.length for ld in cr.loads if isinstance(ld, (PointLoad, MomentLoad)))
+    at_node = any(abs(x0 - xn) < 1e-9 * setup.model.length for xn in X)
+    how = ("the shear changes sign across the load there" if at_load or at_node
+           else "the shear V(x) = 0 there (the root of V on that stretch, found exactly)")
+    xn = f"x_0{tag}"
+    work.let(xn, lit.q(x0, "length"), unit=lit.units["length"],
+             desc=f"position of the largest sagging moment{label}", note=how)
+    left = [ld for ld in cr.loads if (ld.x if not isinstance(ld, LineLoad) else ld.x1) < x0 - 1e-12]
+    if len(left) > MAX_TERMS:
+        work.let(f"M_0{tag}", lit.q(cr.M_max.value, "moment"), unit=lit.units["moment"],
+                 desc=f"largest sagging moment{label}", note="area of the shear diagram from the left end to x₀")
+        return
+    terms = []
+    if X[iA] < x0:
+        terms.append(f"{RA}*({xn} - {lit(X[iA], 'length')})" if X[iA] else f"{RA}*{xn}")
+    if X[iB] < x0:
+        terms.append(f"+ {RB}*({xn} - {lit(X[iB], 'length')})")
+    for ld in left:
+        if isinstance(ld, PointLoad):
+            terms.append(f"- {lit(ld.P, 'force')}*({xn} - {lit(ld.x, 'length')})")
+        elif isinstance(ld, MomentLoad):
+            terms.append(f"+ {lit(ld.M, 'moment')}")
+        else:
+            b = min(ld.x2, x0)
+            slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1)
+            wb = ld.w1 + slope * (b - ld.x1)
+            part = LineLoad(ld.x1, b, ld.w1, wb)
+            W, _ = load_terms(part, 0.0, lit)
+            terms.append(f"- {W}*({xn} - {lit(part.centroid, 'length')})")
+    formula = " ".join(terms).lstrip("+ ")
+    work.calc(f"M_0{tag}", formula, unit=lit.units["moment"],
+              desc=f"largest sagging moment{label}: moments about x₀ of the forces to its left")
+
+
+def cantilever(work, setup, res, iF: int, lit: Lit):
+    X = setup.model.nodes
+    L = letters(len(X))
+    F = L[iF]
+    right = iF == 0
+    work.note(f"The beam is a cantilever, statically determinate: the fixed support {F} carries all of it.",
+              kind="method")
+    names = case_sums(work, setup, X[iF], F, lit)
+    for cr in res.combos:
+        cb = cr.combo
+        label = f" ({cb.name})" if len(res.combos) > 1 else ""
+        work.calc(f"R_{F}{cb.tag}", combo_sum(cb.factors, names, 0), unit=lit.units["force"],
+                  desc=f"ΣF_y = 0: the support carries the whole load{label}")
+        msum = combo_sum(cb.factors, names, 1)
+        if right:  # loads to the right of F: M(F+) = -(ΣW·a + ΣC)
+            work.calc(f"M_{F}{cb.tag}", f"-({msum})", unit=lit.units["moment"],
+                      desc=f"ΣM about {F} = 0: bending moment at the fixed support (hogging negative){label}")
+        else:  # loads to the left: lever arms are negative, M(F-) = ΣW·a' ... = moment about F
+            work.calc(f"M_{F}{cb.tag}", msum, unit=lit.units["moment"],
+                      desc=f"ΣM about {F} = 0: bending moment at the fixed support (hogging negative){label}")
+
+
+# ---------------------------------------------------------------- indeterminate beams
+
+
+def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
+    X = setup.model.nodes
+    Ls = letters(len(X))
+    u = lit.units
+    if degree > 0:
+        work.note(f"The beam is statically indeterminate to degree {degree}. Method: direct stiffness, one "
+                  f"prismatic Euler–Bernoulli element per span; each span's loads enter as their exact fixed-end "
+                  f"actions, the joint rotations and deflections follow from K·d = F (a banded system), and the "
+                  f"end actions are k·d plus the fixed-end actions. The result is exact for these loads.",
+                  kind="method")
+    else:
+        work.note(f"The beam is statically determinate ({hinges} internal hinge(s) release as many moments), "
+                  f"solved by the direct stiffness method with the hinges as rotation releases; equilibrium is "
+                  f"checked below.", kind="method")
+    for cr in res.combos:
+        label = f" — {cr.combo.name}" if len(res.combos) > 1 else ""
+        rows = []
+        for k, (fe, ends) in enumerate(zip(cr.sol.fixed_end, cr.sol.end_actions)):
+            rows.append([f"{Ls[k]}–{Ls[k + 1]}",
+                         lit.q(-fe[1], "moment"), lit.q(fe[3], "moment"),
+                         lit.q(ends[0], "force"), lit.q(ends[1], "moment"),
+                         lit.q(ends[2], "force"), lit.q(ends[3], "moment")])
+        work.table(f"End actions{label}",
+                   ["Span", "M_FE,left", "M_FE,right", "V_left", "M_left", "V_right", "M_right"], rows,
+                   units=[None, u["moment"], u["moment"], u["force"], u["moment"], u["force"], u["moment"]],
+                   note="M_FE: fixed-end moments from the span's loads; then the end actions of the solved beam. "
+                        "Moments sagging positive; V is the shear just inside each end.")
+
+
+def equilibrium_check(work, setup, res, lit: Lit):
+    """ΣF_y and ΣM of the solved reactions against the loads, for each combination."""
+    X = setup.model.nodes
+    Ls = letters(len(X))
+    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed")]
+    rot = [i for i, k in enumerate(setup.kinds) if k in ("fixed", "guided")]
+    iA = sup[0] if sup else 0
+    names = case_sums(work, setup, X[iA], Ls[iA], lit)
+    for cr in res.combos:
+        tag = cr.combo.tag
+        label = f" ({cr.combo.name})" if len(res.combos) > 1 else ""
+        rn = []
+        for i in sup:
+            n = f"R_{Ls[i]}{tag}"
+            work.let(n, lit.q(cr.sol.reactions[i], "force"), unit=lit.units["force"],
+                     desc=f"reaction at {Ls[i]}{label}", note="from the stiffness solution")
+            rn.append((i, n))
+        mn = []
+        for i in rot:
+            n = f"M_R{Ls[i]}{tag}"
+            work.let(n, lit.q(cr.sol.reaction_moments[i], "moment"), unit=lit.units["moment"],
+                     desc=f"support couple at {Ls[i]}, anticlockwise positive{label}",
+                     note="from the stiffness solution")
+            mn.append(n)
+        if len(rn) <= MAX_TERMS:
+            work.calc(f"R_sum{tag}", " + ".join(n for _, n in rn), unit=lit.units["force"],
+                      desc=f"sum of the reactions{label}")
+            mom = [f"{n}*{lit(X[i] - X[iA], 'length')}" for i, n in rn if i != iA] + mn
+            work.calc(f"M_R{tag}", " + ".join(mom) if mom else f"0 {lit.units['moment']}",
+                      unit=lit.units["moment"], desc=f"moment of the reactions about {Ls[iA]}, anticlockwise{label}")
+        else:
+            work.let(f"R_sum{tag}", lit.q(cr.sol.reactions.sum(), "force"), unit=lit.units["force"],
+                     desc=f"sum of the reactions{label}", note=f"sum of the {len(rn)} reactions above")
+            mo = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
+            work.let(f"M_R{tag}", lit.q(mo, "moment"), unit=lit.units["moment"],
+                     desc=f"moment of the reactions about {Ls[iA]}{label}", note="Σ R·a + Σ support couples")
+        W = combo_sum(cr.combo.factors, names, 0)
+        Mo = combo_sum(cr.combo.factors, names, 1)
+        work.calc(f"W_tot{tag}", W, unit=lit.units["force"], desc=f"total factored load{label}")
+        work.calc(f"M_W{tag}", Mo, unit=lit.units["moment"], desc=f"moment of the factored loads about {Ls[iA]}")
+        work.calc(f"e_F{tag}", f"abs(R_sum{tag} - W_tot{tag})", unit=lit.units["force"],
+                  desc="out-of-balance vertical force")
+        work.calc(f"e_M{tag}", f"abs(M_R{tag} - M_W{tag})", unit=lit.units["moment"], desc="out-of-balance moment")
+        scale_F = f"1e-6*(abs(W_tot{tag}) + 1 {lit.units['force']})"
+        work.check(f"e_F{tag} <= {scale_F}", desc=f"ΣF_y = 0: the reactions balance the loads{label}")
+        work.check(f"e_M{tag} <= 1e-6*(abs(M_W{tag}) + 1 {lit.units['moment']})",
+                   desc=f"ΣM = 0 about {Ls[iA]}: the reactions balance the loads' moment{label}")
+
+
+def write(work, setup, res, lit: Lit):
+    kinds = setup.kinds
+    vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
+    rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
+    hinges = sum(1 for k in kinds if k == "hinge")
+    r = len(vert) + len(rot)
+    degree = r - 2 - hinges
+    if hinges == 0 and not rot and len(vert) == 2:
+        simple_span(work, setup, res, vert[0], vert[1], lit)
+    elif hinges == 0 and len(vert) == 1 and rot == vert and vert[0] in (0, len(kinds) - 1):
+        cantilever(work, setup, res, vert[0], lit)
+    else:
+        indeterminate(work, setup, res, degree, lit, hinges)
+        equilibrium_check(work, setup, res, lit)
+    for cr in res.combos:
+        handbook.cross_check(work, setup, cr, lit, len(res.combos) > 1)
