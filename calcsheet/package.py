@@ -299,8 +299,13 @@ def _header(text: str) -> str:
 
     if " " in text or not text:
         return esc(text)
+    if "·" in text:  # a product of symbols: n·A_i·y_i
+        return "·".join(_header(piece) for piece in text.split("·"))
+    power = ""
+    if text[-1] in "²³⁴":  # a squared symbol: d_y,i²
+        text, power = text[:-1], f"<sup>{'234'['²³⁴'.index(text[-1])]}</sup>"
     head, subs = split_name(text)
-    return f"<var>{esc(head)}</var>" + (f"<sub>{esc(','.join(subs))}</sub>" if subs else "")
+    return f"<var>{esc(head)}</var>" + (f"<sub>{esc(','.join(subs))}</sub>" if subs else "") + power
 
 
 # ------------------------------------------------------------ PDF

@@ -103,7 +103,7 @@ def dimension(svg: Svg, x1, y1, x2, y2, label, offset: float = 0.0, *, colour: s
         svg.polygon([(tipx, tipy), (basex + nx * head * 0.35, basey + ny * head * 0.35),
                      (basex - nx * head * 0.35, basey - ny * head * 0.35)], fill=colour)
     angle = math.degrees(math.atan2(dy, dx))
-    if angle > 90 or angle <= -90:
+    if angle >= 90 - 1e-9 or angle < -90:  # keep text upright; vertical text reads bottom to top
         angle -= 180 if angle > 0 else -180
     mx, my = (ax + bx) / 2, (ay + by) / 2
     lift = font_size * 0.35 + 2

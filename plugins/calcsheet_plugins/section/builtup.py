@@ -238,8 +238,9 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
             raise ShapeError(f"hole '{h.name}' crosses parts of different materials: split it into one hole per part",
                              "parts")
         for other in holes[:h_i]:
-            if _overlap(h.shape, other.shape, tol + sag) or _gap(h.shape, other.shape) <= tol:
-                raise ShapeError(f"holes '{other.name}' and '{h.name}' overlap or touch", "parts")
+            if _overlap(h.shape, other.shape, tol + sag):
+                raise ShapeError(f"holes '{other.name}' and '{h.name}' overlap: material would be removed twice",
+                                 "parts")
         for p in solids:
             for r in p.shape.rings:
                 if r.sign < 0:

@@ -24,6 +24,7 @@ def _fmt(v: float) -> str:
 
 def draw(shape, vals: dict) -> str:
     x0, x1, y0, y1 = vals["x_min"], vals["x_max"], vals["y_min"], vals["y_max"]
+    """Legend swatches sit top-right; the x-axis label clears the y_c dimension at two levels out."""
     W, H = max(x1 - x0, 1e-9), max(y1 - y0, 1e-9)
     s = min(BOX_W / W, BOX_H / H)
     width = MARGIN_L + W * s + MARGIN_R
@@ -48,7 +49,7 @@ def draw(shape, vals: dict) -> str:
 
     cx, cy = P(vals["x_c"], vals["y_c"])
     ext = 18
-    left, right = MARGIN_L - ext, MARGIN_L + W * s + ext
+    left, right = MARGIN_L - ext, MARGIN_L + W * s + 64
     top, bottom = MARGIN_T - ext, MARGIN_T + H * s + ext
     dash = "8 3 2 3"
     svg.line(left, cy, right, cy, stroke=AXIS, stroke_width=0.8, stroke_dasharray=dash)
@@ -88,7 +89,7 @@ def draw(shape, vals: dict) -> str:
     # centroid height, on the right
     ax, ay = P(x1, y0)
     bx, by = P(x1, vals["y_c"])
-    dimension(svg, ax, ay, bx, by, f"y_c {_fmt(vals['y_c'] - y0)}", offset=-2.6 * level, colour=AXIS, font_size=9)
+    dimension(svg, ax, ay, bx, by, f"ȳ = {_fmt(vals['y_c'] - y0)}", offset=-2 * level, colour=AXIS, font_size=9)
     if len(ns) > 1:
         y = 12.0
         for n in ns:

@@ -35,7 +35,7 @@ STANDARD = [
     ("r_y", "[length]", "mm", "radius of gyration about y"),
     ("r_min", "[length]", "mm", "least radius of gyration (minor principal axis)"),
     ("Q_x", "[length]**3", "mm^3", "first moment of the area above the centroidal x axis (shear)"),
-    ("t_x", "[length]", "mm", "material width cut by the centroidal x axis (shear)"),
+    ("t_x", "[length]", "mm", "material width cut by the centroidal x axis (transformed), for τ = V·Q_x/(I_x·t_x)"),
     ("Q_y", "[length]**3", "mm^3", "first moment of the area right of the centroidal y axis"),
     ("t_y", "[length]", "mm", "material width cut by the centroidal y axis"),
     ("J", "[length]**4", "mm^4", "torsion constant"),

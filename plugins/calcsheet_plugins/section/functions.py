@@ -43,6 +43,8 @@ COMMON = [
     Param("x_ref", L, "a vertical axis x = x_ref (shape coordinates) for I_y_ref", default=None),
     Param("y_ref", L, "a horizontal axis y = y_ref (shape coordinates; 0 mm is the base) for I_x_ref",
           default=None),
+    Param("detail", kind="text", doc='"full": every step; "brief": A, centroid and I in full, the rest in one table',
+          default="full", choices=("full", "brief")),
 ]
 
 _GEOMETRY: dict[str, object] = {}  # record key (its 'shape' text) -> Shape or Placed
@@ -77,8 +79,8 @@ def _register(name, params, doc):
 
 
 @_register("rectangle", [Param("b", L, "width"), Param("h", L, "depth")], "Solid rectangle b × h.")
-def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), rho, x_ref, y_ref)
+def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
@@ -86,20 +88,20 @@ def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None):
                    Param("t_f", L, "top and bottom walls", default=None),
                    Param("t_w", L, "side walls", default=None)],
            "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides).")
-def box(work, b, h, t=None, t_f=None, t_w=None, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref)
+def box(work, b, h, t=None, t_f=None, t_w=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
-def circle(work, d, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.circle(_mm(d))), rho, x_ref, y_ref)
+def circle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.circle(_mm(d))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("tube", [Param("d", L, "outside diameter"), Param("t", L, "wall", default=None),
                     Param("d_i", L, "inside diameter", default=None)],
            "Circular tube: outside diameter d and wall t, or inside diameter d_i.")
-def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref)
+def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("ishape", [Param("h", L, "overall depth"), Param("b", L, "top flange width"),
@@ -107,50 +109,50 @@ def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None):
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None)],
            "I-shape with equal flanges, or unequal ones via b_bot and t_fb (fillets not modelled).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, rho=None, x_ref=None, y_ref=None):
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, rho=None, x_ref=None, y_ref=None, detail="full"):
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
-                    rho, x_ref, y_ref)
+                    rho, x_ref, y_ref, detail=detail)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                        Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness")],
            "Channel, web on the left, flanges pointing right.")
-def channel(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref)
+def channel(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                    Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness")],
            "Tee, flange on top.")
-def tee(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref)
+def tee(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
                      Param("b", L, "horizontal leg (default h: equal angle)", default=None)],
            "Equal or unequal angle, heel at the bottom-left.")
-def angle(work, h, t, b=None, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref)
+def angle(work, h, t, b=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("triangle", [Param("b", L, "base"), Param("h", L, "height"),
                         Param("form", kind="text", doc="right angle at the bottom-left, or isosceles",
                               default="right", choices=("right", "isosceles"))],
            "Right or isosceles triangle on its base.")
-def triangle(work, b, h, form="right", rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), rho, x_ref, y_ref)
+def triangle(work, b, h, form="right", rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("semicircle", [Param("d", L, "diameter")], "Semicircle, flat side down.")
-def semicircle(work, d, rho=None, x_ref=None, y_ref=None):
-    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), rho, x_ref, y_ref)
+def semicircle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
+    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), rho, x_ref, y_ref, detail=detail)
 
 
 @_register("polygon", [Param("points", L, "outline vertices (x, y) in order", kind="points")],
            "Any simple polygon, given by its vertices in order (either direction).")
-def polygon(work, points, rho=None, x_ref=None, y_ref=None):
+def polygon(work, points, rho=None, x_ref=None, y_ref=None, detail="full"):
     pts = [(_mm(px), _mm(py)) for px, py in points]
-    return _section(work, _build(work, lambda: S.polygon(pts)), rho, x_ref, y_ref)
+    return _section(work, _build(work, lambda: S.polygon(pts)), rho, x_ref, y_ref, detail=detail)
 
 
 # ---------------------------------------------------------------- built-up sections
@@ -226,10 +228,12 @@ def hole(work, shape, x=None, y=None, anchor=None, rotate=None, mirror="none", n
     Param("parts", kind="list", record="part", doc="parts and holes, from section.part and section.hole"),
     Param("E_ref", "[pressure]", "reference elastic modulus (default: the first part's E)", default=None),
     Param("x_ref", L, "a vertical axis x = x_ref for I_y_ref", default=None),
-    Param("y_ref", L, "a horizontal axis y = y_ref for I_x_ref", default=None)],
+    Param("y_ref", L, "a horizontal axis y = y_ref for I_x_ref", default=None),
+    Param("detail", kind="text", doc='"full" or "brief" (see the shapes)', default="full",
+          choices=("full", "brief"))],
     fields=FIELDS, returns="section",
     doc="A section assembled from parts and holes; other materials by the transformed-section method.")
-def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None):
+def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
     placed = []
     for k, rec in enumerate(parts):
         p = _GEOMETRY.get(rec.fields.get("shape"))
@@ -246,8 +250,9 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None):
     transformed = any(abs(n - 1.0) > 1e-12 for n in asm.n)
     notes = []
     if asm.E_ref is not None and transformed:
-        notes.append(f"Transformed section: reference material E_ref = {asm.E_ref:g} MPa; each part counts at "
-                     "n = E_i/E_ref (parts without E are of the reference material).")
-    out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes)
+        notes.append(f"Transformed section: the reference material has E = {asm.E_ref:g} MPa; each part counts "
+                     "at n = E of the part / E of the reference (parts without E are of the reference material).")
+    out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
+                 detail=detail)
     _GEOMETRY[asm.shape.label] = asm.shape
     return out

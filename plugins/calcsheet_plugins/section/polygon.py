@@ -246,8 +246,8 @@ def first_moment_above_y(rings, c: float, weighted: bool = True) -> float:
     return first_moment_above(_swap(rings), c, weighted)
 
 
-def width_at(rings, c: float) -> float:
-    """Material width cut by the line y = c (holes subtract; weights ignored).
+def width_at(rings, c: float, weighted: bool = False) -> float:
+    """Material width cut by the line y = c (holes subtract; ``weighted``: each part at n times its width).
 
     At a height where the width jumps (a flange-web junction) the smaller of the
     widths just above and just below is returned: the one that governs shear.
@@ -267,14 +267,14 @@ def width_at(rings, c: float) -> float:
             t = (c - y0[cross]) / (y1[cross] - y0[cross])
             xc = x0[cross] + t * (x1[cross] - x0[cross])
             s = np.where(up[cross], 1.0, -1.0)
-            total += r.sign * float(np.dot(s, xc))
+            total += (r.weight if weighted else r.sign) * float(np.dot(s, xc))
         return total
 
     return min(one_side(True), one_side(False))
 
 
-def width_at_x(rings, c: float) -> float:
-    return width_at(_swap(rings), c)
+def width_at_x(rings, c: float, weighted: bool = False) -> float:
+    return width_at(_swap(rings), c, weighted)
 
 
 # ---------------------------------------------------------------- geometry tests

@@ -103,8 +103,8 @@ def properties(shape, x_ref: float | None = None, y_ref: float | None = None) ->
         S_x_top=b.I_x / y_top, S_x_bot=b.I_x / y_bot, S_y_left=b.I_y / x_left, S_y_right=b.I_y / x_right,
         Z_x=Zx, Z_y=Zy, y_p=y_p, x_p=x_p,
         r_x=math.sqrt(b.I_x / b.A), r_y=math.sqrt(b.I_y / b.A), r_min=math.sqrt(max(I2, 0.0) / b.A),
-        Q_x=P.first_moment_above(rings, b.y_c), t_x=P.width_at(rings, b.y_c),
-        Q_y=P.first_moment_above_y(rings, b.x_c), t_y=P.width_at_x(rings, b.x_c),
+        Q_x=P.first_moment_above(rings, b.y_c), t_x=P.width_at(rings, b.y_c, weighted=True),
+        Q_y=P.first_moment_above_y(rings, b.x_c), t_y=P.width_at_x(rings, b.x_c, weighted=True),
         J=shape.J, depth=y_max - y_min, width=x_max - x_min, mass=mass_per_length(shape.rows),
     )
     out["S_x"] = min(out["S_x_top"], out["S_x_bot"])

@@ -16,6 +16,7 @@ from calcsheet import units as U
 
 from . import drawing
 from .fields import NAMES, UNITS
+from .shapes import ARC_SEGMENTS
 from .properties import Basic, disagreement, green, properties, tabular
 
 _COLUMN_SUMS = "sum of the column in the parts table"
@@ -27,6 +28,15 @@ def _q(value: float, unit: str):
 
 def _mm(q) -> float | None:
     return None if q is None else float(q.m_as("mm"))
+
+
+def _snap(v: float, scale: float) -> float:
+    """Round-off dust (1e-14 mm) shown as what it is: zero."""
+    return 0.0 if abs(v) < scale else v
+
+
+def _label(r) -> str:
+    return r.name + (" (hole)" if r.sign < 0 and "hole" not in r.name.lower() else "")
 
 
 def _table_steps(work, shape, transformed: bool) -> None:
@@ -42,7 +52,7 @@ def _table_steps(work, shape, transformed: bool) -> None:
         a = r.sign * r.A
         at = a * r.n
         sA, sAx, sAy = sA + at, sAx + at * r.x, sAy + at * r.y
-        body.append([r.name + (" (hole)" if r.sign < 0 else "")]
+        body.append([_label(r)]
                     + ([round(r.n, 4), _q(a, "mm^2"), _q(at, "mm^2")] if tr else [_q(a, "mm^2")])
                     + [_q(r.x, "mm"), _q(r.y, "mm"), _q(at * r.x, "mm^3"), _q(at * r.y, "mm^3")])
     foot = [["Σ"] + (["", "", _q(sA, "mm^2")] if tr else [_q(sA, "mm^2")]) + ["", "", _q(sAx, "mm^3"),
@@ -51,38 +61,42 @@ def _table_steps(work, shape, transformed: bool) -> None:
                units=units, footer=foot,
                note="Holes are negative rows." + (" Each part counts at n times its area." if tr else ""))
     work.let("A", _q(sA, "mm^2"), unit="mm^2", desc="area" + (" (transformed)" if tr else ""),
-             note="Σ" + ("n·" if tr else "") + "A_i, " + _COLUMN_SUMS)
+             note="Σ " + ("n·" if tr else "") + "Aᵢ, " + _COLUMN_SUMS)
     work.let("Sigma_Ax", _q(sAx, "mm^3"), unit="mm^3", desc="first moment about the y axis", note=_COLUMN_SUMS)
     work.let("Sigma_Ay", _q(sAy, "mm^3"), unit="mm^3", desc="first moment about the x axis", note=_COLUMN_SUMS)
     work.calc("x_c", "Sigma_Ax/A", unit="mm", desc="centroid, x")
     work.calc("y_c", "Sigma_Ay/A", unit="mm", desc="centroid, y")
     xc, yc = work["x_c"].m_as("mm"), work["y_c"].m_as("mm")
-    product = any(abs(r.Ioxy) > 0 for r in rows) or abs(sum(r.sign * r.n * r.A * (r.x - xc) * (r.y - yc)
-                                                            for r in rows)) > 1e-12 * abs(sA * (xc**2 + yc**2) + 1)
-    cols2 = ["Part", "I_o,x,i", "d_y,i", "A_i·d_y,i²", "I_o,y,i", "d_x,i", "A_i·d_x,i²"]
-    units2 = [None, "mm^4", "mm", "mm^4", "mm^4", "mm", "mm^4"]
-    if product:
-        cols2 += ["I_o,xy,i", "A_i·d_x,i·d_y,i"]
-        units2 += ["mm^4", "mm^4"]
-    body2 = []
+    i_scale = sum(abs(r.n) * (abs(r.Iox) + abs(r.Ioy) + r.A * ((r.x - xc) ** 2 + (r.y - yc) ** 2)) for r in rows)
+    product = any(abs(r.Ioxy) > 1e-12 * i_scale or abs(r.n * r.A * (r.x - xc) * (r.y - yc)) > 1e-12 * i_scale
+                  for r in rows)
+    scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
+    body_x, body_y, body_p = [], [], []
     sums = [0.0] * 6
     for r in rows:
         w = r.sign * r.n
-        dx, dy = r.x - xc, r.y - yc
+        dx, dy = _snap(r.x - xc, scale), _snap(r.y - yc, scale)
         vals = [w * r.Iox, w * r.A * dy * dy, w * r.Ioy, w * r.A * dx * dx, w * r.Ioxy, w * r.A * dx * dy]
-        sums = [s + v for s, v in zip(sums, vals)]
-        row = [r.name + (" (hole)" if r.sign < 0 else ""), _q(vals[0], "mm^4"), _q(dy, "mm"), _q(vals[1], "mm^4"),
-               _q(vals[2], "mm^4"), _q(dx, "mm"), _q(vals[3], "mm^4")]
-        if product:
-            row += [_q(vals[4], "mm^4"), _q(vals[5], "mm^4")]
-        body2.append(row)
-    foot2 = ["Σ", _q(sums[0], "mm^4"), "", _q(sums[1], "mm^4"), _q(sums[2], "mm^4"), "", _q(sums[3], "mm^4")]
+        sums = [a + v for a, v in zip(sums, vals)]
+        label = _label(r)
+        body_x.append([label, _q(vals[0], "mm^4"), _q(dy, "mm"), _q(vals[1], "mm^4"), _q(vals[0] + vals[1], "mm^4")])
+        body_y.append([label, _q(vals[2], "mm^4"), _q(dx, "mm"), _q(vals[3], "mm^4"), _q(vals[2] + vals[3], "mm^4")])
+        body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
+    times_n = ", times n" if tr else ""
+    work.table("Parts table: second moments about the centroidal x axis (parallel-axis theorem)",
+               ["Part", "I_o,x,i", "d_y,i", "A_i·d_y,i²", "I_x,i"], body_x,
+               units=[None, "mm^4", "mm", "mm^4", "mm^4"],
+               footer=[["Σ", _q(sums[0], "mm^4"), "", _q(sums[1], "mm^4"), _q(sums[0] + sums[1], "mm^4")]],
+               note=f"d_y,i = y_i − y_c; I_o,x,i is each part's own centroidal value{times_n}; holes negative.")
+    work.table("Parts table: second moments about the centroidal y axis (parallel-axis theorem)",
+               ["Part", "I_o,y,i", "d_x,i", "A_i·d_x,i²", "I_y,i"], body_y,
+               units=[None, "mm^4", "mm", "mm^4", "mm^4"],
+               footer=[["Σ", _q(sums[2], "mm^4"), "", _q(sums[3], "mm^4"), _q(sums[2] + sums[3], "mm^4")]],
+               note=f"d_x,i = x_i − x_c{times_n}.")
     if product:
-        foot2 += [_q(sums[4], "mm^4"), _q(sums[5], "mm^4")]
-    work.table("Parts table: second moments about the centroid (parallel-axis theorem)", cols2, body2,
-               units=units2, footer=[foot2],
-               note="d_y,i = y_i − y_c and d_x,i = x_i − x_c; I_o is each part's own centroidal value"
-                    + (", times n" if tr else "") + "; holes negative.")
+        work.table("Parts table: product of area about the centroidal axes", ["Part", "I_o,xy,i", "d_x,i", "d_y,i",
+                   "A_i·d_x,i·d_y,i"], body_p, units=[None, "mm^4", "mm", "mm", "mm^4"],
+                   footer=[["Σ", _q(sums[4], "mm^4"), "", "", _q(sums[5], "mm^4")]])
     work.let("Sigma_Iox", _q(sums[0], "mm^4"), unit="mm^4", desc="parts' own second moments about x",
              note=_COLUMN_SUMS)
     work.let("Sigma_Ady2", _q(sums[1], "mm^4"), unit="mm^4", desc="transfer terms about x", note=_COLUMN_SUMS)
@@ -103,13 +117,61 @@ def _table_steps(work, shape, transformed: bool) -> None:
                       "the transfer terms cancel")
 
 
+class _Brief:
+    """detail="brief": the same formulas, evaluated by the engine, shown compactly.
+
+    For shapes that only feed a built-up section the reviewer needs A, the centroid
+    and I in full (they enter the parts table); the other properties are listed as
+    values three to a row, with their formulas in one paragraph beneath.
+    """
+
+    def __init__(self, work):
+        self.work = work
+        self.values = []
+        self.formulas = []
+        self.methods = []
+
+    def _take(self, name):
+        step = self.work.working.items.pop()
+        value = self.work[name]
+        if hasattr(value, "m_as") and step.display_unit is not None:
+            value = value.to(step.display_unit)
+        self.values.append((name, value))
+
+    def calc(self, name, formula, unit=None, desc=None, note=None):
+        self.work.calc(name, formula, unit=unit, desc=desc)
+        self._take(name)
+        self.formulas.append(f"{name} = {formula}")
+
+    def let(self, name, value, unit=None, desc=None, note=None):
+        self.work.let(name, value, unit=unit, desc=desc, note=note)
+        self._take(name)
+        if note and "extreme vertex" not in note and "named" not in note and "density" not in note:
+            self.methods.append(name)
+
+    def __getitem__(self, name):
+        return self.work[name]
+
+    def flush(self):
+        rows = []
+        for k in range(0, len(self.values), 3):
+            row = []
+            for name, value in self.values[k:k + 3]:
+                row += [name, value]
+            rows.append(row + [""] * (6 - len(row)))
+        self.work.table("Further properties", ["Property", "Value"] * 3, rows, units=[None] * 6)
+        self.work.note("Formulas: " + "; ".join(self.formulas) + ".", kind="method")
+        self.work.note("Found from the outline by Green's theorem (methods as in a full working): "
+                       + ", ".join(self.methods) + ".", kind="method")
+
+
 def _engine_basic(work) -> Basic:
     return Basic(*(work[n].m_as(u) for n, u in (("A", "mm^2"), ("x_c", "mm"), ("y_c", "mm"), ("I_x", "mm^4"),
                                                  ("I_y", "mm^4"), ("I_xy", "mm^4"))))
 
 
 def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, J_steps=True,
-           extra_notes=(), mass_note=None) -> dict:
+           extra_notes=(), mass_note=None, detail="full") -> dict:
     """Trace every standard property of ``shape`` into ``work`` and return the fields."""
     for message, param in shape.warnings:
         work.warn(message, param=param)
@@ -133,88 +195,96 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     if worst > 1e-9:
         work.fail(f"internal error: traced formulas and parts table differ by {worst:.2e} (please report)")
 
-    work.calc("I_1", "(I_x + I_y)/2 + sqrt(((I_x - I_y)/2)^2 + I_xy^2)", unit="mm^4",
-              desc="major principal second moment")
-    work.calc("I_2", "(I_x + I_y)/2 - sqrt(((I_x - I_y)/2)^2 + I_xy^2)", unit="mm^4",
-              desc="minor principal second moment")
-    work.let("theta_p", _q(math.degrees(vals["theta_p"]), "deg"), unit="deg", desc="principal angle",
-             note="θ_p = ½·atan2(−2·I_xy, I_x − I_y): anticlockwise from the x axis to the I_1 axis"
+    rec = _Brief(work) if detail == "brief" else work
+    if abs(vals["I_xy"]) > 1e-12 * (abs(vals["I_x"]) + abs(vals["I_y"])):
+        rec.calc("I_m", "(I_x + I_y)/2", unit="mm^4", desc="centre of Mohr's circle")
+        rec.calc("R_m", "sqrt(((I_x - I_y)/2)^2 + I_xy^2)", unit="mm^4", desc="radius of Mohr's circle")
+        rec.calc("I_1", "I_m + R_m", unit="mm^4", desc="major principal second moment")
+        rec.calc("I_2", "I_m - R_m", unit="mm^4", desc="minor principal second moment")
+    else:
+        rec.calc("I_1", "max(I_x, I_y)", unit="mm^4", desc="major principal second moment (I_xy = 0)")
+        rec.calc("I_2", "min(I_x, I_y)", unit="mm^4", desc="minor principal second moment (I_xy = 0)")
+    rec.let("theta_p", _q(math.degrees(vals["theta_p"]), "deg"), unit="deg", desc="principal angle",
+             note="θp = ½·atan2(−2·Ixy, Ix − Iy): anticlockwise from the x axis to the axis of I1"
              if abs(vals["I_xy"]) > 1e-12 * (abs(vals["I_x"]) + abs(vals["I_y"]))
-             else "I_xy = 0: the centroidal axes are principal")
+             else "Ixy = 0: the centroidal axes are principal")
 
     for name, desc in (("y_max", "level of the top fibre"), ("y_min", "level of the bottom fibre"),
                        ("x_min", "position of the left fibre"), ("x_max", "position of the right fibre")):
-        work.let(name, _q(vals[name], "mm"), unit="mm", desc=desc, note="extreme vertex of the outline")
-    work.calc("depth", "y_max - y_min", unit="mm", desc="overall depth")
-    work.calc("width", "x_max - x_min", unit="mm", desc="overall width")
-    work.calc("y_top", "y_max - y_c", unit="mm", desc="centroid to the top fibre")
-    work.calc("y_bot", "y_c - y_min", unit="mm", desc="centroid to the bottom fibre")
-    work.calc("x_left", "x_c - x_min", unit="mm", desc="centroid to the left fibre")
-    work.calc("x_right", "x_max - x_c", unit="mm", desc="centroid to the right fibre")
-    work.calc("S_x_top", "I_x/y_top", unit="mm^3", desc="elastic modulus, top fibre")
-    work.calc("S_x_bot", "I_x/y_bot", unit="mm^3", desc="elastic modulus, bottom fibre")
-    work.calc("S_y_left", "I_y/x_left", unit="mm^3", desc="elastic modulus, left fibre")
-    work.calc("S_y_right", "I_y/x_right", unit="mm^3", desc="elastic modulus, right fibre")
-    work.calc("S_x", "min(S_x_top, S_x_bot)", unit="mm^3", desc="governing elastic modulus about x")
-    work.calc("S_y", "min(S_y_left, S_y_right)", unit="mm^3", desc="governing elastic modulus about y")
+        rec.let(name, _q(vals[name], "mm"), unit="mm", desc=desc, note="extreme vertex of the outline")
+    rec.calc("depth", "y_max - y_min", unit="mm", desc="overall depth")
+    rec.calc("width", "x_max - x_min", unit="mm", desc="overall width")
+    rec.calc("y_top", "y_max - y_c", unit="mm", desc="centroid to the top fibre")
+    rec.calc("y_bot", "y_c - y_min", unit="mm", desc="centroid to the bottom fibre")
+    rec.calc("x_left", "x_c - x_min", unit="mm", desc="centroid to the left fibre")
+    rec.calc("x_right", "x_max - x_c", unit="mm", desc="centroid to the right fibre")
+    rec.calc("S_x_top", "I_x/y_top", unit="mm^3", desc="elastic modulus, top fibre")
+    rec.calc("S_x_bot", "I_x/y_bot", unit="mm^3", desc="elastic modulus, bottom fibre")
+    rec.calc("S_y_left", "I_y/x_left", unit="mm^3", desc="elastic modulus, left fibre")
+    rec.calc("S_y_right", "I_y/x_right", unit="mm^3", desc="elastic modulus, right fibre")
+    rec.calc("S_x", "min(S_x_top, S_x_bot)", unit="mm^3", desc="governing elastic modulus about x")
+    rec.calc("S_y", "min(S_y_left, S_y_right)", unit="mm^3", desc="governing elastic modulus about y")
     if transformed:
         work.note("Moduli are of the transformed section in reference-material units: the stress in part i is "
                   "n_i·M·y/I.")
 
     pna = "equal " + ("transformed " if transformed else "") + "area on each side, found exactly from the outline"
-    work.let("y_p", _q(vals["y_p"], "mm"), unit="mm", desc="horizontal plastic neutral axis", note=pna)
-    work.let("Z_x", _q(vals["Z_x"], "mm^3"), unit="mm^3", desc="plastic modulus about the horizontal axis",
-             note="Z_x = ∬|y − y_p| dA, by Green's theorem over the outline cut at y = y_p")
-    work.let("x_p", _q(vals["x_p"], "mm"), unit="mm", desc="vertical plastic neutral axis", note=pna)
-    work.let("Z_y", _q(vals["Z_y"], "mm^3"), unit="mm^3", desc="plastic modulus about the vertical axis",
-             note="Z_y = ∬|x − x_p| dA, by Green's theorem over the outline cut at x = x_p")
+    rec.let("y_p", _q(vals["y_p"], "mm"), unit="mm", desc="horizontal plastic neutral axis", note=pna)
+    rec.let("Z_x", _q(vals["Z_x"], "mm^3"), unit="mm^3", desc="plastic modulus about the horizontal axis",
+             note="Zx = ∬|y − yp| dA, by Green's theorem over the outline cut at the plastic axis")
+    rec.let("x_p", _q(vals["x_p"], "mm"), unit="mm", desc="vertical plastic neutral axis", note=pna)
+    rec.let("Z_y", _q(vals["Z_y"], "mm^3"), unit="mm^3", desc="plastic modulus about the vertical axis",
+             note="Zy = ∬|x − xp| dA, by Green's theorem over the outline cut at the plastic axis")
 
-    work.calc("r_x", "sqrt(I_x/A)", unit="mm", desc="radius of gyration about x")
-    work.calc("r_y", "sqrt(I_y/A)", unit="mm", desc="radius of gyration about y")
-    work.calc("r_min", "sqrt(I_2/A)", unit="mm", desc="least radius of gyration (minor principal axis)")
+    rec.calc("r_x", "sqrt(I_x/A)", unit="mm", desc="radius of gyration about x")
+    rec.calc("r_y", "sqrt(I_y/A)", unit="mm", desc="radius of gyration about y")
+    rec.calc("r_min", "sqrt(I_2/A)", unit="mm", desc="least radius of gyration (minor principal axis)")
 
-    work.let("Q_x", _q(vals["Q_x"], "mm^3"), unit="mm^3", desc="first moment of the area above the neutral axis",
-             note="Q_x = ∬(y − y_c) dA over y > y_c, from the outline cut at y = y_c")
-    work.let("t_x", _q(vals["t_x"], "mm"), unit="mm", desc="material width at the neutral axis",
-             note="width of material cut by y = y_c (at a step, the smaller side); τ = V·Q_x/(I_x·t_x)")
-    work.let("Q_y", _q(vals["Q_y"], "mm^3"), unit="mm^3", desc="first moment of the area right of the y axis",
-             note="Q_y = ∬(x − x_c) dA over x > x_c")
-    work.let("t_y", _q(vals["t_y"], "mm"), unit="mm", desc="material width cut by the centroidal y axis",
-             note="width of material cut by x = x_c")
+    rec.let("Q_x", _q(vals["Q_x"], "mm^3"), unit="mm^3", desc="first moment of the area above the neutral axis",
+             note="Qx = ∬(y − yc) dA over the area above the centroidal x axis, from the outline cut there")
+    tw = " (transformed: each part at n times its width)" if transformed else ""
+    rec.let("t_x", _q(vals["t_x"], "mm"), unit="mm", desc="material width at the neutral axis" + tw,
+             note="width of material cut by the centroidal x axis (at a step, the smaller side); shear stress τ = V·Qx/(Ix·tx)")
+    rec.let("Q_y", _q(vals["Q_y"], "mm^3"), unit="mm^3", desc="first moment of the area right of the y axis",
+             note="Qy = ∬(x − xc) dA over the area right of the centroidal y axis")
+    rec.let("t_y", _q(vals["t_y"], "mm"), unit="mm", desc="material width cut by the centroidal y axis" + tw,
+             note="width of material cut by the centroidal y axis")
 
     work.note("Torsion: " + shape.J_method + ".", kind="method")
     if J_steps and shape.J_steps:
         for st in shape.J_steps:
-            work.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
+            rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
     else:
-        work.let("J", _q(shape.J, "mm^4"), unit="mm^4", desc="torsion constant", note=shape.J_method)
+        rec.let("J", _q(shape.J, "mm^4"), unit="mm^4", desc="torsion constant", note=shape.J_method)
 
     if rho is not None:
-        work.calc("mass", "rho*A", unit="kg/m", desc="mass per length")
+        rec.calc("mass", "rho*A", unit="kg/m", desc="mass per length")
     elif vals["mass"] > 0:
-        work.let("mass", _q(vals["mass"], "kg/m"), unit="kg/m", desc="mass per length",
+        rec.let("mass", _q(vals["mass"], "kg/m"), unit="kg/m", desc="mass per length",
                  note=mass_note or "Σ ρ_i·A_i over the parts (actual areas, holes negative)")
     else:
-        work.let("mass", _q(0.0, "kg/m"), unit="kg/m", desc="mass per length", note="no density given")
+        rec.let("mass", _q(0.0, "kg/m"), unit="kg/m", desc="mass per length", note="no density given")
 
     if y_ref is not None:
-        work.calc("I_x_ref", "I_x + A*(y_c - y_ref)^2", unit="mm^4", desc="second moment about the axis y = y_ref")
+        rec.calc("I_x_ref", "I_x + A*(y_c - y_ref)^2", unit="mm^4", desc="second moment about the axis y = y_ref")
     else:
-        work.let("I_x_ref", work["I_x"], unit="mm^4", desc="second moment about y = y_ref",
+        rec.let("I_x_ref", work["I_x"], unit="mm^4", desc="second moment about y = y_ref",
                  note="no y_ref named: the centroidal axis")
     if x_ref is not None:
-        work.calc("I_y_ref", "I_y + A*(x_c - x_ref)^2", unit="mm^4", desc="second moment about the axis x = x_ref")
+        rec.calc("I_y_ref", "I_y + A*(x_c - x_ref)^2", unit="mm^4", desc="second moment about the axis x = x_ref")
     else:
-        work.let("I_y_ref", work["I_y"], unit="mm^4", desc="second moment about x = x_ref",
+        rec.let("I_y_ref", work["I_y"], unit="mm^4", desc="second moment about x = x_ref",
                  note="no x_ref named: the centroidal axis")
 
-    _agreement(work, shape, engine)
+    if detail == "brief":
+        rec.flush()
+    _agreement(work, shape, engine, table=detail != "brief")
     out = {name: work[name].to(UNITS[name]) if name != "theta_p" else work[name] for name in NAMES}
     out["shape"] = shape.label
     return out
 
 
-def _agreement(work, shape, engine: Basic) -> None:
+def _agreement(work, shape, engine: Basic, table: bool = True) -> None:
     """The second, independent method: Green's theorem over the outline polygon."""
     g = green(shape.rings)
     diff = disagreement(engine, g)
@@ -224,13 +294,15 @@ def _agreement(work, shape, engine: Basic) -> None:
     units = {"A": "mm^2", "x_c": "mm", "y_c": "mm", "I_x": "mm^4", "I_y": "mm^4", "I_xy": "mm^4"}
     rows = [[name, _q(a, units[name]), _q(b, units[name]), f"{diff[name]:.1e}"]
             for name, a, b in zip(units, engine.as_tuple(), g.as_tuple())]
-    work.table("Check by a second method: Green's theorem over the outline", ["Property", "Parts table",
-               "Outline integral", "Relative difference"], rows, units=[None, None, None, None],
-               note="Differences of I are relative to I_x + I_y, of x_c, y_c to √A.")
-    arcs = f", arcs as {2048}-sided polygons per full turn" if shape.has_arcs else ""
+    if table:
+        work.table("Check by a second method: Green's theorem over the outline", ["Property", "Traced working",
+                   "Outline integral", "Relative difference"], rows, units=[None, None, None, None],
+                   note="Differences of the second moments are relative to Ix + Iy, of the centroid to √A.")
+    arcs = f", arcs as {ARC_SEGMENTS}-sided polygons per full turn" if shape.has_arcs else ""
     if worst > shape.tolerance:
         work.fail(f"the two methods disagree: {worst_name} differs by {worst:.2e} (tolerance {shape.tolerance:.0e}); "
                   "the parts table and the outline do not describe the same section")
-    work.note(f"The parts table and Green's-theorem integration over the outline ({nverts} vertices{arcs}) agree: "
-              f"largest relative difference {worst:.1e} ({worst_name}), within the tolerance {shape.tolerance:.0e}.",
-              kind="agreement")
+    how = ("to rounding (every relative difference below 1e-14)" if worst < 1e-14 else
+           f"to a relative difference of {worst:.1e} at most ({worst_name})")
+    work.note(f"Second method: Green's-theorem integration over the outline ({nverts} vertices{arcs}) agrees with "
+              f"the traced working {how}; tolerance {shape.tolerance:.0e}.", kind="agreement")
