@@ -79,7 +79,7 @@ def value_precedence(value) -> int:
         except TypeError:
             neg = False
         if neg:
-            return PRECEDENCE[N.Neg] - 1
+            return 5  # "−2.00 kN" is bracketed inside any operation
         if str(value.units) not in ("", "dimensionless"):
             return QUANTITY
     return ATOM

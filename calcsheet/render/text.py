@@ -23,6 +23,7 @@ class TextPrinter(MathPrinter):
         return f"{obj}.{self.m_name(field)}"
 
     def m_number(self, text, exp):
+        text = text.replace("-", "−")
         return text if exp is None else f"{text}×10{superscript(exp)}"
 
     def m_unit(self, unit): return unit_text(unit)

@@ -1,0 +1,82 @@
+"""Units: one registry, exact trade units, a curated vocabulary."""
+import pytest
+
+from calcsheet import units as U
+from calcsheet.errors import UnknownUnitError
+
+
+def q(v, name):
+    return U.registry().Quantity(v, U.unit_named(name))
+
+
+def test_one_registry_for_the_process():
+    assert U.registry() is U.registry()
+
+
+# NIST Special Publication 811 (2008), Appendix B: 1 in = 2.54 cm exactly; 1 lbf = 4.448 221 615 260 5 N.
+def test_inch_is_exactly_25_4_mm():
+    assert q(1, "in").m_as("mm") == pytest.approx(25.4, rel=1e-15)
+    assert q(1, "ft").m_as("mm") == pytest.approx(304.8, rel=1e-15)
+
+
+def test_pound_force_and_kip():
+    assert q(1, "lbf").m_as("N") == pytest.approx(4.4482216152605, rel=1e-14)
+    assert q(1, "kip").m_as("lbf") == pytest.approx(1000.0, rel=1e-15)  # common practice: 1 kip = 1000 lbf
+
+
+def test_psi_and_ksi():
+    # NIST SP 811: 1 psi = 6.894 757 kPa (rounded); from the exact parts lbf/in²:
+    assert q(1, "psi").m_as("Pa") == pytest.approx(4.4482216152605 / 0.0254**2, rel=1e-12)
+    assert q(1, "ksi").m_as("psi") == pytest.approx(1000.0, rel=1e-15)
+
+
+@pytest.mark.parametrize("name, exact_si", [
+    ("psf", 4.4482216152605 / 0.3048**2),          # lbf/ft² in Pa
+    ("ksf", 1000 * 4.4482216152605 / 0.3048**2),   # kip/ft² in Pa
+    ("plf", 4.4482216152605 / 0.3048),             # lbf/ft in N/m
+    ("klf", 1000 * 4.4482216152605 / 0.3048),      # kip/ft in N/m
+    ("pcf", 4.4482216152605 / 0.3048**3),          # lbf/ft³ in N/m³
+])
+def test_trade_units_pint_lacks_are_exact(name, exact_si):
+    unit = {"psf": "Pa", "ksf": "Pa", "plf": "N/m", "klf": "N/m", "pcf": "N/m^3"}[name]
+    from calcsheet.parser import split_unit
+
+    assert q(1, name).to(U.build_unit(split_unit(unit))).magnitude == pytest.approx(exact_si, rel=1e-12)
+
+
+@pytest.mark.parametrize("bad, hint", [("kNm", "kN*m"), ("lb", "lbf"), ("Mpa", "MPa"), ("ton", "tonne")])
+def test_surprising_spellings_are_refused_with_a_hint(bad, hint):
+    with pytest.raises(UnknownUnitError) as exc:
+        U.unit_named(bad)
+    assert hint in exc.value.hint
+
+
+def test_unknown_unit_suggests_a_close_one():
+    with pytest.raises(UnknownUnitError) as exc:
+        U.unit_named("kPaa")
+    assert "kPa" in exc.value.hint
+
+
+def test_angles_have_their_own_dimension():
+    assert U.dim_of(q(30, "deg")) == U.ANGLE
+    assert U.dim_of(q(1, "rad")) == U.ANGLE
+    assert U.dim_of(U.registry().Quantity(0.5)) == U.DIMENSIONLESS
+
+
+def test_describe_dim_reads_like_an_engineer():
+    from calcsheet.parser import split_unit
+
+    def d(text):
+        return U.describe_dim(U.dim_of(U.build_unit(split_unit(text))))
+
+    assert d("kN/m") == "force/length (line load)"
+    assert d("kPa") == "pressure (stress, area load)"
+    assert d("kN*m") == "force × length (moment)"
+    assert d("mm^4") == "length⁴ (second moment of area)"
+
+
+def test_parse_dimension_of_plugin_declarations():
+    assert U.parse_dimension("[length]") == (("[length]", 1),)
+    assert U.parse_dimension("[force]/[length]") == (("[mass]", 1), ("[time]", -2))
+    assert U.parse_dimension("[angle]") == U.ANGLE
+    assert U.parse_dimension("") == U.DIMENSIONLESS
