@@ -250,7 +250,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
     out["delta_gov"] = work.let("delta_gov", lit.q(abs(e.value), "length"), unit=u["defl"],
                                 desc=f"largest deflection in span {span_name}",
                                 note=f"at x = {_x(lit, e.x)}" + (f", {c.combo.name}" if many else ""))
-    out["span_ratio"] = work.calc("span_ratio", "L_gov/delta_gov", desc="span/deflection (smallest over the spans)")
+    out["span_ratio"] = work.calc("span_ratio", "L_gov/delta_gov", unit="1", desc="span/deflection (smallest over the spans)")
     out["span_ratio"] = work.q(float(out["span_ratio"].m_as("")), "")
     out["delta_allow"] = work.calc("delta_allow", f"L_gov/{lim_name}", unit=u["defl"], desc="allowed deflection")
     work.check("delta_gov <= delta_allow", desc=f"deflection within span/{working.num(float(out['limit'].m_as('')))}")

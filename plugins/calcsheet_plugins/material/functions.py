@@ -1,0 +1,130 @@
+"""Material records for sheets: library grades, concrete by a named rule, and custom materials."""
+from __future__ import annotations
+
+from calcsheet.plugin import Field, Param
+
+from . import library, namespace
+
+FIELDS = [
+    Field("name", kind="text", doc="what the material is"),
+    Field("E", "[pressure]", "modulus of elasticity"),
+    Field("G", "[pressure]", "shear modulus"),
+    Field("nu", doc="Poisson's ratio"),
+    Field("f_y", "[pressure]", "yield strength (timber: characteristic bending strength; concrete: f_ck or f'c)"),
+    Field("f_u", "[pressure]", "ultimate tensile strength (timber: tension parallel to grain; concrete: tensile)"),
+    Field("rho", "[mass]/[length]**3", "density"),
+]
+_SYMBOL = {"E": "E", "G": "G", "nu": "ν", "f_y": "f_y", "f_u": "f_u", "rho": "ρ"}
+_WHAT = {"E": "modulus of elasticity", "G": "shear modulus", "nu": "Poisson's ratio", "f_y": "yield strength",
+         "f_u": "ultimate strength", "rho": "density"}
+
+
+def _from_library(work, category: str, key: str) -> dict:
+    entry = library.entry(category, key)
+    out = {"name": entry["name"]}
+    rows = []
+    for prop in library.PROPERTIES:
+        q, source = library.value(entry[prop])
+        out[prop] = q
+        rows.append([_WHAT[prop], _SYMBOL[prop], q, source])
+    work.table(f"{entry['name']} ({entry['standard']})", ["Property", "Symbol", "Value", "Source"], rows)
+    if any("from memory" in r[3] for r in rows):
+        work.warn(f"{entry['name']}: some values are recalled, not looked up — verify them against your standard")
+    return out
+
+
+@namespace.function("steel", params=[Param("grade", kind="text", choices=library.grades("steel"),
+                                           doc="steel grade")], fields=FIELDS, returns="material")
+def steel(work, grade):
+    """A structural steel grade from the library."""
+    return _from_library(work, "steel", grade)
+
+
+@namespace.function("aluminium", params=[Param("alloy", kind="text", choices=library.grades("aluminium"),
+                                               doc="alloy and temper")], fields=FIELDS, returns="material")
+def aluminium(work, alloy):
+    """An aluminium alloy from the library."""
+    return _from_library(work, "aluminium", alloy)
+
+
+@namespace.function("timber", params=[Param("grade", kind="text", choices=library.grades("timber"),
+                                            doc="strength class (softwood or glulam)")], fields=FIELDS,
+                    returns="material")
+def timber(work, grade):
+    """A timber strength class (sawn softwood or glued laminated) from the library."""
+    return _from_library(work, "timber", grade)
+
+
+RULES = ("EN 1992-1-1", "ACI 318")
+
+
+@namespace.function(
+    "concrete",
+    params=[Param("f_c", "[pressure]", "characteristic cylinder strength (f_ck, or f'c)"),
+            Param("rule", kind="text", choices=RULES, doc="rule for E from strength", default="EN 1992-1-1")],
+    fields=FIELDS,
+    returns="material",
+)
+def concrete(work, f_c, rule="EN 1992-1-1"):
+    """Normal-weight concrete with E from its strength by a named rule."""
+    mpa = f_c.m_as("MPa")
+    if not 8 <= mpa <= 120:
+        work.fail(f"f_c = {mpa:g} MPa is outside the range the rules cover (about 12–90 MPa)", param="f_c")
+    c = library.data()["concrete"]
+    nu, nu_src = library.value(c["nu"])
+    rho, rho_src = library.value(c["rho"])
+    work.let("nu", nu, desc="Poisson's ratio", note=nu_src)
+    work.let("rho", rho, unit="kg/m^3", desc="density", note=rho_src)
+    if rule == "EN 1992-1-1":
+        work.calc("f_cm", "f_c + 8 MPa", unit="MPa", desc="mean strength, EN 1992-1-1 Table 3.1")
+        work.calc("E", "22 GPa*(f_cm/(10 MPa))^0.3", unit="GPa",
+                  desc="secant modulus E_cm, EN 1992-1-1 Table 3.1 (from memory — verify against your standard)")
+        work.calc("f_u", "0.30 MPa*(f_c/(1 MPa))^(2/3)", unit="MPa",
+                  desc="mean tensile strength f_ctm, EN 1992-1-1 Table 3.1, f_ck ≤ 50 MPa (from memory — verify)")
+        if mpa > 50:
+            work.warn("f_ctm = 0.30 f_ck^(2/3) holds up to C50/60; above that EN 1992-1-1 uses another form",
+                      param="f_c")
+    else:
+        work.calc("E", "(4700 MPa)*sqrt(f_c/(1 MPa))", unit="MPa",
+                  desc="E_c = 4700√f'c (MPa), ACI 318-19 19.2.2.1(b), normal weight (from memory — verify)")
+        work.calc("f_u", "(0.62 MPa)*sqrt(f_c/(1 MPa))", unit="MPa",
+                  desc="modulus of rupture f_r = 0.62√f'c, ACI 318-19 19.2.3.1 (from memory — verify)")
+    work.calc("G", "E/(2*(1 + nu))", unit="GPa", desc="shear modulus of an isotropic material, G = E/(2(1+ν))")
+    return {"name": f"normal-weight concrete, f_c = {mpa:g} MPa (E by {rule})", "E": work["E"], "G": work["G"],
+            "nu": nu, "f_y": f_c, "f_u": work["f_u"], "rho": rho}
+
+
+@namespace.function(
+    "custom",
+    params=[Param("name", kind="text", doc="what it is"),
+            Param("E", "[pressure]", "modulus of elasticity"),
+            Param("f_y", "[pressure]", "yield or characteristic strength"),
+            Param("nu", doc="Poisson's ratio (default 0.3)", default=None),
+            Param("G", "[pressure]", "shear modulus (default E/(2(1+ν)))", default=None),
+            Param("f_u", "[pressure]", "ultimate strength (default f_y)", default=None),
+            Param("rho", "[mass]/[length]**3", "density", default=None)],
+    fields=FIELDS,
+    returns="material",
+)
+def custom(work, name, E, f_y, nu=None, G=None, f_u=None, rho=None):
+    """A material the sheet defines itself; its source is the sheet."""
+    if E.magnitude <= 0:
+        work.fail("E must be greater than zero", param="E")
+    if f_y.magnitude <= 0:
+        work.fail("f_y must be greater than zero", param="f_y")
+    if nu is None:
+        nu = work.let("nu_0", work.q(0.3, ""), desc="Poisson's ratio", note="not given: 0.3 assumed (steel-like)")
+        work.scope["nu"] = nu
+    v = float(nu.m_as(""))
+    if not -1 < v < 0.5:
+        work.fail(f"Poisson's ratio must lie between -1 and 0.5, got {v:g}", param="nu")
+    if G is None:
+        work.calc("G", "E/(2*(1 + nu))", unit="GPa" if E.m_as("GPa") > 0 else None,
+                  desc="shear modulus of an isotropic material, G = E/(2(1+ν))")
+        G = work["G"]
+    if rho is None:
+        work.note("No density given: the record's density is zero; self-weight must be added by the sheet.",
+                  kind="warning")
+        rho = work.q(0.0, "kg/m^3")
+    return {"name": name, "E": E, "G": G, "nu": nu, "f_y": f_y, "f_u": f_u if f_u is not None else f_y,
+            "rho": rho}
