@@ -1,4 +1,4 @@
-"""The ``calcsheet`` command: build, check, plugins.
+"""The ``calcsheet`` command: build, check, diff, watch, plugins.
 
 Exit status: 0 done; 1 a sheet has errors; 2 usage error; 3 checks NG under
 --fail-on-ng (or warnings under --strict for ``check``).
@@ -31,6 +31,11 @@ def _parser() -> argparse.ArgumentParser:
     b.add_argument("--format", default="html,pdf", help="comma-separated: html,pdf,json (default html,pdf)")
     b.add_argument("--set", dest="overrides", action="append", default=[], metavar="NAME=QUANTITY",
                    help="replace an input value for this build, e.g. --set L=7.5m")
+    b.add_argument("--set-file", dest="set_files", action="append", default=[], type=Path, metavar="FILE",
+                   help="a TOML table of overrides (NAME = \"QUANTITY\"); --set wins over it")
+    b.add_argument("--since", metavar="OLD",
+                   help="put a 'changes since' page at the front and mark changed values: a git revision "
+                        "(the same sheet at REV), REV:path, an older sheet file or a saved JSON result")
     b.add_argument("--fail-on-ng", action="store_true", help="exit 3 when any check is NG")
     b.add_argument("--paper", choices=["A4", "Letter"], help="paper size (default: front matter, else A4)")
 
@@ -39,8 +44,52 @@ def _parser() -> argparse.ArgumentParser:
     c.add_argument("--format", choices=["human", "json", "line"], default="human")
     c.add_argument("--strict", action="store_true", help="warnings fail the check (exit 3)")
 
+    d = sub.add_parser("diff", help="what changed between two revisions of a sheet")
+    d.add_argument("old", help="sheet file, REV:path (read with git) or saved JSON result")
+    d.add_argument("new", help="sheet file, REV:path (read with git) or saved JSON result")
+    d.add_argument("--format", choices=["text", "json"], default="text")
+
+    w = sub.add_parser("watch", help="rebuild the HTML package on every save and serve it on 127.0.0.1")
+    w.add_argument("sheet", type=Path)
+    w.add_argument("--port", type=int, default=8321, help="port on 127.0.0.1 (default 8321; 0 picks a free one)")
+    w.add_argument("-o", "--out", type=Path, default=Path("out"), help="output folder (default: out)")
+    w.add_argument("--set", dest="overrides", action="append", default=[], metavar="NAME=QUANTITY")
+    w.add_argument("--set-file", dest="set_files", action="append", default=[], type=Path, metavar="FILE")
+    w.add_argument("--paper", choices=["A4", "Letter"])
+
     sub.add_parser("plugins", help="list plugin functions with their parameters and result fields")
     return p
+
+
+def read_set_file(path: Path) -> dict[str, str]:
+    """A TOML table of overrides: ``L = "7.5 m"``; a bare number is a dimensionless value."""
+    import tomllib
+
+    try:
+        data = tomllib.loads(path.read_text(encoding="utf-8"))
+    except OSError as exc:
+        raise ValueError(f"--set-file {path}: {exc.strerror or exc}") from None
+    except (tomllib.TOMLDecodeError, UnicodeDecodeError) as exc:
+        raise ValueError(f"--set-file {path}: not valid TOML ({exc})") from None
+    out = {}
+    for name, value in data.items():
+        if isinstance(value, bool) or not isinstance(value, (str, int, float)):
+            raise ValueError(f"--set-file {path}: {name} must be a quantity written as a string "
+                             f"(e.g. {name} = \"7.5 m\") or a number")
+        text = str(value).strip()
+        if not text:
+            raise ValueError(f"--set-file {path}: {name} is empty")
+        out[str(name)] = text
+    return out
+
+
+def gather_overrides(args) -> dict[str, str]:
+    """--set-file tables in order, then --set (the command line wins)."""
+    out: dict[str, str] = {}
+    for path in getattr(args, "set_files", []):
+        out.update(read_set_file(path))
+    out.update(parse_sets(args.overrides))
+    return out
 
 
 def parse_sets(items: list[str]) -> dict[str, str]:
@@ -64,6 +113,10 @@ def main(argv: list[str] | None = None) -> int:
         return cmd_build(args)
     if args.command == "check":
         return cmd_check(args)
+    if args.command == "diff":
+        return cmd_diff(args)
+    if args.command == "watch":
+        return cmd_watch(args)
     if args.command == "plugins":
         return cmd_plugins()
     _parser().print_help()
@@ -82,7 +135,7 @@ def cmd_build(args) -> int:
               file=sys.stderr)
         return EXIT_USAGE
     try:
-        overrides = parse_sets(args.overrides)
+        overrides = gather_overrides(args)
     except ValueError as exc:
         print(f"calcsheet: error: {exc}", file=sys.stderr)
         return EXIT_USAGE
@@ -106,8 +159,17 @@ def cmd_build(args) -> int:
                   file=sys.stderr)
             status = EXIT_ERRORS
             continue
+        for name, (old, new) in result.overrides.items():
+            print(f"{sheet}: {name} set to {_shown(new)} (sheet: {_shown(old)})", file=sys.stderr)
+        doc_options = {}
+        if args.since:
+            try:
+                doc_options = since_options(args.since, sheet, result, many)
+            except ValueError as exc:
+                print(f"calcsheet: error: {exc}", file=sys.stderr)
+                return EXIT_USAGE
         try:
-            written = write_package(result, args.out, formats, paper=args.paper)
+            written = write_package(result, args.out, formats, paper=args.paper, **doc_options)
         except OSError as exc:
             print(f"calcsheet: error: cannot write the package: {exc}", file=sys.stderr)
             status = EXIT_ERRORS
@@ -177,3 +239,69 @@ def cmd_plugins() -> int:
                                    for f in pf.fields)
                 print(f"      → {fields}")
     return status
+
+
+def _shown(value) -> str:
+    from .diff import show_quantity
+
+    import pint
+
+    return show_quantity(value) if isinstance(value, pint.Quantity) else str(value)
+
+
+def since_options(since: str, sheet: Path, result, many: bool) -> dict:
+    """PackageDocument options for ``build --since``: the changes page and the changed names."""
+    from .diff import DiffSourceError, changes_page_html, diff_snapshots, load_side, snapshot_of_result
+
+    spec = since
+    if not Path(since).exists() and ":" not in since:
+        spec = f"{since}:{sheet.as_posix()}"  # a bare revision: the same sheet at that revision
+    elif many:
+        raise ValueError("--since with several sheets takes a git revision (each sheet is compared with itself)")
+    try:
+        old = load_side(spec)
+    except DiffSourceError as exc:
+        raise ValueError(f"--since: {exc}") from None
+    d = diff_snapshots(old, snapshot_of_result(result, str(sheet)))
+    return {"extra_front": changes_page_html(d), "changed": d.changed_names}
+
+
+def cmd_diff(args) -> int:
+    import json
+
+    from .diff import DiffSourceError, diff_specs, to_text
+
+    try:
+        d = diff_specs(args.old, args.new)
+    except DiffSourceError as exc:
+        print(f"calcsheet: error: {exc}", file=sys.stderr)
+        return EXIT_USAGE
+    if args.format == "json":
+        print(json.dumps(d.to_json(), indent=2, ensure_ascii=False))
+    else:
+        print(to_text(d))
+    return EXIT_ERRORS if d.new.errors else EXIT_OK
+
+
+def cmd_watch(args) -> int:
+    if not args.sheet.is_file():
+        print(f"calcsheet: error: no such sheet: {args.sheet}", file=sys.stderr)
+        return EXIT_USAGE
+    if not 0 <= args.port <= 65535:
+        print(f"calcsheet: error: --port {args.port} is not a port number", file=sys.stderr)
+        return EXIT_USAGE
+    try:
+        overrides = gather_overrides(args)
+    except ValueError as exc:
+        print(f"calcsheet: error: {exc}", file=sys.stderr)
+        return EXIT_USAGE
+    from .watch import Watcher
+
+    try:
+        watcher = Watcher(args.sheet, args.out, args.port, paper=args.paper, overrides=overrides,
+                          log=lambda m: print(m, flush=True))
+    except OSError as exc:
+        print(f"calcsheet: error: cannot listen on 127.0.0.1:{args.port}: {exc.strerror or exc}", file=sys.stderr)
+        return EXIT_USAGE
+    watcher.serve()
+    return EXIT_OK

@@ -1,0 +1,279 @@
+"""Live preview: rebuild the HTML package whenever the sheet is saved, and serve it on loopback.
+
+The sheet's modification time is polled (no new dependency); each save
+rebuilds incrementally from the last good run. A good build is written to
+disk atomically; a build with errors leaves the last good package on disk
+and shows the diagnostics in the browser instead. The server binds
+127.0.0.1 only and refuses any peer that is not loopback and any Host header
+that is not this server (so a web page elsewhere cannot read it through DNS
+rebinding). The page refreshes itself by polling ``/version`` on its own
+origin.
+"""
+from __future__ import annotations
+
+import ipaddress
+import json
+import secrets
+import threading
+import time
+from http.server import BaseHTTPRequestHandler, ThreadingHTTPServer
+from pathlib import Path
+
+from .atomic import write_atomic
+from .render.html import esc
+
+HOST = "127.0.0.1"
+POLL_SECONDS = 0.25
+
+
+def is_loopback(address: str) -> bool:
+    try:
+        ip = ipaddress.ip_address(address.split("%", 1)[0])
+    except ValueError:
+        return False
+    if ip.version == 6 and ip.ipv4_mapped is not None:
+        ip = ip.ipv4_mapped
+    return ip.is_loopback
+
+
+def refresh_script(version: int, nonce: str) -> str:
+    """Polls /version on the page's own origin and reloads when the build moves on (keeps the scroll)."""
+    return f"""<script nonce="{esc(nonce)}">
+(function () {{
+  var shown = {int(version)};
+  try {{
+    var y = sessionStorage.getItem("calcsheet-scroll");
+    if (y !== null) {{ sessionStorage.removeItem("calcsheet-scroll"); window.scrollTo(0, parseInt(y, 10) || 0); }}
+  }} catch (e) {{}}
+  function poll() {{
+    fetch("/version", {{cache: "no-store", credentials: "same-origin"}})
+      .then(function (r) {{ return r.json(); }})
+      .then(function (v) {{
+        if (v.version !== shown) {{
+          try {{ sessionStorage.setItem("calcsheet-scroll", String(window.scrollY)); }} catch (e) {{}}
+          location.reload();
+        }} else {{ setTimeout(poll, 400); }}
+      }})
+      .catch(function () {{ setTimeout(poll, 1500); }});
+  }}
+  setTimeout(poll, 400);
+}})();
+</script>"""
+
+
+def error_page(sheet: str, result, last_good: Path | None, version: int, nonce: str) -> str:
+    """What the browser shows while the sheet has errors: the diagnostics, not a blank page."""
+    diags = "\n\n".join(d.format(result.source) for d in result.diagnostics if d.severity == "error")
+    kept = (f"<p>The last good package is kept at <code>{esc(last_good)}</code>.</p>" if last_good
+            else "<p>No good build yet.</p>")
+    return f"""<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8"><title>{esc(Path(sheet).name)}: errors</title>
+<style>body {{ font-family: sans-serif; margin: 2em; }} pre {{ background: #fff4f4; border: 1px solid #c00;
+padding: 1em; white-space: pre-wrap; }} h1 {{ color: #a00; font-size: 1.3em; }}</style></head><body>
+<h1 class="watch-errors">{esc(Path(sheet).name)}: {len(result.errors)} error(s) — package not rebuilt</h1>
+<pre class="diagnostics">{esc(diags)}</pre>
+{kept}
+{refresh_script(version, nonce)}
+</body></html>"""
+
+
+class Preview:
+    """The state the server shows: the latest page and its version number."""
+
+    def __init__(self, sheet: Path, out_dir: Path, *, paper: str | None = None, overrides: dict | None = None):
+        self.sheet = Path(sheet)
+        self.out_dir = Path(out_dir)
+        self.paper = paper
+        self.overrides = dict(overrides or {})
+        self.version = 0
+        self.page = b""
+        self.nonce = secrets.token_urlsafe(16)
+        self.last_good = None  # the last Result without errors
+        self.last_good_path: Path | None = None
+        self.last_status = ""
+        self.lock = threading.Lock()
+        self._seen = None
+
+    def _signature(self):
+        try:
+            st = self.sheet.stat()
+        except FileNotFoundError:
+            return None
+        return (st.st_mtime_ns, st.st_size)
+
+    def changed(self) -> bool:
+        sig = self._signature()
+        if sig is None or sig == self._seen:
+            return False
+        self._seen = sig
+        return True
+
+    def build(self) -> str:
+        """Rebuild from the sheet on disk; returns a one-line status."""
+        from .incremental import rebuild
+        from .package import PackageDocument, write_package
+
+        try:
+            source = self.sheet.read_text(encoding="utf-8")
+        except (OSError, UnicodeDecodeError) as exc:
+            return self._publish_text(f"cannot read {self.sheet}: {exc}")
+        previous = self.last_good
+        if previous is not None and previous.path != str(self.sheet):
+            previous = None
+        if previous is None:
+            from .engine import run
+
+            result = run(source, overrides=self.overrides, path=str(self.sheet))
+        else:
+            result = rebuild(previous, source, overrides=self.overrides).result
+        version = self.version + 1
+        if result.ok:
+            written = write_package(result, self.out_dir, ["html"], paper=self.paper)
+            self.last_good = result
+            self.last_good_path = written[0]
+            html = PackageDocument(result, paper=self.paper,
+                                   watch_script=refresh_script(version, self.nonce)).html()
+            n_ng = sum(1 for c in result.checks if not c.ok)
+            status = f"built {written[0]} ({len(result.checks)} checks, {n_ng} NG)"
+        else:
+            html = error_page(str(self.sheet), result, self.last_good_path, version, self.nonce)
+            status = f"{len(result.errors)} error(s); last good package kept"
+        with self.lock:
+            self.page = html.encode("utf-8")
+            self.version = version
+            self.last_status = status
+        return status
+
+    def _publish_text(self, message: str) -> str:
+        html = (f"<!DOCTYPE html><html><head><meta charset='utf-8'><title>calcsheet</title></head><body>"
+                f"<pre>{esc(message)}</pre>{refresh_script(self.version + 1, self.nonce)}</body></html>")
+        with self.lock:
+            self.page = html.encode("utf-8")
+            self.version += 1
+        return message
+
+    def snapshot(self) -> tuple[int, bytes]:
+        with self.lock:
+            return self.version, self.page
+
+
+class LoopbackServer(ThreadingHTTPServer):
+    daemon_threads = True
+    allow_reuse_address = True
+
+    def __init__(self, port: int, preview: Preview):
+        self.preview = preview
+        super().__init__((HOST, port), _Handler)
+
+    def verify_request(self, request, client_address) -> bool:
+        """Connections from anything but loopback are closed before a byte is read."""
+        return is_loopback(str(client_address[0]))
+
+    @property
+    def port(self) -> int:
+        return self.server_address[1]
+
+
+class _Handler(BaseHTTPRequestHandler):
+    server: LoopbackServer
+    protocol_version = "HTTP/1.1"
+
+    def log_message(self, fmt, *args):  # quiet: the terminal shows build status instead
+        pass
+
+    def _host_ok(self) -> bool:
+        host = (self.headers.get("Host") or "").strip().lower()
+        port = self.server.port
+        return host in {f"127.0.0.1:{port}", f"localhost:{port}"}
+
+    def _send(self, status: int, body: bytes, ctype: str):
+        self.send_response(status)
+        self.send_header("Content-Type", ctype)
+        self.send_header("Content-Length", str(len(body)))
+        self.send_header("Cache-Control", "no-store")
+        self.send_header("X-Content-Type-Options", "nosniff")
+        self.send_header("Referrer-Policy", "no-referrer")
+        self.send_header("Cross-Origin-Resource-Policy", "same-origin")
+        self.send_header("Content-Security-Policy",
+                         f"default-src 'none'; script-src 'nonce-{self.server.preview.nonce}'; "
+                         "style-src 'unsafe-inline'; img-src data:; font-src data:; connect-src 'self'; "
+                         "base-uri 'none'; form-action 'none'; frame-ancestors 'none'")
+        self.end_headers()
+        if self.command != "HEAD":
+            self.wfile.write(body)
+
+    def do_GET(self):
+        if not is_loopback(self.client_address[0]) or not self._host_ok():
+            self._send(403, b"forbidden: the preview answers only to 127.0.0.1\n", "text/plain; charset=utf-8")
+            return
+        version, page = self.server.preview.snapshot()
+        route = self.path.split("?", 1)[0]
+        if route in ("/", "/index.html"):
+            self._send(200, page, "text/html; charset=utf-8")
+        elif route == "/version":
+            self._send(200, json.dumps({"version": version}).encode(), "application/json")
+        else:
+            self._send(404, b"not found\n", "text/plain; charset=utf-8")
+
+    do_HEAD = do_GET
+
+    def do_POST(self):
+        self._send(405, b"method not allowed\n", "text/plain; charset=utf-8")
+
+    do_PUT = do_DELETE = do_PATCH = do_POST
+
+
+class Watcher:
+    """Polls the sheet and rebuilds on every save; serve() blocks, start() runs in the background."""
+
+    def __init__(self, sheet: Path, out_dir: Path, port: int = 8321, *, paper: str | None = None,
+                 overrides: dict | None = None, log=print):
+        self.preview = Preview(sheet, out_dir, paper=paper, overrides=overrides)
+        self.server = LoopbackServer(port, self.preview)
+        self.log = log
+        self._stop = threading.Event()
+        self._threads: list[threading.Thread] = []
+
+    @property
+    def url(self) -> str:
+        return f"http://{HOST}:{self.server.port}/"
+
+    def poll_once(self) -> bool:
+        if self.preview.changed():
+            self.log(time.strftime("%H:%M:%S ") + self.preview.build())
+            return True
+        return False
+
+    def _poll_loop(self):
+        while not self._stop.is_set():
+            try:
+                self.poll_once()
+            except Exception as exc:  # a bug in one build must not end the preview
+                self.log(f"build failed: {type(exc).__name__}: {exc}")
+            self._stop.wait(POLL_SECONDS)
+
+    def start(self) -> "Watcher":
+        self.poll_once()
+        for target in (self._poll_loop, self.server.serve_forever):
+            t = threading.Thread(target=target, daemon=True)
+            t.start()
+            self._threads.append(t)
+        return self
+
+    def stop(self):
+        self._stop.set()
+        self.server.shutdown()
+        self.server.server_close()
+        for t in self._threads:
+            t.join(timeout=5)
+
+    def serve(self):
+        self.start()
+        self.log(f"previewing {self.preview.sheet} at {self.url} (Ctrl-C to stop)")
+        try:
+            while not self._stop.is_set():
+                self._stop.wait(1.0)
+        except KeyboardInterrupt:
+            pass
+        finally:
+            self.stop()
