@@ -91,8 +91,8 @@ def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=Non
             work.calc("EI", "E*I", unit=u["EI"], desc="flexural stiffness")
         else:
             work.let("EI", lit.q(model.EI[0], "EI"), unit=u["EI"], desc="flexural stiffness E·I",
-                     note="E from " + ("the material" if E is None else "E") + ", I from " +
-                          ("the section's I_x" if I is None and I_spans is None else "I"))
+                     note=("E from the material" if E is None else "E as given") + "; " +
+                          ("I from the section's I_x" if I is None else "I as given"))
     else:
         work.table("Flexural stiffness by span", ["Span", "E", "I", "EI"],
                    [[f"{Ls[k]}–{Ls[k + 1]}", lit.q(e, "modulus"), lit.q(i, "inertia"), lit.q(e * i, "EI")]
@@ -253,6 +253,8 @@ def _envelope(work, setup, res, lit, lim, deflection):
     out["span_ratio"] = work.calc("span_ratio", "L_gov/delta_gov", unit="1", desc="span/deflection (smallest over the spans)")
     out["span_ratio"] = work.q(float(out["span_ratio"].m_as("")), "")
     out["delta_allow"] = work.calc("delta_allow", f"L_gov/{lim_name}", unit=u["defl"], desc="allowed deflection")
+    out["delta_gov"] = out["delta_gov"].to(u["defl"])
+    out["delta_allow"] = out["delta_allow"].to(u["defl"])
     work.check("delta_gov <= delta_allow", desc=f"deflection within span/{working.num(float(out['limit'].m_as('')))}")
     out["EI"] = lit.q(model.EI[0], "EI")
     return out

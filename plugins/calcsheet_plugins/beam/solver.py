@@ -393,8 +393,8 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
         scale = np.maximum(rb[:, 0], 1e-300)
         try:
             u[free] = banded_cholesky_solve(rb, F[free], scale)
-        except Mechanism as mech:
-            raise BeamInputError(_mechanism_message(m, dofs, int(free[mech.dof])), "supports") from None
+        except Mechanism:
+            raise BeamInputError(_mechanism_message(m, dofs, free, rb), "supports") from None
 
     # element end forces and reactions
     R = np.zeros(n)
@@ -429,20 +429,28 @@ def _snap(ld, grid: np.ndarray, tol: float):
     return LineLoad(_snap_x(ld.x1, grid, tol), _snap_x(ld.x2, grid, tol), ld.w1, ld.w2, ld.case)
 
 
-def _mechanism_message(m: Model, dofs: Dofs, g: int) -> str:
+def _mechanism_message(m: Model, dofs: Dofs, free: np.ndarray, rb: np.ndarray) -> str:
+    """Say which part of the beam can move: the null mode of the stiffness matrix (failure path only)."""
+    n = len(free)
+    K = np.zeros((n, n))
+    for i in range(n):
+        for d in range(rb.shape[1]):
+            if i - d >= 0:
+                K[i, i - d] = K[i - d, i] = rb[i, d]
+    D = 1.0 / np.sqrt(np.maximum(np.diag(K), 1e-300))
+    vals, vecs = np.linalg.eigh(K * D[:, None] * D[None, :])
+    mode = np.zeros(dofs.n)
+    mode[free] = vecs[:, 0] * D
     X = m.nodes
-    for i in range(len(X)):
-        if g == dofs.w[i]:
-            return (
-                f"the supports cannot hold the beam: it can move up and down at x = {X[i]:g} m "
-                f"(support {i + 1}) without resistance — it is a mechanism; add a support or remove a hinge"
-            )
-        if g in (dofs.rl[i], dofs.rr[i]):
-            return (
-                f"the supports cannot hold the beam: it can rotate at x = {X[i]:g} m (support {i + 1}) "
-                f"without resistance — it is a mechanism; add a support or remove a hinge"
-            )
-    return "the supports cannot hold the beam: it is a mechanism"
+    w = np.array([mode[dofs.w[i]] for i in range(len(X))])
+    moving = np.flatnonzero(np.abs(w) > 1e-6 * max(np.abs(w).max(), 1e-300))
+    if len(moving) and np.abs(w).max() > 0:
+        a, b = X[max(moving[0] - 1, 0)], X[min(moving[-1] + 1, len(X) - 1)]
+        where = f"the part from x = {a:g} m to x = {b:g} m can move up and down freely"
+    else:
+        where = "a joint can rotate freely"
+    return (f"the supports cannot hold the beam — it is a mechanism: {where}; "
+            f"add a support, fix an end, or remove a hinge")
 
 
 def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Pieces:
