@@ -161,7 +161,7 @@ class PackageDocument:
             return ""
         rows = []
         for entry in revs:
-            cells = [c.strip() for c in str(entry).split("|")]
+            cells = [c.strip() for c in str(entry).split("|", 3)]  # a "|" in the description stays
             cells += [""] * (4 - len(cells))
             rows.append("<tr>" + "".join(f"<td>{esc(c)}</td>" for c in cells[:4]) + "</tr>")
         return ("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
