@@ -2,7 +2,11 @@
 
 Types come from literals, declared ``[unit]``s and plugin signatures. A
 statement whose root is broken gets the type ANY, and nothing downstream of
-it is reported again: one error per root cause.
+it is reported again: one error per root cause. Errors are specialised into
+the slip they most likely are (``calcsheet.slips``), and statements that
+type-check are then linted for warnings and infos: implausible values for
+what their name says they are, unit names shadowing variables, unused
+inputs, checks without a utilisation, unusual declared units.
 """
 from __future__ import annotations
 
@@ -10,12 +14,16 @@ from dataclasses import dataclass
 
 from . import nodes as N
 from . import units as U
+from . import lint
 from .errors import (
     AngleError,
+    BareNumberArgumentError,
     CalcError,
+    CheckDimensionError,
     DeclaredUnitError,
     DimensionError,
     Diagnostic,
+    OffsetTemperatureError,
     PluginArgumentError,
     TypeMismatchError,
     UnknownFieldError,
@@ -24,21 +32,29 @@ from .errors import (
 from .evaluator import INVERSE_TRIG, TRANSCENDENTAL, TRIG
 from .plugin import PluginFunction, PluginRegistry
 from .resolver import Resolution, check_key
+from .slips import specialise
+
+TEMPERATURE = (("[temperature]", 1),)
 
 
 @dataclass(frozen=True)
 class T:
-    """A static type: kind 'q' (quantity of ``dim``), 'text', 'list', 'record', or 'any'."""
+    """A static type: kind 'q' (quantity of ``dim``), 'text', 'list', 'record', or 'any'.
+
+    ``offset`` marks a temperature on an offset scale (°C, °F): it may be
+    stored, compared and subtracted from another, never added or multiplied.
+    """
 
     kind: str
     dim: U.Dim | None = None
     item: "T | None" = None
     record: PluginFunction | None = None  # the function that made this record
     record_type: str | None = None
+    offset: bool = False
 
     def describe(self) -> str:
         if self.kind == "q":
-            return U.describe_dim(self.dim)
+            return U.describe_dim(self.dim) + (" on an offset scale (°C/°F)" if self.offset else "")
         if self.kind == "record":
             return f"{self.record_type} record"
         return self.kind
@@ -58,9 +74,16 @@ class Checker:
         self.plugins = plugins
         self.path = path
         self.types: dict[str, T] = {}
+        self.defined: dict[str, int] = {}
+        self.res: Resolution | None = None
+        self._shadows: list[N.Number] = []  # literals in the current statement whose unit is a variable name
+        self._pending: list[Diagnostic] = []  # warnings of the current statement (dropped if it has an error)
+        self.consts = lint.Constants(self)
 
     # ------------------------------------------------------------ statements
     def check_sheet(self, sheet: N.Sheet, res: Resolution) -> list[Diagnostic]:
+        self.res = res
+        self.defined = res.defined_at
         diags: list[Diagnostic] = []
         for stmt in sheet.body:
             if isinstance(stmt, N.Definition):
@@ -73,6 +96,7 @@ class Checker:
                 if isinstance(stmt, N.Definition):
                     self.types.setdefault(stmt.name, ANY)
                 continue
+            self._shadows, self._pending = [], []
             try:
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = self.definition(stmt)
@@ -82,12 +106,31 @@ class Checker:
                 res.broken.add(key)
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = ANY
+                continue
             except CalcError as exc:
                 res.broken.add(key)
-                diags.append(exc.diagnostic(self.path))
+                diags.append(self._with_shadow_note(exc).diagnostic(self.path))
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = ANY
+                continue
+            diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
+            diags.extend(self._pending)
+            if isinstance(stmt, N.Definition):
+                diags.extend(lint.definition_findings(stmt, self.types[stmt.name], self, self.path))
+            else:
+                diags.extend(lint.check_findings(stmt, self, self.path))
+        diags.extend(lint.unused_inputs(res, self.path))
         return diags
+
+    def _with_shadow_note(self, exc: CalcError) -> CalcError:
+        """An error in a statement with ``2 L`` (L a variable) most likely comes from that literal."""
+        if self._shadows:
+            lit = self._shadows[0]
+            name = lit.unit[0][0]
+            note = (f"'{lit.text} {lit.unit_text}' reads {name} as a unit ({U.VOCABULARY.get(name, name)}), "
+                    f"not the variable {name} defined on line {self.defined[name]}: write {lit.text}*{name}")
+            exc.hint = f"{note}; {exc.hint}" if exc.hint else note
+        return exc
 
     def definition(self, stmt: N.Definition) -> T:
         t = self.infer(stmt.expr)
@@ -102,12 +145,13 @@ class Checker:
                 raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
                                         stmt.unit_span or stmt.span)
             if U.without_angle(t.dim) != U.without_angle(want):
-                raise DeclaredUnitError(
+                exc = DeclaredUnitError(
                     f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want)}) "
                     f"but the expression gives {U.describe_dim(t.dim)}",
                     stmt.unit_span or stmt.span,
                     hint=_explain(stmt.expr, self),
                 )
+                raise specialise(exc, want, t.dim, _operand(stmt.expr, "the expression"))
         return t
 
     def check(self, stmt: N.Check) -> None:
@@ -116,8 +160,16 @@ class Checker:
         if a.kind == "any" or b.kind == "any":
             return
         if a.dim != b.dim:
-            raise DimensionError(f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", stmt.span,
-                                 hint="both sides of a check must have the same dimension")
+            exc = CheckDimensionError(
+                f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", stmt.span,
+                hint=f"left: {_operand(stmt.left)} is {U.describe_dim(a.dim)}; "
+                     f"right: {_operand(stmt.right)} is {U.describe_dim(b.dim)}; "
+                     "both sides of a check must have the same dimension")
+            before = exc.code
+            specialise(exc, b.dim, a.dim, _operand(stmt.left, "the left side"))
+            if exc.code == before:
+                specialise(exc, a.dim, b.dim, _operand(stmt.right, "the right side"))
+            raise exc
 
     # ------------------------------------------------------------ expressions
     def infer(self, node: N.Expr) -> T:
@@ -137,10 +189,22 @@ class Checker:
     def _infer_Number(self, node: N.Number) -> T:
         if not node.unit:
             return NUMBER
+        if len(node.unit) == 1 and node.unit[0][0] in self.defined:
+            self._shadows.append(node)
         try:
-            return T("q", U.dim_of(U.build_unit(node.unit)))
+            unit = U.build_unit(node.unit)
         except UnknownUnitError as exc:
+            bad = next((n for n, _ in node.unit if n in self.defined and n not in U.VOCABULARY), None)
+            if bad is not None:
+                exc.hint = (f"'{bad}' is a variable of this sheet; a number followed directly by a name reads the "
+                            f"name as a unit: write {node.text}*{bad}")
             raise exc.with_span(_unit_span(node))
+        offset = any(U.VOCABULARY.get(n) in U.OFFSET_UNITS for n, _ in node.unit)
+        if offset and (len(node.unit) > 1 or node.unit[0][1] != 1):
+            raise OffsetTemperatureError(
+                f"'{node.unit_text}' puts a temperature scale (°C/°F) inside a compound unit", _unit_span(node),
+                hint="a per-degree coefficient is per kelvin: write e.g. 1.2e-5 K^-1")
+        return T("q", U.dim_of(unit), offset=offset)
 
     def _infer_Text(self, node) -> T:
         return TEXT
@@ -159,19 +223,37 @@ class Checker:
     def _infer_Neg(self, node) -> T:
         return self._quantity(self.infer(node.operand), node.operand)
 
+    def _offset_error(self, node: N.BinOp, a: T, b: T) -> None:
+        side = node.left if a.offset else node.right
+        what = {"+": "added to", "-": "combined with", "*": "multiplied", "/": "divided", "^": "raised to a power"}
+        raise OffsetTemperatureError(
+            f"{_operand(side, 'this value')} is a temperature on the °C/°F scale; it cannot be "
+            f"{what[node.op]}" + ("" if node.op in "*/^" else " another value"), side.span,
+            hint="only a difference of two such temperatures is a quantity (T_2 - T_1 gives K); "
+                 "use that difference, or write the temperature in K")
+
     def _infer_BinOp(self, node: N.BinOp) -> T:
         a = self._quantity(self.infer(node.left), node.left)
         b = self._quantity(self.infer(node.right), node.right)
         op = node.op
+        if a.offset or b.offset:
+            if op == "-" and a.offset and b.offset:
+                return T("q", a.dim)
+            self._offset_error(node, a, b)
         if op in "+-":
             if a.kind == "any" or b.kind == "any":
                 return a if b.kind == "any" else b
             if a.dim != b.dim:
                 word = "add" if op == "+" else "subtract"
-                raise DimensionError(
+                exc = DimensionError(
                     f"cannot {word} {U.describe_dim(b.dim)} {'to' if op == '+' else 'from'} {U.describe_dim(a.dim)}",
                     node.span, hint=f"left: {_operand(node.left)} is {U.describe_dim(a.dim)}; "
                                     f"right: {_operand(node.right)} is {U.describe_dim(b.dim)}")
+                before = exc.code
+                specialise(exc, a.dim, b.dim, _operand(node.right, "the right operand"))
+                if exc.code == before:
+                    specialise(exc, b.dim, a.dim, _operand(node.left, "the left operand"))
+                raise exc
             return a
         if op in "*/":
             if a.kind == "any" or b.kind == "any":
@@ -179,7 +261,8 @@ class Checker:
             return T("q", U.dim_mul(a.dim, b.dim, 1 if op == "*" else -1))
         # power
         if b.kind == "q" and b.dim != U.DIMENSIONLESS:
-            raise DimensionError(f"an exponent must be a plain number, not {U.describe_dim(b.dim)}", node.right.span)
+            raise DimensionError(f"an exponent must be a plain number, not {U.describe_dim(b.dim)}", node.right.span,
+                                 hint=f"{_operand(node.right)} is {U.describe_dim(b.dim)}")
         if a.kind == "any":
             return ANY
         if a.dim == U.DIMENSIONLESS:
@@ -251,34 +334,47 @@ class Checker:
         if any(a.kind == "any" for a in args):
             return ANY if name not in TRIG and name not in INVERSE_TRIG else (
                 NUMBER if name in TRIG else T("q", U.ANGLE))
-        if name == "sqrt":
-            return T("q", U.dim_pow(x.dim, 0.5))
-        if name in ("abs",):
-            return x
-        if name in ("min", "max"):
+        if name in ("abs", "min", "max"):
             for a, arg in zip(args[1:], node.args[1:]):
                 if a.dim != x.dim:
                     raise DimensionError(f"{name}() of {U.describe_dim(x.dim)} and {U.describe_dim(a.dim)}",
-                                         arg.span, hint="every value compared must have the same dimension")
+                                         arg.span, hint=f"{_operand(node.args[0])} is {U.describe_dim(x.dim)}, "
+                                                        f"{_operand(arg)} is {U.describe_dim(a.dim)}; every value "
+                                                        "compared must have the same dimension")
             return x
+        for a, arg in zip(args, node.args):
+            if a.offset:
+                raise OffsetTemperatureError(f"{name}() of a temperature on the °C/°F scale", arg.span,
+                                             hint="use a temperature difference (T_2 - T_1), or the value in K")
+        if name == "sqrt":
+            return T("q", U.dim_pow(x.dim, 0.5))
         if name in TRIG:
             if x.dim != U.ANGLE:
-                raise AngleError(f"{name}() needs an angle, got {U.describe_dim(x.dim)}", node.args[0].span,
-                                 hint="write the angle with its unit, e.g. 30 deg or 0.52 rad")
+                arg = node.args[0]
+                if x.dim == U.DIMENSIONLESS:
+                    shown = _operand(arg, "")
+                    hint = (f"{shown} is a bare number; write the angle with its unit, e.g. {shown} deg or "
+                            f"{shown} rad" if isinstance(arg, N.Number) else
+                            f"{shown or 'the argument'} is a bare number; give it a unit where it is defined "
+                            "(deg or rad)")
+                else:
+                    hint = f"{_operand(arg)} is {U.describe_dim(x.dim)}; a trigonometric function takes an angle"
+                raise AngleError(f"{name}() needs an angle, got {U.describe_dim(x.dim)}", arg.span, hint=hint)
             return NUMBER
         if name in INVERSE_TRIG:
             if x.dim != U.DIMENSIONLESS:
                 raise DimensionError(f"{name}() needs a plain number (a ratio), got {U.describe_dim(x.dim)}",
-                                     node.args[0].span)
+                                     node.args[0].span, hint="divide two values of the same dimension first")
             return T("q", U.ANGLE)
         if name == "atan2":
             if len(args) == 2 and args[1].dim != x.dim:
-                raise DimensionError("atan2() needs two values of the same dimension", node.span)
+                raise DimensionError("atan2() needs two values of the same dimension", node.span,
+                                     hint=f"{U.describe_dim(x.dim)} and {U.describe_dim(args[1].dim)}")
             return T("q", U.ANGLE)
         if name in TRANSCENDENTAL or name in ("ceil", "floor"):
             if x.dim != U.DIMENSIONLESS:
                 raise DimensionError(f"{name}() needs a plain number, got {U.describe_dim(x.dim)}",
-                                     node.args[0].span)
+                                     node.args[0].span, hint="divide by a reference value of the same unit first")
             return NUMBER
         return ANY
 
@@ -300,6 +396,23 @@ class Checker:
             self._argument(pf, pf.param(name), t, kw)
         return T("record", record=pf, record_type=pf.returns)
 
+    def _need(self, where: str, want, t: T, value: N.Expr) -> None:
+        """A quantity argument (or list item, or coordinate) of dimension ``want``."""
+        if t.kind != "q":
+            raise PluginArgumentError(f"{where} needs {U.describe_dim(want)}, got a {t.describe()}", value.span)
+        if t.dim == want:
+            return
+        if t.dim == U.DIMENSIONLESS:
+            example = {U.ANGLE: "deg"}.get(want) or _example_unit(want)
+            shown = value.text if isinstance(value, N.Number) else None
+            hint = (f"{shown} is a bare number; write it with its unit, e.g. {shown} {example}" if shown else
+                    f"{_operand(value, 'the value')} is a bare number; give it a unit ({example}) where it is defined")
+            raise BareNumberArgumentError(f"{where} needs {U.describe_dim(want)}, got a bare number", value.span,
+                                          hint=hint)
+        exc = PluginArgumentError(f"{where} needs {U.describe_dim(want)}, got {U.describe_dim(t.dim)}", value.span,
+                                  hint=f"{_operand(value)} is {U.describe_dim(t.dim)}")
+        raise specialise(exc, want, t.dim, _operand(value, "the value"))
+
     def _argument(self, pf: PluginFunction, p, t: T, kw: N.Keyword) -> None:
         where = f"{pf.qualname}: '{p.name}'"
         kind = p.kind_
@@ -307,21 +420,18 @@ class Checker:
             return
         if kind in ("quantity", "number"):
             want = p.dimension if kind == "quantity" else U.DIMENSIONLESS
-            if t.kind != "q":
-                raise PluginArgumentError(f"{where} needs {p.describe()}, got a {t.describe()}", kw.value.span)
-            if t.dim != want:
-                hint = None
-                if t.dim == U.DIMENSIONLESS:
-                    hint = "a bare number has no unit: write it with one, e.g. 150 mm"
-                raise PluginArgumentError(f"{where} needs {U.describe_dim(want)}, got {U.describe_dim(t.dim)}",
-                                          kw.value.span, hint=hint)
+            self._need(where, want, t, kw.value)
+            self._pending.extend(lint.argument_findings(p.name, kw.value, self, self.path))
         elif kind in ("text", "flag"):
             if t.kind != "text":
                 raise PluginArgumentError(f"{where} needs a text in quotes, got a {t.describe()}", kw.value.span)
             choices = p.choices or (("yes", "no") if kind == "flag" else None)
             if choices and isinstance(kw.value, N.Text) and kw.value.value not in choices:
+                import difflib
+
+                close = difflib.get_close_matches(kw.value.value, list(choices), n=1)
                 raise PluginArgumentError(f"{where} must be one of " + ", ".join(f'"{c}"' for c in choices),
-                                          kw.value.span)
+                                          kw.value.span, hint=f'did you mean "{close[0]}"?' if close else None)
         elif kind == "record":
             if t.kind != "record" or t.record_type != p.record:
                 raise PluginArgumentError(f"{where} needs a {p.record} record, got a {t.describe()}", kw.value.span)
@@ -342,19 +452,15 @@ class Checker:
                         raise PluginArgumentError(f"{where} needs points written (x, y)", item.span)
                     for c in pts:
                         ct = self.infer(c)
-                        if ct.kind == "q" and ct.dim != p.dimension:
-                            raise PluginArgumentError(
-                                f"{where} needs coordinates in {U.describe_dim(p.dimension)}, got "
-                                f"{U.describe_dim(ct.dim)}", c.span)
+                        if ct.kind == "q":
+                            self._need(f"{where} coordinate", p.dimension, ct, c)
                 elif p.record:
                     if it.kind != "record" or it.record_type != p.record:
                         raise PluginArgumentError(f"{where} needs {p.record} records, got a {it.describe()}",
                                                   item.span)
                 else:
                     want = p.dimension if p.dim is not None else U.DIMENSIONLESS
-                    if it.kind != "q" or it.dim != want:
-                        raise PluginArgumentError(f"{where} needs items of {U.describe_dim(want)}, got "
-                                                  f"{it.describe()}", item.span)
+                    self._need(f"{where} item", want, it, item)
 
 
 def constant_value(node: N.Expr) -> float | None:
@@ -376,6 +482,23 @@ def constant_value(node: N.Expr) -> float | None:
     return None
 
 
+_EXAMPLE_UNITS = {
+    (("[length]", 1),): "mm",
+    (("[length]", 2),): "mm^2",
+    (("[length]", 3),): "mm^3",
+    (("[length]", 4),): "mm^4",
+    (("[length]", 1), ("[mass]", 1), ("[time]", -2)): "kN",
+    (("[mass]", 1), ("[time]", -2)): "kN/m",
+    (("[length]", -1), ("[mass]", 1), ("[time]", -2)): "MPa",
+    (("[length]", 2), ("[mass]", 1), ("[time]", -2)): "kN*m",
+    (("[length]", -3), ("[mass]", 1)): "kg/m^3",
+}
+
+
+def _example_unit(dim) -> str:
+    return _EXAMPLE_UNITS.get(dim, "its unit")
+
+
 def _unit_span(node: N.Number):
     s = node.span
     if s is None:
@@ -384,14 +507,17 @@ def _unit_span(node: N.Number):
     return type(s)(s.end_line, s.end_col - width, s.end_line, s.end_col)
 
 
-def _operand(node) -> str:
+def _operand(node, fallback: str = "the expression") -> str:
+    while isinstance(node, N.Paren):
+        node = node.inner
     if isinstance(node, N.Name):
         return node.id
     if isinstance(node, N.FieldAccess):
-        return f"{_operand(node.obj)}.{node.field_name}"
+        inner = _operand(node.obj, "")
+        return f"{inner}.{node.field_name}" if inner else node.field_name
     if isinstance(node, N.Number):
         return f"{node.text} {node.unit_text}".strip()
-    return "the expression"
+    return fallback
 
 
 def _explain(expr, checker: Checker) -> str | None:
@@ -400,6 +526,13 @@ def _explain(expr, checker: Checker) -> str | None:
     for n in N.walk(expr):
         if isinstance(n, N.Name) and n.id in checker.types and checker.types[n.id].kind == "q":
             parts.append(f"{n.id} is {U.describe_dim(checker.types[n.id].dim)}")
+        elif isinstance(n, N.FieldAccess):
+            try:
+                t = checker.infer(n)
+            except (CalcError, Broken):
+                continue
+            if t.kind == "q":
+                parts.append(f"{_operand(n)} is {U.describe_dim(t.dim)}")
     if not parts:
         return None
     seen = []

@@ -183,31 +183,36 @@ def cmd_build(args) -> int:
 
 
 def cmd_check(args) -> int:
+    """Parse, resolve and dimension-check each sheet without evaluating; report every finding at once."""
     missing = _missing(args.sheets)
     if missing:
         print(f"calcsheet: error: no such sheet: {missing[0]}", file=sys.stderr)
         return EXIT_USAGE
+    from . import checkreport as R
     from .engine import run
 
     status = EXIT_OK
     all_json = []
     for sheet in args.sheets:
-        result = run(sheet, evaluate=False)
-        diags = [d for d in result.diagnostics if not d.suppressed]
+        try:
+            result = run(sheet, evaluate=False)
+        except (OSError, UnicodeDecodeError) as exc:
+            print(f"calcsheet: error: cannot read {sheet}: {exc}", file=sys.stderr)
+            status = EXIT_ERRORS
+            continue
+        active, suppressed = R.split(result.diagnostics)
         if args.format == "json":
-            all_json.append({"path": str(sheet), "diagnostics": [d.to_json() for d in diags]})
+            all_json.append(R.to_json(str(sheet), active, suppressed))
         elif args.format == "line":
-            for d in diags:
+            for d in active:
                 print(d.one_line())
         else:
-            for d in diags:
-                print(d.format(result.source))
-            if not diags:
-                print(f"{sheet}: no problems found")
-        if any(d.severity == "error" for d in diags):
-            status = EXIT_ERRORS
-        elif args.strict and any(d.severity == "warning" for d in diags) and status == EXIT_OK:
-            status = EXIT_NG
+            for d in active:
+                print(R.human(d, result.source))
+            print(R.summary(str(sheet), active, suppressed))
+        code = R.exit_status(active, args.strict)
+        if code == EXIT_ERRORS or (code == EXIT_NG and status == EXIT_OK):
+            status = code
     if args.format == "json":
         import json
 

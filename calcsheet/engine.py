@@ -151,6 +151,9 @@ def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | No
     if evaluate:
         _evaluate(sheet, res, result, plugins, override_exprs)
     result.diagnostics.sort(key=lambda d: (d.span.line, d.span.col))
+    from .suppress import apply_suppressions  # `// allow <code>: <reason>` on a statement
+
+    result.diagnostics = apply_suppressions(sheet, result.diagnostics, path, evaluated=evaluate)
     return result
 
 

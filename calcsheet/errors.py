@@ -146,3 +146,61 @@ class SheetErrors(Exception):
         self.diagnostics = diagnostics
         self.source = source
         super().__init__("\n".join(d.one_line() for d in diagnostics))
+
+
+# ---------------------------------------------------------------- checker findings
+# Specific codes for the unit slips engineers make most; each names its likely fix
+# (docs/diagnostics.md has one entry per code). Subclasses of the general error, so
+# ``except DimensionError`` still catches them.
+
+
+def _finding(name: str, code: str, doc: str, base: type[CalcError] = CalcError,
+             severity: str = "error") -> type[CalcError]:
+    return type(name, (base,), {"code": code, "severity": severity, "__doc__": doc})
+
+
+AreaLoadAsLineLoadError = _finding(
+    "AreaLoadAsLineLoadError", "area-load-as-line-load",
+    "An area load (pressure) is used where a line load (force/length) belongs.", DimensionError)
+MomentWithoutLeverArmError = _finding(
+    "MomentWithoutLeverArmError", "moment-without-lever-arm",
+    "A moment is computed from a force with no lever arm.", DimensionError)
+StressWithoutSectionModulusError = _finding(
+    "StressWithoutSectionModulusError", "stress-without-section-modulus",
+    "A stress is computed from a moment without a section modulus.", DimensionError)
+UnitWeightAsDensityError = _finding(
+    "UnitWeightAsDensityError", "unit-weight-as-density",
+    "A unit weight (force/volume) is used where a density (mass/volume) belongs.", DimensionError)
+CheckDimensionError = _finding(
+    "CheckDimensionError", "check-dimension-mismatch",
+    "The two sides of a check have different dimensions.", DimensionError)
+BareNumberArgumentError = _finding(
+    "BareNumberArgumentError", "bare-number-argument",
+    "A plugin parameter that needs a quantity got a bare number.", PluginArgumentError)
+OffsetTemperatureError = _finding(
+    "OffsetTemperatureError", "offset-temperature",
+    "A temperature on an offset scale (degC, degF) is used in arithmetic.")
+ImplausibleValueWarning = _finding(
+    "ImplausibleValueWarning", "implausible-value",
+    "A named quantity lies outside the range its kind has in practice.", severity="warning")
+UnitSlipWarning = _finding(
+    "UnitSlipWarning", "unit-slip",
+    "A section property looks like a table value written in the wrong unit (cm⁴ as mm⁴).", severity="warning")
+UnitShadowsVariableWarning = _finding(
+    "UnitShadowsVariableWarning", "unit-shadows-variable",
+    "A number is followed by a unit whose name is also a variable of the sheet (2 L is 2 litres).",
+    severity="warning")
+UnusedInputWarning = _finding(
+    "UnusedInputWarning", "unused-input", "An input is defined but nothing uses it.", severity="warning")
+NoUtilisationWarning = _finding(
+    "NoUtilisationWarning", "no-utilisation",
+    "A check's utilisation (demand/capacity) cannot be formed.", severity="warning")
+UnusualUnitInfo = _finding(
+    "UnusualUnitInfo", "unusual-unit",
+    "A declared [unit] is valid but unusual for what the name says the value is.", severity="info")
+SuppressionError = _finding(
+    "SuppressionError", "bad-suppression",
+    "An '// allow' comment is malformed, names an unknown code, or tries to hide an error.", severity="warning")
+UnusedSuppressionWarning = _finding(
+    "UnusedSuppressionWarning", "unused-suppression",
+    "An '// allow' comment allows a code that does not occur on its line.", severity="warning")

@@ -1,0 +1,274 @@
+"""Warnings and infos for statements that type-check but still look wrong.
+
+Run by the checker after a statement's dimensions are known to be right:
+values implausible for what their name says they are (``plausibility``),
+table-unit slips, unit names that shadow variables, checks with no
+utilisation, unusual declared units, and inputs nothing uses. Values are
+known statically only for expressions built from literals, so nothing here
+evaluates a plugin.
+"""
+from __future__ import annotations
+
+import math
+from typing import TYPE_CHECKING
+
+from . import nodes as N
+from . import plausibility as P
+from . import units as U
+from .errors import (
+    Diagnostic,
+    ImplausibleValueWarning,
+    NoUtilisationWarning,
+    UnitShadowsVariableWarning,
+    UnitSlipWarning,
+    UnusedInputWarning,
+    UnusualUnitInfo,
+)
+from .resolver import Resolution
+
+if TYPE_CHECKING:  # pragma: no cover
+    from .checker import Checker, T
+
+
+class Constants:
+    """Values of expressions made of literals and of names defined by such expressions (memoised)."""
+
+    def __init__(self, checker: "Checker"):
+        self.checker = checker
+        self.memo: dict[str, object] = {}
+
+    def of_name(self, name: str):
+        if name in self.memo:
+            return self.memo[name]
+        self.memo[name] = None  # guards against cycles
+        res = self.checker.res
+        stmt = res.statements.get(name) if res else None
+        value = None
+        if isinstance(stmt, N.Definition) and name not in res.broken:
+            value = self.of(stmt.expr)
+            if value is not None and stmt.unit:
+                try:
+                    value = value.to(U.build_unit(stmt.unit))
+                except Exception:
+                    value = None
+        self.memo[name] = value
+        return value
+
+    def of(self, node):
+        """A pint Quantity, or None when the value is not known without evaluating."""
+        try:
+            return self._of(node)
+        except Exception:  # any pint complaint means: not a plain constant
+            return None
+
+    def _of(self, node):
+        if isinstance(node, N.Number):
+            if any(U.VOCABULARY.get(n) in U.OFFSET_UNITS for n, _ in node.unit):
+                return None
+            unit = U.build_unit(node.unit) if node.unit else U.registry().Unit("")
+            return U.registry().Quantity(node.value, unit)
+        if isinstance(node, N.Paren):
+            return self._of(node.inner)
+        if isinstance(node, N.Neg):
+            v = self._of(node.operand)
+            return None if v is None else -v
+        if isinstance(node, N.Name):
+            if node.id == "pi":
+                return U.registry().Quantity(math.pi, "")
+            return self.of_name(node.id)
+        if isinstance(node, N.BinOp):
+            a = self._of(node.left)
+            if a is None:
+                return None
+            b = self._of(node.right)
+            if b is None:
+                return None
+            if node.op == "+":
+                return a + b
+            if node.op == "-":
+                return a - b
+            if node.op == "*":
+                return a * b
+            if node.op == "/":
+                return a / b if float(b.magnitude) != 0 else None
+            return a ** float(b.to("").magnitude)
+        return None
+
+
+# ------------------------------------------------------------ values for their kind
+
+
+def _fmt(x: float) -> str:
+    if x == 0:
+        return "0"
+    if 1e-3 <= abs(x) < 1e6:
+        return f"{x:,.4g}" if abs(x) >= 1e4 else f"{x:.4g}"
+    return f"{x:.3g}"
+
+
+# A unit one step of 1000 larger / smaller, for "did you mean" suggestions.
+_STEP_UP = {"Pa": "kPa", "kPa": "MPa", "MPa": "GPa", "psi": "ksi", "N/mm^2": "kN/mm^2", "N/m^2": "kN/m^2",
+            "g/cm^3": "kg/cm^3", "N/m^3": "kN/m^3", "g/m^3": "kg/m^3", "kg/m^3": "t/m^3", "lbf": "kip"}
+_STEP_DOWN = {v: k for k, v in _STEP_UP.items()}
+
+
+def _literal(node):
+    while isinstance(node, (N.Paren,)):
+        node = node.inner
+    return node if isinstance(node, N.Number) and node.unit else None
+
+
+def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diagnostic]:
+    """Implausible-value and unit-slip warnings for ``name = value`` (value a pint Quantity)."""
+    out: list[Diagnostic] = []
+    dim = U.dim_of(value)
+    kind = P.kind_of(name, dim)
+    if kind is None:
+        return out
+    slipped = P.slip(kind, value)
+    if slipped is not None:
+        side, m, edge = slipped
+        lit = _literal(expr)
+        unit = "mm⁴" if kind.slip == "I" else "mm³"
+        table = "cm⁴ (1 cm⁴ = 10⁴ mm⁴) or in⁴ (1 in⁴ ≈ 416,000 mm⁴)" if kind.slip == "I" else \
+            "cm³ (1 cm³ = 10³ mm³) or in³ (1 in³ ≈ 16,400 mm³)"
+        if side == "small":
+            msg = (f"{name} = {_fmt(m)} {unit} is small for a {kind.words}: it is that of a "
+                   f"{_fmt(edge)} mm square bar")
+            hint = f"section tables list it in {table}"
+            if lit is not None:
+                hint += f"; if the value came from such a table, write {lit.text} " + \
+                        ("cm^4" if kind.slip == "I" else "cm^3")
+        else:
+            msg = (f"{name} = {_fmt(m)} {unit} is larger than any rolled or built-up member "
+                   f"(a {_fmt(edge / 1000)} m square block)")
+            hint = "was a value in mm⁴ written with cm^4 or m^4?" if kind.slip == "I" else \
+                "was a value in mm³ written with cm^3 or m^3?"
+        out.append(UnitSlipWarning(msg, span, hint=hint).diagnostic(path))
+        return out
+    judged = P.judge(name, value)
+    if judged is None:
+        return out
+    kind, rng, m = judged
+    where = f"the {kind.words} of {rng.material}" if rng.material else f"a {kind.words}"
+    unit = f" {rng.unit}" if rng.unit else ""
+    lit = _literal(expr)
+    shown = f"{_fmt(m)}{unit}"
+    if lit is not None and lit.unit_text.replace(" ", "") != rng.unit.replace(" ", ""):
+        shown = f"{lit.text} {lit.unit_text} ({shown})"
+    msg = (f"{name} = {shown} is outside {_fmt(rng.low)}–{_fmt(rng.high)}{unit}, "
+           f"the range for {where} ({rng.source})")
+    hint = None
+    for factor, steps in ((1000.0, _STEP_UP), (0.001, _STEP_DOWN)) if rng.unit else ():
+        if rng.low <= m * factor <= rng.high:
+            if lit is not None and lit.unit_text in steps:
+                hint = f"did you mean {lit.text} {steps[lit.unit_text]}?"
+            else:
+                hint = f"it is {'1000 times too small' if factor > 1 else '1000 times too large'}: check its unit"
+            break
+    if hint is None and rng.typical:
+        hint = f"a typical value is {rng.typical}"
+    if hint is None:
+        hint = "check the value and its unit"
+    out.append(ImplausibleValueWarning(msg, span, hint=hint).diagnostic(path))
+    return out
+
+
+def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: str) -> list[Diagnostic]:
+    out: list[Diagnostic] = []
+    if t.kind != "q":
+        return out
+    if stmt.unit:
+        kind = P.kind_of(stmt.name, t.dim)
+        unit = U.build_unit(stmt.unit)
+        if kind is not None and kind.usual_units and not P.is_usual_unit(kind, unit):
+            out.append(UnusualUnitInfo(
+                f"{stmt.name} is declared [{stmt.unit_text}]; a {kind.words} is usually given in "
+                + ", ".join(kind.usual_units[:5]), stmt.unit_span or stmt.span,
+                hint="the unit is valid, but a reviewer may misread it; declare a usual one unless "
+                     "there is a reason").diagnostic(path))
+    kind = P.kind_of(stmt.name, t.dim)
+    if kind is not None and (kind.ranges or kind.slip):
+        value = checker.consts.of_name(stmt.name)
+        if value is not None:
+            out.extend(value_findings(stmt.name, stmt.expr, value, stmt.expr.span or stmt.span, path))
+    return out
+
+
+def argument_findings(param: str, value_node: N.Expr, checker: "Checker", path: str) -> list[Diagnostic]:
+    """A plugin argument given as a constant is judged by the parameter's name (E=200 MPa)."""
+    if isinstance(value_node, N.Name):
+        return []  # judged where it is defined
+    value = checker.consts.of(value_node)
+    if value is None:
+        return []
+    return value_findings(param, value_node, value, value_node.span, path)
+
+
+# ------------------------------------------------------------ checks
+
+
+def check_findings(stmt: N.Check, checker: "Checker", path: str) -> list[Diagnostic]:
+    """A check whose capacity side is a constant zero or negative has no utilisation."""
+    demand_node, capacity_node = (stmt.left, stmt.right) if stmt.op in ("<=", "<") else (stmt.right, stmt.left)
+    capacity = checker.consts.of(capacity_node)
+    demand = checker.consts.of(demand_node)
+    out = []
+    try:
+        cap_m = None if capacity is None else float(capacity.magnitude)
+        dem_m = None if demand is None else float(demand.magnitude)
+    except (TypeError, ValueError):
+        return out
+    if cap_m is not None and cap_m <= 0:
+        out.append(NoUtilisationWarning(
+            f"the capacity side of this check ({_side(capacity_node)}) is {'zero' if cap_m == 0 else 'negative'}, "
+            "so its utilisation (demand/capacity) cannot be formed", capacity_node.span,
+            hint="write checks as demand <= capacity with a positive capacity; to require a value to be "
+                 "positive write check x > 0 (its utilisation is then 0)").diagnostic(path))
+    elif dem_m is not None and dem_m < 0:
+        out.append(NoUtilisationWarning(
+            f"the demand side of this check ({_side(demand_node)}) is negative, so its utilisation cannot be formed",
+            demand_node.span, hint="compare magnitudes: check abs(x) <= limit").diagnostic(path))
+    return out
+
+
+def _side(node) -> str:
+    from .checker import _operand
+
+    return _operand(node, "the expression")
+
+
+# ------------------------------------------------------------ names
+
+
+_WORDS = {"liter": "litre", "meter": "metre", "degree_Celsius": "°C"}
+
+
+def shadow_warnings(literals: list[N.Number], defined: dict[str, int], path: str) -> list[Diagnostic]:
+    out = []
+    for lit in literals:
+        name = lit.unit[0][0]
+        meaning = _WORDS.get(U.VOCABULARY.get(name, name), U.VOCABULARY.get(name, name).replace("_", " "))
+        s = lit.span
+        span = type(s)(s.end_line, s.end_col - len(lit.unit_text), s.end_line, s.end_col)
+        out.append(UnitShadowsVariableWarning(
+            f"'{lit.text} {lit.unit_text}' is {lit.text} {meaning}{'s' if lit.value != 1 else ''}: "
+            f"{name} after a number is the unit, not the variable {name} defined on line {defined[name]}",
+            span, hint=f"to multiply by the variable write {lit.text}*{name}; to keep the unit, rename the "
+                       f"variable (e.g. {name}_1) so a reader cannot confuse them").diagnostic(path))
+    return out
+
+
+def unused_inputs(res: Resolution, path: str) -> list[Diagnostic]:
+    out = []
+    for name in res.inputs:
+        if res.dependents.get(name) or name in res.broken:
+            continue
+        stmt = res.statements.get(name)
+        if stmt is None:
+            continue
+        out.append(UnusedInputWarning(
+            f"input '{name}' is defined but nothing uses it", stmt.name_span or stmt.span,
+            hint="a misspelt name where it should be used? otherwise remove it, or use it in a check"
+        ).diagnostic(path))
+    return out
