@@ -11,7 +11,7 @@ import re
 from functools import lru_cache
 from importlib import resources
 
-from lark import Lark, Token, Transformer_NonRecursive, v_args
+from lark import Lark, Token, Transformer
 from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken, VisitError
 
 from . import nodes as N
@@ -25,17 +25,12 @@ MAX_NUMBER_CHARS = 40
 
 @lru_cache(maxsize=1)
 def _lark() -> Lark:
+    """The parser, with our transformer applied during parsing: no parse tree is built."""
     grammar = resources.files("calcsheet").joinpath("grammar.lark").read_text(encoding="utf-8")
-    return Lark(grammar, parser="lalr", lexer="contextual", propagate_positions=True, maybe_placeholders=True)
+    return Lark(grammar, parser="lalr", lexer="contextual", maybe_placeholders=True, transformer=_TRANSFORMER)
 
 
 # ------------------------------------------------------------ parse tree -> AST
-
-
-def _span(meta, line_offset: int) -> Span | None:
-    if getattr(meta, "empty", True):
-        return None
-    return Span(meta.line + line_offset, meta.column, meta.end_line + line_offset, meta.end_column)
 
 
 def _tok_span(tok: Token, line_offset: int) -> Span:
@@ -82,16 +77,39 @@ def parse_unit_text(text: str, span: Span | None = None) -> tuple[tuple[str, flo
     return split_unit(stripped)
 
 
-@v_args(meta=True)
-class _ToAst(Transformer_NonRecursive):
-    def __init__(self, line_offset: int):
+def _span_of(*parts) -> Span | None:
+    """From the first part's start to the last part's end (tokens or nodes)."""
+    first = last = None
+    for part in parts:
+        sp = _part_span(part)
+        if sp is not None:
+            first = first or sp
+            last = sp
+    if first is None:
+        return None
+    return Span(first.line, first.col, last.end_line, last.end_col)
+
+
+def _part_span(part) -> Span | None:
+    if isinstance(part, Token):
+        return _tok_span(part, _TRANSFORMER.off)
+    if isinstance(part, (list, tuple)):
+        return _span_of(*part)
+    return getattr(part, "span", None)
+
+
+def _is_bracket(part) -> bool:
+    return isinstance(part, Token) and part.type in ("LPAR", "RPAR", "LSQB", "RSQB")
+
+
+class _ToAst(Transformer):
+    """Builds our nodes while lark parses; spans come from the tokens (brackets included)."""
+
+    def __init__(self):
         super().__init__()
-        self.off = line_offset
+        self.off = 0  # line offset of the statement being parsed; set by parse_statement
 
-    def s(self, meta):
-        return _span(meta, self.off)
-
-    def definition(self, meta, children):
+    def definition(self, children):
         name_tok, decl, expr = children
         unit = unit_text = unit_span = None
         if decl is not None:
@@ -99,22 +117,24 @@ class _ToAst(Transformer_NonRecursive):
             unit = parse_unit_text(unit_text, unit_span)
         return N.Definition(
             name=str(name_tok), expr=expr, unit=unit, unit_text=unit_text.strip() if unit_text else None,
-            span=self.s(meta), name_span=_tok_span(name_tok, self.off), unit_span=unit_span,
+            span=_span_of(name_tok, expr), name_span=_tok_span(name_tok, self.off), unit_span=unit_span,
         )
 
-    def unit_decl(self, meta, children):
-        tok = children[0]
+    def unit_decl(self, children):
+        tok = children[1]
         return str(tok), _tok_span(tok, self.off)
 
-    def check(self, meta, children):
+    def check(self, children):
         left, op, right = children
         op = {"≤": "<=", "≥": ">="}.get(str(op), str(op))
-        return N.Check(left=left, op=op, right=right, span=self.s(meta))
+        span = _span_of(left, right)
+        span = Span(span.line, 1, span.end_line, span.end_col) if span else None
+        return N.Check(left=left, op=op, right=right, span=span)
 
     def _bin(cls):  # noqa: N805 - a small factory for the five operators
-        def build(self, meta, children):
+        def build(self, children):
             left, right = children[0], children[-1]
-            return cls(left=left, right=right, span=self.s(meta))
+            return cls(left=left, right=right, span=_span_of(left, right))
 
         return build
 
@@ -124,13 +144,16 @@ class _ToAst(Transformer_NonRecursive):
     div = _bin(N.Div)
     pow = _bin(N.Pow)
 
-    def neg(self, meta, children):
-        return N.Neg(operand=children[0], span=self.s(meta))
+    def neg(self, children):
+        operand = children[-1]
+        sp = operand.span
+        span = Span(sp.line, sp.col - 1, sp.end_line, sp.end_col) if sp else None
+        return N.Neg(operand=operand, span=span)
 
-    def pos(self, meta, children):
-        return children[0]
+    def pos(self, children):
+        return children[-1]
 
-    def number(self, meta, children):
+    def number(self, children):
         num_tok, unit_tok = children
         text = str(num_tok)
         if len(text) > MAX_NUMBER_CHARS:
@@ -138,49 +161,54 @@ class _ToAst(Transformer_NonRecursive):
         unit = split_unit(str(unit_tok)) if unit_tok is not None else ()
         return N.Number(
             value=float(text), text=text, unit=unit, unit_text=str(unit_tok) if unit_tok is not None else "",
-            span=self.s(meta),
+            span=_span_of(num_tok, unit_tok),
         )
 
-    def name(self, meta, children):
-        return N.Name(id=str(children[0]), span=self.s(meta))
+    def name(self, children):
+        return N.Name(id=str(children[0]), span=_span_of(children[0]))
 
-    def text(self, meta, children):
-        return N.Text(value=str(children[0])[1:-1], span=self.s(meta))
+    def text(self, children):
+        return N.Text(value=str(children[0])[1:-1], span=_span_of(children[0]))
 
-    def paren(self, meta, children):
-        return N.Paren(inner=children[0], span=self.s(meta))
+    def paren(self, children):
+        inner = children[1]
+        return N.Paren(inner=inner, span=_span_of(children[0], children[-1]))
 
-    def tuple(self, meta, children):
-        return N.TupleExpr(items=tuple(c for c in children if c is not None), span=self.s(meta))
+    def tuple(self, children):
+        items = tuple(c for c in children if c is not None and not _is_bracket(c))
+        return N.TupleExpr(items=items, span=_span_of(children[0], children[-1]))
 
-    def list(self, meta, children):
-        return N.ListExpr(items=tuple(c for c in children if c is not None and not isinstance(c, Token)),
-                          span=self.s(meta))
+    def list(self, children):
+        items = tuple(c for c in children if c is not None and not isinstance(c, Token))
+        return N.ListExpr(items=items, span=_span_of(children[0], children[-1]))
 
-    def field(self, meta, children):
+    def field(self, children):
         obj, name_tok = children
-        return N.FieldAccess(obj=obj, field_name=str(name_tok), span=self.s(meta),
+        return N.FieldAccess(obj=obj, field_name=str(name_tok), span=_span_of(obj, name_tok),
                              field_span=_tok_span(name_tok, self.off))
 
-    def kwarg(self, meta, children):
+    def kwarg(self, children):
         name_tok, value = children
-        return N.Keyword(name=str(name_tok), value=value, span=_tok_span(name_tok, self.off).merge(value.span))
+        return N.Keyword(name=str(name_tok), value=value, span=_span_of(name_tok, value))
 
-    def arguments(self, meta, children):
+    def arguments(self, children):
         return [c for c in children if c is not None and not isinstance(c, Token)]
 
-    def call(self, meta, children):
-        callee, args = children
+    def call(self, children):
+        callee, _lpar, args, rpar = children
         args = args or []
         positional = tuple(a for a in args if not isinstance(a, N.Keyword))
         keywords = tuple(a for a in args if isinstance(a, N.Keyword))
-        span = self.s(meta)
+        span = _span_of(callee, rpar)
         if isinstance(callee, N.Name):
             return N.Call(func=callee.id, args=positional, kwargs=keywords, span=span, func_span=callee.span)
         if isinstance(callee, N.FieldAccess) and isinstance(callee.obj, N.Name):
             return N.PluginCall(namespace=callee.obj.id, func=callee.field_name, kwargs=keywords, args=positional,
                                 span=span, func_span=callee.span)
         raise SheetSyntaxError("only a function name or plugin.function can be called", span)
+
+
+_TRANSFORMER = _ToAst()
 
 
 # ------------------------------------------------------------ friendly syntax errors
@@ -250,12 +278,12 @@ def parse_statement(text: str, line_offset: int = 0) -> N.Statement:
     if len(text) > MAX_STATEMENT_CHARS:
         raise TooComplexError(f"statement is longer than {MAX_STATEMENT_CHARS} characters",
                               Span(line_offset + 1, 1, line_offset + 1, 2))
+    parser = _lark()
+    _TRANSFORMER.off = line_offset
     try:
-        tree = _lark().parse(text)
+        node = parser.parse(text)
     except UnexpectedInput as exc:
         raise _friendly(exc, text, line_offset) from None
-    try:
-        node = _ToAst(line_offset).transform(tree)
     except VisitError as exc:
         if isinstance(exc.orig_exc, CalcError):
             raise exc.orig_exc from None

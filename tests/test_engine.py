@@ -10,7 +10,7 @@ from calcsheet.plugin import Field, Namespace, Param, PluginRegistry
 
 
 def codes(result):
-    return [(d.code, d.span.line, d.span.col) for d in result.diagnostics]
+    return [(d.code, d.span.line, d.span.col) for d in result.errors]
 
 
 def test_values_are_pint_quantities_in_their_display_units(run):
