@@ -1,0 +1,157 @@
+"""Incremental recompute: after an input change only its dependents are evaluated again, and the result
+is the one a full run gives."""
+import textwrap
+
+import pytest
+
+import calcsheet
+from calcsheet import evaluator
+from calcsheet.evaluator import Evaluator
+from calcsheet.incremental import rebuild, recompute
+from calcsheet.package import PackageDocument
+
+SHEET = textwrap.dedent("""\
+    ---
+    project: Heron Quay Boathouse
+    subject: Floor joist J-4
+    rev: C
+    ---
+    # Joist
+    b = 100 mm        -- joist breadth
+    h = 200 mm        -- joist depth
+    L = 4 m           -- span
+    w = 5 kN/m
+    M [kN*m] = w*L^2/8
+    V [kN] = w*L/2
+    sec = section.rectangle(b=b, h=h)
+    S [mm^3] = b*h^2/6
+    sigma [MPa] = M/S
+    f = 12 MPa
+    check sigma <= f  -- bending
+    # Trimmer
+    b_2 = 150 mm
+    h_2 = 300 mm
+    tri = section.rectangle(b=b_2, h=h_2)
+    I_2 [mm^4] = tri.I_x
+    check V <= 30 kN  -- shear force
+    """)
+
+
+@pytest.fixture
+def calls(monkeypatch):
+    """Every definition, check and plugin call the evaluator makes, by name."""
+    seen = {"definitions": [], "checks": [], "plugins": []}
+    real_def, real_check, real_plugin = (Evaluator.evaluate_definition, Evaluator.evaluate_check,
+                                         Evaluator._eval_PluginCall)
+
+    def definition(self, stmt, env, display):
+        seen["definitions"].append(stmt.name)
+        return real_def(self, stmt, env, display)
+
+    def check(self, stmt, env, unit_of=None):
+        seen["checks"].append(stmt.span.line)
+        return real_check(self, stmt, env, unit_of)
+
+    def plugin(self, node, env, used):
+        seen["plugins"].append(node.func)
+        return real_plugin(self, node, env, used)
+
+    monkeypatch.setattr(Evaluator, "evaluate_definition", definition)
+    monkeypatch.setattr(Evaluator, "evaluate_check", check)
+    monkeypatch.setattr(Evaluator, "_eval_PluginCall", plugin)
+    monkeypatch.setattr(evaluator, "_DISPATCH", {})  # the evaluator caches its dispatch table
+    return seen
+
+
+def _clear(seen):
+    for v in seen.values():
+        v.clear()
+
+
+def test_an_edited_input_line_recomputes_only_its_dependents(calls):
+    first = calcsheet.run(SHEET, path="j.calc")
+    _clear(calls)
+    out = rebuild(first, SHEET.replace("h = 200 mm", "h = 250 mm"))
+    assert not out.full, out.reason
+    assert calls["definitions"] == ["h", "sec", "S", "sigma"]
+    assert calls["checks"] == [17]  # the bending check; the shear check reads only V
+    assert calls["plugins"] == ["rectangle"]  # sec again; tri is untouched
+    assert out.recomputed == ["h", "sec", "S", "sigma", "check@17"]
+
+
+def test_values_are_right_after_an_incremental_rebuild():
+    out = rebuild(calcsheet.run(SHEET), SHEET.replace("h = 200 mm", "h = 250 mm")).result
+    # M = w L^2 / 8 — common practice; S = b h^2 / 6 — Roark's Formulas for Stress and Strain, Table A.1
+    assert out.values["sigma"].m_as("MPa") == pytest.approx(5 * 4**2 / 8 * 1e6 / (100 * 250**2 / 6))
+    # I_x = b h^3 / 12 — Roark's Formulas for Stress and Strain, Table A.1
+    assert out.values["sec"].fields["I_x"].m_as("mm^4") == pytest.approx(100 * 250**3 / 12)
+    assert [c.ok for c in out.checks] == [True, True]  # 9.6 MPa <= 12 MPa now
+
+
+def test_an_incremental_rebuild_renders_exactly_like_a_full_run():
+    edited = SHEET.replace("L = 4 m ", "L = 3.6 m ").replace("b_2 = 150 mm", "b_2 = 175 mm")
+    fast = rebuild(calcsheet.run(SHEET, path="j.calc"), edited)
+    full = calcsheet.run(edited, path="j.calc")
+    assert not fast.full
+    assert set(fast.recomputed) >= {"L", "M", "V", "sigma", "b_2", "tri", "I_2"}
+    assert PackageDocument(fast.result).html() == PackageDocument(full).html()
+    assert fast.result.to_json() == full.to_json()
+
+
+def test_the_previous_result_is_left_as_it_was():
+    first = calcsheet.run(SHEET)
+    rebuild(first, SHEET.replace("h = 200 mm", "h = 250 mm"))
+    assert first.values["h"].m_as("mm") == 200
+    assert first.checks[0].ok is False
+
+
+def test_a_new_override_recomputes_only_downstream_of_it(calls):
+    first = calcsheet.run(SHEET)
+    _clear(calls)
+    out = recompute(first, {"b_2": "200 mm"})
+    assert not out.full
+    # the overridden input is evaluated twice (the sheet's value is kept beside the override)
+    assert calls["definitions"] == ["b_2", "b_2", "tri", "I_2"]
+    assert calls["plugins"] == ["rectangle"]
+    assert out.result.overrides["b_2"][1].m_as("mm") == 200
+    assert out.result.steps["b_2"].overridden.m_as("mm") == 150
+    assert out.result.values["I_2"].m_as("mm^4") == pytest.approx(200 * 300**3 / 12)  # Roark, Table A.1
+    back = recompute(out.result, {})
+    assert back.result.values["I_2"].m_as("mm^4") == pytest.approx(150 * 300**3 / 12)
+    assert back.result.overrides == {} and back.result.steps["b_2"].overridden is None
+
+
+def test_an_override_matches_a_full_run_with_the_same_override():
+    out = recompute(calcsheet.run(SHEET, path="j.calc"), {"w": "7 kN/m"})
+    full = calcsheet.run(SHEET, overrides={"w": "7 kN/m"}, path="j.calc")
+    assert PackageDocument(out.result).html() == PackageDocument(full).html()
+
+
+@pytest.mark.parametrize("edit, reason", [
+    (("h = 200 mm", "h = 200 mm\nh_x = 1 m"), "lines were added"),
+    (("M [kN*m] = w*L^2/8", "M [kN*m] = w*L^2/10"), "not an input"),
+    (("h = 200 mm", "h = 2*b  "), "defines something else"),
+    (("h = 200 mm", "h = 200 kN"), "changed dimension"),
+    (("# Joist", "# Beam "), "not an input"),
+])
+def test_changes_the_fast_path_cannot_vouch_for_fall_back_to_a_full_run(edit, reason):
+    edited = SHEET.replace(*edit)
+    out = rebuild(calcsheet.run(SHEET, path="j.calc"), edited)
+    assert out.full and reason in out.reason
+    full = calcsheet.run(edited, path="j.calc")
+    assert [d.one_line() for d in out.result.diagnostics] == [d.one_line() for d in full.diagnostics]
+    assert out.result.ok == full.ok
+
+
+def test_an_edit_that_breaks_a_downstream_value_is_reported_as_a_full_run_would():
+    sheet = "a = 2 m\nb = 1 m\nc = sqrt(a - b)\n"
+    out = rebuild(calcsheet.run(sheet), sheet.replace("b = 1 m", "b = 3 m"))
+    assert out.full and not out.result.ok  # the square root of a negative length
+    assert out.result.errors[0].span.line == 3
+
+
+def test_an_unchanged_sheet_recomputes_nothing(calls):
+    first = calcsheet.run(SHEET)
+    _clear(calls)
+    out = rebuild(first, SHEET)
+    assert not out.full and out.recomputed == [] and calls["definitions"] == []
