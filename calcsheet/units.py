@@ -115,6 +115,7 @@ def unit_named(symbol: str) -> pint.Unit:
     raise UnknownUnitError(f"unknown unit '{symbol}'", hint=hint)
 
 
+@lru_cache(maxsize=4096)
 def build_unit(factors: tuple[tuple[str, float], ...]) -> pint.Unit:
     """A unit from (name, exponent) factors, as the grammar split them."""
     unit = registry().Unit("")
