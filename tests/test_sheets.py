@@ -1,0 +1,48 @@
+"""Every example sheet builds clean, and its rendering is pinned.
+
+The golden files are a regression check on *rendering* (a changed line means
+the package a reviewer reads changed); the engineering numbers of the demo
+are checked separately against a hand calculation below. Regenerate golden
+files deliberately with CALCSHEET_UPDATE_GOLDEN=1 and review the diff.
+"""
+import os
+from pathlib import Path
+
+import pytest
+
+import calcsheet
+from calcsheet.render.text import TextPrinter
+
+ROOT = Path(__file__).resolve().parents[1]
+SHEETS = sorted((ROOT / "sheets").glob("*.calc"))
+GOLDEN = Path(__file__).parent / "golden"
+
+
+@pytest.mark.parametrize("sheet", SHEETS, ids=[s.stem for s in SHEETS])
+def test_sheet_builds_without_errors_and_matches_its_golden_rendering(sheet):
+    r = calcsheet.run(sheet)
+    assert r.ok, r.format_diagnostics()
+    text = TextPrinter(sigfigs=r.policy.sigfigs).items(r.items).strip() + "\n"
+    golden = GOLDEN / f"{sheet.stem}.txt"
+    if os.environ.get("CALCSHEET_UPDATE_GOLDEN") or not golden.exists():
+        golden.write_text(text, encoding="utf-8")
+    assert text == golden.read_text(encoding="utf-8")
+
+
+def test_demo_numbers_against_a_hand_calculation():
+    r = calcsheet.run(ROOT / "sheets" / "boardwalk_joist.calc")
+    v = {k: q for k, q in r.values.items()}
+    # hand calculation, independent of the engine:
+    s, L, g_k, q_k = 0.45, 3.6, 0.55, 4.0               # m, m, kPa, kPa
+    w = 1.35 * g_k * s + 1.5 * q_k * s                 # kN/m
+    M = w * L**2 / 8                                   # kN·m
+    S = 75 * 250**2 / 6                                # mm³, rectangle bh²/6 (Roark, Table A.1)
+    sigma = M * 1e6 / S                                # MPa
+    I = 75 * 250**3 / 12                               # mm⁴, bh³/12 (Roark, Table A.1)
+    delta = 5 * (g_k + q_k) * s * (L * 1e3) ** 4 / (384 * 7400 * I)   # mm, 5wL⁴/384EI
+    assert v["w"].m_as("kN/m") == pytest.approx(w)
+    assert v["M_max"].m_as("kN*m") == pytest.approx(M)
+    assert v["sigma_m"].m_as("MPa") == pytest.approx(sigma, rel=1e-9)
+    assert v["delta"].m_as("mm") == pytest.approx(delta, rel=1e-9)
+    statuses = [c.ok for c in r.checks]
+    assert statuses == [sigma <= 0.8 * 16 / 1.3, True, delta <= L * 1e3 / 300, False]
