@@ -458,14 +458,14 @@ def clean_points(points, param="points") -> np.ndarray:
         pts = pts[:-1]
     if len(pts) < 3:
         raise ShapeError("a polygon needs at least three distinct points", param)
-    area = abs(signed_area(pts[:, 0], pts[:, 1]))
-    if area <= 1e-9 * size * size:
-        raise ShapeError("the polygon has no area (its points are collinear or it folds back on itself)", param)
     hit = self_intersection(pts[:, 0], pts[:, 1], tol)
     if hit is not None:
         i, j = hit
         raise ShapeError(f"the outline crosses itself: edge {i + 1} (point {i + 1} to {(i + 1) % len(pts) + 1}) meets "
                          f"edge {j + 1} (point {j + 1} to {(j + 1) % len(pts) + 1})", param)
+    area = abs(signed_area(pts[:, 0], pts[:, 1]))
+    if area <= 1e-9 * size * size:
+        raise ShapeError("the polygon has no area (its points are collinear or it folds back on itself)", param)
     return pts
 
 
