@@ -18,6 +18,7 @@ V = dM/dx (the sum of upward forces to the left); δ is downward positive and
 """
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -82,14 +83,17 @@ class Model:
         self.spans = [float(s) for s in self.spans]
         self.EI = [float(e) for e in self.EI]
         validate_model(self)
+        self._nodes = np.concatenate([[0.0], np.cumsum(self.spans)])
+        self._nodes.flags.writeable = False
+        self._length = float(self._nodes[-1])
 
     @property
     def nodes(self) -> np.ndarray:
-        return np.concatenate([[0.0], np.cumsum(self.spans)])
+        return self._nodes
 
     @property
     def length(self) -> float:
-        return float(sum(self.spans))
+        return self._length
 
 
 def validate_model(m: Model) -> None:
@@ -223,42 +227,45 @@ class Mechanism(Exception):
 def banded_cholesky_solve(band: np.ndarray, rhs: np.ndarray, diag_scale: np.ndarray) -> np.ndarray:
     """Solve K u = f with K symmetric positive definite, stored as band[i, d] = K[i, i-d].
 
-    A pivot that vanishes relative to its diagonal means the structure can
-    move without resistance: that dof is reported as a mechanism.
+    Plain-float loops: with a half-bandwidth of 4 the inner sums have at most
+    four terms, where numpy calls would cost more than the arithmetic. Cost is
+    O(n·p²). A pivot that vanishes relative to its diagonal means the structure
+    can move without resistance: that dof is reported as a mechanism.
     """
     n, p1 = band.shape
     p = p1 - 1
-    Lb = np.zeros_like(band)  # Lb[i, d] = L[i, i-d]
+    A = band.tolist()
+    scale = [float(v) for v in diag_scale]
+    L = [[0.0] * p1 for _ in range(n)]  # L[i][d] = L[i, i-d]
+    sqrt = math.sqrt
     for i in range(n):
+        Li = L[i]
+        Ai = A[i]
         j0 = max(0, i - p)
         for j in range(j0, i + 1):
-            s = band[i, i - j]
-            # sum_k L[i,k] L[j,k] for k in [max(i,j)-p .. j-1]
-            k0 = max(j0, j - p)
-            if k0 < j:
-                ks = np.arange(k0, j)
-                s -= float(np.dot(Lb[i, i - ks], Lb[j, j - ks]))
+            s = Ai[i - j]
+            Lj = L[j]
+            for k in range(max(j0, j - p), j):
+                s -= Li[i - k] * Lj[j - k]
             if j == i:
-                if not (s > 1e-10 * diag_scale[i]):
+                if not (s > 1e-10 * scale[i]):
                     raise Mechanism(i)
-                Lb[i, 0] = np.sqrt(s)
+                Li[0] = sqrt(s)
             else:
-                Lb[i, i - j] = s / Lb[j, 0]
-    y = np.array(rhs, dtype=float)
+                Li[i - j] = s / Lj[0]
+    y = [float(v) for v in rhs]
     for i in range(n):
-        k0 = max(0, i - p)
-        if k0 < i:
-            ks = np.arange(k0, i)
-            y[i] -= float(np.dot(Lb[i, i - ks], y[ks]))
-        y[i] /= Lb[i, 0]
-    x = y
+        Li = L[i]
+        s = y[i]
+        for k in range(max(0, i - p), i):
+            s -= Li[i - k] * y[k]
+        y[i] = s / Li[0]
     for i in range(n - 1, -1, -1):
-        k1 = min(n, i + p + 1)
-        if i + 1 < k1:
-            ks = np.arange(i + 1, k1)
-            x[i] -= float(np.dot(Lb[ks, ks - i], x[ks]))
-        x[i] /= Lb[i, 0]
-    return x
+        s = y[i]
+        for k in range(i + 1, min(n, i + p + 1)):
+            s -= L[k][k - i] * y[k]
+        y[i] = s / L[i][0]
+    return np.array(y)
 
 
 # ---------------------------------------------------------------- the solution
@@ -325,10 +332,9 @@ def breakpoints(m: Model, loads) -> np.ndarray:
     # merge points closer than a hair (a load placed "at" a support by arithmetic)
     keep = np.concatenate([[True], np.diff(b) > 1e-9 * m.length])
     b = b[keep]
-    # snap to nodes
-    for xn in X:
-        j = np.argmin(np.abs(b - xn))
-        b[j] = xn
+    # snap the nearest breakpoint to each node exactly
+    j = _nearest(b, X)
+    b[j] = X
     return np.unique(b)
 
 
@@ -415,8 +421,17 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
     return Solution(m, reactions, rmom, -u[dofs.w], ends, fem, pieces, loads)
 
 
+def _nearest(grid: np.ndarray, x) -> np.ndarray:
+    """Index of the nearest grid point to each x (grid sorted): O(log n) each."""
+    x = np.asarray(x, dtype=float)
+    j = np.clip(np.searchsorted(grid, x), 1, max(len(grid) - 1, 1))
+    left = grid[j - 1]
+    right = grid[np.minimum(j, len(grid) - 1)]
+    return np.where(np.abs(x - left) <= np.abs(right - x), j - 1, np.minimum(j, len(grid) - 1))
+
+
 def _snap_x(x: float, grid: np.ndarray, tol: float) -> float:
-    j = int(np.argmin(np.abs(grid - x)))
+    j = int(_nearest(grid, x))
     return float(grid[j]) if abs(grid[j] - x) <= tol else x
 
 
@@ -456,11 +471,14 @@ def _mechanism_message(m: Model, dofs: Dofs, free: np.ndarray, rb: np.ndarray) -
 def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Pieces:
     """March along each span from its left end, integrating the load exactly."""
     X = m.nodes
+    tol = 1e-12 * m.length
     starts, lens, spans, Vc, Mc, Tc, Wc = [], [], [], [], [], [], []
     for e in range(len(m.spans)):
         x0, x1 = X[e], X[e + 1]
         EI = m.EI[e]
-        inner = grid[(grid > x0 + 1e-12 * m.length) & (grid < x1 - 1e-12 * m.length)]
+        lo = np.searchsorted(grid, x0 + 1e-12 * m.length, side="right")
+        hi = np.searchsorted(grid, x1 - 1e-12 * m.length, side="left")
+        inner = grid[lo:hi]
         cuts = np.concatenate([[x0], inner, [x1]])
         V, M = ends[e][0], ends[e][1]
         th = u[dofs.rr[e]]  # y-up slope
@@ -471,7 +489,7 @@ def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Piece
             # jumps at the piece start (the end forces are what the node supplies, so a load
             # sitting on the span's left end still acts here)
             for kind, a, _b, v1, _v2 in loads:
-                if kind in ("P", "M") and abs(a - ls) <= 1e-12 * m.length:
+                if kind in ("P", "M") and abs(a - ls) <= tol:
                     if kind == "P":
                         V -= v1
                     else:
@@ -479,7 +497,7 @@ def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Piece
             # linear upward q on this piece: q(u) = q0 + q1 u
             q0 = q1 = 0.0
             for kind, a, b, v1, v2 in loads:
-                if kind == "w" and a <= ls + 1e-12 * m.length and b >= lt - 1e-12 * m.length and b > a:
+                if kind == "w" and a <= ls + tol and b >= lt - tol and b > a:
                     slope = (v2 - v1) / (b - a)
                     q0 -= v1 + slope * (ls - a)
                     q1 -= slope
