@@ -17,9 +17,7 @@ from . import units as U
 from . import lint
 from .errors import (
     AngleError,
-    BareNumberArgumentError,
     CalcError,
-    CheckDimensionError,
     DeclaredUnitError,
     DimensionError,
     Diagnostic,
@@ -151,7 +149,8 @@ class Checker:
                     stmt.unit_span or stmt.span,
                     hint=_explain(stmt.expr, self),
                 )
-                raise specialise(exc, want, t.dim, _operand(stmt.expr, "the expression"))
+                specialise(exc, want, t.dim, _operand(stmt.expr, "the expression"))
+                raise exc
         return t
 
     def check(self, stmt: N.Check) -> None:
@@ -160,14 +159,12 @@ class Checker:
         if a.kind == "any" or b.kind == "any":
             return
         if a.dim != b.dim:
-            exc = CheckDimensionError(
+            exc = DimensionError(
                 f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", stmt.span,
                 hint=f"left: {_operand(stmt.left)} is {U.describe_dim(a.dim)}; "
                      f"right: {_operand(stmt.right)} is {U.describe_dim(b.dim)}; "
                      "both sides of a check must have the same dimension")
-            before = exc.code
-            specialise(exc, b.dim, a.dim, _operand(stmt.left, "the left side"))
-            if exc.code == before:
+            if not specialise(exc, b.dim, a.dim, _operand(stmt.left, "the left side")):
                 specialise(exc, a.dim, b.dim, _operand(stmt.right, "the right side"))
             raise exc
 
@@ -249,9 +246,7 @@ class Checker:
                     f"cannot {word} {U.describe_dim(b.dim)} {'to' if op == '+' else 'from'} {U.describe_dim(a.dim)}",
                     node.span, hint=f"left: {_operand(node.left)} is {U.describe_dim(a.dim)}; "
                                     f"right: {_operand(node.right)} is {U.describe_dim(b.dim)}")
-                before = exc.code
-                specialise(exc, a.dim, b.dim, _operand(node.right, "the right operand"))
-                if exc.code == before:
+                if not specialise(exc, a.dim, b.dim, _operand(node.right, "the right operand")):
                     specialise(exc, b.dim, a.dim, _operand(node.left, "the left operand"))
                 raise exc
             return a
@@ -407,11 +402,12 @@ class Checker:
             shown = value.text if isinstance(value, N.Number) else None
             hint = (f"{shown} is a bare number; write it with its unit, e.g. {shown} {example}" if shown else
                     f"{_operand(value, 'the value')} is a bare number; give it a unit ({example}) where it is defined")
-            raise BareNumberArgumentError(f"{where} needs {U.describe_dim(want)}, got a bare number", value.span,
-                                          hint=hint)
+            raise PluginArgumentError(f"{where} needs {U.describe_dim(want)}, got dimensionless (a bare number)",
+                                      value.span, hint=hint)
         exc = PluginArgumentError(f"{where} needs {U.describe_dim(want)}, got {U.describe_dim(t.dim)}", value.span,
                                   hint=f"{_operand(value)} is {U.describe_dim(t.dim)}")
-        raise specialise(exc, want, t.dim, _operand(value, "the value"))
+        specialise(exc, want, t.dim, _operand(value, "the value"))
+        raise exc
 
     def _argument(self, pf: PluginFunction, p, t: T, kw: N.Keyword) -> None:
         where = f"{pf.qualname}: '{p.name}'"

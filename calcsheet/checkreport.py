@@ -1,6 +1,6 @@
 """How ``calcsheet check`` prints its findings: for people, for editors, for programs.
 
-human: ``path:line:col: severity[code]: message``, the source line, a caret
+human: ``path:line:col: severity: message [code]``, the source line, a caret
 under the exact span, and the hint. line: ``path:line:col: severity code:
 message`` (one line each, for editors and CI annotations). json: the DESIGN.md
 diagnostics shape plus code, hint and end position; suppressed findings are
@@ -14,7 +14,7 @@ SEVERITY_ORDER = {"error": 0, "warning": 1, "info": 2}
 
 
 def human(d: Diagnostic, source: str | None) -> str:
-    head = f"{d.path}:{d.span.line}:{d.span.col}: {d.severity}[{d.code}]: {d.message}"
+    head = f"{d.path}:{d.span.line}:{d.span.col}: {d.severity}: {d.message} [{d.code}]"
     out = [head]
     if source is not None:
         lines = source.splitlines()

@@ -149,9 +149,9 @@ class SheetErrors(Exception):
 
 
 # ---------------------------------------------------------------- checker findings
-# Specific codes for the unit slips engineers make most; each names its likely fix
-# (docs/diagnostics.md has one entry per code). Subclasses of the general error, so
-# ``except DimensionError`` still catches them.
+# Findings of the static checker beyond the general errors above (docs/diagnostics.md
+# has one entry per code). Dimension slips keep their general codes; their likely
+# fix travels in the hint.
 
 
 def _finding(name: str, code: str, doc: str, base: type[CalcError] = CalcError,
@@ -159,24 +159,6 @@ def _finding(name: str, code: str, doc: str, base: type[CalcError] = CalcError,
     return type(name, (base,), {"code": code, "severity": severity, "__doc__": doc})
 
 
-AreaLoadAsLineLoadError = _finding(
-    "AreaLoadAsLineLoadError", "area-load-as-line-load",
-    "An area load (pressure) is used where a line load (force/length) belongs.", DimensionError)
-MomentWithoutLeverArmError = _finding(
-    "MomentWithoutLeverArmError", "moment-without-lever-arm",
-    "A moment is computed from a force with no lever arm.", DimensionError)
-StressWithoutSectionModulusError = _finding(
-    "StressWithoutSectionModulusError", "stress-without-section-modulus",
-    "A stress is computed from a moment without a section modulus.", DimensionError)
-UnitWeightAsDensityError = _finding(
-    "UnitWeightAsDensityError", "unit-weight-as-density",
-    "A unit weight (force/volume) is used where a density (mass/volume) belongs.", DimensionError)
-CheckDimensionError = _finding(
-    "CheckDimensionError", "check-dimension-mismatch",
-    "The two sides of a check have different dimensions.", DimensionError)
-BareNumberArgumentError = _finding(
-    "BareNumberArgumentError", "bare-number-argument",
-    "A plugin parameter that needs a quantity got a bare number.", PluginArgumentError)
 OffsetTemperatureError = _finding(
     "OffsetTemperatureError", "offset-temperature",
     "A temperature on an offset scale (degC, degF) is used in arithmetic.")

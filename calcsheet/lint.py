@@ -259,10 +259,37 @@ def shadow_warnings(literals: list[N.Number], defined: dict[str, int], path: str
     return out
 
 
+def _misspelt_uses(res: Resolution) -> set[str]:
+    """Defined names that an undefined name most likely meant (their uses are already reported)."""
+    import difflib
+
+    from .evaluator import CONSTANTS
+
+    unknown = {n.id for stmt in res.statements.values() for expr in _exprs(stmt) for n in N.walk(expr)
+               if isinstance(n, N.Name) and n.id not in res.defined_at and n.id not in CONSTANTS}
+    meant = set()
+    for name in unknown:
+        meant.update(difflib.get_close_matches(name, list(res.defined_at), n=1))
+    return meant
+
+
+def _exprs(stmt):
+    if isinstance(stmt, N.Definition):
+        return [stmt.expr]
+    if isinstance(stmt, N.Check):
+        return [stmt.left, stmt.right]
+    return []
+
+
 def unused_inputs(res: Resolution, path: str) -> list[Diagnostic]:
     out = []
+    meant = None
     for name in res.inputs:
         if res.dependents.get(name) or name in res.broken:
+            continue
+        if meant is None:
+            meant = _misspelt_uses(res) if any(d.code == "undefined-name" for d in res.diagnostics) else set()
+        if name in meant:
             continue
         stmt = res.statements.get(name)
         if stmt is None:
