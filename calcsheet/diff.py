@@ -371,8 +371,10 @@ def _entry_json(e: Entry | None):
     return out
 
 
-def _same_value(a: Entry, b: Entry) -> tuple[bool, float | None]:
-    """(equal?, % change) — quantities compare in the old side's unit."""
+def _same_value(a: Entry, b: Entry, scale: float = 0.0) -> tuple[bool, float | None]:
+    """(equal?, % change) — quantities compare in the old side's unit; ``scale`` is the size of the
+    neighbouring values of the same dimension, so float noise on a zero (a product of inertia of a
+    symmetric section) is not a change."""
     if a.quantity is None or b.quantity is None:
         return (a.quantity is None and b.quantity is None and a.text == b.text), None
     qa, qb = a.quantity, b.quantity
@@ -392,9 +394,31 @@ def _same_value(a: Entry, b: Entry) -> tuple[bool, float | None]:
         if va.shape != vb.shape:
             return False, None
         return bool(np.allclose(va, vb, rtol=REL_TOL, atol=0)), None
-    if math.isclose(fa, fb, rel_tol=REL_TOL, abs_tol=1e-300):
+    tol = 1e-300
+    if scale:
+        tol = REL_TOL * scale / float(U.registry().Quantity(1.0, qa.units).to_base_units().magnitude)
+    if math.isclose(fa, fb, rel_tol=REL_TOL, abs_tol=tol):
         return True, None
     return False, ((fb - fa) / abs(fa) * 100.0) if fa != 0 else None
+
+
+def _dim_key(e: Entry):
+    return U.dim_of(e.quantity) if e.quantity is not None else None
+
+
+def _record_scales(*snaps: Snapshot) -> dict:
+    """(record, dimension) -> the largest magnitude among its fields of that dimension, in base units."""
+    out: dict = {}
+    for snap in snaps:
+        for e in snap.values.values():
+            if e.parent and e.quantity is not None:
+                try:
+                    m = abs(float(e.quantity.to_base_units().magnitude))
+                except TypeError:
+                    continue
+                key = (e.parent, _dim_key(e))
+                out[key] = max(out.get(key, 0.0), m)
+    return out
 
 
 def _norm(text: str) -> str:
@@ -443,13 +467,15 @@ def diff_snapshots(old: Snapshot, new: Snapshot) -> SheetDiff:
         if a != b:
             d.meta[key] = (a, b)
     changes: list[ValueChange] = []
+    scales = _record_scales(old, new)
     for name, e_new in new.values.items():
         e_old = old.values.get(name)
         if e_old is None:
             if e_new.parent is None:
                 d.added.append(name)
             continue
-        same, pct = _same_value(e_old, e_new)
+        scale = scales.get((e_new.parent, _dim_key(e_old)), 0.0) if e_new.parent else 0.0
+        same, pct = _same_value(e_old, e_new, scale)
         formula_changed = (e_old.formula is not None and e_new.formula is not None
                            and _norm(e_old.formula) != _norm(e_new.formula))
         if not same:
@@ -511,6 +537,25 @@ def since_label(d: SheetDiff) -> str:
     return f"rev {d.old.rev} ({d.old.label})" if d.old.rev else d.old.label
 
 
+FIELDS_SHOWN = 6  # a record's changed fields shown in the text and page; JSON has them all
+
+
+def grouped(changes: list[ValueChange]) -> list[tuple[ValueChange | None, list[ValueChange]]]:
+    """Plain values alone; a record's changed fields together under the first of them."""
+    out: list = []
+    index: dict[str, int] = {}
+    for c in changes:
+        parent = c.new.parent if c.new is not None else None
+        if parent is None:
+            out.append((None, [c]))
+        elif parent in index:
+            out[index[parent]][1].append(c)
+        else:
+            index[parent] = len(out)
+            out.append((ValueChange(parent, None, None, caused_by=c.caused_by), [c]))
+    return out
+
+
 def to_text(d: SheetDiff) -> str:
     """The terminal report."""
     out = [f"changes from {since_label(d)} to " + (f"rev {d.new.rev} ({d.new.label})" if d.new.rev else d.new.label)]
@@ -528,7 +573,17 @@ def to_text(d: SheetDiff) -> str:
         out += [f"  {c.name}: {c.old.shown()} → {c.new.shown()}  {_pct(c.pct)}".rstrip() for c in d.inputs]
     if d.results:
         out.append("results changed:")
-        for c in d.results:
+        for head, group in grouped(d.results):
+            if head is not None:
+                why = f", via {', '.join(head.caused_by)}" if head.caused_by else ""
+                out.append(f"  {head.name}: {len(group)} field(s) changed{why}")
+                for c in group[:FIELDS_SHOWN]:
+                    out.append(f"    .{c.name.split('.', 1)[1]}: {c.old.shown()} → {c.new.shown()}  "
+                               f"{_pct(c.pct)}".rstrip())
+                if len(group) > FIELDS_SHOWN:
+                    out.append(f"    … and {len(group) - FIELDS_SHOWN} more (--format json lists every field)")
+                continue
+            c = group[0]
             why = f"  (via {', '.join(c.caused_by)})" if c.caused_by else ""
             if c.formula_changed:
                 why += f"  formula: {c.old.formula} → {c.new.formula}"
@@ -572,7 +627,8 @@ def changes_page_html(d: SheetDiff) -> str:
     parts = [f"<section class='changes' style='page-break-before: always'>"
              f"<h2 class='front-h'>Changes since {esc(since_label(d))}</h2>"]
     n_val = len(d.inputs) + len(d.results)
-    summary = (f"{len(d.inputs)} input(s) and {len(d.results)} result(s) changed; {len(d.flipped)} check(s) "
+    n_results = len(grouped(d.results))
+    summary = (f"{len(d.inputs)} input(s) and {n_results} result(s) changed; {len(d.flipped)} check(s) "
                f"changed status; {len(d.moved)} utilisation(s) moved; {len(d.added) + len(d.checks_added)} "
                f"step(s) added, {len(d.removed) + len(d.checks_removed)} removed.")
     parts.append(f"<p>{esc(summary)} Values that moved are marked <span class='mark changed'>changed</span> "
@@ -588,11 +644,23 @@ def changes_page_html(d: SheetDiff) -> str:
             ["Symbol", "Was", "Now", "Change"],
             [[link(c.name), esc(c.old.shown()), esc(c.new.shown()), esc(_pct(c.pct))] for c in d.inputs], "inputs"))
     if d.results:
-        parts.append("<h3>Results changed</h3>" + table(
-            ["Symbol", "Was", "Now", "Change", "Because of"],
-            [[link(c.name), esc(c.old.shown()), esc(c.new.shown()), esc(_pct(c.pct)),
-              esc(", ".join(c.caused_by) + (f"; formula was {c.old.formula}" if c.formula_changed else ""))]
-             for c in d.results], "results"))
+        rows = []
+        for head, group in grouped(d.results):
+            if head is not None:
+                rows.append([link(head.name), esc(f"{len(group)} field(s) of the result changed"), "", "",
+                             esc(", ".join(head.caused_by))])
+                shown = group[:FIELDS_SHOWN]
+                rows += [[esc("  ." + c.name.split(".", 1)[1]), esc(c.old.shown()), esc(c.new.shown()),
+                          esc(_pct(c.pct)), ""] for c in shown]
+                if len(group) > len(shown):
+                    rows.append(["", esc(f"… and {len(group) - len(shown)} more fields"), "", "", ""])
+                continue
+            c = group[0]
+            rows.append([link(c.name), esc(c.old.shown()), esc(c.new.shown()), esc(_pct(c.pct)),
+                         esc(", ".join(c.caused_by) + (f"; formula was {c.old.formula}" if c.formula_changed
+                                                       else ""))])
+        parts.append("<h3>Results changed</h3>" + table(["Symbol", "Was", "Now", "Change", "Because of"], rows,
+                                                        "results"))
     if d.moved or d.edited_checks:
         parts.append("<h3>Utilisation moved</h3>" + table(
             ["Check", "Status", "Ratio was", "Ratio now"],
