@@ -304,3 +304,22 @@ def test_the_current_revision_is_in_every_pdf_page_title_block():
         assert "Floor joist J-4" in text
         assert re.search(r"\bREV B\b", text, re.IGNORECASE), text  # the title block row "Rev B"
     assert "First issue" in pages[0] and "Joist depth revised" in pages[0]
+
+
+def test_float_noise_on_a_zero_record_field_is_not_a_change():
+    from calcsheet import units as U
+    from calcsheet.diff import Entry, Snapshot, diff_snapshots
+
+    mm4 = U.unit_named("mm") ** 4
+    Q = U.registry().Quantity
+
+    def snap(i_xy):
+        s = Snapshot("x")
+        s.values["fb"] = Entry("fb", text="built-up result")
+        s.values["fb.I_x"] = Entry("fb.I_x", quantity=Q(7.1e8, mm4), parent="fb")
+        s.values["fb.I_xy"] = Entry("fb.I_xy", quantity=Q(i_xy, mm4), parent="fb")
+        return s
+
+    # a symmetric section's product of inertia is zero — common practice; 8e-9 mm^4 beside 7e8 is round-off
+    assert diff_snapshots(snap(0.0), snap(8.4e-9)).empty
+    assert [c.name for c in diff_snapshots(snap(0.0), snap(2.0e3)).results] == ["fb.I_xy"]
