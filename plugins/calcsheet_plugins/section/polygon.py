@@ -44,6 +44,11 @@ def make_ring(points, sign: int = 1, n: float = 1.0) -> Ring:
     return Ring(x, y, sign, n)
 
 
+def _dot(a: np.ndarray, b: np.ndarray) -> float:
+    """Inner product without BLAS: OpenBLAS threads its dot product, which stalls badly on a busy machine."""
+    return np.dot(a, b) if a.shape[0] < 8192 else np.einsum("i,i->", a, b)
+
+
 def _next(a: np.ndarray) -> np.ndarray:
     out = np.empty_like(a)
     out[:-1] = a[1:]
@@ -53,7 +58,7 @@ def _next(a: np.ndarray) -> np.ndarray:
 
 def signed_area(x: np.ndarray, y: np.ndarray) -> float:
     x1, y1 = _next(x), _next(y)
-    return 0.5 * float(np.dot(x, y1) - np.dot(x1, y))
+    return 0.5 * float(_dot(x, y1) - _dot(x1, y))
 
 
 @dataclass(frozen=True)
@@ -84,11 +89,11 @@ def _edge_moments(x0, y0, x1, y1) -> Moments:
     """Sum of the exact per-edge Green terms for edges (x0,y0)->(x1,y1)."""
     c = x0 * y1 - x1 * y0
     A = c.sum() / 2.0
-    Sy = np.dot(x0 + x1, c) / 6.0
-    Sx = np.dot(y0 + y1, c) / 6.0
-    Ixx = np.dot(y0 * y0 + y0 * y1 + y1 * y1, c) / 12.0
-    Iyy = np.dot(x0 * x0 + x0 * x1 + x1 * x1, c) / 12.0
-    Ixy = np.dot(x0 * (2.0 * y0 + y1) + x1 * (y0 + 2.0 * y1), c) / 24.0
+    Sy = _dot(x0 + x1, c) / 6.0
+    Sx = _dot(y0 + y1, c) / 6.0
+    Ixx = _dot(y0 * y0 + y0 * y1 + y1 * y1, c) / 12.0
+    Iyy = _dot(x0 * x0 + x0 * x1 + x1 * x1, c) / 12.0
+    Ixy = _dot(x0 * (2.0 * y0 + y1) + x1 * (y0 + 2.0 * y1), c) / 24.0
     return Moments(float(A), float(Sx), float(Sy), float(Ixx), float(Iyy), float(Ixy))
 
 
@@ -167,23 +172,23 @@ def polygon_properties(x: np.ndarray, y: np.ndarray) -> CentroidalProps:
     A2 = c.sum()  # 2A
     # y0² + y0·y1 + y1² = sy² − y0·y1;  x likewise;  2x0y0 + x0y1 + x1y0 + 2x1y1 = sx·sy + x0y0 + x1y1
     np.multiply(x0, x1, out=t)
-    Iyy12 = -(t @ c)
+    Iyy12 = -_dot(t, c)
     np.multiply(y0, y1, out=t)
-    Ixx12 = -(t @ c)
+    Ixx12 = -_dot(t, c)
     np.multiply(x0, y0, out=t)
-    Ixy24 = t @ c
+    Ixy24 = _dot(t, c)
     np.multiply(x1, y1, out=t)
-    Ixy24 += t @ c
+    Ixy24 += _dot(t, c)
     sx = np.add(x0, x1, out=x1)  # x1, y1 no longer needed
     sy = np.add(y0, y1, out=y1)
-    Sy6 = sx @ c  # 6 ∬x dA
-    Sx6 = sy @ c
+    Sy6 = _dot(sx, c)  # 6 ∬x dA
+    Sx6 = _dot(sy, c)
     np.multiply(sx, sx, out=t)
-    Iyy12 += t @ c
+    Iyy12 += _dot(t, c)
     np.multiply(sy, sy, out=t)
-    Ixx12 += t @ c
+    Ixx12 += _dot(t, c)
     np.multiply(sx, sy, out=t)
-    Ixy24 += t @ c
+    Ixy24 += _dot(t, c)
     if A2 < 0:
         A2, Sy6, Sx6, Ixx12, Iyy12, Ixy24 = -A2, -Sy6, -Sx6, -Ixx12, -Iyy12, -Ixy24
     A = A2 / 2
@@ -311,7 +316,7 @@ def width_at(rings, c: float, weighted: bool = False) -> float:
             t = (c - y0[cross]) / (y1[cross] - y0[cross])
             xc = x0[cross] + t * (x1[cross] - x0[cross])
             s = np.where(up[cross], 1.0, -1.0)
-            total += (r.weight if weighted else r.sign) * float(np.dot(s, xc))
+            total += (r.weight if weighted else r.sign) * float(_dot(s, xc))
         return total
 
     return min(one_side(True), one_side(False))
