@@ -140,21 +140,9 @@ def _input_tables(work, setup, lit):
 
 
 def _result_tables(work, setup, res, lit):
-    X = setup.model.nodes
-    Ls = letters(len(X))
     u = setup.units
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided")]
-    if len(sup) <= 40:
-        cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
-        rows = [[Ls[i], lit.q(X[i], "length")] + [lit.q(c.sol.reactions[i], "force") for c in res.combos]
-                for i in sup]
-        work.table("Reactions (upward positive)", cols, rows, units=[None, u["length"]] + [u["force"]] * len(res.combos))
-        fixed = [i for i in sup if setup.kinds[i] in ("fixed", "guided")]
-        if fixed:
-            work.table("Support moments (bending moment in the member at the support, sagging positive)",
-                       ["Support"] + [c.combo.name for c in res.combos],
-                       [[Ls[i]] + [lit.q(c.support_M[i], "moment") for c in res.combos] for i in fixed],
-                       units=[None] + [u["moment"]] * len(res.combos))
+    if not _indeterminate_path(setup):
+        working.reactions_table(work, setup, res, lit)
     rows = []
     for c in res.combos:
         rows.append([c.combo.name, lit.q(c.M_max.value, "moment"), lit.q(c.M_max.x, "length"),
@@ -165,6 +153,16 @@ def _result_tables(work, setup, res, lit):
                ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"], rows,
                units=[None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"],
                       u["length"]])
+
+
+def _indeterminate_path(setup) -> bool:
+    kinds = setup.kinds
+    vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
+    rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
+    hinges = sum(1 for k in kinds if k == "hinge")
+    simple = hinges == 0 and not rot and len(vert) == 2
+    cant = hinges == 0 and len(vert) == 1 and rot == vert and vert[0] in (0, len(kinds) - 1)
+    return not (simple or cant)
 
 
 def _envelope(work, setup, res, lit, lim, deflection):
@@ -301,5 +299,5 @@ def stresses(work, member, section):
                     desc="shear stress at the neutral axis: τ = V·Q/(I·t)")
     work.note("Sagging compresses the top fibre and hogging the bottom; the magnitudes here are the larger of "
               "the two for each fibre, with M = max(|M_max|, |M_min|).")
-    return {"sigma_top": top, "sigma_bot": bot, "sigma_max": work["sigma_max"], "tau_max": tau,
-            "M": work["M"], "V": work["V"]}
+    return {"sigma_top": top.to(st), "sigma_bot": bot.to(st), "sigma_max": work["sigma_max"].to(st),
+            "tau_max": tau.to(st), "M": work["M"].to(mo), "V": work["V"].to(fo)}

@@ -49,12 +49,39 @@ def _text(svg, x, y, s, size=10, anchor="middle", color=INK, weight=None):
     svg.text(x, y, s, font_size=size, text_anchor=anchor, fill=color, font_family=FONT, font_weight=weight)
 
 
+def _layers(intervals):
+    """Put each (a, b) interval on the lowest layer where it overlaps nothing: line loads side by side."""
+    ends: list[float] = []
+    out = []
+    for a, b in intervals:
+        for k, e in enumerate(ends):
+            if a >= e - 1e-9:
+                ends[k] = b
+                out.append(k)
+                break
+        else:
+            ends.append(b)
+            out.append(len(ends) - 1)
+    return out, len(ends)
+
+
+def unit_label(u: str) -> str:
+    return u.replace("*", "·").replace("^2", "²").replace("^3", "³").replace("^4", "⁴")
+
+
 def beam_figure(setup, lit) -> str:
     model = setup.model
     X = model.nodes
     fr = Frame(model.length)
-    H = 170.0
-    y0 = 92.0
+    loads = setup.loads
+    label = len(loads) <= 16
+    line_loads = [ld for ld in loads if ld.kind in ("udl", "varying")]
+    layer_of, n_layers = _layers([(ld.solver.x1, ld.solver.x2) for ld in line_loads])
+    band_h = 18.0 if n_layers <= 3 else max(6.0, 54.0 / n_layers)
+    step = band_h + (13 if label else 4)
+    load_top = 8 + n_layers * step
+    y0 = max(70.0, load_top + 40)
+    H = y0 + 78
     svg = Svg(W, H, title="Beam, supports and loads")
     svg.line(fr.px(0), y0, fr.px(model.length), y0, stroke=INK, stroke_width=3)
     names = letters(len(X))
@@ -73,48 +100,52 @@ def beam_figure(setup, lit) -> str:
         if pb - pa > 26:
             _text(svg, (pa + pb) / 2, yd - 3, f"{fmt(lit.value(b - a, 'length'))} {lit.units['length']}", 9,
                   color=GREY)
-    loads = setup.loads
-    label = len(loads) <= 16
-    line_loads = [ld for ld in loads if ld.kind in ("udl", "varying")]
-    wmax = max((max(abs(l.solver.w1), abs(l.solver.w2)) for l in line_loads), default=1.0) or 1.0
-    band = 0
-    for ld in line_loads:
+    lu = unit_label(lit.units["line"])
+    by_layer: dict[int, float] = {}
+    for ld, layer in zip(line_loads, layer_of):
+        by_layer[layer] = max(by_layer.get(layer, 0.0), abs(ld.solver.w1), abs(ld.solver.w2))
+    for ld, layer in zip(line_loads, layer_of):
         s = ld.solver
-        top = y0 - 8 - 14 * band
-        h1, h2 = 22 * abs(s.w1) / wmax, 22 * abs(s.w2) / wmax
+        base = y0 - 6 - layer * step
+        wmax = by_layer[layer] or 1.0
+        h1, h2 = band_h * abs(s.w1) / wmax, band_h * abs(s.w2) / wmax
         pa, pb = float(fr.px(s.x1)), float(fr.px(s.x2))
-        svg.polygon([(pa, top), (pa, top - h1), (pb, top - h2), (pb, top)], fill=SOFT, stroke=GREY,
+        svg.polygon([(pa, base), (pa, base - h1), (pb, base - h2), (pb, base)], fill=SOFT, stroke=GREY,
                     stroke_width=0.8, fill_opacity=0.6)
         n = max(2, int((pb - pa) / 22))
         for t in np.linspace(0, 1, n):
             px = pa + t * (pb - pa)
             hh = h1 + t * (h2 - h1)
-            if hh > 3:
-                _arrow(svg, px, top - hh, top, GREY)
+            if hh > 4:
+                _arrow(svg, px, base - hh, base, GREY)
         if label:
             w1, w2 = lit.value(s.w1, "line"), lit.value(s.w2, "line")
             txt = f"{fmt(w1)}" if s.w1 == s.w2 else f"{fmt(w1)}→{fmt(w2)}"
-            _text(svg, (pa + pb) / 2, top - max(h1, h2) - 3, f"{txt} {lit.units['line']}" +
-                  (f" ({ld.case})" if ld.case else ""), 9)
-        band = (band + 1) % 2
+            _text(svg, (pa + pb) / 2, base - max(h1, h2) - 3, f"{txt} {lu}" + (f" ({ld.case})" if ld.case else ""), 9)
+    last_label = []  # (x, y) of point-load labels, to stagger neighbours
+    fu, mu = unit_label(lit.units["force"]), unit_label(lit.units["moment"])
     for ld in loads:
         s = ld.solver
         if ld.kind == "point":
             px = float(fr.px(s.x))
             up = s.P < 0
+            top = y0 - 14 - n_layers * step
             if up:
                 _arrow(svg, px, y0 + 2 + 34, y0 + 2, INK)
             else:
-                _arrow(svg, px, y0 - 46, y0 - 2, INK)
+                _arrow(svg, px, top, y0 - 2, INK)
             if label:
-                _text(svg, px, y0 - 50 if not up else y0 + 46,
-                      f"{fmt(lit.value(abs(s.P), 'force'))} {lit.units['force']}" + (f" ({ld.case})" if ld.case else ""),
-                      9)
+                ty = y0 + 46 if up else top - 4
+                while any(abs(px - ox) < 70 and abs(ty - oy) < 10 for ox, oy in last_label):
+                    ty += 11 if up else -11
+                last_label.append((px, ty))
+                _text(svg, px + 4, ty, f"{fmt(lit.value(abs(s.P), 'force'))} {fu}" +
+                      (f" ({ld.case})" if ld.case else ""), 9, anchor="start")
         elif ld.kind == "moment":
             px = float(fr.px(s.x))
             _couple(svg, px, y0, s.M >= 0)
             if label:
-                _text(svg, px, y0 - 24, f"{fmt(lit.value(abs(s.M), 'moment'))} {lit.units['moment']}", 9)
+                _text(svg, px, y0 - 24, f"{fmt(lit.value(abs(s.M), 'moment'))} {mu}", 9)
     return svg.render()
 
 
@@ -193,12 +224,17 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
             poly = [(float(fr.px(0)), mid)] + pts + [(float(fr.px(model.length)), mid)]
             svg.polygon(poly, fill=SOFT, fill_opacity=0.5, stroke="none")
         svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.3, stroke_dasharray=DASHES[k % len(DASHES)])
-    u = lit.units[unit_kind]
+    u = unit_label(lit.units[unit_kind])
+    lu = unit_label(lit.units["length"])
     _text(svg, 6, 12, title, 10, anchor="start", weight="bold")
     if len(curves) > 1:
-        legend = "   ".join(f"{'—' if k == 0 else '- -' if k == 1 else '···'} {cr.combo.name}"
-                           for k, (cr, _, _) in enumerate(curves[:5]))
-        _text(svg, W - 6, 12, legend, 9, anchor="end", color=GREY)
+        xl = W - 8.0
+        for k, (cr, _, _) in reversed(list(enumerate(curves[:5]))):
+            name = cr.combo.name if len(cr.combo.name) <= 18 else cr.combo.name[:17] + "…"
+            xl -= 6.0 * len(name) + 8
+            svg.text(xl, 12, name, font_size=9, text_anchor="start", fill=GREY, font_family=FONT)
+            svg.line(xl - 24, 9, xl - 4, 9, stroke=INK, stroke_width=1.3, stroke_dasharray=DASHES[k % len(DASHES)])
+            xl -= 30
 
     labels = []
     key = {"V": "V", "M": "M", "delta": "delta"}[what]
@@ -213,31 +249,39 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
         if abs(ext.value) <= 1e-9 * vmax:
             continue
         _mark(svg, fr, py, ext.x, ext.value, f"{fmt(lit.value(ext.value, unit_kind))} {u} at "
-              f"{fmt(lit.value(ext.x, 'length'))} {lit.units['length']}", placed, down_positive, vmax)
-    if what == "M" and len(model.spans) <= 8:
+              f"x = {fmt(lit.value(ext.x, 'length'))} {lu}", placed, down_positive, vmax)
+    single = len(res.combos) == 1  # support values of one combination among several would mislead
+    if what == "M" and len(model.spans) <= 8 and single:
         gov = res.governing_abs("M_min") if len(res.combos) > 1 else res.combos[0]
         for i, xn in enumerate(X):
             if setup.kinds[i] in ("free",) or i in (0, len(X) - 1) and abs(gov.support_M[i]) < 1e-9 * vmax:
                 continue
             v = gov.support_M[i]
-            if abs(v) > 1e-6 * vmax:
-                _mark(svg, fr, py, xn, v, f"{fmt(lit.value(v, 'moment'))}", placed, down_positive, vmax)
+            near = any(abs(ext.x - xn) < 1e-9 * model.length and abs(ext.value - v) < 1e-9 * vmax
+                       for ext, _ in (hi, lo))
+            if abs(v) > 1e-6 * vmax and not near:
+                _mark(svg, fr, py, xn, v, f"{fmt(lit.value(v, 'moment'))} {u}", placed, down_positive, vmax)
     if what == "V":
         gov = res.governing("M_max")
         for z in gov.zero_shear[:8]:
             pz = float(fr.px(z))
             svg.circle(pz, mid, 2.5, fill="white", stroke=INK)
             if len(gov.zero_shear) <= 4:
-                _text(svg, pz, mid + 13 if all(abs(pz - p[0]) > 40 or abs(mid + 13 - p[1]) > 10 for p in placed)
-                      else mid - 6, f"V = 0 at {fmt(lit.value(z, 'length'))}", 8, color=GREY)
-        if len(model.spans) <= 6:
+                # on the side of the axis away from the curve's descent
+                slope = float(gov.sol.at("V", min(z + 1e-3 * model.length, model.length))[0])
+                ty = mid - 5 if slope < 0 else mid + 12
+                _text(svg, pz + 4, ty, f"V = 0 at x = {fmt(lit.value(z, 'length'))} {lu}", 8, color=GREY,
+                      anchor="start")
+        if len(model.spans) <= 6 and single:
             for i, xn in enumerate(X):
                 if setup.kinds[i] in ("pinned", "roller", "fixed"):
                     for side in ("left", "right"):
                         if xn <= 0 or xn >= model.length:  # end values are the labelled extremes
                             continue
                         v = float(gov.sol.at("V", xn, side=side)[0])
-                        if abs(v) > 0.02 * vmax:
+                        near = any(abs(ext.x - xn) < 1e-9 * model.length and abs(ext.value - v) < 1e-6 * vmax
+                                   for ext, _ in (hi, lo))
+                        if abs(v) > 0.02 * vmax and not near:
                             off = -3 if side == "left" else 3
                             _text(svg, float(fr.px(xn)) + off * 6, float(py(v)) + (-4 if v > 0 else 11),
                                   fmt(lit.value(v, "force")), 8, anchor="end" if side == "left" else "start")

@@ -211,6 +211,10 @@ def cantilever(work, setup, res, iF: int, lit: Lit):
 # ---------------------------------------------------------------- indeterminate beams
 
 
+def _tiny(v: float, scale: float) -> float:
+    return 0.0 if abs(v) < 1e-9 * scale else v
+
+
 def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
     X = setup.model.nodes
     Ls = letters(len(X))
@@ -225,19 +229,48 @@ def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
         work.note(f"The beam is statically determinate ({hinges} internal hinge(s) release as many moments), "
                   f"solved by the direct stiffness method with the hinges as rotation releases; equilibrium is "
                   f"checked below.", kind="method")
+    many = len(res.combos) > 1
+    rows = []
     for cr in res.combos:
-        label = f" — {cr.combo.name}" if len(res.combos) > 1 else ""
-        rows = []
+        sM = max(abs(cr.M_max.value), abs(cr.M_min.value), 1e-300)
+        sV = max(abs(cr.V_max.value), 1e-300)
         for k, (fe, ends) in enumerate(zip(cr.sol.fixed_end, cr.sol.end_actions)):
-            rows.append([f"{Ls[k]}–{Ls[k + 1]}",
-                         lit.q(-fe[1], "moment"), lit.q(fe[3], "moment"),
-                         lit.q(ends[0], "force"), lit.q(ends[1], "moment"),
-                         lit.q(ends[2], "force"), lit.q(ends[3], "moment")])
-        work.table(f"End actions{label}",
+            rows.append(([cr.combo.name] if many else []) + [
+                f"{Ls[k]}–{Ls[k + 1]}",
+                lit.q(_tiny(-fe[1], sM), "moment"), lit.q(_tiny(fe[3], sM), "moment"),
+                lit.q(_tiny(ends[0], sV), "force"), lit.q(_tiny(ends[1], sM), "moment"),
+                lit.q(_tiny(ends[2], sV), "force"), lit.q(_tiny(ends[3], sM), "moment")])
+    if len(rows) <= 80:
+        work.table("End actions of each span",
+                   (["Combination"] if many else []) +
                    ["Span", "M_FE,left", "M_FE,right", "V_left", "M_left", "V_right", "M_right"], rows,
-                   units=[None, u["moment"], u["moment"], u["force"], u["moment"], u["force"], u["moment"]],
-                   note="M_FE: fixed-end moments from the span's loads; then the end actions of the solved beam. "
-                        "Moments sagging positive; V is the shear just inside each end.")
+                   units=([None] if many else []) +
+                   [None, u["moment"], u["moment"], u["force"], u["moment"], u["force"], u["moment"]],
+                   note="M_FE: fixed-end moments of the span's own loads (factored); then the end actions of the "
+                        "solved beam. Moments sagging positive; V is the shear just inside each end.")
+    else:
+        work.note(f"The end-action table ({len(rows)} rows) is left out for length.")
+    reactions_table(work, setup, res, lit)
+
+
+def reactions_table(work, setup, res, lit):
+    X = setup.model.nodes
+    Ls = letters(len(X))
+    u = lit.units
+    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided")]
+    if len(sup) > 40:
+        return
+    cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
+    rows = [[Ls[i], lit.q(X[i], "length")] +
+            [lit.q(_tiny(c.sol.reactions[i], max(abs(c.sol.reactions).max(), 1e-300)), "force") for c in res.combos]
+            for i in sup]
+    work.table("Reactions (upward positive)", cols, rows, units=[None, u["length"]] + [u["force"]] * len(res.combos))
+    fixed = [i for i in sup if setup.kinds[i] in ("fixed", "guided")]
+    if fixed:
+        work.table("Support moments (bending moment in the member at the support, sagging positive)",
+                   ["Support"] + [c.combo.name for c in res.combos],
+                   [[Ls[i]] + [lit.q(c.support_M[i], "moment") for c in res.combos] for i in fixed],
+                   units=[None] + [u["moment"]] * len(res.combos))
 
 
 def equilibrium_check(work, setup, res, lit: Lit):
@@ -245,48 +278,27 @@ def equilibrium_check(work, setup, res, lit: Lit):
     X = setup.model.nodes
     Ls = letters(len(X))
     sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed")]
-    rot = [i for i, k in enumerate(setup.kinds) if k in ("fixed", "guided")]
     iA = sup[0] if sup else 0
-    names = case_sums(work, setup, X[iA], Ls[iA], lit)
+    A = Ls[iA]
+    work.note(f"Equilibrium of the result: the reactions in the table must balance the factored loads, in force "
+              f"and in moment about {A}.", kind="method")
+    names = case_sums(work, setup, X[iA], A, lit)
+    fu, mu = lit.units["force"], lit.units["moment"]
     for cr in res.combos:
         tag = cr.combo.tag
         label = f" ({cr.combo.name})" if len(res.combos) > 1 else ""
-        rn = []
-        for i in sup:
-            n = f"R_{Ls[i]}{tag}"
-            work.let(n, lit.q(cr.sol.reactions[i], "force"), unit=lit.units["force"],
-                     desc=f"reaction at {Ls[i]}{label}", note="from the stiffness solution")
-            rn.append((i, n))
-        mn = []
-        for i in rot:
-            n = f"M_R{Ls[i]}{tag}"
-            work.let(n, lit.q(cr.sol.reaction_moments[i], "moment"), unit=lit.units["moment"],
-                     desc=f"support couple at {Ls[i]}, anticlockwise positive{label}",
-                     note="from the stiffness solution")
-            mn.append(n)
-        if len(rn) <= MAX_TERMS:
-            work.calc(f"R_sum{tag}", " + ".join(n for _, n in rn), unit=lit.units["force"],
-                      desc=f"sum of the reactions{label}")
-            mom = [f"{n}*{lit(X[i] - X[iA], 'length')}" for i, n in rn if i != iA] + mn
-            work.calc(f"M_R{tag}", " + ".join(mom) if mom else f"0 {lit.units['moment']}",
-                      unit=lit.units["moment"], desc=f"moment of the reactions about {Ls[iA]}, anticlockwise{label}")
-        else:
-            work.let(f"R_sum{tag}", lit.q(cr.sol.reactions.sum(), "force"), unit=lit.units["force"],
-                     desc=f"sum of the reactions{label}", note=f"sum of the {len(rn)} reactions above")
-            mo = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
-            work.let(f"M_R{tag}", lit.q(mo, "moment"), unit=lit.units["moment"],
-                     desc=f"moment of the reactions about {Ls[iA]}{label}", note="Σ R·a + Σ support couples")
-        W = combo_sum(cr.combo.factors, names, 0)
-        Mo = combo_sum(cr.combo.factors, names, 1)
-        work.calc(f"W_tot{tag}", W, unit=lit.units["force"], desc=f"total factored load{label}")
-        work.calc(f"M_W{tag}", Mo, unit=lit.units["moment"], desc=f"moment of the factored loads about {Ls[iA]}")
-        work.calc(f"e_F{tag}", f"abs(R_sum{tag} - W_tot{tag})", unit=lit.units["force"],
-                  desc="out-of-balance vertical force")
-        work.calc(f"e_M{tag}", f"abs(M_R{tag} - M_W{tag})", unit=lit.units["moment"], desc="out-of-balance moment")
-        scale_F = f"1e-6*(abs(W_tot{tag}) + 1 {lit.units['force']})"
-        work.check(f"e_F{tag} <= {scale_F}", desc=f"ΣF_y = 0: the reactions balance the loads{label}")
-        work.check(f"e_M{tag} <= 1e-6*(abs(M_W{tag}) + 1 {lit.units['moment']})",
-                   desc=f"ΣM = 0 about {Ls[iA]}: the reactions balance the loads' moment{label}")
+        work.let(f"R_sum{tag}", lit.q(cr.sol.reactions.sum(), "force"), unit=fu,
+                 desc=f"sum of the reactions{label}", note="ΣR over the reactions table")
+        mo = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
+        work.let(f"M_R{tag}", lit.q(mo, "moment"), unit=mu, desc=f"moment of the reactions about {A}{label}",
+                 note="Σ R·a + support couples, anticlockwise positive")
+        work.calc(f"W_tot{tag}", combo_sum(cr.combo.factors, names, 0), unit=fu, desc=f"total factored load{label}")
+        work.calc(f"M_W{tag}", combo_sum(cr.combo.factors, names, 1), unit=mu,
+                  desc=f"moment of the factored loads about {A}, clockwise positive{label}")
+        work.check(f"abs(R_sum{tag} - W_tot{tag}) <= 1e-6*(abs(W_tot{tag}) + 1 {fu})",
+                   desc=f"ΣF_y = 0{label}")
+        work.check(f"abs(M_R{tag} - M_W{tag}) <= 1e-6*(abs(M_W{tag}) + 1 {mu})",
+                   desc=f"ΣM about {A} = 0{label}")
 
 
 def write(work, setup, res, lit: Lit):
