@@ -75,6 +75,7 @@ class Checker:
         self.defined: dict[str, int] = {}
         self.res: Resolution | None = None
         self._shadows: list[N.Number] = []  # literals in the current statement whose unit is a variable name
+        self.shadowed: set[str] = set()  # variable names read as units somewhere (not also "unused")
         self._pending: list[Diagnostic] = []  # warnings of the current statement (dropped if it has an error)
         self.consts = lint.Constants(self)
 
@@ -117,7 +118,7 @@ class Checker:
                 diags.extend(lint.definition_findings(stmt, self.types[stmt.name], self, self.path))
             else:
                 diags.extend(lint.check_findings(stmt, self, self.path))
-        diags.extend(lint.unused_inputs(res, self.path))
+        diags.extend(lint.unused_inputs(res, self.path, skip=self.shadowed))
         return diags
 
     def _with_shadow_note(self, exc: CalcError) -> CalcError:
@@ -125,7 +126,7 @@ class Checker:
         if self._shadows:
             lit = self._shadows[0]
             name = lit.unit[0][0]
-            note = (f"'{lit.text} {lit.unit_text}' reads {name} as a unit ({U.VOCABULARY.get(name, name)}), "
+            note = (f"'{lit.text} {lit.unit_text}' reads {name} as a unit ({lint.unit_words(name)}), "
                     f"not the variable {name} defined on line {self.defined[name]}: write {lit.text}*{name}")
             exc.hint = f"{note}; {exc.hint}" if exc.hint else note
         return exc
@@ -188,13 +189,19 @@ class Checker:
             return NUMBER
         if len(node.unit) == 1 and node.unit[0][0] in self.defined:
             self._shadows.append(node)
+            self.shadowed.add(node.unit[0][0])
         try:
             unit = U.build_unit(node.unit)
         except UnknownUnitError as exc:
             bad = next((n for n, _ in node.unit if n in self.defined and n not in U.VOCABULARY), None)
             if bad is not None:
-                exc.hint = (f"'{bad}' is a variable of this sheet; a number followed directly by a name reads the "
-                            f"name as a unit: write {node.text}*{bad}")
+                prefix = node.unit_text.split(bad)[0].rstrip("*·")
+                if prefix:
+                    exc.hint = (f"'{bad}' is a variable of this sheet, but a unit after a number runs on through "
+                                f"'*': write ({node.text} {prefix})*{bad}…, or put the variable first")
+                else:
+                    exc.hint = (f"'{bad}' is a variable of this sheet; a number followed directly by a name reads "
+                                f"the name as a unit: write {node.text}*{bad}")
             raise exc.with_span(_unit_span(node))
         offset = any(U.VOCABULARY.get(n) in U.OFFSET_UNITS for n, _ in node.unit)
         if offset and (len(node.unit) > 1 or node.unit[0][1] != 1):

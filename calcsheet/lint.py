@@ -112,6 +112,10 @@ _STEP_UP = {"Pa": "kPa", "kPa": "MPa", "MPa": "GPa", "psi": "ksi", "N/mm^2": "kN
 _STEP_DOWN = {v: k for k, v in _STEP_UP.items()}
 
 
+def _article(words: str) -> str:
+    return "an" if words[:1] in "aeiou" else "a"
+
+
 def _literal(node):
     while isinstance(node, (N.Paren,)):
         node = node.inner
@@ -150,7 +154,7 @@ def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diag
     if judged is None:
         return out
     kind, rng, m = judged
-    where = f"the {kind.words} of {rng.material}" if rng.material else f"a {kind.words}"
+    where = f"the {kind.words} of {rng.material}" if rng.material else f"{_article(kind.words)} {kind.words}"
     unit = f" {rng.unit}" if rng.unit else ""
     lit = _literal(expr)
     shown = f"{_fmt(m)}{unit}"
@@ -183,7 +187,7 @@ def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: st
         unit = U.build_unit(stmt.unit)
         if kind is not None and kind.usual_units and not P.is_usual_unit(kind, unit):
             out.append(UnusualUnitInfo(
-                f"{stmt.name} is declared [{stmt.unit_text}]; a {kind.words} is usually given in "
+                f"{stmt.name} is declared [{stmt.unit_text}]; {_article(kind.words)} {kind.words} is usually given in "
                 + ", ".join(kind.usual_units[:5]), stmt.unit_span or stmt.span,
                 hint="the unit is valid, but a reviewer may misread it; declare a usual one unless "
                      "there is a reason").diagnostic(path))
@@ -244,11 +248,17 @@ def _side(node) -> str:
 _WORDS = {"liter": "litre", "meter": "metre", "degree_Celsius": "°C"}
 
 
+def unit_words(symbol: str) -> str:
+    """'L' -> 'litre': what a unit symbol reads as."""
+    name = U.VOCABULARY.get(symbol, symbol)
+    return _WORDS.get(name, name.replace("_", " "))
+
+
 def shadow_warnings(literals: list[N.Number], defined: dict[str, int], path: str) -> list[Diagnostic]:
     out = []
     for lit in literals:
         name = lit.unit[0][0]
-        meaning = _WORDS.get(U.VOCABULARY.get(name, name), U.VOCABULARY.get(name, name).replace("_", " "))
+        meaning = unit_words(name)
         s = lit.span
         span = type(s)(s.end_line, s.end_col - len(lit.unit_text), s.end_line, s.end_col)
         out.append(UnitShadowsVariableWarning(
@@ -281,11 +291,18 @@ def _exprs(stmt):
     return []
 
 
-def unused_inputs(res: Resolution, path: str) -> list[Diagnostic]:
+def unused_inputs(res: Resolution, path: str, skip=frozenset()) -> list[Diagnostic]:
+    """Inputs nothing reads (except those a misspelt or unit-shadowed use meant: reported there)."""
     out = []
     meant = None
+    read = None
     for name in res.inputs:
-        if res.dependents.get(name) or name in res.broken:
+        if res.dependents.get(name) or name in res.broken or name in skip:
+            continue
+        if read is None:  # names read anywhere, even above their definition (reported there)
+            read = {n.id for stmt in res.statements.values() for expr in _exprs(stmt) for n in N.walk(expr)
+                    if isinstance(n, N.Name)}
+        if name in read:
             continue
         if meant is None:
             meant = _misspelt_uses(res) if any(d.code == "undefined-name" for d in res.diagnostics) else set()

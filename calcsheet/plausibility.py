@@ -191,10 +191,11 @@ def is_usual_unit(kind: Kind, unit) -> bool:
 # ------------------------------------------------------------ table-unit slips
 
 SLIP_LIMITS = {
-    # below this a value is smaller than any rolled member's property and matches a cm-table value
-    # typed in mm (common practice: a 60×60×6 angle has I ≈ 22.8 cm⁴ = 2.28e5 mm⁴, S ≈ 5.3 cm³)
-    "I": (1e5, 1e12, "mm^4", 4),
-    "S": (1e3 * 10, 1e9, "mm^3", 3),
+    # Below the low edge a value is that of a bar under ~28 mm square, and matches a table value in
+    # cm⁴/cm³ typed as mm⁴/mm³ (tables list rolled members from ~5 cm⁴ up); above the high edge it
+    # exceeds the largest rolled sections (~1.3e10 mm⁴) a hundredfold (common practice).
+    "I": (5e4, 1e12, "mm^4", 4),
+    "S": (5e3, 1e9, "mm^3", 3),
 }
 
 
