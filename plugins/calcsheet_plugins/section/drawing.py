@@ -15,7 +15,7 @@ AXIS = "#c0392b"
 PRINCIPAL = "#1f6fb2"
 
 BOX_W, BOX_H = 330.0, 260.0
-MARGIN_L, MARGIN_R, MARGIN_T, MARGIN_B = 70.0, 95.0, 36.0, 56.0
+MARGIN_L, MARGIN_R, MARGIN_T, MARGIN_B = 70.0, 95.0, 62.0, 56.0
 
 
 def _fmt(v: float) -> str:
@@ -50,16 +50,16 @@ def draw(shape, vals: dict) -> str:
     cx, cy = P(vals["x_c"], vals["y_c"])
     ext = 18
     left, right = MARGIN_L - ext, MARGIN_L + W * s + 64
-    top, bottom = MARGIN_T - ext, MARGIN_T + H * s + ext
+    top, bottom = MARGIN_T - 52, MARGIN_T + H * s + ext
     dash = "8 3 2 3"
     svg.line(left, cy, right, cy, stroke=AXIS, stroke_width=0.8, stroke_dasharray=dash)
     svg.line(cx, top, cx, bottom, stroke=AXIS, stroke_width=0.8, stroke_dasharray=dash)
     svg.text(right + 3, cy + 4, "x", fill=AXIS, font_size=11, font_style="italic")
-    svg.text(cx + 3, top - 3, "y", fill=AXIS, font_size=11, font_style="italic")
+    svg.text(cx + 4, top + 8, "y", fill=AXIS, font_size=11, font_style="italic")
     th = vals["theta_p"]
     distinct = abs(vals["I_1"] - vals["I_2"]) > 1e-6 * abs(vals["I_1"])
     if distinct and abs(math.sin(2 * th)) > 1e-3:
-        L = 0.5 * math.hypot(W, H) * s + ext
+        L = 0.42 * math.hypot(W, H) * s
         for k, lab in ((0, "1"), (1, "2")):
             a = th + k * math.pi / 2
             ux, uy = math.cos(a), -math.sin(a)

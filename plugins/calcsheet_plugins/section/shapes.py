@@ -277,7 +277,7 @@ def box(b: float, h: float, t: float | None = None, t_f: float | None = None, t_
                      Step("y_c", "h/2", "mm", "centroid above the base"),
                      Step("I_x", "(b*h^3 - b_i*h_i^3)/12", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "(h*b^3 - h_i*b_i^3)/12", "mm^4", "second moment about the centroidal y axis")],
-        dims=_dims_box(b, h) + [Dimension(b, h - tf, b, h, _fmt(tf), -1), Dimension(b - tw, h / 2, b, h / 2, _fmt(tw), 1)],
+        dims=_dims_box(b, h) + [Dimension(b, h - tf, b, h, _fmt(tf), -1)],
     )
 
 
@@ -324,8 +324,7 @@ def ishape(h: float, b: float, t_f: float, t_w: float, b_bot: float | None = Non
         pre_steps=pre,
         dims=[Dimension(xc - b / 2, h, xc + b / 2, h, _fmt(b), 1), Dimension(xc - W / 2, h, xc - W / 2, 0, _fmt(h), -1),
               Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1),
-              Dimension(xc + W / 2, h - t_f, xc + W / 2, h, _fmt(t_f), -1),
-              Dimension(xc - t_w / 2, h / 2, xc + t_w / 2, h / 2, _fmt(t_w), 0)],
+              Dimension(xc + b / 2, h - t_f, xc + b / 2, h, _fmt(t_f), -1)],
         warnings=warnings,
     )
 
@@ -343,8 +342,7 @@ def channel(h: float, b: float, t_f: float, t_w: float) -> Shape:
         J=(2 * b * t_f**3 + (h - 2 * t_f) * t_w**3) / 3,
         J_method=THIN_OPEN + "; flanges full width, web over its clear depth",
         J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4", "torsion constant (thin-walled open)")],
-        dims=_dims_box(b, h) + [Dimension(b, h - t_f, b, h, _fmt(t_f), -1),
-                                Dimension(0, h / 2, t_w, h / 2, _fmt(t_w), 0)],
+        dims=_dims_box(b, h) + [Dimension(b, h - t_f, b, h, _fmt(t_f), -1)],
         warnings=warnings,
     )
 
@@ -363,7 +361,7 @@ def tee(h: float, b: float, t_f: float, t_w: float) -> Shape:
         J=(b * t_f**3 + hs * t_w**3) / 3, J_method=THIN_OPEN + "; stem below the flange",
         J_steps=[Step("J", "(b*t_f^3 + (h - t_f)*t_w^3)/3", "mm^4", "torsion constant (thin-walled open)")],
         dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1),
-              Dimension(b, hs, b, h, _fmt(t_f), -1), Dimension(x1, hs / 2, x2, hs / 2, _fmt(t_w), 0)],
+              Dimension(b, hs, b, h, _fmt(t_f), -1)],
         warnings=warnings,
     )
 
