@@ -145,6 +145,11 @@ def _edited_inputs(previous: Result, source: str, plugins) -> tuple[dict[str, N.
             raise _FullRun(f"{name} changed dimension")
         if any(d.span.line <= last and d.span.end_line >= first for d in previous.diagnostics):
             raise _FullRun(f"line {first} had diagnostics")
+        # the static findings a full check would make on the new line (a value implausible for its name…);
+        # alone, every input is unused, so that one finding says nothing here
+        alone = run(text, evaluate=False, path=previous.path, plugins=plugins)
+        if any(d.code != "unused-input" for d in alone.diagnostics):
+            raise _FullRun(f"line {first} has diagnostics")
         new_stmts[name] = new
     body = tuple(new_stmts.get(s.name, s) if isinstance(s, N.Definition) else s for s in previous.sheet.body)
     return new_stmts, dataclasses.replace(previous.sheet, body=body, source=source)

@@ -155,3 +155,14 @@ def test_an_unchanged_sheet_recomputes_nothing(calls):
     _clear(calls)
     out = rebuild(first, SHEET)
     assert not out.full and out.recomputed == [] and calls["definitions"] == []
+
+
+def test_a_new_input_value_gets_the_same_findings_as_a_full_check():
+    # 200 MPa where a steel modulus (about 200–210 GPa, common practice) belongs: whatever the checker says
+    # about the edited line, the rebuild says too
+    sheet = "E_s = 210 GPa     -- steel modulus\nA = 100 mm^2\nk = E_s*A\n"
+    edited = sheet.replace("210 GPa", "200 MPa")
+    out = rebuild(calcsheet.run(sheet), edited)
+    full = calcsheet.run(edited)
+    assert [d.one_line() for d in out.result.diagnostics] == [d.one_line() for d in full.diagnostics]
+    assert out.result.values["k"].m_as("kN") == pytest.approx(200 * 100 / 1000)
