@@ -159,7 +159,11 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
     xn = f"x_0{tag}"
     work.let(xn, lit.q(x0, "length"), unit=lit.units["length"],
              desc=f"position of the largest sagging moment{label}", note=how)
-    left = [ld for ld in cr.loads if (ld.x if not isinstance(ld, LineLoad) else ld.x1) < x0 - 1e-12]
+    tol = 1e-9 * setup.model.length
+    # forces to the left of x₀; a clockwise couple exactly at x₀ counts too (the maximum is the value just
+    # after its upward jump), an anticlockwise one does not (the maximum is the value just before it)
+    left = [ld for ld in cr.loads if (ld.x if not isinstance(ld, LineLoad) else ld.x1) < x0 - tol
+            or isinstance(ld, MomentLoad) and abs(ld.x - x0) <= tol and ld.M > 0]
     if len(left) > MAX_TERMS:
         work.let(f"M_0{tag}", lit.q(cr.M_max.value, "moment"), unit=lit.units["moment"],
                  desc=f"largest sagging moment{label}", note="area of the shear diagram from the left end to x₀")

@@ -168,3 +168,27 @@ def test_triangular_load_simply_supported():
     dmax, _ = extremes(s, "delta")
     assert dmax.value == pytest.approx(0.01304 * W * L**3 / EI, rel=1e-3)  # 0.01304 WL^3/EI
     assert dmax.x == pytest.approx(L * math.sqrt(1 - math.sqrt(8 / 15)), rel=1e-7)  # x = L√(1-√(8/15))
+
+
+def test_fixed_guided_end_load():
+    # Roark's Formulas, Table 8.1 (from memory): fixed at one end, guided (no rotation, free to slide) at the
+    # other, load P at the guided end: δ = PL³/(12EI), M = PL/2 at both ends (opposite signs)
+    L, P = 4.0, 9e3
+    s = solve(Model([L], ["fixed", "guided"], [EI]), [PointLoad(L, P)])
+    assert s.reactions[0] == pytest.approx(P, **rel)
+    assert s.at("delta", L, side="left")[0] == pytest.approx(P * L**3 / (12 * EI), **rel)
+    assert s.at("M", 0.0)[0] == pytest.approx(-P * L / 2, **rel)
+    assert s.at("M", L, side="left")[0] == pytest.approx(P * L / 2, **rel)
+
+
+def test_partial_udl_simply_supported():
+    # AISC T3-23 case 4 (uniform load partially distributed, from memory): load w over length b starting at a:
+    # R1 = wb(2c + b)/(2L), with c the distance from its end to the right support; M_max = R1(a + R1/(2w))
+    L, w, a, b = 10.0, 6e3, 2.0, 5.0
+    c = L - a - b
+    s = solve(ss(L), [LineLoad(a, a + b, w, w)])
+    R1 = w * b * (2 * c + b) / (2 * L)
+    assert s.reactions[0] == pytest.approx(R1, **rel)
+    Mmax, _ = extremes(s, "M")
+    assert Mmax.value == pytest.approx(R1 * (a + R1 / (2 * w)), **rel)
+    assert Mmax.x == pytest.approx(a + R1 / w, **rel)  # where the shear is zero

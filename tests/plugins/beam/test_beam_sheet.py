@@ -236,3 +236,29 @@ def test_overhang_tip_load_us_customary():
     assert val(r, "R_2", "kip") == pytest.approx(P * (L + a) / L)  # R2 = P(l+a)/l
     assert val(r, "M", "kip*in") == pytest.approx(-P * a)  # M = Pa at R2
     assert val(r, "d", "in") == pytest.approx(P * a**2 * (L + a) / (3 * EI))  # tip: Pa²(l+a)/3EI
+
+
+def test_traced_max_moment_matches_the_solver_with_partial_and_varying_loads():
+    r = ok(run("""
+        b = beam.solve(spans=[1.5 m, 7 m, 2 m], supports="free, pinned, roller, free", E=200 GPa, I=1e8 mm^4,
+            loads=[beam.varying(w_1=2 kN/m, w_2=8 kN/m, start=2 m, end=6.5 m), beam.udl(w=3 kN/m, end=4 m),
+                   beam.point(P=5 kN, x=0 m), beam.moment(M=4 kN*m, x=5 m), beam.point(P=6 kN, x=10.5 m)])
+        M = b.M_max
+    """))
+    st = steps(r.values["b"])
+    # the hand trace (moments of the forces left of x₀, with the cut part of each line load) is evaluated by the
+    # engine from its own formula text; it must land on the solver's exact maximum
+    assert st["M_0"].value.m_as("kN*m") == pytest.approx(val(r, "M", "kN*m"), rel=1e-8)
+    assert st["R_C"].value.m_as("kN") == pytest.approx(r.values["b"].fields["R_3"].m_as("kN"), rel=1e-8)
+
+
+def test_gerber_beam_with_a_hinge_is_traced_as_determinate():
+    r = ok(run("""
+        b = beam.solve(spans=[5 m, 1.5 m, 4 m], supports="pinned, roller, hinge, roller", E=200 GPa, I=1e8 mm^4,
+            loads=[beam.udl(w=10 kN/m)])
+        R_4 = b.R_4
+    """))
+    # the suspended span (hinge to the last support, 4 m) is simply supported: R = wL/2 = 20 kN (statics)
+    assert val(r, "R_4", "kN") == pytest.approx(20.0)
+    notes = [getattr(it, "text", "") for it in r.values["b"].working.items]
+    assert any("statically determinate (1 internal hinge" in t for t in notes)
