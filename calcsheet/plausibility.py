@@ -163,19 +163,25 @@ def _unit(text: str):
     return U.build_unit(split_unit(text)) if text else U.registry().Unit("")
 
 
+def judge_range(name: str, kind: Kind) -> Range | None:
+    """The range a name is judged by: its material's if the subscript names one, else the kind's general one."""
+    material = material_of(name)
+    general = None
+    for r in kind.ranges:
+        if material and r.material == material:
+            return r
+        if not r.material and general is None:
+            general = r
+    return general
+
+
 def judge(name: str, value) -> tuple[Kind, Range, float] | None:
     """The kind and the range that ``value`` (a pint Quantity) falls outside, with its magnitude there."""
     dim = U.dim_of(value)
     k = kind_of(name, dim)
     if k is None or not k.ranges:
         return None
-    material = material_of(name)
-    chosen = None
-    for r in k.ranges:
-        if r.material == material or (not r.material and chosen is None):
-            chosen = r
-            if r.material == material:
-                break
+    chosen = judge_range(name, k)
     if chosen is None:
         return None
     m = float(value.to(_unit(chosen.unit)).magnitude) if chosen.unit else float(value.to("").magnitude)
