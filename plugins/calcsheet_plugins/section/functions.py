@@ -2,11 +2,11 @@
 
 Sheet form::
 
-    beam  = section.ishape(h=310 mm, b=165 mm, t_f=9.7 mm, t_w=5.8 mm)
+    ipe   = section.ishape(h=310 mm, b=165 mm, t_f=9.7 mm, t_w=5.8 mm, detail="brief")
     plate = section.part(shape=section.rectangle(b=200 mm, h=12 mm), x=0 mm, y=310 mm,
                          anchor="bottom-centre", E=70 GPa, rho=2700 kg/m^3, name="cover plate")
     bolt  = section.hole(shape=section.rectangle(b=22 mm, h=12 mm), x=-60 mm, y=316 mm)
-    sec   = section.built_up(parts=[section.part(shape=beam, anchor="bottom-centre"), plate, bolt],
+    sec   = section.built_up(parts=[section.part(shape=ipe, anchor="bottom-centre"), plate, bolt],
                              E_ref=210 GPa)
     sigma [MPa] = M / sec.S_x_top
 
@@ -21,6 +21,8 @@ no density is given.
 from __future__ import annotations
 
 import hashlib
+
+import numpy as np
 from dataclasses import replace
 
 from calcsheet.plugin import Field, Namespace, Param
@@ -67,6 +69,11 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
             work.fail("rho must be greater than zero", param="rho")
         for r in shape.rows:
             r.rho = rho.m_as("kg/mm^3")
+        shape.label += f", ρ = {rho.m_as('kg/m^3'):.10g} kg/m³"
+    if shape.kind == "polygon":  # the label alone does not tell two outlines apart
+        digest = hashlib.sha1(b"".join(np.round(r.x, 9).tobytes() + np.round(r.y, 9).tobytes()
+                                       for r in shape.rings)).hexdigest()[:10]
+        shape.label += f" #{digest}"
     out = report(work, shape, rho=rho, x_ref=x_ref, y_ref=y_ref, **kw)
     _GEOMETRY[shape.label] = shape
     return out

@@ -182,3 +182,20 @@ def test_plugins_command_lists_every_shape_with_parameter_dimensions():
         assert f"section.{name}(" in out
     assert "section.part(" in out and "section.hole(" in out
     assert "length" in out and "points" in out.lower()
+
+
+def test_records_of_look_alike_shapes_keep_their_own_outlines(run):
+    # two polygons with the same vertex count and bounding box, and a shape with and without a density
+    r = run("""
+        p1 = section.polygon(points=[(0 mm, 0 mm), (100 mm, 0 mm), (0 mm, 100 mm)])
+        p2 = section.polygon(points=[(0 mm, 0 mm), (100 mm, 0 mm), (100 mm, 100 mm)])
+        r1 = section.rectangle(b=100 mm, h=10 mm, rho=7850 kg/m^3)
+        r2 = section.rectangle(b=100 mm, h=10 mm)
+        s1 = section.built_up(parts=[section.part(shape=p1), section.part(shape=r1, y=-10 mm)])
+    """)
+    assert not errors(r), r.diagnostics
+    s1, p1 = r.values["s1"].fields, r.values["p1"].fields
+    assert r.values["p1"].fields["shape"] != r.values["p2"].fields["shape"]
+    assert s1["mass"].m_as("kg/m") == pytest.approx(7850 * 100 * 10 * 1e-6, rel=1e-12)
+    A = 5000 + 1000
+    assert s1["x_c"].m_as("mm") == pytest.approx((5000 * 100 / 3 + 1000 * 50) / A, rel=1e-12)
