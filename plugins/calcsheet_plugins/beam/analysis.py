@@ -218,11 +218,12 @@ def _envelope(work, setup, res, lit, lim, deflection):
             work.fail(f"no combination is named {deflection!r} (combinations: "
                       + ", ".join(c.combo.name for c in res.combos) + ")", param="deflection")
     best = None
+    cantilever = [setup.kinds[k] == "free" or setup.kinds[k + 1] == "free" for k in range(len(model.spans))]
     for c in pool:
         for k, e in enumerate(c.span_delta):
             if abs(e.value) <= 0:
                 continue
-            ratio = model.spans[k] / abs(e.value)
+            ratio = (2 if cantilever[k] else 1) * model.spans[k] / abs(e.value)
             if best is None or ratio < best[0]:
                 best = (ratio, k, e, c)
     if lim is None:
@@ -242,9 +243,12 @@ def _envelope(work, setup, res, lit, lim, deflection):
         return out
     ratio, k, e, c = best
     span_name = f"{Ls[k]}–{Ls[k + 1]}"
-    cant = setup.kinds[k] == "free" or setup.kinds[k + 1] == "free"
-    out["L_gov"] = work.calc("L_gov", lit(model.spans[k], "length"), unit=u["length"],
-                             desc=f"span {span_name}" + (" (a cantilever: its own length)" if cant else ""))
+    if cantilever[k]:
+        out["L_gov"] = work.calc("L_gov", f"2*{lit(model.spans[k], 'length')}", unit=u["length"],
+                                 desc=f"span {span_name} is a cantilever: the limit applies to twice its length "
+                                      f"(common practice)")
+    else:
+        out["L_gov"] = work.calc("L_gov", lit(model.spans[k], "length"), unit=u["length"], desc=f"span {span_name}")
     out["delta_gov"] = work.let("delta_gov", lit.q(abs(e.value), "length"), unit=u["defl"],
                                 desc=f"largest deflection in span {span_name}",
                                 note=f"at x = {_x(lit, e.x)}" + (f", {c.combo.name}" if many else ""))

@@ -88,7 +88,9 @@ def beam_figure(setup, lit) -> str:
     for i, (x, k) in enumerate(zip(X, setup.kinds)):
         px = float(fr.px(x))
         _support(svg, px, y0, k, i == 0)
-        if k not in ("free",):
+        if k == "free":
+            _text(svg, px, y0 + 20, names[i], 10, color=GREY)
+        else:
             _text(svg, px, y0 + 36, names[i], 11, weight="bold")
     # dimension line
     yd = y0 + 58
@@ -226,7 +228,9 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
         svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.3, stroke_dasharray=DASHES[k % len(DASHES)])
     u = unit_label(lit.units[unit_kind])
     lu = unit_label(lit.units["length"])
+    note = ("downward positive" if what == "delta" else "sagging positive, drawn up" if what == "M" else "V = dM/dx")
     _text(svg, 6, 12, title, 10, anchor="start", weight="bold")
+    _text(svg, 6, 24, f"{u}; {note}", 8, anchor="start", color=GREY)
     if len(curves) > 1:
         xl = W - 8.0
         for k, (cr, _, _) in reversed(list(enumerate(curves[:5]))):
@@ -285,9 +289,6 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
                             off = -3 if side == "left" else 3
                             _text(svg, float(fr.px(xn)) + off * 6, float(py(v)) + (-4 if v > 0 else 11),
                                   fmt(lit.value(v, "force")), 8, anchor="end" if side == "left" else "start")
-    _text(svg, 6, H - 6, f"{u}; " + ("downward positive" if what == "delta" else
-                                      "sagging positive, drawn up" if what == "M" else "V = dM/dx"), 8,
-          anchor="start", color=GREY)
     return svg.render()
 
 

@@ -262,3 +262,16 @@ def test_gerber_beam_with_a_hinge_is_traced_as_determinate():
     assert val(r, "R_4", "kN") == pytest.approx(20.0)
     notes = [getattr(it, "text", "") for it in r.values["b"].working.items]
     assert any("statically determinate (1 internal hinge" in t for t in notes)
+
+
+def test_cantilever_deflection_limit_uses_twice_its_length():
+    r = ok(run("""
+        b = beam.solve(spans=[3 m], supports="fixed, free", E=200 GPa, I=1e8 mm^4, loads=[beam.point(P=5 kN, x=3 m)],
+            limit=360)
+        a = b.delta_allow
+        ratio = b.span_ratio
+    """))
+    # common practice: a cantilever's span/δ limit is taken on twice its length (L/180 for an L/360 floor)
+    assert val(r, "a", "mm") == pytest.approx(2 * 3000 / 360)
+    d = 5e3 * 3**3 / (3 * 200e9 * 1e-4)  # PL³/3EI
+    assert val(r, "ratio", "") == pytest.approx(2 * 3 / d)
