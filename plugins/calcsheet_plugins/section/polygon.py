@@ -382,8 +382,9 @@ def self_intersection(x: np.ndarray, y: np.ndarray, tol: float) -> tuple[int, in
     n = len(x)
     x0, y0, x1, y1 = x, y, _next(x), _next(y)
     i = np.arange(n)
-    for start in range(0, n, 512):
-        sl = slice(start, min(n, start + 512))
+    rows = max(1, min(512, 400_000 // max(n, 1)))  # keep each block's temporaries to a few MB
+    for start in range(0, n, rows):
+        sl = slice(start, min(n, start + rows))
         ax0, ay0, ax1, ay1 = (v[sl, None] for v in (x0, y0, x1, y1))
         bx0, by0, bx1, by1 = (v[None, :] for v in (x0, y0, x1, y1))
 

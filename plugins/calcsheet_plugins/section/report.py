@@ -82,17 +82,18 @@ def _table_steps(work, shape, transformed: bool) -> None:
         body_x.append([label, _q(vals[0], "mm^4"), _q(dy, "mm"), _q(vals[1], "mm^4"), _q(vals[0] + vals[1], "mm^4")])
         body_y.append([label, _q(vals[2], "mm^4"), _q(dx, "mm"), _q(vals[3], "mm^4"), _q(vals[2] + vals[3], "mm^4")])
         body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
-    times_n = ", times n" if tr else ""
+    times_n = "; Iₒ and A count n times" if tr else ""
     work.table("Parts table: second moments about the centroidal x axis (parallel-axis theorem)",
                ["Part", "I_o,x,i", "d_y,i", "A_i·d_y,i²", "I_x,i"], body_x,
                units=[None, "mm^4", "mm", "mm^4", "mm^4"],
                footer=[["Σ", _q(sums[0], "mm^4"), "", _q(sums[1], "mm^4"), _q(sums[0] + sums[1], "mm^4")]],
-               note=f"d_y,i = y_i − y_c; I_o,x,i is each part's own centroidal value{times_n}; holes negative.")
+               note=f"d = yᵢ − ȳ, each part's centroid above the section's; Iₒ is each part's second moment about "
+                    f"its own centroid{times_n}; holes negative.")
     work.table("Parts table: second moments about the centroidal y axis (parallel-axis theorem)",
                ["Part", "I_o,y,i", "d_x,i", "A_i·d_x,i²", "I_y,i"], body_y,
                units=[None, "mm^4", "mm", "mm^4", "mm^4"],
                footer=[["Σ", _q(sums[2], "mm^4"), "", _q(sums[3], "mm^4"), _q(sums[2] + sums[3], "mm^4")]],
-               note=f"d_x,i = x_i − x_c{times_n}.")
+               note=f"d = xᵢ − x̄, each part's centroid right of the section's{times_n}.")
     if product:
         work.table("Parts table: product of area about the centroidal axes", ["Part", "I_o,xy,i", "d_x,i", "d_y,i",
                    "A_i·d_x,i·d_y,i"], body_p, units=[None, "mm^4", "mm", "mm", "mm^4"],

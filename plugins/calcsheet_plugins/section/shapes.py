@@ -25,6 +25,7 @@ from .polygon import Ring, make_ring, self_intersection, signed_area
 ARC_SEGMENTS = 2048  # segments per full turn; inscribed-polygon error in I is about (2π/N)²/1.5 ≈ 6e-6
 ARC_TOLERANCE = 5e-5  # relative agreement demanded of shapes with arcs
 EXACT_TOLERANCE = 1e-9  # ... and of straight-edged shapes
+MAX_POLYGON_POINTS = 10_000  # the self-crossing check is O(n²): about 5 s at this size
 
 
 class ShapeError(ValueError):
@@ -456,6 +457,9 @@ def clean_points(points, param="points") -> np.ndarray:
         pts = pts[:-1]
     if len(pts) < 3:
         raise ShapeError("a polygon needs at least three distinct points", param)
+    if len(pts) > MAX_POLYGON_POINTS:
+        raise ShapeError(f"a polygon of {len(pts)} points is more than the {MAX_POLYGON_POINTS} whose outline can be "
+                         "checked for self-crossing here", param)
     hit = self_intersection(pts[:, 0], pts[:, 1], tol)
     if hit is not None:
         i, j = hit

@@ -281,3 +281,12 @@ class TestBadInput:
     def test_web_thicker_than_flange_is_a_warning(self):
         shape = S.ishape(300.0, 150.0, 6.0, 10.0)
         assert shape.warnings and shape.warnings[0][1] == "t_w"
+
+
+def test_a_polygon_too_large_to_check_is_refused_clearly():
+    import numpy as np
+
+    a = np.linspace(0, 2 * math.pi, S.MAX_POLYGON_POINTS + 1, endpoint=False)
+    with pytest.raises(S.ShapeError) as err:
+        S.polygon(np.column_stack([np.cos(a), np.sin(a)]))
+    assert err.value.param == "points" and "self-crossing" in str(err.value)
