@@ -165,16 +165,17 @@ def buckling(work, L, ends="pinned-pinned", ends_y=None, K_basis="design", K_x=N
         cc = float(sc["C_c"].m_as(""))
         se = sc[f"sigma_e_{axis}"]
         elastic_ok = se.m_as("Pa") <= sc["f_pl"].m_as("Pa")
+        cmp = (f"σ_e = {se.m_as(st):.4g} {st} {'≤' if elastic_ok else '>'} f_pl = {sc['f_pl'].m_as(st):.4g} {st}")
         if lam >= cc:
-            work.note(f"About {axis}: KL/r = {lam:.1f} ≥ C_c = {cc:.1f}, so buckling is elastic and Euler applies"
-                      + ("" if elastic_ok else " (σ_e exceeds the given proportional limit: check the material)")
-                      + ".")
+            work.note(f"About {axis}: KL/r = {lam:.1f} ≥ C_c = {cc:.1f} and {cmp}: buckling is elastic and Euler "
+                      f"applies" + ("" if elastic_ok else " (but σ_e exceeds the given proportional limit: check "
+                                                          "the material)") + ".")
             work.calc(f"sigma_cr_{axis}", f"sigma_e_{axis}", unit=st, desc=f"critical stress about {axis} (Euler)")
             regimes[axis] = "elastic (Euler)"
         else:
-            work.note(f"About {axis}: KL/r = {lam:.1f} < C_c = {cc:.1f}; σ_e would exceed the proportional limit, "
-                      f"so Euler does not apply and the Johnson parabola governs (J. B. Johnson's column formula, "
-                      f"tangent to Euler's curve at σ = F_y/2).")
+            work.note(f"About {axis}: KL/r = {lam:.1f} < C_c = {cc:.1f} and {cmp}: beyond the elastic range Euler "
+                      f"does not apply, and the Johnson parabola governs (J. B. Johnson's column formula, tangent "
+                      f"to Euler's curve at σ = F_y/2).")
             work.calc(f"sigma_cr_{axis}", f"F_y - F_y^2*KL_r_{axis}^2/(4*pi^2*E)", unit=st,
                       desc=f"critical stress about {axis} (Johnson): σ_cr = F_y − F_y²(KL/r)²/(4π²E)")
             regimes[axis] = "inelastic (Johnson)"
