@@ -46,6 +46,7 @@ class JsonPrinter(Printer):
             if step.description:
                 entry["description"] = step.description
             entry["input"] = step.is_input
+            entry["reads"] = list(result.precedents.get(name, []))
             if step.overridden is not None:
                 entry["overridden_from"] = self.value(step.overridden, step.display_unit)
             values[name] = entry
