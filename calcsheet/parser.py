@@ -308,6 +308,8 @@ _HEADING = re.compile(r"(#{1,4})\s+(.*\S)\s*$")
 
 def _strip_trailing(line: str) -> tuple[str, str | None, str | None]:
     """Blank out ``-- description`` and ``// comment`` outside strings; keep columns."""
+    if "--" not in line and "//" not in line:
+        return line, None, None
     in_str = False
     desc_at = comment_at = None
     i = 0
