@@ -49,6 +49,18 @@ def twenty_parts():
     return parts
 
 
+def twenty_part_sheet() -> tuple[str, str]:
+    lines = ['pl = section.rectangle(b=300 mm, h=20 mm, detail="brief")',
+             'ct = section.rectangle(b=22 mm, h=20 mm, detail="brief")']
+    names = []
+    for k in range(10):
+        lines.append(f"p{k} = section.part(shape=pl, y={20 * k} mm)")
+        lines.append(f"h{k} = section.hole(shape=ct, x=60 mm, y={20 * k + 10} mm)")
+        names += [f"p{k}", f"h{k}"]
+    base = "\n".join(lines) + "\n"
+    return base + f"s = section.built_up(parts=[{', '.join(names)}])\n", base
+
+
 def main() -> None:
     print("polygon properties: ours (A, centroid, I_x, I_y, I_xy) vs shapely (area + centroid)")
     print(f"{'vertices':>10} {'ours ms':>10} {'shapely ms':>11} {'ratio':>7} {'growth':>8} {'Z_x ms':>9}")
@@ -76,6 +88,14 @@ def main() -> None:
     parts = twenty_parts()
     t = best_of(lambda: PR.properties(B.assemble(parts).shape), 5)
     print(f"20-part built-up section (10 plates, 10 holes): assembly checks + all properties {t * 1e3:.1f} ms")
+    with_bu, without = twenty_part_sheet()
+    import calcsheet
+
+    calcsheet.run(with_bu)
+    t_with = best_of(lambda: calcsheet.run(with_bu), 3)
+    t_without = best_of(lambda: calcsheet.run(without), 3)
+    print(f"sheet with that built-up section, traced: {t_with * 1e3:.0f} ms; the same sheet with its shapes and "
+          f"parts but no built_up call: {t_without * 1e3:.0f} ms")
 
 
 if __name__ == "__main__":

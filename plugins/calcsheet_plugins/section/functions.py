@@ -30,7 +30,7 @@ from calcsheet.plugin import Field, Namespace, Param
 from . import builtup as B
 from . import shapes as S
 from .fields import section_fields
-from .report import report
+from .report import _q, report, unit
 
 namespace = Namespace(
     "section", version="0.1.0",
@@ -53,7 +53,7 @@ _GEOMETRY: dict[str, object] = {}  # record key (its 'shape' text) -> Shape or P
 
 
 def _mm(q):
-    return None if q is None else float(q.m_as("mm"))
+    return None if q is None else float(q.m_as(unit("mm")))
 
 
 def _build(work, make):
@@ -211,7 +211,7 @@ def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=N
               f"{'mirrored ' + mirror + ', ' if mirror != 'none' else ''}"
               f"rotated {rotate.m_as('deg') if rotate is not None else 0:g}°, {anchor} at "
               f"({_mm(x) or 0:g}, {_mm(y) or 0:g}) mm" + (f", E = {E.m_as('MPa'):g} MPa" if E is not None else ""))
-    return {"A": work.q(abs(b.A), "mm^2"), "x_c": work.q(b.x_c, "mm"), "y_c": work.q(b.y_c, "mm"), "role": role,
+    return {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"), "role": role,
             "shape": key}
 
 

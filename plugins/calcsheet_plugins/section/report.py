@@ -11,6 +11,7 @@ method go through ``work.let`` with the method in the note.
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 from calcsheet import units as U
 
@@ -22,12 +23,18 @@ from .properties import Basic, disagreement, green, properties, tabular
 _COLUMN_SUMS = "sum of the column in the parts table"
 
 
-def _q(value: float, unit: str):
-    return U.Quantity(float(value), unit)
+@lru_cache(maxsize=None)
+def unit(text: str):
+    """A pint Unit parsed once: building quantities from unit strings is slow (pint re-parses each time)."""
+    return U.registry().Unit(text)
+
+
+def _q(value: float, unit_text: str):
+    return U.registry().Quantity(float(value), unit(unit_text))
 
 
 def _mm(q) -> float | None:
-    return None if q is None else float(q.m_as("mm"))
+    return None if q is None else float(q.m_as(unit("mm")))
 
 
 def _snap(v: float, scale: float) -> float:
@@ -66,7 +73,7 @@ def _table_steps(work, shape, transformed: bool) -> None:
     work.let("Sigma_Ay", _q(sAy, "mm^3"), unit="mm^3", desc="first moment about the x axis", note=_COLUMN_SUMS)
     work.calc("x_c", "Sigma_Ax/A", unit="mm", desc="centroid, x")
     work.calc("y_c", "Sigma_Ay/A", unit="mm", desc="centroid, y")
-    xc, yc = work["x_c"].m_as("mm"), work["y_c"].m_as("mm")
+    xc, yc = work["x_c"].m_as(unit("mm")), work["y_c"].m_as(unit("mm"))
     i_scale = sum(abs(r.n) * (abs(r.Iox) + abs(r.Ioy) + r.A * ((r.x - xc) ** 2 + (r.y - yc) ** 2)) for r in rows)
     product = any(abs(r.Ioxy) > 1e-12 * i_scale or abs(r.n * r.A * (r.x - xc) * (r.y - yc)) > 1e-12 * i_scale
                   for r in rows)
@@ -167,7 +174,7 @@ class _Brief:
 
 
 def _engine_basic(work) -> Basic:
-    return Basic(*(work[n].m_as(u) for n, u in (("A", "mm^2"), ("x_c", "mm"), ("y_c", "mm"), ("I_x", "mm^4"),
+    return Basic(*(work[n].m_as(unit(u)) for n, u in (("A", "mm^2"), ("x_c", "mm"), ("y_c", "mm"), ("I_x", "mm^4"),
                                                  ("I_y", "mm^4"), ("I_xy", "mm^4"))))
 
 
@@ -280,7 +287,7 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     if detail == "brief":
         rec.flush()
     _agreement(work, shape, engine, table=detail != "brief")
-    out = {name: work[name].to(UNITS[name]) if name != "theta_p" else work[name] for name in NAMES}
+    out = {name: work[name].to(unit(UNITS[name])) if name != "theta_p" else work[name] for name in NAMES}
     out["shape"] = shape.label
     return out
 
