@@ -395,11 +395,14 @@ class Evaluator:
                     raise PluginInputError(
                         f"{pf.qualname} field '{name}' should be {U.describe_dim(f.dimension)} "
                         f"but is {U.describe_dim(U.dim_of(value))} (plugin bug)", span)
+        absent = {}
         for f in pf.fields:
             if "{i}" not in f.name and f.name not in out:
-                raise PluginInputError(f"{pf.qualname} did not return its field '{f.name}' (plugin bug)", span)
+                if not f.optional:
+                    raise PluginInputError(f"{pf.qualname} did not return its field '{f.name}' (plugin bug)", span)
+                absent[f.name] = f.doc
         return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
-                      declared=declared)
+                      declared=declared, optional=absent)
 
     def plugin_step(self, work: Work, name: str, formula: str, unit: str | None, desc: str | None) -> Step:
         from .parser import parse_expression

@@ -87,13 +87,18 @@ class Param:
 
 @dataclass(frozen=True)
 class Field:
-    """A declared result field. kind: 'quantity', 'number', 'text' or 'record'."""
+    """A declared result field. kind: 'quantity', 'number', 'text' or 'record'.
+
+    An ``optional`` field may be left out of a result (e.g. stresses only when a
+    section is given); reading it then is an error that says why it is absent.
+    """
 
     name: str
     dim: str | None = None
     doc: str = ""
     kind: str | None = None
     record: str | None = None
+    optional: bool = False
 
     @property
     def kind_(self) -> str:
@@ -224,11 +229,16 @@ class Record:
     working: Working | None = None
     source: str = ""  # "section.rectangle"
     declared: dict[str, Field] = field(default_factory=dict)
+    optional: dict[str, str] = field(default_factory=dict)  # absent optional field -> why
 
     def get(self, name: str):
         if name in self.fields:
             return self.fields[name]
         import difflib
+
+        if name in self.optional:
+            raise UnknownFieldError(f"{self.source or self.type} did not produce '{name}' for these arguments",
+                                    hint=self.optional[name] or None)
 
         close = difflib.get_close_matches(name, list(self.fields), n=1)
         hint = f"did you mean '{close[0]}'?" if close else f"fields: {', '.join(self.fields)}"

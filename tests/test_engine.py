@@ -221,3 +221,43 @@ def test_json_has_the_documented_shape_and_reads_back_into_pint(run):
     (c,) = j["checks"]
     assert c == {**c, "line": 7, "text": "s <= 250 MPa", "ok": True}
     assert c["ratio"] == pytest.approx(150 / 250)
+
+
+def test_an_optional_field_may_be_absent_and_reading_it_says_why(run):
+    ns = Namespace("opt")
+
+    @ns.function("f", params=[Param("a", "[length]"), Param("b", "[length]", default=None)],
+                 fields=[Field("x", "[length]"), Field("y", "[length]", doc="give b to get y", optional=True)])
+    def f(work, a, b=None):
+        return {"x": a} if b is None else {"x": a, "y": b}
+
+    reg = PluginRegistry()
+    reg.register(ns)
+    assert run("r = opt.f(a=1 m, b=2 m)\ny = r.y\n", plugins=reg).values["y"].m_as("m") == 2
+    r = run("r = opt.f(a=1 m)\ny = r.y\n", plugins=reg)
+    d = r.errors[0]
+    assert (d.code, d.span.line) == ("unknown-field", 2) and d.hint == "give b to get y"
+
+
+def test_plugin_contract_is_checked_when_a_function_registers():
+    from calcsheet.errors import PluginDefinitionError
+
+    ns = Namespace("bad")
+    with pytest.raises(PluginDefinitionError, match="plugin bad.f.*'zz'"):
+        @ns.function("f", params=[Param("a", "[length]"), Param("zz", "[length]")])
+        def f(work, a):
+            return {}
+    with pytest.raises(PluginDefinitionError, match="not declared"):
+        @ns.function("g", params=[])
+        def g(work, a):
+            return {}
+    with pytest.raises(PluginDefinitionError, match="bad dimension"):
+        @ns.function("h", params=[Param("a", "[lenght]")])
+        def h(work, a):
+            return {}
+
+
+def test_a_plugin_can_be_blocked_by_name(monkeypatch, run):
+    monkeypatch.setenv("CALCSHEET_BLOCK_PLUGINS", "section")
+    r = run("s = section.rectangle(b=1 mm, h=2 mm)\n", plugins=PluginRegistry())
+    assert r.errors[0].code == "unknown-plugin" and "blocked" in (r.errors[0].hint or "")
