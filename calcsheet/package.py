@@ -14,7 +14,7 @@ import pint
 
 from . import __version__
 from .atomic import write_atomic
-from .display import unit_text
+from .display import split_number, unit_text
 from .engine import Result
 from .render.html import HtmlMathPrinter, anchor_id, esc
 from .trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
@@ -235,6 +235,12 @@ class PackageDocument:
     def table(self, t: Table) -> str:
         def cell(v, unit=None):
             if isinstance(v, pint.Quantity):
+                if unit is not None:  # the unit is in the column head: the cell shows the number
+                    try:
+                        mag = float(v.to(unit).magnitude)
+                    except (pint.DimensionalityError, TypeError):
+                        return self.printer.value(v, unit)
+                    return self.printer.m_number(*split_number(mag, self.printer.settings["sigfigs"]))
                 return self.printer.value(v, unit)
             if isinstance(v, float):
                 return esc(f"{v:.4g}")
