@@ -211,6 +211,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
     env: dict[str, Any] = {}
     display: dict[str, Any] = {}
     check_no = 0
+    source_lines = result.source.split("\n")
     for stmt in sheet.body:
         if isinstance(stmt, N.Heading):
             result.items.append(TR.Heading(stmt.text, stmt.level))
@@ -250,7 +251,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
                                           (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None))
                 check_no += 1
                 check.anchor = f"check-{check_no}"
-                check.text = _check_text(stmt, result.source)
+                check.text = _check_text(stmt, source_lines)
                 result.checks.append(check)
                 result.items.append(check)
         except CalcError as exc:
@@ -269,10 +270,9 @@ def _with_expr(stmt: N.Definition, expr: N.Expr) -> N.Definition:
     return dataclasses.replace(stmt, expr=expr)
 
 
-def _check_text(stmt: N.Check, source: str) -> str:
+def _check_text(stmt: N.Check, lines: list[str]) -> str:
     """The check as written in the sheet, without 'check' and its description."""
     a, b = stmt.left.span, stmt.right.span
-    lines = source.split("\n")
     if a is None or b is None:
         return ""
     if a.line == b.end_line:

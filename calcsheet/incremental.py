@@ -203,7 +203,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
                 new_steps[key] = step
             else:
                 check = ev.evaluate_check(stmt, env, unit_of)
-                check.text = _check_text(stmt, source)
+                check.text = _check_text(stmt, source.split("\n"))
                 new_checks[key] = check
         except CalcError:
             raise _FullRun(f"{key} now raises an error") from None
