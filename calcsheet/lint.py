@@ -36,6 +36,33 @@ class Constants:
     def __init__(self, checker: "Checker"):
         self.checker = checker
         self.memo: dict[str, object] = {}
+        self.foldable_names: dict[str, bool] = {}
+
+    def foldable(self, node) -> bool:
+        """Whether a value is made of literals only (decided without pint, so cheap to ask often)."""
+        stack = [node]
+        while stack:
+            n = stack.pop()
+            if isinstance(n, N.Number):
+                continue
+            if isinstance(n, N.Name):
+                if n.id == "pi":
+                    continue
+                known = self.foldable_names.get(n.id)
+                if known is None:
+                    res = self.checker.res
+                    stmt = res.statements.get(n.id) if res else None
+                    self.foldable_names[n.id] = False  # guards against cycles
+                    known = isinstance(stmt, N.Definition) and self.foldable(stmt.expr)
+                    self.foldable_names[n.id] = known
+                if not known:
+                    return False
+                continue
+            if isinstance(n, (N.Paren, N.Neg, N.BinOp)):
+                stack.extend(n.children())
+                continue
+            return False
+        return True
 
     def of_name(self, name: str):
         if name in self.memo:
@@ -56,6 +83,8 @@ class Constants:
 
     def of(self, node):
         """A pint Quantity, or None when the value is not known without evaluating."""
+        if not self.foldable(node):
+            return None
         try:
             return self._of(node)
         except Exception:  # any pint complaint means: not a plain constant
