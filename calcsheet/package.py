@@ -101,7 +101,7 @@ class PackageDocument:
         cells["date"] = esc(date)
         return f"""<header class="titleblock"><table>
 <tr><th>Project</th><td colspan="3" class="project">{cells['project']}</td><th>Job</th><td>{cells['job']}</td>
-<th>Sheet</th><td class="pageno"><span class="pn-screen">1 of 1</span></td></tr>
+<th>Sheet</th><td class="pageno"><span class="pn-screen">—</span></td></tr>
 <tr><th>Subject</th><td colspan="3">{cells['subject']}</td><th>By</th><td>{cells['by']}</td>
 <th>Date</th><td>{cells['date']}</td></tr>
 <tr><th>Checked</th><td colspan="3">{cells['checked']}</td><th>Rev</th><td>{cells['rev']}</td>
