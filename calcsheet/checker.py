@@ -310,8 +310,11 @@ class Checker:
         """A function whose result is this record type (all makers share one field set)."""
         if not record_type:
             return None
-        ns = self.plugins.namespace(record_type.split(".")[0]) if self.plugins.is_namespace(
-            record_type.split(".")[0]) else None
+        try:
+            ns = self.plugins.namespace(record_type.split(".")[0]) if self.plugins.is_namespace(
+                record_type.split(".")[0]) else None
+        except Exception:  # a plugin that fails to load is reported where it is called
+            return None
         if ns is None:
             return None
         for pf in ns.functions.values():

@@ -86,3 +86,9 @@ def test_known_codes_cover_every_documented_code():
     doc = (Path(__file__).parents[2] / "docs" / "diagnostics.md").read_text(encoding="utf-8")
     documented = set(re.findall(r"^## `([a-z0-9-]+)`", doc, re.M))
     assert documented == known_codes()
+
+
+def test_a_check_can_carry_an_allow_too():
+    r = calcsheet.run("W = 22 kN\ncheck W <= 0 kN  // allow no-utilisation: uplift must be zero; shown NG on purpose\n",
+                      evaluate=False)
+    assert active(r) == [] and [d.code for d in r.diagnostics if d.suppressed] == ["no-utilisation"]
