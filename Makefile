@@ -21,7 +21,7 @@ demo: $(STAMP)
 	$(BIN)/calcsheet build sheets/*.calc -o out --format html,pdf,json
 
 test: $(STAMP)
-	$(BIN)/python -m pytest
+	$(BIN)/python -m pytest -q
 
 bench: $(STAMP)
 	for b in benchmarks/bench_*.py; do $(BIN)/python $$b || exit 1; done

@@ -103,8 +103,8 @@ class CalcError(Exception):
         return Diagnostic(self.severity, self.code, self.message, self.span or NO_SPAN, self.hint, path)
 
 
-def _error(name: str, code: str, doc: str) -> type[CalcError]:
-    return type(name, (CalcError,), {"code": code, "__doc__": doc})
+def _error(name: str, code: str, doc: str, severity: str = "error") -> type[CalcError]:
+    return type(name, (CalcError,), {"code": code, "severity": severity, "__doc__": doc})
 
 
 SheetSyntaxError = _error("SheetSyntaxError", "syntax", "The text is not a valid statement.")
@@ -154,35 +154,30 @@ class SheetErrors(Exception):
 # fix travels in the hint.
 
 
-def _finding(name: str, code: str, doc: str, base: type[CalcError] = CalcError,
-             severity: str = "error") -> type[CalcError]:
-    return type(name, (base,), {"code": code, "severity": severity, "__doc__": doc})
-
-
-OffsetTemperatureError = _finding(
+OffsetTemperatureError = _error(
     "OffsetTemperatureError", "offset-temperature",
     "A temperature on an offset scale (degC, degF) is used in arithmetic.")
-ImplausibleValueWarning = _finding(
+ImplausibleValueWarning = _error(
     "ImplausibleValueWarning", "implausible-value",
     "A named quantity lies outside the range its kind has in practice.", severity="warning")
-UnitSlipWarning = _finding(
+UnitSlipWarning = _error(
     "UnitSlipWarning", "unit-slip",
     "A section property looks like a table value written in the wrong unit (cm⁴ as mm⁴).", severity="warning")
-UnitShadowsVariableWarning = _finding(
+UnitShadowsVariableWarning = _error(
     "UnitShadowsVariableWarning", "unit-shadows-variable",
     "A number is followed by a unit whose name is also a variable of the sheet (2 L is 2 litres).",
     severity="warning")
-UnusedInputWarning = _finding(
+UnusedInputWarning = _error(
     "UnusedInputWarning", "unused-input", "An input is defined but nothing uses it.", severity="warning")
-NoUtilisationWarning = _finding(
+NoUtilisationWarning = _error(
     "NoUtilisationWarning", "no-utilisation",
     "A check's utilisation (demand/capacity) cannot be formed.", severity="warning")
-UnusualUnitInfo = _finding(
+UnusualUnitInfo = _error(
     "UnusualUnitInfo", "unusual-unit",
     "A declared [unit] is valid but unusual for what the name says the value is.", severity="info")
-SuppressionError = _finding(
+SuppressionError = _error(
     "SuppressionError", "bad-suppression",
     "An '// allow' comment is malformed, names an unknown code, or tries to hide an error.", severity="warning")
-UnusedSuppressionWarning = _finding(
+UnusedSuppressionWarning = _error(
     "UnusedSuppressionWarning", "unused-suppression",
     "An '// allow' comment allows a code that does not occur on its line.", severity="warning")
