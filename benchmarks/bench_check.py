@@ -22,6 +22,7 @@ from pathlib import Path
 
 from calcsheet.engine import read_source, run
 from calcsheet.parser import parse_sheet
+from timing import best
 
 REPO = Path(__file__).resolve().parents[1]
 
@@ -50,14 +51,6 @@ def make_sheet(n_lines: int) -> str:
         i += 1
     return "\n".join(lines[:n_lines]) + "\n"
 
-
-def best(fn, repeat: int) -> float:
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
 
 
 def compare(label: str, source, repeat: int) -> float:

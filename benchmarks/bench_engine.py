@@ -15,6 +15,7 @@ from pathlib import Path
 
 import calcsheet
 from calcsheet import units as U
+from timing import best
 
 
 def make_sheet(n: int) -> str:
@@ -45,14 +46,6 @@ def plain_pint(n: int):
         out[i] = (L, w, M, s, s <= Q(250, MPa))
     return out
 
-
-def best(fn, repeat=3):
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
 
 
 def main() -> None:

@@ -16,6 +16,7 @@ from pathlib import Path
 import calcsheet
 from calcsheet.incremental import rebuild, recompute
 from calcsheet.package import PackageDocument, pdf_bytes
+from timing import best
 
 ROOT = Path(__file__).resolve().parent.parent
 
@@ -35,14 +36,6 @@ def make_sheet(n_lines: int) -> str:
         i += 1
     return "\n".join(lines[:n_lines]) + "\n"
 
-
-def best(fn, repeat=5) -> float:
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
 
 
 def bench_incremental(n_lines: int = 1000) -> bool:
