@@ -125,9 +125,9 @@ class Checker:
         """An error in a statement with ``2 L`` (L a variable) most likely comes from that literal."""
         if self._shadows:
             lit = self._shadows[0]
-            name = lit.unit[0][0]
+            name, fix = lint.shadowing_factor(lit, self.defined)
             note = (f"'{lit.text} {lit.unit_text}' reads {name} as a unit ({lint.unit_words(name)}), "
-                    f"not the variable {name} defined on line {self.defined[name]}: write {lit.text}*{name}")
+                    f"not the variable {name} defined on line {self.defined[name]}: write {fix}")
             exc.hint = f"{note}; {exc.hint}" if exc.hint else note
         return exc
 
@@ -187,9 +187,10 @@ class Checker:
     def _infer_Number(self, node: N.Number) -> T:
         if not node.unit:
             return NUMBER
-        if len(node.unit) == 1 and node.unit[0][0] in self.defined:
+        shadow = lint.shadowing_factor(node, self.defined)
+        if shadow is not None:
             self._shadows.append(node)
-            self.shadowed.add(node.unit[0][0])
+            self.shadowed.add(shadow[0])
         try:
             unit = U.build_unit(node.unit)
         except UnknownUnitError as exc:

@@ -283,17 +283,36 @@ def unit_words(symbol: str) -> str:
     return _WORDS.get(name, name.replace("_", " "))
 
 
+def shadowing_factor(lit: N.Number, defined: dict[str, int]) -> tuple[str, str] | None:
+    """The first unit name in a literal that is also a sheet variable, and how to write the product.
+
+    ``2 L`` -> ('L', '2*L'); ``0.65 kPa*s`` -> ('s', '0.65 kPa * s') (a unit runs on through
+    ``*name`` only for names of the unit vocabulary, such as s, t, L, h).
+    """
+    for i, (name, exp) in enumerate(lit.unit):
+        if name in defined:
+            if i == 0:
+                return name, f"{lit.text}*{name}"
+            head = lit.unit_text
+            cut = max(head.rfind(op, 0, head.find(name, len(lit.unit[0][0]))) for op in "*/·")
+            op = head[cut] if cut >= 0 else "*"
+            return name, f"{lit.text} {head[:cut]} {op} {head[cut + 1:]}" if cut >= 0 else f"{lit.text}*{name}"
+    return None
+
+
 def shadow_warnings(literals: list[N.Number], defined: dict[str, int], path: str) -> list[Diagnostic]:
     out = []
     for lit in literals:
-        name = lit.unit[0][0]
+        name, fix = shadowing_factor(lit, defined)
         meaning = unit_words(name)
         s = lit.span
         span = type(s)(s.end_line, s.end_col - len(lit.unit_text), s.end_line, s.end_col)
+        what = (f"{lit.text} {meaning}{'s' if lit.value != 1 else ''}" if len(lit.unit) == 1
+                else f"{name} there is the unit {meaning}")
         out.append(UnitShadowsVariableWarning(
-            f"'{lit.text} {lit.unit_text}' is {lit.text} {meaning}{'s' if lit.value != 1 else ''}: "
+            f"'{lit.text} {lit.unit_text}' is {what}: "
             f"{name} after a number is the unit, not the variable {name} defined on line {defined[name]}",
-            span, hint=f"to multiply by the variable write {lit.text}*{name}; to keep the unit, rename the "
+            span, hint=f"to multiply by the variable write {fix}; to keep the unit, rename the "
                        f"variable (e.g. {name}_1) so a reader cannot confuse them").diagnostic(path))
     return out
 

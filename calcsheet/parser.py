@@ -27,6 +27,10 @@ MAX_NUMBER_CHARS = 40
 def _lark() -> Lark:
     """The parser, with our transformer applied during parsing: no parse tree is built."""
     grammar = resources.files("calcsheet").joinpath("grammar.lark").read_text(encoding="utf-8")
+    from .units import VOCABULARY
+
+    names = sorted((n for n in VOCABULARY if re.fullmatch(r"[^\W\d]\w*", n)), key=len, reverse=True)
+    grammar = grammar.replace("{unit_names}", "|".join(re.escape(n) for n in names))
     return Lark(grammar, parser="lalr", lexer="contextual", maybe_placeholders=True, transformer=_TRANSFORMER)
 
 

@@ -184,3 +184,14 @@ def test_huge_sheet_is_refused():
 def test_long_number_literal_is_refused():
     d = diags_of("x = " + "9" * 100 + "\n")
     assert d and d[0].code == "too-complex"
+
+
+def test_only_unit_names_continue_a_unit_after_an_operator():
+    # the sheet's own names are operands: 2 kN / a, 275 MPa · sec.S_x
+    e = parse_expression("2 kN/a")
+    assert isinstance(e, N.Div) and e.left.unit == (("kN", 1.0),) and e.right.id == "a"
+    e = parse_expression("275 MPa*sec.S_x")
+    assert isinstance(e, N.Mul) and isinstance(e.right, N.FieldAccess)
+    assert parse_expression("3 kN*m/rad").unit == (("kN", 1.0), ("m", 1.0), ("rad", -1.0))
+    # a vocabulary name still continues the unit (the checker warns when it is also a variable)
+    assert parse_expression("0.65 kPa*s").unit == (("kPa", 1.0), ("s", 1.0))
