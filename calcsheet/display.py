@@ -29,11 +29,18 @@ class DisplayPolicy:
 
 
 def _magnitude_hint(q: pint.Quantity) -> float | None:
+    """The size of a value in SI base units, to pick mm or m, kPa or MPa."""
     try:
-        m = q.to_base_units().magnitude
-        return abs(float(m)) if not hasattr(m, "__len__") else float(abs(m).max())
+        m = q.magnitude
+        m = abs(float(m)) if not hasattr(m, "__len__") else float(abs(m).max())
+        return m * _base_factor(q.units)
     except Exception:
         return None
+
+
+@lru_cache(maxsize=4096)
+def _base_factor(unit: pint.Unit) -> float:
+    return float(U.registry().Quantity(1.0, unit).to_base_units().magnitude)
 
 
 def _u(text: str) -> pint.Unit:

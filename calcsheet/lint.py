@@ -245,7 +245,7 @@ def check_findings(stmt: N.Check, checker: "Checker", path: str) -> list[Diagnos
     """A check whose capacity side is a constant zero or negative has no utilisation."""
     demand_node, capacity_node = (stmt.left, stmt.right) if stmt.op in ("<=", "<") else (stmt.right, stmt.left)
     capacity = checker.consts.of(capacity_node)
-    demand = checker.consts.of(demand_node)
+    demand = _fold_from_inputs(demand_node, checker)
     out = []
     try:
         cap_m = None if capacity is None else float(capacity.magnitude)
@@ -263,6 +263,21 @@ def check_findings(stmt: N.Check, checker: "Checker", path: str) -> list[Diagnos
             f"the demand side of this check ({_side(demand_node)}) is negative, so its utilisation cannot be formed",
             demand_node.span, hint="compare magnitudes: check abs(x) <= limit").diagnostic(path))
     return out
+
+
+def _fold_from_inputs(node, checker: "Checker"):
+    """The constant value of a side that reads only literals and inputs, else None.
+
+    Used for the demand side: folding every calculated demand would evaluate the
+    sheet a second time inside the static check, while a negative demand that
+    matters is nearly always written from inputs. (Capacities are folded fully:
+    they are few and short.)
+    """
+    res = checker.res
+    inputs = set(res.inputs) if res else set()
+    if any(isinstance(n, N.Name) and n.id != "pi" and n.id not in inputs for n in N.walk(node)):
+        return None
+    return checker.consts.of(node)
 
 
 def _side(node) -> str:
