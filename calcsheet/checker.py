@@ -331,8 +331,34 @@ class Checker:
         items = [self.infer(i) for i in node.items]
         return T("list", item=items[0] if items else ANY)
 
+    def _infer_Compare(self, node: N.Compare) -> T:
+        raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span,
+                                hint="write if(a <= b, value, otherwise)")
+
+    def _infer_if(self, node: N.Call) -> T:
+        if len(node.args) != 3:
+            raise TypeMismatchError(f"if() takes 3 arguments (condition, value, otherwise), got {len(node.args)}",
+                                    node.span)
+        cond, then, otherwise = node.args
+        if not isinstance(cond, N.Compare):
+            raise TypeMismatchError("if() needs a comparison first: if(a <= b, value, otherwise)", cond.span)
+        a = self._quantity(self.infer(cond.left), cond.left)
+        b = self._quantity(self.infer(cond.right), cond.right)
+        if a.kind == "q" and b.kind == "q" and a.dim != b.dim:
+            raise DimensionError(f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", cond.span,
+                                 hint="both sides of the condition must have the same dimension")
+        x, y = self.infer(then), self.infer(otherwise)
+        if x.kind == "any" or y.kind == "any":
+            return ANY
+        if x.kind != y.kind or (x.kind == "q" and x.dim != y.dim):
+            raise DimensionError(f"the two values of if() differ: {x.describe()} and {y.describe()}", node.span,
+                                 hint="both outcomes must have the same dimension")
+        return x
+
     def _infer_Call(self, node: N.Call) -> T:
         name = node.func
+        if name == "if":
+            return self._infer_if(node)
         args = [self._quantity(self.infer(a), a) for a in node.args]
         if not args:
             raise TypeMismatchError(f"{name}() needs an argument", node.span)

@@ -38,7 +38,7 @@ INVERSE_TRIG = {"asin": math.asin, "acos": math.acos, "atan": math.atan}
 TRANSCENDENTAL = {"exp": math.exp, "ln": math.log, "log10": math.log10}
 FUNCTIONS = {
     "sqrt": (1, 1), "abs": (1, 1), "min": (1, None), "max": (1, None), "atan2": (2, 2),
-    "ceil": (1, 1), "floor": (1, 1),
+    "ceil": (1, 1), "floor": (1, 1), "if": (3, 3),
     **{f: (1, 1) for f in TRIG}, **{f: (1, 1) for f in INVERSE_TRIG}, **{f: (1, 1) for f in TRANSCENDENTAL},
 }
 
@@ -233,6 +233,8 @@ class Evaluator:
         if len(node.args) < lo or (hi is not None and len(node.args) > hi):
             want = f"{lo}" if lo == hi else f"at least {lo}"
             raise TypeMismatchError(f"{name}() takes {want} argument(s), got {len(node.args)}", node.span)
+        if name == "if":
+            return self._eval_if(node, env, used)
         args = [self._need_quantity(self.eval(a, env, used), a.span) for a in node.args]
         x = args[0]
         span = node.span
@@ -280,6 +282,32 @@ class Evaluator:
             v = self._plain(x, name, node.args[0].span)
             return self.number(float(math.ceil(v) if name == "ceil" else math.floor(v)))
         raise UnknownFunctionError(f"unknown function '{name}'", span)  # pragma: no cover
+
+    def _eval_if(self, node: N.Call, env, used):
+        cond, then, otherwise = node.args
+        if not isinstance(cond, N.Compare):
+            raise TypeMismatchError("if() needs a comparison first: if(a <= b, value, otherwise)", cond.span)
+        a = self._need_quantity(self.eval(cond.left, env, used), cond.left.span)
+        b = self._need_quantity(self.eval(cond.right, env, used), cond.right.span)
+        if U.dim_of(a) != U.dim_of(b):
+            raise DimensionError(f"cannot compare {U.describe_dim(U.dim_of(a))} with {U.describe_dim(U.dim_of(b))}",
+                                 cond.span, hint=f"left is {_show(a)}, right is {_show(b)}")
+        am, bm = float(a.magnitude), float(b.to(a.units).magnitude)
+        chosen, skipped = (then, otherwise) if _COMPARE[cond.op](am, bm) else (otherwise, then)
+        value = self.eval(chosen, env, used)
+        if used is not None:  # the branch not taken is printed with its values too
+            for n in N.walk(skipped):
+                if isinstance(n, N.Name) and n.id in env:
+                    used.setdefault(n.id, env[n.id])
+        other = self.eval(skipped, env, None) if _plain_branch(skipped, env) else None
+        if isinstance(value, pint.Quantity) and isinstance(other, pint.Quantity) and \
+                U.dim_of(value) != U.dim_of(other):
+            raise DimensionError("the two values of if() have different dimensions", node.span,
+                                 hint=f"{_show(value)} and {_show(other)}")
+        return value
+
+    def _eval_Compare(self, node, env, used):
+        raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span)
 
     def _plain(self, x, name, span) -> float:
         if U.dim_of(x) != U.DIMENSIONLESS:
@@ -493,6 +521,13 @@ class Evaluator:
 
 
 _DISPATCH: dict = {}
+_COMPARE = {"<=": lambda a, b: a <= b, "<": lambda a, b: a < b, ">=": lambda a, b: a >= b,
+            ">": lambda a, b: a > b}
+
+
+def _plain_branch(node, env) -> bool:
+    """A branch cheap and safe to evaluate for its dimension (no plugin calls)."""
+    return not any(isinstance(n, (N.PluginCall, N.Call)) for n in N.walk(node))
 
 
 def literal_unit(expr: N.Expr):

@@ -88,6 +88,17 @@ BINOPS: dict[str, type[BinOp]] = {cls.op: cls for cls in (Add, Sub, Mul, Div, Po
 
 
 @dataclass(frozen=True)
+class Compare(Expr):
+    """``a <= b`` as the condition of ``if(a <= b, x, y)``."""
+
+    left: Expr
+    op: str
+    right: Expr
+    span: Span | None = field(default=None, compare=False)
+    _children: tuple[str, ...] = field(default=("left", "right"), init=False, repr=False, compare=False)
+
+
+@dataclass(frozen=True)
 class Keyword(Node):
     name: str
     value: Expr

@@ -191,6 +191,11 @@ class _ToAst(Transformer):
         return N.FieldAccess(obj=obj, field_name=str(name_tok), span=_span_of(obj, name_tok),
                              field_span=_tok_span(name_tok, self.off))
 
+    def compare(self, children):
+        left, op, right = children
+        op = {"≤": "<=", "≥": ">="}.get(str(op), str(op))
+        return N.Compare(left=left, op=op, right=right, span=_span_of(left, right))
+
     def kwarg(self, children):
         name_tok, value = children
         return N.Keyword(name=str(name_tok), value=value, span=_span_of(name_tok, value))

@@ -261,3 +261,26 @@ def test_a_plugin_can_be_blocked_by_name(monkeypatch, run):
     monkeypatch.setenv("CALCSHEET_BLOCK_PLUGINS", "section")
     r = run("s = section.rectangle(b=1 mm, h=2 mm)\n", plugins=PluginRegistry())
     assert r.errors[0].code == "unknown-plugin" and "blocked" in (r.errors[0].hint or "")
+
+
+# ------------------------------------------------------------------ conditionals
+
+def test_if_picks_the_branch_its_condition_selects(run):
+    # depth factor in the style of a timber code: k_h = 1 for h <= 150 mm, else (150/h)^0.2 (invented limits)
+    r = run("h = 220 mm\nk_h = if(h <= 150 mm, 1.0, (150 mm / h)^0.2)\n"
+            "g = 120 mm\nk_g = if(g <= 150 mm, 1.0, (150 mm / g)^0.2)\n")
+    assert r.ok, r.format_diagnostics()
+    assert r.values["k_h"].m_as("") == pytest.approx((150 / 220) ** 0.2)
+    assert r.values["k_g"].m_as("") == pytest.approx(1.0)
+
+
+@pytest.mark.parametrize("sheet, code, col", [
+    ("h = 2 m\nk = if(h <= 3 kN, 1, 2)\n", "dimension-mismatch", 8),
+    ("h = 2 m\nk = if(h <= 3 m, 1, 2 m)\n", "dimension-mismatch", 5),
+    ("h = 2 m\nk = if(h, 1, 2)\n", "type-mismatch", 8),
+    ("h = 2 m\nk = if(h <= 3 m, 1)\n", "type-mismatch", 5),
+    ("h = 2 m\nk = max(h <= 3 m, 1)\n", "type-mismatch", 9),
+])
+def test_if_errors(run, sheet, code, col):
+    r = run(sheet)
+    assert (r.errors[0].code, r.errors[0].span.line, r.errors[0].span.col) == (code, 2, col), r.format_diagnostics()

@@ -112,6 +112,15 @@ class HtmlMathPrinter(MathPrinter):
     def m_list(self, items):
         return "[" + ", ".join(items) + "]"
 
+    def m_compare(self, left, op, right):
+        sym = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}[op]
+        return f'{left}<span class="op">{sym}</span>{right}'
+
+    def m_cases(self, then, cond, otherwise):
+        return (f'<span class="cases"><span class="brace">{{</span><span class="rows">'
+                f'<span class="row">{then}<span class="when">if</span>{cond}</span>'
+                f'<span class="row">{otherwise}<span class="when">otherwise</span></span></span></span>')
+
     # ------------------------------------------------------------ trace records
     def step_parts(self, step: Step, link=None) -> list[str]:
         """The chain symbol = formula = substitution = result, each already HTML."""

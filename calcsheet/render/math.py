@@ -129,7 +129,13 @@ class MathPrinter(Printer):
             self._values = exponent_values
         return self.m_pow(base, exponent)
 
+    def _print_Compare(self, node: N.Compare, ctx):
+        return self.m_compare(self._print(node.left, 0), node.op, self._print(node.right, 0))
+
     def _print_Call(self, node: N.Call, ctx):
+        if node.func == "if" and len(node.args) == 3:
+            cond, then, otherwise = (self._print(_unparen(a), 0) for a in node.args)
+            return self.m_cases(then, cond, otherwise)
         args = [self._print(_unparen(a), 0) for a in node.args]
         if node.func == "sqrt" and len(args) == 1:
             return self.m_sqrt(args[0])
@@ -165,6 +171,8 @@ class MathPrinter(Printer):
     def m_call(self, func, args, plugin=False): raise NotImplementedError
     def m_keyword(self, name, value): raise NotImplementedError
     def m_list(self, items): raise NotImplementedError
+    def m_compare(self, left, op, right): raise NotImplementedError
+    def m_cases(self, then, cond, otherwise): raise NotImplementedError
 
 
 def _unparen(node):

@@ -52,6 +52,12 @@ class TextPrinter(MathPrinter):
     def m_keyword(self, name, value): return f"{name}={value}"
     def m_list(self, items): return "[" + ", ".join(items) + "]"
 
+    def m_compare(self, left, op, right):
+        return f"{left} {({'<=': '≤', '>=': '≥'}).get(op, op)} {right}"
+
+    def m_cases(self, then, cond, otherwise):
+        return f"({then} if {cond}, else {otherwise})"
+
     # ------------------------------------------------------------ trace records
     def step(self, step: Step) -> str:
         lhs = self.m_name(step.name)

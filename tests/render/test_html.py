@@ -49,3 +49,8 @@ def test_package_carries_the_caution_hash_and_versions():
     h = PackageDocument(r).html()
     assert "not a substitute for" in h and "governing local codes" in h
     assert r.sha256 in h and f"calcsheet {calcsheet.__version__}" in h
+
+
+def test_a_conditional_is_a_brace_with_its_cases():
+    h = HtmlMathPrinter().expr(parse_expression("if(h <= 150 mm, 1, 2)"))
+    assert '<span class="cases">' in h and h.count('<span class="row">') == 2 and "otherwise" in h

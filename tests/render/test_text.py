@@ -53,3 +53,8 @@ def test_large_numbers_use_powers_of_ten():
 def test_sigfigs_from_front_matter():
     out = lines("---\nsigfigs: 5\n---\nL = 2 m\nx = L/3\n")
     assert out[-1] == "x = L/3 = 2.0000 m / 3 = 666.67 mm"
+
+
+def test_a_conditional_prints_both_outcomes_with_values():
+    out = lines("h = 220 mm\nx = if(h > 100 mm, h, 2*h)\n")
+    assert out[-1] == "x = (h if h > 100 mm, else 2·h) = (220 mm if 220 mm > 100 mm, else 2 · 220 mm) = 220 mm"
