@@ -208,7 +208,7 @@ def cmd_check(args) -> int:
                 print(d.one_line())
         else:
             for d in active:
-                print(R.human(d, result.source))
+                print(R.human(d, result.source_for(d)))
             print(R.summary(str(sheet), active, suppressed))
         code = R.exit_status(active, args.strict)
         if code == EXIT_ERRORS or (code == EXIT_NG and status == EXIT_OK):

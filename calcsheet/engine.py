@@ -85,8 +85,20 @@ class Result:
 
         return JsonPrinter().result(self)
 
+    @property
+    def includes(self) -> list[tuple[str, str]]:
+        """(path, text) of every included sheet, in the order first included."""
+        return list(self.sheet.includes) if self.sheet is not None else []
+
+    def source_for(self, diagnostic: Diagnostic) -> str:
+        """The text a diagnostic points into: the sheet's own, or an included file's."""
+        for path, text in self.includes:
+            if diagnostic.path == path:
+                return text
+        return self.source
+
     def format_diagnostics(self) -> str:
-        return "\n".join(d.format(self.source) for d in self.diagnostics)
+        return "\n".join(d.format(self.source_for(d)) for d in self.diagnostics)
 
 
 def _policy(meta: dict, diags: list[Diagnostic], path: str) -> DisplayPolicy:
@@ -150,7 +162,7 @@ def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | No
         _check_override_dim(name, expr, checker, result)
     if evaluate:
         _evaluate(sheet, res, result, plugins, override_exprs)
-    result.diagnostics.sort(key=lambda d: (d.span.line, d.span.col))
+    result.diagnostics.sort(key=lambda d: (d.path != path, d.path, d.span.line, d.span.col))
     from .suppress import apply_suppressions  # `// allow <code>: <reason>` on a statement
 
     result.diagnostics = apply_suppressions(sheet, result.diagnostics, path, evaluated=evaluate)
@@ -212,6 +224,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
     display: dict[str, Any] = {}
     check_no = 0
     source_lines = result.source.split("\n")
+    included_lines: dict[str, list[str]] = {}
     for stmt in sheet.body:
         if isinstance(stmt, N.Heading):
             result.items.append(TR.Heading(stmt.text, stmt.level))
@@ -251,7 +264,11 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
                                           (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None))
                 check_no += 1
                 check.anchor = f"check-{check_no}"
-                check.text = _check_text(stmt, source_lines)
+                lines = source_lines
+                if stmt.span is not None and stmt.span.path:
+                    lines = included_lines.setdefault(stmt.span.path, dict(result.includes).get(
+                        stmt.span.path, "").split("\n"))
+                check.text = _check_text(stmt, lines)
                 result.checks.append(check)
                 result.items.append(check)
         except CalcError as exc:

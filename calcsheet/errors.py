@@ -10,12 +10,16 @@ from dataclasses import dataclass, field
 
 @dataclass(frozen=True)
 class Span:
-    """Where a piece of sheet text sits: 1-based line and column, end exclusive."""
+    """Where a piece of sheet text sits: 1-based line and column, end exclusive.
+
+    ``path`` is set only for text from an included file (None: the sheet itself).
+    """
 
     line: int
     col: int
     end_line: int
     end_col: int
+    path: str | None = None
 
     @classmethod
     def point(cls, line: int, col: int) -> "Span":
@@ -26,7 +30,11 @@ class Span:
             return self
         start = min((self.line, self.col), (other.line, other.col))
         end = max((self.end_line, self.end_col), (other.end_line, other.end_col))
-        return Span(start[0], start[1], end[0], end[1])
+        return Span(start[0], start[1], end[0], end[1], self.path)
+
+    def where(self) -> str:
+        """'line 12', or 'loads.calc line 12' for an included file."""
+        return f"{self.path} line {self.line}" if self.path else f"line {self.line}"
 
 
 NO_SPAN = Span(1, 1, 1, 2)
@@ -100,7 +108,8 @@ class CalcError(Exception):
         return self
 
     def diagnostic(self, path: str = "<sheet>") -> Diagnostic:
-        return Diagnostic(self.severity, self.code, self.message, self.span or NO_SPAN, self.hint, path)
+        span = self.span or NO_SPAN
+        return Diagnostic(self.severity, self.code, self.message, span, self.hint, span.path or path)
 
 
 def _error(name: str, code: str, doc: str, severity: str = "error") -> type[CalcError]:

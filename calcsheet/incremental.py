@@ -51,6 +51,8 @@ def recompute(previous: Result, overrides: dict[str, Any] | None, *, plugins=Non
     try:
         if not _clean(previous):
             raise _FullRun("the previous run had errors")
+        if previous.includes:
+            raise _FullRun("the sheet includes other files (they may have changed)")
         exprs = _override_exprs(previous, overrides)
         roots = set(exprs) | set(previous.overrides)
         result, keys = _reevaluate(previous, {}, exprs, roots, previous.source, previous.sheet, plugins)
@@ -73,6 +75,8 @@ def rebuild(previous: Result | None, source: str, *, overrides: dict[str, Any] |
             raise _FullRun("no previous run")
         if not _clean(previous):
             raise _FullRun("the previous run had errors")
+        if previous.includes:
+            raise _FullRun("the sheet includes other files (they may have changed)")
         new_stmts, sheet = _edited_inputs(previous, source, plugins)
         exprs = _override_exprs(previous, overrides)
         roots = set(new_stmts) | set(exprs) | set(previous.overrides)

@@ -223,6 +223,7 @@ class Sheet(Node):
     body: tuple[Statement, ...]
     path: str = "<sheet>"
     source: str = field(default="", repr=False, compare=False)
+    includes: tuple[tuple[str, str], ...] = field(default=(), repr=False, compare=False)  # (path, text)
     _children: tuple[str, ...] = field(default=("body",), init=False, repr=False, compare=False)
 
     @property

@@ -111,8 +111,13 @@ class PackageDocument:
     def footer(self) -> str:
         r = self.result
         plugins = ", ".join(f"{esc(n)} {esc(v)}" for n, v in sorted(r.plugin_versions.items())) or "none"
+        import hashlib
+
+        included = "".join(
+            f'<div>Includes {esc(p)} · sha256 <span class="hash">'
+            f'{esc(hashlib.sha256(t.encode("utf-8")).hexdigest())}</span></div>' for p, t in r.includes)
         return (f'<footer class="stamp"><div>Source {esc(Path(r.path).name)} · sha256 '
-                f'<span class="hash">{esc(r.sha256)}</span></div>'
+                f'<span class="hash">{esc(r.sha256)}</span></div>{included}'
                 f'<div>calcsheet {esc(__version__)} · plugins: {plugins}</div>'
                 f'<div class="caution-short">An aid to, not a substitute for, a licensed engineer\'s judgement; '
                 f'check against the governing local codes.</div></footer>')

@@ -416,8 +416,13 @@ def _parse_front_matter(lines: list[str], path: str) -> tuple[dict, int, list[Di
     return meta, len(lines), diags
 
 
-def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True) -> tuple[N.Sheet, list[Diagnostic]]:
-    """The whole sheet. With ``collect`` every syntax error is returned; otherwise the first is raised."""
+def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
+                _includes: "_IncludeState | None" = None) -> tuple[N.Sheet, list[Diagnostic]]:
+    """The whole sheet. With ``collect`` every syntax error is returned; otherwise the first is raised.
+
+    ``include "file.calc"`` lines splice another sheet's body in at that point; see ``_include``.
+    """
+    state = _includes or _IncludeState.for_sheet(path)
     if len(source.encode("utf-8", "surrogatepass")) > MAX_SHEET_BYTES:
         err = TooComplexError(f"sheet is larger than {MAX_SHEET_BYTES // 1_000_000} MB", Span(1, 1, 1, 2))
         raise SheetErrors([err.diagnostic(path)], source)
@@ -449,6 +454,14 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True) -> tup
             continue
         flush_prose()
         if not text or text.startswith("//"):
+            i += 1
+            continue
+        inc = _INCLUDE.match(text)
+        if inc:
+            span = Span(lineno, 1, lineno, len(raw) + 1)
+            stmts, sub_diags = _include(inc.group(1), span, path, state)
+            body.extend(stmts)
+            diags.extend(sub_diags)
             i += 1
             continue
         m = _HEADING.match(text)
@@ -498,8 +511,94 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True) -> tup
             stmt = _replace(stmt, **extra)
         body.append(stmt)
     flush_prose()
-    sheet = N.Sheet(meta=tuple(meta.items()), body=tuple(body), path=path, source=source)
+    sheet = N.Sheet(meta=tuple(meta.items()), body=tuple(body), path=path, source=source,
+                    includes=tuple(state.sources) if _includes is None else ())
     return sheet, diags
+
+
+# ------------------------------------------------------------ includes
+
+_INCLUDE = re.compile(r'include\s+"([^"\n]*)"\s*(?:(?://|--).*)?$')
+MAX_INCLUDE_DEPTH = 8
+MAX_INCLUDES = 64
+
+
+class _IncludeState:
+    """What a sheet may include: .calc files inside the main sheet's own folder, no cycles."""
+
+    def __init__(self, root, main):
+        self.root = root  # resolved folder of the main sheet, or None for a sheet given as text
+        self.stack = [main] if main else []
+        self.sources: list[tuple[str, str]] = []
+
+    @classmethod
+    def for_sheet(cls, path: str) -> "_IncludeState":
+        from pathlib import Path
+
+        if path.startswith("<") or not Path(path).is_file():
+            return cls(None, None)
+        p = Path(path).resolve()
+        return cls(p.parent, p)
+
+
+def _include(target: str, span: Span, path: str, state: _IncludeState):
+    """Parse an included sheet; every span in it carries its own path."""
+    import os
+    from pathlib import Path
+
+    from .errors import IncludeError
+
+    def refuse(message, hint=None):
+        return [], [IncludeError(message, span, hint=hint).diagnostic(path)]
+
+    if state.root is None:
+        return refuse("include needs the sheet to be a file (its folder is where includes are looked for)")
+    if not target.endswith(".calc"):
+        return refuse(f"only .calc sheets can be included, not {target!r}")
+    if os.path.isabs(target) or target.startswith("~"):
+        return refuse("an include path is relative to the sheet's folder", hint="write include \"loads.calc\"")
+    here = Path(path).parent if state.stack and not path.startswith("<") else state.root
+    candidate = (here / target)
+    real = candidate.resolve()
+    if state.root != real.parent and state.root not in real.parents:
+        return refuse(f"'{target}' is outside the sheet's folder; a sheet may include only files in or below it")
+    if not real.is_file():
+        return refuse(f"no such sheet to include: '{target}'")
+    if real in state.stack:
+        return refuse(f"'{target}' includes itself (through {' -> '.join(p.name for p in state.stack)})")
+    if len(state.stack) > MAX_INCLUDE_DEPTH or len(state.sources) >= MAX_INCLUDES:
+        return refuse("includes are nested too deeply or too many")
+    if real.stat().st_size > MAX_SHEET_BYTES:
+        return refuse(f"'{target}' is larger than {MAX_SHEET_BYTES // 1_000_000} MB")
+    shown = os.path.normpath(str(candidate))
+    text = real.read_text(encoding="utf-8")
+    state.sources.append((shown, text))
+    state.stack.append(real)
+    try:
+        sub, sub_diags = parse_sheet(text, shown, _includes=state)
+    finally:
+        state.stack.pop()
+    if sub.meta:
+        sub_diags.append(Diagnostic("warning", "include", f"the front matter of '{target}' is ignored: the "
+                                    "including sheet's title block applies", span, path=path))
+    return [_with_path(stmt, shown) for stmt in sub.body], sub_diags
+
+
+def _with_path(node, path: str):
+    """A copy of an included statement whose spans all name its file."""
+    import dataclasses
+
+    changes = {}
+    for f in dataclasses.fields(node):
+        value = getattr(node, f.name)
+        if isinstance(value, Span):
+            if value.path is None:
+                changes[f.name] = dataclasses.replace(value, path=path)
+        elif isinstance(value, N.Node):
+            changes[f.name] = _with_path(value, path)
+        elif isinstance(value, tuple) and value and isinstance(value[0], N.Node):
+            changes[f.name] = tuple(_with_path(v, path) for v in value)
+    return dataclasses.replace(node, **changes) if changes else node
 
 
 def _replace(node, **changes):

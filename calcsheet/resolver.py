@@ -12,6 +12,7 @@ from dataclasses import dataclass, field
 from . import nodes as N
 from .errors import (
     CalcError,
+    Span,
     Diagnostic,
     PluginArgumentError,
     RedefinitionError,
@@ -26,12 +27,15 @@ from .plugin import PluginRegistry
 
 def check_key(stmt: N.Check) -> str:
     """Checks have no name; they are keyed by their line."""
+    if stmt.span is not None and stmt.span.path:
+        return f"check@{stmt.span.path}:{stmt.span.line}"
     return f"check@{stmt.span.line if stmt.span else 0}"
 
 
 @dataclass
 class Resolution:
     defined_at: dict[str, int] = field(default_factory=dict)  # name -> line
+    def_spans: dict[str, Span] = field(default_factory=dict)  # name -> span (its file, for includes)
     statements: dict[str, N.Statement] = field(default_factory=dict)  # key -> statement
     precedents: dict[str, list[str]] = field(default_factory=dict)  # key -> names it reads
     dependents: dict[str, list[str]] = field(default_factory=dict)  # name -> keys reading it
@@ -62,7 +66,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     all_defs: dict[str, int] = {}
     for stmt in sheet.body:
         if isinstance(stmt, N.Definition) and stmt.name not in all_defs:
-            all_defs[stmt.name] = stmt.span.line
+            all_defs[stmt.name] = stmt.span
     for stmt in sheet.body:
         if isinstance(stmt, N.Definition):
             key = stmt.name
@@ -76,7 +80,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         if isinstance(stmt, N.Definition):
             if stmt.name in res.defined_at:
                 errors.append(RedefinitionError(
-                    f"'{stmt.name}' is already defined on line {res.defined_at[stmt.name]}", stmt.name_span,
+                    f"'{stmt.name}' is already defined on {res.def_spans[stmt.name].where()}", stmt.name_span,
                     hint="give the new value its own name (e.g. a subscript: M_2)"))
             elif stmt.name in CONSTANTS or stmt.name in FUNCTIONS:
                 errors.append(RedefinitionError(f"'{stmt.name}' is a built-in name", stmt.name_span,
@@ -99,6 +103,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
             res.dependents.setdefault(name, []).append(key)
         if isinstance(stmt, N.Definition):
             res.defined_at.setdefault(stmt.name, stmt.span.line)
+            res.def_spans.setdefault(stmt.name, stmt.span)
             if not reads and not any(isinstance(n, N.PluginCall) for n in N.walk(stmt.expr)):
                 res.inputs.append(stmt.name)
         if errors:
@@ -119,7 +124,7 @@ def _check_node(node, res: Resolution, all_defs, plugins: PluginRegistry, key) -
             if node.id == key:
                 return UseBeforeDefinitionError(f"'{node.id}' is used in its own definition", node.span)
             return UseBeforeDefinitionError(
-                f"'{node.id}' is used before its definition on line {all_defs[node.id]}", node.span,
+                f"'{node.id}' is used before its definition on {all_defs[node.id].where()}", node.span,
                 hint="a sheet reads top to bottom: move the definition above this line")
         if plugins.is_namespace(node.id):
             return UndefinedNameError(f"'{node.id}' is a plugin; call one of its functions: {node.id}.name(…)",

@@ -63,7 +63,7 @@ def refresh_script(version: int, nonce: str) -> str:
 
 def error_page(sheet: str, result, last_good: Path | None, version: int, nonce: str) -> str:
     """What the browser shows while the sheet has errors: the diagnostics, not a blank page."""
-    diags = "\n\n".join(d.format(result.source) for d in result.diagnostics if d.severity == "error")
+    diags = "\n\n".join(d.format(result.source_for(d)) for d in result.diagnostics if d.severity == "error")
     kept = (f"<p>The last good package is kept at <code>{esc(last_good)}</code>.</p>" if last_good
             else "<p>No good build yet.</p>")
     return f"""<!DOCTYPE html>
@@ -95,11 +95,19 @@ class Preview:
         self._seen = None
 
     def _signature(self):
+        """Modification stamps of the sheet and of every file it included last time."""
         try:
             st = self.sheet.stat()
         except FileNotFoundError:
             return None
-        return (st.st_mtime_ns, st.st_size)
+        sig = [(st.st_mtime_ns, st.st_size)]
+        for path, _ in (self.last_good.includes if self.last_good is not None else []):
+            try:
+                inc = Path(path).stat()
+                sig.append((path, inc.st_mtime_ns, inc.st_size))
+            except FileNotFoundError:
+                sig.append((path, None))
+        return tuple(sig)
 
     def changed(self) -> bool:
         sig = self._signature()

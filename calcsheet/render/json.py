@@ -4,6 +4,8 @@ Units are written the way pint parses them back (``pint.Quantity(v, unit)``).
 """
 from __future__ import annotations
 
+import hashlib
+
 import pint
 
 from ..display import pint_unit_string
@@ -66,6 +68,8 @@ class JsonPrinter(Printer):
             "values": values,
             "checks": checks,
             "diagnostics": [d.to_json() for d in result.diagnostics],
-            "source": {"path": result.path, "sha256": result.sha256},
+            "source": {"path": result.path, "sha256": result.sha256,
+                       "includes": [{"path": p, "sha256": hashlib.sha256(t.encode("utf-8")).hexdigest()}
+                                    for p, t in result.includes]},
             "versions": {"calcsheet": result.engine_version, "plugins": dict(result.plugin_versions)},
         }
