@@ -43,10 +43,6 @@ FUNCTIONS = {
 }
 
 
-def is_quantity(v) -> bool:
-    return isinstance(v, pint.Quantity)
-
-
 def kind_of(v) -> str:
     if isinstance(v, pint.Quantity):
         return "quantity"
@@ -66,7 +62,6 @@ class Evaluator:
         self.policy = policy or DisplayPolicy()
         self.plugins = plugins or default_registry()
         self.reg = U.registry()
-        self._one = self.reg.Quantity(1.0)
         self._dimensionless = self.reg.Unit("")
         self._radian = self.reg.Unit("radian")
         self.warnings: list[tuple[str, Any]] = []  # (message, span) from plugins
@@ -116,8 +111,6 @@ class Evaluator:
 
     def _eval_Number(self, node: N.Number, env, used):
         unit = U.build_unit(node.unit) if node.unit else self._dimensionless
-        if any(name in U.VOCABULARY and U.VOCABULARY[name] in U.OFFSET_UNITS for name, _ in node.unit):
-            return self.reg.Quantity(node.value, unit)
         return self.reg.Quantity(node.value, unit)
 
     def _eval_Text(self, node, env, used):

@@ -1,7 +1,9 @@
 """The AST: frozen dataclasses, each carrying its source span.
 
 Nodes list their children in ``_children`` apart from position attributes,
-so visitors can walk any node without knowing its class. Nothing past the
+so ``walk`` (and any stage) can visit any node without knowing its class;
+each stage dispatches on the node's class up its MRO (``_eval_<Class>``,
+``_infer_<Class>``, ``_print_<Class>``). Nothing past the
 parser sees lark objects: only these.
 """
 from __future__ import annotations
@@ -229,21 +231,6 @@ class Sheet(Node):
     @property
     def meta_dict(self) -> dict[str, Any]:
         return dict(self.meta)
-
-
-class Visitor:
-    """Dispatch ``visit_<ClassName>`` up the class hierarchy, with a generic fallback."""
-
-    def visit(self, node, *args, **kwargs):
-        for cls in type(node).__mro__:
-            method = getattr(self, "visit_" + cls.__name__, None)
-            if method is not None:
-                return method(node, *args, **kwargs)
-        return self.generic_visit(node, *args, **kwargs)
-
-    def generic_visit(self, node, *args, **kwargs):
-        for child in node.children():
-            self.visit(child, *args, **kwargs)
 
 
 def walk(node: Node):
