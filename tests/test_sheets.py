@@ -46,3 +46,22 @@ def test_demo_numbers_against_a_hand_calculation():
     assert v["delta"].m_as("mm") == pytest.approx(delta, rel=1e-9)
     statuses = [c.ok for c in r.checks]
     assert statuses == [sigma <= 0.8 * 16 / 1.3, True, delta <= L * 1e3 / 300, False]
+
+
+def test_us_demo_numbers_against_a_hand_calculation():
+    r = calcsheet.run(ROOT / "sheets" / "us_roof_beam.calc")
+    assert r.ok, r.format_diagnostics()
+    v = r.values
+    w = (18 + 30) * 8 / 1000 + 0.035                       # klf: (D + S) psf × 8 ft + self-weight
+    L = 32 * 12                                            # in
+    # I of the three-rectangle I-shape, parallel-axis theorem by hand (in⁴)
+    I = 2 * (7 * 0.5**3 / 12 + 7 * 0.5 * 7.75**2) + 0.3 * 15**3 / 12
+    M = w / 12 * L**2 / 8                                  # kip·in, wL²/8
+    sigma = M / (I / 8)                                    # ksi, M/S with c = h/2
+    E = 29000                                              # ksi, A992 (common practice)
+    delta = 5 * (w / 12) * L**4 / (384 * E * I)            # in, 5wL⁴/384EI
+    assert v["w"].m_as("klf") == pytest.approx(w)
+    assert v["st"].fields["sigma_max"].m_as("ksi") == pytest.approx(sigma, rel=1e-6)
+    assert v["rb"].fields["delta_gov"].m_as("in") == pytest.approx(delta, rel=1e-6)
+    assert v["rb"].fields["delta_allow"].m_as("in") == pytest.approx(L / 240)
+    assert all(c.ok for c in r.checks)
