@@ -65,6 +65,8 @@ class Printer:
 
 
 def precedence(node) -> int:
+    if isinstance(node, N.Number) and node.unit:
+        return QUANTITY  # "(150 mm)²" is not "150 mm²"
     for cls in type(node).__mro__:
         if cls in PRECEDENCE:
             return PRECEDENCE[cls]

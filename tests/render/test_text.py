@@ -58,3 +58,9 @@ def test_sigfigs_from_front_matter():
 def test_a_conditional_prints_both_outcomes_with_values():
     out = lines("h = 220 mm\nx = if(h > 100 mm, h, 2*h)\n")
     assert out[-1] == "x = (h if h > 100 mm, else 2·h) = (220 mm if 220 mm > 100 mm, else 2 · 220 mm) = 220 mm"
+
+
+def test_a_quantity_raised_to_a_power_keeps_its_brackets():
+    # found by the round-trip property test: (150 mm)² must not print as 150 mm²
+    out = lines("A = (150 mm)^2\nB = 2*(3 m)^3 / 4 m\n")
+    assert out == ["A = (150 mm)² = 22500 mm²", "B = 2·(3 m)³/(4 m) = 13.5 m²"]
