@@ -16,13 +16,14 @@ import pint
 from .errors import UnknownUnitError
 
 # Trade units pint lacks, defined exactly from their parts.
+# (A unit's symbol defaults to its name; repeating it as "= psf" makes pint warn.)
 _EXTRA_DEFINITIONS = [
-    "kip = 1000 * force_pound = kip",  # pint already has kip; kept for clarity below
-    "psf = force_pound / foot ** 2 = psf",
-    "ksf = kip / foot ** 2 = ksf",
-    "pcf = force_pound / foot ** 3 = pcf",
-    "plf = force_pound / foot = plf",
-    "klf = kip / foot = klf",
+    "kip = 1000 * force_pound",  # pint has kip already; defined here only if a pint release drops it
+    "psf = force_pound / foot ** 2",
+    "ksf = kip / foot ** 2",
+    "pcf = force_pound / foot ** 3",
+    "plf = force_pound / foot",
+    "klf = kip / foot",
 ]
 
 _registry: pint.UnitRegistry | None = None
