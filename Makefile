@@ -6,7 +6,7 @@ VENV    := .venv
 BIN     := $(VENV)/bin
 STAMP   := $(VENV)/.installed
 
-.PHONY: demo test setup system-deps bench clean
+.PHONY: demo test setup bench clean
 
 $(STAMP): pyproject.toml
 	bash .ci/system-deps
@@ -21,6 +21,7 @@ demo: $(STAMP)
 	$(BIN)/calcsheet build sheets/*.calc -o out --format html,pdf,json
 
 test: $(STAMP)
+	bash .ci/system-deps --test
 	$(BIN)/python -m pytest -q
 
 bench: $(STAMP)
