@@ -123,6 +123,21 @@ def preferred_unit(dim: U.Dim, system: str = "SI", magnitude_si: float | None = 
     return None
 
 
+def shown(value: pint.Quantity, unit: pint.Unit | None = None) -> pint.Quantity:
+    """The quantity as printed: in ``unit`` when given and compatible; a plain
+    ratio such as mm/m reduced (angles and percentages keep their unit)."""
+    if unit is not None:
+        try:
+            return value.to(unit)
+        except pint.DimensionalityError:
+            return value
+    units = value.units._units
+    if value.dimensionless and units and not any(
+            n in ("radian", "degree", "percent", "permille", "milliradian") for n in units):
+        return value.to_reduced_units()
+    return value
+
+
 # ------------------------------------------------------------------ numbers
 
 

@@ -8,7 +8,7 @@ import hashlib
 
 import pint
 
-from ..display import pint_unit_string
+from ..display import pint_unit_string, shown
 from ..plugin import Record
 from .base import Printer
 
@@ -18,13 +18,7 @@ class JsonPrinter(Printer):
 
     def value(self, value, unit=None) -> dict:
         if isinstance(value, pint.Quantity):
-            if unit is not None:
-                try:
-                    value = value.to(unit)
-                except pint.DimensionalityError:
-                    pass
-            elif value.dimensionless:
-                value = value.to_reduced_units()
+            value = shown(value, unit)
             mag = value.magnitude
             try:
                 mag = float(mag)

@@ -8,7 +8,7 @@ from __future__ import annotations
 import pint
 
 from .. import nodes as N
-from ..display import split_number
+from ..display import shown, split_number
 from ..plugin import Record
 from .base import ATOM, PRECEDENCE, Printer, precedence, value_precedence
 
@@ -28,13 +28,7 @@ class MathPrinter(Printer):
     def value(self, value, unit=None) -> str:
         """A result: '23.4 kN·m', '1.23×10⁵ mm³', 'OK'."""
         if isinstance(value, pint.Quantity):
-            if unit is not None:
-                try:
-                    value = value.to(unit)
-                except pint.DimensionalityError:
-                    pass
-            else:
-                value = value.to_reduced_units() if _is_ratio(value) else value
+            value = shown(value, unit)
             mag = value.magnitude
             try:
                 mag = float(mag)
@@ -190,11 +184,6 @@ def _symbol(node) -> str | None:
 
 def _is_dimensionless(unit) -> bool:
     return not unit._units
-
-
-def _is_ratio(q: pint.Quantity) -> bool:
-    return q.dimensionless and bool(q.units._units) and not any(
-        n in ("radian", "degree", "percent", "permille", "milliradian") for n in q.units._units)
 
 
 def is_literal(node) -> bool:
