@@ -123,6 +123,12 @@ def main(argv: list[str] | None = None) -> int:
     return EXIT_USAGE
 
 
+def _usage(message: str) -> int:
+    """A usage error: one line on stderr, exit status 2."""
+    print(f"calcsheet: error: {message}", file=sys.stderr)
+    return EXIT_USAGE
+
+
 def _missing(paths) -> list[Path]:
     return [p for p in paths if not p.is_file()]
 
@@ -131,18 +137,14 @@ def cmd_build(args) -> int:
     formats = [f.strip().lower() for f in args.format.split(",") if f.strip()]
     bad = [f for f in formats if f not in FORMATS]
     if bad or not formats:
-        print(f"calcsheet: error: unknown format(s) {', '.join(bad) or '(none)'}; choose from html, pdf, json",
-              file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"unknown format(s) {', '.join(bad) or '(none)'}; choose from html, pdf, json")
     try:
         overrides = gather_overrides(args)
     except ValueError as exc:
-        print(f"calcsheet: error: {exc}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(str(exc))
     missing = _missing(args.sheets)
     if missing:
-        print(f"calcsheet: error: no such sheet: {missing[0]}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"no such sheet: {missing[0]}")
     from .engine import run
     from .package import write_package
 
@@ -166,8 +168,7 @@ def cmd_build(args) -> int:
             try:
                 doc_options = since_options(args.since, sheet, result, many)
             except ValueError as exc:
-                print(f"calcsheet: error: {exc}", file=sys.stderr)
-                return EXIT_USAGE
+                return _usage(str(exc))
         try:
             written = write_package(result, args.out, formats, paper=args.paper, **doc_options)
         except OSError as exc:
@@ -186,8 +187,7 @@ def cmd_check(args) -> int:
     """Parse, resolve and dimension-check each sheet without evaluating; report every finding at once."""
     missing = _missing(args.sheets)
     if missing:
-        print(f"calcsheet: error: no such sheet: {missing[0]}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"no such sheet: {missing[0]}")
     from . import checkreport as R
     from .engine import run
 
@@ -279,8 +279,7 @@ def cmd_diff(args) -> int:
     try:
         d = diff_specs(args.old, args.new)
     except DiffSourceError as exc:
-        print(f"calcsheet: error: {exc}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(str(exc))
     if args.format == "json":
         print(json.dumps(d.to_json(), indent=2, ensure_ascii=False))
     else:
@@ -290,23 +289,19 @@ def cmd_diff(args) -> int:
 
 def cmd_watch(args) -> int:
     if not args.sheet.is_file():
-        print(f"calcsheet: error: no such sheet: {args.sheet}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"no such sheet: {args.sheet}")
     if not 0 <= args.port <= 65535:
-        print(f"calcsheet: error: --port {args.port} is not a port number", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"--port {args.port} is not a port number")
     try:
         overrides = gather_overrides(args)
     except ValueError as exc:
-        print(f"calcsheet: error: {exc}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(str(exc))
     from .watch import Watcher
 
     try:
         watcher = Watcher(args.sheet, args.out, args.port, paper=args.paper, overrides=overrides,
                           log=lambda m: print(m, flush=True))
     except OSError as exc:
-        print(f"calcsheet: error: cannot listen on 127.0.0.1:{args.port}: {exc.strerror or exc}", file=sys.stderr)
-        return EXIT_USAGE
+        return _usage(f"cannot listen on 127.0.0.1:{args.port}: {exc.strerror or exc}")
     watcher.serve()
     return EXIT_OK
