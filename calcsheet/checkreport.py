@@ -14,19 +14,7 @@ SEVERITY_ORDER = {"error": 0, "warning": 1, "info": 2}
 
 
 def human(d: Diagnostic, source: str | None) -> str:
-    head = f"{d.path}:{d.span.line}:{d.span.col}: {d.severity}: {d.message} [{d.code}]"
-    out = [head]
-    if source is not None:
-        lines = source.splitlines()
-        if 1 <= d.span.line <= len(lines):
-            text = lines[d.span.line - 1].expandtabs(1)
-            end = d.span.end_col if d.span.end_line == d.span.line else len(text) + 1
-            width = max(1, min(end, len(text) + 1) - d.span.col)
-            out.append(f"  {d.span.line:>4} | {text}")
-            out.append("       | " + " " * (d.span.col - 1) + "^" + "~" * (width - 1))
-    if d.hint:
-        out.append(f"  hint: {d.hint}")
-    return "\n".join(out)
+    return d.format(source, with_code=True)
 
 
 def summary(path: str, active: list[Diagnostic], suppressed: list[Diagnostic]) -> str:

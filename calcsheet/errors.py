@@ -69,20 +69,16 @@ class Diagnostic:
     def one_line(self) -> str:
         return f"{self.path}:{self.span.line}:{self.span.col}: {self.severity} {self.code}: {self.message}"
 
-    def format(self, source: str | None = None) -> str:
+    def format(self, source: str | None = None, with_code: bool = False) -> str:
         """Human form: location, message, the source line and a caret under the span."""
         head = f"{self.path}:{self.span.line}:{self.span.col}: {self.severity}: {self.message}"
-        lines = [head]
+        lines = [head + (f" [{self.code}]" if with_code else "")]
         if source is not None:
             src_lines = source.splitlines()
             if 1 <= self.span.line <= len(src_lines):
                 text = src_lines[self.span.line - 1].expandtabs(1)
-                width = (
-                    self.span.end_col - self.span.col
-                    if self.span.end_line == self.span.line
-                    else len(text) - self.span.col + 1
-                )
-                width = max(1, width)
+                end = self.span.end_col if self.span.end_line == self.span.line else len(text) + 1
+                width = max(1, min(end, len(text) + 1) - self.span.col)
                 lines.append(f"  {self.span.line:>4} | {text}")
                 lines.append("       | " + " " * (self.span.col - 1) + "^" + "~" * (width - 1))
         if self.hint:
