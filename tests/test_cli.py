@@ -13,16 +13,6 @@ NG = "w = 2 kN/m\nL = 3 m\nM [kN*m] = w*L^2/8\ncheck M <= 1 kN*m\n"
 BAD = "w = 2 kN/m\nL = 3 m\nM [kN*m] = w*L\n"
 
 
-@pytest.fixture
-def sheet(tmp_path):
-    def make(text, name="s.calc"):
-        p = tmp_path / name
-        p.write_text(text)
-        return p
-
-    return make
-
-
 def test_check_reports_line_and_column_and_exits_1(sheet, capsys):
     p = sheet(BAD)
     assert main(["check", str(p)]) == 1

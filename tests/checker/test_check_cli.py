@@ -20,16 +20,6 @@ INFO_ONLY = "P = 6 kN\na = 1.2 m\nM [kJ] = P*a\ncheck M <= 10 kN*m\n"
 CLEAN = "L = 6 m\nw = 5 kN/m\nM [kN*m] = w*L^2/8\ncheck M <= 30 kN*m\n"
 
 
-@pytest.fixture
-def sheet(tmp_path):
-    def make(text, name="s.calc"):
-        p = tmp_path / name
-        p.write_text(text, encoding="utf-8")
-        return p
-
-    return make
-
-
 def test_human_output_shows_line_caret_hint_and_code(sheet, capsys):
     p = sheet(TWO_MISTAKES)
     assert main(["check", str(p)]) == 1
