@@ -5,7 +5,8 @@ import pytest
 
 from calcsheet import nodes as N
 from calcsheet.errors import SheetErrors
-from calcsheet.parser import parse_expression, parse_sheet, split_unit
+from calcsheet.parser import parse_expression, parse_sheet
+from calcsheet.units import split_unit
 
 
 def body(text):
@@ -195,3 +196,23 @@ def test_only_unit_names_continue_a_unit_after_an_operator():
     assert parse_expression("3 kN*m/rad").unit == (("kN", 1.0), ("m", 1.0), ("rad", -1.0))
     # a vocabulary name still continues the unit (the checker warns when it is also a variable)
     assert parse_expression("0.65 kPa*s").unit == (("kPa", 1.0), ("s", 1.0))
+
+
+def test_parsing_keeps_no_shared_state_between_threads():
+    """Each parse counts its own lines: statements parsed at once on several threads keep their own spans."""
+    from concurrent.futures import ThreadPoolExecutor
+
+    from calcsheet.parser import parse_statement
+
+    def parse_at(offset):
+        stmt = parse_statement("x = (a +\n  b) * c", line_offset=offset)
+        return offset, stmt.span.line, stmt.expr.right.span.line
+
+    with ThreadPoolExecutor(max_workers=8) as pool:
+        results = list(pool.map(parse_at, range(0, 4000, 7)))
+    assert all(line == offset + 1 and right == offset + 2 for offset, line, right in results)
+
+
+def test_a_syntax_error_deep_in_a_sheet_points_at_its_own_line():
+    d = diags_of("x = 1\n" * 40 + "y = (2 +\n  3 3)\n")
+    assert d and (d[0].span.line, d[0].span.col) == (42, 5)
