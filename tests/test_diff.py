@@ -11,7 +11,8 @@ import pytest
 
 import calcsheet
 from calcsheet.cli import main
-from calcsheet.diff import DiffSourceError, diff_results, diff_specs, git_show, load_side, to_text
+from calcsheet.diff import DiffSourceError, diff_results, diff_specs, git_show, load_side
+from calcsheet.render.diff import text as to_text
 from calcsheet.package import PackageDocument, write_package
 
 # A simply supported timber joist under a uniform load, rectangular section.
@@ -242,7 +243,7 @@ def test_build_since_puts_a_changes_page_first_and_marks_changed_values(repo, mo
 def test_changes_page_escapes_sheet_text(tmp_path):
     old = _write(tmp_path / "<b>old&.calc", BEAM.replace("rev: B", "rev: <i>B</i>"))
     d = diff_specs(old, _write(tmp_path / "new.calc", deeper(BEAM)))
-    from calcsheet.diff import changes_page_html
+    from calcsheet.render.diff import changes_page as changes_page_html
 
     page = changes_page_html(d)
     assert "<b>" not in page and "<i>" not in page
