@@ -188,7 +188,7 @@ def cmd_check(args) -> int:
     missing = _missing(args.sheets)
     if missing:
         return _usage(f"no such sheet: {missing[0]}")
-    from . import checkreport as R
+    from .render import check as R
     from .engine import run
 
     status = EXIT_OK

@@ -8,7 +8,7 @@ listed apart with their reasons.
 """
 from __future__ import annotations
 
-from .errors import Diagnostic
+from ..errors import Diagnostic
 
 SEVERITY_ORDER = {"error": 0, "warning": 1, "info": 2}
 
