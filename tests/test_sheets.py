@@ -11,7 +11,7 @@ from pathlib import Path
 import pytest
 
 import calcsheet
-from calcsheet.render.text import TextPrinter
+from calcsheet.render.text import TextDocument
 
 ROOT = Path(__file__).resolve().parents[1]
 SHEETS = sorted((ROOT / "sheets").glob("*.calc"))
@@ -22,7 +22,7 @@ GOLDEN = Path(__file__).parent / "golden"
 def test_sheet_builds_without_errors_and_matches_its_golden_rendering(sheet):
     r = calcsheet.run(sheet)
     assert r.ok, r.format_diagnostics()
-    text = TextPrinter(sigfigs=r.policy.sigfigs).items(r.items).strip() + "\n"
+    text = TextDocument(sigfigs=r.policy.sigfigs).items(r.items).strip() + "\n"
     golden = GOLDEN / f"{sheet.stem}.txt"
     if os.environ.get("CALCSHEET_UPDATE_GOLDEN") or not golden.exists():
         golden.write_text(text, encoding="utf-8")

@@ -5,7 +5,7 @@ from typing import Any
 
 from ..diff import CheckChange, CheckEntry, Entry, SheetDiff, ValueChange
 from ..display import pint_unit_string
-from .html import anchor_id, esc
+from .markup import Html, anchor_id, esc
 
 
 def _pct(p: float | None) -> str:
@@ -100,67 +100,68 @@ def text(d: SheetDiff) -> str:
     return "\n".join(out)
 
 
-def changes_page(d: SheetDiff) -> str:
-    """The "changes since revision X" page for the front of a package; all sheet text is escaped."""
-    def table(head: list[str], rows: list[list[str]], cls: str) -> str:
-        return (f"<table class='summary {cls}'><thead><tr>" + "".join(f"<th>{esc(h)}</th>" for h in head)
-                + "</tr></thead><tbody>" + "".join("<tr>" + "".join(f"<td>{c}</td>" for c in r) + "</tr>"
-                                                    for r in rows) + "</tbody></table>")
+def changes_page(d: SheetDiff) -> Html:
+    """The "changes since revision X" page for the front of a package; every cell is text unless it is Html."""
+    def table(head: list[str], rows: list[list], cls: str) -> Html:
+        return Html("<table class='summary {}'><thead><tr>{}</tr></thead><tbody>{}</tbody></table>").format(
+            cls, Html("").join(Html("<th>{}</th>").format(h) for h in head),
+            Html("").join(Html("<tr>{}</tr>").format(Html("").join(Html("<td>{}</td>").format(c) for c in r))
+                          for r in rows))
 
-    def link(name: str) -> str:
+    def link(name: str) -> Html:
         top = name.split(".", 1)[0]
-        return f"<a href='#{esc(anchor_id('v-' + top))}'>{esc(name)}</a>" if top in d.new.values else esc(name)
+        return Html("<a href='#{}'>{}</a>").format(anchor_id("v-" + top), name) if top in d.new.values else esc(name)
 
-    parts = [f"<section class='changes' style='page-break-before: always'>"
-             f"<h2 class='front-h'>Changes since {esc(since_label(d))}</h2>"]
+    since = since_label(d)
+    parts = [Html("<section class='changes' style='page-break-before: always'>"
+                  "<h2 class='front-h'>Changes since {}</h2>").format(since)]
     n_val = len(d.inputs) + len(d.results)
     n_results = len(grouped(d.results))
     summary = (f"{len(d.inputs)} input(s) and {n_results} result(s) changed; {len(d.flipped)} check(s) "
                f"changed status; {len(d.moved)} utilisation(s) moved; {len(d.added) + len(d.checks_added)} "
                f"step(s) added, {len(d.removed) + len(d.checks_removed)} removed.")
-    parts.append(f"<p>{esc(summary)} Values that moved are marked <span class='mark changed'>changed</span> "
-                 f"in the calculation; everything else is as in {esc(since_label(d))}.</p>"
-                 if n_val or not d.empty else f"<p>No value or check changed since {esc(since_label(d))}.</p>")
+    parts.append(Html("<p>{} Values that moved are marked <span class='mark changed'>changed</span> "
+                      "in the calculation; everything else is as in {}.</p>").format(summary, since)
+                 if n_val or not d.empty else Html("<p>No value or check changed since {}.</p>").format(since))
     if d.flipped:
-        parts.append("<h3>Checks that changed status</h3>" + table(
+        parts.append(Html("<h3>Checks that changed status</h3>") + table(
             ["Check", "Was", "Now", "Ratio was", "Ratio now"],
-            [[esc(c.text), esc(_status(c.old)), f"<strong>{esc(_status(c.new))}</strong>", esc(_ratio(c.old.ratio)),
-              esc(_ratio(c.new.ratio))] for c in d.flipped], "flipped"))
+            [[c.text, _status(c.old), Html("<strong>{}</strong>").format(_status(c.new)), _ratio(c.old.ratio),
+              _ratio(c.new.ratio)] for c in d.flipped], "flipped"))
     if d.inputs:
-        parts.append("<h3>Inputs changed</h3>" + table(
+        parts.append(Html("<h3>Inputs changed</h3>") + table(
             ["Symbol", "Was", "Now", "Change"],
-            [[link(c.name), esc(c.old.shown()), esc(c.new.shown()), esc(_pct(c.pct))] for c in d.inputs], "inputs"))
+            [[link(c.name), c.old.shown(), c.new.shown(), _pct(c.pct)] for c in d.inputs], "inputs"))
     if d.results:
         rows = []
         for head, group in grouped(d.results):
             if head is not None:
-                rows.append([link(head.name), esc(f"{len(group)} field(s) of the result changed"), "", "",
-                             esc(", ".join(head.caused_by))])
+                rows.append([link(head.name), f"{len(group)} field(s) of the result changed", "", "",
+                             ", ".join(head.caused_by)])
                 shown = group[:FIELDS_SHOWN]
-                rows += [[esc("  ." + c.name.split(".", 1)[1]), esc(c.old.shown()), esc(c.new.shown()),
-                          esc(_pct(c.pct)), ""] for c in shown]
+                rows += [["  ." + c.name.split(".", 1)[1], c.old.shown(), c.new.shown(), _pct(c.pct), ""]
+                         for c in shown]
                 if len(group) > len(shown):
-                    rows.append(["", esc(f"… and {len(group) - len(shown)} more fields"), "", "", ""])
+                    rows.append(["", f"… and {len(group) - len(shown)} more fields", "", "", ""])
                 continue
             c = group[0]
-            rows.append([link(c.name), esc(c.old.shown()), esc(c.new.shown()), esc(_pct(c.pct)),
-                         esc(", ".join(c.caused_by) + (f"; formula was {c.old.formula}" if c.formula_changed
-                                                       else ""))])
-        parts.append("<h3>Results changed</h3>" + table(["Symbol", "Was", "Now", "Change", "Because of"], rows,
-                                                        "results"))
+            rows.append([link(c.name), c.old.shown(), c.new.shown(), _pct(c.pct),
+                         ", ".join(c.caused_by) + (f"; formula was {c.old.formula}" if c.formula_changed else "")])
+        parts.append(Html("<h3>Results changed</h3>") + table(["Symbol", "Was", "Now", "Change", "Because of"], rows,
+                                                              "results"))
     if d.moved or d.edited_checks:
-        parts.append("<h3>Utilisation moved</h3>" + table(
+        parts.append(Html("<h3>Utilisation moved</h3>") + table(
             ["Check", "Status", "Ratio was", "Ratio now"],
-            [[esc(c.text if c in d.moved else f"{c.old.text} → {c.new.text}"), esc(_status(c.new)),
-              esc(_ratio(c.old.ratio)), esc(_ratio(c.new.ratio))] for c in d.moved + d.edited_checks], "moved"))
+            [[c.text if c in d.moved else f"{c.old.text} → {c.new.text}", _status(c.new),
+              _ratio(c.old.ratio), _ratio(c.new.ratio)] for c in d.moved + d.edited_checks], "moved"))
     if d.added or d.removed or d.checks_added or d.checks_removed:
-        rows = ([[esc("added"), link(n), esc(d.new.values[n].shown())] for n in d.added]
-                + [[esc("added"), esc("check " + c.text), esc(_status(c))] for c in d.checks_added]
-                + [[esc("removed"), esc(n), esc(d.old.values[n].shown())] for n in d.removed]
-                + [[esc("removed"), esc("check " + c.text), ""] for c in d.checks_removed])
-        parts.append("<h3>Steps added or removed</h3>" + table(["", "Step", "Value"], rows, "steps"))
-    parts.append("</section>")
-    return "\n".join(parts)
+        rows = ([["added", link(n), d.new.values[n].shown()] for n in d.added]
+                + [["added", "check " + c.text, _status(c)] for c in d.checks_added]
+                + [["removed", n, d.old.values[n].shown()] for n in d.removed]
+                + [["removed", "check " + c.text, ""] for c in d.checks_removed])
+        parts.append(Html("<h3>Steps added or removed</h3>") + table(["", "Step", "Value"], rows, "steps"))
+    parts.append(Html("</section>"))
+    return Html("\n").join(parts)
 
 
 # ---------------------------------------------------------------- JSON
