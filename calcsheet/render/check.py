@@ -10,9 +10,6 @@ from __future__ import annotations
 
 from ..errors import Diagnostic
 
-SEVERITY_ORDER = {"error": 0, "warning": 1, "info": 2}
-
-
 def human(d: Diagnostic, source: str | None) -> str:
     return d.format(source, with_code=True)
 

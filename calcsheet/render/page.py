@@ -58,16 +58,16 @@ class PackageDocument(DocumentPrinter):
     default_settings: dict = {}
     empty = Html()
 
-    def __init__(self, result, *, paper: str | None = None, extra_front: Html = Html(),
-                 changed: set[str] | None = None, watch_script: Html = Html()):
+    def __init__(self, result, *, paper: str | None = None, extra_front: Html | None = None,
+                 changed: set[str] | None = None, watch_script: Html | None = None):
         super().__init__()
         self.result = result
         self.meta = result.meta
         self.printer = HtmlMathPrinter(sigfigs=result.policy.sigfigs)
         self.paper = (paper or str(self.meta.get("paper", "A4"))).strip()
-        self.extra_front = extra_front  # e.g. the "changes since" page; a plain str would be escaped
+        self.extra_front = Html() if extra_front is None else extra_front  # the "changes since" page; a str is escaped
         self.changed = changed or set()
-        self.watch_script = watch_script
+        self.watch_script = Html() if watch_script is None else watch_script
         self.numbered = number_items(result.items)
         self.checks = [i for i in self.numbered if isinstance(i, CheckResult)]
         self.anchors = {name: step.anchor for name, step in result.steps.items()}

@@ -1,5 +1,4 @@
 """The document printers: one walk over trace records, and numbering as a pure pass."""
-import calcsheet
 from calcsheet.render.document import DocumentPrinter, number_items
 from calcsheet.render.page import PackageDocument
 from calcsheet.trace import CheckResult, Heading, Note, Step
