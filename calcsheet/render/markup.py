@@ -20,13 +20,54 @@ from markupsafe import Markup
 
 
 class Html(Markup):
+    """``markupsafe.Markup`` with the standard library's escaping, and a ``format`` and ``join`` that do the same
+    as Markup's (escape every argument that is not markup, keep markup) without its per-call formatter object:
+    the package page makes tens of thousands of these."""
+
     __slots__ = ()
+
+    def __new__(cls, object="", encoding=None, errors="strict"):
+        if type(object) is str and encoding is None:  # a template or trusted markup: no checks needed
+            return str.__new__(cls, object)
+        return super().__new__(cls, object, encoding, errors)
 
     @classmethod
     def escape(cls, s) -> "Html":
+        if isinstance(s, cls):
+            return s
         if hasattr(s, "__html__"):
-            return cls(s.__html__())
-        return cls(html.escape(str(s), quote=True))
+            return _new(cls, s.__html__())
+        return _new(cls, _escape(str(s), True))
+
+    def format(self, *args, **kwargs) -> "Html":
+        if kwargs:
+            return _new(Html, str.format(self, *map(_safe, args), **{k: _safe(v) for k, v in kwargs.items()}))
+        return _new(Html, str.format(self, *map(_safe, args)))
+
+    def join(self, iterable) -> "Html":
+        return _new(Html, str.join(self, map(_safe_str, iterable)))
+
+
+_new = str.__new__  # an escaped or already-markup str becomes Html without Markup.__new__'s checks
+_escape = html.escape
+
+
+def _safe(value):
+    """An argument for a template: markup as it is, numbers as they are (format specs still apply), the rest
+    escaped."""
+    if isinstance(value, str):
+        return value if isinstance(value, Markup) else _escape(value, True)
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
+        return value
+    return _safe_str(value)
+
+
+def _safe_str(value) -> str:
+    if isinstance(value, Markup):
+        return value
+    if hasattr(value, "__html__"):
+        return value.__html__()
+    return html.escape(str(value), quote=True)
 
 
 def esc(text) -> Html:

@@ -25,3 +25,11 @@ def test_escaping_twice_does_not_double_escape():
 
 def test_an_anchor_keeps_only_safe_characters():
     assert anchor_id('v-x"><script>') == "v-x---script-"  # each of ", >, < becomes -
+
+
+def test_format_escapes_keywords_keeps_number_specs_and_other_markup():
+    from markupsafe import Markup
+
+    page = Html("<p class='{cls}'>{:.2f} {}</p>").format(0.5, Markup("<br>"), cls="'x'")
+    assert page == "<p class='&#x27;x&#x27;'>0.50 <br></p>"
+    assert isinstance(Html("<p>{}</p>").format(1), Html)
