@@ -33,3 +33,16 @@ def test_format_escapes_keywords_keeps_number_specs_and_other_markup():
     page = Html("<p class='{cls}'>{:.2f} {}</p>").format(0.5, Markup("<br>"), cls="'x'")
     assert page == "<p class='&#x27;x&#x27;'>0.50 <br></p>"
     assert isinstance(Html("<p>{}</p>").format(1), Html)
+
+
+def test_no_printer_builds_html_with_an_f_string():
+    """HTML comes from Html templates only; an f-string would put text into a page unescaped."""
+    import re
+    from pathlib import Path
+
+    root = Path(__file__).resolve().parents[2] / "calcsheet"
+    sources = [*sorted((root / "render").glob("*.py")), root / "package.py", root / "watch.py"]
+    offenders = [f"{p.name}:{n}" for p in sources
+                 for n, line in enumerate(p.read_text(encoding="utf-8").splitlines(), 1)
+                 if re.search(r"""\bf("|'|\"\"\")\s*<[a-zA-Z!/]""", line)]
+    assert offenders == []
