@@ -22,11 +22,11 @@ from typing import Any, Callable
 from .errors import (
     PluginArgumentError,
     PluginDefinitionError,
-    PluginInputError,
     UnknownFieldError,
     UnknownPluginError,
 )
-from .trace import CheckResult, Figure, Note, Step, Table, Working
+from .names import did_you_mean
+from .trace import Working
 from . import units as U
 
 ENTRY_POINT_GROUP = "calcsheet.plugins"
@@ -248,73 +248,6 @@ class Record:
         return f"<{self.source or self.type} record>"
 
 
-class Work:
-    """What a plugin function receives: its arguments, and its working recorder."""
-
-    def __init__(self, pf: PluginFunction, args: dict[str, Any], settings: dict[str, Any], evaluator):
-        self.plugin = pf
-        self.scope: dict[str, Any] = dict(args)
-        self.settings = settings
-        self.working = Working(title=pf.qualname)
-        self.warnings: list[tuple[str, str | None]] = []
-        self._evaluator = evaluator
-
-    # --- reading arguments
-    def __getitem__(self, name: str):
-        return self.scope[name]
-
-    def __contains__(self, name: str) -> bool:
-        return name in self.scope
-
-    # --- traced working
-    def calc(self, name: str, formula: str, unit: str | None = None, desc: str | None = None, note: str | None = None):
-        """Evaluate ``formula`` (sheet syntax) in this call's scope; trace and bind it."""
-        step = self._evaluator.plugin_step(self, name, formula, unit, desc)
-        step.note = note
-        self.working.items.append(step)
-        self.scope[name] = step.value
-        return step.value
-
-    def let(self, name: str, value, unit: str | None = None, desc: str | None = None, note: str | None = None):
-        """Record a result found by a method rather than a formula (say which in ``note``)."""
-        step = Step(name=name, expr=None, value=value, description=desc, note=note)
-        step.display_unit = self._evaluator.display_unit_for(value, unit)
-        self.working.items.append(step)
-        self.scope[name] = value
-        return value
-
-    def check(self, text: str, desc: str | None = None) -> CheckResult:
-        """A pass/fail inside the working (e.g. the two-method agreement)."""
-        result = self._evaluator.plugin_check(self, text, desc)
-        self.working.items.append(result)
-        return result
-
-    def table(self, title: str, columns: list[str], rows: list[list[Any]], units=None, footer=None, note=None):
-        units = [self._evaluator.display_unit_for(None, u) if isinstance(u, str) else u for u in (units or [])] or None
-        self.working.items.append(Table(title, list(columns), rows, units, footer, note))
-
-    def figure(self, svg: str, caption: str = ""):
-        self.working.items.append(Figure(svg, caption))
-
-    def note(self, text: str, kind: str = "note"):
-        self.working.items.append(Note(text, kind))
-
-    def warn(self, message: str, param: str | None = None):
-        """A warning shown at the call (and in the working)."""
-        self.warnings.append((message, param))
-        self.working.items.append(Note(message, "warning"))
-
-    def fail(self, message: str, param: str | None = None, hint: str | None = None):
-        """Refuse the input; the error points at ``param`` in the call."""
-        err = PluginInputError(f"{self.plugin.qualname}: {message}", hint=hint)
-        err.param = param
-        raise err
-
-    def q(self, value, unit: str):
-        """A quantity from a plugin's own number (trusted text)."""
-        return U.Quantity(value, unit)
-
-
 # ---------------------------------------------------------------- registry
 
 
@@ -364,19 +297,15 @@ class PluginRegistry:
         return ns
 
     def function(self, namespace: str, name: str) -> PluginFunction:
-        import difflib
-
         ns = self.namespace(namespace)
         if ns is None:
-            close = difflib.get_close_matches(namespace, self.names(), n=1)
-            hint = f"did you mean '{close[0]}'?" if close else f"plugins: {', '.join(self.names())}"
+            hint = did_you_mean(namespace, self.names()) or f"plugins: {', '.join(self.names())}"
             if namespace in self.blocked:
                 hint = "it is blocked (CALCSHEET_BLOCK_PLUGINS)"
             raise UnknownPluginError(f"unknown plugin '{namespace}'", hint=hint)
         pf = ns.functions.get(name)
         if pf is None:
-            close = difflib.get_close_matches(name, list(ns.functions), n=1)
-            hint = f"did you mean '{namespace}.{close[0]}'?" if close else f"functions: {', '.join(ns.functions)}"
+            hint = did_you_mean(name, ns.functions, prefix=f"{namespace}.") or f"functions: {', '.join(ns.functions)}"
             raise UnknownPluginError(f"plugin '{namespace}' has no function '{name}'", hint=hint)
         return pf
 
@@ -399,18 +328,23 @@ def default_registry() -> PluginRegistry:
 
 def check_argument_kinds(pf: PluginFunction, given: dict[str, Any]) -> None:
     """Missing and unknown keyword arguments (dimensions are checked by the caller)."""
-    import difflib
-
     for name in given:
         if pf.param(name) is None:
-            close = difflib.get_close_matches(name, [p.name for p in pf.params], n=1)
-            hint = f"did you mean '{close[0]}'?" if close else "parameters: " + ", ".join(p.name for p in pf.params)
-            err = PluginArgumentError(f"{pf.qualname} has no parameter '{name}'", hint=hint)
-            err.param = name
-            raise err
+            hint = did_you_mean(name, [p.name for p in pf.params]) or \
+                "parameters: " + ", ".join(p.name for p in pf.params)
+            raise PluginArgumentError(f"{pf.qualname} has no parameter '{name}'", hint=hint, param=name)
     for p in pf.params:
         if p.required and p.name not in given:
             raise PluginArgumentError(
                 f"{pf.qualname} needs '{p.name}' ({p.describe()})",
-                hint=f"add {p.name}=… to the call",
+                hint=f"add {p.name}=… to the call", param=None,
             )
+
+
+def __getattr__(name: str):
+    """``Work`` lives with the plugin host now; ``from calcsheet.plugin import Work`` keeps working."""
+    if name == "Work":
+        from .plugin_host import Work
+
+        return Work
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
