@@ -155,6 +155,28 @@ def rule_compare(a: Arg | None, b: Arg | None, node, left: N.Expr, right: N.Expr
     raise exc
 
 
+def rule_declared(got: Arg | None, want: Arg, stmt: N.Definition, mismatch: Callable[[], Exception]) -> Arg | None:
+    """``name [unit] = expr``: the expression's dimension is the unit's (an angle and a plain number
+    agree: radians are plain numbers); the value takes the unit's dimension, except under ``[]`` where it
+    keeps its own. A unit on the °C/°F scale takes only a temperature on such a scale (a difference of
+    two is not one). ``mismatch`` makes the error for a dimension that differs (each walker says why)."""
+    if got is None:
+        return want if stmt.unit else None
+    if U.without_angle(got.dim) != U.without_angle(want.dim):
+        raise mismatch()
+    if want.offset and not got.offset:
+        raise OffsetTemperatureError(
+            f"{stmt.name} is declared [{stmt.unit_text}], a temperature on the °C/°F scale, but the expression "
+            "is a temperature difference or in K", stmt.unit_span or stmt.span,
+            hint="declare a difference in K (or delta units), or write the temperature itself in °C/°F")
+    return want if stmt.unit else got
+
+
+def unit_arg(unit: pint.Unit) -> Arg:
+    """The ``Arg`` of a declared unit."""
+    return _arg_of_unit(unit)
+
+
 def _pow_impl(a, b, node: N.BinOp, p: float):
     if arg_of(a).dim == U.DIMENSIONLESS:
         base = float(a.m_as(_unit("")))

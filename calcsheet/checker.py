@@ -192,28 +192,28 @@ class Checker:
 
     def definition(self, stmt: N.Definition) -> T:
         t = self.infer(stmt.expr)
-        if stmt.unit is not None:
-            try:
-                want = U.dim_of(U.build_unit(stmt.unit)) if stmt.unit else U.DIMENSIONLESS
-            except CalcError as exc:
-                raise exc.with_span(stmt.unit_span or stmt.span)
-            if t.kind == "any":
-                return T("q", want)
-            if t.kind != "q":
-                raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
-                                        stmt.unit_span or stmt.span)
-            if U.without_angle(t.dim) != U.without_angle(want):
-                exc = DeclaredUnitError(
-                    f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want)}) "
-                    f"but the expression gives {U.describe_dim(t.dim)}",
-                    stmt.unit_span or stmt.span,
-                    hint=_explain(stmt.expr, self),
-                )
-                specialise(exc, want, t.dim, _operand(stmt.expr, "the expression"))
-                raise exc
-            if stmt.unit:  # the value is converted to its declared unit (an angle stays an angle)
-                return T("q", want)
-        return t
+        if stmt.unit is None:
+            return t
+        try:
+            unit = U.build_unit(stmt.unit) if stmt.unit else None
+        except CalcError as exc:
+            raise exc.with_span(stmt.unit_span or stmt.span)
+        want = B.unit_arg(unit) if unit is not None else B.NUMBER
+        if t.kind not in ("q", "any"):
+            raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
+                                    stmt.unit_span or stmt.span)
+
+        def mismatch():
+            exc = DeclaredUnitError(
+                f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want.dim)}) "
+                f"but the expression gives {U.describe_dim(t.dim)}",
+                stmt.unit_span or stmt.span,
+                hint=_explain(stmt.expr, self),
+            )
+            specialise(exc, want.dim, t.dim, _operand(stmt.expr, "the expression"))
+            return exc
+
+        return T.of(B.rule_declared(t.arg, want, stmt, mismatch))
 
     def check(self, stmt: N.Check) -> None:
         a = self._quantity(self.infer(stmt.left), stmt.left)

@@ -228,18 +228,21 @@ class Evaluator:
             if not isinstance(value, pint.Quantity):
                 raise DeclaredUnitError(f"{stmt.name} is a {kind_of(value)}; it cannot have a unit",
                                         stmt.unit_span or stmt.span)
-            got, want = U.dim_of(value), U.dim_of(unit)
-            if U.without_angle(got) != U.without_angle(want):
-                raise DeclaredUnitError(
-                    f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want)}) "
-                    f"but the expression gives {U.describe_dim(got)}",
-                    stmt.unit_span or stmt.span,
-                    hint=f"the expression evaluates to {show(value)}",
-                )
+
+            def mismatch():
+                return DeclaredUnitError(
+                    f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(U.dim_of(unit))}) "
+                    f"but the expression gives {U.describe_dim(U.dim_of(value))}",
+                    stmt.unit_span or stmt.span, hint=f"the expression evaluates to {show(value)}")
+
+            B.rule_declared(B.arg_of(value), B.unit_arg(unit), stmt, mismatch)
             if not stmt.unit:
                 unit = None
         elif isinstance(value, pint.Quantity):
-            unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
+            if B.arg_of(value).offset:  # a °C/°F temperature keeps its scale (in K it would lose it)
+                unit = value.units
+            else:
+                unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
         if unit is not None and isinstance(value, pint.Quantity) and value.units != unit:
             value = value.to(unit)  # downstream substitutions read the value as shown
         step = Step(name=stmt.name, expr=stmt.expr, value=value, display_unit=unit,
