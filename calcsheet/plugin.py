@@ -143,13 +143,31 @@ class PluginFunction:
 
 
 class Namespace:
-    """A group of plugin functions under one name (``section``, ``beam``)."""
+    """A group of plugin functions under one name (``section``, ``beam``).
 
-    def __init__(self, name: str, version: str = "0", doc: str = ""):
+    ``shared`` parameters are declared once for the namespace (or later with ``share``) and validated
+    once; a function registered with ``shared=True`` takes them after its own, and its Python function
+    may receive them by name or all together through ``**kwargs``.
+    """
+
+    def __init__(self, name: str, version: str = "0", doc: str = "", shared: list[Param] | tuple[Param, ...] = ()):
         self.name = name
         self.version = version
         self.doc = doc
         self.functions: dict[str, PluginFunction] = {}
+        self.shared: tuple[Param, ...] = ()
+        self._record_fields: dict[str, dict[str, tuple]] = {}  # record type -> its fields as declared so far
+        if shared:
+            self.share(*shared)
+
+    def share(self, *params: Param) -> None:
+        """Declare parameters every ``shared=True`` function of this namespace takes."""
+        for p in params:
+            _validate_param(p, f"plugin {self.name} (shared parameters)")
+        names = [p.name for p in (*self.shared, *params)]
+        if len(set(names)) != len(names):
+            raise PluginDefinitionError(f"plugin {self.name}: a shared parameter is declared twice")
+        self.shared = (*self.shared, *params)
 
     def function(
         self,
@@ -159,6 +177,7 @@ class Namespace:
         fields: list[Field] | tuple[Field, ...] = (),
         returns: str | None = None,
         doc: str | None = None,
+        shared: bool = False,
     ):
         def register(func: Callable) -> Callable:
             fname = name or func.__name__
@@ -166,53 +185,91 @@ class Namespace:
                 namespace=self.name,
                 name=fname,
                 func=func,
-                params=tuple(params),
+                params=tuple(params) + (self.shared if shared else ()),
                 fields=tuple(fields),
                 doc=(doc or inspect.getdoc(func) or "").strip(),
                 returns=returns or self.name,
                 version=self.version,
             )
-            validate(pf)
+            validate(pf, collective={p.name for p in self.shared} if shared else set())
+            _same_fields(self._record_fields.setdefault(pf.returns, {}), pf)
             self.functions[fname] = pf
             return func
 
         return register
 
 
-def validate(pf: PluginFunction) -> None:
-    """The contract, checked at registration; each failure names the plugin."""
+def _validate_param(p: Param, where: str) -> None:
+    if p.kind_ not in KINDS:
+        raise PluginDefinitionError(f"{where}: parameter {p.name} has unknown kind {p.kind_!r}")
+    if p.kind_ in ("quantity", "points") and p.dim is None:
+        raise PluginDefinitionError(f"{where}: parameter {p.name} needs a dimension")
+    if p.kind_ == "record" and not p.record:
+        raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
+    if p.record and p.kind_ not in ("record", "list"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} names a record type but is a {p.kind_}")
+    if p.choices is not None and p.kind_ not in ("text", "flag"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} has choices but is a {p.kind_}")
+    if p.dim is not None:
+        try:
+            U.parse_dimension(p.dim)
+        except Exception as exc:
+            raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
+
+
+def _same_fields(known: dict[str, tuple], pf: PluginFunction) -> None:
+    """Every function returning one record type declares its fields alike: a field of the same name has the
+    same kind, dimension and record type whichever function made the record (a reader of ``rec.x`` relies
+    on it). Variants of one record type may carry fields of their own (a point load has P, a couple M).
+
+    ``known``: field name -> (kind, dimension, record type, first declarer) for the record type so far;
+    ``pf``'s fields are checked against it and added."""
+    for f in pf.fields:
+        sig = (f.kind_, f.dimension, f.record)
+        seen = known.setdefault(f.name, (*sig, pf.qualname))
+        if seen[:3] != sig:
+            raise PluginDefinitionError(
+                f"plugin {pf.qualname}: returns a {pf.returns} record like {seen[3]} but declares field "
+                f"{f.name} differently; every function returning one record type declares each field alike")
+
+
+FIELD_KINDS = ("quantity", "number", "text", "record")
+
+
+def validate(pf: PluginFunction, collective: set[str] = frozenset()) -> None:
+    """The contract, checked at registration; each failure names the plugin.
+
+    ``collective``: shared parameters the Python function may take through ``**kwargs``.
+    """
     where = f"plugin {pf.qualname}"
     sig = inspect.signature(pf.func)
     names = list(sig.parameters)
     if not names:
         raise PluginDefinitionError(f"{where}: its first parameter must receive the Work")
-    py_params = names[1:]
+    rest = list(sig.parameters.values())[1:]
+    py_params = [p.name for p in rest if p.kind not in (p.VAR_KEYWORD, p.VAR_POSITIONAL)]
+    takes_kwargs = any(p.kind == p.VAR_KEYWORD for p in rest)
     declared = [p.name for p in pf.params]
     if len(set(declared)) != len(declared):
         raise PluginDefinitionError(f"{where}: a parameter is declared twice")
-    extra = [n for n in declared if n not in py_params]
+    extra = [n for n in declared if n not in py_params and not (takes_kwargs and n in collective)]
     missing = [n for n in py_params if n not in declared]
     if extra:
         raise PluginDefinitionError(f"{where}: declares parameter(s) {extra} its function does not take")
     if missing:
         raise PluginDefinitionError(f"{where}: function takes parameter(s) {missing} that are not declared")
     for p in pf.params:
-        if p.kind_ not in KINDS:
-            raise PluginDefinitionError(f"{where}: parameter {p.name} has unknown kind {p.kind_!r}")
-        if p.kind_ in ("quantity", "points") and p.dim is None:
-            raise PluginDefinitionError(f"{where}: parameter {p.name} needs a dimension")
-        if p.kind_ == "record" and not p.record:
-            raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
-        if p.dim is not None:
-            try:
-                U.parse_dimension(p.dim)
-            except Exception as exc:
-                raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
+        _validate_param(p, where)
     seen = set()
     for f in pf.fields:
         if f.name in seen:
             raise PluginDefinitionError(f"{where}: field {f.name} is declared twice")
         seen.add(f.name)
+        if f.kind_ not in FIELD_KINDS:
+            raise PluginDefinitionError(f"{where}: field {f.name} has unknown kind {f.kind_!r} "
+                                        f"(kinds: {', '.join(FIELD_KINDS)})")
+        if f.kind_ == "record" and not f.record:
+            raise PluginDefinitionError(f"{where}: record field {f.name} needs a record type")
         if f.dim is not None:
             try:
                 U.parse_dimension(f.dim)
@@ -311,6 +368,35 @@ class PluginRegistry:
 
     def is_namespace(self, name: str) -> bool:
         return name not in self.blocked and (name in self._loaded or name in self._eps())
+
+    def check_contract(self) -> list[str]:
+        """The parts of the contract that need every plugin loaded: each record type a parameter or field
+        names is returned by some function, and every function returning one record type, across
+        namespaces, declares the same fields. Returns the problems found (empty: none)."""
+        problems: list[str] = []
+        functions: list[PluginFunction] = []
+        for name in self.names():
+            try:
+                ns = self.namespace(name)
+            except PluginDefinitionError as exc:
+                problems.append(str(exc))
+                continue
+            if ns is not None:
+                functions.extend(ns.functions.values())
+        makers: dict[str, dict[str, tuple]] = {}
+        for pf in functions:
+            try:
+                _same_fields(makers.setdefault(pf.returns, {}), pf)
+            except PluginDefinitionError as exc:
+                problems.append(str(exc))
+        for pf in functions:
+            wanted = [(f"parameter {p.name}", p.record) for p in pf.params if p.record]
+            wanted += [(f"field {f.name}", f.record) for f in pf.fields if f.record]
+            for what, record in wanted:
+                if record not in makers:
+                    problems.append(f"plugin {pf.qualname}: {what} needs a {record} record, "
+                                    "which no loaded plugin function returns")
+        return problems
 
     def loaded_versions(self) -> dict[str, str]:
         return {n: ns.version for n, ns in self._loaded.items()}
