@@ -225,6 +225,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
     check_no = 0
     source_lines = result.source.split("\n")
     included_lines: dict[str, list[str]] = {}
+    inputs = frozenset(res.inputs)
 
     def unit_of(k, v):
         return display.get(k) if k in display else (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
@@ -242,7 +243,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
             continue
         try:
             record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=result.overrides,
-                                        inputs=res.inputs, unit_of=unit_of)
+                                        inputs=inputs, unit_of=unit_of)
             if isinstance(record, TR.Step):
                 result.values[stmt.name] = record.value
                 result.steps[stmt.name] = record

@@ -39,7 +39,6 @@ from .plugin import PluginRegistry, Record, default_registry
 from .plugin_host import PluginHost, kind_of, show
 from .trace import CheckResult, Step
 
-CONSTANTS = B.CONSTANTS  # kept for callers of the old name; the table is builtins.CONSTANTS
 
 
 class Evaluator:

@@ -187,6 +187,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     new_checks: dict[str, CheckResult] = {}
     new_overrides = {k: v for k, v in prev.overrides.items() if k not in roots}
     warnings: list[Diagnostic] = []
+    inputs = frozenset(res.inputs)
 
     def unit_of(k, v):
         if k in display:
@@ -197,7 +198,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
         stmt = res.statements[key]
         try:
             record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=new_overrides,
-                                        inputs=res.inputs, unit_of=unit_of)
+                                        inputs=inputs, unit_of=unit_of)
             if isinstance(record, Step):
                 old = prev.steps.get(key)
                 if key in roots and old is not None and not _same_kind(old.value, record.value):
