@@ -538,7 +538,9 @@ CONSTANTS: dict[str, Constant] = {
     "pi": Constant("pi", math.pi, "", "the ratio of a circle's circumference to its diameter"),
 }
 
-BUILTIN_NAMES = frozenset(FUNCTIONS) | frozenset(CONSTANTS)
+def is_builtin(name: str) -> bool:
+    """A name the table gives a meaning (a sheet may not define it)."""
+    return name in FUNCTIONS or name in CONSTANTS
 
 
 def check_call_shape(fn: Function, node: N.Call) -> None:

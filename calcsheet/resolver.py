@@ -20,7 +20,7 @@ from .errors import (
     UnknownPluginError,
     UseBeforeDefinitionError,
 )
-from .builtins import BUILTIN_NAMES, CONSTANTS, FUNCTIONS
+from .builtins import CONSTANTS, FUNCTIONS, is_builtin
 from .names import did_you_mean
 from .plugin import PluginRegistry
 
@@ -82,7 +82,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                 errors.append(RedefinitionError(
                     f"'{stmt.name}' is already defined on {res.def_spans[stmt.name].where()}", stmt.name_span,
                     hint="give the new value its own name (e.g. a subscript: M_2)"))
-            elif stmt.name in BUILTIN_NAMES:
+            elif is_builtin(stmt.name):
                 errors.append(RedefinitionError(f"'{stmt.name}' is a built-in name", stmt.name_span,
                                                 hint="choose another name"))
             elif plugins.is_namespace(stmt.name):

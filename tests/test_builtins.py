@@ -215,3 +215,36 @@ def test_the_folder_uses_the_operator_rules():
     assert B.written_power(parse_expression("(1/3)")) == pytest.approx(1 / 3)
     assert B.written_power(parse_expression("n")) is None
     assert B.written_power(parse_expression("2 mm/1 m")) is None
+
+
+# ---------------------------------------------------------------- adding a built-in touches one table
+
+
+def test_a_new_table_entry_is_known_to_resolver_checker_evaluator_and_printers(monkeypatch):
+    # the worked example of DEVELOPERS.md, "How to add a built-in"
+    def rule(args, nodes, node):
+        B._no_offset("hypot", args, nodes)
+        return B._same_dims("hypot", args, nodes)
+
+    def impl(args, node):
+        a, b = args
+        return B._q(math.hypot(a.magnitude, b.to(a.units).magnitude), "") * a.units
+
+    monkeypatch.setitem(B.FUNCTIONS, "hypot", B._fn("hypot", 2, rule, impl, "hypotenuse"))
+    r = run("a = 3 m\nb = 4000 mm\nc = hypot(a, b)\n")
+    assert r.ok and r.values["c"].to("m").magnitude == pytest.approx(5.0)  # 3-4-5 triangle
+    assert errors("a = 3 m\nc = hypot(a)\n", evaluate=False) == [(2, 5, "type-mismatch")]
+    assert errors("a = 3 m\nc = hypot(a, 2 s)\n", evaluate=False) == [(2, 14, "dimension-mismatch")]
+    assert errors("a = 3 m\nc = hypot(a, 2 s)\n") == [(2, 14, "dimension-mismatch")]
+    assert TextPrinter().expr(parse_expression("hypot(a, b)")) == "hypot(a, b)"
+    assert errors("hypot = 2 m\n") == [(1, 1, "redefinition")]
+
+
+def test_the_readme_lists_exactly_the_functions_of_the_table():
+    import re
+    from pathlib import Path
+
+    text = (Path(__file__).parents[1] / "README.md").read_text(encoding="utf-8")
+    listed = re.search(r"functions `([^`]*)`", text.replace("\n  ", " ")).group(1).split()
+    assert sorted(listed) == sorted(n for n in B.FUNCTIONS if n != "if")  # if() has its own paragraph
+    assert "`pi`" in text and set(B.CONSTANTS) == {"pi"}
