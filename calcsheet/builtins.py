@@ -311,8 +311,15 @@ def _same_dims(name: str, args, nodes) -> Arg | None:
 
 
 def _rule_same(name):
-    """abs, min, max: values of one dimension (a °C/°F temperature allowed); the result has it."""
+    """abs, min, max: values of one dimension (°C/°F temperatures allowed, all on such a scale or none);
+    the result has it."""
     def rule(args, nodes, node):
+        known = [(a, n) for a, n in zip(args, nodes) if a is not None]
+        if len({a.offset for a, _ in known}) > 1:
+            arg = next(n for a, n in known if a.offset != known[0][0].offset)
+            raise OffsetTemperatureError(
+                f"{name}() of a temperature on the °C/°F scale and one that is not", arg.span,
+                hint="write every value on one scale: all in °C (or °F), or all in K")
         return _same_dims(name, args, nodes)
     return rule
 
@@ -383,6 +390,10 @@ def rule_if(x, y, node: N.Call):
     if x is None or y is None:
         return x if y is None else y
     if isinstance(x, Arg) and isinstance(y, Arg):
+        if x.dim == y.dim and x.offset != y.offset:
+            raise OffsetTemperatureError(
+                "one value of if() is a temperature on the °C/°F scale, the other is not", node.span,
+                hint="give both outcomes on one scale: both in °C (or °F), or both in K")
         if x.dim == y.dim:
             return x
         xd, yd = _d(x), _d(y)

@@ -183,6 +183,8 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
     "x = if(a < b, sqrt(a*b), c)",          # the branch not taken still has its dimension
     "x = agr.span(L=a, w=f, n=1)",          # a force where a line load belongs
     "x = a^r",                              # a power read from a name
+    "x = max(t_1, 300 K)\nz = x * 2",        # °C and K mixed: the result's scale would depend on the values
+    "x = if(a < b, t_1, t_2 - t_1)\nz = x * 2",  # one outcome on the °C scale, the other a difference
 ])
 def test_known_disagreements_stay_agreed(body):
     text = PREAMBLE + body + "\n"
