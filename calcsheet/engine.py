@@ -260,10 +260,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         except CalcError as exc:
             res.broken.add(key)
             result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))
-        for message, span in ev.warnings:
-            result.diagnostics.append(Diagnostic("warning", "plugin-warning", message, span or stmt.span,
-                                                 path=result.path))
-        ev.warnings.clear()
+        result.diagnostics.extend(ev.take_warnings(stmt.span, result.path))
     result.plugin_versions = dict(ev.plugin_versions)
 
 

@@ -26,6 +26,7 @@ from . import units as U
 from .display import DisplayPolicy
 from .errors import (
     DeclaredUnitError,
+    Diagnostic,
     NumericError,
     OffsetTemperatureError,
     PluginArgumentError,
@@ -57,6 +58,14 @@ class Evaluator:
     def warnings(self) -> list[tuple[str, Any]]:
         """(message, span) of the plugin warnings since last cleared."""
         return self.host.warnings
+
+    def take_warnings(self, span, path: str) -> list[Diagnostic]:
+        """The plugin warnings of the statement just evaluated (at ``span`` unless a plugin named its
+        argument), as diagnostics; cleared for the next statement."""
+        out = [Diagnostic("warning", "plugin-warning", message, at or span, path=path)
+               for message, at in self.host.warnings]
+        self.host.warnings.clear()
+        return out
 
     @property
     def plugin_versions(self) -> dict[str, str]:

@@ -209,9 +209,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
                 new_checks[key] = record
         except CalcError:
             raise _FullRun(f"{key} now raises an error") from None
-        for message, span in ev.warnings:
-            warnings.append(Diagnostic("warning", "plugin-warning", message, span or stmt.span, path=prev.path))
-        ev.warnings.clear()
+        warnings.extend(ev.take_warnings(stmt.span, prev.path))
 
     result = Result(path=prev.path, source=source, meta=dict(prev.meta), policy=prev.policy, resolution=res,
                     sheet=sheet, overrides=new_overrides,

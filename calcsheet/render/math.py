@@ -8,7 +8,7 @@ from __future__ import annotations
 import pint
 
 from .. import nodes as N
-from ..builtins import print_form
+from ..builtins import OPERATORS, print_form
 from ..names import dotted, strip_sign, unparen
 from ..display import shown, split_number
 from ..plugin import Record
@@ -101,19 +101,19 @@ class MathPrinter(Printer):
         return self.m_neg(self._wrap(node.operand, PRECEDENCE[N.Neg]))
 
     def _print_Add(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 10), "+", self._wrap(node.right, 10))
+        return self.m_binary(self._wrap(node.left, 10), OPERATORS["+"].printed, self._wrap(node.right, 10))
 
     def _print_Sub(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 10), "−", self._wrap(node.right, 10, strict=True))
+        return self.m_binary(self._wrap(node.left, 10), OPERATORS["-"].printed, self._wrap(node.right, 10, strict=True))
 
     def _print_Mul(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 20), "·", self._wrap(node.right, 20, strict=isinstance(
+        return self.m_binary(self._wrap(node.left, 20), OPERATORS["*"].printed, self._wrap(node.right, 20, strict=isinstance(
             node.right, N.Div) and not self.settings["stacked_fractions"]))
 
     def _print_Div(self, node: N.Div, ctx):
         if self.settings["stacked_fractions"]:
             return self.m_frac(self._print(unparen(node.left), 0), self._print(unparen(node.right), 0))
-        return self.m_binary(self._wrap(node.left, 20), "/", self._wrap(node.right, 20, strict=True))
+        return self.m_binary(self._wrap(node.left, 20), OPERATORS["/"].printed, self._wrap(node.right, 20, strict=True))
 
     def _print_Pow(self, node: N.Pow, ctx):
         base = self._wrap(node.left, PRECEDENCE[N.Pow] + 1)
