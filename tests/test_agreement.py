@@ -14,7 +14,7 @@ from __future__ import annotations
 
 import pint
 import pytest
-from hypothesis import HealthCheck, assume, given, settings
+from hypothesis import HealthCheck, assume, event, given, settings
 from hypothesis import strategies as st
 
 from calcsheet import builtins as B
@@ -107,18 +107,77 @@ def expressions(depth: int = 3):
     )
 
 
+# expressions right by construction, of a known kind: L length, N plain number, A angle, F force, W line load
+TYPED_LEAVES = {
+    "L": ["a", "b", "3 m", "150 mm"], "N": ["r", "2", "0.25", "p.k", "pi"], "A": ["g", "45 deg", "1.5 rad"],
+    "F": ["f", "4 kN", "p.R"], "W": ["w", "10 kN/m"],
+}
+
+
+def typed(kind: str, depth: int = 2):
+    leaves = st.sampled_from(TYPED_LEAVES[kind])
+    if depth == 0:
+        return leaves
+    same = typed(kind, depth - 1)
+    number = typed("N", depth - 1)
+    options = [
+        leaves,
+        st.tuples(same, st.sampled_from(["+", "-"]), same).map(lambda t: f"({t[0]} {t[1]} {t[2]})"),
+        st.tuples(same, number).map(lambda t: f"({t[0]} * {t[1]})"),
+        st.tuples(st.sampled_from(["min", "max"]), st.lists(same, min_size=1, max_size=3)).map(
+            lambda t: f"{t[0]}({', '.join(t[1])})"),
+        same.map(lambda x: f"abs({x})"),
+        st.tuples(typed("L", depth - 1), st.sampled_from(["<=", ">"]), typed("L", depth - 1), same, same).map(
+            lambda t: f"if({t[0]} {t[1]} {t[2]}, {t[3]}, {t[4]})"),
+    ]
+    if kind == "N":
+        options += [
+            typed("A", depth - 1).map(lambda x: f"sin({x})"),
+            st.tuples(typed("L", depth - 1), typed("L", depth - 1)).map(lambda t: f"({t[0]} / {t[1]})"),
+            st.tuples(st.sampled_from(["exp", "ceil", "floor"]), same).map(lambda t: f"{t[0]}({t[1]})"),
+            st.tuples(same, st.sampled_from(["2", "r", "(1/2)", "-1"])).map(lambda t: f"({t[0]})^{t[1]}"),
+        ]
+    if kind == "A":
+        options += [st.tuples(typed("L", depth - 1), typed("L", depth - 1)).map(lambda t: f"atan2({t[0]}, {t[1]})"),
+                    number.map(lambda x: f"atan({x})")]
+    if kind == "L":
+        options += [st.tuples(same, same).map(lambda t: f"sqrt({t[0]} * {t[1]})"),
+                    st.tuples(typed("F", depth - 1), typed("W", depth - 1)).map(lambda t: f"({t[0]} / {t[1]})")]
+    if kind == "F":
+        options += [st.tuples(typed("W", depth - 1), same.map(lambda x: x)).map(lambda t: f"({t[0]} * a)")]
+    return st.one_of(*options)
+
+
+def maybe_typed(kind: str):
+    """Right by construction, or anything at all."""
+    return st.one_of(typed(kind), expressions(2))
+
+
+KIND_UNITS = {"L": ["m", "mm"], "N": [""], "A": ["deg", "rad"], "F": ["kN"], "W": ["kN/m"]}
+
+
 def statements():
     expr = expressions(2)
-    definition = st.tuples(st.sampled_from([None, None, *DECLARED]), expr).map(
-        lambda t: f"x = {t[1]}" if t[0] is None else f"x [{t[0]}] = {t[1]}")
-    check = st.tuples(expr, st.sampled_from(["<=", ">"]), expr).map(lambda t: f"check {t[0]} {t[1]} {t[2]}")
-    plugin = st.tuples(expr, expr, expr).map(lambda t: f"x = agr.span(L={t[0]}, w={t[1]}, n={t[2]})")
+    kinds = st.sampled_from(sorted(TYPED_LEAVES))
+
+    def definition_of(kind):
+        unit = st.one_of(st.none(), st.none(), st.sampled_from(KIND_UNITS[kind]), st.sampled_from(DECLARED))
+        return st.tuples(unit, st.one_of(typed(kind), expr)).map(
+            lambda t: f"x = {t[1]}" if t[0] is None else f"x [{t[0]}] = {t[1]}")
+
+    definition = kinds.flatmap(definition_of)
+    check = st.one_of(
+        st.tuples(expr, st.sampled_from(["<=", ">"]), expr),
+        kinds.flatmap(lambda k: st.tuples(typed(k), st.sampled_from(["<=", ">"]), typed(k))),
+    ).map(lambda t: f"check {t[0]} {t[1]} {t[2]}")
+    plugin = st.tuples(maybe_typed("L"), maybe_typed("W"), maybe_typed("N")).map(
+        lambda t: f"x = agr.span(L={t[0]}, w={t[1]}, n={t[2]})")
     field = st.sampled_from(["M", "R", "k"]).map(lambda f: f"y = x.{f}")
     return st.one_of(
         definition,
         check,
         st.tuples(plugin, field).map("\n".join),
-        st.tuples(definition, expr.map(lambda e: f"z = x * {e}")).map("\n".join),
+        st.tuples(definition, st.one_of(expr, typed("N")).map(lambda e: f"z = x * {e}")).map("\n".join),
     )
 
 
@@ -158,6 +217,8 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
     except CalcError as exc:  # a numeric error stopped evaluation before any dimension was decided
         assume(False)
         raise AssertionError(exc)  # pragma: no cover
+    event("check found an error" if found else "check clean")
+    event("plugin call evaluated" if "agr.span" in body and raised is None else "other")
     assert bool(found) == (raised is not None), (
         f"\n{body}\ncheck: {[d.one_line() for d in found]}\nevaluation: {raised!r}")
     if raised is None:
