@@ -12,6 +12,8 @@ a division by zero) say nothing about dimensions and are set aside.
 """
 from __future__ import annotations
 
+from functools import lru_cache
+
 import pint
 import pytest
 from hypothesis import HealthCheck, assume, event, given, settings
@@ -75,6 +77,7 @@ DIMENSION_ERRORS = (DimensionError, DeclaredUnitError, AngleError, OffsetTempera
                     TypeMismatchError)
 
 
+@lru_cache(maxsize=None)
 def expressions(depth: int = 3):
     leaves = st.sampled_from(NAMES + LITERALS)
     if depth == 0:
@@ -114,6 +117,7 @@ TYPED_LEAVES = {
 }
 
 
+@lru_cache(maxsize=None)
 def typed(kind: str, depth: int = 2):
     leaves = st.sampled_from(TYPED_LEAVES[kind])
     if depth == 0:
