@@ -406,7 +406,7 @@ class Checker:
         if t.kind == "any":
             return
         if kind in ("quantity", "number"):
-            want = p.dimension if kind == "quantity" else U.DIMENSIONLESS
+            want = p.wanted
             self._need(where, want, t, kw.value)
             self._pending.extend(lint.argument_findings(p.name, kw.value, self, self.path))
         elif kind in ("text", "flag"):
@@ -437,14 +437,13 @@ class Checker:
                     for c in pts:
                         ct = self.infer(c)
                         if ct.kind == "q":
-                            self._need(f"{where} coordinate", p.dimension, ct, c)
+                            self._need(f"{where} coordinate", p.wanted, ct, c)
                 elif p.record:
                     if it.kind != "record" or it.record_type != p.record:
                         raise PluginArgumentError(f"{where} needs {p.record} records, got a {it.describe()}",
                                                   item.span)
                 else:
-                    want = p.dimension if p.dim is not None else U.DIMENSIONLESS
-                    self._need(f"{where} item", want, it, item)
+                    self._need(f"{where} item", p.wanted, it, item)
 
 
 _EXAMPLE_UNITS = {

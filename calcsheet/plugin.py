@@ -66,6 +66,12 @@ class Param:
     def dimension(self) -> U.Dim | None:
         return U.parse_dimension(self.dim) if self.dim is not None else None
 
+    @property
+    def wanted(self) -> U.Dim:
+        """The dimension each value of this parameter must have (a quantity, a list item, a coordinate):
+        the one rule the checker and the plugin host both apply."""
+        return U.parse_dimension(self.dim) if self.dim is not None else U.DIMENSIONLESS
+
     def describe(self) -> str:
         k = self.kind_
         if k == "quantity":
@@ -208,6 +214,8 @@ def _validate_param(p: Param, where: str) -> None:
         raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
     if p.record and p.kind_ not in ("record", "list"):
         raise PluginDefinitionError(f"{where}: parameter {p.name} names a record type but is a {p.kind_}")
+    if p.dim is not None and p.kind_ in ("number", "text", "flag", "record"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} is a {p.kind_} and takes no dimension")
     if p.choices is not None and p.kind_ not in ("text", "flag"):
         raise PluginDefinitionError(f"{where}: parameter {p.name} has choices but is a {p.kind_}")
     if p.dim is not None:

@@ -169,8 +169,7 @@ class PluginHost:
         if kind in ("quantity", "number"):
             if not isinstance(value, pint.Quantity):
                 raise PluginArgumentError(f"{where} needs {p.describe()}, got a {kind_of(value)}", span)
-            want = p.dimension if kind == "quantity" else U.DIMENSIONLESS
-            self._check_dim(where, p, want, value, span)
+            self._check_dim(where, p, p.wanted, value, span)
             return value
         if kind in ("text", "flag"):
             if not isinstance(value, str):
@@ -194,7 +193,7 @@ class PluginHost:
                 elif not isinstance(item, pint.Quantity):
                     raise PluginArgumentError(f"{where} needs a list of quantities, got a {kind_of(item)} in it", span)
                 else:
-                    self._check_dim(where, p, p.dimension if p.dim is not None else U.DIMENSIONLESS, item, span)
+                    self._check_dim(where, p, p.wanted, item, span)
             return items
         if kind == "points":
             if not isinstance(value, tuple):
@@ -203,7 +202,7 @@ class PluginHost:
                 if not (isinstance(pt, tuple) and len(pt) == 2 and all(isinstance(c, pint.Quantity) for c in pt)):
                     raise PluginArgumentError(f"{where} needs points written (x, y)", span)
                 for c in pt:
-                    self._check_dim(where, p, p.dimension, c, span)
+                    self._check_dim(where, p, p.wanted, c, span)
             return value
         return value  # pragma: no cover
 

@@ -55,6 +55,7 @@ def test_field_kinds_and_dimensions_are_validated(field, words):
     (Param("a", kind="record"), "needs a record type"),
     (Param("a", "[length]", record="section"), "names a record type but is a quantity"),
     (Param("a", "[length]", choices=("x",)), "has choices but is a quantity"),
+    (Param("a", "[length]", kind="number"), "is a number and takes no dimension"),
 ])
 def test_parameter_kinds_are_validated(param, words):
     ns = Namespace("t4")
