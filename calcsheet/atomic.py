@@ -35,3 +35,119 @@ def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
         pass
     finally:
         os.close(dfd)
+
+
+# ---------------------------------------------------------------- a package: several files as one unit
+#
+# out/<stem>.html, .pdf, .json are symbolic links into out/.calcsheet/<stem>/current/, and
+# ``current`` is itself a link to the folder of one build (out/.calcsheet/<stem>/build-XXXX/).
+# A build writes every file into a new build folder, then swaps ``current`` with one rename:
+# a reader sees the whole old package or the whole new one, never a mixture, and a failure
+# (or a kill) before the rename leaves the old one byte-identical. docs/limits.md#the-package.
+
+STORE = ".calcsheet"
+STALE_SECONDS = 600  # a build folder left by a killed build is removed by a build this much later
+
+
+def _fsync_dir(folder: Path) -> None:
+    try:
+        dfd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(dfd)
+    except OSError:
+        pass
+    finally:
+        os.close(dfd)
+
+
+def _remove_tree(path: Path) -> None:
+    import shutil
+
+    if path.is_symlink() or path.is_file():
+        path.unlink(missing_ok=True)
+    elif path.exists():
+        shutil.rmtree(path, ignore_errors=True)
+
+
+def _swap_link(link: Path, target: str) -> None:
+    """Point ``link`` at ``target`` with one rename (a new link beside it, then ``os.replace``)."""
+    tmp = link.with_name(f".{link.name}.{os.getpid()}.{os.urandom(4).hex()}.tmp")
+    try:
+        os.symlink(target, tmp)
+        os.replace(tmp, link)
+    except BaseException:
+        tmp.unlink(missing_ok=True)
+        raise
+
+
+def _sweep(store: Path, keep: str | None) -> None:
+    """Build folders and link temps left by a killed build, once they are clearly not in progress."""
+    import time
+
+    if not store.is_dir():
+        return
+    now = time.time()
+    for p in store.iterdir():
+        if p.name in ("current", keep):
+            continue
+        if p.name.startswith(("build-", ".current.")):
+            try:
+                if now - p.lstat().st_mtime > STALE_SECONDS:
+                    _remove_tree(p)
+            except OSError:
+                pass
+
+
+def publish_package(out_dir: Path, stem: str, files: dict[str, bytes], mode: int = 0o644) -> list[Path]:
+    """Write ``files`` ({name: bytes}) as one package in ``out_dir``; returns the paths users open.
+
+    Every file is written and fsynced in a fresh build folder first; then the ``current`` link is swapped
+    by one ``os.replace``. Only after that are links for new file names added and the previous build
+    folder removed. A failure before the swap removes the new build folder and leaves the old package as
+    it was, byte for byte; ``out/<stem>.<ext>`` keep their paths.
+    """
+    import tempfile
+
+    out_dir = Path(out_dir)
+    store = out_dir / STORE / stem
+    store.mkdir(parents=True, exist_ok=True)
+    current = store / "current"
+    old = os.readlink(current) if current.is_symlink() else None
+    _sweep(store, old)
+    build = Path(tempfile.mkdtemp(prefix="build-", dir=store))
+    try:
+        for name, data in files.items():
+            path = build / name
+            with open(path, "wb") as fh:
+                fh.write(data)
+                fh.flush()
+                os.fsync(fh.fileno())
+            os.chmod(path, mode)
+        os.chmod(build, 0o755)
+        _fsync_dir(build)
+        # the links users open point through ``current``: once made they never change, so the swap is
+        # the only moment the package changes. A folder in the way is found before anything changes.
+        rel = Path(STORE) / stem / "current"
+        for name in files:
+            link = out_dir / name
+            if not link.is_symlink() or os.readlink(link) != str(rel / name):
+                if link.exists() and not link.is_symlink() and link.is_dir():
+                    raise IsADirectoryError(21, f"a folder is in the way of {link}")
+        _swap_link(current, build.name)  # THE switch: old package -> new package
+        _fsync_dir(store)
+    except BaseException:
+        _remove_tree(build)
+        raise
+    for name in files:  # a file name new to this package (or a file of the old layout) becomes a link
+        link = out_dir / name
+        if not link.is_symlink() or os.readlink(link) != str(rel / name):
+            _swap_link(link, str(rel / name))
+    for link in out_dir.glob(f"{stem}.*"):  # a format the old package had and this one has not
+        if link.is_symlink() and os.readlink(link).startswith(str(rel) + os.sep) and not link.exists():
+            link.unlink(missing_ok=True)
+    _fsync_dir(out_dir)
+    if old and old != build.name:
+        _remove_tree(store / old)
+    return [out_dir / name for name in files]

@@ -1,7 +1,8 @@
 """The ``calcsheet`` command: build, check, diff, watch, plugins.
 
-Exit status: 0 done; 1 a sheet has errors; 2 usage error; 3 checks NG under
---fail-on-ng (or warnings under --strict for ``check``).
+Exit status: 0 done; 1 a sheet has errors; 2 usage error (including an argument or file
+that cannot be read); 3 checks NG under --fail-on-ng (or warnings under --strict for
+``check``); 4 an internal error (a bug in calcsheet: never a Python traceback).
 """
 from __future__ import annotations
 
@@ -9,7 +10,9 @@ import argparse
 import sys
 from pathlib import Path
 
-EXIT_OK, EXIT_ERRORS, EXIT_USAGE, EXIT_NG = 0, 1, 2, 3
+EXIT_OK, EXIT_ERRORS, EXIT_USAGE, EXIT_NG, EXIT_INTERNAL = 0, 1, 2, 3, 4
+MAX_SET_TEXT = 1_000  # characters of one override value
+MAX_SET_NAMES = 10_000
 FORMATS = ("html", "pdf", "json")
 
 
@@ -61,25 +64,54 @@ def _parser() -> argparse.ArgumentParser:
     return p
 
 
+def _located(path, exc) -> ValueError:
+    """A usage error at ``path:line:col`` from a located ``CalcError``."""
+    span = exc.span
+    hint = f"\n  hint: {exc.hint}" if getattr(exc, "hint", None) else ""
+    return ValueError(f"{path}:{span.line}:{span.col}: {exc.message}{hint}")
+
+
 def read_set_file(path: Path) -> dict[str, str]:
-    """A TOML table of overrides: ``L = "7.5 m"``; a bare number is a dimensionless value."""
+    """A TOML table of overrides: ``L = "7.5 m"``; a bare number is a dimensionless value.
+
+    Read with a size cap, decoded strictly, parsed, then checked by shape: every error names the file,
+    line and column (line 1 column 1 when the fault is the whole file)."""
+    import re
     import tomllib
 
+    from . import reading
+    from .errors import CalcError
+
     try:
-        data = tomllib.loads(path.read_text(encoding="utf-8"))
-    except OSError as exc:
-        raise ValueError(f"--set-file {path}: {exc.strerror or exc}") from None
-    except (tomllib.TOMLDecodeError, UnicodeDecodeError) as exc:
-        raise ValueError(f"--set-file {path}: not valid TOML ({exc})") from None
+        text = reading.read_text(path, "SET_FILE_BYTES", "--set-file")
+    except CalcError as exc:
+        raise _located(path, exc) from None
+    try:
+        data = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        m = re.search(r"\(at line (\d+), column (\d+)\)", str(exc))
+        line, col = (int(m.group(1)), int(m.group(2))) if m else (1, 1)
+        what = re.sub(r"\s*\(at .*\)$", "", str(exc))
+        raise ValueError(f"{path}:{line}:{col}: --set-file is not valid TOML: {what}") from None
+    except RecursionError:
+        raise ValueError(f"{path}:1:1: --set-file is nested too deeply to read; overrides are a flat table "
+                         "of NAME = \"QUANTITY\"") from None
+    if len(data) > MAX_SET_NAMES:
+        raise ValueError(f"{path}:1:1: --set-file sets {len(data):,} names; at most {MAX_SET_NAMES:,}")
+    lines = text.split("\n")
     out = {}
     for name, value in data.items():
+        line = next((i for i, t in enumerate(lines, 1) if t.lstrip().startswith(str(name))), 1)
+        where = f"{path}:{line}:1"
         if isinstance(value, bool) or not isinstance(value, (str, int, float)):
-            raise ValueError(f"--set-file {path}: {name} must be a quantity written as a string "
-                             f"(e.g. {name} = \"7.5 m\") or a number")
-        text = str(value).strip()
-        if not text:
-            raise ValueError(f"--set-file {path}: {name} is empty")
-        out[str(name)] = text
+            raise ValueError(f"{where}: --set-file: {name[:80]} must be a quantity written as a string "
+                             f"(e.g. {name[:80]} = \"7.5 m\") or a number")
+        text_value = str(value).strip()
+        if not text_value:
+            raise ValueError(f"{where}: --set-file: {name[:80]} is empty")
+        if len(text_value) > MAX_SET_TEXT:
+            raise ValueError(f"{where}: --set-file: {name[:80]} is longer than {MAX_SET_TEXT} characters")
+        out[str(name)] = text_value
     return out
 
 
@@ -97,12 +129,37 @@ def parse_sets(items: list[str]) -> dict[str, str]:
     for item in items:
         name, sep, value = item.partition("=")
         if not sep or not name.strip() or not value.strip():
-            raise ValueError(f"--set expects NAME=QUANTITY, got {item!r}")
+            raise ValueError(f"--set expects NAME=QUANTITY, got {item[:80]!r}")
+        if len(value) > MAX_SET_TEXT or len(name) > MAX_SET_TEXT or "\x00" in item:
+            raise ValueError(f"--set {name[:40]}=…: at most {MAX_SET_TEXT} characters and no NUL")
         out[name.strip()] = value.strip()
     return out
 
 
 def main(argv: list[str] | None = None) -> int:
+    """The command. A bug is reported as an internal error (exit 4), never as a Python traceback;
+    ``CALCSHEET_DEBUG=1`` lets the traceback through for a developer."""
+    import os
+
+    try:
+        return _main(argv)
+    except KeyboardInterrupt:
+        print("calcsheet: interrupted", file=sys.stderr)
+        return 130
+    except SystemExit:
+        raise
+    except BaseException as exc:  # noqa: BLE001 -- the last line of defence, by design
+        if os.environ.get("CALCSHEET_DEBUG"):
+            raise
+        text = str(exc)
+        text = text if len(text) <= 300 else text[:300] + "…"
+        print(f"calcsheet: internal error: {type(exc).__name__}: {text}\n"
+              "This is a bug in calcsheet, not a problem with your input. Please report it with the command "
+              "you ran and the files it read (CALCSHEET_DEBUG=1 shows the traceback).", file=sys.stderr)
+        return EXIT_INTERNAL
+
+
+def _main(argv: list[str] | None = None) -> int:
     args = _parser().parse_args(argv)
     if args.version:
         from . import __version__
@@ -130,7 +187,9 @@ def _usage(message: str) -> int:
 
 
 def _missing(paths) -> list[Path]:
-    return [p for p in paths if not p.is_file()]
+    from .reading import is_file
+
+    return [p for p in paths if not is_file(p)]
 
 
 def cmd_build(args) -> int:
@@ -144,9 +203,9 @@ def cmd_build(args) -> int:
         return _usage(str(exc))
     missing = _missing(args.sheets)
     if missing:
-        return _usage(f"no such sheet: {missing[0]}")
+        return _usage(f"no such sheet: {str(missing[0])[:200]!r}")
     from .engine import run
-    from .package import write_package
+    from .package import PackageTooLarge, write_package
 
     status = EXIT_OK
     many = len(args.sheets) > 1
@@ -171,8 +230,9 @@ def cmd_build(args) -> int:
                 return _usage(str(exc))
         try:
             written = write_package(result, args.out, formats, paper=args.paper, **doc_options)
-        except OSError as exc:
-            print(f"calcsheet: error: cannot write the package: {exc}", file=sys.stderr)
+        except (OSError, PackageTooLarge) as exc:
+            print(f"{sheet}:1:1: error: cannot write the package: {exc}; previous package left as it was",
+                  file=sys.stderr)
             status = EXIT_ERRORS
             continue
         n_ng = sum(1 for c in result.checks if not c.ok)
@@ -187,7 +247,7 @@ def cmd_check(args) -> int:
     """Parse, resolve and dimension-check each sheet without evaluating; report every finding at once."""
     missing = _missing(args.sheets)
     if missing:
-        return _usage(f"no such sheet: {missing[0]}")
+        return _usage(f"no such sheet: {str(missing[0])[:200]!r}")
     from .render import check as R
     from .engine import run
 
@@ -214,9 +274,10 @@ def cmd_check(args) -> int:
         if code == EXIT_ERRORS or (code == EXIT_NG and status == EXIT_OK):
             status = code
     if args.format == "json":
-        import json
+        import json  # strict, as render.json.dumps (check imports no printer but its own)
 
-        print(json.dumps(all_json if len(all_json) != 1 else all_json[0], indent=2, ensure_ascii=False))
+        print(json.dumps(all_json if len(all_json) != 1 else all_json[0], indent=2, ensure_ascii=False,
+                         allow_nan=False))
     return status
 
 
@@ -259,6 +320,13 @@ def since_options(since: str, sheet: Path, result, many: bool) -> dict:
     from .diff import DiffSourceError, diff_snapshots, load_side, snapshot_of_result
     from .render.diff import changes_page
 
+    from .errors import CalcError
+    from .reading import check_path_text
+
+    try:
+        check_path_text(since, "--since")
+    except CalcError as exc:
+        raise ValueError(exc.message) from None
     spec = since
     if not Path(since).exists() and ":" not in since:
         spec = f"{since}:{sheet.as_posix()}"  # a bare revision: the same sheet at that revision
@@ -273,8 +341,6 @@ def since_options(since: str, sheet: Path, result, many: bool) -> dict:
 
 
 def cmd_diff(args) -> int:
-    import json
-
     from .diff import DiffSourceError, diff_specs
     from .render import diff as printers
 
@@ -283,15 +349,17 @@ def cmd_diff(args) -> int:
     except DiffSourceError as exc:
         return _usage(str(exc))
     if args.format == "json":
-        print(json.dumps(printers.to_json(d), indent=2, ensure_ascii=False))
+        print(printers.dumps(printers.to_json(d)))
     else:
         print(printers.text(d))
     return EXIT_ERRORS if d.new.errors else EXIT_OK
 
 
 def cmd_watch(args) -> int:
-    if not args.sheet.is_file():
-        return _usage(f"no such sheet: {args.sheet}")
+    from .reading import is_file
+
+    if not is_file(args.sheet):
+        return _usage(f"no such sheet: {str(args.sheet)[:200]!r}")
     if not 0 <= args.port <= 65535:
         return _usage(f"--port {args.port} is not a port number")
     try:

@@ -124,8 +124,10 @@ def read_source(path_or_text, path: str | None = None) -> tuple[str, str]:
     if isinstance(path_or_text, Path) or (
         isinstance(path_or_text, str) and "\n" not in path_or_text and path_or_text.endswith(".calc")
     ):
+        from .parser.sheet import read_sheet  # bounded, strict UTF-8; a failure is located SheetErrors
+
         p = Path(path_or_text)
-        return p.read_text(encoding="utf-8"), path or str(p)
+        return read_sheet(p), path or str(p)
     return str(path_or_text), path or "<sheet>"
 
 
@@ -142,11 +144,13 @@ def parse_override(name: str, text: str) -> N.Expr:
 
 def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | None = None,
         plugins: PluginRegistry | None = None, evaluate: bool = True) -> Result:
-    source, path = read_source(path_or_text, path)
     plugins = plugins or default_registry()
+    source = ""
     try:
+        source, path = read_source(path_or_text, path)
         sheet, diags = parse_sheet(source, path)
     except SheetErrors as exc:
+        path = path or str(path_or_text)
         return Result(path=path, source=source, meta={}, diagnostics=list(exc.diagnostics))
     meta = sheet.meta_dict
     policy = _policy(meta, diags, path)

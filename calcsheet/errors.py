@@ -6,6 +6,14 @@ offending source line and a caret, whichever stage raised it.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from functools import lru_cache
+
+
+@lru_cache(maxsize=8)
+def source_lines(source: str) -> list[str]:
+    """The lines of a source, split once however many diagnostics point into it (a str caches its hash,
+    so a hit costs no rescan): formatting n diagnostics is linear in the sheet, not quadratic."""
+    return source.splitlines()
 
 
 @dataclass(frozen=True)
@@ -74,7 +82,7 @@ class Diagnostic:
         head = f"{self.path}:{self.span.line}:{self.span.col}: {self.severity}: {self.message}"
         lines = [head + (f" [{self.code}]" if with_code else "")]
         if source is not None:
-            src_lines = source.splitlines()
+            src_lines = source_lines(source)
             if 1 <= self.span.line <= len(src_lines):
                 text = src_lines[self.span.line - 1].expandtabs(1)
                 end = self.span.end_col if self.span.end_line == self.span.line else len(text) + 1
@@ -223,6 +231,11 @@ class TooComplexError(CalcError):
 class OverrideError(CalcError):
     """A --set override names an unknown or derived value."""
     code = "override"
+
+
+class InputError(CalcError):
+    """A file or argument cannot be read: too large, not UTF-8, malformed, or of the wrong shape."""
+    code = "input"
 
 
 class IncludeError(CalcError):

@@ -8,15 +8,15 @@ written until every format has rendered.
 """
 from __future__ import annotations
 
-import json
 import os
 from pathlib import Path
 
-from .atomic import write_atomic
-from .render.json import JsonPrinter
+from . import reading
+from .atomic import publish_package
+from .render.json import JsonPrinter, dumps
 from .render.page import ASSETS, PackageDocument
 
-__all__ = ["ASSETS", "PackageDocument", "make_fetcher", "pdf_bytes", "write_package"]
+__all__ = ["ASSETS", "PackageDocument", "PackageTooLarge", "make_fetcher", "pdf_bytes", "write_package"]
 
 
 # ------------------------------------------------------------ PDF
@@ -50,14 +50,19 @@ def pdf_bytes(html: str) -> bytes:
     import weasyprint  # imported here: ~0.5 s, needed only when a PDF is written
 
     doc = weasyprint.HTML(string=str(html), base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
-    return doc.write_pdf()
+    rendered = doc.render()
+    pages = reading.limit("PDF_PAGES")
+    if len(rendered.pages) > pages:
+        raise PackageTooLarge(f"the PDF would have {len(rendered.pages):,} pages; "
+                              + reading.how_to_raise("PDF_PAGES"))
+    return rendered.write_pdf()
 
 
 def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None,
                   **doc_options) -> list[Path]:
-    """Render every format first, then write each atomically; nothing half-written is left."""
+    """Render every format first, then publish them together (``atomic.publish_package``): a reader sees
+    the whole old package or the whole new one; a failure anywhere leaves the old one byte-identical."""
     stem = stem or Path(result.path).stem or "sheet"
-    out_dir.mkdir(parents=True, exist_ok=True)
     rendered: dict[str, bytes] = {}
     html = None
     if "html" in formats or "pdf" in formats:
@@ -65,14 +70,21 @@ def write_package(result, out_dir: Path, formats: list[str], stem: str | None = 
     if "html" in formats:
         rendered["html"] = html.encode("utf-8")
     if "pdf" in formats:
+        if len(html) > reading.limit("OUTPUT_BYTES"):  # before WeasyPrint spends memory on it
+            raise PackageTooLarge(f"the page is {len(html):,} characters, too large to make a PDF of; "
+                                  + reading.how_to_raise("OUTPUT_BYTES"))
         rendered["pdf"] = pdf_bytes(html)
     if "json" in formats:
-        rendered["json"] = (json.dumps(JsonPrinter().result(result), indent=2, ensure_ascii=False) + "\n"
+        rendered["json"] = (dumps(JsonPrinter().result(result)) + "\n"
                             ).encode("utf-8")
-    written = []
-    for fmt in ("html", "pdf", "json"):
-        if fmt in rendered:
-            path = out_dir / f"{stem}.{fmt}"
-            write_atomic(path, rendered[fmt])
-            written.append(path)
-    return written
+    cap = reading.limit("OUTPUT_BYTES")
+    for fmt, data in rendered.items():
+        if len(data) > cap:
+            raise PackageTooLarge(f"the {fmt.upper()} would be {len(data):,} bytes; "
+                                  + reading.how_to_raise("OUTPUT_BYTES"))
+    files = {f"{stem}.{fmt}": rendered[fmt] for fmt in ("html", "pdf", "json") if fmt in rendered}
+    return publish_package(Path(out_dir), stem, files)
+
+
+class PackageTooLarge(Exception):
+    """A package file over the output cap (docs/limits.md); nothing is written."""

@@ -80,10 +80,13 @@ class Preview:
         from .package import write_package
         from .render.page import PackageDocument
 
+        from . import reading
+        from .errors import CalcError
+
         try:
-            source = self.sheet.read_text(encoding="utf-8")
-        except (OSError, UnicodeDecodeError) as exc:
-            return self._publish_text(f"cannot read {self.sheet}: {exc}")
+            source = reading.read_text(self.sheet, "SHEET_BYTES", "sheet")
+        except CalcError as exc:
+            return self._publish_text(f"{self.sheet}:{exc.span.line}:{exc.span.col}: {exc.message}")
         previous = self.last_good
         if previous is not None and previous.path != str(self.sheet):
             previous = None
@@ -143,6 +146,8 @@ class LoopbackServer(ThreadingHTTPServer):
 class _Handler(BaseHTTPRequestHandler):
     server: LoopbackServer
     protocol_version = "HTTP/1.1"
+    timeout = 10  # seconds a connection may sit idle or trickle a request (the socket's timeout)
+    MAX_PATH = 2048  # the preview's routes are short; a longer request target is refused unread
 
     def log_message(self, fmt, *args):  # quiet: the terminal shows build status instead
         pass
@@ -172,6 +177,9 @@ class _Handler(BaseHTTPRequestHandler):
         if not is_loopback(self.client_address[0]) or not self._host_ok():
             self._send(403, b"forbidden: the preview answers only to 127.0.0.1\n", "text/plain; charset=utf-8")
             return
+        if len(self.path) > self.MAX_PATH:
+            self._send(414, b"request target too long\n", "text/plain; charset=utf-8")
+            return
         version, page = self.server.preview.snapshot()
         route = self.path.split("?", 1)[0]
         if route in ("/", "/index.html"):
@@ -184,6 +192,7 @@ class _Handler(BaseHTTPRequestHandler):
     do_HEAD = do_GET
 
     def do_POST(self):
+        self.close_connection = True  # a body is never read: the connection ends instead of parsing it
         self._send(405, b"method not allowed\n", "text/plain; charset=utf-8")
 
     do_PUT = do_DELETE = do_PATCH = do_POST

@@ -27,7 +27,7 @@ def test_build_writes_three_formats(sheet, tmp_path):
     p = sheet(GOOD)
     out = tmp_path / "out"
     assert main(["build", str(p), "-o", str(out), "--format", "html,pdf,json"]) == 0
-    assert {x.name for x in out.iterdir()} == {"s.html", "s.pdf", "s.json"}
+    assert {x.name for x in out.iterdir() if not x.name.startswith(".")} == {"s.html", "s.pdf", "s.json"}
     data = json.loads((out / "s.json").read_text())
     assert data["values"]["M"]["value"] == pytest.approx(2 * 9 / 8)
 

@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import json
+import math
 import os
 import re
 import subprocess
@@ -9,7 +10,9 @@ from pathlib import Path
 
 import pint
 
+from .. import reading
 from .. import units as U
+from ..errors import CalcError
 from ..plugin import Record
 from ..resolver import check_key
 from .model import CheckEntry, DiffSourceError, Entry, Snapshot, show_quantity
@@ -113,28 +116,92 @@ def _json_entry(name, data: dict, **kw) -> Entry:
     return Entry(name, text=json.dumps(data, sort_keys=True), **kw)
 
 
+MAX_JSON_NUMBER_CHARS = 40
+
+
+def _number(text: str):
+    if len(text) > MAX_JSON_NUMBER_CHARS:
+        raise ValueError(f"a number of {len(text):,} digits (at most {MAX_JSON_NUMBER_CHARS})")
+    value = float(text)
+    if not math.isfinite(value):
+        raise ValueError(f"the number {text[:20]} is not finite")
+    return value
+
+
+def _constant(name: str):
+    raise ValueError(f"{name} is not a JSON number (calcsheet writes strict JSON)")
+
+
+def parse_json(text: str, label: str):
+    """Strict JSON (no NaN/Infinity, no 5,000-digit integers, bounded nesting); errors at line:col."""
+    try:
+        return json.loads(text, parse_int=_number, parse_float=_number, parse_constant=_constant)
+    except json.JSONDecodeError as exc:
+        raise DiffSourceError(f"{label}:{exc.lineno}:{exc.colno}: not valid JSON ({exc.msg})") from None
+    except RecursionError:
+        raise DiffSourceError(f"{label}:1:1: JSON nested too deeply; not a calcsheet JSON result") from None
+    except ValueError as exc:  # raised by the hooks above, which have no position of their own
+        raise DiffSourceError(f"{label}:1:1: not a calcsheet JSON result: {exc}") from None
+
+
+def _shape(ok: bool, label: str, where: str, wanted: str):
+    if not ok:
+        raise DiffSourceError(f"{label}:1:1: not a calcsheet JSON result: {where} must be {wanted}")
+
+
+def _line_of(value, label, where):
+    _shape(value is None or (isinstance(value, (int, float)) and not isinstance(value, bool)
+                             and float(value).is_integer() and value >= 0), label, where, "a line number or null")
+    return int(value) if value is not None else None
+
+
+def _text_or_none(value, label, where):
+    _shape(value is None or isinstance(value, str), label, where, "text or null")
+    return value
+
+
 def snapshot_of_json(data: dict, label: str) -> Snapshot:
-    """A Snapshot of a saved ``--format json`` result (dependencies are not saved there)."""
+    """A Snapshot of a saved ``--format json`` result (dependencies are not saved there).
+
+    Checked by shape before use: a value of the wrong type anywhere is a ``DiffSourceError`` naming it."""
     if not isinstance(data, dict) or not isinstance(data.get("values"), dict):
-        raise DiffSourceError(f"{label}: not a calcsheet JSON result (no 'values' table)")
-    errors = sum(1 for d in data.get("diagnostics", []) if isinstance(d, dict) and d.get("severity") == "error")
-    snap = Snapshot(label=label, meta=dict(data.get("meta") or {}), errors=errors)
+        raise DiffSourceError(f"{label}:1:1: not a calcsheet JSON result (no 'values' table)")
+    meta = data.get("meta") or {}
+    _shape(isinstance(meta, dict), label, "'meta'", "a table")
+    for k, v in meta.items():
+        _shape(isinstance(v, str) or (isinstance(v, list) and all(isinstance(x, str) for x in v)),
+               label, f"meta '{k[:40]}'", "text or a list of text")
+    diags = data.get("diagnostics", [])
+    _shape(isinstance(diags, list), label, "'diagnostics'", "a list")
+    checks = data.get("checks", [])
+    _shape(isinstance(checks, list), label, "'checks'", "a list")
+    errors = sum(1 for d in diags if isinstance(d, dict) and d.get("severity") == "error")
+    snap = Snapshot(label=label, meta=dict(meta), errors=errors)
     for name, v in data["values"].items():
         if not isinstance(v, dict):
             continue
-        common = dict(is_input=bool(v.get("input")), line=v.get("line"), description=v.get("description"))
+        where = f"value '{name[:40]}'"
+        common = dict(is_input=bool(v.get("input")), line=_line_of(v.get("line"), label, f"{where} line"),
+                      description=_text_or_none(v.get("description"), label, f"{where} description"))
         if "record" in v:
-            snap.values[name] = Entry(name, text=f"{v['record']} result", **common)
-            for fname, fval in (v.get("fields") or {}).items():
+            fields = v.get("fields") or {}
+            _shape(isinstance(fields, dict), label, f"{where} 'fields'", "a table")
+            snap.values[name] = Entry(name, text=f"{str(v['record'])[:80]} result", **common)
+            for fname, fval in fields.items():
                 if isinstance(fval, dict):
                     snap.values[f"{name}.{fname}"] = _json_entry(f"{name}.{fname}", fval, line=common["line"],
                                                                  reads=(name,), parent=name)
         else:
             snap.values[name] = _json_entry(name, v, **common)
-    for c in data.get("checks", []):
+    for i, c in enumerate(checks, 1):
         if isinstance(c, dict):
-            snap.checks.append(CheckEntry(text=str(c.get("text", "")), ok=bool(c.get("ok")), ratio=c.get("ratio"),
-                                          description=c.get("description"), line=c.get("line")))
+            ratio = c.get("ratio")
+            _shape(ratio is None or (isinstance(ratio, float) and math.isfinite(ratio)), label,
+                   f"check {i} 'ratio'", "a finite number or null")
+            snap.checks.append(CheckEntry(text=str(c.get("text", "")), ok=bool(c.get("ok")), ratio=ratio,
+                                          description=_text_or_none(c.get("description"), label,
+                                                                    f"check {i} description"),
+                                          line=_line_of(c.get("line"), label, f"check {i} line")))
     return snap
 
 
@@ -155,10 +222,13 @@ def git_show(rev: str, path: str, cwd: Path | None = None) -> str:
         except subprocess.TimeoutExpired:
             raise DiffSourceError(f"git show {rev}:{p} took too long") from None
         if proc.returncode == 0:
+            if len(proc.stdout) > reading.limit("SHEET_BYTES"):
+                raise DiffSourceError(f"{rev}:{path}:1:1: larger than the sheet size cap; "
+                                      + reading.how_to_raise("SHEET_BYTES"))
             try:
-                return proc.stdout.decode("utf-8")
-            except UnicodeDecodeError:
-                raise DiffSourceError(f"{rev}:{path} is not UTF-8 text") from None
+                return reading.decode_utf8(proc.stdout, f"{rev}:{path}")
+            except CalcError as exc:
+                raise DiffSourceError(f"{rev}:{path}:{exc.span.line}:{exc.span.col}: {exc.message}") from None
         last = proc.stderr.decode("utf-8", "replace").strip().splitlines()[-1:] or [""]
         last = last[0]
     raise DiffSourceError(f"cannot read {rev}:{path} from git: {last}")
@@ -169,15 +239,35 @@ def load_result(spec: str, *, overrides: dict | None = None, cwd: Path | None = 
     from ..engine import run
 
     p = Path(spec)
-    if p.is_file():
-        text = p.read_text(encoding="utf-8")
-        if p.suffix.lower() == ".json" or text.lstrip().startswith("{"):
+    if reading.is_file(p):
+        if p.suffix.lower() == ".json" or _starts_with_brace(p):
             return None
-        return run(text, overrides=overrides, path=str(p))
+        return _readable(run(p, overrides=overrides, path=str(p)))  # the engine reads it: bounded, strict
+    try:
+        reading.check_path_text(spec, "a diff side")
+    except CalcError as exc:
+        raise DiffSourceError(f"{spec[:80]!r}…: {exc.message}") from None
     rev, sep, path = spec.partition(":")
     if not sep or not rev or not path:
         raise DiffSourceError(f"{spec}: no such file (a git revision is written REV:path, e.g. HEAD~1:sheet.calc)")
-    return run(git_show(rev, path, cwd), overrides=overrides, path=path)
+    return _readable(run(git_show(rev, path, cwd), overrides=overrides, path=path))
+
+
+def _readable(result):
+    """A sheet that could not be read at all (too large, not UTF-8) is no side of a diff: its located
+    error is the answer."""
+    for d in result.errors:
+        if d.code in ("input", "too-complex") and not result.steps:
+            raise DiffSourceError(f"{d.path}:{d.span.line}:{d.span.col}: {d.message}")
+    return result
+
+
+def _starts_with_brace(p: Path) -> bool:
+    try:
+        with open(p, "rb") as fh:
+            return fh.read(4096).lstrip().startswith(b"{")
+    except OSError:
+        return False
 
 
 def load_side(spec: str, *, cwd: Path | None = None) -> Snapshot:
@@ -187,7 +277,8 @@ def load_side(spec: str, *, cwd: Path | None = None) -> Snapshot:
     if result is not None:
         return snapshot_of_result(result, spec)
     try:
-        data = json.loads(p.read_text(encoding="utf-8"))
-    except json.JSONDecodeError as exc:
-        raise DiffSourceError(f"{spec}: not valid JSON ({exc.msg}, line {exc.lineno})") from None
-    return snapshot_of_json(data, spec)
+        text = reading.read_text(p, "JSON_BYTES", "saved JSON result")
+    except CalcError as exc:
+        raise DiffSourceError(f"{spec}:{exc.span.line}:{exc.span.col}: {exc.message}"
+                              + (f" ({exc.hint})" if exc.hint else "")) from None
+    return snapshot_of_json(parse_json(text, spec), spec)

@@ -13,7 +13,8 @@ import re
 from pathlib import Path
 
 from .. import nodes as N
-from ..errors import Diagnostic, IncludeError, Span
+from .. import reading
+from ..errors import CalcError, Diagnostic, IncludeError, Span
 
 INCLUDE = re.compile(r'include\s+"([^"\n]*)"\s*(?:(?://|--).*)?$')
 MAX_INCLUDE_DEPTH = 8
@@ -36,7 +37,7 @@ class IncludeState:
         return cls(p.parent, p)
 
 
-def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet, max_bytes: int):
+def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet):
     """Parse an included sheet with ``parse_sheet``; every span in it carries its own path."""
 
     def refuse(message, hint=None):
@@ -44,6 +45,8 @@ def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet
 
     if state.root is None:
         return refuse("include needs the sheet to be a file (its folder is where includes are looked for)")
+    if "\x00" in target or len(target) > 255:
+        return refuse("an include path is a file name of at most 255 characters, with no NUL")
     if not target.endswith(".calc"):
         return refuse(f"only .calc sheets can be included, not {target!r}")
     if os.path.isabs(target) or target.startswith("~"):
@@ -59,10 +62,11 @@ def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet
         return refuse(f"'{target}' includes itself (through {' -> '.join(p.name for p in state.stack)})")
     if len(state.stack) > MAX_INCLUDE_DEPTH or len(state.sources) >= MAX_INCLUDES:
         return refuse("includes are nested too deeply or too many")
-    if real.stat().st_size > max_bytes:
-        return refuse(f"'{target}' is larger than {max_bytes // 1_000_000} MB")
+    try:
+        text = reading.read_text(real, "SHEET_BYTES", f"'{target}'")
+    except CalcError as exc:
+        return refuse(exc.message, exc.hint)
     shown = os.path.normpath(str(candidate))
-    text = real.read_text(encoding="utf-8")
     state.sources.append((shown, text))
     state.stack.append(real)
     try:

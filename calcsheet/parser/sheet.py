@@ -8,8 +8,17 @@ from ..errors import CalcError, Diagnostic, SheetErrors, SheetSyntaxError, Span,
 from .includes import INCLUDE, IncludeState, include
 from .lines import HEADING, front_matter, statement_lines
 from .statement import parse_statement
+from .. import reading
 
-MAX_SHEET_BYTES = 2_000_000
+MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]  # the default; reading.limit("SHEET_BYTES") is the cap
+
+
+def read_sheet(path) -> str:
+    """A sheet file's text: at most the SHEET_BYTES cap, strict UTF-8; else ``SheetErrors`` located in it."""
+    try:
+        return reading.read_text(path, "SHEET_BYTES", "sheet")
+    except CalcError as exc:
+        raise SheetErrors([exc.diagnostic(str(path))], "") from None
 
 
 def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
@@ -19,9 +28,16 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
     ``include "file.calc"`` lines splice another sheet's body in at that point (see ``includes``).
     """
     state = _includes or IncludeState.for_sheet(path)
-    if len(source.encode("utf-8", "surrogatepass")) > MAX_SHEET_BYTES:
-        err = TooComplexError(f"sheet is larger than {MAX_SHEET_BYTES // 1_000_000} MB", Span(1, 1, 1, 2))
-        raise SheetErrors([err.diagnostic(path)], source)
+    max_bytes = reading.limit("SHEET_BYTES")
+    if len(source) > max_bytes or len(source.encode("utf-8", "surrogatepass")) > max_bytes:
+        err = TooComplexError(f"sheet is larger than {max_bytes:,} bytes", Span(1, 1, 1, 2),
+                              hint=reading.how_to_raise("SHEET_BYTES"))
+        raise SheetErrors([err.diagnostic(path)], "")
+    if "\x00" in source:
+        try:
+            reading.decode_utf8(source.encode("utf-8", "surrogatepass"), "the sheet")
+        except CalcError as exc:
+            raise SheetErrors([exc.diagnostic(path)], source) from None
     source = source.replace("\r\n", "\n").replace("\r", "\n")
     if source.startswith("\ufeff"):
         source = source[1:]
@@ -38,7 +54,15 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             body.append(N.Prose(text=text, span=Span(prose_start, 1, prose_start + len(prose_buf) - 1, 2)))
             prose_buf = []
 
+    max_items, max_problems = reading.limit("STATEMENTS"), reading.limit("PROBLEMS")
     while i < len(lines):
+        if len(diags) >= max_problems or len(body) >= max_items:
+            cap = "PROBLEMS" if len(diags) >= max_problems else "STATEMENTS"
+            what = (f"{len(diags):,} problems" if cap == "PROBLEMS" else f"{len(body):,} statements")
+            diags.append(TooComplexError(f"stopped reading at line {i + 1}: {what} already",
+                                         Span(i + 1, 1, i + 1, 2), hint=reading.how_to_raise(cap)
+                                         ).diagnostic(path))
+            break
         raw = lines[i]
         lineno = i + 1
         text = raw.strip()
@@ -55,7 +79,7 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
         inc = INCLUDE.match(text)
         if inc:
             span = Span(lineno, 1, lineno, len(raw) + 1)
-            stmts, sub_diags = include(inc.group(1), span, path, state, parse_sheet, MAX_SHEET_BYTES)
+            stmts, sub_diags = include(inc.group(1), span, path, state, parse_sheet)
             body.extend(stmts)
             diags.extend(sub_diags)
             i += 1

@@ -5,6 +5,7 @@ from typing import Any
 
 from ..diff import CheckChange, CheckEntry, Entry, SheetDiff, ValueChange
 from ..display import pint_unit_string
+from .json import dumps  # strict JSON (allow_nan=False), shared with the package's JSON
 from .markup import Html, anchor_id, esc
 
 

@@ -5,12 +5,19 @@ Units are written the way pint parses them back (``pint.Quantity(v, unit)``).
 from __future__ import annotations
 
 import hashlib
+import json
 
 import pint
 
 from ..display import pint_unit_string, shown
 from ..plugin import Record
 from .base import Printer
+
+
+def dumps(data) -> str:
+    """Strict JSON text: NaN and infinities are refused (``allow_nan=False``), never written as the
+    ``NaN``/``Infinity`` that strict parsers reject. Every JSON calcsheet writes goes through here."""
+    return json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False)
 
 
 class JsonPrinter(Printer):
