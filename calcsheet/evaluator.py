@@ -75,11 +75,13 @@ class Evaluator:
     def number(self, value: float, unit=None):
         return self.reg.Quantity(float(value), unit if unit is not None else self._dimensionless)
 
-    def _finite(self, value, span):
+    def _finite(self, value, span, what: str = "the result"):
+        """The one finiteness rule of evaluation: no literal, operand, intermediate or check side is
+        infinite, NaN or complex (a literal is held to it by the parser first, where its text is known)."""
         if isinstance(value, pint.Quantity):
             m = value.magnitude
             if isinstance(m, complex):
-                raise NumericError("the result is a complex number", span)
+                raise NumericError(f"{what} is a complex number", span)
             try:
                 ok = math.isfinite(m)
             except TypeError:
@@ -87,7 +89,7 @@ class Evaluator:
 
                 ok = bool(np.all(np.isfinite(m)))
             if not ok:
-                raise NumericError("the result is infinite or not a number", span,
+                raise NumericError(f"{what} is infinite or not a number", span,
                                    hint="a value overflowed, or a division by a vanishing quantity")
         return value
 
@@ -111,7 +113,7 @@ class Evaluator:
 
     def _eval_Number(self, node: N.Number, env, used):
         unit = U.build_unit(node.unit) if node.unit else self._dimensionless
-        return self.reg.Quantity(node.value, unit)
+        return self._finite(self.reg.Quantity(node.value, unit), node.span, "the number")
 
     def _eval_Text(self, node, env, used):
         return node.value
@@ -132,7 +134,7 @@ class Evaluator:
     def _eval_Neg(self, node, env, used):
         v = self._need_quantity(self.eval(node.operand, env, used), node.operand.span)
         B.rule_neg(B.arg_of(v), node)
-        return -v
+        return self._finite(-v, node.span)
 
     def _eval_BinOp(self, node: N.BinOp, env, used):
         a = self._need_quantity(self.eval(node.left, env, used), node.left.span)
@@ -175,9 +177,14 @@ class Evaluator:
         B.check_call_shape(fn, node)
         if fn.lazy:
             return self._eval_if(node, env, used)
-        args = [self._need_quantity(self.eval(a, env, used), a.span) for a in node.args]
+        args = [self._finite(self._need_quantity(self.eval(a, env, used), a.span), a.span, "the argument")
+                for a in node.args]
         fn.rule([B.arg_of(a) for a in args], node.args, node)
-        return self._finite(fn.impl(args, node), node.span)
+        try:
+            result = fn.impl(args, node)
+        except (OverflowError, ValueError) as exc:  # math.ceil(inf), math.sin(inf): never a traceback
+            raise NumericError(f"{node.func}() cannot be computed here: {exc}", node.span) from None
+        return self._finite(result, node.span)
 
     def _eval_if(self, node: N.Call, env, used):
         cond, then, otherwise = node.args
@@ -186,6 +193,8 @@ class Evaluator:
         a = self._need_quantity(self.eval(cond.left, env, used), cond.left.span)
         b = self._need_quantity(self.eval(cond.right, env, used), cond.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), cond, cond.left, cond.right, where="the condition")
+        self._finite(a, cond.left.span, "the left side of the condition")
+        self._finite(b, cond.right.span, "the right side of the condition")
         am, bm = float(a.magnitude), float(b.to(a.units).magnitude)
         chosen, skipped = (then, otherwise) if B.COMPARISONS[cond.op](am, bm) else (otherwise, then)
         value = self.eval(chosen, env, used)
@@ -266,6 +275,9 @@ class Evaluator:
         a = self._need_quantity(self.eval(stmt.left, env, used), stmt.left.span)
         b = self._need_quantity(self.eval(stmt.right, env, used), stmt.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), stmt, stmt.left, stmt.right)
+        # a check is judged only between finite sides, with a finite ratio when one is formed
+        self._finite(a, stmt.left.span, "the left side of the check")
+        self._finite(b, stmt.right.span, "the right side of the check")
         am = float(a.magnitude)
         bm = float(b.to(a.units).magnitude)
         ok = B.COMPARISONS[stmt.op](am, bm)
@@ -273,6 +285,9 @@ class Evaluator:
         dm = float(demand.to(a.units).magnitude)
         cm = float(capacity.to(a.units).magnitude)
         ratio = dm / cm if cm > 0 and dm >= 0 else None
+        if ratio is not None and not math.isfinite(ratio):
+            raise NumericError("the check's ratio (demand / capacity) overflows", stmt.span,
+                               hint="the capacity is vanishingly small next to the demand")
         unit_of = unit_of or (lambda k, v: self.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
         key = dotted(stmt.left if stmt.op in ("<=", "<") else stmt.right) or "value"
         shown = unit_of(key, demand) if key != "value" else None

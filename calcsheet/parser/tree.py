@@ -6,10 +6,12 @@ lexer's line counter at the statement's first line).
 """
 from __future__ import annotations
 
+import math
+
 from lark import Token, Transformer
 
 from .. import nodes as N
-from ..errors import SheetSyntaxError, Span, TooComplexError
+from ..errors import NumericError, SheetSyntaxError, Span, TooComplexError
 from ..units import parse_unit_text, split_unit
 
 MAX_NUMBER_CHARS = 40
@@ -100,9 +102,16 @@ class ToNodes(Transformer):
         text = str(num_tok)
         if len(text) > MAX_NUMBER_CHARS:
             raise TooComplexError("number literal is too long", tok_span(num_tok))
+        value = float(text)
+        if not math.isfinite(value):  # the finiteness rule, for literals (evaluator._finite: every result)
+            raise NumericError(f"the number {text} is too large: beyond ±1.8e308, it would be infinite",
+                               tok_span(num_tok), hint="write it in a larger unit, or check the exponent")
+        if value == 0 and any(c in "123456789" for c in text.lower().partition("e")[0]):
+            raise NumericError(f"the number {text} is too small: below 5e-324 it would silently become 0",
+                               tok_span(num_tok), hint="write it in a smaller unit, or check the exponent")
         unit = split_unit(str(unit_tok)) if unit_tok is not None else ()
         return N.Number(
-            value=float(text), text=text, unit=unit, unit_text=str(unit_tok) if unit_tok is not None else "",
+            value=value, text=text, unit=unit, unit_text=str(unit_tok) if unit_tok is not None else "",
             span=_span_of(num_tok, unit_tok),
         )
 
