@@ -83,13 +83,13 @@ def read_text(path, cap: str, what: str = "file") -> str:
 
 LIMITS = {
     # name: (default, what it bounds) -- docs/limits.md lists them; CALCSHEET_LIMIT_<NAME> raises one
-    "SHEET_BYTES": (2_000_000, "size of a sheet or an included sheet"),
-    "SET_FILE_BYTES": (1_000_000, "size of a --set-file table"),
-    "JSON_BYTES": (50_000_000, "size of a saved JSON result read by diff or --since"),
-    "STATEMENTS": (20_000, "statements, headings and prose blocks in one sheet with its includes"),
-    "PROBLEMS": (1_000, "syntax problems reported before a sheet is given up on"),
-    "OUTPUT_BYTES": (50_000_000, "size of one file of the package (HTML, JSON)"),
-    "PDF_PAGES": (2_000, "pages of one PDF"),
+    "SHEET_BYTES": (2_000_000, "size in bytes of a sheet or an included sheet"),
+    "SET_FILE_BYTES": (1_000_000, "size in bytes of a --set-file table"),
+    "JSON_BYTES": (50_000_000, "size in bytes of a saved JSON result read by diff or --since"),
+    "STATEMENTS": (20_000, "number of statements, headings and prose blocks in one sheet file"),
+    "PROBLEMS": (1_000, "number of syntax problems reported before a sheet is given up on"),
+    "OUTPUT_BYTES": (50_000_000, "size in bytes of one file of the package (and of the page a PDF is made from)"),
+    "PDF_PAGES": (2_000, "number of pages of one PDF"),
 }
 
 
@@ -105,8 +105,8 @@ def limit(name: str) -> int:
 
 
 def how_to_raise(name: str) -> str:
-    return f"the {LIMITS[name][1]} is capped at {limit(name):,}; set CALCSHEET_LIMIT_{name} to raise it " \
-           "(docs/limits.md)"
+    return f"cap {name}: the {LIMITS[name][1]} is at most {limit(name):,}; set CALCSHEET_LIMIT_{name} to " \
+           "raise it (docs/limits.md)"
 
 
 def _size(n: int) -> str:
