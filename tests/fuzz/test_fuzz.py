@@ -61,7 +61,7 @@ def test_generated_sheets_through_build_json(work, text, sets):
     expect_sound(run_cli(argv))
 
 
-@fuzz(500)
+@fuzz(450)
 @given(data=S.demo_mutations(), command=st.sampled_from(["check", "build"]))
 def test_mutated_demo_sheets_through_check_and_build(work, data, command):
     path = write(work / "m.calc", data)
@@ -69,7 +69,7 @@ def test_mutated_demo_sheets_through_check_and_build(work, data, command):
     expect_sound(run_cli(argv))
 
 
-@fuzz(150)
+@fuzz(100)
 @given(old=S.demo_mutations(), new=S.demo_mutations(), fmt=st.sampled_from(["text", "json"]))
 def test_mutated_sheets_through_diff(work, old, new, fmt):
     outcome = run_cli(["diff", write(work / "old.calc", old), write(work / "new.calc", new), "--format", fmt])
