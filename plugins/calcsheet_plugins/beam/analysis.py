@@ -118,18 +118,9 @@ def _input_tables(work, setup, lit):
                [[Ls[i], lit.q(X[i], "length"), k] for i, k in enumerate(setup.kinds)], units=[None, u["length"], None])
     rows = []
     for ld in setup.loads:
-        s = ld.solver
-        if ld.kind == "point":
-            rows.append([ld.index, ld.case or "–", "point", f"P = {working.num(lit.value(s.P, 'force'))} {u['force']}",
-                         lit.q(s.x, "length"), "–"])
-        elif ld.kind == "moment":
-            rows.append([ld.index, ld.case or "–", "couple (clockwise +)",
-                         f"M = {working.num(lit.value(s.M, 'moment'))} {u['moment']}", lit.q(s.x, "length"), "–"])
-        else:
-            w1, w2 = working.num(lit.value(s.w1, "line")), working.num(lit.value(s.w2, "line"))
-            what = f"w = {w1} {u['line']}" if s.w1 == s.w2 else f"w = {w1} → {w2} {u['line']}"
-            name = "uniform" if s.w1 == s.w2 else ("triangular" if 0 in (s.w1, s.w2) else "trapezoidal")
-            rows.append([ld.index, ld.case or "–", name, what, lit.q(s.x1, "length"), lit.q(s.x2, "length")])
+        name, what, x1, x2 = ld.solver.row(lit, working.num)
+        rows.append([ld.index, ld.case or "–", name, what, lit.q(x1, "length"),
+                     lit.q(x2, "length") if x2 is not None else "–"])
     if len(rows) <= 60:
         work.table("Loads (unfactored; downward positive)", ["No.", "Case", "Type", "Value", "from x", "to x"], rows,
                    units=[None, None, None, None, u["length"], u["length"]])

@@ -75,7 +75,7 @@ def beam_figure(setup, lit) -> str:
     fr = Frame(model.length)
     loads = setup.loads
     label = len(loads) <= 16
-    line_loads = [ld for ld in loads if ld.kind in ("udl", "varying")]
+    line_loads = [ld for ld in loads if ld.solver.glyph == "line"]
     layer_of, n_layers = _layers([(ld.solver.x1, ld.solver.x2) for ld in line_loads])
     band_h = 18.0 if n_layers <= 3 else max(6.0, 54.0 / n_layers)
     step = band_h + (13 if label else 4)
@@ -128,7 +128,7 @@ def beam_figure(setup, lit) -> str:
     fu, mu = unit_label(lit.units["force"]), unit_label(lit.units["moment"])
     for ld in loads:
         s = ld.solver
-        if ld.kind == "point":
+        if s.glyph == "point":
             px = float(fr.px(s.x))
             up = s.P < 0
             top = y0 - 14 - n_layers * step
@@ -143,7 +143,7 @@ def beam_figure(setup, lit) -> str:
                 last_label.append((px, ty))
                 _text(svg, px + 4, ty, f"{fmt(lit.value(abs(s.P), 'force'))} {fu}" +
                       (f" ({ld.case})" if ld.case else ""), 9, anchor="start")
-        elif ld.kind == "moment":
+        elif s.glyph == "couple":
             px = float(fr.px(s.x))
             _couple(svg, px, y0, s.M >= 0)
             if label:

@@ -9,7 +9,8 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from .combos import parse_factors
-from .solver import SUPPORT_KINDS, BeamInputError, LineLoad, Model, MomentLoad, PointLoad
+from .kinds import KINDS, Place
+from .solver import SUPPORT_KINDS, BeamInputError, Model
 
 UNITS = {
     "SI": dict(force="kN", moment="kN*m", length="m", defl="mm", line="kN/m", EI="kN*m^2", stress="MPa",
@@ -195,25 +196,8 @@ def _load(rec, idx: int, X, L: float) -> SheetLoad:
     else:
         x0, x1 = 0.0, L
         region = f"the beam ({L:g} m long)"
-    tol = 1e-9 * L
-
-    def pos(q, name):
-        v = si(q, "length")
-        if v > x1 - x0 + tol:
-            raise BeamInputError(f"{where}: {name} = {v:g} m lies outside {region}", "loads")
-        return x0 + v
-
-    if kind == "point":
-        s = PointLoad(pos(rec.get("x"), "x"), si(rec.get("P"), "force"), case)
-    elif kind == "moment":
-        s = MomentLoad(pos(rec.get("x"), "x"), si(rec.get("M"), "moment"), case)
-    elif kind in ("udl", "varying"):
-        extent = rec.get("extent")
-        a = pos(rec.get("start"), "start") if extent in ("from", "partial") else x0
-        b = pos(rec.get("end"), "end") if extent in ("to", "partial") else x1
-        if b <= a:
-            raise BeamInputError(f"{where}: it ends at or before its start", "loads")
-        s = LineLoad(a, b, si(rec.get("w_1"), "line"), si(rec.get("w_2"), "line"), case)
-    else:
+    cls = KINDS.get(kind)
+    if cls is None:
         raise BeamInputError(f"load {idx} is not a beam load", "loads")
+    s = cls.from_record(rec, Place(x0, x1, where, region, 1e-9 * L, BeamInputError), BeamInputError)
     return SheetLoad(idx, rec, kind, case, s)

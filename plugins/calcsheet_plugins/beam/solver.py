@@ -23,6 +23,8 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from . import kinds as _kinds
+
 SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided")
 HOLDS_DEFLECTION = {"pinned", "roller", "fixed"}
 HOLDS_ROTATION = {"fixed", "guided"}
@@ -36,41 +38,8 @@ class BeamInputError(ValueError):
         self.param = param
 
 
-@dataclass(frozen=True)
-class PointLoad:
-    x: float
-    P: float  # downward
-    case: str = ""
-
-
-@dataclass(frozen=True)
-class MomentLoad:
-    x: float
-    M: float  # clockwise
-    case: str = ""
-
-
-@dataclass(frozen=True)
-class LineLoad:
-    x1: float
-    x2: float
-    w1: float  # downward intensity at x1
-    w2: float  # downward intensity at x2
-    case: str = ""
-
-    @property
-    def total(self) -> float:
-        return 0.5 * (self.w1 + self.w2) * (self.x2 - self.x1)
-
-    @property
-    def centroid(self) -> float:
-        a, b, L = self.w1, self.w2, self.x2 - self.x1
-        if abs(a + b) < 1e-300:
-            return 0.5 * (self.x1 + self.x2)
-        return self.x1 + L * (a + 2 * b) / (3 * (a + b))
-
-
-Load = PointLoad | MomentLoad | LineLoad
+Load = _kinds.Load
+PointLoad, MomentLoad, LineLoad = _kinds.PointLoad, _kinds.MomentLoad, _kinds.LineLoad
 
 
 @dataclass
@@ -122,18 +91,8 @@ def validate_model(m: Model) -> None:
 
 def validate_loads(m: Model, loads) -> None:
     L = m.length
-    tol = 1e-9 * L
     for ld in loads:
-        if isinstance(ld, (PointLoad, MomentLoad)):
-            if not (-tol <= ld.x <= L + tol):
-                raise BeamInputError(f"a load at x = {ld.x:g} m lies outside the beam (0 to {L:g} m)", "loads")
-        else:
-            if ld.x2 < ld.x1:
-                raise BeamInputError(f"a line load ends (x = {ld.x2:g} m) before it starts (x = {ld.x1:g} m)", "loads")
-            if ld.x1 < -tol or ld.x2 > L + tol:
-                raise BeamInputError(
-                    f"a line load from x = {ld.x1:g} m to {ld.x2:g} m runs outside the beam (0 to {L:g} m)", "loads"
-                )
+        ld.validate(L, 1e-9 * L, BeamInputError)
 
 
 # ---------------------------------------------------------------- degrees of freedom
@@ -324,10 +283,7 @@ def breakpoints(m: Model, loads) -> np.ndarray:
     X = m.nodes
     pts = [X]
     for ld in loads:
-        if isinstance(ld, LineLoad):
-            pts.append([ld.x1, ld.x2])
-        else:
-            pts.append([ld.x])
+        pts.append(ld.breakpoints())
     b = np.unique(np.clip(np.concatenate([np.atleast_1d(np.asarray(p, float)) for p in pts]), 0.0, m.length))
     # merge points closer than a hair (a load placed "at" a support by arithmetic)
     keep = np.concatenate([[True], np.diff(b) > 1e-9 * m.length])
@@ -352,20 +308,10 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
 
     # loads per element, in local coordinates
     per_el: list[list] = [[] for _ in range(nspan)]
+    tol_el = 1e-12 * L_tot
     for ld in loads:
-        if isinstance(ld, LineLoad):
-            for e in range(nspan):
-                a, b = max(ld.x1, X[e]), min(ld.x2, X[e + 1])
-                if b - a > 1e-12 * L_tot:
-                    slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1) if ld.x2 > ld.x1 else 0.0
-                    wa = ld.w1 + slope * (a - ld.x1)
-                    wb = ld.w1 + slope * (b - ld.x1)
-                    per_el[e].append(("w", a - X[e], b - X[e], wa, wb))
-        else:
-            x = min(max(ld.x, 0.0), L_tot)
-            e = int(np.clip(np.searchsorted(X, x, side="right") - 1, 0, nspan - 1))
-            kind = "P" if isinstance(ld, PointLoad) else "M"
-            per_el[e].append((kind, x - X[e], 0.0, ld.P if kind == "P" else ld.M, 0.0))
+        for e in range(nspan):
+            per_el[e].extend(_on_span(ld, X, e, nspan, tol_el, L_tot))
 
     # assemble (full system, banded lower storage)
     n = dofs.n
@@ -437,11 +383,22 @@ def _snap_x(x: float, grid: np.ndarray, tol: float) -> float:
 
 def _snap(ld, grid: np.ndarray, tol: float):
     """Put a load that sits a hair from a breakpoint exactly on it, so its jump lands on a piece start."""
-    if isinstance(ld, PointLoad):
-        return PointLoad(_snap_x(ld.x, grid, tol), ld.P, ld.case)
-    if isinstance(ld, MomentLoad):
-        return MomentLoad(_snap_x(ld.x, grid, tol), ld.M, ld.case)
-    return LineLoad(_snap_x(ld.x1, grid, tol), _snap_x(ld.x2, grid, tol), ld.w1, ld.w2, ld.case)
+    return ld.snapped(lambda x: _snap_x(x, grid, tol))
+
+
+def _on_span(ld, X, e: int, nspan: int, tol: float, L_tot: float) -> list:
+    """The load's parts on span e (local coordinates). A point force or couple belongs to exactly one span:
+    the one starting at or before it (the last span for one at the right end)."""
+    out = []
+    for part in ld.parts(float(X[e]), float(X[e + 1]), tol):
+        if part[0] == "w":
+            out.append(part)
+            continue
+        x = min(max(float(X[e]) + part[1], 0.0), L_tot)
+        home = int(np.clip(np.searchsorted(X, x, side="right") - 1, 0, nspan - 1))
+        if home == e:
+            out.append((part[0], x - X[e], 0.0, part[3], 0.0))
+    return out
 
 
 def _mechanism_message(m: Model, dofs: Dofs, free: np.ndarray, rb: np.ndarray) -> str:
@@ -623,13 +580,4 @@ def sample(sol: Solution, per_span: int = 200):
 
 def combine(model: Model, case_loads: dict[str, list], factors: dict[str, float]) -> list:
     """The loads of a combination: each case's loads scaled by its factor."""
-    out = []
-    for case, f in factors.items():
-        for ld in case_loads.get(case, []):
-            if isinstance(ld, PointLoad):
-                out.append(PointLoad(ld.x, f * ld.P, ld.case))
-            elif isinstance(ld, MomentLoad):
-                out.append(MomentLoad(ld.x, f * ld.M, ld.case))
-            else:
-                out.append(LineLoad(ld.x1, ld.x2, f * ld.w1, f * ld.w2, ld.case))
-    return out
+    return [ld.scaled(f) for case, f in factors.items() for ld in case_loads.get(case, [])]

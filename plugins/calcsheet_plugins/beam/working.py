@@ -10,7 +10,6 @@ from calcsheet.units import Quantity
 
 from . import handbook
 from .model import _SI_OF, letters
-from .solver import LineLoad, MomentLoad, PointLoad
 
 MAX_TERMS = 12
 
@@ -57,16 +56,7 @@ def _sanitize_case(c: str) -> str:
 
 def load_terms(ld, x_ref: float, lit: Lit):
     """(force term, moment-about-x_ref term) for one load, clockwise moments positive."""
-    if isinstance(ld, PointLoad):
-        return lit(ld.P, "force"), f"{lit(ld.P, 'force')}*{lit(ld.x - x_ref, 'length')}"
-    if isinstance(ld, MomentLoad):
-        return None, lit(ld.M, "moment")
-    length = ld.x2 - ld.x1
-    if abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), abs(ld.w2), 1e-300):
-        W = f"{lit(ld.w1, 'line')}*{lit(length, 'length')}"
-    else:
-        W = f"0.5*({lit(ld.w1, 'line')} + {lit(ld.w2, 'line')})*{lit(length, 'length')}"
-    return W, f"{W}*{lit(ld.centroid - x_ref, 'length')}"
+    return ld.terms(x_ref, lit)
 
 
 def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment: bool = True) -> dict:
@@ -97,17 +87,7 @@ def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment:
 
 
 def _resultants(loads, x_ref):
-    W = Mo = 0.0
-    for ld in loads:
-        if isinstance(ld, PointLoad):
-            W += ld.P
-            Mo += ld.P * (ld.x - x_ref)
-        elif isinstance(ld, MomentLoad):
-            Mo += ld.M
-        else:
-            W += ld.total
-            Mo += ld.total * (ld.centroid - x_ref)
-    return W, Mo
+    return sum(ld.force() for ld in loads), sum(ld.moment_about(x_ref) for ld in loads)
 
 
 def combo_sum(factors: dict, names: dict, which: int) -> str:
@@ -152,7 +132,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
     if cr.M_max.value <= 0:
         work.note(f"No sagging moment{label}: the largest moment is hogging, at a support.")
         return
-    at_load = any(abs(x0 - ld.x) < 1e-9 * setup.model.length for ld in cr.loads if isinstance(ld, (PointLoad, MomentLoad)))
+    at_load = any(abs(x0 - ld.start()) < 1e-9 * setup.model.length for ld in cr.loads if ld.glyph != "line")
     at_node = any(abs(x0 - xn) < 1e-9 * setup.model.length for xn in X)
     how = ("the shear changes sign across the load there" if at_load or at_node
            else "the shear V(x) = 0 there (the root of V on that stretch, found exactly)")
@@ -162,8 +142,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
     tol = 1e-9 * setup.model.length
     # forces to the left of x₀; a clockwise couple exactly at x₀ counts too (the maximum is the value just
     # after its upward jump), an anticlockwise one does not (the maximum is the value just before it)
-    left = [ld for ld in cr.loads if (ld.x if not isinstance(ld, LineLoad) else ld.x1) < x0 - tol
-            or isinstance(ld, MomentLoad) and abs(ld.x - x0) <= tol and ld.M > 0]
+    left = [t for t in (ld.left_term(x0, xn, lit, tol) for ld in cr.loads) if t]
     if len(left) > MAX_TERMS:
         work.let(f"M_0{tag}", lit.q(cr.M_max.value, "moment"), unit=lit.units["moment"],
                  desc=f"largest sagging moment{label}", note="area of the shear diagram from the left end to x₀")
@@ -173,18 +152,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
         terms.append(f"{RA}*({xn} - {lit(X[iA], 'length')})" if X[iA] else f"{RA}*{xn}")
     if X[iB] < x0:
         terms.append(f"+ {RB}*({xn} - {lit(X[iB], 'length')})")
-    for ld in left:
-        if isinstance(ld, PointLoad):
-            terms.append(f"- {lit(ld.P, 'force')}*({xn} - {lit(ld.x, 'length')})")
-        elif isinstance(ld, MomentLoad):
-            terms.append(f"+ {lit(ld.M, 'moment')}")
-        else:
-            b = min(ld.x2, x0)
-            slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1)
-            wb = ld.w1 + slope * (b - ld.x1)
-            part = LineLoad(ld.x1, b, ld.w1, wb)
-            W, _ = load_terms(part, 0.0, lit)
-            terms.append(f"- {W}*({xn} - {lit(part.centroid, 'length')})")
+    terms.extend(left)
     formula = " ".join(terms).lstrip("+ ")
     work.calc(f"M_0{tag}", formula, unit=lit.units["moment"],
               desc=f"largest sagging moment{label}: moments about x₀ of the forces to its left")
