@@ -23,6 +23,9 @@ SOLVE_PARAMS = [
     Param("loads", kind="list", record="load", doc="beam.point / moment / udl / varying records"),
     Param("combos", kind="list", record="combo", default=None,
           doc="beam.combo records; results are enveloped over them (default: every load at factor 1)"),
+    Param("combinations", kind="list", record="combinations", default=None,
+          doc="loads.combinations sets; their combinations are solved too, with pattern loading of the "
+              "variable cases on a beam of more than one span"),
     Param("E", "[pressure]", "modulus of elasticity (default: material.E)", default=None),
     Param("I", "[length]**4", "second moment of area (default: section.I_x)", default=None),
     Param("I_spans", kind="list", dim="[length]**4", doc="I of each span, for a member that changes section",
@@ -69,11 +72,11 @@ def _number(q, name, lo=None):
 
 
 @namespace.function("solve", params=SOLVE_PARAMS, fields=SOLVE_FIELDS, returns="beam")
-def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=None, material=None, section=None,
+def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, I=None, I_spans=None, material=None, section=None,
           limit=None, deflection=None, samples=None):
     """Reactions, shear, moment, slope and deflection of a beam on any supports, exactly, with its working."""
     try:
-        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section)
+        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section, combinations)
         per_span = int(_number(samples, "samples", 10)) if samples is not None else 200
         lim = _number(limit, "limit", 1) if limit is not None else None
         res = results.run(setup, per_span=min(per_span, 5000))
@@ -127,7 +130,12 @@ def _input_tables(work, setup, lit):
     else:
         work.note(f"{len(rows)} loads were given; the table is left out for length.")
     if len(setup.combos) > 1 or not setup.default_combo:
-        work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
+        if any(c.clause for c in setup.combos):
+            work.table("Combinations", ["Name", "Factors", "Leading", "Duration", "Source"],
+                       [[c.name, c.text, c.leading or "–", c.duration or "–", c.clause or "the sheet"]
+                        for c in setup.combos])
+        else:
+            work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
 
 
 def _result_tables(work, setup, res, lit):
@@ -204,7 +212,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
     # deflection against the limit
     pool = res.combos
     if deflection is not None:
-        pool = [c for c in res.combos if c.combo.name == deflection]
+        pool = [c for c in res.combos if c.combo.named(deflection)]
         if not pool:
             work.fail(f"no combination is named {deflection!r} (combinations: "
                       + ", ".join(c.combo.name for c in res.combos) + ")", param="deflection")

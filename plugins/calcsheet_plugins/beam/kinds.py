@@ -139,6 +139,11 @@ class Load:
     def scaled(self, f: float) -> "Load":
         raise NotImplementedError
 
+    def on_span(self, x0: float, x1: float, last: bool, tol: float) -> "Load | None":
+        """The part of this load on the span [x0, x1] (a span owns what lies at its left support; the last span
+        also what lies at its right end), as a load of the same kind, or None."""
+        raise NotImplementedError
+
     def parts(self, x0: float, x1: float, tol: float) -> list[tuple]:
         """This load's parts on the span [x0, x1], local coordinates: ('P', a, 0, P, 0) a downward force,
         ('M', a, 0, M, 0) a clockwise couple, ('w', a, b, w_a, w_b) a downward linear line load."""
@@ -207,6 +212,10 @@ class PointLoad(Load):
     def scaled(self, f):
         return dataclasses.replace(self, P=f * self.P)
 
+    def on_span(self, x0, x1, last, tol):
+        inside = x0 - tol <= self.x < x1 - tol or (last and abs(self.x - x1) <= tol)
+        return self if inside else None
+
     def parts(self, x0, x1, tol):
         return [("P", self.x - x0, 0.0, self.P, 0.0)]
 
@@ -260,6 +269,7 @@ class MomentLoad(Load):
     breakpoints = PointLoad.breakpoints
     snapped = PointLoad.snapped
     start = PointLoad.start
+    on_span = PointLoad.on_span
 
     def scaled(self, f):
         return dataclasses.replace(self, M=f * self.M)
@@ -355,6 +365,12 @@ class LineLoad(Load):
 
     def scaled(self, f):
         return dataclasses.replace(self, w1=f * self.w1, w2=f * self.w2)
+
+    def on_span(self, x0, x1, last, tol):
+        a, b = max(self.x1, x0), min(self.x2, x1)
+        if b - a <= tol:
+            return None
+        return dataclasses.replace(self, x1=a, x2=b, w1=self.at(a), w2=self.at(b))
 
     def parts(self, x0, x1, tol):
         a, b = max(self.x1, x0), min(self.x2, x1)

@@ -67,6 +67,39 @@ class Combination:
     factors: dict[str, float]
     text: str
     tag: str  # suffix for names in the working ("" when there is only one)
+    clause: str = ""  # standard and clause (generated combinations)
+    set: str = ""  # the set it was generated from
+    leading: str = ""
+    leading_kind: str = ""
+    duration: str = ""
+    pattern: list[str] = field(default_factory=list)  # variable cases to load span by span
+    loaded: str = ""  # "spans 1, 3" for a pattern variant
+    note: str = ""
+    parent: str = ""  # the combination a pattern variant comes from
+
+    def named(self, name: str) -> bool:
+        """Is this (one of) the combination(s) a sheet means by name: its own, its set's or its parent's."""
+        return name in (self.name, self.set, self.parent)
+
+
+def span_patterns(n: int) -> list[tuple[str, tuple[int, ...]]]:
+    """Skip-loading arrangements of a line of n spans (1-based): all spans, alternate spans (odd, even),
+    each pair of adjacent spans. Alternate spans give the largest span moments, adjacent pairs the largest
+    hogging at the support between them (EN 1992-1-1 5.1.3(1)P; ASCE/SEI 7-22 4.3.3 partial loading)."""
+    out: list[tuple[str, tuple[int, ...]]] = []
+    seen = set()
+    cands = [tuple(range(1, n + 1)), tuple(range(1, n + 1, 2)), tuple(range(2, n + 1, 2))]
+    cands += [(k, k + 1) for k in range(1, n)]
+    for c in cands:
+        if c and c not in seen:
+            seen.add(c)
+            out.append(("spans " + ", ".join(map(str, c)), c))
+    return out
+
+
+def split_case(case: str, k: int) -> str:
+    """The name of case's loads on span k alone (a pattern variant); '_' cannot occur in a sheet's case name."""
+    return f"{case}_s{k}"
 
 
 @dataclass
@@ -80,6 +113,10 @@ class Setup:
     E_si: list[float]
     default_combo: bool = False
     notes: list[str] = field(default_factory=list)
+    split: dict[str, list] = field(default_factory=dict)  # pattern cases: "Q_s2" -> Q's loads on span 2
+
+    def used_cases(self) -> set[str]:
+        return {c for cb in self.combos for c in cb.factors}
 
     @property
     def units(self) -> dict:
@@ -89,6 +126,7 @@ class Setup:
         out: dict[str, list] = {}
         for ld in self.loads:
             out.setdefault(ld.case, []).append(ld.solver)
+        out.update(self.split)
         return out
 
 
@@ -96,7 +134,8 @@ def si(q, what: str) -> float:
     return float(q.m_as(_SI_OF[what]))
 
 
-def build(work, spans, supports, loads, combos, E, I, I_spans, material, section) -> Setup:
+def build(work, spans, supports, loads, combos, E, I, I_spans, material, section,
+          combinations=None) -> Setup:
     system = "US" if str(work.settings.get("system", "SI")).upper() == "US" else "SI"
     span_si = [si(s, "length") for s in spans]
     kinds = parse_supports(supports)
@@ -140,37 +179,56 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
     cases = sorted({ld.case for ld in sheet_loads})
     combo_list: list[Combination] = []
     default = False
-    if combos:
-        citems = combos if isinstance(combos, (tuple, list)) else (combos,)
+    citems = list(combos if isinstance(combos, (tuple, list)) else (combos,)) if combos else []
+    generated = []
+    for rec in (combinations if isinstance(combinations, (tuple, list)) else (combinations,)) if combinations else []:
+        generated.extend(rec.get(f"combo_{i}") for i in range(1, int(rec.get("n").m_as("")) + 1))
+    if citems or generated:
         for ld in sheet_loads:
             if not ld.case:
                 raise BeamInputError(f"load {ld.index} has no case; give it case=\"…\" so the combinations can "
                                      f"factor it", "loads")
         names = set()
-        for k, rec in enumerate(citems, 1):
+        for k, rec in enumerate(citems + generated, 1):
             name = rec.get("name")
             text = rec.get("factors")
+            param = "combos" if k <= len(citems) else "combinations"
             try:
                 factors = parse_factors(text)
             except ValueError as exc:
-                raise BeamInputError(f"combination {name!r}: {exc}", "combos")
+                raise BeamInputError(f"combination {name!r}: {exc}", param)
+            extra = {f: rec.fields.get(f, "") for f in ("clause", "set", "leading", "leading_kind", "duration",
+                                                         "note")}
+            pattern = [c.strip() for c in rec.fields.get("pattern", "").split(",") if c.strip()]
+            if k > len(citems):
+                # a generated set may name cases this member does not carry: they contribute nothing here
+                factors = {c: f for c, f in factors.items() if c in cases}
+                if not factors:
+                    continue
+                text = " + ".join(c if f == 1.0 else f"{f:g} {c}" for c, f in factors.items()).replace("+ -", "- ")
             for c in factors:
                 if c not in cases:
                     raise BeamInputError(f"combination {name!r} names case {c!r}, which no load has "
-                                         f"(cases: {', '.join(cases)})", "combos")
+                                         f"(cases: {', '.join(cases)})", param)
             if name in names:
-                raise BeamInputError(f"two combinations are named {name!r}", "combos")
+                raise BeamInputError(f"two combinations are named {name!r}"
+                                     + (" (give each set once)" if k > len(citems) else ""), param)
             names.add(name)
-            combo_list.append(Combination(name, factors, text, ""))
+            combo_list.append(Combination(name, factors, text, "", pattern=[c for c in pattern if c in factors],
+                                          **extra))
         used = {c for cb in combo_list for c in cb.factors}
         for c in cases:
             if c not in used:
-                work.warn(f"no combination uses the loads of case {c!r}", param="combos")
+                work.warn(f"no combination uses the loads of case {c!r}", param="combos" if citems else "combinations")
     else:
         default = True
         text = " + ".join(c for c in cases) if any(cases) else ""
         combo_list.append(Combination("all loads" if len(cases) > 1 else (cases[0] or "loads"),
                                       {c: 1.0 for c in cases}, text, ""))
+    split: dict[str, list] = {}
+    expanded = _patterns(combo_list, sheet_loads, model) if n > 1 else None
+    if expanded is not None:
+        combo_list, split = expanded
     if len(combo_list) > 1:
         for k, cb in enumerate(combo_list, 1):
             safe = "".join(ch for ch in cb.name if ch.isalnum())
@@ -179,7 +237,7 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
         if len(set(tags)) != len(tags):
             for k, cb in enumerate(combo_list, 1):
                 cb.tag = f"_{k}"
-    return Setup(model, kinds, sheet_loads, combo_list, system, I_si, [E_val] * n, default)
+    return Setup(model, kinds, sheet_loads, combo_list, system, I_si, [E_val] * n, default, split=split)
 
 
 def _load(rec, idx: int, X, L: float) -> SheetLoad:
@@ -201,3 +259,41 @@ def _load(rec, idx: int, X, L: float) -> SheetLoad:
         raise BeamInputError(f"load {idx} is not a beam load", "loads")
     s = cls.from_record(rec, Place(x0, x1, where, region, 1e-9 * L, BeamInputError), BeamInputError)
     return SheetLoad(idx, rec, kind, case, s)
+
+
+def _patterns(combos: list[Combination], sheet_loads, model):
+    """Expand each combination with patterned variable cases into its span-by-span variants."""
+    if not any(cb.pattern for cb in combos):
+        return None
+    X = model.nodes
+    n = len(model.spans)
+    tol = 1e-9 * model.length
+    split: dict[str, list] = {}
+    out: list[Combination] = []
+    for cb in combos:
+        if not cb.pattern:
+            out.append(cb)
+            continue
+        for j, (label, spans) in enumerate(span_patterns(n)):
+            if len(spans) == n:
+                out.append(cb)
+                continue
+            factors = {}
+            for c, f in cb.factors.items():
+                if c not in cb.pattern:
+                    factors[c] = f
+                    continue
+                for k in spans:
+                    name = split_case(c, k)
+                    if name not in split:
+                        split[name] = [p for ld in sheet_loads if ld.case == c
+                                       for p in [ld.solver.on_span(float(X[k - 1]), float(X[k]), k == n, tol)] if p]
+                    if split[name]:
+                        factors[name] = f
+            suffix = "abcdefghijklmnopqrstuvwxyz"[j - 1] if j <= 26 else str(j)
+            out.append(Combination(f"{cb.name}{suffix}", factors,
+                                   cb.text + f" [{', '.join(cb.pattern)} on {label}]", "", clause=cb.clause,
+                                   set=cb.set, leading=cb.leading, leading_kind=cb.leading_kind,
+                                   duration=cb.duration, loaded=label, note=cb.note,
+                                   parent=cb.name))
+    return out, split

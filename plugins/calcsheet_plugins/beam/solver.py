@@ -483,10 +483,14 @@ def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Piece
 # ---------------------------------------------------------------- extrema and sampling
 
 
+TIE = 1e-9  # two extremes within this relative difference are the same value
+
+
 @dataclass
 class Extreme:
     value: float
     x: float
+    others: list = field(default_factory=list)  # other positions where the same value occurs (ties)
 
 
 def piece_extrema(C: np.ndarray, start: np.ndarray, length: np.ndarray, samples: int = 12):
@@ -534,12 +538,25 @@ def piece_extrema(C: np.ndarray, start: np.ndarray, length: np.ndarray, samples:
 
 
 def extremes(sol: Solution, what: str, spans=None) -> tuple[Extreme, Extreme]:
-    """(max, min) of V, M, theta or delta over the beam (or over given span indices)."""
+    """(max, min) of V, M, theta or delta over the beam (or over given span indices).
+
+    Values within a relative 1e-9 of each other are ties: the leftmost position is reported and the others
+    are listed (positions closer than 1e-9 of the beam's length are one place).
+    """
     p = sol.pieces
     sel = np.ones(len(p.start), bool) if spans is None else np.isin(p.span, list(spans))
     mx, xmx, mn, xmn = piece_extrema(getattr(p, what)[sel], p.start[sel], p.length[sel])
-    i, j = int(np.argmax(mx)), int(np.argmin(mn))
-    return Extreme(float(mx[i]), float(xmx[i])), Extreme(float(mn[j]), float(xmn[j]))
+    return _pick(mx, xmx, 1, sol.model.length), _pick(mn, xmn, -1, sol.model.length)
+
+
+def _pick(vals: np.ndarray, xs: np.ndarray, sign: int, L: float) -> Extreme:
+    i = int(np.argmax(sign * vals))
+    best = float(vals[i])
+    near = np.flatnonzero(np.abs(vals - best) <= TIE * max(abs(best), 1e-300))
+    places = np.sort(xs[near])
+    keep = np.concatenate([[True], np.diff(places) > 1e-9 * L]) if len(places) else places
+    places = places[keep]
+    return Extreme(best, float(places[0]), [float(x) for x in places[1:]])
 
 
 def zero_shear_points(sol: Solution) -> list[float]:

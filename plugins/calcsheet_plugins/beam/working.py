@@ -62,7 +62,10 @@ def load_terms(ld, x_ref: float, lit: Lit):
 def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment: bool = True) -> dict:
     """Per case: total downward load W_c and its moment about the reference support M_ref_c."""
     names = {}
+    used = setup.used_cases()
     for case, loads in setup.case_loads().items():
+        if case not in used:
+            continue
         tag = _sanitize_case(case)
         label = f"case {case}" if case else "the loads"
         W_name, M_name = f"W{tag}", f"M_{ref_letter}{tag}"
