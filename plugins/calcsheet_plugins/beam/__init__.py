@@ -35,3 +35,4 @@ namespace = Namespace(
 
 from . import loads as _loads  # noqa: E402,F401  (registers the load functions)
 from . import analysis as _analysis  # noqa: E402,F401  (registers solve and stresses)
+from . import query as _query  # noqa: E402,F401  (registers at and result)

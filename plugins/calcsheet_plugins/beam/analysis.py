@@ -61,7 +61,32 @@ SOLVE_FIELDS = [
     Field("delta_allow", LEN, "allowed deflection L_gov/limit"),
     Field("limit", doc="the limit span/δ used"),
     Field("EI", "[force]*[length]**2", "flexural stiffness (of span 1)"),
-]
+    Field("combo_M_max", kind="text", doc="combination giving M_max"),
+    Field("V_at_M_max", FORCE, "shear acting with M_max (same section and combination; the larger in magnitude "
+                               "of the values just left and right)"),
+    Field("combo_M_min", kind="text", doc="combination giving M_min"),
+    Field("V_at_M_min", FORCE, "shear acting with M_min"),
+    Field("combo_V_max", kind="text", doc="combination giving V_max"),
+    Field("M_at_V_max", MOM, "moment acting with V_max"),
+    Field("combo_delta_max", kind="text", doc="combination giving delta_max"),
+    Field("delta_down", LEN, "largest downward deflection (0 when none)"),
+    Field("x_delta_down", LEN, "where it occurs"),
+    Field("combo_delta_down", kind="text", doc="combination giving delta_down"),
+    Field("delta_up", LEN, "largest upward deflection, as a positive number (0 when none)"),
+    Field("x_delta_up", LEN, "where it occurs"),
+    Field("combo_delta_up", kind="text", doc="combination giving delta_up"),
+    Field("combo_delta_gov", kind="text", doc="combination giving delta_gov"),
+    Field("M_max_{i}", MOM, "largest sagging moment in span i (envelope)"),
+    Field("M_min_{i}", MOM, "largest hogging moment in span i (envelope, negative)"),
+    Field("delta_max_{i}", LEN, "largest deflection in magnitude in span i (envelope)"),
+    Field("n_combos", doc="number of combinations solved (pattern variants included)"),
+    Field("ties", doc="how many of M_max, M_min, V_max, delta_max occur at more than one place or combination"),
+    Field("model", kind="record", record="beam.model", doc="the solved beam, read by beam.at and beam.result"),
+] + [Field(f"{p}_{c}", dim, doc, optional=True) for c in "ABCDEFGHIJKLMNOPQRSTUVWXYZ" for p, dim, doc in (
+    ("R", FORCE, f"largest upward reaction at support {c} (absent: no vertical restraint there)"),
+    ("R_min", FORCE, f"smallest reaction at support {c}, negative is uplift (absent: no vertical restraint there)"),
+    ("M", MOM, f"bending moment in the member at support {c}, largest in magnitude (absent: a free end or hinge)"),
+)]
 
 
 def _number(q, name, lo=None):
@@ -179,6 +204,12 @@ def _envelope(work, setup, res, lit, lim, deflection):
         if k in ("pinned", "roller", "fixed", "guided"):
             ms = [c.support_M[i] for c in res.combos]
             out[f"M_sup_{i + 1}"] = lit.q(max(ms, key=abs), "moment")
+        if i < 26:
+            letter = letters(len(X))[i]
+            for old, new in ((f"R_{i + 1}", f"R_{letter}"), (f"R_min_{i + 1}", f"R_min_{letter}"),
+                             (f"M_sup_{i + 1}", f"M_{letter}")):
+                if old in out:
+                    out[new] = out[old]
     gmax = res.governing("M_max")
     gmin = res.governing("M_min", -1)
     gV = max(res.combos, key=lambda c: abs(c.V_max.value))
@@ -208,6 +239,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
                                 note=f"{direction}, at x = {_x(lit, gd.d_max.x)}{tagged(gd)}")
     out["x_delta_max"] = lit.q(gd.d_max.x, "length")
     out["theta_max"] = work.q(abs(gt.theta_max.value), "rad")
+    _governing(work, setup, res, lit, out, gmax, gmin, gV, gd)
 
     # deflection against the limit
     pool = res.combos
@@ -236,7 +268,8 @@ def _envelope(work, setup, res, lit, lim, deflection):
     if best is None:
         work.note("The beam does not deflect under these loads.")
         zero = lit.q(0.0, "defl")
-        out.update(delta_gov=zero, L_gov=lit.q(model.spans[0], "length"), span_ratio=work.q(1e9, ""))
+        out.update(delta_gov=zero, L_gov=lit.q(model.spans[0], "length"), span_ratio=work.q(1e9, ""),
+                   combo_delta_gov=pool[0].combo.name)
         out["delta_allow"] = lit.q(model.spans[0] / float(out["limit"].m_as("")), "defl")
         out["EI"] = lit.q(model.EI[0], "EI")
         return out
@@ -248,6 +281,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
                                       f"(common practice)")
     else:
         out["L_gov"] = work.calc("L_gov", lit(model.spans[k], "length"), unit=u["length"], desc=f"span {span_name}")
+    out["combo_delta_gov"] = c.combo.name
     out["delta_gov"] = work.let("delta_gov", lit.q(abs(e.value), "length"), unit=u["defl"],
                                 desc=f"largest deflection in span {span_name}",
                                 note=f"at x = {_x(lit, e.x)}" + (f", {c.combo.name}" if many else ""))
@@ -259,6 +293,52 @@ def _envelope(work, setup, res, lit, lim, deflection):
     work.check("delta_gov <= delta_allow", desc=f"deflection within span/{working.num(float(out['limit'].m_as('')))}")
     out["EI"] = lit.q(model.EI[0], "EI")
     return out
+
+
+def _governing(work, setup, res, lit, out, gmax, gmin, gV, gd):
+    """Which combination governs each extreme, the actions acting with it, maxima per span, ties."""
+    from .model import SolvedBeam
+
+    out["combo_M_max"] = gmax.combo.name
+    out["V_at_M_max"] = lit.q(gmax.V_at(gmax.M_max.x), "force")
+    out["combo_M_min"] = gmin.combo.name
+    out["V_at_M_min"] = lit.q(gmin.V_at(gmin.M_min.x), "force")
+    out["combo_V_max"] = gV.combo.name
+    out["M_at_V_max"] = lit.q(gV.M_at(gV.V_max.x), "moment")
+    out["combo_delta_max"] = gd.combo.name
+    dn, _ = res.governing_tie(lambda c: c.d_down.value)
+    up, _ = res.governing_tie(lambda c: -c.d_up.value)
+    out["delta_down"] = lit.q(max(0.0, dn.d_down.value), "defl")
+    out["x_delta_down"] = lit.q(dn.d_down.x, "length")
+    out["combo_delta_down"] = dn.combo.name
+    out["delta_up"] = lit.q(max(0.0, -up.d_up.value), "defl")
+    out["x_delta_up"] = lit.q(up.d_up.x, "length")
+    out["combo_delta_up"] = up.combo.name
+    for k in range(len(setup.model.spans)):
+        out[f"M_max_{k + 1}"] = lit.q(max(c.span_M[k][0].value for c in res.combos), "moment")
+        out[f"M_min_{k + 1}"] = lit.q(min(c.span_M[k][1].value for c in res.combos), "moment")
+        out[f"delta_max_{k + 1}"] = lit.q(max(abs(c.span_delta[k].value) for c in res.combos), "defl")
+    out["n_combos"] = work.q(len(res.combos), "")
+    ties = 0
+    for label, g, ext, others in (
+            ("M_max", gmax, gmax.M_max, res.governing_tie(lambda c: c.M_max.value)[1]),
+            ("M_min", gmin, gmin.M_min, res.governing_tie(lambda c: -c.M_min.value)[1]),
+            ("V_max", gV, gV.V_max, res.governing_tie(lambda c: abs(c.V_max.value))[1]),
+            ("delta_max", gd, gd.d_max, res.governing_tie(lambda c: abs(c.d_max.value))[1])):
+        if abs(ext.value) == 0:
+            continue
+        where = [_x(lit, x) for x in ext.others]
+        if where or others:
+            ties += 1
+            text = f"The same value of {label} occurs at x = {_x(lit, ext.x)}"
+            if where:
+                text += " and also at x = " + ", ".join(where)
+            if others:
+                text += f" in {g.combo.name}, and in " + ", ".join(c.combo.name for c in others[:6]) + (
+                    " …" if len(others) > 6 else "")
+            work.note(text + "; the leftmost place (and the first combination) is reported.")
+    out["ties"] = work.q(ties, "")
+    out["model"] = SolvedBeam("beam.model", {}, source="beam.solve", setup=setup, results=res)
 
 
 def _x(lit, x):

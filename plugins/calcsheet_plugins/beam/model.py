@@ -8,6 +8,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
+from calcsheet.plugin import Record
+
 from .combos import parse_factors
 from .kinds import KINDS, Place
 from .solver import SUPPORT_KINDS, BeamInputError, Model
@@ -128,6 +130,18 @@ class Setup:
             out.setdefault(ld.case, []).append(ld.solver)
         out.update(self.split)
         return out
+
+
+class SolvedBeam(Record):
+    """The solved beam carried in a beam.solve result (field ``model``) for beam.at and beam.result."""
+
+    def __init__(self, type, fields, source, setup, results):
+        super().__init__(type, fields, source=source)
+        self.setup = setup
+        self.results = results
+
+    def __repr__(self) -> str:
+        return "<solved beam>"
 
 
 def si(q, what: str) -> float:
@@ -270,6 +284,7 @@ def _patterns(combos: list[Combination], sheet_loads, model):
     tol = 1e-9 * model.length
     split: dict[str, list] = {}
     out: list[Combination] = []
+    seen = {tuple(sorted(cb.factors.items())) for cb in combos}
     for cb in combos:
         if not cb.pattern:
             out.append(cb)
@@ -290,6 +305,10 @@ def _patterns(combos: list[Combination], sheet_loads, model):
                                        for p in [ld.solver.on_span(float(X[k - 1]), float(X[k]), k == n, tol)] if p]
                     if split[name]:
                         factors[name] = f
+            key = tuple(sorted(factors.items()))
+            if key in seen:  # the same loads as a combination already listed
+                continue
+            seen.add(key)
             suffix = "abcdefghijklmnopqrstuvwxyz"[j - 1] if j <= 26 else str(j)
             out.append(Combination(f"{cb.name}{suffix}", factors,
                                    cb.text + f" [{', '.join(cb.pattern)} on {label}]", "", clause=cb.clause,

@@ -27,6 +27,23 @@ class ComboResult:
     span_delta: list[S.Extreme]  # per span, largest |δ|
     zero_shear: list[float]
     support_M: list[float]  # bending moment at each node (largest magnitude of both sides)
+    d_down: S.Extreme = None  # largest downward deflection (max of δ)
+    d_up: S.Extreme = None  # largest upward deflection (min of δ)
+    span_M: list = None  # per span: (M max, M min)
+
+    def V_at(self, x: float) -> float:
+        """The shear acting with a moment at x: the larger in magnitude of the values just left and right."""
+        a = float(self.sol.at("V", x, side="left")[0]) if x > 0 else 0.0
+        b = float(self.sol.at("V", x, side="right")[0]) if x < self.sol.model.length else 0.0
+        v = a if abs(a) > abs(b) else b
+        return 0.0 if abs(v) < 1e-9 * max(abs(self.V_max.value), 1e-300) else v
+
+    def M_at(self, x: float) -> float:
+        """The moment at x (continuous except at an applied couple: then the larger in magnitude)."""
+        a = float(self.sol.at("M", x, side="left")[0]) if x > 0 else 0.0
+        b = float(self.sol.at("M", x, side="right")[0]) if x < self.sol.model.length else 0.0
+        v = a if abs(a) > abs(b) else b
+        return 0.0 if abs(v) < 1e-9 * max(abs(self.M_max.value), abs(self.M_min.value), 1e-300) else v
 
 
 @dataclass
@@ -42,15 +59,42 @@ class Results:
     def governing_abs(self, key: str) -> ComboResult:
         return max(self.combos, key=lambda c: abs(getattr(c, key).value))
 
+    def governing_tie(self, value) -> tuple[ComboResult, list[ComboResult]]:
+        """The combination whose value(c) is largest; values within a relative 1e-9 are ties, and the one
+        listed first governs. Returns it and the other combinations that tie with it."""
+        vals = [value(c) for c in self.combos]
+        best = max(vals)
+        tied = [c for c, v in zip(self.combos, vals) if abs(v - best) <= S.TIE * max(abs(best), 1e-300)]
+        return tied[0], tied[1:]
+
+    def by_name(self, name: str) -> ComboResult | None:
+        return next((c for c in self.combos if c.combo.name == name), None)
+
 
 def _abs_extreme(sol, what, spans=None) -> S.Extreme:
     hi, lo = S.extremes(sol, what, spans)
+    if abs(abs(hi.value) - abs(lo.value)) <= S.TIE * max(abs(hi.value), abs(lo.value), 1e-300):
+        a, b = (hi, lo) if hi.x <= lo.x else (lo, hi)  # equal magnitudes: the leftmost, the other a tie
+        tol = 1e-9 * sol.model.length
+        others = sorted(x for x in a.others + [b.x] + b.others if abs(x - a.x) > tol)
+        merged = [x for i, x in enumerate(others) if i == 0 or x - others[i - 1] > tol]
+        return S.Extreme(a.value, a.x, merged)
     return hi if abs(hi.value) >= abs(lo.value) else lo
 
 
 def _clean(e: S.Extreme, scale: float) -> S.Extreme:
     """Round-off noise (1e-14 of the largest value) is zero."""
     return S.Extreme(0.0, e.x) if abs(e.value) < 1e-9 * scale else e
+
+
+def _largest(per_span: list) -> S.Extreme:
+    """The largest |δ| over the spans; equal values (within 1e-9) in several spans: the leftmost, the others
+    listed as ties."""
+    best = max(abs(e.value) for e in per_span)
+    tied = [e for e in per_span if abs(abs(e.value) - best) <= S.TIE * max(best, 1e-300)]
+    first = tied[0]
+    others = list(first.others) + [x for e in tied[1:] for x in [e.x] + list(e.others)]
+    return S.Extreme(first.value, first.x, others)
 
 
 def run(setup: Setup, per_span: int = 200) -> Results:
@@ -73,9 +117,12 @@ def run(setup: Setup, per_span: int = 200) -> Results:
         scale = max(abs(Mmax.value), abs(Mmin.value), 1e-300)
         Mmax, Mmin = _clean(Mmax, scale), _clean(Mmin, scale)
         sup_M = [0.0 if abs(v) < 1e-9 * scale else v for v in sup_M]
+        dn, up = S.extremes(sol, "delta")
+        span_M = [S.extremes(sol, "M", [k]) for k in range(len(model.spans))]
+        span_M = [(_clean(a, scale), _clean(b, scale)) for a, b in span_M]
         out.append(ComboResult(
-            cb, loads, sol, Mmax, Mmin, _abs_extreme(sol, "V"), max(spans_d, key=lambda e: abs(e.value)),
-            _abs_extreme(sol, "theta"), spans_d, S.zero_shear_points(sol), sup_M,
+            cb, loads, sol, Mmax, Mmin, _abs_extreme(sol, "V"), _largest(spans_d),
+            _abs_extreme(sol, "theta"), spans_d, S.zero_shear_points(sol), sup_M, dn, up, span_M,
         ))
     res = Results(setup, out, grid)
     if per_span:
