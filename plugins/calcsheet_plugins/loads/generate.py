@@ -29,6 +29,7 @@ KINDS: dict[str, dict] = ACTIONS["kind"]
 SCALES: dict[str, list[str]] = ACTIONS["scales"]
 EN = SETS["en1990"]
 SET_NAMES = tuple(SETS["set"])
+_CANONICAL = {k.lower(): k for k in KINDS}  # "imposed b" and "imposed  B" mean "imposed B"
 
 
 class CombinationError(ValueError):
@@ -105,6 +106,7 @@ def parse_cases(text: str, set_name: str) -> list[Case]:
         name, kind = m.group(1), (m.group(2) or "").strip()
         if not kind:
             kind = _kind_from_name(name, standard)
+        kind = _CANONICAL.get(" ".join(kind.split()).lower(), kind)
         if kind not in KINDS:
             import difflib
 
