@@ -12,6 +12,7 @@ from . import handbook
 from .model import _SI_OF, letters
 
 MAX_TERMS = 12
+MANY_COMBOS = 8  # beyond this many combinations, equilibrium is tabulated and the worst one checked
 
 
 def num(v: float) -> str:
@@ -257,6 +258,9 @@ def equilibrium_check(work, setup, res, lit: Lit):
     A = Ls[iA]
     work.note(f"Equilibrium of the result: the reactions in the table must balance the factored loads, in force "
               f"and in moment about {A}.", kind="method")
+    if len(res.combos) > MANY_COMBOS:
+        _equilibrium_table(work, setup, res, lit, X, iA, A)
+        return
     names = case_sums(work, setup, X[iA], A, lit)
     fu, mu = lit.units["force"], lit.units["moment"]
     for cr in res.combos:
@@ -274,6 +278,36 @@ def equilibrium_check(work, setup, res, lit: Lit):
                    desc=f"ΣF_y = 0{label}")
         work.check(f"abs(M_R{tag} - M_W{tag}) <= 1e-6*(abs(M_W{tag}) + 1 {mu})",
                    desc=f"ΣM about {A} = 0{label}")
+
+
+def _equilibrium_table(work, setup, res, lit: Lit, X, iA: int, A: str):
+    """Many combinations: ΣF_y and ΣM for each in one table, and the largest residual checked in the working."""
+    fu, mu = lit.units["force"], lit.units["moment"]
+    case_loads = setup.case_loads()
+    rows, worst = [], None
+    for cr in res.combos:
+        W = sum(f * ld.force() for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        MW = sum(f * ld.moment_about(X[iA]) for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        R = float(cr.sol.reactions.sum())
+        MR = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
+        rows.append([cr.combo.name, lit.q(W, "force"), lit.q(R, "force"), lit.q(MW, "moment"), lit.q(MR, "moment")])
+        rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))
+        if worst is None or rel > worst[0]:
+            worst = (rel, cr, W, R, MW, MR)
+    work.table(f"Equilibrium by combination (factored loads from the loads table; moments about {A}, "
+               f"clockwise positive)", ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"], rows,
+               units=[None, fu, fu, mu, mu])
+    _, cr, W, R, MW, MR = worst
+    work.let("W_tot", lit.q(W, "force"), unit=fu, desc=f"total factored load ({cr.combo.name}, the largest "
+                                                          f"residual in the table)", note="Σ factor × load")
+    work.let("R_sum", lit.q(R, "force"), unit=fu, desc=f"sum of the reactions ({cr.combo.name})",
+             note="ΣR over the reactions")
+    work.let("M_W", lit.q(MW, "moment"), unit=mu, desc=f"moment of the factored loads about {A} ({cr.combo.name})",
+             note="Σ factor × load × lever arm")
+    work.let("M_R", lit.q(MR, "moment"), unit=mu, desc=f"moment of the reactions about {A} ({cr.combo.name})",
+             note="Σ R·a + support couples")
+    work.check(f"abs(R_sum - W_tot) <= 1e-6*(abs(W_tot) + 1 {fu})", desc="ΣF_y = 0 (every combination in the table)")
+    work.check(f"abs(M_R - M_W) <= 1e-6*(abs(M_W) + 1 {mu})", desc=f"ΣM about {A} = 0 (every combination)")
 
 
 def write(work, setup, res, lit: Lit):
