@@ -32,6 +32,10 @@ SOLVE_PARAMS = [
           default=None),
     Param("material", kind="record", record="material", doc="a material record giving E", default=None),
     Param("section", kind="record", record="section", doc="a section record giving I_x", default=None),
+    Param("springs", kind="list", record="spring", default=None,
+          doc="beam.spring records: elastic supports (a \"spring\" support) and rotational springs"),
+    Param("settlement", kind="list", record="settlement", default=None,
+          doc="beam.settlement records: prescribed downward movement of supports"),
     Param("limit", doc="deflection limit as span/δ, e.g. 360 for L/360 (default 360)", default=None),
     Param("deflection", kind="text", doc="name of the combination the deflection limit applies to "
                                          "(default: all)", default=None),
@@ -97,11 +101,12 @@ def _number(q, name, lo=None):
 
 
 @namespace.function("solve", params=SOLVE_PARAMS, fields=SOLVE_FIELDS, returns="beam")
-def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, I=None, I_spans=None, material=None, section=None,
-          limit=None, deflection=None, samples=None):
+def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, I=None, I_spans=None, material=None,
+          section=None, springs=None, settlement=None, limit=None, deflection=None, samples=None):
     """Reactions, shear, moment, slope and deflection of a beam on any supports, exactly, with its working."""
     try:
-        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section, combinations)
+        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section, combinations,
+                      springs, settlement)
         per_span = int(_number(samples, "samples", 10)) if samples is not None else 200
         lim = _number(limit, "limit", 1) if limit is not None else None
         res = results.run(setup, per_span=min(per_span, 5000))
@@ -143,7 +148,8 @@ def _input_tables(work, setup, lit):
     Ls = letters(len(X))
     u = setup.units
     work.table("Supports", ["Support", "x", "Type"],
-               [[Ls[i], lit.q(X[i], "length"), k] for i, k in enumerate(setup.kinds)], units=[None, u["length"], None])
+               [[Ls[i], lit.q(X[i], "length"), _support_text(setup, i, k)] for i, k in enumerate(setup.kinds)],
+               units=[None, u["length"], None])
     rows = []
     for ld in setup.loads:
         name, what, x1, x2 = ld.solver.row(lit, working.num)
@@ -163,6 +169,18 @@ def _input_tables(work, setup, lit):
             work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
 
 
+def _support_text(setup, i, kind):
+    parts = [kind]
+    k, kt = setup.model.springs.get(i, (0.0, 0.0))
+    if k:
+        parts.append(f"k = {working.num(k / 1e3)} kN/m")
+    if kt:
+        parts.append(f"k_θ = {working.num(kt / 1e3)} kN·m/rad")
+    if i in setup.model.settlement:
+        parts.append(f"settles {working.num(setup.model.settlement[i] * 1e3)} mm")
+    return ", ".join(parts)
+
+
 def _result_tables(work, setup, res, lit):
     u = setup.units
     if not _indeterminate_path(setup):
@@ -180,6 +198,8 @@ def _result_tables(work, setup, res, lit):
 
 
 def _indeterminate_path(setup) -> bool:
+    if setup.model.springs or setup.model.settlement:
+        return True
     kinds = setup.kinds
     vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
     rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
@@ -197,7 +217,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
     env = " (envelope of the combinations)" if many else ""
     out = {"L": lit.q(model.length, "length"), "n_spans": work.q(len(model.spans), "")}
     for i, k in enumerate(setup.kinds):
-        if k in ("pinned", "roller", "fixed"):
+        if k in ("pinned", "roller", "fixed", "spring") and (k != "spring" or setup.model.springs[i][0]):
             vals = [c.sol.reactions[i] for c in res.combos]
             out[f"R_{i + 1}"] = lit.q(max(vals), "force")
             out[f"R_min_{i + 1}"] = lit.q(min(vals), "force")

@@ -191,6 +191,10 @@ def _support(svg, px, y0, kind, first):
             svg.circle(px - s * 4, y0 + 8, 2.5, fill="white", stroke=INK)
     elif kind == "hinge":
         svg.circle(px, y0, 4, fill="white", stroke=INK, stroke_width=1.4)
+    elif kind == "spring":
+        pts = [(px, y0 + 2)] + [(px + (5 if k % 2 else -5), y0 + 5 + 3 * k) for k in range(5)] + [(px, y0 + 20)]
+        svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.1)
+        svg.line(px - 10, y0 + 21, px + 10, y0 + 21, stroke=INK, stroke_width=1)
 
 
 def _budget(model) -> int:
@@ -278,7 +282,7 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
                       anchor="start")
         if len(model.spans) <= 6 and single:
             for i, xn in enumerate(X):
-                if setup.kinds[i] in ("pinned", "roller", "fixed"):
+                if setup.kinds[i] in ("pinned", "roller", "fixed", "spring"):
                     for side in ("left", "right"):
                         if xn <= 0 or xn >= model.length:  # end values are the labelled extremes
                             continue

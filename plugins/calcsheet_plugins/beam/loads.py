@@ -31,3 +31,36 @@ def combo(work, name, factors):
     if not name.strip():
         work.fail("give the combination a name", param="name")
     return {"name": name, "factors": factors}
+
+
+@namespace.function(
+    "spring",
+    params=[Param("at", kind="text", doc="the support, by letter (A, B, …)"),
+            Param("k", "[force]/[length]", "translational stiffness (force per unit deflection)", default=None),
+            Param("k_theta", "[force]*[length]", "rotational stiffness, moment per radian (write kN*m)",
+                  default=None)],
+    fields=[Field("at", kind="text", doc="support"), Field("k", "[force]/[length]", "translational stiffness"),
+            Field("k_theta", "[force]*[length]", "rotational stiffness per radian")],
+    returns="spring",
+)
+def spring(work, at, k=None, k_theta=None):
+    """An elastic support: a translational spring (on a "spring" support) and/or a rotational one."""
+    if k is None and k_theta is None:
+        work.fail("give k (translational) or k_theta (rotational), or both", param="k")
+    for name, q in (("k", k), ("k_theta", k_theta)):
+        if q is not None and not q.magnitude > 0:
+            work.fail(f"{name} must be greater than zero", param=name)
+    return {"at": at.strip(), "k": k if k is not None else work.q(0, "kN/m"),
+            "k_theta": k_theta if k_theta is not None else work.q(0, "kN*m")}
+
+
+@namespace.function(
+    "settlement",
+    params=[Param("at", kind="text", doc="the support, by letter (A, B, …)"),
+            Param("delta", "[length]", "downward movement of the support (negative: upward)")],
+    fields=[Field("at", kind="text", doc="support"), Field("delta", "[length]", "downward movement")],
+    returns="settlement",
+)
+def settlement(work, at, delta):
+    """A prescribed movement of a support that holds the beam up (it acts in every combination)."""
+    return {"at": at.strip(), "delta": delta}

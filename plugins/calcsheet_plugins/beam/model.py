@@ -149,7 +149,7 @@ def si(q, what: str) -> float:
 
 
 def build(work, spans, supports, loads, combos, E, I, I_spans, material, section,
-          combinations=None) -> Setup:
+          combinations=None, springs=None, settlement=None) -> Setup:
     system = "US" if str(work.settings.get("system", "SI")).upper() == "US" else "SI"
     span_si = [si(s, "length") for s in spans]
     kinds = parse_supports(supports)
@@ -178,7 +178,12 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
     for k, v in enumerate(I_si, 1):
         if not v > 0:
             raise BeamInputError(f"I of span {k} must be greater than zero", "I_spans" if I_spans is not None else "I")
-    model = Model(span_si, kinds, [E_val * v for v in I_si])
+    spring_of, settle_of = _elastic(springs, settlement, kinds)
+    for i, kind in enumerate(kinds):
+        if kind == "spring" and not spring_of.get(i, (0, 0))[0]:
+            raise BeamInputError(f"support {letters(len(kinds))[i]} is a spring: give its stiffness with "
+                                 f"springs=[beam.spring(at=\"{letters(len(kinds))[i]}\", k=…)]", "springs")
+    model = Model(span_si, kinds, [E_val * v for v in I_si], spring_of, settle_of)
 
     # loads
     X = model.nodes
@@ -316,3 +321,28 @@ def _patterns(combos: list[Combination], sheet_loads, model):
                                    duration=cb.duration, loaded=label, note=cb.note,
                                    parent=cb.name))
     return out, split
+
+
+def _support_index(at: str, kinds, param: str) -> int:
+    names = letters(len(kinds))
+    if at in names:
+        return names.index(at)
+    if at.isdigit() and 1 <= int(at) <= len(kinds):
+        return int(at) - 1
+    raise BeamInputError(f"there is no support {at!r}; the supports are " + ", ".join(names), param)
+
+
+def _elastic(springs, settlement, kinds):
+    spring_of: dict[int, tuple[float, float]] = {}
+    for rec in springs or ():
+        i = _support_index(rec.get("at"), kinds, "springs")
+        if i in spring_of:
+            raise BeamInputError(f"two springs at support {rec.get('at')}; give k and k_theta in one", "springs")
+        spring_of[i] = (si(rec.get("k"), "line"), si(rec.get("k_theta"), "moment"))
+    settle_of: dict[int, float] = {}
+    for rec in settlement or ():
+        i = _support_index(rec.get("at"), kinds, "settlement")
+        if i in settle_of:
+            raise BeamInputError(f"support {rec.get('at')} settles twice", "settlement")
+        settle_of[i] = si(rec.get("delta"), "length")
+    return spring_of, settle_of

@@ -25,7 +25,7 @@ import numpy as np
 
 from . import kinds as _kinds
 
-SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided")
+SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided", "spring")
 HOLDS_DEFLECTION = {"pinned", "roller", "fixed"}
 HOLDS_ROTATION = {"fixed", "guided"}
 
@@ -47,6 +47,8 @@ class Model:
     spans: list[float]
     supports: list[str]
     EI: list[float]  # one per span
+    springs: dict = field(default_factory=dict)  # node -> (k N/m, k_theta N·m/rad): elastic supports
+    settlement: dict = field(default_factory=dict)  # node -> prescribed downward displacement, m
 
     def __post_init__(self):
         self.spans = [float(s) for s in self.spans]
@@ -82,6 +84,27 @@ def validate_model(m: Model) -> None:
             raise BeamInputError(f"support {i} is {k!r}; use one of {', '.join(SUPPORT_KINDS)}", "supports")
     if m.supports[0] == "hinge" or m.supports[-1] == "hinge":
         raise BeamInputError("a hinge at an end of the beam releases nothing; use \"free\" or a support", "supports")
+    for i, (k, kt) in m.springs.items():
+        if not (0 <= i < len(m.supports)):
+            raise BeamInputError(f"a spring is at support {i + 1}, but the beam has {len(m.supports)}", "springs")
+        if not (np.isfinite(k) and np.isfinite(kt)) or k < 0 or kt < 0 or (k == 0 and kt == 0):
+            raise BeamInputError(f"the spring at support {i + 1} needs a stiffness greater than zero", "springs")
+        kind = m.supports[i]
+        if k and kind in HOLDS_DEFLECTION:
+            raise BeamInputError(f"support {i + 1} is {kind}: it already holds the beam up; make it \"spring\" "
+                                 f"for a translational spring", "springs")
+        if kt and kind in HOLDS_ROTATION:
+            raise BeamInputError(f"support {i + 1} is {kind}: it already holds the rotation; a rotational spring "
+                                 f"needs a support free to rotate (pinned, roller, spring)", "springs")
+        if kind == "hinge":
+            raise BeamInputError(f"support {i + 1} is a hinge; put the spring on a support", "springs")
+    for i, v in m.settlement.items():
+        if not (0 <= i < len(m.supports)) or m.supports[i] not in HOLDS_DEFLECTION:
+            raise BeamInputError(f"a settlement needs a support that holds the beam up (pinned, roller or fixed); "
+                                 f"support {i + 1} is {m.supports[i] if 0 <= i < len(m.supports) else 'missing'}",
+                                 "settlement")
+        if not np.isfinite(v):
+            raise BeamInputError(f"the settlement at support {i + 1} is not a number", "settlement")
     if len(m.EI) != len(m.spans):
         raise BeamInputError(f"give EI for each of the {len(m.spans)} spans", "I")
     for i, e in enumerate(m.EI, 1):
@@ -331,6 +354,20 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
         el_k.append(k)
         el_f.append(f)
 
+    for i, (k, kt) in m.springs.items():
+        band[dofs.w[i], 0] += k
+        band[dofs.rl[i], 0] += kt
+    # prescribed support settlement: move the restrained dof, and its stiffness loads the free dofs
+    u = np.zeros(dofs.n)
+    for i, s_down in m.settlement.items():
+        r = dofs.w[i]
+        u[r] = -s_down  # y up
+        for dd in range(1, HALF_BAND + 1):
+            if r + dd < dofs.n:
+                F[r + dd] -= band[r + dd, dd] * u[r]
+            if r - dd >= 0:
+                F[r - dd] -= band[r, dd] * u[r]
+
     free = np.flatnonzero(~dofs.restrained)
     pos = -np.ones(n, dtype=int)
     pos[free] = np.arange(len(free))
@@ -340,7 +377,6 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
             gj = gi - dd
             if gj >= 0 and pos[gj] >= 0:
                 rb[pos[gi], pos[gi] - pos[gj]] = band[gi, dd]
-    u = np.zeros(n)
     if len(free):
         scale = np.maximum(rb[:, 0], 1e-300)
         try:
@@ -357,8 +393,13 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
         R[d] += fe
         ends.append((fe[0], -fe[1], -fe[2], fe[3]))  # V(0+), M(0+), V(L-), M(L-) in beam signs
     # reaction = what the supports must supply: K u - F at restrained dofs plus loads at nodes
-    reactions = np.array([R[dofs.w[i]] if dofs.restrained[dofs.w[i]] else 0.0 for i in range(nspan + 1)])
-    rmom = np.array([R[dofs.rl[i]] if dofs.restrained[dofs.rl[i]] else 0.0 for i in range(nspan + 1)])
+    # (at a spring the element forces balance the spring force, so the same sum is the spring's reaction)
+    sprung_w = {i for i, (k, _) in m.springs.items() if k}
+    sprung_r = {i for i, (_, kt) in m.springs.items() if kt}
+    reactions = np.array([R[dofs.w[i]] if dofs.restrained[dofs.w[i]] or i in sprung_w else 0.0
+                          for i in range(nspan + 1)])
+    rmom = np.array([R[dofs.rl[i]] if dofs.restrained[dofs.rl[i]] or i in sprung_r else 0.0
+                     for i in range(nspan + 1)])
     # R above already includes equivalent loads of point loads at nodes through fe; a point load
     # exactly at a node sits inside one element's load vector, so R is correct as assembled.
 

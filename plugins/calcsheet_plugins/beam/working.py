@@ -233,7 +233,7 @@ def reactions_table(work, setup, res, lit):
     X = setup.model.nodes
     Ls = letters(len(X))
     u = lit.units
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided")]
+    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
     if len(sup) > 40:
         return
     cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
@@ -315,9 +315,17 @@ def write(work, setup, res, lit: Lit):
     vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
     rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
     hinges = sum(1 for k in kinds if k == "hinge")
-    r = len(vert) + len(rot)
+    elastic = setup.model.springs or setup.model.settlement
+    r = len(vert) + len(rot) + sum((k > 0) + (kt > 0) for k, kt in setup.model.springs.values())
     degree = r - 2 - hinges
-    if hinges == 0 and not rot and len(vert) == 2:
+    if elastic:
+        work.note("Elastic supports and prescribed settlements: a spring's force is its stiffness times the "
+                  "movement of its support, and a settled support moves by the amount given; both enter the "
+                  "stiffness matrix directly, so E and I govern the forces as well as the deflections.",
+                  kind="method")
+        indeterminate(work, setup, res, max(degree, 1), lit, hinges)
+        equilibrium_check(work, setup, res, lit)
+    elif hinges == 0 and not rot and len(vert) == 2:
         simple_span(work, setup, res, vert[0], vert[1], lit)
     elif hinges == 0 and len(vert) == 1 and rot == vert and vert[0] in (0, len(kinds) - 1):
         cantilever(work, setup, res, vert[0], lit)

@@ -106,4 +106,8 @@ def test_every_defaulted_parameter_is_covered_here():
 
 # beam.at / beam.result: combo defaults to the only combination (test_beam_query.py
 # test_combo_defaults_to_the_only_combination)
-EXTRA_COVERED: set[str] = {"at.combo", "result.combo"}  # defaults of functions added later, each with its own test in its own file
+# beam.spring: k and k_theta default to none (test_beam_frame_oracle.py: a spring with k alone matches a frame
+# with no rotational spring, one with k_theta alone sits on a pinned support, which refuses a translational one);
+# beam.solve springs/settlement default to none: every other test here has neither
+EXTRA_COVERED: set[str] = {"at.combo", "result.combo", "spring.k", "spring.k_theta", "solve.springs",
+                           "solve.settlement"}  # defaults of functions added later, each with its own test in its own file
