@@ -83,6 +83,12 @@ SOLVE_FIELDS = [
     Field("M_max_{i}", MOM, "largest sagging moment in span i (envelope)"),
     Field("M_min_{i}", MOM, "largest hogging moment in span i (envelope, negative)"),
     Field("delta_max_{i}", LEN, "largest deflection in magnitude in span i (envelope)"),
+    Field("N_at_M_max", FORCE, "axial force acting with M_max, compression positive"),
+    Field("N_at_M_min", FORCE, "axial force acting with M_min, compression positive"),
+    Field("N_at_V_max", FORCE, "axial force acting with V_max, compression positive"),
+    Field("N_max", FORCE, "largest axial compression (0 without loads along the axis; negative: tension only)"),
+    Field("x_N_max", LEN, "where it starts (the leftmost stretch)"),
+    Field("combo_N_max", kind="text", doc="combination giving N_max"),
     Field("n_combos", doc="number of combinations solved (pattern variants included)"),
     Field("ties", doc="how many of M_max, M_min, V_max, delta_max occur at more than one place or combination"),
     Field("model", kind="record", record="beam.model", doc="the solved beam, read by beam.at and beam.result"),
@@ -326,6 +332,24 @@ def _governing(work, setup, res, lit, out, gmax, gmin, gV, gd):
     out["combo_V_max"] = gV.combo.name
     out["M_at_V_max"] = lit.q(gV.M_at(gV.V_max.x), "moment")
     out["combo_delta_max"] = gd.combo.name
+    out["N_at_M_max"] = lit.q(gmax.N_at(gmax.M_max.x), "force")
+    out["N_at_M_min"] = lit.q(gmin.N_at(gmin.M_min.x), "force")
+    out["N_at_V_max"] = lit.q(gV.N_at(gV.V_max.x), "force")
+    gN, _ = res.governing_tie(lambda c: c.N_max().value)
+    nmax = gN.N_max()
+    if any(c.axial[0] for c in res.combos):
+        names = letters(len(setup.model.nodes))
+        held = next(names[i] for i, k in enumerate(setup.kinds) if k in ("pinned", "fixed"))
+        out["N_max"] = work.let("N_max", lit.q(nmax.value, "force"), unit=lit.units["force"],
+                                desc="largest axial compression" + (" (envelope of the combinations)"
+                                                                    if len(res.combos) > 1 else ""),
+                                note=f"statics along the axis: support {held} holds the member, so N(x) is the sum "
+                                     f"of the axial forces on the far side of x; from x = {_x(lit, nmax.x)}"
+                                     + (f" ({gN.combo.name})" if len(res.combos) > 1 else ""))
+    else:
+        out["N_max"] = lit.q(0.0, "force")
+    out["x_N_max"] = lit.q(nmax.x, "length")
+    out["combo_N_max"] = gN.combo.name
     dn, _ = res.governing_tie(lambda c: c.d_down.value)
     up, _ = res.governing_tie(lambda c: -c.d_up.value)
     out["delta_down"] = lit.q(max(0.0, dn.d_down.value), "defl")

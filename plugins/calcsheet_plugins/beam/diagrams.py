@@ -143,6 +143,14 @@ def beam_figure(setup, lit) -> str:
                 last_label.append((px, ty))
                 _text(svg, px + 4, ty, f"{fmt(lit.value(abs(s.P), 'force'))} {fu}" +
                       (f" ({ld.case})" if ld.case else ""), 9, anchor="start")
+        elif s.glyph == "axial":
+            px = float(fr.px(s.x))
+            d = 22 if s.F >= 0 else -22
+            svg.line(px - d, y0 - 9, px, y0 - 9, stroke=INK, stroke_width=1.2)
+            svg.polygon([(px, y0 - 9), (px - (5 if d > 0 else -5), y0 - 12), (px - (5 if d > 0 else -5), y0 - 6)],
+                        fill=INK)
+            if label:
+                _text(svg, px - d / 2, y0 - 14, f"{fmt(lit.value(abs(s.F), 'force'))} {fu}", 9)
         elif s.glyph == "couple":
             px = float(fr.px(s.x))
             _couple(svg, px, y0, s.M >= 0)

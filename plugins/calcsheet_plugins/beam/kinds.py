@@ -144,6 +144,10 @@ class Load:
         also what lies at its right end), as a load of the same kind, or None."""
         raise NotImplementedError
 
+    def axial(self) -> list[tuple[float, float]]:
+        """Forces along the member it applies: (x, F) with F positive toward +x. Most loads have none."""
+        return []
+
     def parts(self, x0: float, x1: float, tol: float) -> list[tuple]:
         """This load's parts on the span [x0, x1], local coordinates: ('P', a, 0, P, 0) a downward force,
         ('M', a, 0, M, 0) a clockwise couple, ('w', a, b, w_a, w_b) a downward linear line load."""
@@ -428,3 +432,60 @@ class UniformLoad(LineLoad):
         """A uniform load over the whole beam (or span), or from start to end."""
         return {"kind": cls.name, "case": check_case(work, case), "span": check_span(work, span), "w_1": w, "w_2": w,
                 **check_extent(work, start, end)}
+
+
+@kind
+@dataclass(frozen=True)
+class AxialLoad(Load):
+    """A force along the member's axis: it bends nothing, and gives the axial force N of a beam-column."""
+
+    x: float
+    F: float  # toward +x (to the right)
+    case: str = ""
+
+    name: ClassVar[str] = "axial"
+    title: ClassVar[str] = "A force along the member's axis (positive toward +x; pushing into the right end is negative)."
+    glyph: ClassVar[str] = "axial"
+    params: ClassVar[list] = [Param("F", "[force]", "force along the axis, positive pointing to the right (+x)"),
+                              Param("x", "[length]", "position"), CASE_PARAM, SPAN_PARAM]
+    fields: ClassVar[list] = COMMON_FIELDS + [Field("F", "[force]", "axial force"), Field("x", "[length]", "position")]
+
+    @classmethod
+    def record(cls, work, F, x, case="", span=None):
+        """A force along the member's axis (positive toward +x; pushing into the right end is negative)."""
+        check_nonneg(work, x, "x")
+        return {"kind": cls.name, "case": check_case(work, case), "span": check_span(work, span), "F": F, "x": x}
+
+    @classmethod
+    def from_record(cls, rec, place, error):
+        return cls(place(rec.get("x"), "x"), si(rec.get("F"), "force"), rec.get("case"))
+
+    validate = PointLoad.validate
+    breakpoints = PointLoad.breakpoints
+    snapped = PointLoad.snapped
+    start = PointLoad.start
+    on_span = PointLoad.on_span
+
+    def scaled(self, f):
+        return dataclasses.replace(self, F=f * self.F)
+
+    def axial(self):
+        return [(self.x, self.F)]
+
+    def parts(self, x0, x1, tol):
+        return []
+
+    def force(self):
+        return 0.0
+
+    def moment_about(self, x_ref):
+        return 0.0
+
+    def terms(self, x_ref, lit):
+        return None, None
+
+    def left_term(self, x0, xn, lit, tol):
+        return None
+
+    def row(self, lit, num):
+        return "axial (→ +)", f"F = {num(lit.value(self.F, 'force'))} {lit.units['force']}", self.x, None

@@ -61,6 +61,7 @@ def _clean(v: float, scale: float) -> float:
             Field("V", FORCE, "shear just to the right of x (V = dM/dx, sum of upward forces to the left)"),
             Field("V_left", FORCE, "shear just to the left of x (differs at a point load or support)"),
             Field("M", MOM, "bending moment, sagging positive (just right of x at an applied couple)"),
+            Field("N", FORCE, "axial force, compression positive (the larger in magnitude either side of x)"),
             Field("theta", "[angle]", "slope dδ/dx"),
             Field("delta", LEN, "deflection, downward positive")],
     returns="beam.point_values",
@@ -88,6 +89,7 @@ def at(work, member, x, combo=None):
     out = {"x": x, "combo": cr.combo.name,
            "V": work.let("V", lit.q(V, "force"), unit=u["force"], desc=f"shear at x = {xs:g} m", note=note),
            "V_left": lit.q(V_left, "force"),
+           "N": lit.q(cr.N_at(xs), "force"),
            "M": work.let("M", lit.q(M, "moment"), unit=u["moment"], desc=f"bending moment at x = {xs:g} m",
                          note=note),
            "theta": work.let("theta", work.q(th, "rad"), unit="rad", desc=f"slope at x = {xs:g} m", note=note),
@@ -145,6 +147,9 @@ RESULT_FIELDS = [
     Field("V_at_M_min", FORCE, "shear acting with it"),
     Field("V_max", FORCE, "largest shear in magnitude"), Field("x_V_max", LEN, "where"),
     Field("M_at_V_max", MOM, "moment acting with it"),
+    Field("N_at_M_max", FORCE, "axial force acting with M_max, compression positive"),
+    Field("N_at_M_min", FORCE, "axial force acting with M_min"),
+    Field("N_max", FORCE, "largest axial compression"),
     Field("delta_max", LEN, "largest deflection in magnitude"), Field("x_delta_max", LEN, "where"),
     Field("delta_down", LEN, "largest downward deflection (0 when none)"), Field("x_delta_down", LEN, "where"),
     Field("delta_up", LEN, "largest upward deflection, positive (0 when none)"), Field("x_delta_up", LEN, "where"),
@@ -188,6 +193,9 @@ def result(work, member, combo=None):
                             desc="largest shear in magnitude", note=note + f", at x = {cr.V_max.x:.4g} m")
     out["x_V_max"] = lit.q(cr.V_max.x, "length")
     out["M_at_V_max"] = lit.q(cr.M_at(cr.V_max.x), "moment")
+    out["N_at_M_max"] = lit.q(cr.N_at(cr.M_max.x), "force")
+    out["N_at_M_min"] = lit.q(cr.N_at(cr.M_min.x), "force")
+    out["N_max"] = lit.q(cr.N_max().value, "force")
     out["delta_max"] = lit.q(abs(cr.d_max.value), "defl")
     out["x_delta_max"] = lit.q(cr.d_max.x, "length")
     out["delta_down"] = lit.q(max(0.0, cr.d_down.value), "defl")

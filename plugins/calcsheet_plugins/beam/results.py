@@ -11,7 +11,8 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from . import solver as S
-from .model import Setup
+from .model import Setup, letters
+from .solver import BeamInputError
 
 
 @dataclass
@@ -27,6 +28,7 @@ class ComboResult:
     span_delta: list[S.Extreme]  # per span, largest |δ|
     zero_shear: list[float]
     support_M: list[float]  # bending moment at each node (largest magnitude of both sides)
+    axial: tuple = ((), None)  # ((x, F) forces along the axis, x of the support that holds it) or no restraint
     d_down: S.Extreme = None  # largest downward deflection (max of δ)
     d_up: S.Extreme = None  # largest upward deflection (min of δ)
     span_M: list = None  # per span: (M max, M min)
@@ -37,6 +39,28 @@ class ComboResult:
         b = float(self.sol.at("V", x, side="right")[0]) if x < self.sol.model.length else 0.0
         v = a if abs(a) > abs(b) else b
         return 0.0 if abs(v) < 1e-9 * max(abs(self.V_max.value), 1e-300) else v
+
+    def N_at(self, x: float) -> float:
+        """Axial force at x, compression positive (the larger in magnitude just left and right of x)."""
+        pts, xr = self.axial
+        if not pts:
+            return 0.0
+        L = self.sol.model.length
+        eps = 1e-9 * L
+        vals = [_axial(pts, xr, min(max(x + d, 0.0), L)) for d in (-eps, eps)]
+        return max(vals, key=abs)
+
+    def N_max(self) -> S.Extreme:
+        """The largest compression (or, with none, the smallest tension) and where, leftmost on ties."""
+        pts, xr = self.axial
+        L = self.sol.model.length
+        if not pts:
+            return S.Extreme(0.0, 0.0)
+        cuts = sorted({0.0, L, xr} | {min(max(x, 0.0), L) for x, _ in pts})
+        segs = [(a, _axial(pts, xr, 0.5 * (a + b))) for a, b in zip(cuts[:-1], cuts[1:]) if b > a]
+        best = max(v for _, v in segs)
+        tied = [a for a, v in segs if abs(v - best) <= S.TIE * max(abs(best), 1e-300)]
+        return S.Extreme(best, tied[0], tied[1:])
 
     def M_at(self, x: float) -> float:
         """The moment at x (continuous except at an applied couple: then the larger in magnitude)."""
@@ -69,6 +93,32 @@ class Results:
 
     def by_name(self, name: str) -> ComboResult | None:
         return next((c for c in self.combos if c.combo.name == name), None)
+
+
+HOLDS_AXIAL = ("pinned", "fixed")
+
+
+def _axial(pts, xr: float, x: float) -> float:
+    """N at x (compression positive) from forces (x_i, F_i toward +x), the member held along its axis at xr."""
+    if x >= xr:
+        return -sum(F for xi, F in pts if xi > x)  # the part to the right: forces pulling it away are tension
+    return sum(F for xi, F in pts if xi < x)
+
+
+def axial_support(setup):
+    """x of the one support that holds the member along its axis, or None when no load acts along it."""
+    if not any(ld.solver.axial() for ld in setup.loads):
+        return None
+    names = letters(len(setup.kinds))
+    held = [i for i, k in enumerate(setup.kinds) if k in HOLDS_AXIAL]
+    if not held:
+        raise BeamInputError("a load acts along the member but no support holds it along its axis; make one "
+                             "support pinned or fixed", "supports")
+    if len(held) > 1:
+        raise BeamInputError("supports " + ", ".join(names[i] for i in held) + " all hold the member along its "
+                             "axis, so its axial force is statically indeterminate; make all but one of them a "
+                             "roller", "supports")
+    return float(setup.model.nodes[held[0]])
 
 
 def _abs_extreme(sol, what, spans=None) -> S.Extreme:
@@ -104,6 +154,7 @@ def run(setup: Setup, per_span: int = 200) -> Results:
     case_loads = setup.case_loads()
     out = []
     X = model.nodes
+    xr = axial_support(setup)
     for cb in setup.combos:
         loads = S.combine(model, case_loads, cb.factors)
         sol = S.solve(model, loads, grid=grid)
@@ -122,7 +173,8 @@ def run(setup: Setup, per_span: int = 200) -> Results:
         span_M = [(_clean(a, scale), _clean(b, scale)) for a, b in span_M]
         out.append(ComboResult(
             cb, loads, sol, Mmax, Mmin, _abs_extreme(sol, "V"), _largest(spans_d),
-            _abs_extreme(sol, "theta"), spans_d, S.zero_shear_points(sol), sup_M, dn, up, span_M,
+            _abs_extreme(sol, "theta"), spans_d, S.zero_shear_points(sol), sup_M,
+            (tuple(p for ld in loads for p in ld.axial()), xr), dn, up, span_M,
         ))
     res = Results(setup, out, grid)
     if per_span:

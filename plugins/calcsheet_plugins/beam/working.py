@@ -79,12 +79,13 @@ def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment:
                          desc=f"moment of {label} about {ref_letter}, clockwise positive",
                          note=f"Σ W·a over the {len(loads)} loads in the loads table")
         else:
-            terms = [load_terms(ld, x_ref, lit) for ld in loads]
+            terms = [t for t in (load_terms(ld, x_ref, lit) for ld in loads) if t[1] is not None]
             Wt = [t[0] for t in terms if t[0]]
             work.calc(W_name, " + ".join(Wt) if Wt else f"0 {lit.units['force']}", unit=lit.units["force"],
                       desc=f"total downward load of {label}")
             if with_moment:
-                work.calc(M_name, " + ".join(t[1] for t in terms), unit=lit.units["moment"],
+                work.calc(M_name, " + ".join(t[1] for t in terms) or f"0 {lit.units['moment']}",
+                          unit=lit.units["moment"],
                           desc=f"moment of {label} about {ref_letter} (load × lever arm, clockwise positive)")
         names[case] = (W_name, M_name)
     return names

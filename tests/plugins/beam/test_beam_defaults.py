@@ -88,6 +88,14 @@ def test_load_defaults_whole_beam_no_case_positions_from_the_left_end():
     same_fields(implicit, explicit)
 
 
+def test_axial_load_positions_default_to_the_left_end_and_no_case():
+    base = 'b = beam.solve(spans=[4 m, 5 m], supports="pinned, roller, roller", {S}, loads=[{L}])'
+    implicit = record(base.format(S=STIFF, L="beam.udl(w=1 kN/m), beam.axial(F=-5 kN, x=6 m)"))
+    explicit = record(base.format(S=STIFF, L='beam.udl(w=1 kN/m), beam.axial(F=-5 kN, x=2 m, span=2, case="")'))
+    same_fields(implicit, explicit)
+    assert implicit.fields["N_max"].m_as("kN") == 5  # statics: the force pushes into A's side of x = 6 m
+
+
 def test_every_defaulted_parameter_is_covered_here():
     """A new default must come with its test above: this list is the set of defaults the tests cover."""
     reg = calcsheet.plugin.registry() if hasattr(calcsheet.plugin, "registry") else None
@@ -99,7 +107,7 @@ def test_every_defaulted_parameter_is_covered_here():
                "solve.limit", "solve.deflection", "solve.samples",
                "point.case", "point.span", "moment.case", "moment.span",
                "udl.start", "udl.end", "udl.case", "udl.span",
-               "varying.start", "varying.end", "varying.case", "varying.span"}
+               "varying.start", "varying.end", "varying.case", "varying.span", "axial.case", "axial.span"}
     assert defaults <= covered | EXTRA_COVERED, sorted(defaults - covered - EXTRA_COVERED)
     del reg
 
