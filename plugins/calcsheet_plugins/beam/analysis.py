@@ -42,6 +42,12 @@ SOLVE_PARAMS = [
     Param("samples", doc="diagram points per span (default 200)", default=None),
 ]
 
+# fields that need E and I: absent for a statically determinate beam given neither
+NEEDS_STIFFNESS = {"delta_max", "x_delta_max", "theta_max", "delta_gov", "L_gov", "span_ratio", "delta_allow",
+                   "limit", "EI", "combo_delta_max", "delta_down", "x_delta_down", "combo_delta_down", "delta_up",
+                   "x_delta_up", "combo_delta_up", "combo_delta_gov", "delta_max_{i}"}
+STIFFNESS_HINT = " — needs E and I: give E (or material=…) and I (or section=…) to beam.solve"
+
 SOLVE_FIELDS = [
     Field("L", LEN, "total length"),
     Field("n_spans", doc="number of spans"),
@@ -106,6 +112,10 @@ def _number(q, name, lo=None):
     return v
 
 
+SOLVE_FIELDS = [Field(f.name, f.dim, f.doc + STIFFNESS_HINT, f.kind, f.record, True) if f.name in NEEDS_STIFFNESS
+                else f for f in SOLVE_FIELDS]
+
+
 @namespace.function("solve", params=SOLVE_PARAMS, fields=SOLVE_FIELDS, returns="beam")
 def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, I=None, I_spans=None, material=None,
           section=None, springs=None, settlement=None, limit=None, deflection=None, samples=None):
@@ -125,7 +135,11 @@ def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, 
     Ls = letters(len(X))
 
     _input_tables(work, setup, lit)
-    if len(set(model.EI)) == 1:
+    if not setup.stiff:
+        work.note("No E or I was given: the beam is statically determinate, so its reactions, shears and moments "
+                  "follow from statics alone; deflections and slopes need E and I and are not computed.",
+                  kind="method")
+    elif len(set(model.EI)) == 1:
         if E is not None and I is not None:
             work.calc("EI", "E*I", unit=u["EI"], desc="flexural stiffness")
         else:
@@ -144,6 +158,10 @@ def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, 
     working.write(work, setup, res, lit)
     _result_tables(work, setup, res, lit)
     out = _envelope(work, setup, res, lit, lim, deflection)
+    if not setup.stiff:
+        for name in list(out):
+            if name in NEEDS_STIFFNESS or name.startswith("delta_max_"):
+                del out[name]
     for svg, caption in diagrams.figures(setup, res, lit):
         work.figure(svg, caption=caption)
     return out
@@ -192,15 +210,17 @@ def _result_tables(work, setup, res, lit):
     if not _indeterminate_path(setup):
         working.reactions_table(work, setup, res, lit)
     rows = []
+    stiff = setup.stiff
     for c in res.combos:
         rows.append([c.combo.name, lit.q(c.M_max.value, "moment"), lit.q(c.M_max.x, "length"),
                      lit.q(c.M_min.value, "moment"), lit.q(c.M_min.x, "length"),
                      lit.q(abs(c.V_max.value), "force"), lit.q(c.V_max.x, "length"),
                      lit.q(c.d_max.value, "defl"), lit.q(c.d_max.x, "length")])
-    work.table("Maxima by combination (found exactly from the piecewise polynomials)",
-               ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"], rows,
-               units=[None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"],
-                      u["length"]])
+    cols = ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"]
+    units = [None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"], u["length"]]
+    if not stiff:
+        rows, cols, units = [r[:7] for r in rows], cols[:7], units[:7]
+    work.table("Maxima by combination (found exactly from the piecewise polynomials)", cols, rows, units=units)
 
 
 def _indeterminate_path(setup) -> bool:
@@ -260,13 +280,15 @@ def _envelope(work, setup, res, lit, lim, deflection):
     x0 = min(zs, key=lambda z: abs(z - gmax.M_max.x)) if zs else gmax.M_max.x
     out["x_V0"] = lit.q(x0, "length")
     direction = "downward" if gd.d_max.value >= 0 else "upward"
-    out["delta_max"] = work.let("delta_max", lit.q(abs(gd.d_max.value), "defl"), unit=u["defl"],
+    out["delta_max"] = lit.q(abs(gd.d_max.value), "defl") if not setup.stiff else work.let("delta_max", lit.q(abs(gd.d_max.value), "defl"), unit=u["defl"],
                                 desc=f"largest deflection{env}",
                                 note=f"{direction}, at x = {_x(lit, gd.d_max.x)}{tagged(gd)}")
     out["x_delta_max"] = lit.q(gd.d_max.x, "length")
     out["theta_max"] = work.q(abs(gt.theta_max.value), "rad")
     _governing(work, setup, res, lit, out, gmax, gmin, gV, gd)
 
+    if not setup.stiff:
+        return out
     # deflection against the limit
     pool = res.combos
     if deflection is not None:

@@ -318,9 +318,12 @@ def _mark(svg, fr, py, x, v, text, placed, down_positive, vmax):
 
 
 def figures(setup, res, lit):
-    return [
+    out = [
         (beam_figure(setup, lit), "Beam to scale, with its supports and loads (unfactored)"),
         (value_figure(setup, res, lit, "V", "Shear V", "force"), "Shear diagram"),
         (value_figure(setup, res, lit, "M", "Bending moment M", "moment"), "Bending moment diagram"),
-        (value_figure(setup, res, lit, "delta", "Deflection δ", "defl", down_positive=True), "Deflection diagram"),
     ]
+    if setup.stiff:
+        out.append((value_figure(setup, res, lit, "delta", "Deflection δ", "defl", down_positive=True),
+                    "Deflection diagram"))
+    return out

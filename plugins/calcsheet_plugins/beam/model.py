@@ -9,6 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from calcsheet.plugin import Record
+from calcsheet.units import Quantity
 
 from .combos import parse_factors
 from .kinds import KINDS, Place
@@ -116,6 +117,7 @@ class Setup:
     default_combo: bool = False
     notes: list[str] = field(default_factory=list)
     split: dict[str, list] = field(default_factory=dict)  # pattern cases: "Q_s2" -> Q's loads on span 2
+    stiff: bool = True  # False: a determinate beam given no E or I (forces only; no deflections)
 
     def used_cases(self) -> set[str]:
         return {c for cb in self.combos for c in cb.factors}
@@ -155,10 +157,29 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
     kinds = parse_supports(supports)
     n = len(span_si)
 
-    # stiffness
+    # stiffness: needed for deflections, and for the forces of an indeterminate beam
+    spring_of, settle_of = _elastic(springs, settlement, kinds)
+    no_E = E is None and material is None
+    no_I = I is None and I_spans is None and section is None
+    stiff = True
+    if no_E or no_I:
+        degree = (sum(k in ("pinned", "roller", "fixed") for k in kinds) + sum(k in ("fixed", "guided") for k in kinds)
+                  - 2 - sum(k == "hinge" for k in kinds))
+        missing = " and ".join(w for w, m in (("E (or material=…)", no_E), ("I (or section=…)", no_I)) if m)
+        if spring_of or settle_of or "spring" in kinds:
+            raise BeamInputError(f"springs and settlements make the forces depend on the stiffness: give {missing}",
+                                 "E" if no_E else "I")
+        if degree != 0:
+            raise BeamInputError(f"the beam is statically indeterminate (degree {degree}): its reactions depend "
+                                 f"on its stiffness; give {missing}", "E" if no_E else "I")
+        # statically determinate: statics gives the forces, whatever the stiffness (deflections are not computed)
+        stiff = False
+        if not no_E and E is None:
+            E = material.get("E")
+        E = E if E is not None else Quantity(1.0, "Pa")  # any value: statics does not read it
+        if no_I:
+            I_spans, I = None, Quantity(1.0, "m^4")
     if E is None:
-        if material is None:
-            raise BeamInputError("give E (e.g. E=200 GPa) or material=… (a material record)", "E")
         E = material.get("E")
     if I_spans is not None:
         if I is not None:
@@ -168,8 +189,6 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
         I_si = [si(v, "inertia") for v in I_spans]
     else:
         if I is None:
-            if section is None:
-                raise BeamInputError("give I (e.g. I=8.36e7 mm^4) or section=… (a section record with I_x)", "I")
             I = section.get("I_x")
         I_si = [si(I, "inertia")] * n
     E_val = si(E, "modulus")
@@ -178,7 +197,6 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
     for k, v in enumerate(I_si, 1):
         if not v > 0:
             raise BeamInputError(f"I of span {k} must be greater than zero", "I_spans" if I_spans is not None else "I")
-    spring_of, settle_of = _elastic(springs, settlement, kinds)
     for i, kind in enumerate(kinds):
         if kind == "spring" and not spring_of.get(i, (0, 0))[0]:
             raise BeamInputError(f"support {letters(len(kinds))[i]} is a spring: give its stiffness with "
@@ -256,7 +274,8 @@ def build(work, spans, supports, loads, combos, E, I, I_spans, material, section
         if len(set(tags)) != len(tags):
             for k, cb in enumerate(combo_list, 1):
                 cb.tag = f"_{k}"
-    return Setup(model, kinds, sheet_loads, combo_list, system, I_si, [E_val] * n, default, split=split)
+    return Setup(model, kinds, sheet_loads, combo_list, system, I_si, [E_val] * n, default, split=split,
+                 stiff=stiff)
 
 
 def _load(rec, idx: int, X, L: float) -> SheetLoad:

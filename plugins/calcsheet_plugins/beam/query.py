@@ -62,8 +62,8 @@ def _clean(v: float, scale: float) -> float:
             Field("V_left", FORCE, "shear just to the left of x (differs at a point load or support)"),
             Field("M", MOM, "bending moment, sagging positive (just right of x at an applied couple)"),
             Field("N", FORCE, "axial force, compression positive (the larger in magnitude either side of x)"),
-            Field("theta", "[angle]", "slope dδ/dx"),
-            Field("delta", LEN, "deflection, downward positive")],
+            Field("theta", "[angle]", "slope dδ/dx (needs E and I in beam.solve)", optional=True),
+            Field("delta", LEN, "deflection, downward positive (needs E and I in beam.solve)", optional=True)],
     returns="beam.point_values",
 )
 def at(work, member, x, combo=None):
@@ -92,10 +92,10 @@ def at(work, member, x, combo=None):
            "N": lit.q(cr.N_at(xs), "force"),
            "M": work.let("M", lit.q(M, "moment"), unit=u["moment"], desc=f"bending moment at x = {xs:g} m",
                          note=note),
-           "theta": work.let("theta", work.q(th, "rad"), unit="rad", desc=f"slope at x = {xs:g} m", note=note),
-           "delta": work.let("delta", lit.q(d, "defl"), unit=u["defl"], desc=f"deflection at x = {xs:g} m "
+           "theta": None if not setup.stiff else work.let("theta", work.q(th, "rad"), unit="rad", desc=f"slope at x = {xs:g} m", note=note),
+           "delta": None if not setup.stiff else work.let("delta", lit.q(d, "defl"), unit=u["defl"], desc=f"deflection at x = {xs:g} m "
                              f"(downward positive)", note=note)}
-    return out
+    return {k: v for k, v in out.items() if v is not None}
 
 
 def zero_moment_points(cr, L: float) -> list[float]:
@@ -150,9 +150,11 @@ RESULT_FIELDS = [
     Field("N_at_M_max", FORCE, "axial force acting with M_max, compression positive"),
     Field("N_at_M_min", FORCE, "axial force acting with M_min"),
     Field("N_max", FORCE, "largest axial compression"),
+] + [Field(f.name, f.dim, f.doc + " (needs E and I in beam.solve)", optional=True) for f in [
     Field("delta_max", LEN, "largest deflection in magnitude"), Field("x_delta_max", LEN, "where"),
     Field("delta_down", LEN, "largest downward deflection (0 when none)"), Field("x_delta_down", LEN, "where"),
-    Field("delta_up", LEN, "largest upward deflection, positive (0 when none)"), Field("x_delta_up", LEN, "where"),
+    Field("delta_up", LEN, "largest upward deflection, positive (0 when none)"), Field("x_delta_up", LEN, "where")]
+] + [
     Field("n_M0", doc="number of points of zero moment inside the beam"),
     Field("x_M0_{i}", LEN, "point of zero moment i, left to right (contraflexure)"),
     Field("M_max_{i}", MOM, "largest sagging moment in span i"),
@@ -160,7 +162,7 @@ RESULT_FIELDS = [
 ] + [Field(f"{p}_{c}", dim, doc, optional=True) for c in LETTERS for p, dim, doc in (
     ("R", FORCE, f"reaction at support {c}, upward (absent: no vertical restraint there)"),
     ("M", MOM, f"bending moment in the member at support {c} (absent: a free end or hinge)"),
-    ("theta", "[angle]", f"slope at {c} (at a hinge: just to the right)"),
+    ("theta", "[angle]", f"slope at {c} (at a hinge: just to the right; needs E and I in beam.solve)"),
 )]
 
 
@@ -196,12 +198,13 @@ def result(work, member, combo=None):
     out["N_at_M_max"] = lit.q(cr.N_at(cr.M_max.x), "force")
     out["N_at_M_min"] = lit.q(cr.N_at(cr.M_min.x), "force")
     out["N_max"] = lit.q(cr.N_max().value, "force")
-    out["delta_max"] = lit.q(abs(cr.d_max.value), "defl")
-    out["x_delta_max"] = lit.q(cr.d_max.x, "length")
-    out["delta_down"] = lit.q(max(0.0, cr.d_down.value), "defl")
-    out["x_delta_down"] = lit.q(cr.d_down.x, "length")
-    out["delta_up"] = lit.q(max(0.0, -cr.d_up.value), "defl")
-    out["x_delta_up"] = lit.q(cr.d_up.x, "length")
+    if setup.stiff:  # deflections need E and I
+        out["delta_max"] = lit.q(abs(cr.d_max.value), "defl")
+        out["x_delta_max"] = lit.q(cr.d_max.x, "length")
+        out["delta_down"] = lit.q(max(0.0, cr.d_down.value), "defl")
+        out["x_delta_down"] = lit.q(cr.d_down.x, "length")
+        out["delta_up"] = lit.q(max(0.0, -cr.d_up.value), "defl")
+        out["x_delta_up"] = lit.q(cr.d_up.x, "length")
     zs = zero_moment_points(cr, L)
     out["n_M0"] = work.q(len(zs), "")
     for i, z in enumerate(zs, 1):
@@ -224,7 +227,8 @@ def result(work, member, combo=None):
         if kind in ("pinned", "roller", "fixed", "guided"):
             out[f"M_{c}"] = lit.q(cr.support_M[i], "moment")
         side = "left" if i == len(X) - 1 else "right"
-        out[f"theta_{c}"] = work.q(_clean(float(cr.sol.at("theta", float(X[i]), side=side)[0]), scaleT), "rad")
+        if setup.stiff:
+            out[f"theta_{c}"] = work.q(_clean(float(cr.sol.at("theta", float(X[i]), side=side)[0]), scaleT), "rad")
     return out
 
 

@@ -168,3 +168,27 @@ def test_combo_defaults_to_the_only_combination():
     assert r.values["s"].fields == r.values["t"].fields
     # statics: M(2) = wLx/2 − wx²/2 (common practice)
     assert f(r, "p", "M", "kN*m") == pytest.approx(2 * 6 * 2 / 2 - 2 * 4 / 2, rel=1e-9)
+
+
+def test_a_determinate_beam_needs_no_stiffness_for_its_forces():
+    body = ('b = beam.solve(spans=[2 m, 6 m], supports="free, pinned, roller"{S}, '
+            'loads=[beam.udl(w=10 kN/m), beam.point(P=5 kN, x=0 m)])\n')
+    bare = run(body.format(S="")).values["b"]
+    given = run(body.format(S=", " + STIFF)).values["b"]
+    for name in ("R_B", "R_C", "M_max", "x_M_max", "M_min", "V_max", "M_B"):
+        a, b = bare.fields[name], given.fields[name]
+        assert a.m_as(b.units) == pytest.approx(b.magnitude, rel=1e-12, abs=1e-12), name
+    # statics (common practice): ΣM about B: R_C·6 = 10·8·2 − 5·2 → R_C = 25 kN
+    assert bare.fields["R_C"].m_as("kN") == pytest.approx(25.0, rel=1e-12)
+    assert "delta_max" not in bare.fields and "EI" not in bare.fields
+    r = calcsheet.run(HEAD + body.format(S="") + "d = b.delta_max\np = beam.at(member=b, x=3 m)\nq = p.delta\n")
+    errs = [d for d in r.diagnostics if d.severity == "error"]
+    assert len(errs) == 2 and all("E" in (d.hint or "") and "I" in (d.hint or "") for d in errs)
+
+
+def test_an_indeterminate_beam_says_which_stiffness_it_needs():
+    r = calcsheet.run(HEAD + 'b = beam.solve(spans=[6 m, 6 m], supports="pinned, roller, roller", E=200 GPa, '
+                             'loads=[beam.udl(w=10 kN/m)])\n')
+    msgs = [d.message for d in r.diagnostics if d.severity == "error"]
+    assert msgs and "statically indeterminate" in msgs[0] and "give I (or section=…)" in msgs[0]
+    assert "give E" not in msgs[0]
