@@ -211,7 +211,8 @@ class PointLoad(Load):
         return [self.x]
 
     def snapped(self, snap):
-        return dataclasses.replace(self, x=snap(self.x))
+        x = snap(self.x)
+        return self if x == self.x else dataclasses.replace(self, x=x)
 
     def scaled(self, f):
         return dataclasses.replace(self, P=f * self.P)
@@ -365,7 +366,8 @@ class LineLoad(Load):
         return [self.x1, self.x2]
 
     def snapped(self, snap):
-        return dataclasses.replace(self, x1=snap(self.x1), x2=snap(self.x2))
+        a, b = snap(self.x1), snap(self.x2)
+        return self if (a, b) == (self.x1, self.x2) else dataclasses.replace(self, x1=a, x2=b)
 
     def scaled(self, f):
         return dataclasses.replace(self, w1=f * self.w1, w2=f * self.w2)

@@ -18,6 +18,7 @@ V = dM/dx (the sum of upward forces to the left); δ is downward positive and
 """
 from __future__ import annotations
 
+import bisect
 import math
 from dataclasses import dataclass, field
 
@@ -323,7 +324,8 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
     validate_loads(m, loads)
     if grid is None:
         grid = breakpoints(m, loads)
-    loads = [_snap(ld, grid, 1e-9 * m.length) for ld in loads]
+    grid_list = grid.tolist()
+    loads = [_snap(ld, grid_list, 1e-9 * m.length) for ld in loads]
     X = m.nodes
     L_tot = m.length
     dofs = number_dofs(m)
@@ -332,9 +334,16 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
     # loads per element, in local coordinates
     per_el: list[list] = [[] for _ in range(nspan)]
     tol_el = 1e-12 * L_tot
+    Xl = X.tolist()
     for ld in loads:
-        for e in range(nspan):
-            per_el[e].extend(_on_span(ld, X, e, nspan, tol_el, L_tot))
+        bp = ld.breakpoints()
+        if not bp:
+            continue
+        # only the spans the load's extent touches (a point load: one or two)
+        lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)
+        hi = min(max(bisect.bisect_left(Xl, max(bp)), 0), nspan - 1)
+        for e in range(lo, hi + 1):
+            per_el[e].extend(_on_span(ld, Xl, e, nspan, tol_el, L_tot))
 
     # assemble (full system, banded lower storage)
     n = dofs.n
@@ -422,21 +431,27 @@ def _snap_x(x: float, grid: np.ndarray, tol: float) -> float:
     return float(grid[j]) if abs(grid[j] - x) <= tol else x
 
 
-def _snap(ld, grid: np.ndarray, tol: float):
+def _snap(ld, grid: list, tol: float):
     """Put a load that sits a hair from a breakpoint exactly on it, so its jump lands on a piece start."""
-    return ld.snapped(lambda x: _snap_x(x, grid, tol))
+    def snap(x: float) -> float:
+        j = bisect.bisect_left(grid, x)
+        for k in (j - 1, j):
+            if 0 <= k < len(grid) and abs(grid[k] - x) <= tol:
+                return grid[k]
+        return x
+    return ld.snapped(snap)
 
 
 def _on_span(ld, X, e: int, nspan: int, tol: float, L_tot: float) -> list:
     """The load's parts on span e (local coordinates). A point force or couple belongs to exactly one span:
     the one starting at or before it (the last span for one at the right end)."""
     out = []
-    for part in ld.parts(float(X[e]), float(X[e + 1]), tol):
+    for part in ld.parts(X[e], X[e + 1], tol):
         if part[0] == "w":
             out.append(part)
             continue
-        x = min(max(float(X[e]) + part[1], 0.0), L_tot)
-        home = int(np.clip(np.searchsorted(X, x, side="right") - 1, 0, nspan - 1))
+        x = min(max(X[e] + part[1], 0.0), L_tot)
+        home = min(max(bisect.bisect_right(X, x) - 1, 0), nspan - 1)
         if home == e:
             out.append((part[0], x - X[e], 0.0, part[3], 0.0))
     return out
