@@ -209,6 +209,17 @@ def _budget(model) -> int:
     return max(12, int(1600 / len(model.spans)))
 
 
+MANY_CURVES = 8  # beyond this many combinations a diagram shows their envelope
+
+
+class _Named:
+    """A legend entry that is not a combination (the envelope curves)."""
+
+    def __init__(self, name: str):
+        self.combo = self
+        self.name = name
+
+
 def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_positive: bool = False) -> str:
     model = setup.model
     X = model.nodes
@@ -222,6 +233,12 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
         y = {"V": V, "M": M, "delta": D}[what]
         curves.append((cr, x, y))
     vmax = max(float(np.max(np.abs(y))) for _, _, y in curves) or 1.0
+    if len(curves) > MANY_CURVES and all(len(x) == len(curves[0][1]) and np.array_equal(x, curves[0][1])
+                                         for _, x, _ in curves):
+        # many combinations (pattern loading): draw their envelope, the pointwise largest and smallest values
+        ys = np.vstack([y for _, _, y in curves])
+        x0 = curves[0][1]
+        curves = [(_Named("envelope, largest"), x0, ys.max(axis=0)), (_Named("envelope, smallest"), x0, ys.min(axis=0))]
     half = (bot - top) / 2
     sgn = 1.0 if down_positive else -1.0  # pixel y grows downward
 
