@@ -142,3 +142,19 @@ def test_an_unknown_set_is_a_located_error_before_anything_runs():
     errs = [d for d in r.diagnostics if d.severity == "error"]
     assert errs and "EN 1990 6.10" in errs[0].message + str(errs[0].hint or "")
     assert errs[0].span.line == 4
+
+
+def test_asce_worked_example_simply_supported_floor_beam():
+    # a floor beam, D = 2 kN/m, L = 5 kN/m on 6 m: 2.3.1 (2) 1.2D + 1.6L governs, w_u = 1.2·2 + 1.6·5 = 10.4 kN/m,
+    # M_u = w_u·L²/8 = 46.8 kN·m (AISC Manual Table 3-23 case 1); 2.3.1 (1) 1.4D gives only 2.8 kN/m
+    r = run(f"""
+        u = loads.combinations(set="ASCE 7-22 LRFD", cases="D, L")
+        b = beam.solve(spans=[6 m], supports="pinned, roller", {STIFF},
+            loads=[beam.udl(w=2 kN/m, case="D"), beam.udl(w=5 kN/m, case="L")], combinations=[u])
+    """)
+    b = r.values["b"].fields
+    assert b["M_max"].m_as("kN*m") == pytest.approx(10.4 * 36 / 8, rel=1e-12)
+    assert b["combo_M_max"] == "LC2"
+    assert r.values["u"].fields["combo_2"].fields["factors"] == "1.2 D + 1.6 L"
+    assert r.values["u"].fields["combo_2"].fields["clause"] == "ASCE/SEI 7-22 2.3.1 (2)"
+    assert r.values["u"].fields["combo_2"].fields["duration"] == "ten years"  # NDS Table 2.3.2, occupancy live
