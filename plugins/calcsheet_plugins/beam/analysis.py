@@ -97,7 +97,7 @@ SOLVE_FIELDS = [
     Field("combo_N_max", kind="text", doc="combination giving N_max"),
     Field("n_combos", doc="number of combinations solved (pattern variants included)"),
     Field("ties", doc="how many of M_max, M_min, V_max, delta_max occur at more than one place or combination"),
-    Field("model", kind="record", record="beam.model", doc="the solved beam, read by beam.at and beam.result"),
+    Field("model", kind="text", doc="the solved beam (not a value: beam.at and beam.result read it)"),
 ] + [Field(f"{p}_{c}", dim, doc, optional=True) for c in "ABCDEFGHIJKLMNOPQRSTUVWXYZ" for p, dim, doc in (
     ("R", FORCE, f"largest upward reaction at support {c} (absent: no vertical restraint there)"),
     ("R_min", FORCE, f"smallest reaction at support {c}, negative is uplift (absent: no vertical restraint there)"),
@@ -404,7 +404,7 @@ def _governing(work, setup, res, lit, out, gmax, gmin, gV, gd):
                     " …" if len(others) > 6 else "")
             work.note(text + "; the leftmost place (and the first combination) is reported.")
     out["ties"] = work.q(ties, "")
-    out["model"] = SolvedBeam("beam.model", {}, source="beam.solve", setup=setup, results=res)
+    out["model"] = SolvedBeam(setup, res)
 
 
 def _x(lit, x):

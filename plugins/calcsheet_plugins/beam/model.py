@@ -8,7 +8,6 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from calcsheet.plugin import Record
 from calcsheet.units import Quantity
 
 from .combos import parse_factors
@@ -134,16 +133,20 @@ class Setup:
         return out
 
 
-class SolvedBeam(Record):
-    """The solved beam carried in a beam.solve result (field ``model``) for beam.at and beam.result."""
+class SolvedBeam:
+    """The solved beam carried in a beam.solve result (field ``model``) for beam.at and beam.result.
 
-    def __init__(self, type, fields, source, setup, results):
-        super().__init__(type, fields, source=source)
+    Not a value a sheet computes with: outputs (JSON, diffs) skip it, as they skip every non-quantity,
+    non-text field."""
+
+    def __init__(self, setup, results):
         self.setup = setup
         self.results = results
 
-    def __repr__(self) -> str:
-        return "<solved beam>"
+    def __str__(self) -> str:
+        return f"solved beam ({len(self.results.combos)} combination(s))"
+
+    __repr__ = __str__
 
 
 def si(q, what: str) -> float:
