@@ -433,12 +433,3 @@ def check_argument_kinds(pf: PluginFunction, given: dict[str, Any]) -> None:
                 f"{pf.qualname} needs '{p.name}' ({p.describe()})",
                 hint=f"add {p.name}=… to the call", param=None,
             )
-
-
-def __getattr__(name: str):
-    """``Work`` lives with the plugin host now; ``from calcsheet.plugin import Work`` keeps working."""
-    if name == "Work":
-        from .plugin_host import Work
-
-        return Work
-    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")

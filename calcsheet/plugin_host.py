@@ -243,7 +243,7 @@ class PluginHost:
     # ---------------------------------------------------------------- the Work's host side
     def display_unit_for(self, value, unit_text: str | None = None):
         if unit_text:
-            from .parser import parse_unit_text
+            from .units import parse_unit_text
 
             return U.build_unit(parse_unit_text(unit_text))
         return self.evaluator.policy.unit_for(value) if isinstance(value, pint.Quantity) else None

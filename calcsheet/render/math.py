@@ -146,7 +146,7 @@ class MathPrinter(Printer):
         return self.m_list([self._print(i, 0) for i in node.items])
 
     def _print_TupleExpr(self, node, ctx):
-        return self.m_paren(", ".join(self._print(i, 0) for i in node.items))
+        return self.m_tuple([self._print(i, 0) for i in node.items])
 
     # ------------------------------------------------------------ markup hooks
     def m_text(self, text): raise NotImplementedError
@@ -166,6 +166,7 @@ class MathPrinter(Printer):
     def m_call(self, func, args, plugin=False): raise NotImplementedError
     def m_keyword(self, name, value): raise NotImplementedError
     def m_list(self, items): raise NotImplementedError
+    def m_tuple(self, items): raise NotImplementedError
     def m_compare(self, left, op, right): raise NotImplementedError
     def m_cases(self, then, cond, otherwise): raise NotImplementedError
 
