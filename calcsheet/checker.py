@@ -268,7 +268,7 @@ class Checker:
             raise OffsetTemperatureError(
                 f"'{node.unit_text}' puts a temperature scale (°C/°F) inside a compound unit", _unit_span(node),
                 hint="a per-degree coefficient is per kelvin: write e.g. 1.2e-5 K^-1")
-        return T("q", U.dim_of(unit), offset=offset)
+        return T.of(B.Arg(U.dim_of(unit), offset))
 
     def _infer_Text(self, node) -> T:
         return TEXT
