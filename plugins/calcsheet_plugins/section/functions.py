@@ -25,7 +25,8 @@ import hashlib
 import numpy as np
 from dataclasses import replace
 
-from calcsheet.plugin import Field, Namespace, Param
+from calcsheet.plugin import Field, Namespace, Param, Record
+from calcsheet import units as U
 
 from . import builtup as B
 from . import shapes as S
@@ -49,7 +50,35 @@ COMMON = [
           default="full", choices=("full", "brief")),
 ]
 
-_GEOMETRY: dict[str, object] = {}  # record key (its 'shape' text) -> Shape or Placed
+
+
+def _record(work, out: dict, geometry) -> Record:
+    """The result record, carrying its own geometry (a Shape or a Placed part) as the record's payload.
+
+    The record is built here rather than by the host only so the payload can travel with it; its fields are
+    checked against the declaration exactly as the host checks a returned dict (presence, dimension).
+    """
+    pf = work.plugin
+    declared = {}
+    for name, value in out.items():
+        f = pf.field(name)
+        if f is None:
+            raise AssertionError(f"{pf.qualname} returned an undeclared field '{name}'")
+        if f.kind_ == "quantity" and U.without_angle(U.dim_of(value)) != U.without_angle(f.dimension):
+            raise AssertionError(f"{pf.qualname} field '{name}' has the wrong dimension")
+        declared[name] = f
+    absent = {}
+    for f in pf.fields:
+        if f.name not in out:
+            if not f.optional:
+                raise AssertionError(f"{pf.qualname} did not return its field '{f.name}'")
+            absent[f.name] = f.doc
+    return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
+                  declared=declared, optional=absent, payload=geometry)
+
+
+def _geometry(rec):
+    return rec.payload if isinstance(rec, Record) else None
 
 
 def _mm(q):
@@ -75,8 +104,7 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
                                        for r in shape.rings)).hexdigest()[:10]
         shape.label += f" #{digest}"
     out = report(work, shape, rho=rho, x_ref=x_ref, y_ref=y_ref, **kw)
-    _GEOMETRY[shape.label] = shape
-    return out
+    return _record(work, out, shape)
 
 
 def _register(name, params, doc):
@@ -185,9 +213,9 @@ _COUNT = {"part": 0, "hole": 0}
 
 
 def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=None):
-    geom = _GEOMETRY.get(shape.fields.get("shape"))
-    if geom is None:
-        work.fail("this section record was not made in this run; build it with a section function", param="shape")
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
     if E is not None and E.m_as("MPa") <= 0:
         work.fail("E must be greater than zero", param="E")
     if rho is not None and rho.m_as("kg/m^3") <= 0:
@@ -206,13 +234,13 @@ def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=N
                                 E.m_as("MPa") if E is not None else None, rho_mm)).encode()).hexdigest()[:10]
     label = name or f"{role} ({geom.label.split(' #')[0]})"
     key = f"{role} {label} #{digest}"
-    _GEOMETRY[key] = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
+    placed = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
     work.note(f"{'Hole' if role == 'hole' else 'Part'} '{label}': {geom.label.split(' #')[0]}, "
               f"{'mirrored ' + mirror + ', ' if mirror != 'none' else ''}"
               f"rotated {rotate.m_as('deg') if rotate is not None else 0:g}°, {anchor} at "
               f"({_mm(x) or 0:g}, {_mm(y) or 0:g}) mm" + (f", E = {E.m_as('MPa'):g} MPa" if E is not None else ""))
-    return {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"), "role": role,
-            "shape": key}
+    return _record(work, {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"),
+                          "role": role, "shape": key}, placed)
 
 
 @namespace.function("part", params=PLACE + [
@@ -243,9 +271,9 @@ def hole(work, shape, x=None, y=None, anchor=None, rotate=None, mirror="none", n
 def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
     placed = []
     for k, rec in enumerate(parts):
-        p = _GEOMETRY.get(rec.fields.get("shape"))
+        p = _geometry(rec)
         if not isinstance(p, B.Placed):
-            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole in this run",
+            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole",
                       param="parts")
         placed.append(p)
     names = [p.name for p in placed]
@@ -261,5 +289,4 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
                      "at n = E of the part / E of the reference (parts without E are of the reference material).")
     out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
                  detail=detail)
-    _GEOMETRY[asm.shape.label] = asm.shape
-    return out
+    return _record(work, out, asm.shape)
