@@ -108,6 +108,8 @@ def _aisc_entries():
             put("r_x", "rx", IN)
             put("r_y", "ry", IN)
             put("J", "J", IN**4)
+            put("I_2", "Iz", IN**4)  # angles: the minor principal axis
+            put("r_min", "rz", IN)
             put("C_w", "Cw", IN**6)
             put("r_ts", "rts", IN)
             put("h_o", "ho", IN)
