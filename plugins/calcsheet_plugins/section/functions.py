@@ -29,6 +29,9 @@ from calcsheet.plugin import Field, Namespace, Param, Record
 from calcsheet import units as U
 
 from . import builtup as B
+from . import catalogue as C
+from . import fillets as FL
+from .fields import ALIASES, OPT_UNITS, UNITS
 from . import shapes as S
 from .fields import section_fields
 from .report import _q, report, unit
@@ -121,10 +124,35 @@ def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
                    Param("t", L, "uniform wall", default=None),
                    Param("t_f", L, "top and bottom walls", default=None),
-                   Param("t_w", L, "side walls", default=None)],
-           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides).")
-def box(work, b, h, t=None, t_f=None, t_w=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                   Param("t_w", L, "side walls", default=None),
+                   Param("r_out", L, "outside corner radius (uniform wall t only)", default=None),
+                   Param("r_in", L, "inside corner radius (uniform wall t only)", default=None),
+                   Param("corners", kind="text", doc="corner radii by a product standard's rule: hot-finished "
+                         "(EN 10210-2), cold-formed (EN 10219-2) or AISC HSS", default="sharp",
+                         choices=("sharp", "EN 10210-2", "EN 10219-2", "AISC"))],
+           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides); corners sharp, or rounded "
+           "by r_out/r_in or a product standard's rule.")
+def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", rho=None, x_ref=None,
+        y_ref=None, detail="full"):
+    if corners == "sharp" and r_out is None and r_in is None:
+        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref,
+                        y_ref, detail=detail)
+    if t is None or t_f is not None or t_w is not None:
+        work.fail("rounded corners need one uniform wall t", param="t" if t is None else "t_f" if t_f is not None
+                  else "t_w")
+    if corners != "sharp":
+        if r_out is not None or r_in is not None:
+            work.fail(f'give either corners="{corners}" or r_out and r_in, not both',
+                      param="r_out" if r_out is not None else "r_in")
+        ro, ri = C.hollow_radii(corners, _mm(t))
+        work.calc("r_out", f"{ro / _mm(t):g}*t", unit="mm", desc=f"outside corner radius ({corners})")
+        work.calc("r_in", f"{ri / _mm(t):g}*t", unit="mm", desc=f"inside corner radius ({corners})")
+    else:
+        if r_out is None or r_in is None:
+            work.fail("give both corner radii r_out and r_in", param="r_in" if r_out is not None else "r_out")
+        ro, ri = _mm(r_out), _mm(r_in)
+    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
@@ -139,34 +167,55 @@ def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="fu
     return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
 
 
+R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp corners", default=None)
+
+
 @_register("ishape", [Param("h", L, "overall depth"), Param("b", L, "top flange width"),
                       Param("t_f", L, "top flange thickness"), Param("t_w", L, "web thickness"),
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
-                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None)],
-           "I-shape with equal flanges, or unequal ones via b_bot and t_fb (fillets not modelled).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
+           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        if b_bot is not None or t_fb is not None:
+            work.fail("root fillets are modelled on equal flanges only", param="r")
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
                     rho, x_ref, y_ref, detail=detail)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness")],
-           "Channel, web on the left, flanges pointing right.")
-def channel(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness"), R],
+           "Channel (parallel flanges), web on the left, flanges pointing right; root fillets r.")
+def channel(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness")],
-           "Tee, flange on top.")
-def tee(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness"), R],
+           "Tee, flange on top; root fillets r.")
+def tee(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
-                     Param("b", L, "horizontal leg (default h: equal angle)", default=None)],
-           "Equal or unequal angle, heel at the bottom-left.")
-def angle(work, h, t, b=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+                     Param("b", L, "horizontal leg (default h: equal angle)", default=None), R],
+           "Equal or unequal angle, heel at the bottom-left; root fillet r.")
+def angle(work, h, t, b=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        if b is None:
+            work.calc("b", "h", unit="mm", desc="horizontal leg (equal angle)")
+        return _section(work, _build(work, lambda: FL.angle(_mm(h), _mm(b if b is not None else h), _mm(t), _mm(r))),
+                        rho, x_ref, y_ref, detail=detail)
     return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
 
 
@@ -294,9 +343,6 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
 
 # ---------------------------------------------------------------- catalogue sections
 
-from . import catalogue as C  # noqa: E402
-from . import fillets as FL  # noqa: E402
-from .fields import ALIASES, OPT_UNITS, UNITS  # noqa: E402
 
 COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
@@ -352,8 +398,8 @@ def _model(work, entry):
         let("h", g["h"], "outside depth")
         let("b", g["b"], "outside width")
         let("t", g["t"], "wall" + (" (design wall t_des)" if m == "box-aisc" else ""))
-        work.calc("r_o", f"{ro / g['t']:g}*t", unit="mm", desc=f"outside corner radius ({std})")
-        work.calc("r_i", f"{ri / g['t']:g}*t", unit="mm", desc=f"inside corner radius ({std})")
+        work.calc("r_out", f"{ro / g['t']:g}*t", unit="mm", desc=f"outside corner radius ({std})")
+        work.calc("r_in", f"{ri / g['t']:g}*t", unit="mm", desc=f"inside corner radius ({std})")
         return FL.box(g["b"], g["h"], g["t"], ro, ri)
     if m == "tube":
         let("d", g["d"], "outside diameter")
