@@ -338,6 +338,9 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
                      "at n = E of the part / E of the reference (parts without E are of the reference material).")
     out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
                  detail=detail)
+    if asm.E_ref is not None and transformed:
+        out["E_ref"] = _q(asm.E_ref, "MPa")
+        out["n_max"] = U.registry().Quantity(max(asm.n), "")
     return _record(work, out, asm.shape)
 
 
@@ -473,3 +476,41 @@ def rolled(work, designation, x_ref=None, y_ref=None):
     out["source"] = entry.source
     out["shape"] = f"{entry.designation} ({entry.source.split(' (')[0]})"
     return _record(work, out, shape)
+
+
+# ---------------------------------------------------------------- first moment at any level
+
+@namespace.function("Q_at", params=[
+    Param("shape", kind="record", record="section", doc="any section record"),
+    Param("y", L, "level of the cut, in the section's own coordinates (0 mm is the base of a shape)")],
+    fields=[Field("Q", "[length]**3", "first moment, about the centroidal x axis, of the area above the cut"),
+            Field("t", L, "material width cut at y (the smaller side at a step; transformed for several materials)"),
+            Field("A_above", "[length]**2", "area above the cut"),
+            Field("y_bar", L, "centroid of the area above the cut"),
+            Field("y_c", L, "centroid of the whole section")],
+    returns="section.cut",
+    doc="First moment Q and width t at any level y, for the shear stress τ = V·Q/(I_x·t) there.")
+def Q_at(work, shape, y):
+    from . import polygon as P
+
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
+    rings = geom.rings
+    c = _mm(y)
+    solid = [r for r in rings if r.sign > 0]
+    lo = min(float(r.y.min()) for r in solid)
+    hi = max(float(r.y.max()) for r in solid)
+    if not lo < c < hi:
+        work.fail(f"the cut y = {c:g} mm must lie inside the section, between {lo:g} and {hi:g} mm", param="y")
+    whole = P.centroidal(P.region_moments(rings))
+    above = P._moments_above(rings, c)
+    work.let("y_c", _q(whole.y_c, "mm"), unit="mm", desc="centroid of the section", note="from the outline")
+    work.let("A_above", _q(above.A, "mm^2"), unit="mm^2", desc="area above the cut",
+             note="Green's theorem over the outline clipped at y")
+    work.let("y_bar", _q(c + above.Sx / above.A, "mm"), unit="mm", desc="centroid of the area above the cut",
+             note="first moment of the clipped outline about the cut, over its area")
+    work.calc("Q", "A_above*(y_bar - y_c)", unit="mm^3", desc="first moment about the centroidal axis (Q = A'·ȳ')")
+    work.let("t", _q(P.width_at(rings, c, weighted=True), "mm"), unit="mm", desc="material width at the cut",
+             note="width of material cut by the line (at a step, the smaller side)")
+    return {n: work[n] for n in ("Q", "t", "A_above", "y_bar", "y_c")}
