@@ -78,6 +78,8 @@ def _table_steps(work, shape, transformed: bool) -> None:
     i_scale = sum(abs(r.n) * (abs(r.Iox) + abs(r.Ioy) + r.A * ((r.x - xc) ** 2 + (r.y - yc) ** 2)) for r in rows)
     product = any(abs(r.Ioxy) > 1e-12 * i_scale or abs(r.n * r.A * (r.x - xc) * (r.y - yc)) > 1e-12 * i_scale
                   for r in rows)
+    by_symmetry = product and getattr(shape, "symmetry", "none") != "none"  # spandrels' products cancel
+    product = product and not by_symmetry
     scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
     body_x, body_y, body_p = [], [], []
     sums = [0.0] * 6
@@ -122,8 +124,9 @@ def _table_steps(work, shape, transformed: bool) -> None:
         work.calc("I_xy", "Sigma_Ioxy + Sigma_Adxdy", unit="mm^4", desc="product of area about the centroidal axes")
     else:
         work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
-                 note="every part is symmetric about an axis parallel to x or y through its own centroid and "
-                      "the transfer terms cancel")
+                 note="the section is symmetric about an axis parallel to x or y" if by_symmetry
+                 else "every part is symmetric about an axis parallel to x or y through its own centroid "
+                 "and the transfer terms cancel")
 
 
 class _Brief:
@@ -155,7 +158,7 @@ class _Brief:
     def let(self, name, value, unit=None, desc=None, note=None):
         self.work.let(name, value, unit=unit, desc=desc, note=note)
         self._take(name)
-        if note and "extreme vertex" not in note and "named" not in note and "density" not in note:
+        if note and not any(w in note for w in ("extreme vertex", "named", "density", "symmetric")):
             self.methods.append(name)
 
     def __getitem__(self, name):
@@ -309,6 +312,13 @@ def optional_fields(work, shape) -> dict:
         if U.dim_of(v) != U.parse_dimension(_DIMENSIONED[name]):
             continue
         out[name] = v.to(unit(u))
+    if "x_s" not in out and shape.symmetry == "double":
+        for name, base in (("x_s", "x_c"), ("y_s", "y_c")):
+            out[name] = work.scope[base].to(unit("mm"))
+        out["x_0"] = out["y_0"] = _q(0.0, "mm")
+        out["beta_x"] = _q(0.0, "mm")
+        out["r_o"] = ((work.scope["I_x"] + work.scope["I_y"]) / work.scope["A"]) ** 0.5
+        out["r_o"] = out["r_o"].to(unit("mm"))
     if shape.kind in ("ishape", "channel", "tee"):
         if "h" in out:
             out.setdefault("d", out["h"])
@@ -330,11 +340,8 @@ def _warping(work, rec, shape, vals) -> None:
                   "τ = q/t; warping of a closed section is negligible and C_w is not given.", kind="method")
     for st in shape.warping:
         rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
-    if "x_s" not in work.scope and shape.symmetry == "double":
-        rec.calc("x_s", "x_c", unit="mm", desc="shear centre, x (at the centroid: two axes of symmetry)")
-        rec.calc("y_s", "y_c", unit="mm", desc="shear centre, y")
     if "x_s" not in work.scope:
-        return
+        return  # doubly symmetric solids and cells: the shear centre is the centroid (given as fields, untraced)
     rec.calc("x_0", "x_s - x_c", unit="mm", desc="shear centre relative to the centroid, x")
     rec.calc("y_0", "y_s - y_c", unit="mm", desc="shear centre relative to the centroid, y")
     rec.calc("r_o", "sqrt(x_0^2 + y_0^2 + (I_x + I_y)/A)", unit="mm",
