@@ -375,9 +375,37 @@ def _table_unit(entry, name):
     return base.get(name, "in" if aisc else "mm")
 
 
+_SUPER = str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻")
+
+
+def _published(entry, name, value) -> str:
+    """A table value as the table prints it (its own unit, its own digits)."""
+    u = _table_unit(entry, name)
+    v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
+    text = f"{v:.6g}"
+    if "e" in text:
+        mant, exp = text.split("e")
+        text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
+    return f"{text} {u.replace('^2', '²').replace('^3', '³').replace('^4', '⁴').replace('^6', '⁶')}"
+
+
 def _model(work, entry):
     g = entry.dims
-    let = lambda n, v, d: work.let(n, _q(v, "mm"), unit="mm", desc=d, note=f"{entry.file}")  # noqa: E731
+    dims = []
+
+    def let(n, v, d):  # the model's dimensions, from the row: one table, bound for the formulas below
+        work.scope[n] = _q(v, "mm")
+        dims.append((n, _published(entry, n if n not in ("h", "b") else {"h": "d", "b": "b_f"}[n], v), d))
+
+    shape = _model_shape(work, entry, g, let, dims)
+    cells = [c for n, v, d in dims for c in (n, v, d)]
+    cells += [""] * (-len(cells) % 6)
+    work.table(f"Dimensions of the model, from the table row {entry.designation}", ["Symbol", "Value", "Meaning"] * 2,
+               [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
+    return shape
+
+
+def _model_shape(work, entry, g, let, dims):
     m = entry.model
     if m in ("I", "I-tapered", "C-tapered", "T"):
         for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
@@ -401,8 +429,9 @@ def _model(work, entry):
         let("h", g["h"], "outside depth")
         let("b", g["b"], "outside width")
         let("t", g["t"], "wall" + (" (design wall t_des)" if m == "box-aisc" else ""))
-        work.calc("r_out", f"{ro / g['t']:g}*t", unit="mm", desc=f"outside corner radius ({std})")
-        work.calc("r_in", f"{ri / g['t']:g}*t", unit="mm", desc=f"inside corner radius ({std})")
+        work.scope["r_out"], work.scope["r_in"] = _q(ro, "mm"), _q(ri, "mm")
+        dims.append(("r_out", f"{ro / g['t']:g}·t", f"outside corner radius ({std})"))
+        dims.append(("r_in", f"{ri / g['t']:g}·t", f"inside corner radius ({std})"))
         return FL.box(g["b"], g["h"], g["t"], ro, ri)
     if m == "tube":
         let("d", g["d"], "outside diameter")
@@ -426,29 +455,32 @@ def rolled(work, designation, x_ref=None, y_ref=None):
         work.fail(f"no section '{designation}' in the catalogue", param="designation",
                   hint=("nearest: " + ", ".join(near)) if near else
                   "families: W, M, S, HP, C, MC, L, WT, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, CHS, SHS, RHS")
-    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}.", kind="method")
-    body = [[name, _q(v * 1.0, OPT_UNITS.get(name) or UNITS.get(name)).to(unit(_table_unit(entry, name)))]
-            for name, v in entry.values.items()]
-    work.table(f"Table row {entry.designation} ({entry.source})", ["Property", "Table value"], body,
-               units=[None, None], note="Values as published, in the table's own units.")
-    work.note("Geometric model: " + _MODEL_NOTE[entry.model] + ". Its working follows; the record's fields take "
-              "the table's values where the table gives them, the model's otherwise.", kind="method")
+    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}. Geometric model: "
+              + _MODEL_NOTE[entry.model] + ". The record's fields take the table's values where the table gives "
+              "them, the model's otherwise.", kind="method")
+    compared = {name for name, _, _ in COMPARED}
+    others = [(n, v) for n, v in entry.values.items() if n not in compared and n not in entry.dims
+              and not (n in ("d", "b_f", "t") and entry.model != "tube")]
+    if others:
+        cells = [c for n, v in others for c in (n, _published(entry, n, v))]
+        cells += [""] * (-len(cells) % 6)
+        work.table(f"Further values of the table row {entry.designation}", ["Property", "Table"] * 3,
+                   [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
     shape = _build(work, lambda: _model(work, entry))
-    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief")
+    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief", compact=True)
     rows, worst = [], []
     for name, u, tol in COMPARED:
         if name not in entry.values or name not in out:
             continue
         tv, mv = entry.values[name], out[name].m_as(unit(u))
         dev = (mv - tv) / tv if tv else 0.0
-        tu = _table_unit(entry, name)
-        rows.append([name, _q(tv, u).to(unit(tu)), _q(mv, u).to(unit(tu)), f"{100 * dev:+.2f} %",
-                     f"{100 * tol:.0f} %"])
+        rows.append([name, _published(entry, name, tv), _q(mv, u).to(unit(_table_unit(entry, name))),
+                     f"{100 * dev:+.2f} %", f"{100 * tol:.0f} %"])
         if abs(dev) > tol:
             worst.append(f"{name} {100 * dev:+.1f} %")
-    work.table(f"Table against the geometric model ({entry.designation})",
+    work.table(f"Table row {entry.designation} ({entry.source}) against the geometric model",
                ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
-               note="Deviation = (model − table)/table; tolerance 1 %, 2 % for J and C_w.")
+               note="Table values as published, in the table's units; deviation = (model − table)/table.")
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
                   + ", ".join(worst) + (" (tapered flanges are modelled as parallel)" if "tapered" in entry.model

@@ -47,6 +47,42 @@ def _label(r) -> str:
     return r.name + (" (hole)" if r.sign < 0 and "hole" not in r.name.lower() else "")
 
 
+def _compact_table_steps(work, shape) -> None:
+    """The parallel-axis method in one table (a single material, no holes to explain): areas, centroids and
+    second moments of the parts, then A, the centroid and I as the table's column sums."""
+    rows = shape.rows
+    sA = sum(r.sign * r.A for r in rows)
+    xc = sum(r.sign * r.A * r.x for r in rows) / sA
+    yc = sum(r.sign * r.A * r.y for r in rows) / sA
+    scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
+    body, sums = [], [0.0] * 5
+    for r in rows:
+        a = r.sign * r.A
+        dx, dy = _snap(r.x - xc, scale), _snap(r.y - yc, scale)
+        vals = [r.sign * r.Iox, a * dy * dy, r.sign * r.Ioy, a * dx * dx, r.sign * r.Ioxy + a * dx * dy]
+        sums = [p + v for p, v in zip(sums, vals)]
+        body.append([_label(r), _q(a, "mm^2"), _q(r.x, "mm"), _q(r.y, "mm"), _q(vals[0], "mm^4"),
+                     _q(vals[1], "mm^4"), _q(vals[2], "mm^4"), _q(vals[3], "mm^4")])
+    work.table("Parts table: areas, centroids and second moments (parallel-axis theorem)",
+               ["Part", "A_i", "x_i", "y_i", "I_o,x,i", "A_i·d_y,i²", "I_o,y,i", "A_i·d_x,i²"], body,
+               units=[None, "mm^2", "mm", "mm", "mm^4", "mm^4", "mm^4", "mm^4"],
+               footer=[["Σ", _q(sA, "mm^2"), "", "", _q(sums[0], "mm^4"), _q(sums[1], "mm^4"), _q(sums[2], "mm^4"),
+                        _q(sums[3], "mm^4")]],
+               note="d = yᵢ − ȳ and xᵢ − x̄ from the centroid below; Iₒ about each part's own centroid; rounded-off "
+                    "corners are negative rows.")
+    work.let("A", _q(sA, "mm^2"), unit="mm^2", desc="area", note="Σ Aᵢ, " + _COLUMN_SUMS)
+    work.let("x_c", _q(xc, "mm"), unit="mm", desc="centroid, x", note="Σ Aᵢ·xᵢ / Σ Aᵢ over the table")
+    work.let("y_c", _q(yc, "mm"), unit="mm", desc="centroid, y", note="Σ Aᵢ·yᵢ / Σ Aᵢ over the table")
+    work.let("I_x", _q(sums[0] + sums[1], "mm^4"), unit="mm^4", desc="second moment about the centroidal x axis",
+             note="Σ I_o,x + Σ A·d_y², " + _COLUMN_SUMS + "s")
+    work.let("I_y", _q(sums[2] + sums[3], "mm^4"), unit="mm^4", desc="second moment about the centroidal y axis",
+             note="Σ I_o,y + Σ A·d_x², " + _COLUMN_SUMS + "s")
+    ixy = 0.0 if shape.symmetry != "none" else sums[4]
+    work.let("I_xy", _q(ixy, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
+             note="the section is symmetric about an axis parallel to x or y" if shape.symmetry != "none"
+             else "Σ (I_o,xy + A·d_x·d_y) over the parts")
+
+
 def _table_steps(work, shape, transformed: bool) -> None:
     """The parallel-axis method in two tables: centroid, then second moments about it."""
     rows = shape.rows
@@ -183,7 +219,7 @@ def _engine_basic(work) -> Basic:
 
 
 def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, J_steps=True,
-           extra_notes=(), mass_note=None, detail="full") -> dict:
+           extra_notes=(), mass_note=None, detail="full", compact=False) -> dict:
     """Trace every standard property of ``shape`` into ``work`` and return the fields."""
     for message, param in shape.warnings:
         work.warn(message, param=param)
@@ -200,7 +236,10 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
             work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
                      note="the section is symmetric about a centroidal axis")
     else:
-        _table_steps(work, shape, transformed)
+        if compact and not transformed:
+            _compact_table_steps(work, shape)
+        else:
+            _table_steps(work, shape, transformed)
     # the engine's values are the reported ones; they must match the core's tabular sums
     mine, engine = tabular(shape.rows), _engine_basic(work)
     worst = max(disagreement(mine, engine).values())
