@@ -365,14 +365,17 @@ _MODEL_NOTE = {
 }
 
 
+_TABLE_UNITS = {"mm": ("in", "mm"), "mm^2": ("in^2", "cm^2"), "mm^3": ("in^3", "cm^3"), "mm^4": ("in^4", "cm^4"),
+                "mm^6": ("in^6", "cm^6"), "kg/m": ("lb/ft", "kg/m")}
+
+
 def _table_unit(entry, name):
+    """The unit the table prints ``name`` in: inches and lb/ft (AISC); mm, cm², cm⁴… and radii of gyration in cm
+    (European tables)."""
     aisc = entry.source == C.AISC_SOURCE
-    base = {"A": "in^2" if aisc else "cm^2", "I_x": "in^4" if aisc else "cm^4", "I_y": "in^4" if aisc else "cm^4",
-            "S_x": "in^3" if aisc else "cm^3", "S_y": "in^3" if aisc else "cm^3", "Z_x": "in^3" if aisc else "cm^3",
-            "Z_y": "in^3" if aisc else "cm^3", "r_x": "in" if aisc else "cm", "r_y": "in" if aisc else "cm",
-            "J": "in^4" if aisc else "cm^4", "C_w": "in^6" if aisc else "cm^6", "mass": "lb/ft" if aisc else "kg/m",
-            "A_vz": "cm^2", "A_vy": "cm^2"}
-    return base.get(name, "in" if aisc else "mm")
+    if not aisc and name in ("r_x", "r_y", "r_min"):
+        return "cm"
+    return _TABLE_UNITS[OPT_UNITS.get(name) or UNITS[name]][0 if aisc else 1]
 
 
 _SUPER = str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻")

@@ -195,3 +195,17 @@ def test_rhs_area_is_the_product_standards_formula():
     ro, ri = 1.5 * t, t
     b = green(FL.box(B, H, t, ro, ri).rings)
     assert b.A == pytest.approx(2 * t * (B + H - 2 * t) - (4 - math.pi) * (ro**2 - ri**2), rel=1e-5)
+
+
+def test_one_section_of_every_family_builds_in_either_unit_system(run):
+    names = ["W18X50", "M12X11.8", "S12X35", "HP12X53", "C10X20", "MC12X31", "L6X4X1/2", "WT9X25", "HSS8X4X1/4",
+             "HSS6.625X0.280", "Pipe4STD", "IPE 200", "HE 200 A", "HE 300 B", "HE 300 M", "CHS 168.3x6.3",
+             "SHS 100x100x5", "RHS 150x100x6.3"]
+    body = "\n".join(f's{k} = section.rolled(designation="{n}")' for k, n in enumerate(names))
+    for units in ("SI", "US"):
+        r = run(f"---\nunits: {units}\n---\n{body}\n")
+        assert not errors(r), r.diagnostics
+        for k, n in enumerate(names):
+            f = r.values[f"s{k}"].fields
+            assert f["designation"] == C.lookup(n).designation
+            assert f["A"].m_as("mm^2") > 0 and f["I_x"].m_as("mm^4") > 0
