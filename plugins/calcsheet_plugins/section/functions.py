@@ -352,10 +352,12 @@ COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), (
             ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02))
 _MODEL_NOTE = {
     "I": "rolled I with parallel flanges and four root fillets of radius r",
-    "I-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
-                 "with root fillets, so the model is approximate",
-    "C-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
-                 "with root fillets, so the model is approximate",
+    "I-tapered": "I with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, and "
+                 "four root fillets r (toe radii not modelled)",
+    "C-tapered": "channel with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, "
+                 "and two root fillets r (toe radii not modelled)",
+    "C": "channel with parallel flanges of the tabulated t_f and two root fillets r (an MC's own flange slope, "
+         "which varies by size, is not modelled)",
     "T": "tee cut from a rolled I, two root fillets of radius r",
     "L": "angle with a root fillet of radius r (toe radii not modelled)",
     "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
@@ -410,7 +412,7 @@ def _model(work, entry):
 
 def _model_shape(work, entry, g, let, dims):
     m = entry.model
-    if m in ("I", "I-tapered", "C-tapered", "T"):
+    if m in ("I", "I-tapered", "C-tapered", "C", "T"):
         for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
                      ("t_w", "web thickness")):
             let(n, g[n], d)
@@ -418,7 +420,11 @@ def _model_shape(work, entry, g, let, dims):
         if m == "T":
             return FL.tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
         if m == "C-tapered":
+            return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        if m == "C":
             return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "I-tapered":
+            return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
         return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
     if m == "L":
         let("h", g["h"], "vertical leg d")
@@ -486,8 +492,7 @@ def rolled(work, designation, x_ref=None, y_ref=None):
                note="Table values as published, in the table's units; deviation = (model − table)/table.")
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
-                  + ", ".join(worst) + (" (tapered flanges are modelled as parallel)" if "tapered" in entry.model
-                                        else ""), param="designation")
+                  + ", ".join(worst), param="designation")
     else:
         work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
                   "properties.", kind="agreement")
