@@ -458,6 +458,9 @@ def _model_shape(work, entry, g, let, dims):
     doc="A rolled or hollow section from a published table: the table's values, beside the section's own "
         "geometric model (fillets, corner radii) and their deviation.")
 def rolled(work, designation, x_ref=None, y_ref=None):
+    if len(designation) > 40:
+        work.fail(f"a designation is a short name such as W18X50 or IPE 300 (this one has {len(designation)} "
+                  "characters)", param="designation")
     entry = C.lookup(designation)
     if entry is None:
         near = C.nearest(designation)

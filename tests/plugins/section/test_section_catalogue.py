@@ -217,3 +217,22 @@ def test_one_section_of_every_family_builds_in_either_unit_system(run):
             f = r.values[f"s{k}"].fields
             assert f["designation"] == C.lookup(n).designation
             assert f["A"].m_as("mm^2") > 0 and f["I_x"].m_as("mm^4") > 0
+
+
+def test_an_overlong_designation_is_refused_before_any_search(run):
+    (e,) = errors(run(f's = section.rolled(designation="{"W" * 5000}")\n'))
+    assert "short name" in e.message
+
+
+def test_a_catalogue_section_is_a_part_of_a_built_up_section(run):
+    # a W18X50 with a 200 × 12 mm cover plate on its top flange: the parts' own outlines (fillets included) are
+    # carried by their records
+    r = run("""
+        w = section.rolled(designation="W18X50")
+        p = section.rectangle(b=200 mm, h=12 mm, detail="brief")
+        s = section.built_up(parts=[section.part(shape=w, anchor="bottom-centre"),
+                                    section.part(shape=p, y=w.depth, anchor="bottom-centre")])
+    """)
+    assert not errors(r), r.diagnostics
+    A_model = r.values["s"].fields["A"].m_as("mm^2") - 200 * 12
+    assert A_model == pytest.approx(14.7 * IN**2, rel=0.01)  # the W18X50's own model, within its table
