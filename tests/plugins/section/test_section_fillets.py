@@ -130,3 +130,26 @@ def test_tapered_flanges_parts_table_and_outline_agree():
                 FL.tapered_channel(254.0, 69.6, 11.1, 9.6, 8.0, 1 / 6)):
         a, b = tabular(shp.rows), green(shp.rings)
         assert (a.A, a.I_x, a.I_y) == pytest.approx((b.A, b.I_x, b.I_y), rel=2e-6)
+
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+
+@settings(max_examples=25, deadline=None)
+@given(h=st.floats(100, 1000), bf=st.floats(0.3, 1.0), tf=st.floats(0.02, 0.08), tw=st.floats(0.3, 0.9),
+       rr=st.floats(0.1, 2.0))
+def test_any_filleted_I_parts_table_and_outline_agree_and_fillets_only_add(h, bf, tf, tw, rr):
+    b = bf * h
+    t_f = tf * h
+    t_w = tw * t_f
+    r = rr * t_f
+    if t_w + 2 * r > b or 2 * t_f + 2 * r > h:
+        return
+    shp = FL.ishape(h, b, t_f, t_w, r)
+    rows, outline = tabular(shp.rows), green(shp.rings)
+    assert abs(rows.A - outline.A) / rows.A < 5e-5
+    assert abs(rows.I_x - outline.I_x) / (rows.I_x + rows.I_y) < 5e-5
+    assert abs(rows.I_y - outline.I_y) / (rows.I_x + rows.I_y) < 5e-5
+    plain = tabular(S.ishape(h, b, t_f, t_w).rows)
+    assert rows.A > plain.A and rows.I_x > plain.I_x and rows.I_y > plain.I_y
