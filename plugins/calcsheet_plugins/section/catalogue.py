@@ -113,6 +113,7 @@ def _aisc_entries():
             put("r_x", "rx", IN)
             put("r_y", "ry", IN)
             put("J", "J", IN**4)
+            put("r_o", "ro", IN)  # polar radius of gyration about the shear centre (C, MC, L, WT)
             put("I_2", "Iz", IN**4)  # angles: the minor principal axis
             put("r_min", "rz", IN)
             put("C_w", "Cw", IN**6)

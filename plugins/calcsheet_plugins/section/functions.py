@@ -349,7 +349,7 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
 
 COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
-            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02))
+            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
 _MODEL_NOTE = {
     "I": "rolled I with parallel flanges and four root fillets of radius r",
     "I-tapered": "I with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, and "

@@ -236,3 +236,17 @@ def test_a_catalogue_section_is_a_part_of_a_built_up_section(run):
     assert not errors(r), r.diagnostics
     A_model = r.values["s"].fields["A"].m_as("mm^2") - 200 * 12
     assert A_model == pytest.approx(14.7 * IN**2, rel=0.01)  # the W18X50's own model, within its table
+
+
+def test_the_shear_centre_reproduces_the_published_polar_radius(run):
+    # AISC Shapes Database v16.0 tabulates r̄_o = √(x_o² + y_o² + (I_x + I_y)/A) (AISC 360-16 E4-9): our shear
+    # centre closed forms (channel e_o, tee and angle mid-line intersections) reproduce it
+    names = ["C10X20", "MC12X31", "L6X4X1/2", "WT9X25"]
+    body = "\n".join(f's{k} = section.rolled(designation="{n}")' for k, n in enumerate(names))
+    r = run(body + "\n")
+    assert not errors(r), r.diagnostics
+    for k, n in enumerate(names):
+        rec = r.values[f"s{k}"]
+        (cmp,) = [it for it in rec.working.items if isinstance(it, Table) and it.title.endswith("geometric model")]
+        (row,) = [row for row in cmp.rows if row[0] == "r_o"]
+        assert abs(float(row[3].split()[0])) < 0.5, (n, row)
