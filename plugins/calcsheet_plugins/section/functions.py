@@ -112,13 +112,16 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
 
 def _register(name, params, doc):
     def deco(func):
-        return namespace.function(name, params=params + COMMON, fields=FIELDS, returns="section", doc=doc)(func)
+        return namespace.function(name, params=params, shared=True, fields=FIELDS, returns="section", doc=doc)(func)
     return deco
 
 
+namespace.share(*COMMON)  # every shape takes rho, x_ref, y_ref and detail (as **common)
+
+
 @_register("rectangle", [Param("b", L, "width"), Param("h", L, "depth")], "Solid rectangle b × h.")
-def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), rho, x_ref, y_ref, detail=detail)
+def rectangle(work, b, h, **common):
+    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), **common)
 
 
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
@@ -132,11 +135,9 @@ def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
                          choices=("sharp", "EN 10210-2", "EN 10219-2", "AISC"))],
            "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides); corners sharp, or rounded "
            "by r_out/r_in or a product standard's rule.")
-def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", rho=None, x_ref=None,
-        y_ref=None, detail="full"):
+def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", **common):
     if corners == "sharp" and r_out is None and r_in is None:
-        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref,
-                        y_ref, detail=detail)
+        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), **common)
     if t is None or t_f is not None or t_w is not None:
         work.fail("rounded corners need one uniform wall t", param="t" if t is None else "t_f" if t_f is not None
                   else "t_w")
@@ -151,20 +152,19 @@ def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="
         if r_out is None or r_in is None:
             work.fail("give both corner radii r_out and r_in", param="r_in" if r_out is not None else "r_out")
         ro, ri = _mm(r_out), _mm(r_in)
-    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), rho, x_ref, y_ref,
-                    detail=detail)
+    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), **common)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
-def circle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.circle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def circle(work, d, **common):
+    return _section(work, _build(work, lambda: S.circle(_mm(d))), **common)
 
 
 @_register("tube", [Param("d", L, "outside diameter"), Param("t", L, "wall", default=None),
                     Param("d_i", L, "inside diameter", default=None)],
            "Circular tube: outside diameter d and wall t, or inside diameter d_i.")
-def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
+def tube(work, d, t=None, d_i=None, **common):
+    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), **common)
 
 
 R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp corners", default=None)
@@ -175,68 +175,63 @@ R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp cor
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
            "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, **common):
     if r is not None:
         if b_bot is not None or t_fb is not None:
             work.fail("root fillets are modelled on equal flanges only", param="r")
-        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
-                    rho, x_ref, y_ref, detail=detail)
+                    **common)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                        Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness"), R],
            "Channel (parallel flanges), web on the left, flanges pointing right; root fillets r.")
-def channel(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def channel(work, h, b, t_f, t_w, r=None, **common):
     if r is not None:
-        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
-                    detail=detail)
+        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                    Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness"), R],
            "Tee, flange on top; root fillets r.")
-def tee(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def tee(work, h, b, t_f, t_w, r=None, **common):
     if r is not None:
-        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
-                    detail=detail)
+        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
                      Param("b", L, "horizontal leg (default h: equal angle)", default=None), R],
            "Equal or unequal angle, heel at the bottom-left; root fillet r.")
-def angle(work, h, t, b=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def angle(work, h, t, b=None, r=None, **common):
     if r is not None:
         if b is None:
             work.calc("b", "h", unit="mm", desc="horizontal leg (equal angle)")
         return _section(work, _build(work, lambda: FL.angle(_mm(h), _mm(b if b is not None else h), _mm(t), _mm(r))),
-                        rho, x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
+                        **common)
+    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), **common)
 
 
 @_register("triangle", [Param("b", L, "base"), Param("h", L, "height"),
                         Param("form", kind="text", doc="right angle at the bottom-left, or isosceles",
                               default="right", choices=("right", "isosceles"))],
            "Right or isosceles triangle on its base.")
-def triangle(work, b, h, form="right", rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), rho, x_ref, y_ref, detail=detail)
+def triangle(work, b, h, form="right", **common):
+    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), **common)
 
 
 @_register("semicircle", [Param("d", L, "diameter")], "Semicircle, flat side down.")
-def semicircle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def semicircle(work, d, **common):
+    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), **common)
 
 
 @_register("polygon", [Param("points", L, "outline vertices (x, y) in order", kind="points")],
            "Any simple polygon, given by its vertices in order (either direction).")
-def polygon(work, points, rho=None, x_ref=None, y_ref=None, detail="full"):
+def polygon(work, points, **common):
     pts = [(_mm(px), _mm(py)) for px, py in points]
-    return _section(work, _build(work, lambda: S.polygon(pts)), rho, x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.polygon(pts)), **common)
 
 
 # ---------------------------------------------------------------- built-up sections
