@@ -145,10 +145,12 @@ class PluginFunction:
 class Namespace:
     """A group of plugin functions under one name (``section``, ``beam``)."""
 
-    def __init__(self, name: str, version: str = "0", doc: str = ""):
+    def __init__(self, name: str, version: str = "0", doc: str = "", standards: tuple[str, ...] = ()):
         self.name = name
         self.version = version
         self.doc = doc
+        # the published standards (with edition) a design plugin implements, e.g. ("AISC 360-16",)
+        self.standards = tuple(standards)
         self.functions: dict[str, PluginFunction] = {}
 
     def function(
