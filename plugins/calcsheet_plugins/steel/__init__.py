@@ -22,3 +22,4 @@ namespace = Namespace(
 
 from . import shape as _shape  # noqa: E402,F401  (registers the functions)
 from . import aisc as _aisc  # noqa: E402,F401
+from . import ec3 as _ec3  # noqa: E402,F401
