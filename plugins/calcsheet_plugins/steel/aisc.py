@@ -604,8 +604,10 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
          P_r=None, M_rx=None, M_ry=None, V_r=None, want=("compression", "flexure", "flexure_y", "shear")):
     ctx = _start(work, section, material, method, F_y, E, G, form)
     w, sc, u = work, work.scope, ctx.u
-    for nm, q in (("L", L), ("L_y", L_y), ("L_z", L_z), ("L_b", L_b), ("L_v", L_v)):
+    for nm, q in (("L", L), ("L_y", L_y), ("L_z", L_z), ("L_v", L_v)):
         positive(w, nm, q)
+    if L_b is not None and L_b.magnitude < 0:
+        w.fail("L_b must not be negative (0 for a continuously braced compression flange)", param="L_b")
     for nm, q in (("P_r", P_r), ("M_rx", M_rx), ("M_ry", M_ry), ("V_r", V_r)):
         if q is not None and q.magnitude < 0:
             w.fail(f"{nm} is a required strength: give its magnitude (≥ 0)", param=nm)
