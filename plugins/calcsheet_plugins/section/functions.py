@@ -25,7 +25,8 @@ import hashlib
 import numpy as np
 from dataclasses import replace
 
-from calcsheet.plugin import Field, Namespace, Param
+from calcsheet.plugin import Field, Namespace, Param, Record
+from calcsheet import units as U
 
 from . import builtup as B
 from . import shapes as S
@@ -49,7 +50,35 @@ COMMON = [
           default="full", choices=("full", "brief")),
 ]
 
-_GEOMETRY: dict[str, object] = {}  # record key (its 'shape' text) -> Shape or Placed
+
+
+def _record(work, out: dict, geometry) -> Record:
+    """The result record, carrying its own geometry (a Shape or a Placed part) as the record's payload.
+
+    The record is built here rather than by the host only so the payload can travel with it; its fields are
+    checked against the declaration exactly as the host checks a returned dict (presence, dimension).
+    """
+    pf = work.plugin
+    declared = {}
+    for name, value in out.items():
+        f = pf.field(name)
+        if f is None:
+            raise AssertionError(f"{pf.qualname} returned an undeclared field '{name}'")
+        if f.kind_ == "quantity" and U.without_angle(U.dim_of(value)) != U.without_angle(f.dimension):
+            raise AssertionError(f"{pf.qualname} field '{name}' has the wrong dimension")
+        declared[name] = f
+    absent = {}
+    for f in pf.fields:
+        if f.name not in out:
+            if not f.optional:
+                raise AssertionError(f"{pf.qualname} did not return its field '{f.name}'")
+            absent[f.name] = f.doc
+    return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
+                  declared=declared, optional=absent, payload=geometry)
+
+
+def _geometry(rec):
+    return rec.payload if isinstance(rec, Record) else None
 
 
 def _mm(q):
@@ -75,8 +104,7 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
                                        for r in shape.rings)).hexdigest()[:10]
         shape.label += f" #{digest}"
     out = report(work, shape, rho=rho, x_ref=x_ref, y_ref=y_ref, **kw)
-    _GEOMETRY[shape.label] = shape
-    return out
+    return _record(work, out, shape)
 
 
 def _register(name, params, doc):
@@ -185,9 +213,9 @@ _COUNT = {"part": 0, "hole": 0}
 
 
 def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=None):
-    geom = _GEOMETRY.get(shape.fields.get("shape"))
-    if geom is None:
-        work.fail("this section record was not made in this run; build it with a section function", param="shape")
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
     if E is not None and E.m_as("MPa") <= 0:
         work.fail("E must be greater than zero", param="E")
     if rho is not None and rho.m_as("kg/m^3") <= 0:
@@ -206,13 +234,13 @@ def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=N
                                 E.m_as("MPa") if E is not None else None, rho_mm)).encode()).hexdigest()[:10]
     label = name or f"{role} ({geom.label.split(' #')[0]})"
     key = f"{role} {label} #{digest}"
-    _GEOMETRY[key] = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
+    placed = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
     work.note(f"{'Hole' if role == 'hole' else 'Part'} '{label}': {geom.label.split(' #')[0]}, "
               f"{'mirrored ' + mirror + ', ' if mirror != 'none' else ''}"
               f"rotated {rotate.m_as('deg') if rotate is not None else 0:g}°, {anchor} at "
               f"({_mm(x) or 0:g}, {_mm(y) or 0:g}) mm" + (f", E = {E.m_as('MPa'):g} MPa" if E is not None else ""))
-    return {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"), "role": role,
-            "shape": key}
+    return _record(work, {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"),
+                          "role": role, "shape": key}, placed)
 
 
 @namespace.function("part", params=PLACE + [
@@ -243,9 +271,9 @@ def hole(work, shape, x=None, y=None, anchor=None, rotate=None, mirror="none", n
 def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
     placed = []
     for k, rec in enumerate(parts):
-        p = _GEOMETRY.get(rec.fields.get("shape"))
+        p = _geometry(rec)
         if not isinstance(p, B.Placed):
-            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole in this run",
+            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole",
                       param="parts")
         placed.append(p)
     names = [p.name for p in placed]
@@ -261,5 +289,131 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
                      "at n = E of the part / E of the reference (parts without E are of the reference material).")
     out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
                  detail=detail)
-    _GEOMETRY[asm.shape.label] = asm.shape
-    return out
+    return _record(work, out, asm.shape)
+
+
+# ---------------------------------------------------------------- catalogue sections
+
+from . import catalogue as C  # noqa: E402
+from . import fillets as FL  # noqa: E402
+from .fields import ALIASES, OPT_UNITS, UNITS  # noqa: E402
+
+COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
+            ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
+            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02))
+_MODEL_NOTE = {
+    "I": "rolled I with parallel flanges and four root fillets of radius r",
+    "I-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
+                 "with root fillets, so the model is approximate",
+    "C-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
+                 "with root fillets, so the model is approximate",
+    "T": "tee cut from a rolled I, two root fillets of radius r",
+    "L": "angle with a root fillet of radius r (toe radii not modelled)",
+    "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
+                "(AISC Manual, Part 1)",
+    "box-en": "hot-finished hollow section, corner radii 1.5·t outside and 1.0·t inside (EN 10210-2:2019)",
+    "tube": "circular tube of the (design) wall t",
+}
+
+
+def _table_unit(entry, name):
+    aisc = entry.source == C.AISC_SOURCE
+    base = {"A": "in^2" if aisc else "cm^2", "I_x": "in^4" if aisc else "cm^4", "I_y": "in^4" if aisc else "cm^4",
+            "S_x": "in^3" if aisc else "cm^3", "S_y": "in^3" if aisc else "cm^3", "Z_x": "in^3" if aisc else "cm^3",
+            "Z_y": "in^3" if aisc else "cm^3", "r_x": "in" if aisc else "cm", "r_y": "in" if aisc else "cm",
+            "J": "in^4" if aisc else "cm^4", "C_w": "in^6" if aisc else "cm^6", "mass": "lb/ft" if aisc else "kg/m",
+            "A_vz": "cm^2", "A_vy": "cm^2"}
+    return base.get(name, "in" if aisc else "mm")
+
+
+def _model(work, entry):
+    g = entry.dims
+    let = lambda n, v, d: work.let(n, _q(v, "mm"), unit="mm", desc=d, note=f"{entry.file}")  # noqa: E731
+    m = entry.model
+    if m in ("I", "I-tapered", "C-tapered", "T"):
+        for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
+                     ("t_w", "web thickness")):
+            let(n, g[n], d)
+        let("r", g.get("r", 0.0), "root radius" + (" (k_des − t_f)" if entry.source == C.AISC_SOURCE else ""))
+        if m == "T":
+            return FL.tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "C-tapered":
+            return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+    if m == "L":
+        let("h", g["h"], "vertical leg d")
+        let("b", g["b"], "horizontal leg b")
+        let("t", g["t"], "leg thickness")
+        let("r", g["r"], "root radius (k_des − t)")
+        return FL.angle(g["h"], g["b"], g["t"], g["r"])
+    if m in ("box-aisc", "box-en"):
+        std = "AISC" if m == "box-aisc" else "EN 10210-2"
+        ro, ri = C.hollow_radii(std, g["t"])
+        let("h", g["h"], "outside depth")
+        let("b", g["b"], "outside width")
+        let("t", g["t"], "wall" + (" (design wall t_des)" if m == "box-aisc" else ""))
+        work.calc("r_o", f"{ro / g['t']:g}*t", unit="mm", desc=f"outside corner radius ({std})")
+        work.calc("r_i", f"{ri / g['t']:g}*t", unit="mm", desc=f"inside corner radius ({std})")
+        return FL.box(g["b"], g["h"], g["t"], ro, ri)
+    if m == "tube":
+        let("d", g["d"], "outside diameter")
+        let("t", g["t"], "wall" + (" (design wall t_des)" if entry.source == C.AISC_SOURCE else ""))
+        return S.tube(g["d"], g["t"])
+    raise AssertionError(m)  # pragma: no cover
+
+
+@namespace.function("rolled", params=[
+    Param("designation", kind="text", doc='catalogue designation: "W18X50", "IPE 300", "HE 300 B", "HSS8X8X1/2", '
+                                          '"RHS 150x100x6.3" …'),
+    Param("x_ref", L, "a vertical axis x = x_ref for I_y_ref", default=None),
+    Param("y_ref", L, "a horizontal axis y = y_ref (0 mm is the base) for I_x_ref", default=None)],
+    fields=FIELDS, returns="section",
+    doc="A rolled or hollow section from a published table: the table's values, beside the section's own "
+        "geometric model (fillets, corner radii) and their deviation.")
+def rolled(work, designation, x_ref=None, y_ref=None):
+    entry = C.lookup(designation)
+    if entry is None:
+        near = C.nearest(designation)
+        work.fail(f"no section '{designation}' in the catalogue", param="designation",
+                  hint=("nearest: " + ", ".join(near)) if near else
+                  "families: W, M, S, HP, C, MC, L, WT, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, CHS, SHS, RHS")
+    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}.", kind="method")
+    body = [[name, _q(v * 1.0, OPT_UNITS.get(name) or UNITS.get(name)).to(unit(_table_unit(entry, name)))]
+            for name, v in entry.values.items()]
+    work.table(f"Table row {entry.designation} ({entry.source})", ["Property", "Table value"], body,
+               units=[None, None], note="Values as published, in the table's own units.")
+    work.note("Geometric model: " + _MODEL_NOTE[entry.model] + ". Its working follows; the record's fields take "
+              "the table's values where the table gives them, the model's otherwise.", kind="method")
+    shape = _build(work, lambda: _model(work, entry))
+    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief")
+    rows, worst = [], []
+    for name, u, tol in COMPARED:
+        if name not in entry.values or name not in out:
+            continue
+        tv, mv = entry.values[name], out[name].m_as(unit(u))
+        dev = (mv - tv) / tv if tv else 0.0
+        tu = _table_unit(entry, name)
+        rows.append([name, _q(tv, u).to(unit(tu)), _q(mv, u).to(unit(tu)), f"{100 * dev:+.2f} %",
+                     f"{100 * tol:.0f} %"])
+        if abs(dev) > tol:
+            worst.append(f"{name} {100 * dev:+.1f} %")
+    work.table(f"Table against the geometric model ({entry.designation})",
+               ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
+               note="Deviation = (model − table)/table; tolerance 1 %, 2 % for J and C_w.")
+    if worst:
+        work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
+                  + ", ".join(worst) + (" (tapered flanges are modelled as parallel)" if "tapered" in entry.model
+                                        else ""), param="designation")
+    else:
+        work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
+                  "properties.", kind="agreement")
+    for name, v in entry.values.items():
+        u = UNITS.get(name) or OPT_UNITS.get(name)
+        out[name] = _q(v, u)
+    for alias, base in ALIASES.items():
+        if base in out:
+            out[alias] = out[base].to(unit(OPT_UNITS[alias]))
+    out["designation"] = entry.designation
+    out["source"] = entry.source
+    out["shape"] = f"{entry.designation} ({entry.source.split(' (')[0]})"
+    return _record(work, out, shape)

@@ -16,7 +16,8 @@ from functools import lru_cache
 from calcsheet import units as U
 
 from . import drawing
-from .fields import NAMES, UNITS
+from .fields import ALIASES, NAMES, OPT_UNITS, OPTIONAL, UNITS
+from .warping import cubic_moment
 from .shapes import ARC_SEGMENTS
 from .properties import Basic, disagreement, green, properties, tabular
 
@@ -265,6 +266,8 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     else:
         rec.let("J", _q(shape.J, "mm^4"), unit="mm^4", desc="torsion constant", note=shape.J_method)
 
+    _warping(work, rec, shape, vals)
+
     if rho is not None:
         rec.calc("mass", "rho*A", unit="kg/m", desc="mass per length")
     elif vals["mass"] > 0:
@@ -289,7 +292,64 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     _agreement(work, shape, engine, table=detail != "brief")
     out = {name: work[name].to(unit(UNITS[name])) if name != "theta_p" else work[name] for name in NAMES}
     out["shape"] = shape.label
+    out.update(optional_fields(work, shape))
     return out
+
+
+_DIMENSIONED = {name: dim for name, dim, _, _ in OPTIONAL}
+
+
+def optional_fields(work, shape) -> dict:
+    """The optional fields this working produced (and the European aliases of the standard ones)."""
+    out = {}
+    for name, u in OPT_UNITS.items():
+        v = work.scope.get(name)
+        if v is None or not hasattr(v, "m_as") or _DIMENSIONED[name] is None:
+            continue
+        if U.dim_of(v) != U.parse_dimension(_DIMENSIONED[name]):
+            continue
+        out[name] = v.to(unit(u))
+    if shape.kind in ("ishape", "channel", "tee"):
+        if "h" in out:
+            out.setdefault("d", out["h"])
+        if "b" in out:
+            out.setdefault("b_f", out["b"])
+    for alias, base in ALIASES.items():
+        if alias in out:
+            continue
+        v = out.get(base) if base in out else work.scope.get(base) if base in NAMES else None
+        if v is not None and hasattr(v, "m_as"):
+            out[alias] = v.to(unit(OPT_UNITS[alias]))
+    return out
+
+
+def _warping(work, rec, shape, vals) -> None:
+    """Shear centre, warping constant, monosymmetry property and r_ts, each traced (see warping.py)."""
+    if shape.closed:
+        work.note("Closed cell: under a torque T the wall carries the shear flow q = T/(2·A_m), the shear stress "
+                  "τ = q/t; warping of a closed section is negligible and C_w is not given.", kind="method")
+    for st in shape.warping:
+        rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
+    if "x_s" not in work.scope and shape.symmetry == "double":
+        rec.calc("x_s", "x_c", unit="mm", desc="shear centre, x (at the centroid: two axes of symmetry)")
+        rec.calc("y_s", "y_c", unit="mm", desc="shear centre, y")
+    if "x_s" not in work.scope:
+        return
+    rec.calc("x_0", "x_s - x_c", unit="mm", desc="shear centre relative to the centroid, x")
+    rec.calc("y_0", "y_s - y_c", unit="mm", desc="shear centre relative to the centroid, y")
+    rec.calc("r_o", "sqrt(x_0^2 + y_0^2 + (I_x + I_y)/A)", unit="mm",
+             desc="polar radius of gyration about the shear centre (AISC 360-16 E4-9)")
+    if shape.symmetry in ("double", "horizontal"):
+        rec.let("beta_x", _q(0.0, "mm"), unit="mm", desc="monosymmetry property",
+                note="the section is symmetric about its x axis: β_x = 0")
+    elif shape.symmetry == "vertical":
+        m3 = cubic_moment(shape.rings, vals["x_c"], vals["y_c"])
+        rec.let("Sigma_y3", _q(m3, "mm^5"), unit="mm^5", desc="∬y·(x² + y²) dA about the centroid",
+                note="Green's theorem over the outline, 3-point Gauss–Legendre on each edge (exact for a polygon)")
+        rec.calc("beta_x", "Sigma_y3/I_x - 2*y_0", unit="mm", desc="monosymmetry property β_x")
+    if "C_w" in work.scope and shape.kind in ("ishape", "channel"):
+        rec.calc("r_ts", "sqrt(sqrt(I_y*C_w)/S_x)", unit="mm",
+                 desc="effective radius of gyration for LTB (AISC 360-16 F2-7)")
 
 
 def _agreement(work, shape, engine: Basic, table: bool = True) -> None:
