@@ -10,7 +10,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import aisc, field, form_of, num, positive, units
+from .common import aisc, field, form_of, num, positive, tidy, units
 
 STD = "AISC 360-16"
 METHODS = ("LRFD", "ASD")
@@ -23,7 +23,7 @@ class _Ctx:
         self.method = method
         self.section = section
         if section is None:
-            work.fail("give section=… (a section record: steel.shape(…), section.rolled(…))", param="section")
+            work.fail("give section=… (a section record: steel_design.shape(…), section.rolled(…))", param="section")
         self.form = form_of(section, form)
         if self.form not in ("I", "RHS", "CHS"):
             work.fail("cannot tell the section's form; give form=\"I\", \"RHS\" or \"CHS\"", param="form")
@@ -54,7 +54,7 @@ class _Ctx:
         if v is None:
             if required:
                 self.work.fail(f"the section record has no {name} ({desc}), which {STD} needs here",
-                               param="section", hint="give it in steel.shape(…)")
+                               param="section", hint="give it in steel_design.shape(…)")
             return None
         self.sc[name] = v
         self.rows.append([name, desc, v.to(self.u[unit_key]) if unit_key else v])
@@ -516,7 +516,7 @@ def cb_formula(w):
 
 
 COMMON = [
-    Param("section", kind="record", record="section", doc="the section (steel.shape, section.rolled)"),
+    Param("section", kind="record", record="section", doc="the section (steel_design.shape, section.rolled)"),
     Param("material", kind="record", record="material", doc="material record (f_y, E, G)", default=None),
     Param("method", kind="text", choices=METHODS, doc="LRFD (φ) or ASD (Ω)", default="LRFD"),
     Param("F_y", "[pressure]", "yield stress (default material.f_y)", default=None),
@@ -591,7 +591,7 @@ def _collect(ctx, out, utils):
         w.note(f"Largest utilisation: {out['governing']}, {num(out['util']):.3f}.", kind="method")
     else:
         out["util"], out["governing"] = w.q(0.0, ""), "no required strength given"
-    return out
+    return tidy(out, ctx.u)
 
 
 def _util(w, name, req, cap, desc):

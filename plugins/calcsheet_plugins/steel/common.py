@@ -11,7 +11,7 @@ HERE = Path(__file__).parent
 # the section record's names a check accepts for each property, first match wins
 ALIASES = {
     "A": ("A",), "d": ("d", "h", "depth"), "b_f": ("b_f", "b", "width"), "t_f": ("t_f",), "t_w": ("t_w",),
-    "r": ("r", "r_root"), "k_des": ("k_des",), "h_w": ("h_w",),
+    "r": ("r", "r_root"), "k_des": ("k_des", "k"), "h_w": ("h_w",),
     "I_x": ("I_x", "I_y_major"), "I_y": ("I_y",), "S_x": ("S_x", "W_el_y"), "Z_x": ("Z_x", "W_pl_y"),
     "S_y": ("S_y", "W_el_z"), "Z_y": ("Z_y", "W_pl_z"), "r_x": ("r_x", "i_y"), "r_y": ("r_y", "i_z"),
     "J": ("J", "I_t"), "C_w": ("C_w", "I_w"), "h_o": ("h_o",), "r_ts": ("r_ts",),
@@ -48,18 +48,21 @@ def field(rec, name):
 
 
 def form_of(rec, given: str | None) -> str:
-    """'I', 'RHS' or 'CHS': given, else the record's own word, else its fields."""
+    """'I', 'RHS' or 'CHS': given, else the record's own form word (steel_design.shape), else its fields."""
     if given:
         return given
-    shape = str(rec.fields.get("shape", "") or rec.fields.get("form", "")).lower() if rec is not None else ""
-    if any(w in shape for w in ("round", "pipe", "chs", "tube", "circular")):
-        return "CHS"
-    if any(w in shape for w in ("rect", "square", "rhs", "shs", "box", "hss")):
+    if rec is None:
+        return ""
+    shape = str(rec.fields.get("shape", ""))
+    if shape in ("I", "RHS", "CHS"):
+        return shape
+    f = rec.fields
+    if "t_f" in f and "t_w" in f:
+        return "I"
+    if "t" in f and ("b_f" in f or "B" in f or "b" in f):
         return "RHS"
-    if rec is not None and "t_f" in rec.fields and "t_w" in rec.fields:
-        return "I"
-    if any(w in shape for w in ("ishape", "i-shape", "wide", "w ", "ipe", "he", "ub", "uc")):
-        return "I"
+    if "t" in f and ("D" in f or "d" in f):
+        return "CHS"
     return ""
 
 
@@ -97,3 +100,19 @@ def interp(xs, ys, x):
 def positive(work, name, q):
     if q is not None and (not math.isfinite(q.magnitude) or q.magnitude <= 0):
         work.fail(f"{name} must be greater than zero", param=name)
+
+
+def tidy(out: dict, u: dict) -> dict:
+    """Express each quantity of a result in the sheet's display units (force, moment, stress, length, area)."""
+    res = {}
+    for k, v in out.items():
+        if hasattr(v, "dimensionality") and not v.dimensionless:
+            for key in ("fo", "mo", "st", "L", "ar"):
+                try:
+                    if v.dimensionality == v._REGISTRY.Quantity(1.0, u[key]).dimensionality:
+                        v = v.to(u[key])
+                        break
+                except Exception:
+                    pass
+        res[k] = v
+    return res

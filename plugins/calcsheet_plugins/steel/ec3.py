@@ -10,7 +10,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import ec3, field, form_of, interp, moment_factors, num, positive
+from .common import ec3, field, form_of, interp, moment_factors, num, positive, tidy
 
 STD = "EN 1993-1-1"
 SHAPES = ("uniform", "end_moments", "udl", "point_mid")
@@ -27,7 +27,7 @@ class _Ctx:
         self.work, self.sc, self.u = work, work.scope, _units(work)
         w, sc, u = work, work.scope, self.u
         if section is None:
-            w.fail("give section=… (a section record: steel.shape(…), section.rolled(…))", param="section")
+            w.fail("give section=… (a section record: steel_design.shape(…), section.rolled(…))", param="section")
         self.section = section
         if form_of(section, None) not in ("I", ""):
             w.fail(f"{STD} checks in this plugin cover I and H sections only (5.5, 6.2.9.1, 6.3.2.3); "
@@ -74,7 +74,7 @@ class _Ctx:
             v = field(section, ours)
             if v is None:
                 w.fail(f"the section record has no {ours} ({desc}; EN 1993 symbol {ec}), which {STD} needs here",
-                       param="section", hint="give it in steel.shape(…)")
+                       param="section", hint="give it in steel_design.shape(…)")
             sc[ec] = v
             rows.append([ec, ours, desc, v.to(u[unit])])
         r = field(section, "r")
@@ -393,7 +393,7 @@ class _Ctx:
 
 
 COMMON = [
-    Param("section", kind="record", record="section", doc="an I or H section (steel.shape, section.rolled)"),
+    Param("section", kind="record", record="section", doc="an I or H section (steel_design.shape, section.rolled)"),
     Param("material", kind="record", record="material", doc="material record (f_y, E, G)", default=None),
     Param("f_y", "[pressure]", "yield strength (default material.f_y)", default=None),
     Param("E", "[pressure]", "modulus of elasticity (default material.E, else 210 GPa)", default=None),
@@ -471,7 +471,7 @@ def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=Non
         w.note(f"Largest utilisation: {utils[name]}, {num(out['util']):.3f}.", kind="method")
     else:
         out["util"], out["governing"] = w.q(0.0, ""), "no design force given"
-    return out
+    return tidy(out, ctx.u)
 
 
 @namespace.function("ec3_beam", params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check")

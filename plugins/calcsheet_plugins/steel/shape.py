@@ -1,4 +1,4 @@
-"""steel.shape: a section record from a catalogue's published properties (a W-shape, HSS, IPE, HEA …).
+"""steel_design.shape: a section record from a catalogue's published properties (a W-shape, HSS, IPE, HEA …).
 
 Why: design examples print the properties they use; a check run on those exact
 numbers does not depend on any catalogue, and a sheet can use a section that is

@@ -41,8 +41,8 @@ def errors(body, units="US"):
 
 
 def call(section, fn, args, units="US"):
-    """Run ``steel.<fn>(section=s, <args>)`` on a steel.shape(<section>) and return its record's fields."""
-    r = run(f"s = steel.shape({section})\nout = steel.{fn}(section=s, {args})\n", units)
+    """Run ``steel.<fn>(section=s, <args>)`` on a steel_design.shape(<section>) and return its record's fields."""
+    r = run(f"s = steel_design.shape({section})\nout = steel_design.{fn}(section=s, {args})\n", units)
     return r.values["out"].fields
 
 

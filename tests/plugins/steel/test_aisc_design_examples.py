@@ -76,8 +76,8 @@ def test_H_1A_W14x99_beam_column_interaction():
 
 def test_H_1A_interaction_alone():
     # H1-1a with the example's available strengths: 400/1130 + 8/9(250/642 + 80/311) = 0.929
-    r = run('i = steel.aisc_interaction(P_r=400 kip, P_c=1130 kip, M_rx=250 kip*ft, M_cx=642 kip*ft, '
-            'M_ry=80 kip*ft, M_cy=311 kip*ft)\nlow = steel.aisc_interaction(P_r=100 kip, P_c=1130 kip, '
+    r = run('i = steel_design.aisc_interaction(P_r=400 kip, P_c=1130 kip, M_rx=250 kip*ft, M_cx=642 kip*ft, '
+            'M_ry=80 kip*ft, M_cy=311 kip*ft)\nlow = steel_design.aisc_interaction(P_r=100 kip, P_c=1130 kip, '
             'M_rx=250 kip*ft, M_cx=642 kip*ft)')
     assert f(r.values["i"].fields["util_interaction"]) == pytest.approx(0.929, abs=0.001)
     assert r.values["i"].fields["equation"] == "H1-1a"
@@ -92,11 +92,11 @@ def test_slender_web_in_flexure_names_F4_F5():
     sec = ('name="plate girder", form="I", fabrication="welded", A=35 in^2, d=62 in, b_f=16 in, t_f=1.0 in, '
            't_w=0.25 in, I_x=30000 in^4, I_y=683 in^4, S_x=968 in^3, Z_x=1100 in^3, S_y=85 in^3, Z_y=130 in^3, '
            'J=11 in^4, C_w=600000 in^6')
-    errs = errors(f"s = steel.shape({sec})\nb = steel.aisc_beam(section=s, F_y=50 ksi, L_b=10 ft)")
+    errs = errors(f"s = steel_design.shape({sec})\nb = steel_design.aisc_beam(section=s, F_y=50 ksi, L_b=10 ft)")
     assert errs and "F4/F5" in errs[0].message
     assert errs[0].span is not None  # located at the call
 
 
 def test_wrong_unit_at_the_call_is_a_located_error():
-    errs = errors(f"s = steel.shape({W18X50})\nb = steel.aisc_beam(section=s, F_y=50 ksi, L_b=10 kip)")
+    errs = errors(f"s = steel_design.shape({W18X50})\nb = steel_design.aisc_beam(section=s, F_y=50 ksi, L_b=10 kip)")
     assert errs and errs[0].span is not None

@@ -78,13 +78,13 @@ def test_Mn_never_increases_with_unbraced_length(Lb_in):
 
 
 def test_Cb_is_one_for_uniform_moment():
-    r = run("c = steel.aisc_Cb(M_max=100 kip*ft, M_A=100 kip*ft, M_B=100 kip*ft, M_C=100 kip*ft)")
+    r = run("c = steel_design.aisc_Cb(M_max=100 kip*ft, M_A=100 kip*ft, M_B=100 kip*ft, M_C=100 kip*ft)")
     assert f(r.values["c"].fields["C_b"]) == pytest.approx(1.0, abs=1e-12)
 
 
 def test_Cb_for_a_simply_supported_udl_is_1_14():
     # M_A = M_C = 3/4 M_max, M_B = M_max: 12.5/(2.5 + 2.25 + 4 + 2.25) = 1.136 (common practice: "1.14")
-    r = run("c = steel.aisc_Cb(M_max=8 kip*ft, M_A=6 kip*ft, M_B=8 kip*ft, M_C=6 kip*ft)")
+    r = run("c = steel_design.aisc_Cb(M_max=8 kip*ft, M_A=6 kip*ft, M_B=8 kip*ft, M_C=6 kip*ft)")
     assert f(r.values["c"].fields["C_b"]) == pytest.approx(12.5 / 11.0, rel=1e-12)
 
 

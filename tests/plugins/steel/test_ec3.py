@@ -24,15 +24,15 @@ def chi(lam, alpha):  # 6.3.1.2 Eq. 6.49
                                              ("d", 0.4671)])
 def test_chi_at_unit_slenderness_matches_the_tabulated_values(curve, expected):
     # χ at λ̄ = 1.0 as tabulated for the five curves (common practice; SCI P363 tables — from memory)
-    r = run(f'x = steel.ec3_chi(lambda_bar=1.0, curve="{curve}")', units="SI")
+    r = run(f'x = steel_design.ec3_chi(lambda_bar=1.0, curve="{curve}")', units="SI")
     assert f(r.values["x"].fields["chi"]) == pytest.approx(expected, abs=6e-5)
 
 
 @settings(max_examples=20, deadline=None)
 @given(st.floats(0.0, 3.0), st.floats(0.01, 0.5), st.sampled_from(["a0", "a", "b", "c", "d"]))
 def test_chi_is_at_most_one_and_decreases_with_slenderness(lam, step, curve):
-    r = run(f'x = steel.ec3_chi(lambda_bar={lam}, curve="{curve}")\n'
-            f'y = steel.ec3_chi(lambda_bar={lam + step}, curve="{curve}")', units="SI")
+    r = run(f'x = steel_design.ec3_chi(lambda_bar={lam}, curve="{curve}")\n'
+            f'y = steel_design.ec3_chi(lambda_bar={lam + step}, curve="{curve}")', units="SI")
     a, b = f(r.values["x"].fields["chi"]), f(r.values["y"].fields["chi"])
     assert 0 < b <= a <= 1.0
     if lam > 0.2:
@@ -125,13 +125,13 @@ def test_class_4_is_a_located_error_naming_the_clause():
     thin = ('name="slender welded I", form="I", fabrication="welded", A=9000 mm^2, d=900 mm, b_f=300 mm, t_f=10 mm, '
             't_w=5 mm, I_x=1.2e9 mm^4, I_y=4.5e7 mm^4, S_x=2.7e6 mm^3, Z_x=3.1e6 mm^3, S_y=3.0e5 mm^3, Z_y=4.6e5 mm^3, '
             'J=2.4e5 mm^4, C_w=9e12 mm^6')
-    errs = errors(f"s = steel.shape({thin})\nb = steel.ec3_beam(section=s, f_y=355 MPa, M_y_Ed=10 kN*m)", units="SI")
+    errs = errors(f"s = steel_design.shape({thin})\nb = steel_design.ec3_beam(section=s, f_y=355 MPa, M_y_Ed=10 kN*m)", units="SI")
     assert errs and "class 4" in errs[0].message and "6.2.2.5" in errs[0].message
     assert errs[0].span is not None
 
 
 def test_unknown_national_annex_is_refused():
-    errs = errors(f's = steel.shape({IPE300})\nb = steel.ec3_beam(section=s, f_y=235 MPa, na="Atlantis")', units="SI")
+    errs = errors(f's = steel_design.shape({IPE300})\nb = steel_design.ec3_beam(section=s, f_y=235 MPa, na="Atlantis")', units="SI")
     assert errs and "national annex" in errs[0].message
 
 
