@@ -169,11 +169,25 @@ class _Ctx:
         else:
             w.calc("lambda_f", "D/t", unit="1", desc="wall slenderness D/t (B4.1a case 9, B4.1b case 20)")
             specs = [("wall", "lambda_f", "HSS_round", "HSS_round")]
+        built_up = self.form == "I" and self.fabrication == "welded"
+        if built_up:
+            w.calc("k_c", "max(0.35, min(0.76, 4/sqrt(h/t_w)))", unit="1",
+                   desc=f"k_c = 4/√(h/t_w), 0.35 ≤ k_c ≤ 0.76, {STD} Table B4.1a note [a]")
+            w.calc("F_L", "0.7*F_y", unit=self.u["st"], desc=f"F_L = 0.7F_y, doubly symmetric ({STD} Table B4.1b note)")
         for elem, lam_name, ca, fb in specs:
             lam = num(self.sc[lam_name])
             sfx = elem[0] if elem != "wall" else "f"
             a, b = t["B4_1a"][ca], t["B4_1b"][fb]
-            if "lambda_r" in a:
+            if built_up and elem == "flange":
+                a2, b2 = t["B4_1a"]["I_flange_built_up"], t["B4_1b"]["I_flange_built_up"]
+                w.calc("lambda_r_cf", f"{a2['lambda_r']}*sqrt(k_c*E/F_y)", unit="1",
+                       desc=f"flange, compression: nonslender limit λ_r, built-up I, {STD} Table B4.1a case {a2['case']}")
+                w.calc("lambda_p_f", f"{b2['lambda_p']}*sqrt(E/F_y)", unit="1",
+                       desc=f"flange, flexure: compact limit λ_p, built-up I, {STD} Table B4.1b case {b2['case']}")
+                w.calc("lambda_r_f", f"{b2['lambda_r']}*sqrt(k_c*E/F_L)", unit="1",
+                       desc=f"flange, flexure: noncompact limit λ_r, built-up I, {STD} Table B4.1b case {b2['case']}")
+                lr_c, lp, lr = (num(self.sc[n]) for n in ("lambda_r_cf", "lambda_p_f", "lambda_r_f"))
+            elif "lambda_r" in a:
                 lr_c = limit(f"lambda_r_c{sfx}", a["lambda_r"], "B4.1a", f"{elem}, compression: nonslender limit λ_r")
                 lp = limit(f"lambda_p_{sfx}", b["lambda_p"], "B4.1b", f"{elem}, flexure: compact limit λ_p")
                 lr = limit(f"lambda_r_{sfx}", b["lambda_r"], "B4.1b", f"{elem}, flexure: noncompact limit λ_r")
@@ -364,9 +378,18 @@ class _Ctx:
         states = {"yielding (F7-1)": M_p}
         lf, lw = num(sc[lam_f]), num(sc[lam_w])
         if lf > num(sc[lr_f]):
-            w.fail(f"the HSS flange is slender for bending about {axis} (b/t = {lf:.1f}): {STD} F7.2(c) (effective "
-                   "section modulus) is not implemented", param="section")
-        if lf > num(sc[lp_f]):
+            width, depth, I = ("b", "H", "I_x") if axis == "x" else ("h", "B", "I_y")
+            w.note(f"Slender flange: flange local buckling by {STD} F7.2(c), M_n = F_y·S_e. S_e is found by removing "
+                   f"the ineffective width b − b_e from both flanges (symmetric, slightly conservative — the "
+                   f"simplification of AISC Design Example F.8B).", kind="method")
+            w.calc(f"b_e{axis}", f"min(1.92*t*sqrt(E/F_y)*(1 - 0.38/{lam_f}*sqrt(E/F_y)), {width})", unit=u["ln"],
+                   desc=f"effective width of the compression flange, {STD} Eq. F7-4")
+            w.calc(f"I_e{axis}", f"{I} - 2*(({width} - b_e{axis})*t^3/12 + ({width} - b_e{axis})*t*(({depth} - t)/2)^2)",
+                   unit=u["i4"], desc="effective moment of inertia, ineffective width removed from both flanges")
+            w.calc(f"S_e{axis}", f"I_e{axis}/({depth}/2)", unit=u["i3"], desc="effective section modulus")
+            w.calc(f"M_n_FLB{axis}", f"F_y*S_e{axis}", unit=u["mo"], desc=f"flange local buckling, slender flange, {STD} Eq. F7-3")
+            states["flange local buckling, slender (F7-3)"] = f"M_n_FLB{axis}"
+        elif lf > num(sc[lp_f]):
             w.note(f"Noncompact flange: flange local buckling by {STD} F7.2(b).", kind="method")
             w.calc(f"M_n_FLB{axis}", f"min({M_p} - ({M_p} - F_y*{S})*(3.57*{lam_f}*sqrt(F_y/E) - 4.0), {M_p})",
                    unit=u["mo"], desc=f"flange local buckling, {STD} Eq. F7-2")

@@ -157,7 +157,8 @@ def test_slender_I_web_in_compression_uses_E7_effective_area():
     # re-derive: F_cr from E3 (y-axis), then E7-3 for the web and the flanges (b = b_f/2, t = t_f)
     A, ry, rx = 7.78, math.sqrt(21.3 / 7.78), math.sqrt(140 / 7.78)
     Fcr = fcr_column(max(96 / ry, 96 / rx))
-    lr = {"w": 1.49 * math.sqrt(E / FY), "f": 0.56 * math.sqrt(E / FY)}
+    kc = min(0.76, max(0.35, 4 / math.sqrt(9.5 / 0.1875)))          # Table B4.1a note [a]
+    lr = {"w": 1.49 * math.sqrt(E / FY), "f": 0.64 * math.sqrt(kc * E / FY)}  # cases 5 and 2 (built-up flanges)
     lam = {"w": 9.5 / 0.1875, "f": 4 / 0.25}
     c = {"w": (0.18, 1.31), "f": (0.22, 1.49)}  # Table E7.1 (a), (c)
     Ae = A
