@@ -108,6 +108,8 @@ def _aisc_entries():
             put("r_x", "rx", IN)
             put("r_y", "ry", IN)
             put("J", "J", IN**4)
+            put("I_2", "Iz", IN**4)  # angles: the minor principal axis
+            put("r_min", "rz", IN)
             put("C_w", "Cw", IN**6)
             put("r_ts", "rts", IN)
             put("h_o", "ho", IN)
@@ -122,11 +124,13 @@ def _aisc_entries():
                 if g.get("k") is not None:
                     dims["r"] = max(g["k"] - g["tf"], 0.0) * IN  # k_des = t_f + r
             elif model == "L":
-                put("d", "d", IN)
-                put("b_f", "b", IN)
+                # the file's 'b' column is the leg along y (I_x = 69.7 in⁴ of L8X4X1 belongs to its 8 in leg
+                # upright), its 'd' column the leg along x
+                put("d", "b", IN)
+                put("b_f", "d", IN)
                 put("t", "t", IN)
                 put("k", "k", IN)
-                dims.update(h=g["d"] * IN, b=g["b"] * IN, t=g["t"] * IN, r=max(g["k"] - g["t"], 0.0) * IN)
+                dims.update(h=g["b"] * IN, b=g["d"] * IN, t=g["t"] * IN, r=max(g["k"] - g["t"], 0.0) * IN)
             elif model == "box-aisc":
                 put("d", "Ht", IN)
                 put("b_f", "B", IN)

@@ -410,6 +410,16 @@ def rolled(work, designation, x_ref=None, y_ref=None):
     for name, v in entry.values.items():
         u = UNITS.get(name) or OPT_UNITS.get(name)
         out[name] = _q(v, u)
+    for name, base, dist in (("S_x_top", "I_x", "y_top"), ("S_x_bot", "I_x", "y_bot"), ("S_y_left", "I_y", "x_left"),
+                             ("S_y_right", "I_y", "x_right")):
+        out[name] = (out[base] / out[dist]).to(unit("mm^3"))
+    if "I_2" not in entry.values and abs(out["I_xy"].m_as(unit("mm^4"))) <= 1e-9 * out["I_x"].m_as(unit("mm^4")):
+        out["I_1"], out["I_2"] = max(out["I_x"], out["I_y"]), min(out["I_x"], out["I_y"])  # principal axes x, y
+        out["r_min"] = min(out["r_x"], out["r_y"])  # the table's own radius (its I/A is rounded differently)
+    if y_ref is None:
+        out["I_x_ref"] = out["I_x"]
+    if x_ref is None:
+        out["I_y_ref"] = out["I_y"]
     for alias, base in ALIASES.items():
         if base in out:
             out[alias] = out[base].to(unit(OPT_UNITS[alias]))
