@@ -356,7 +356,7 @@ class _Ctx:
         w.calc(name, f"min({', '.join(states.values())})" if len(states) > 1 else list(states.values())[0],
                unit=u["mo"], desc="nominal flexural strength: the least of the applicable limit states")
         gov = min(states, key=lambda k: sc[states[k]].m_as("N*m"))
-        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength ({STD} {name[-1]}-axis).", kind="method")
+        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {name[-1]} ({STD} F1).", kind="method")
         return gov
 
     def f7(self, axis, L_b, C_b):
