@@ -93,9 +93,9 @@ class _Ctx:
         root = "2*r" if self.fabrication == "rolled" else "0 mm"
         w.calc("c_f", f"(b - t_w - {root})/2", unit="mm", desc=f"flange outstand c, {STD} Table 5.2 (sheet 2)")
         w.calc("c_w", f"h - 2*t_f - {root}", unit="mm", desc=f"web depth c, {STD} Table 5.2 (sheet 1)")
-        w.calc("cf_tf", "c_f/t_f", unit="1", desc="flange c/t")
-        w.calc("cw_tw", "c_w/t_w", unit="1", desc="web c/t")
-        lf, lw = num(sc["cf_tf"]), num(sc["cw_tw"])
+        w.calc("ct_f", "c_f/t_f", unit="1", desc="flange c/t")
+        w.calc("ct_w", "c_w/t_w", unit="1", desc="web c/t")
+        lf, lw = num(sc["ct_f"]), num(sc["ct_w"])
         o = t["outstand_compression"]
         f_lims = [o["class1"] * eps, o["class2"] * eps, o["class3"] * eps]
         n = 0.0 if N_Ed is None else N_Ed.m_as("N")

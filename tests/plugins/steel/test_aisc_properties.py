@@ -169,3 +169,16 @@ def test_slender_I_web_in_compression_uses_E7_effective_area():
             Ae -= n * (b - be) * t
     assert f(out["P_n"], "kip") == pytest.approx(Fcr * Ae, rel=1e-9)                     # E7-1
     assert "E7" in out["governing_compression"]
+
+
+def test_the_plugin_declares_the_standards_and_editions_it_implements():
+    from calcsheet.plugin import default_registry
+
+    ns = default_registry().namespace("steel_design")
+    assert "AISC 360-16" in ns.standards
+    assert "EN 1993-1-1:2005+AC:2009" in ns.standards
+    # and the data files name the same editions
+    from calcsheet_plugins.steel.common import aisc, ec3
+
+    assert aisc()["meta"]["standard"] == "AISC 360-16"
+    assert ec3()["meta"]["edition"] == "EN 1993-1-1:2005 + AC:2009"
