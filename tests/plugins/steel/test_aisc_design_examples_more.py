@@ -178,3 +178,41 @@ def test_G_5_round_HSS16_shear_capped_at_0_6Fy():
     assert f(lrfd["V_n"], "kip") == pytest.approx(258, rel=0.002)   # F_cr = 0.6F_y = 30.0 ksi; V_n = 258 kips
     assert f(lrfd["V_c"], "kip") == pytest.approx(232, rel=0.002)   # φ_vV_n = 232 kips
     assert f(asd["V_c"], "kip") == pytest.approx(155, rel=0.004)    # V_n/Ω_v = 155 kips (258/1.67 = 154.5)
+
+
+# ---------------------------------------------------------------- E.10: rectangular HSS with slender walls
+# HSS12×8×1/8: A_g, t, r_x, r_y, b/t = 43.0, h/t = 66.0 printed in E.10; I = r²A; S, Z, J from memory
+HSS12X8 = ('name="HSS12X8X1/8", form="RHS", H=12 in, B=8 in, t=0.174 in, A=6.76 in^2, r_x=4.56 in, r_y=3.35 in, '
+           'I_x=140.6 in^4, I_y=75.9 in^4, S_x=23.4 in^3, Z_x=27.6 in^3, S_y=19.0 in^3, Z_y=21.2 in^3, J=155 in^4')
+
+
+@pytest.mark.parametrize("L_ft, Fn, Ae, Pn, phiPn, PnOmega", [
+    (18, 36.9, 5.35, 197, 177, 118),   # both walls reduced (E7-3): b_e = 7.05 in., h_e = 7.88 in.
+    (24, 29.1, 5.77, 168, 151, 101),   # wide walls reduced only: h_e = 8.66 in.
+    (40, 12.3, 6.76, 83.1, 74.8, 49.8),  # no reduction (E7-2)
+])
+def test_E_10_HSS12x8x1_8_slender_walls_table_E10_1(L_ft, Fn, Ae, Pn, phiPn, PnOmega):
+    lrfd = call(HSS12X8, "aisc_column", f"F_y=50 ksi, L={L_ft} ft")
+    asd = call(HSS12X8, "aisc_column", f'F_y=50 ksi, L={L_ft} ft, method="ASD"')
+    assert lrfd["class_flange_compression"] == "slender" and lrfd["class_web_compression"] == "slender"
+    # the example rounds F_n and P_n to three figures before applying φ or Ω: within 0.6 %
+    assert f(lrfd["F_cr"], "ksi") == pytest.approx(Fn, rel=0.006)
+    assert f(lrfd["P_n"], "kip") == pytest.approx(Pn, rel=0.006)
+    assert f(lrfd["P_c"], "kip") == pytest.approx(phiPn, rel=0.006)
+    assert f(asd["P_c"], "kip") == pytest.approx(PnOmega, rel=0.006)
+
+
+# ---------------------------------------------------------------- E.11: pipe column
+# Pipe 10 Std: A_g, r, D/t = 31.6 printed in E.11; D, t (design), I, S, Z from memory
+PIPE10 = ('name="Pipe 10 Std", form="CHS", D=10.75 in, t=0.340 in, A=11.5 in^2, r_x=3.68 in, I_x=156 in^4, '
+          'S_x=29.0 in^3, Z_x=38.1 in^3')
+
+
+def test_E_11_pipe_10_std_column():
+    lrfd = call(PIPE10, "aisc_column", "F_y=35 ksi, L=30 ft, L_y=15 ft")
+    asd = call(PIPE10, "aisc_column", 'F_y=35 ksi, L=30 ft, L_y=15 ft, method="ASD"')
+    assert lrfd["class_flange_compression"] == "nonslender"           # D/t = 31.6 < 0.11E/F_y = 91.1
+    assert f(lrfd["F_cr"], "ksi") == pytest.approx(21.4, abs=0.05)     # F_n = 21.4 ksi (L_c/r = 97.8)
+    assert f(lrfd["P_n"], "kip") == pytest.approx(246, rel=0.003)      # P_n = 246 kips
+    assert f(lrfd["P_c"], "kip") == pytest.approx(221, rel=0.005)      # φ_cP_n = 0.90(246) = 221 kips
+    assert f(asd["P_c"], "kip") == pytest.approx(147, rel=0.004)       # P_n/Ω_c = 147 kips
