@@ -571,6 +571,9 @@ CLASS_FIELDS = [
 F_COMP = [Field("P_n", "[force]", "nominal compressive strength"),
           Field("P_c", "[force]", "available compressive strength φ_cP_n (LRFD) or P_n/Ω_c (ASD)"),
           Field("F_cr", "[pressure]", "critical stress"), Field("F_e", "[pressure]", "elastic buckling stress"),
+          Field("F_ex", "[pressure]", "flexural buckling stress about x, E3-4"),
+          Field("F_ey", "[pressure]", "flexural buckling stress about y, E3-4"),
+          Field("F_ez", "[pressure]", "torsional buckling stress, E4-2 (when L_z > L_y)", optional=True),
           Field("governing_compression", kind="text", doc="the buckling mode and clause")]
 F_FLEX = [Field("M_nx", "[force]*[length]", "nominal flexural strength, major axis"),
           Field("M_cx", "[force]*[length]", "available flexural strength φ_bM_n or M_n/Ω_b, major axis"),
@@ -639,7 +642,10 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     if "compression" in want:
         gov = ctx.compression(L, K_x, K_y, L_y, L_z)
         ctx.available("P_c", "P_n", "compression")
-        out.update(P_n=sc["P_n"], P_c=sc["P_c"], F_cr=sc["F_cr"], F_e=sc["F_e"], governing_compression=gov)
+        out.update(P_n=sc["P_n"], P_c=sc["P_c"], F_cr=sc["F_cr"], F_e=sc["F_e"], F_ex=sc["F_ex"], F_ey=sc["F_ey"],
+                   governing_compression=gov)
+        if "F_ez" in sc:
+            out["F_ez"] = sc["F_ez"]
         if P_r is not None:
             _util(w, "util_axial", "P_r", "P_c", f"axial compression, {STD} E1")
             utils["util_axial"] = "util_axial"

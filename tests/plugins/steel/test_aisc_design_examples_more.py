@@ -217,3 +217,21 @@ def test_E_11_pipe_10_std_column():
     assert f(lrfd["P_n"], "kip") == pytest.approx(246, rel=0.003)      # P_n = 246 kips
     assert f(lrfd["P_c"], "kip") == pytest.approx(221, rel=0.005)      # φ_cP_n = 0.90(246) = 221 kips
     assert f(asd["P_c"], "kip") == pytest.approx(147, rel=0.005)       # P_n/Ω_c = 246/1.67 = 147 kips
+
+
+@pytest.mark.parametrize("example, args, Fez", [
+    # E4-2 with L_cz = 15 ft as printed (the examples show it does not govern); here L_y is shortened so that
+    # L_cz > L_cy and E4 applies
+    ("E.2", dict(d=17.0, b_f=8.0, t_f=1.0, t_w=0.25, I_x=1100, I_y=85.4, J=5.41, C_w=5470), 91.9),
+    ("E.3", dict(d=8.0, b_f=10.5, t_f=0.375, t_w=0.25, I_x=122, I_y=72.4, J=0.407, C_w=1050), 71.2),
+])
+def test_E4_2_torsional_buckling_stress_of_the_built_up_columns(example, args, Fez):
+    out = call(plates(example, **args), "aisc_column", "F_y=50 ksi, L=15 ft, L_y=5 ft, L_z=15 ft")
+    assert f(out["F_ez"], "ksi") == pytest.approx(Fez, abs=0.06)
+    assert f(out["F_e"], "ksi") == pytest.approx(min(Fez, f(out["F_ex"], "ksi"), f(out["F_ey"], "ksi")), abs=0.06)
+
+
+def test_E4_is_not_applied_when_the_torsional_length_does_not_exceed_L_y():
+    out = call(plates("E.2", d=17.0, b_f=8.0, t_f=1.0, t_w=0.25, I_x=1100, I_y=85.4, J=5.41, C_w=5470),
+               "aisc_column", "F_y=50 ksi, L=15 ft")
+    assert "F_ez" not in out
