@@ -10,7 +10,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import ec3, field, form_of, interp, moment_factors, num, positive, tidy
+from .common import ec3, field, form_of, moment_factors, num, positive, tidy
 
 STD = "EN 1993-1-1"
 SHAPES = ("uniform", "end_moments", "udl", "point_mid")
@@ -279,10 +279,15 @@ class _Ctx:
             p = 1.0 if shape == "uniform" else num(psi)
             if not -1 <= p <= 1:
                 w.fail("psi must lie between -1 and 1", param="psi")
-            t = mf["end_moments"]
-            w.let("C_1", w.q(round(interp(t["psi"], t["C1"], p), 4), ""),
-                  desc=f"C_1 for end moments, ψ = {p:g} (linear interpolation)", note=mf["source"]["C1_C2"])
-            w.let("C_2", w.q(0.0, ""), desc="C_2 = 0: no transverse load", note=mf["source"]["C1_C2"])
+            sc["psi_LT"] = w.q(p, "")
+            for name, s_ in (("M_A_r", 0.25), ("M_B_r", 0.5), ("M_C_r", 0.75)):
+                w.calc(name, f"abs(1 - (1 - psi_LT)*{s_})", unit="1",
+                       desc=f"|M|/M_max at the {'quarter' if s_ == 0.25 else ('mid' if s_ == 0.5 else 'three-quarter')} "
+                            f"point of the linear diagram M(1 − (1 − ψ)x/L), ψ = {p:g}")
+            w.calc("C_1", "sqrt(35/(1 + 9*M_A_r^2 + 16*M_B_r^2 + 9*M_C_r^2))", unit="1",
+                   desc="C_1 = √(35M_max²/(M_max² + 9M_A² + 16M_B² + 9M_C²)), k = 1")
+            self.work.working.items[-1].note = mf["source"]["C1_linear"]
+            w.let("C_2", w.q(0.0, ""), desc="C_2 = 0: no transverse load")
         else:
             t = mf[shape]
             w.let("C_1", w.q(t["C1"], ""), desc=f"C_1, {t['text']}", note=mf["source"]["C1_C2"])
