@@ -62,8 +62,8 @@ def test_welded_I_column_uses_the_welded_buckling_curves():
 
     from .conftest import call, f
 
-    rolled = call(IPE300, "ec3_column", "f_y=355 MPa, L=5 m", units="SI")
-    welded = call(IPE300, "ec3_column", 'f_y=355 MPa, L=5 m, fabrication="welded"', units="SI")
+    rolled = call(IPE300, "ec3_column", "f_y=235 MPa, L=5 m", units="SI")  # (S355: web class 4 in compression)
+    welded = call(IPE300, "ec3_column", 'f_y=235 MPa, L=5 m, fabrication="welded"', units="SI")
     lam = f(rolled["lambda_y"])
 
     def chi(a):  # EN 1993-1-1 (6.49)
@@ -73,3 +73,10 @@ def test_welded_I_column_uses_the_welded_buckling_curves():
     # Table 6.2: rolled I, h/b = 2 > 1.2, t_f ≤ 40 mm → curve a about y–y; welded I, t_f ≤ 40 mm → curve b
     assert f(rolled["chi_y"]) == pytest.approx(chi(0.21), rel=1e-12)
     assert f(welded["chi_y"]) == pytest.approx(chi(0.34), rel=1e-12)
+
+
+def test_ipe300_s355_web_is_class_4_in_pure_compression():
+    # Table 5.2: c/t = (300 − 2·10.7 − 2·15)/7.1 = 35.0 > 42ε = 42·√(235/355) = 34.2 → class 4 (out of scope)
+    errs = errors(f"s = steel_design.shape({IPE300})\nc = steel_design.ec3_column(section=s, f_y=355 MPa, L=3 m)",
+                  units="SI")
+    assert errs and "class 4" in errs[0].message and "web" in errs[0].message
