@@ -8,6 +8,8 @@ Sheet syntax::
     check b.util <= 1
     c   = steel_design.ec3_column(section=hea, material=s355, L=4 m, N_Ed=900 kN)
 
+(The namespace is ``steel_design``: ``steel`` is a value name sheets already use.)
+
 Factors, limits, buckling curves and moment-shape coefficients live in TOML
 files beside this module, each naming its source and edition. See
 docs/plugins/steel.md for every clause covered and what is out of scope.
