@@ -64,6 +64,7 @@ OPTIONAL = [
     ("y_0", "[length]", "mm", "shear centre relative to the centroid, y"),
     ("r_o", "[length]", "mm", "polar radius of gyration about the shear centre"),
     ("beta_x", "[length]", "mm", "monosymmetry property β_x"),
+    ("A_m", "[length]**2", "mm^2", "area enclosed by the wall mid-line of a closed section (Bredt: q = T/(2·A_m))"),
     ("h", "[length]", "mm", "overall depth (European symbol)"),
     ("b", "[length]", "mm", "width (European symbol)"),
     ("I_z", "[length]**4", "mm^4", "second moment about the minor axis z-z (EN 1993 axes; = I_y here)"),

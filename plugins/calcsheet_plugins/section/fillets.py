@@ -225,7 +225,7 @@ def box(b: float, h: float, t: float, r_o: float, r_i: float) -> Shape:
         J_method="Bredt–Batho for a thin-walled closed cell on the wall mid-line, J = 4·A_m²·t/p + p·t³/3, with the "
                  "mid-line perimeter p and enclosed area A_m of corners rounded at the mean radius R_c "
                  "(the form EN 10210-2 Annex B uses); shear flow q = T/(2·A_m)",
-        J_steps=[Step("R_c", "(r_o + r_i)/2", "mm", "mid-line corner radius"),
+        J_steps=[Step("R_c", "(r_out + r_in)/2", "mm", "mid-line corner radius"),
                  Step("p_m", "2*((b - t) + (h - t)) - 2*R_c*(4 - pi)", "mm", "mid-line perimeter"),
                  Step("A_m", "(b - t)*(h - t) - R_c^2*(4 - pi)", "mm^2", "area enclosed by the mid-line"),
                  Step("J", "4*A_m^2*t/p_m + p_m*t^3/3", "mm^4", "torsion constant (Bredt–Batho, closed cell)")],

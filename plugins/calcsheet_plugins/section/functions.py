@@ -29,6 +29,9 @@ from calcsheet.plugin import Field, Namespace, Param, Record
 from calcsheet import units as U
 
 from . import builtup as B
+from . import catalogue as C
+from . import fillets as FL
+from .fields import ALIASES, OPT_UNITS, UNITS
 from . import shapes as S
 from .fields import section_fields
 from .report import _q, report, unit
@@ -121,10 +124,35 @@ def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
                    Param("t", L, "uniform wall", default=None),
                    Param("t_f", L, "top and bottom walls", default=None),
-                   Param("t_w", L, "side walls", default=None)],
-           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides).")
-def box(work, b, h, t=None, t_f=None, t_w=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                   Param("t_w", L, "side walls", default=None),
+                   Param("r_out", L, "outside corner radius (uniform wall t only)", default=None),
+                   Param("r_in", L, "inside corner radius (uniform wall t only)", default=None),
+                   Param("corners", kind="text", doc="corner radii by a product standard's rule: hot-finished "
+                         "(EN 10210-2), cold-formed (EN 10219-2) or AISC HSS", default="sharp",
+                         choices=("sharp", "EN 10210-2", "EN 10219-2", "AISC"))],
+           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides); corners sharp, or rounded "
+           "by r_out/r_in or a product standard's rule.")
+def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", rho=None, x_ref=None,
+        y_ref=None, detail="full"):
+    if corners == "sharp" and r_out is None and r_in is None:
+        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref,
+                        y_ref, detail=detail)
+    if t is None or t_f is not None or t_w is not None:
+        work.fail("rounded corners need one uniform wall t", param="t" if t is None else "t_f" if t_f is not None
+                  else "t_w")
+    if corners != "sharp":
+        if r_out is not None or r_in is not None:
+            work.fail(f'give either corners="{corners}" or r_out and r_in, not both',
+                      param="r_out" if r_out is not None else "r_in")
+        ro, ri = C.hollow_radii(corners, _mm(t))
+        work.calc("r_out", f"{ro / _mm(t):g}*t", unit="mm", desc=f"outside corner radius ({corners})")
+        work.calc("r_in", f"{ri / _mm(t):g}*t", unit="mm", desc=f"inside corner radius ({corners})")
+    else:
+        if r_out is None or r_in is None:
+            work.fail("give both corner radii r_out and r_in", param="r_in" if r_out is not None else "r_out")
+        ro, ri = _mm(r_out), _mm(r_in)
+    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
@@ -139,34 +167,55 @@ def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="fu
     return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
 
 
+R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp corners", default=None)
+
+
 @_register("ishape", [Param("h", L, "overall depth"), Param("b", L, "top flange width"),
                       Param("t_f", L, "top flange thickness"), Param("t_w", L, "web thickness"),
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
-                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None)],
-           "I-shape with equal flanges, or unequal ones via b_bot and t_fb (fillets not modelled).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
+           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        if b_bot is not None or t_fb is not None:
+            work.fail("root fillets are modelled on equal flanges only", param="r")
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
                     rho, x_ref, y_ref, detail=detail)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness")],
-           "Channel, web on the left, flanges pointing right.")
-def channel(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness"), R],
+           "Channel (parallel flanges), web on the left, flanges pointing right; root fillets r.")
+def channel(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness")],
-           "Tee, flange on top.")
-def tee(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness"), R],
+           "Tee, flange on top; root fillets r.")
+def tee(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
+                        x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
+                    detail=detail)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
-                     Param("b", L, "horizontal leg (default h: equal angle)", default=None)],
-           "Equal or unequal angle, heel at the bottom-left.")
-def angle(work, h, t, b=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+                     Param("b", L, "horizontal leg (default h: equal angle)", default=None), R],
+           "Equal or unequal angle, heel at the bottom-left; root fillet r.")
+def angle(work, h, t, b=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+    if r is not None:
+        if b is None:
+            work.calc("b", "h", unit="mm", desc="horizontal leg (equal angle)")
+        return _section(work, _build(work, lambda: FL.angle(_mm(h), _mm(b if b is not None else h), _mm(t), _mm(r))),
+                        rho, x_ref, y_ref, detail=detail)
     return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
 
 
@@ -289,14 +338,14 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
                      "at n = E of the part / E of the reference (parts without E are of the reference material).")
     out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
                  detail=detail)
+    if asm.E_ref is not None and transformed:
+        out["E_ref"] = _q(asm.E_ref, "MPa")
+        out["n_max"] = U.registry().Quantity(max(asm.n), "")
     return _record(work, out, asm.shape)
 
 
 # ---------------------------------------------------------------- catalogue sections
 
-from . import catalogue as C  # noqa: E402
-from . import fillets as FL  # noqa: E402
-from .fields import ALIASES, OPT_UNITS, UNITS  # noqa: E402
 
 COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
@@ -316,19 +365,50 @@ _MODEL_NOTE = {
 }
 
 
+_TABLE_UNITS = {"mm": ("in", "mm"), "mm^2": ("in^2", "cm^2"), "mm^3": ("in^3", "cm^3"), "mm^4": ("in^4", "cm^4"),
+                "mm^6": ("in^6", "cm^6"), "kg/m": ("lb/ft", "kg/m")}
+
+
 def _table_unit(entry, name):
+    """The unit the table prints ``name`` in: inches and lb/ft (AISC); mm, cm², cm⁴… and radii of gyration in cm
+    (European tables)."""
     aisc = entry.source == C.AISC_SOURCE
-    base = {"A": "in^2" if aisc else "cm^2", "I_x": "in^4" if aisc else "cm^4", "I_y": "in^4" if aisc else "cm^4",
-            "S_x": "in^3" if aisc else "cm^3", "S_y": "in^3" if aisc else "cm^3", "Z_x": "in^3" if aisc else "cm^3",
-            "Z_y": "in^3" if aisc else "cm^3", "r_x": "in" if aisc else "cm", "r_y": "in" if aisc else "cm",
-            "J": "in^4" if aisc else "cm^4", "C_w": "in^6" if aisc else "cm^6", "mass": "lb/ft" if aisc else "kg/m",
-            "A_vz": "cm^2", "A_vy": "cm^2"}
-    return base.get(name, "in" if aisc else "mm")
+    if not aisc and name in ("r_x", "r_y", "r_min"):
+        return "cm"
+    return _TABLE_UNITS[OPT_UNITS.get(name) or UNITS[name]][0 if aisc else 1]
+
+
+_SUPER = str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻")
+
+
+def _published(entry, name, value) -> str:
+    """A table value as the table prints it (its own unit, its own digits)."""
+    u = _table_unit(entry, name)
+    v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
+    text = f"{v:.6g}"
+    if "e" in text:
+        mant, exp = text.split("e")
+        text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
+    return f"{text} {u.replace('^2', '²').replace('^3', '³').replace('^4', '⁴').replace('^6', '⁶')}"
 
 
 def _model(work, entry):
     g = entry.dims
-    let = lambda n, v, d: work.let(n, _q(v, "mm"), unit="mm", desc=d, note=f"{entry.file}")  # noqa: E731
+    dims = []
+
+    def let(n, v, d):  # the model's dimensions, from the row: one table, bound for the formulas below
+        work.scope[n] = _q(v, "mm")
+        dims.append((n, _published(entry, n if n not in ("h", "b") else {"h": "d", "b": "b_f"}[n], v), d))
+
+    shape = _model_shape(work, entry, g, let, dims)
+    cells = [c for n, v, d in dims for c in (n, v, d)]
+    cells += [""] * (-len(cells) % 6)
+    work.table(f"Dimensions of the model, from the table row {entry.designation}", ["Symbol", "Value", "Meaning"] * 2,
+               [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
+    return shape
+
+
+def _model_shape(work, entry, g, let, dims):
     m = entry.model
     if m in ("I", "I-tapered", "C-tapered", "T"):
         for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
@@ -352,8 +432,9 @@ def _model(work, entry):
         let("h", g["h"], "outside depth")
         let("b", g["b"], "outside width")
         let("t", g["t"], "wall" + (" (design wall t_des)" if m == "box-aisc" else ""))
-        work.calc("r_o", f"{ro / g['t']:g}*t", unit="mm", desc=f"outside corner radius ({std})")
-        work.calc("r_i", f"{ri / g['t']:g}*t", unit="mm", desc=f"inside corner radius ({std})")
+        work.scope["r_out"], work.scope["r_in"] = _q(ro, "mm"), _q(ri, "mm")
+        dims.append(("r_out", f"{ro / g['t']:g}·t", f"outside corner radius ({std})"))
+        dims.append(("r_in", f"{ri / g['t']:g}·t", f"inside corner radius ({std})"))
         return FL.box(g["b"], g["h"], g["t"], ro, ri)
     if m == "tube":
         let("d", g["d"], "outside diameter")
@@ -377,29 +458,32 @@ def rolled(work, designation, x_ref=None, y_ref=None):
         work.fail(f"no section '{designation}' in the catalogue", param="designation",
                   hint=("nearest: " + ", ".join(near)) if near else
                   "families: W, M, S, HP, C, MC, L, WT, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, CHS, SHS, RHS")
-    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}.", kind="method")
-    body = [[name, _q(v * 1.0, OPT_UNITS.get(name) or UNITS.get(name)).to(unit(_table_unit(entry, name)))]
-            for name, v in entry.values.items()]
-    work.table(f"Table row {entry.designation} ({entry.source})", ["Property", "Table value"], body,
-               units=[None, None], note="Values as published, in the table's own units.")
-    work.note("Geometric model: " + _MODEL_NOTE[entry.model] + ". Its working follows; the record's fields take "
-              "the table's values where the table gives them, the model's otherwise.", kind="method")
+    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}. Geometric model: "
+              + _MODEL_NOTE[entry.model] + ". The record's fields take the table's values where the table gives "
+              "them, the model's otherwise.", kind="method")
+    compared = {name for name, _, _ in COMPARED}
+    others = [(n, v) for n, v in entry.values.items() if n not in compared and n not in entry.dims
+              and not (n in ("d", "b_f", "t") and entry.model != "tube")]
+    if others:
+        cells = [c for n, v in others for c in (n, _published(entry, n, v))]
+        cells += [""] * (-len(cells) % 6)
+        work.table(f"Further values of the table row {entry.designation}", ["Property", "Table"] * 3,
+                   [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
     shape = _build(work, lambda: _model(work, entry))
-    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief")
+    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief", compact=True)
     rows, worst = [], []
     for name, u, tol in COMPARED:
         if name not in entry.values or name not in out:
             continue
         tv, mv = entry.values[name], out[name].m_as(unit(u))
         dev = (mv - tv) / tv if tv else 0.0
-        tu = _table_unit(entry, name)
-        rows.append([name, _q(tv, u).to(unit(tu)), _q(mv, u).to(unit(tu)), f"{100 * dev:+.2f} %",
-                     f"{100 * tol:.0f} %"])
+        rows.append([name, _published(entry, name, tv), _q(mv, u).to(unit(_table_unit(entry, name))),
+                     f"{100 * dev:+.2f} %", f"{100 * tol:.0f} %"])
         if abs(dev) > tol:
             worst.append(f"{name} {100 * dev:+.1f} %")
-    work.table(f"Table against the geometric model ({entry.designation})",
+    work.table(f"Table row {entry.designation} ({entry.source}) against the geometric model",
                ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
-               note="Deviation = (model − table)/table; tolerance 1 %, 2 % for J and C_w.")
+               note="Table values as published, in the table's units; deviation = (model − table)/table.")
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
                   + ", ".join(worst) + (" (tapered flanges are modelled as parallel)" if "tapered" in entry.model
@@ -427,3 +511,41 @@ def rolled(work, designation, x_ref=None, y_ref=None):
     out["source"] = entry.source
     out["shape"] = f"{entry.designation} ({entry.source.split(' (')[0]})"
     return _record(work, out, shape)
+
+
+# ---------------------------------------------------------------- first moment at any level
+
+@namespace.function("Q_at", params=[
+    Param("shape", kind="record", record="section", doc="any section record"),
+    Param("y", L, "level of the cut, in the section's own coordinates (0 mm is the base of a shape)")],
+    fields=[Field("Q", "[length]**3", "first moment, about the centroidal x axis, of the area above the cut"),
+            Field("t", L, "material width cut at y (the smaller side at a step; transformed for several materials)"),
+            Field("A_above", "[length]**2", "area above the cut"),
+            Field("y_bar", L, "centroid of the area above the cut"),
+            Field("y_c", L, "centroid of the whole section")],
+    returns="section.cut",
+    doc="First moment Q and width t at any level y, for the shear stress τ = V·Q/(I_x·t) there.")
+def Q_at(work, shape, y):
+    from . import polygon as P
+
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
+    rings = geom.rings
+    c = _mm(y)
+    solid = [r for r in rings if r.sign > 0]
+    lo = min(float(r.y.min()) for r in solid)
+    hi = max(float(r.y.max()) for r in solid)
+    if not lo < c < hi:
+        work.fail(f"the cut y = {c:g} mm must lie inside the section, between {lo:g} and {hi:g} mm", param="y")
+    whole = P.centroidal(P.region_moments(rings))
+    above = P._moments_above(rings, c)
+    work.let("y_c", _q(whole.y_c, "mm"), unit="mm", desc="centroid of the section", note="from the outline")
+    work.let("A_above", _q(above.A, "mm^2"), unit="mm^2", desc="area above the cut",
+             note="Green's theorem over the outline clipped at y")
+    work.let("y_bar", _q(c + above.Sx / above.A, "mm"), unit="mm", desc="centroid of the area above the cut",
+             note="first moment of the clipped outline about the cut, over its area")
+    work.calc("Q", "A_above*(y_bar - y_c)", unit="mm^3", desc="first moment about the centroidal axis (Q = A'·ȳ')")
+    work.let("t", _q(P.width_at(rings, c, weighted=True), "mm"), unit="mm", desc="material width at the cut",
+             note="width of material cut by the line (at a step, the smaller side)")
+    return {n: work[n] for n in ("Q", "t", "A_above", "y_bar", "y_c")}

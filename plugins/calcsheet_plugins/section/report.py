@@ -47,6 +47,42 @@ def _label(r) -> str:
     return r.name + (" (hole)" if r.sign < 0 and "hole" not in r.name.lower() else "")
 
 
+def _compact_table_steps(work, shape) -> None:
+    """The parallel-axis method in one table (a single material, no holes to explain): areas, centroids and
+    second moments of the parts, then A, the centroid and I as the table's column sums."""
+    rows = shape.rows
+    sA = sum(r.sign * r.A for r in rows)
+    xc = sum(r.sign * r.A * r.x for r in rows) / sA
+    yc = sum(r.sign * r.A * r.y for r in rows) / sA
+    scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
+    body, sums = [], [0.0] * 5
+    for r in rows:
+        a = r.sign * r.A
+        dx, dy = _snap(r.x - xc, scale), _snap(r.y - yc, scale)
+        vals = [r.sign * r.Iox, a * dy * dy, r.sign * r.Ioy, a * dx * dx, r.sign * r.Ioxy + a * dx * dy]
+        sums = [p + v for p, v in zip(sums, vals)]
+        body.append([_label(r), _q(a, "mm^2"), _q(r.x, "mm"), _q(r.y, "mm"), _q(vals[0], "mm^4"),
+                     _q(vals[1], "mm^4"), _q(vals[2], "mm^4"), _q(vals[3], "mm^4")])
+    work.table("Parts table: areas, centroids and second moments (parallel-axis theorem)",
+               ["Part", "A_i", "x_i", "y_i", "I_o,x,i", "A_i·d_y,i²", "I_o,y,i", "A_i·d_x,i²"], body,
+               units=[None, "mm^2", "mm", "mm", "mm^4", "mm^4", "mm^4", "mm^4"],
+               footer=[["Σ", _q(sA, "mm^2"), "", "", _q(sums[0], "mm^4"), _q(sums[1], "mm^4"), _q(sums[2], "mm^4"),
+                        _q(sums[3], "mm^4")]],
+               note="d = yᵢ − ȳ and xᵢ − x̄ from the centroid below; Iₒ about each part's own centroid; rounded-off "
+                    "corners are negative rows.")
+    work.let("A", _q(sA, "mm^2"), unit="mm^2", desc="area", note="Σ Aᵢ, " + _COLUMN_SUMS)
+    work.let("x_c", _q(xc, "mm"), unit="mm", desc="centroid, x", note="Σ Aᵢ·xᵢ / Σ Aᵢ over the table")
+    work.let("y_c", _q(yc, "mm"), unit="mm", desc="centroid, y", note="Σ Aᵢ·yᵢ / Σ Aᵢ over the table")
+    work.let("I_x", _q(sums[0] + sums[1], "mm^4"), unit="mm^4", desc="second moment about the centroidal x axis",
+             note="Σ I_o,x + Σ A·d_y², " + _COLUMN_SUMS + "s")
+    work.let("I_y", _q(sums[2] + sums[3], "mm^4"), unit="mm^4", desc="second moment about the centroidal y axis",
+             note="Σ I_o,y + Σ A·d_x², " + _COLUMN_SUMS + "s")
+    ixy = 0.0 if shape.symmetry != "none" else sums[4]
+    work.let("I_xy", _q(ixy, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
+             note="the section is symmetric about an axis parallel to x or y" if shape.symmetry != "none"
+             else "Σ (I_o,xy + A·d_x·d_y) over the parts")
+
+
 def _table_steps(work, shape, transformed: bool) -> None:
     """The parallel-axis method in two tables: centroid, then second moments about it."""
     rows = shape.rows
@@ -78,6 +114,8 @@ def _table_steps(work, shape, transformed: bool) -> None:
     i_scale = sum(abs(r.n) * (abs(r.Iox) + abs(r.Ioy) + r.A * ((r.x - xc) ** 2 + (r.y - yc) ** 2)) for r in rows)
     product = any(abs(r.Ioxy) > 1e-12 * i_scale or abs(r.n * r.A * (r.x - xc) * (r.y - yc)) > 1e-12 * i_scale
                   for r in rows)
+    by_symmetry = product and getattr(shape, "symmetry", "none") != "none"  # spandrels' products cancel
+    product = product and not by_symmetry
     scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
     body_x, body_y, body_p = [], [], []
     sums = [0.0] * 6
@@ -122,8 +160,9 @@ def _table_steps(work, shape, transformed: bool) -> None:
         work.calc("I_xy", "Sigma_Ioxy + Sigma_Adxdy", unit="mm^4", desc="product of area about the centroidal axes")
     else:
         work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
-                 note="every part is symmetric about an axis parallel to x or y through its own centroid and "
-                      "the transfer terms cancel")
+                 note="the section is symmetric about an axis parallel to x or y" if by_symmetry
+                 else "every part is symmetric about an axis parallel to x or y through its own centroid "
+                 "and the transfer terms cancel")
 
 
 class _Brief:
@@ -155,7 +194,7 @@ class _Brief:
     def let(self, name, value, unit=None, desc=None, note=None):
         self.work.let(name, value, unit=unit, desc=desc, note=note)
         self._take(name)
-        if note and "extreme vertex" not in note and "named" not in note and "density" not in note:
+        if note and not any(w in note for w in ("extreme vertex", "named", "density", "symmetric")):
             self.methods.append(name)
 
     def __getitem__(self, name):
@@ -180,7 +219,7 @@ def _engine_basic(work) -> Basic:
 
 
 def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, J_steps=True,
-           extra_notes=(), mass_note=None, detail="full") -> dict:
+           extra_notes=(), mass_note=None, detail="full", compact=False) -> dict:
     """Trace every standard property of ``shape`` into ``work`` and return the fields."""
     for message, param in shape.warnings:
         work.warn(message, param=param)
@@ -197,7 +236,10 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
             work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
                      note="the section is symmetric about a centroidal axis")
     else:
-        _table_steps(work, shape, transformed)
+        if compact and not transformed:
+            _compact_table_steps(work, shape)
+        else:
+            _table_steps(work, shape, transformed)
     # the engine's values are the reported ones; they must match the core's tabular sums
     mine, engine = tabular(shape.rows), _engine_basic(work)
     worst = max(disagreement(mine, engine).values())
@@ -309,6 +351,13 @@ def optional_fields(work, shape) -> dict:
         if U.dim_of(v) != U.parse_dimension(_DIMENSIONED[name]):
             continue
         out[name] = v.to(unit(u))
+    if "x_s" not in out and shape.symmetry == "double":
+        for name, base in (("x_s", "x_c"), ("y_s", "y_c")):
+            out[name] = work.scope[base].to(unit("mm"))
+        out["x_0"] = out["y_0"] = _q(0.0, "mm")
+        out["beta_x"] = _q(0.0, "mm")
+        out["r_o"] = ((work.scope["I_x"] + work.scope["I_y"]) / work.scope["A"]) ** 0.5
+        out["r_o"] = out["r_o"].to(unit("mm"))
     if shape.kind in ("ishape", "channel", "tee"):
         if "h" in out:
             out.setdefault("d", out["h"])
@@ -330,11 +379,8 @@ def _warping(work, rec, shape, vals) -> None:
                   "τ = q/t; warping of a closed section is negligible and C_w is not given.", kind="method")
     for st in shape.warping:
         rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
-    if "x_s" not in work.scope and shape.symmetry == "double":
-        rec.calc("x_s", "x_c", unit="mm", desc="shear centre, x (at the centroid: two axes of symmetry)")
-        rec.calc("y_s", "y_c", unit="mm", desc="shear centre, y")
     if "x_s" not in work.scope:
-        return
+        return  # doubly symmetric solids and cells: the shear centre is the centroid (given as fields, untraced)
     rec.calc("x_0", "x_s - x_c", unit="mm", desc="shear centre relative to the centroid, x")
     rec.calc("y_0", "y_s - y_c", unit="mm", desc="shear centre relative to the centroid, y")
     rec.calc("r_o", "sqrt(x_0^2 + y_0^2 + (I_x + I_y)/A)", unit="mm",
