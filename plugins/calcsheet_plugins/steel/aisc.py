@@ -220,6 +220,10 @@ class _Ctx:
         w.calc("L_cy", "K_y*L_y", unit=u["L"], desc="effective length about y, L_c = K·L (E2)")
         w.calc("F_ex", "pi^2*E/(L_cx/r_x)^2", unit=u["st"], desc=f"elastic buckling stress about x, {STD} Eq. E3-4")
         w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")
+        slender = max(sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"), sc["L_cy"].m_as("m") / sc["r_y"].m_as("m"))
+        if slender > 200:
+            w.warn(f"L_c/r = {slender:.0f} exceeds 200, the limit {STD} E2 (User Note) recommends for members "
+                   f"designed for compression", param="L")
         candidates = ["F_ex", "F_ey"]
         if self.form == "I" and L_z is not None and L_z.m_as("m") > sc["L_cy"].m_as("m"):
             sc["L_cz"] = L_z

@@ -257,6 +257,12 @@ class _Ctx:
                f"governing for a doubly symmetric I/H section whose torsional buckling length does not exceed L_cr,z "
                f"(common practice).", kind="method")
         if N_Ed is not None and N_Ed.m_as("N") > 0:
+            lam_max = max(num(sc["lambda_y"]), num(sc["lambda_z"]))
+            ratio = N_Ed.m_as("N") / min(sc["N_cr_y"].m_as("N"), sc["N_cr_z"].m_as("N"))
+            if lam_max <= 0.2 or ratio <= 0.04:
+                w.note(f"λ̄ = {lam_max:.3f} ≤ 0.2 or N_Ed/N_cr = {ratio:.3f} ≤ 0.04: buckling effects may be ignored "
+                       f"and only the cross-section checks apply ({STD} 6.3.1.2(4)); the buckling check is still "
+                       f"shown.", kind="method")
             w.calc("util_buckling", "N_Ed/N_b_Rd", unit="1", desc=f"flexural buckling, {STD} 6.3.1.1 Eq. 6.46")
             w.check("N_Ed <= N_b_Rd", desc=f"flexural buckling, {STD} 6.3.1.1 (6.46)")
             return {"util_buckling": f"flexural buckling about {ax}–{ax} (6.3.1)"}

@@ -80,3 +80,12 @@ def test_ipe300_s355_web_is_class_4_in_pure_compression():
     errs = errors(f"s = steel_design.shape({IPE300})\nc = steel_design.ec3_column(section=s, f_y=355 MPa, L=3 m)",
                   units="SI")
     assert errs and "class 4" in errs[0].message and "web" in errs[0].message
+
+
+def test_very_slender_aisc_column_warns_at_L():
+    import calcsheet
+
+    r = calcsheet.run(f"---\nproject: t\nunits: US\n---\ns = steel_design.shape({W18X50})\n"
+                      f"c = steel_design.aisc_column(section=s, F_y=50 ksi, L=40 ft)\n")
+    warns = [d for d in r.diagnostics if d.severity == "warning" and "200" in d.message]
+    assert warns and warns[0].span is not None   # L_c/r_y = 480/1.65 = 291 > 200 (E2 User Note)
