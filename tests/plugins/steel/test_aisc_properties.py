@@ -182,3 +182,12 @@ def test_the_plugin_declares_the_standards_and_editions_it_implements():
 
     assert aisc()["meta"]["standard"] == "AISC 360-16"
     assert ec3()["meta"]["edition"] == "EN 1993-1-1:2005 + AC:2009"
+
+
+@settings(max_examples=10, deadline=None)
+@given(st.floats(1.0, 50.0), st.floats(0.5, 10.0))
+def test_Pn_never_increases_with_length_even_through_E7(L_ft, dL):
+    # W18×50 has a slender web in compression: the E7 effective area varies with F_cr, P_n must still fall
+    a = call(W18X50, "aisc_column", f"F_y=50 ksi, L={L_ft} ft")
+    b = call(W18X50, "aisc_column", f"F_y=50 ksi, L={L_ft + dL} ft")
+    assert f(b["P_n"], "kip") <= f(a["P_n"], "kip") + 1e-9

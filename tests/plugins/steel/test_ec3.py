@@ -166,3 +166,12 @@ def test_ec3_utilisation_is_monotonic_in_load(N, factor):
     a = call(HEB200, "ec3_column", f"f_y=355 MPa, L=5 m, N_Ed={N} kN", units="SI")
     b = call(HEB200, "ec3_column", f"f_y=355 MPa, L=5 m, N_Ed={N * factor} kN", units="SI")
     assert f(b["util"]) > f(a["util"])
+
+
+@settings(max_examples=10, deadline=None)
+@given(st.floats(0.5, 12.0), st.floats(0.1, 3.0), st.sampled_from(["uniform", "udl", "point_mid"]))
+def test_LTB_resistance_never_increases_with_the_unrestrained_length(L, dL, shape):
+    a = call(IPE300, "ec3_beam", f'f_y=235 MPa, L_LT={L} m, moment_shape="{shape}"', units="SI")
+    b = call(IPE300, "ec3_beam", f'f_y=235 MPa, L_LT={L + dL} m, moment_shape="{shape}"', units="SI")
+    assert f(b["M_b_Rd"], "kN*m") <= f(a["M_b_Rd"], "kN*m") + 1e-9
+    assert 0 < f(b["chi_LT"]) <= 1.0
