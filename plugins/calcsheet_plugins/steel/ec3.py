@@ -125,6 +125,7 @@ class _Ctx:
 
         cf, cw = cls(lf, f_lims), cls(lw, w_lims)
         self.klass = max(cf, cw)
+        self.parts = (cf, cw)
         w.table(f"{STD} 5.5, Table 5.2 classification (ε = {eps:.3f})",
                 ["Part", "stress", "c/t", "class 1 limit", "class 2 limit", "class 3 limit", "class"],
                 [["flange outstand", "compression", f"{lf:.2f}", *(f"{x:.2f}" for x in f_lims), cf],
@@ -524,3 +525,26 @@ def ec3_chi(work, lambda_bar, curve):
     work.calc("Phi", "0.5*(1 + alpha*(lambda_bar - 0.2) + lambda_bar^2)", unit="1", desc=f"{STD} 6.3.1.2(1)")
     work.calc("chi", "min(1, 1/(Phi + sqrt(Phi^2 - lambda_bar^2)))", unit="1", desc=f"{STD} 6.3.1.2 Eq. 6.49")
     return {k: work.q(num(work.scope[k]), "") for k in ("chi", "Phi", "alpha")}
+
+
+@namespace.function("ec3_classify",
+                    params=COMMON + [Param("N_Ed", "[force]", "design axial compression (web in compression or "
+                                                               "bending and compression)", default=None),
+                                     Param("bending", kind="text", choices=("yes", "no"),
+                                           doc="whether the section is bent about y–y", default="yes")],
+                    fields=[Field("section_class", doc="cross-section class, 5.5.2(6)"),
+                            Field("class_flange", doc="flange outstand class, Table 5.2"),
+                            Field("class_web", doc="web class, Table 5.2")],
+                    returns="steel_class")
+def ec3_classify(work, section, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None,
+                 N_Ed=None, bending="yes"):
+    """EN 1993-1-1 5.5 classification of an I/H section (Table 5.2); class 4 is refused (out of scope)."""
+    if N_Ed is not None and N_Ed.magnitude < 0:
+        work.fail("N_Ed: give the compression as a positive value", param="N_Ed")
+    if N_Ed is None and bending == "no":
+        work.fail("with bending=\"no\" give N_Ed (a section in pure compression)", param="N_Ed")
+    ctx = _Ctx(work, section, material, f_y, E, G, na, fabrication)
+    ctx.classify(N_Ed, bending == "yes")
+    cf, cw = ctx.parts
+    return {"section_class": work.q(float(ctx.klass), ""), "class_flange": work.q(float(cf), ""),
+            "class_web": work.q(float(cw), "")}

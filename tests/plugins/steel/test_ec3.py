@@ -175,3 +175,16 @@ def test_LTB_resistance_never_increases_with_the_unrestrained_length(L, dL, shap
     b = call(IPE300, "ec3_beam", f'f_y=235 MPa, L_LT={L + dL} m, moment_shape="{shape}"', units="SI")
     assert f(b["M_b_Rd"], "kN*m") <= f(a["M_b_Rd"], "kN*m") + 1e-9
     assert 0 < f(b["chi_LT"]) <= 1.0
+
+
+@pytest.mark.parametrize("fy, N, bending, expected", [
+    # IPE 300 (Table 5.2): flange c/t = (150 − 7.1 − 2·15)/2/10.7 = 5.28; web c/t = (300 − 2·10.7 − 2·15)/7.1 = 35.0
+    (235, None, "yes", (1, 1, 1)),      # web in bending: 35.0 ≤ 72ε = 72
+    (355, None, "yes", (1, 1, 1)),      # 35.0 ≤ 72ε = 58.6; flange 5.28 ≤ 9ε = 7.32
+    (235, "100 kN", "no", (2, 1, 2)),   # web in compression: 33ε = 33 < 35.0 ≤ 38ε = 38
+    (275, "100 kN", "no", (2, 1, 2)),   # ε = 0.924: 30.5 < 35.0 ≤ 35.1
+])
+def test_ec3_classify_ipe300(fy, N, bending, expected):
+    args = f"f_y={fy} MPa, bending=\"{bending}\"" + (f", N_Ed={N}" if N else "")
+    out = call(IPE300, "ec3_classify", args, units="SI")
+    assert (f(out["section_class"]), f(out["class_flange"]), f(out["class_web"])) == expected
