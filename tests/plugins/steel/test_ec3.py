@@ -188,3 +188,20 @@ def test_ec3_classify_ipe300(fy, N, bending, expected):
     args = f"f_y={fy} MPa, bending=\"{bending}\"" + (f", N_Ed={N}" if N else "")
     out = call(IPE300, "ec3_classify", args, units="SI")
     assert (f(out["section_class"]), f(out["class_flange"]), f(out["class_web"])) == expected
+
+
+def test_bending_and_axial_force_6_2_9_1_rederived():
+    # HE 200 B, S355, class 1: N_Ed = 600 kN > 0.5 h_w t_w f_y = 271 kN, so M_pl,y,Rd is reduced (6.33/6.34, 6.36)
+    N, My, Mz = 600e3, 60e6, 10e6
+    A, b, tf, tw, h, fy = 7808.0, 200.0, 15.0, 9.0, 200.0, 355.0
+    out = call(HEB200, "ec3_beam", f"f_y=355 MPa, N_Ed={N / 1e3} kN, M_y_Ed={My / 1e6} kN*m, M_z_Ed={Mz / 1e6} kN*m",
+               units="SI")
+    Npl = A * fy
+    n = N / Npl
+    a = min((A - 2 * b * tf) / A, 0.5)
+    MNy = min(642.5e3 * fy * (1 - n) / (1 - 0.5 * a), 642.5e3 * fy)                       # (6.36)
+    hw = h - 2 * tf
+    MNz = 305.8e3 * fy if N <= hw * tw * fy else (                                        # (6.35)
+        305.8e3 * fy if n <= a else 305.8e3 * fy * (1 - ((n - a) / (1 - a)) ** 2))        # (6.37), (6.38)
+    beta = max(5 * n, 1.0)
+    assert f(out["util_bending"]) == pytest.approx((My / MNy) ** 2 + (Mz / MNz) ** beta, rel=1e-9)  # (6.41)
