@@ -112,13 +112,16 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
 
 def _register(name, params, doc):
     def deco(func):
-        return namespace.function(name, params=params + COMMON, fields=FIELDS, returns="section", doc=doc)(func)
+        return namespace.function(name, params=params, shared=True, fields=FIELDS, returns="section", doc=doc)(func)
     return deco
 
 
+namespace.share(*COMMON)  # every shape takes rho, x_ref, y_ref and detail (as **common)
+
+
 @_register("rectangle", [Param("b", L, "width"), Param("h", L, "depth")], "Solid rectangle b × h.")
-def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), rho, x_ref, y_ref, detail=detail)
+def rectangle(work, b, h, **common):
+    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), **common)
 
 
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
@@ -156,15 +159,15 @@ def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
-def circle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.circle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def circle(work, d, **common):
+    return _section(work, _build(work, lambda: S.circle(_mm(d))), **common)
 
 
 @_register("tube", [Param("d", L, "outside diameter"), Param("t", L, "wall", default=None),
                     Param("d_i", L, "inside diameter", default=None)],
            "Circular tube: outside diameter d and wall t, or inside diameter d_i.")
-def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
+def tube(work, d, t=None, d_i=None, **common):
+    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), **common)
 
 
 R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp corners", default=None)
@@ -223,20 +226,20 @@ def angle(work, h, t, b=None, r=None, rho=None, x_ref=None, y_ref=None, detail="
                         Param("form", kind="text", doc="right angle at the bottom-left, or isosceles",
                               default="right", choices=("right", "isosceles"))],
            "Right or isosceles triangle on its base.")
-def triangle(work, b, h, form="right", rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), rho, x_ref, y_ref, detail=detail)
+def triangle(work, b, h, form="right", **common):
+    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), **common)
 
 
 @_register("semicircle", [Param("d", L, "diameter")], "Semicircle, flat side down.")
-def semicircle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def semicircle(work, d, **common):
+    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), **common)
 
 
 @_register("polygon", [Param("points", L, "outline vertices (x, y) in order", kind="points")],
            "Any simple polygon, given by its vertices in order (either direction).")
-def polygon(work, points, rho=None, x_ref=None, y_ref=None, detail="full"):
+def polygon(work, points, **common):
     pts = [(_mm(px), _mm(py)) for px, py in points]
-    return _section(work, _build(work, lambda: S.polygon(pts)), rho, x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.polygon(pts)), **common)
 
 
 # ---------------------------------------------------------------- built-up sections
