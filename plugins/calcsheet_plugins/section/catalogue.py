@@ -23,8 +23,13 @@ EN_HOLLOW_SOURCE = "EN 10210-2:2019 hot-finished hollow sections (values as tabu
 
 # family -> (file, kind of geometric model)
 AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": ("HP", "I"), "C": ("C", "C-tapered"),
-              "MC": ("MC", "C-tapered"), "L": ("L", "L"), "WT": ("WT", "T"), "HSS": ("HSS_rect", "box-aisc"),
+              "MC": ("MC", "C"), "L": ("L", "L"), "WT": ("WT", "T"), "HSS": ("HSS_rect", "box-aisc"),
               "HSS_R": ("HSS_round", "tube"), "PIPE": ("Pipe", "tube")}
+
+
+# S shapes and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness
+# (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size: modelled with parallel flanges.
+AISC_FLANGE_SLOPE = 2 / 12
 
 
 @dataclass
@@ -108,13 +113,14 @@ def _aisc_entries():
             put("r_x", "rx", IN)
             put("r_y", "ry", IN)
             put("J", "J", IN**4)
+            put("r_o", "ro", IN)  # polar radius of gyration about the shear centre (C, MC, L, WT)
             put("I_2", "Iz", IN**4)  # angles: the minor principal axis
             put("r_min", "rz", IN)
             put("C_w", "Cw", IN**6)
             put("r_ts", "rts", IN)
             put("h_o", "ho", IN)
             put("mass", "weight", LB_FT)
-            if model in ("I", "I-tapered", "C-tapered", "T"):
+            if model in ("I", "I-tapered", "C-tapered", "C", "T"):
                 put("d", "d", IN)
                 put("b_f", "bf", IN)
                 put("t_f", "tf", IN)

@@ -86,6 +86,11 @@ DJ_STEPS = [
 ]
 
 
+def _dj(h, b, t_f, t_w, r):
+    alpha, D = dj_alpha_D(t_f, t_w, r)
+    return 2 / 3 * b * t_f**3 + (h - 2 * t_f) * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
+
+
 def ishape(h: float, b: float, t_f: float, t_w: float, r: float) -> Shape:
     """Doubly symmetric rolled I (parallel flanges) with four root fillets of radius r."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w, r=r)
@@ -233,3 +238,144 @@ def box(b: float, h: float, t: float, r_o: float, r_i: float) -> Shape:
               Dimension(b, h - t, b, h, _fmt(t), -1)],
         has_arcs=True, symmetry="double", closed=True,
     )
+
+
+# ---------------------------------------------------------------- corners of any angle (tapered flanges)
+
+def _corner(p, u1, u2, r):
+    """Tangent points and centre of the circle of radius r tangent to both edges at vertex p (edge directions
+    u1 in, u2 out)."""
+    cos_t = float(np.clip(np.dot(-u1, u2), -1.0, 1.0))
+    theta = math.acos(cos_t)  # the corner's angle between its two edges
+    L = r / math.tan(theta / 2)
+    bis = -u1 + u2
+    bis /= np.hypot(*bis)
+    c = p + bis * r / math.sin(theta / 2)
+    return p - L * u1, p + L * u2, c, theta
+
+
+def rounded_any(points, radii, segments: int = ARC_SEGMENTS) -> np.ndarray:
+    """As ``rounded``, for corners of any angle."""
+    pts = [np.asarray(p, float) for p in points]
+    n = len(pts)
+    out = []
+    for k in range(n):
+        p, r = pts[k], radii[k]
+        if r <= 0:
+            out.append(p)
+            continue
+        u1 = p - pts[k - 1]
+        u1 /= np.hypot(*u1)
+        u2 = pts[(k + 1) % n] - p
+        u2 /= np.hypot(*u2)
+        t1, t2, c, theta = _corner(p, u1, u2, r)
+        a1 = math.atan2(*(t1 - c)[::-1])
+        a2 = math.atan2(*(t2 - c)[::-1])
+        d = (a2 - a1 + math.pi) % (2 * math.pi) - math.pi
+        m = max(4, int(round(segments * abs(d) / (2 * math.pi))))
+        t = np.linspace(a1, a1 + d, m + 1)
+        out.extend(np.column_stack([c[0] + r * np.cos(t), c[1] + r * np.sin(t)]))
+    return np.array(out)
+
+
+def triangle_row(name, p0, p1, p2, sign=1) -> Row:
+    """A triangle's area, centroid and centroidal moments, I = (A/12)·Σ(y_i − ȳ)² etc. (any vertex order)."""
+    xs = np.array([p0[0], p1[0], p2[0]], float)
+    ys = np.array([p0[1], p1[1], p2[1]], float)
+    A = abs((xs[1] - xs[0]) * (ys[2] - ys[0]) - (xs[2] - xs[0]) * (ys[1] - ys[0])) / 2
+    xc, yc = xs.mean(), ys.mean()
+    dx, dy = xs - xc, ys - yc
+    return Row(name, A, float(xc), float(yc), float(A / 12 * (dy @ dy)), float(A / 12 * (dx @ dx)),
+               float(A / 12 * (dx @ dy)), sign=sign)
+
+
+def sector_row(name, c, r, a_mid, alpha, sign=1) -> Row:
+    """Circular sector of radius r and angle alpha about centre c, its bisector at angle a_mid.
+
+    About the centre, with u along the bisector: ∬v² = r⁴/8·(α − sin α), ∬u² = r⁴/8·(α + sin α); the centroid
+    lies 4r·sin(α/2)/(3α) along the bisector."""
+    A = r * r * alpha / 2
+    Iuu = r**4 / 8 * (alpha - math.sin(alpha))  # ∬v²
+    Ivv = r**4 / 8 * (alpha + math.sin(alpha))  # ∬u²
+    cs, sn = math.cos(a_mid), math.sin(a_mid)
+    Ixx = Iuu * cs * cs + Ivv * sn * sn  # ∬y² about the centre
+    Iyy = Iuu * sn * sn + Ivv * cs * cs
+    Ixy = (Ivv - Iuu) * sn * cs
+    d = 4 * r * math.sin(alpha / 2) / (3 * alpha)
+    gx, gy = d * cs, d * sn
+    return Row(name, A, float(c[0] + gx), float(c[1] + gy), Ixx - A * gy * gy, Iyy - A * gx * gx, Ixy - A * gx * gy,
+               sign=sign)
+
+
+def corner_rows(name, p, prev, nxt, r, sign=1) -> list[Row]:
+    """The region between a corner of any angle and its tangent circle: kite (two triangles) less a sector."""
+    p, prev, nxt = (np.asarray(v, float) for v in (p, prev, nxt))
+    u1 = (p - prev) / np.hypot(*(p - prev))
+    u2 = (nxt - p) / np.hypot(*(nxt - p))
+    t1, t2, c, theta = _corner(p, u1, u2, r)
+    a1 = math.atan2(*(t1 - c)[::-1])
+    a2 = math.atan2(*(t2 - c)[::-1])
+    d = (a2 - a1 + math.pi) % (2 * math.pi) - math.pi
+    return [triangle_row(f"{name} (triangle)", p, t1, c, sign), triangle_row(f"{name} (triangle)", p, c, t2, sign),
+            sector_row(f"{name} (sector)", c, r, a1 + d / 2, abs(d), -sign)]
+
+
+def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: float) -> Shape:
+    """Rolled I with tapered flanges (inner faces at ``slope``, t_f the mean thickness, reached at the middle of
+    the outstand) and root fillets r; toe radii not modelled."""
+    _positive(h=h, b=b, t_f=t_f, t_w=t_w)
+    o = (b - t_w) / 2
+    t_toe, t_root = t_f - slope * o / 2, t_f + slope * o / 2
+    if t_toe <= 0 or 2 * t_root >= h:
+        raise ShapeError("the tapered flanges do not fit these dimensions", "t_f")
+    xl, xr = (b - t_w) / 2, (b + t_w) / 2
+    pts = [(0, 0), (b, 0), (b, t_toe), (xr, t_root), (xr, h - t_root), (b, h - t_toe), (b, h), (0, h), (0, h - t_toe),
+           (xl, h - t_root), (xl, t_root), (0, t_toe)]
+    radii = [0, 0, 0, r, r, 0, 0, 0, 0, r, r, 0]
+    rows = [_rect_row("bottom flange, toe thickness", 0, 0, b, t_toe), _rect_row("top flange, toe thickness", 0, h - t_toe, b, t_toe),
+            _rect_row("web", xl, t_toe, t_w, h - 2 * t_toe)]
+    for side, (x0, x1) in (("right", (xr, b)), ("left", (xl, 0))):
+        rows.append(triangle_row(f"bottom taper, {side}", (x0, t_toe), (x1, t_toe), (x0, t_root)))
+        rows.append(triangle_row(f"top taper, {side}", (x0, h - t_toe), (x1, h - t_toe), (x0, h - t_root)))
+    n = len(pts)
+    if r > 0:
+        for k in (3, 4, 9, 10):
+            rows += corner_rows(f"fillet {k}", pts[k], pts[k - 1], pts[(k + 1) % n], r)
+    return Shape(
+        "ishape", f"rolled I, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm",
+        rows, [make_ring(rounded_any(pts, radii))], J=_dj(h, b, t_f, t_w, r),
+        J_method=DJ_METHOD + ", with the flanges at their mean thickness t_f", J_steps=list(DJ_STEPS),
+        dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1)],
+        has_arcs=True, warping=WP.doubly_symmetric_I(), symmetry="double",
+    )
+
+
+def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float) -> Shape:
+    """Channel with tapered flanges (t_f the mean thickness, at the middle of the outstand b − t_w), web on the
+    left, root fillets r; toe radii not modelled."""
+    _positive(h=h, b=b, t_f=t_f, t_w=t_w)
+    o = b - t_w
+    t_toe, t_root = t_f - slope * o / 2, t_f + slope * o / 2
+    if t_toe <= 0 or 2 * t_root >= h:
+        raise ShapeError("the tapered flanges do not fit these dimensions", "t_f")
+    pts = [(0, 0), (b, 0), (b, t_toe), (t_w, t_root), (t_w, h - t_root), (b, h - t_toe), (b, h), (0, h)]
+    radii = [0, 0, 0, r, r, 0, 0, 0]
+    rows = [_rect_row("web", 0, 0, t_w, h), _rect_row("bottom flange, toe thickness", t_w, 0, o, t_toe),
+            _rect_row("top flange, toe thickness", t_w, h - t_toe, o, t_toe),
+            triangle_row("bottom taper", (t_w, t_toe), (b, t_toe), (t_w, t_root)),
+            triangle_row("top taper", (t_w, h - t_toe), (b, h - t_toe), (t_w, h - t_root))]
+    if r > 0:
+        for k in (3, 4):
+            rows += corner_rows(f"fillet {k}", pts[k], pts[k - 1], pts[(k + 1) % len(pts)], r)
+    return Shape(
+        "channel", f"channel, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm",
+        rows, [make_ring(rounded_any(pts, radii))], J=(2 * b * t_f**3 + (h - 2 * t_f) * t_w**3) / 3,
+        J_method=THIN_OPEN_TAPER, J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4",
+                                                "torsion constant (thin-walled, mean flange thickness)")],
+        dims=[Dimension(0, 0, b, 0, _fmt(b), -1), Dimension(0, h, 0, 0, _fmt(h), -1)],
+        has_arcs=True, warping=WP.channel(), symmetry="horizontal",
+    )
+
+
+THIN_OPEN_TAPER = ("Saint-Venant's thin-walled open-section sum J = Σ b·t³/3 with the flanges at their mean "
+                   "thickness (taper and fillets ignored in J)")

@@ -135,11 +135,9 @@ def rectangle(work, b, h, **common):
                          choices=("sharp", "EN 10210-2", "EN 10219-2", "AISC"))],
            "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides); corners sharp, or rounded "
            "by r_out/r_in or a product standard's rule.")
-def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", rho=None, x_ref=None,
-        y_ref=None, detail="full"):
+def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", **common):
     if corners == "sharp" and r_out is None and r_in is None:
-        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref,
-                        y_ref, detail=detail)
+        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), **common)
     if t is None or t_f is not None or t_w is not None:
         work.fail("rounded corners need one uniform wall t", param="t" if t is None else "t_f" if t_f is not None
                   else "t_w")
@@ -154,8 +152,7 @@ def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="
         if r_out is None or r_in is None:
             work.fail("give both corner radii r_out and r_in", param="r_in" if r_out is not None else "r_out")
         ro, ri = _mm(r_out), _mm(r_in)
-    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), rho, x_ref, y_ref,
-                    detail=detail)
+    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), **common)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
@@ -178,48 +175,43 @@ R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp cor
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
            "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, **common):
     if r is not None:
         if b_bot is not None or t_fb is not None:
             work.fail("root fillets are modelled on equal flanges only", param="r")
-        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
-                    rho, x_ref, y_ref, detail=detail)
+                    **common)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                        Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness"), R],
            "Channel (parallel flanges), web on the left, flanges pointing right; root fillets r.")
-def channel(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def channel(work, h, b, t_f, t_w, r=None, **common):
     if r is not None:
-        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
-                    detail=detail)
+        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                    Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness"), R],
            "Tee, flange on top; root fillets r.")
-def tee(work, h, b, t_f, t_w, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def tee(work, h, b, t_f, t_w, r=None, **common):
     if r is not None:
-        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), rho,
-                        x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref,
-                    detail=detail)
+        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
                      Param("b", L, "horizontal leg (default h: equal angle)", default=None), R],
            "Equal or unequal angle, heel at the bottom-left; root fillet r.")
-def angle(work, h, t, b=None, r=None, rho=None, x_ref=None, y_ref=None, detail="full"):
+def angle(work, h, t, b=None, r=None, **common):
     if r is not None:
         if b is None:
             work.calc("b", "h", unit="mm", desc="horizontal leg (equal angle)")
         return _section(work, _build(work, lambda: FL.angle(_mm(h), _mm(b if b is not None else h), _mm(t), _mm(r))),
-                        rho, x_ref, y_ref, detail=detail)
-    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
+                        **common)
+    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), **common)
 
 
 @_register("triangle", [Param("b", L, "base"), Param("h", L, "height"),
@@ -352,13 +344,15 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
 
 COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
-            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02))
+            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
 _MODEL_NOTE = {
     "I": "rolled I with parallel flanges and four root fillets of radius r",
-    "I-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
-                 "with root fillets, so the model is approximate",
-    "C-tapered": "the flanges are tapered (slope 1:6); modelled as parallel flanges of the average thickness t_f "
-                 "with root fillets, so the model is approximate",
+    "I-tapered": "I with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, and "
+                 "four root fillets r (toe radii not modelled)",
+    "C-tapered": "channel with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, "
+                 "and two root fillets r (toe radii not modelled)",
+    "C": "channel with parallel flanges of the tabulated t_f and two root fillets r (an MC's own flange slope, "
+         "which varies by size, is not modelled)",
     "T": "tee cut from a rolled I, two root fillets of radius r",
     "L": "angle with a root fillet of radius r (toe radii not modelled)",
     "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
@@ -413,7 +407,7 @@ def _model(work, entry):
 
 def _model_shape(work, entry, g, let, dims):
     m = entry.model
-    if m in ("I", "I-tapered", "C-tapered", "T"):
+    if m in ("I", "I-tapered", "C-tapered", "C", "T"):
         for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
                      ("t_w", "web thickness")):
             let(n, g[n], d)
@@ -421,7 +415,11 @@ def _model_shape(work, entry, g, let, dims):
         if m == "T":
             return FL.tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
         if m == "C-tapered":
+            return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        if m == "C":
             return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "I-tapered":
+            return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
         return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
     if m == "L":
         let("h", g["h"], "vertical leg d")
@@ -455,6 +453,9 @@ def _model_shape(work, entry, g, let, dims):
     doc="A rolled or hollow section from a published table: the table's values, beside the section's own "
         "geometric model (fillets, corner radii) and their deviation.")
 def rolled(work, designation, x_ref=None, y_ref=None):
+    if len(designation) > 40:
+        work.fail(f"a designation is a short name such as W18X50 or IPE 300 (this one has {len(designation)} "
+                  "characters)", param="designation")
     entry = C.lookup(designation)
     if entry is None:
         near = C.nearest(designation)
@@ -489,8 +490,7 @@ def rolled(work, designation, x_ref=None, y_ref=None):
                note="Table values as published, in the table's units; deviation = (model − table)/table.")
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
-                  + ", ".join(worst) + (" (tapered flanges are modelled as parallel)" if "tapered" in entry.model
-                                        else ""), param="designation")
+                  + ", ".join(worst), param="designation")
     else:
         work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
                   "properties.", kind="agreement")

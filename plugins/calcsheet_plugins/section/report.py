@@ -74,9 +74,9 @@ def _compact_table_steps(work, shape) -> None:
     work.let("x_c", _q(xc, "mm"), unit="mm", desc="centroid, x", note="Σ Aᵢ·xᵢ / Σ Aᵢ over the table")
     work.let("y_c", _q(yc, "mm"), unit="mm", desc="centroid, y", note="Σ Aᵢ·yᵢ / Σ Aᵢ over the table")
     work.let("I_x", _q(sums[0] + sums[1], "mm^4"), unit="mm^4", desc="second moment about the centroidal x axis",
-             note="Σ I_o,x + Σ A·d_y², " + _COLUMN_SUMS + "s")
+             note="Σ I_o,x + Σ A·d_y², sums of the columns in the parts table")
     work.let("I_y", _q(sums[2] + sums[3], "mm^4"), unit="mm^4", desc="second moment about the centroidal y axis",
-             note="Σ I_o,y + Σ A·d_x², " + _COLUMN_SUMS + "s")
+             note="Σ I_o,y + Σ A·d_x², sums of the columns in the parts table")
     ixy = 0.0 if shape.symmetry != "none" else sums[4]
     work.let("I_xy", _q(ixy, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
              note="the section is symmetric about an axis parallel to x or y" if shape.symmetry != "none"

@@ -94,3 +94,62 @@ def test_rounded_box_needs_one_wall_and_one_way_of_giving_radii(run):
     (e,) = [d for d in run('s = section.box(b=100 mm, h=150 mm, t=6 mm, r_out=9 mm, corners="EN 10210-2")\n')
             .diagnostics if d.severity == "error"]
     assert "not both" in e.message
+
+
+def test_a_sector_row_against_shapely():
+    # sector of 100° about (3, 4), bisector at 30°
+    r, alpha, mid = 20.0, math.radians(100), math.radians(30)
+    row = FL.sector_row("s", (3.0, 4.0), r, mid, alpha)
+    t = np.linspace(mid - alpha / 2, mid + alpha / 2, 20001)
+    pts = np.vstack([[3.0, 4.0], np.column_stack([3 + r * np.cos(t), 4 + r * np.sin(t)])])
+    poly = shapely.Polygon(pts)
+    assert row.A == pytest.approx(poly.area, rel=1e-6)
+    assert (row.x, row.y) == pytest.approx((poly.centroid.x, poly.centroid.y), rel=1e-6)
+    g = green([make_ring(pts)])
+    assert (row.Iox, row.Ioy, row.Ioxy) == pytest.approx((g.I_x, g.I_y, g.I_xy), rel=1e-6)
+
+
+def test_a_fillet_in_an_obtuse_corner_is_the_region_shapely_cuts():
+    # corner of a sloped flange face meeting a vertical web face (slope 1:6), fillet radius 10
+    p, prev, nxt = (0.0, 20.0), (60.0, 10.0), (0.0, 80.0)  # flange face coming in toward the web, then up the web
+    rows = FL.corner_rows("f", p, prev, nxt, 10.0)
+    A = sum(rw.sign * rw.A for rw in rows)
+    # the fillet is the part of the corner's wedge not reached by the tangent circle (common practice)
+    u1 = np.subtract(p, prev) / np.hypot(*np.subtract(p, prev))
+    u2 = np.subtract(nxt, p) / np.hypot(*np.subtract(nxt, p))
+    t1, t2, c, theta = FL._corner(np.array(p), u1, u2, 10.0)
+    kite = shapely.Polygon([p, t1, c, t2])
+    disc = shapely.Point(*c).buffer(10.0, quad_segs=8192)
+    assert A == pytest.approx(kite.difference(disc).area, rel=1e-6)
+    assert A == pytest.approx(10.0**2 * (1 / math.tan(theta / 2) - (math.pi - theta) / 2), rel=1e-9)
+
+
+def test_tapered_flanges_parts_table_and_outline_agree():
+    # the traced rows (rectangles, taper triangles, fillet kites less sectors) against Green's theorem
+    for shp in (FL.tapered_ishape(304.8, 127.0, 13.8, 10.1, 10.0, 1 / 6),
+                FL.tapered_channel(254.0, 69.6, 11.1, 9.6, 8.0, 1 / 6)):
+        a, b = tabular(shp.rows), green(shp.rings)
+        assert (a.A, a.I_x, a.I_y) == pytest.approx((b.A, b.I_x, b.I_y), rel=2e-6)
+
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+
+@settings(max_examples=25, deadline=None)
+@given(h=st.floats(100, 1000), bf=st.floats(0.3, 1.0), tf=st.floats(0.02, 0.08), tw=st.floats(0.3, 0.9),
+       rr=st.floats(0.1, 2.0))
+def test_any_filleted_I_parts_table_and_outline_agree_and_fillets_only_add(h, bf, tf, tw, rr):
+    b = bf * h
+    t_f = tf * h
+    t_w = tw * t_f
+    r = rr * t_f
+    if t_w + 2 * r > b or 2 * t_f + 2 * r > h:
+        return
+    shp = FL.ishape(h, b, t_f, t_w, r)
+    rows, outline = tabular(shp.rows), green(shp.rings)
+    assert abs(rows.A - outline.A) / rows.A < 5e-5
+    assert abs(rows.I_x - outline.I_x) / (rows.I_x + rows.I_y) < 5e-5
+    assert abs(rows.I_y - outline.I_y) / (rows.I_x + rows.I_y) < 5e-5
+    plain = tabular(S.ishape(h, b, t_f, t_w).rows)
+    assert rows.A > plain.A and rows.I_x > plain.I_x and rows.I_y > plain.I_y

@@ -52,3 +52,22 @@ def test_a_transformed_section_carries_its_modular_ratio(run):
         s = section.built_up(parts=[section.part(shape=a, E=10 GPa), section.part(shape=a, y=10 mm, E=200 GPa)])
     """)
     assert r.values["s"].fields["n_max"].m_as("") == pytest.approx(20.0)  # n = E_steel/E_timber (common practice)
+
+
+def test_q_at_the_fillet_toe_of_a_catalogue_I_against_shapely(run):
+    import numpy as np
+    import shapely
+
+    r = run("""
+        s = section.rolled(designation="IPE 300")
+        c = section.Q_at(shape=s, y=s.h - s.t_f - s.r)
+    """)
+    assert not errors(r), r.diagnostics
+    ring = r.values["s"].payload.rings[0]
+    poly = shapely.Polygon(np.column_stack([ring.x, ring.y]))
+    y = 300 - 10.7 - 15
+    above = poly.intersection(shapely.box(-1, y, 200, 400))
+    q = above.area * (above.centroid.y - poly.centroid.y)  # Q = A'·ȳ' (shapely area and centroids)
+    f = r.values["c"].fields
+    assert f["Q"].m_as("mm^3") == pytest.approx(q, rel=1e-9)
+    assert f["t"].m_as("mm") == pytest.approx(7.1, rel=1e-6)  # the web, below the fillets

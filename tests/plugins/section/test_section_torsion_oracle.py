@@ -43,7 +43,7 @@ def mm(q, u="mm"):
 def test_rolled_I_with_fillets(run):
     # IPE 300 geometry (EN 10365): J by El Darwish & Johnston, C_w = I_y·h_o²/4 (AISC 360-16 F2 user note)
     f = traced(run, "section.ishape(h=300 mm, b=150 mm, t_f=10.7 mm, t_w=7.1 mm, r=15 mm)")
-    s = fe(FL.ishape(300.0, 150.0, 10.7, 7.1, 15.0), 40)
+    s = fe(FL.ishape(300.0, 150.0, 10.7, 7.1, 15.0), 80)
     assert mm(f["J"], "mm^4") == pytest.approx(s.get_j(), rel=0.01)
     assert mm(f["C_w"], "mm^6") == pytest.approx(s.get_gamma(), rel=0.02)
     assert mm(f["C_w"], "mm^6") == pytest.approx(mm(f["I_y"], "mm^4") * (300 - 10.7) ** 2 / 4, rel=1e-12)
@@ -86,7 +86,7 @@ def test_angle(run):
 def test_box_with_corner_radii_by_bredt(run):
     # Bredt–Batho J = 4·A_m²·t/p + p·t³/3 on the rounded mid-line (EN 10210-2 Annex form)
     f = traced(run, "section.box(b=100 mm, h=150 mm, t=6.3 mm, r_out=9.45 mm, r_in=6.3 mm)")
-    s = fe(FL.box(100.0, 150.0, 6.3, 9.45, 6.3), 40)
+    s = fe(FL.box(100.0, 150.0, 6.3, 9.45, 6.3), 80)
     assert mm(f["J"], "mm^4") == pytest.approx(s.get_j(), rel=0.02)
     assert (mm(f["x_s"]), mm(f["y_s"])) == pytest.approx(s.get_sc(), abs=0.1)
     t, Rc = 6.3, (9.45 + 6.3) / 2
