@@ -99,7 +99,7 @@ def _k_h(work, g, product, name: str, h, chain: Chain, axis: str):
         work.let(name, work.q(1.0, ""), desc=f"depth factor, bending about {axis}",
                  note=f"{t['source']}: the depth {hm:g} mm is at least {t['h_ref']} mm")
         return 1.0
-    work.calc(name, f"min(({t['h_ref']} mm)/{scope_h})^{t['exponent']}, {t['cap']})", unit="1",
+    work.calc(name, f"min((({t['h_ref']} mm)/{scope_h})^{t['exponent']}, {t['cap']})", unit="1",
               desc=f"depth factor, bending about {axis}, {t['source']}")
     v = float(work.scope[name].m_as(""))
     chain.add(name, v, f"depth {hm:g} mm below {t['h_ref']} mm ({t['source'].split(', ')[-1]})")
