@@ -50,8 +50,12 @@ class Chain:
         work.table(title, ["factor", "value", "why it applies"], [[r[0], f"{r[1]:.3g}", r[2]] for r in self.rows])
         # the governing factor: the one that lowers the resistance most (γ_M counts as 1/γ_M)
         effect = [(r[1] if r[3] else 1 / r[1], r[0]) for r in self.rows if r[1] > 0]
+        if not effect:
+            return "none"
         lowest = min(effect)
-        if lowest[0] < 1:
+        if lowest[0] >= 1:
+            work.note("No factor in the chain reduces the resistance.", kind="method")
+        else:
             work.note(f"Governing factor: {lowest[1]} (multiplies the resistance by {lowest[0]:.3g}, the largest "
                       f"reduction in the chain).", kind="method")
         return lowest[1]

@@ -53,8 +53,7 @@ class Member:
                           "(NDS Supplement Table 4A)", param="b")
 
     def ref(self, work, key, name, desc):
-        unit = "psi"
-        work.let(name, work.q(float(self.v[key]), unit), desc=desc, note=self.source)
+        work.let(name, work.q(float(self.v[key]), "psi"), unit="psi", desc=desc, note=self.source)
 
 
 def _common_factors(work, m: Member, load_duration, wet, temperature, incised, chain: Chain, need=PROPS):
@@ -382,9 +381,8 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
                 work.fail(f"f_c ≥ F_cE1: Eq. (3.9-3) requires f_c < F_cE1 ({STD} 3.9.2)", param="P")
             lu = l_u if l_u is not None else L
             _bending(work, m, lu, loading, "no", "no", chain)
-            sc["F_b1_p"] = work["F_b_p"]
             work.calc("f_b1", "M_x/S_x", unit="psi", desc="edgewise bending stress")
-            terms.append("f_b1/(F_b1_p*(1 - f_c/F_cE_x))")
+            terms.append("f_b1/(F_b_p*(1 - f_c/F_cE_x))")
             out["C_L"] = work["C_L"]
         if M_y is not None:
             if fc >= float(work["F_cE_y"].m_as("psi")):
