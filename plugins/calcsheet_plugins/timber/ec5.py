@@ -483,21 +483,9 @@ COLUMN_FIELDS = [
 ]
 
 
-@namespace.function("ec5_column", params=COLUMN_PARAMS, fields=COLUMN_FIELDS, returns="timber.column")
-def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l_ef_z=None, service_class=1,
-               duration="medium-term", annex="recommended", k_sys="no", braced="no",
-               load_case="simply-supported-constant-moment", load_position="centroid"):
-    """A rectangular column, post or beam-column: 6.2.4 (6.19)/(6.20) or 6.3.2 (6.23)/(6.24), and 6.3.3 (6.35)."""
-    _positive(work, b=b, h=h, L=L, l_ef_y=l_ef_y, l_ef_z=l_ef_z)
-    if N_d.magnitude < 0:
-        work.fail("N_d is the compression: give it as a positive value (tension is 6.1.2, not built here)",
-                  param="N_d")
+def _buckling(work, g, product, L, l_ef_y, l_ef_z, chain: Chain):
+    """6.3.2: relative slenderness (6.21)/(6.22) and k_c (6.25)-(6.29) about both axes of a rectangle."""
     sc = work.scope
-    chain = Chain()
-    g, product, sc_ = _setup(work, grade, service_class, duration, annex, k_sys, chain)
-    for name, label in (("f_c_0_k", "compression parallel to the grain"), ("f_m_k", "bending")):
-        work.let(name, work.q(float(g[name]), "MPa"), desc=f"characteristic {label} strength", note=g["source"])
-    work.let("E_0_05", work.q(float(g["E_0_05"]), "GPa"), desc="5th-percentile modulus", note=g["source"])
     sc["l_ef_y"] = l_ef_y if l_ef_y is not None else L
     sc["l_ef_z"] = l_ef_z if l_ef_z is not None else L
     work.calc("A", "b*h", unit="mm^2", desc="area")
@@ -513,7 +501,6 @@ def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l
     beta = float(D.ec5()["beta_c"][product])
     work.let("beta_c", work.q(beta, ""), desc=f"straightness factor, {product} timber",
              note=f"{STD} 6.3.2(3), Eq. (6.29)")
-    stocky = lam_y <= 0.3 and lam_z <= 0.3
     for ax, lam, eqk, eqc in (("y", lam_y, "(6.27)", "(6.25)"), ("z", lam_z, "(6.28)", "(6.26)")):
         if lam <= 0.3:
             work.calc(f"k_c_{ax}", "1", unit="1",
@@ -525,6 +512,26 @@ def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l
                       desc=f"instability factor about {ax}, {STD} 6.3.2(3) Eq. {eqc}")
             chain.add(f"k_c,{ax}", float(work[f"k_c_{ax}"].m_as("")),
                       f"flexural buckling about {ax}, λ_rel,{ax} = {lam:.3f} > 0.3 (6.3.2(3))")
+    return lam_y, lam_z
+
+
+@namespace.function("ec5_column", params=COLUMN_PARAMS, fields=COLUMN_FIELDS, returns="timber.column")
+def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l_ef_z=None, service_class=1,
+               duration="medium-term", annex="recommended", k_sys="no", braced="no",
+               load_case="simply-supported-constant-moment", load_position="centroid"):
+    """A rectangular column, post or beam-column: 6.2.4 (6.19)/(6.20) or 6.3.2 (6.23)/(6.24), and 6.3.3 (6.35)."""
+    _positive(work, b=b, h=h, L=L, l_ef_y=l_ef_y, l_ef_z=l_ef_z)
+    if N_d.magnitude < 0:
+        work.fail("N_d is the compression: give it as a positive value (tension is 6.1.2, not built here)",
+                  param="N_d")
+    sc = work.scope
+    chain = Chain()
+    g, product, sc_ = _setup(work, grade, service_class, duration, annex, k_sys, chain)
+    for name, label in (("f_c_0_k", "compression parallel to the grain"), ("f_m_k", "bending")):
+        work.let(name, work.q(float(g[name]), "MPa"), desc=f"characteristic {label} strength", note=g["source"])
+    work.let("E_0_05", work.q(float(g["E_0_05"]), "GPa"), desc="5th-percentile modulus", note=g["source"])
+    lam_y, lam_z = _buckling(work, g, product, L, l_ef_y, l_ef_z, chain)
+    stocky = lam_y <= 0.3 and lam_z <= 0.3
     work.calc("sigma_c_0_d", "N_d/A", unit="MPa", desc="design compression stress")
     work.calc("f_c_0_d", "k_mod*k_sys*f_c_0_k/gamma_M", unit="MPa", desc=f"design compression strength, {STD} Eq. (2.14)")
     terms_y, terms_z = [], []
@@ -571,4 +578,100 @@ def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l
     _finish(work, out, {"U_y": f"compression{' and bending' if terms_y else ''} about y {eq[0]}",
                         "U_z": f"compression{' and bending' if terms_z else ''} about z {eq[1]}",
                         "U_ltb": "bending with lateral torsional buckling and compression (6.35)"})
+    return out
+
+
+# ================================================================== single checks
+_RECT = [GRADE, Param("b", "[length]", "breadth"), Param("h", "[length]", "depth")]
+
+
+@namespace.function(
+    "ec5_k_c",
+    params=[*_RECT, Param("l_ef_y", "[length]", "buckling length about y"),
+            Param("l_ef_z", "[length]", "buckling length about z (default l_ef_y)", default=None)],
+    fields=[Field("lambda_rel_y"), Field("lambda_rel_z"), Field("k_c_y"), Field("k_c_z")],
+    returns="timber.k_c",
+)
+def ec5_k_c(work, grade, b, h, l_ef_y, l_ef_z=None):
+    """Instability factors k_c,y and k_c,z of a rectangle (6.3.2, (6.21)-(6.29))."""
+    _positive(work, b=b, h=h, l_ef_y=l_ef_y, l_ef_z=l_ef_z)
+    g = _grade(work, grade)
+    work.let("f_c_0_k", work.q(float(g["f_c_0_k"]), "MPa"), desc="characteristic compression strength",
+             note=g["source"])
+    work.let("E_0_05", work.q(float(g["E_0_05"]), "GPa"), desc="5th-percentile modulus", note=g["source"])
+    _buckling(work, g, g["product"], l_ef_y, l_ef_y, l_ef_z if l_ef_z is not None else l_ef_y, Chain())
+    return {k: work[k] for k in ("lambda_rel_y", "lambda_rel_z", "k_c_y", "k_c_z")}
+
+
+@namespace.function(
+    "ec5_k_crit",
+    params=[*_RECT, Param("L", "[length]", "span"),
+            Param("load_case", kind="text", choices=D.l_ef_cases(), doc="Table 6.1 case",
+                  default="simply-supported-uniform-load"),
+            Param("load_position", kind="text", choices=("centroid", "compression-edge", "tension-edge"),
+                  doc="where the load acts (Table 6.1 note)", default="compression-edge"),
+            Param("l_ef", "[length]", "effective length (overrides Table 6.1)", default=None)],
+    fields=[Field("sigma_m_crit", "[pressure]", "critical bending stress (6.31)/(6.32)"),
+            Field("lambda_rel_m", doc="(6.30)"), Field("k_crit", doc="(6.34)")],
+    returns="timber.k_crit",
+)
+def ec5_k_crit(work, grade, b, h, L, load_case="simply-supported-uniform-load", load_position="compression-edge",
+               l_ef=None):
+    """Lateral torsional stability factor k_crit of a rectangular beam (6.3.3)."""
+    _positive(work, b=b, h=h, L=L, l_ef=l_ef)
+    g = _grade(work, grade)
+    work.let("f_m_k", work.q(float(g["f_m_k"]), "MPa"), desc="characteristic bending strength", note=g["source"])
+    _k_crit(work, g, g["product"], b, h, L, l_ef, load_case, load_position, "no", Chain())
+    return {k: work[k] for k in ("sigma_m_crit", "lambda_rel_m", "k_crit")}
+
+
+@namespace.function(
+    "ec5_bearing",
+    params=[*_RECT, Param("L", "[length]", "span (for the clear distance l_1 to the next bearing)"),
+            Param("F_c90_d", "[force]", "design support reaction"), Param("l_b", "[length]", "bearing length"),
+            Param("b_b", "[length]", "bearing width (default b)", default=None),
+            Param("a_end", "[length]", "distance from the member end (default 0)", default=None),
+            Param("support", kind="text", choices=("discrete", "continuous"), doc="6.1.5(4)",
+                  default="discrete"),
+            *PARAMS_COMMON],
+    fields=[Field("k_c90"), Field("sigma_c90_d", "[pressure]"), Field("f_c90_d", "[pressure]"),
+            Field("U_bearing", doc="(6.3)")],
+    returns="timber.bearing",
+)
+def ec5_bearing(work, grade, b, h, L, F_c90_d, l_b, b_b=None, a_end=None, support="discrete", service_class=1,
+                duration="medium-term", annex="recommended", k_sys="no"):
+    """Compression perpendicular to the grain at a support (6.1.5, A1:2008 text)."""
+    _positive(work, b=b, h=h, L=L)
+    g, product, _ = _setup(work, grade, service_class, duration, annex, k_sys, Chain())
+    out = {}
+    _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out)
+    return {k: work[k] for k in ("k_c90", "sigma_c90_d", "f_c90_d", "U_bearing")}
+
+
+@namespace.function(
+    "ec5_deflection",
+    params=[*_RECT, Param("L", "[length]", "span"),
+            Param("w_G", "[force]/[length]", "characteristic permanent line load", default=None),
+            Param("w_Q", "[force]/[length]", "characteristic variable line load", default=None),
+            Param("u_G", "[length]", "instantaneous deflection, permanent", default=None),
+            Param("u_Q", "[length]", "instantaneous deflection, variable", default=None),
+            Param("psi_2", doc="quasi-permanent factor (EN 1990 Table A1.1)", default=None),
+            Param("limit_inst", doc="span/limit for u_inst", default=None),
+            Param("limit_fin", doc="span/limit for u_fin", default=None),
+            Param("service_class", doc="service class 1, 2 or 3", default=1)],
+    fields=[Field("k_def"), Field("u_inst", "[length]"), Field("u_fin", "[length]"), Field("U_inst"),
+            Field("U_fin")],
+    returns="timber.deflection",
+)
+def ec5_deflection(work, grade, b, h, L, w_G=None, w_Q=None, u_G=None, u_Q=None, psi_2=None, limit_inst=None,
+                   limit_fin=None, service_class=1):
+    """Instantaneous and final deflection with creep (2.3.2.2 (2.3)/(2.4), k_def Table 3.2)."""
+    _positive(work, b=b, h=h, L=L)
+    g = _grade(work, grade)
+    if all(v is None for v in (w_G, w_Q, u_G, u_Q)):
+        work.fail("give w_G and w_Q, or u_G and u_Q", param="w_G")
+    out = {}
+    _deflection(work, g, g["product"], _service_class(work, service_class), L, w_G, w_Q, u_G, u_Q, psi_2,
+                limit_inst, limit_fin, out)
+    out["k_def"] = work["k_def"]
     return out

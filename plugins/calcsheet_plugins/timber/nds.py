@@ -418,3 +418,36 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
     out["factor"] = chain.table(work, f"Adjustment factors for F_c, {STD}")
     _finish(work, out, names)
     return out
+
+
+# ================================================================== timber.nds_adjusted
+@namespace.function(
+    "nds_adjusted",
+    params=[*COMMON[:5], *ADJ,
+            Param("repetitive", kind="flag", doc="repetitive member (4.3.9)", default="no"),
+            Param("flat_use", kind="flag", doc="bent about the weak axis, load on the wide face", default="no")],
+    fields=[Field("C_D"), Field("F_b_p", "[pressure]", "F'_b with C_L = 1 (compression edge braced)"),
+            Field("F_v_p", "[pressure]", "F'_v"), Field("F_c_star", "[pressure]", "F_c* (all factors but C_P)"),
+            Field("F_c_perp_p", "[pressure]", "F'_c⊥ (C_b = 1)"), Field("E_p", "[pressure]", "E'"),
+            Field("E_min_p", "[pressure]", "E'_min"), Field("factor", kind="text")],
+    returns="timber.nds_adjusted",
+)
+def nds_adjusted(work, species, grade, size=None, b=None, d=None, load_duration="10 years", wet="no",
+                 temperature="normal", incised="no", repetitive="no", flat_use="no"):
+    """Adjusted design values F' = F × the applicable factors (NDS 2018 Table 4.3.1 / 5.3.1), braced member."""
+    m = Member(work, species, grade, size, b, d)
+    chain = Chain()
+    _common_factors(work, m, load_duration, wet, temperature, incised, chain)
+    _bending(work, m, None, "any", repetitive, flat_use, chain)
+    m.ref(work, "F_v", "F_v", "reference shear design value")
+    work.calc("F_v_p", "F_v*C_D*C_M_v*C_t_v*C_i_v", unit="psi", desc=f"adjusted shear design value F'_v, {STD} Table 4.3.1")
+    m.ref(work, "F_c", "F_c", "reference compression parallel to grain")
+    cf = "C_F_c" if m.product == "sawn" else "1"
+    work.calc("F_c_star", f"F_c*C_D*C_M_c*C_t_c*{cf}*C_i_c", unit="psi",
+              desc=f"F_c* = F_c times every factor except C_P, {STD} 3.7.1.5")
+    m.ref(work, "F_c_perp", "F_c_perp", "reference compression perpendicular to grain")
+    work.calc("F_c_perp_p", "F_c_perp*C_M_cp*C_t_cp*C_i_cp", unit="psi",
+              desc=f"adjusted F'_c⊥ (C_b = 1), {STD} Table 4.3.1")
+    out = {k: work[k] for k in ("C_D", "F_b_p", "F_v_p", "F_c_star", "F_c_perp_p", "E_p", "E_min_p")}
+    out["factor"] = chain.table(work, f"Adjustment factors, {STD}")
+    return out

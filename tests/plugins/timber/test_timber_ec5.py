@@ -207,3 +207,22 @@ def test_a_wrong_dimension_at_the_call_is_caught_before_running():
 def test_an_unknown_class_is_refused_with_a_suggestion():
     errs = errors('x = timber.ec5_grade(grade="C25")\n')
     assert errs and "C24" in (errs[0].hint or "") + errs[0].message
+
+
+# ------------------------------------------------------------------ single checks stay callable
+def test_single_checks_agree_with_the_member_calls_and_the_equations():
+    r = run("""
+        a = timber.ec5_k_c(grade="C24", b=100 mm, h=200 mm, l_ef_y=3.75 m)
+        c = timber.ec5_column(grade="C24", b=100 mm, h=200 mm, L=3.75 m, N_d=30 kN)
+        k = timber.ec5_k_crit(grade="C24", b=75 mm, h=225 mm, L=3.6 m)
+        br = timber.ec5_bearing(grade="C24", b=75 mm, h=225 mm, L=4 m, F_c90_d=8 kN, l_b=75 mm, a_end=40 mm)
+        df = timber.ec5_deflection(grade="C24", b=75 mm, h=225 mm, L=4 m, u_G=3 mm, u_Q=6 mm, psi_2=0.3,
+            limit_inst=300, limit_fin=250, service_class=2)
+    """)
+    for key in ("k_c_y", "k_c_z", "lambda_rel_y", "lambda_rel_z"):
+        assert f(r, "a", key) == pytest.approx(f(r, "c", key), rel=1e-12)
+    lam = math.sqrt(24 / (0.78 * 75**2 * 7400 / (225 * (0.9 * 3600 + 2 * 225))))     # (6.30), (6.32)
+    assert f(r, "k", "k_crit") == pytest.approx(1.56 - 0.75 * lam, rel=1e-9)         # (6.34)
+    # 6.1.5(1): 30 mm added on both sides (a = 40 mm ≥ 30 mm from the end); k_c,90 = 1.5 (6.1.5(4))
+    assert f(r, "br", "U_bearing") == pytest.approx(8e3 / (75 * (75 + 60)) / (1.5 * 0.8 * 2.5 / 1.3), rel=1e-9)
+    assert f(r, "df", "u_fin", "mm") == pytest.approx(3 * 1.8 + 6 * (1 + 0.3 * 0.8), rel=1e-9)  # (2.3), (2.4)

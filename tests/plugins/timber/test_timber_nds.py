@@ -148,3 +148,18 @@ def test_wet_service_waives_C_M_for_low_F_b_times_C_F():
     assert f(r, "a", "F_b_p", "psi") == pytest.approx(900 * 1.1)
     assert f(r, "s", "F_b_p", "psi") == pytest.approx(1500 * 1.1 * 0.85)
     assert f(r, "a", "F_v_p", "psi") == pytest.approx(180 * 0.97)
+
+
+def test_adjusted_values_multiply_the_applicable_factors_of_table_4_3_1():
+    r = run("""
+        a = timber.nds_adjusted(species="Spruce-Pine-Fir", grade="No.1/No.2", size="2x6", wet="yes",
+            temperature="100F-125F", incised="yes", repetitive="yes")
+    """)
+    # SPF No.1/No.2 (Table 4A, from memory): F_b 875, F_v 135, F_c 1150, F_c⊥ 425, E_min 510 000 psi.
+    # Wet: C_M waived for F_b (875·1.3 ≤ 1150 psi), 0.97 F_v, 0.8 F_c, 0.67 F_c⊥, 0.9 E (Table 4A);
+    # 100-125 °F wet: C_t 0.7 (F_b, F_v, F_c, F_c⊥), 0.9 (E) (Table 2.3.3); incised: 0.8, E 0.95 (Table 4.3.8)
+    assert f(r, "a", "F_b_p", "psi") == pytest.approx(875 * 1.0 * 0.7 * 1.3 * 0.8 * 1.15)
+    assert f(r, "a", "F_v_p", "psi") == pytest.approx(135 * 0.97 * 0.7 * 0.8)
+    assert f(r, "a", "F_c_star", "psi") == pytest.approx(1150 * 0.8 * 0.7 * 1.1 * 0.8)
+    assert f(r, "a", "F_c_perp_p", "psi") == pytest.approx(425 * 0.67 * 0.7)
+    assert f(r, "a", "E_min_p", "psi") == pytest.approx(510_000 * 0.9 * 0.9 * 0.95)
