@@ -223,6 +223,9 @@ def _k_crit(work, g, product, b, h, L, l_ef, load_case, load_position, braced, c
         why = {"centroid": "load at the centroid", "compression-edge": "load on the compression edge: + 2h",
                "tension-edge": "load on the tension edge: − 0.5h"}[load_position]
         work.calc("l_ef", f"l_ef_ratio*L{extra}", unit="mm", desc=f"effective length, Table 6.1 ({why})")
+        if work["l_ef"].magnitude <= 0:
+            work.fail(f"the effective length of Table 6.1 is not positive for this span and depth ({STD} 6.3.3(3)):"
+                      f" give l_ef", param="L")
     else:
         work.scope["l_ef"] = l_ef
     if "E_0_05" not in work:
@@ -368,6 +371,15 @@ def _deflection(work, g, product, sc_, L, w_G, w_Q, u_G, u_Q, psi_2, limit_inst,
     if psi_2 is None:
         work.fail("give psi_2, the quasi-permanent factor of the variable action (EN 1990 Table A1.1), for the "
                   "final deflection (2.3.2.2 Eq. (2.4))", param="w_G" if w_G is not None else "u_G")
+    where = "w_G" if w_G is not None else "u_G"
+    if not 0 <= _num(psi_2) <= 1:
+        work.fail("psi_2 must lie between 0 and 1 (EN 1990 Table A1.1)", param="psi_2")
+    for k, v in (("limit_inst", limit_inst), ("limit_fin", limit_fin)):
+        if _num(v) <= 0:
+            work.fail(f"{k} is span/limit: give a positive number such as 300", param=k)
+    for k, v in (("w_G", w_G), ("w_Q", w_Q), ("u_G", u_G), ("u_Q", u_Q)):
+        if v is not None and v.magnitude < 0:
+            work.fail(f"{k} must not be negative", param=k)
     sc = work.scope
     kd = D.k_def(product, sc_)
     work.let("k_def", work.q(kd, ""), desc=f"deformation factor, {product} timber, service class {sc_}",
@@ -524,6 +536,9 @@ def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l
     if N_d.magnitude < 0:
         work.fail("N_d is the compression: give it as a positive value (tension is 6.1.2, not built here)",
                   param="N_d")
+    for k, v in (("M_y_d", M_y_d), ("M_z_d", M_z_d)):
+        if v is not None and v.magnitude < 0:
+            work.fail(f"{k} is a magnitude: give it as a positive value", param=k)
     sc = work.scope
     chain = Chain()
     g, product, sc_ = _setup(work, grade, service_class, duration, annex, k_sys, chain)

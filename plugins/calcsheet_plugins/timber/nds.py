@@ -249,6 +249,12 @@ def nds_beam(work, species, grade, L, M, V, size=None, b=None, d=None, load_dura
              limit_ST=None, limit_T=None):
     """A sawn-lumber or glulam beam to the NDS 2018 (ASD): bending with C_L/C_V, shear, bearing, deflection."""
     _positive(work, L=L)
+    for k, v in (("M", M), ("V", V), ("R", R), ("w_LT", w_LT), ("w_ST", w_ST)):
+        if v is not None and v.magnitude < 0:
+            work.fail(f"{k} is a magnitude: give it as a positive value", param=k)
+    for k, v in (("limit_ST", limit_ST), ("limit_T", limit_T)):
+        if v is not None and float(v.m_as("") if hasattr(v, "m_as") else v) <= 0:
+            work.fail(f"{k} is span/limit: give a positive number such as 360", param=k)
     m = Member(work, species, grade, size, b, d)
     chain = Chain()
     _common_factors(work, m, load_duration, wet, temperature, incised, chain, need=("b", "v", "cp", "E"))
@@ -331,7 +337,11 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
     """A solid sawn or glulam column, post or beam-column to the NDS 2018 (ASD): C_P (3.7.1), 3.9.2."""
     _positive(work, L=L, l_e_x=l_e_x, l_e_y=l_e_y)
     if P.magnitude < 0:
-        work.fail("P is the compression: give it as a positive value", param="P")
+        work.fail("P is the compression: give it as a positive value (tension members, 3.8, are not built)",
+                  param="P")
+    for k, v in (("M_x", M_x), ("M_y", M_y)):
+        if v is not None and v.magnitude < 0:
+            work.fail(f"{k} is a magnitude: give it as a positive value", param=k)
     m = Member(work, species, grade, size, b, d)
     f = D.nds()
     sc = work.scope

@@ -226,3 +226,19 @@ def test_single_checks_agree_with_the_member_calls_and_the_equations():
     # 6.1.5(1): 30 mm added on both sides (a = 40 mm ≥ 30 mm from the end); k_c,90 = 1.5 (6.1.5(4))
     assert f(r, "br", "U_bearing") == pytest.approx(8e3 / (75 * (75 + 60)) / (1.5 * 0.8 * 2.5 / 1.3), rel=1e-9)
     assert f(r, "df", "u_fin", "mm") == pytest.approx(3 * 1.8 + 6 * (1 + 0.3 * 0.8), rel=1e-9)  # (2.3), (2.4)
+
+
+@pytest.mark.parametrize("extra, where", [
+    ("psi_2=1.5, limit_inst=300, limit_fin=250", "psi_2=1.5"),
+    ("psi_2=0.3, limit_inst=0, limit_fin=250", "limit_inst=0"),
+])
+def test_deflection_inputs_are_validated_where_they_are_given(extra, where):
+    body = ('x = timber.ec5_beam(grade="C24", b=75 mm, h=200 mm, L=3 m, M_d=1 kN*m, V_d=1 kN, w_G=1 kN/m, '
+            f'w_Q=1 kN/m, {extra})')
+    errs = errors(body + "\n")
+    assert len(errs) == 1 and errs[0].span.col == body.index(where) + 1
+
+
+def test_a_negative_moment_is_refused_rather_than_lowering_the_utilisation():
+    errs = errors('x = timber.ec5_column(grade="C24", b=100 mm, h=200 mm, L=3 m, N_d=10 kN, M_y_d=-2 kN*m)\n')
+    assert errs and "magnitude" in errs[0].message
