@@ -96,3 +96,14 @@ def test_nds_factor_tables():
     assert f["K_cr"]["seasoned-dry"] == 1.5                      # 3.5.2
     assert D.nds_sizes()["2x10"] == [1.5, 9.25]                  # Table 1B dressed size (common practice)
     assert D.nds_sizes()["4x6"] == [3.5, 5.5]
+
+
+@pytest.mark.parametrize("name, f_c0k, E_005", [
+    # Porteous & Kermani, Structural Timber Design to Eurocode 5: Table 5.3 headings (C24, C27, C30, C35) and
+    # Examples 5.7.1 (C16) and 5.7.5 (C22), as reproduced at eurocode.us. They quote BS EN 338:2003, whose
+    # f_c,0,k and E_0,05 are the same as the 2009 edition's for these classes.
+    ("C16", 17, 5.4), ("C22", 20, 6.7), ("C24", 21, 7.4), ("C27", 22, 7.7), ("C30", 23, 8.0), ("C35", 25, 8.7),
+])
+def test_compression_values_match_a_published_design_guide(name, f_c0k, E_005):
+    g = D.ec5_grades()[name]
+    assert (g["f_c_0_k"], g["E_0_05"]) == (f_c0k, pytest.approx(E_005))
