@@ -100,7 +100,8 @@ def test_nds_factor_tables():
 
 @pytest.mark.parametrize("name, f_c0k, E_005", [
     # Porteous & Kermani, Structural Timber Design to Eurocode 5: Table 5.3 headings (C24, C27, C30, C35) and
-    # Examples 5.7.1 (C16) and 5.7.5 (C22), as reproduced at eurocode.us. They quote BS EN 338:2003, whose
+    # two worked examples (a C16 column, a C22 lattice column), as reproduced at eurocode.us/structural-timber-
+    # design (pages info-rbu-1, info-fis-1, info-tof). They quote BS EN 338:2003, whose
     # f_c,0,k and E_0,05 are the same as the 2009 edition's for these classes.
     ("C16", 17, 5.4), ("C22", 20, 6.7), ("C24", 21, 7.4), ("C27", 22, 7.7), ("C30", 23, 8.0), ("C35", 25, 8.7),
 ])
