@@ -95,7 +95,14 @@ def nds_sizes() -> dict[str, list[float]]:
 
 
 def nds_durations() -> tuple[str, ...]:
-    return tuple(k for k in nds()["C_D"] if k not in ("source", "why"))
+    """Table 2.3.2 durations, then the spelled-out names the loads plugin's combinations use."""
+    t = nds()["C_D"]
+    return tuple(k for k in t if k not in ("source", "why", "aliases")) + tuple(t["aliases"])
+
+
+def nds_duration(name: str) -> str:
+    """The Table 2.3.2 key for a duration written either way ("2 months" or "two months")."""
+    return nds()["C_D"]["aliases"].get(name, name)
 
 
 def nds_le_cases() -> tuple[str, ...]:

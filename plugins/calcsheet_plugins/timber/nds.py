@@ -59,6 +59,7 @@ class Member:
 def _common_factors(work, m: Member, load_duration, wet, temperature, incised, chain: Chain, need=PROPS):
     """C_D, C_M, C_t, C_F, C_i for the properties in ``need``."""
     f = D.nds()
+    load_duration = D.nds_duration(load_duration)
     cd = float(f["C_D"][load_duration])
     work.let("C_D", work.q(cd, ""), desc=f"load duration factor, {load_duration} ({f['C_D']['why'][load_duration]})",
              note=f["C_D"]["source"])

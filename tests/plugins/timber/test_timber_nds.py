@@ -163,3 +163,12 @@ def test_adjusted_values_multiply_the_applicable_factors_of_table_4_3_1():
     assert f(r, "a", "F_c_star", "psi") == pytest.approx(1150 * 0.8 * 0.7 * 1.1 * 0.8)
     assert f(r, "a", "F_c_perp_p", "psi") == pytest.approx(425 * 0.67 * 0.7)
     assert f(r, "a", "E_min_p", "psi") == pytest.approx(510_000 * 0.9 * 0.9 * 0.95)
+
+
+def test_a_combination_names_its_duration_either_way():
+    # the loads plugin's combinations spell durations out ("two months"); Table 2.3.2 writes "2 months"
+    r = run("""
+        a = timber.nds_adjusted(species="Douglas Fir-Larch", grade="No.2", size="2x8", load_duration="two months")
+        b = timber.nds_adjusted(species="Douglas Fir-Larch", grade="No.2", size="2x8", load_duration="2 months")
+    """)
+    assert f(r, "a", "C_D") == f(r, "b", "C_D") == 1.15        # NDS 2018 Table 2.3.2, snow
