@@ -242,3 +242,38 @@ def test_deflection_inputs_are_validated_where_they_are_given(extra, where):
 def test_a_negative_moment_is_refused_rather_than_lowering_the_utilisation():
     errs = errors('x = timber.ec5_column(grade="C24", b=100 mm, h=200 mm, L=3 m, N_d=10 kN, M_y_d=-2 kN*m)\n')
     assert errs and "magnitude" in errs[0].message
+
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+
+@given(b=st.integers(38, 120), h=st.integers(100, 400), L=st.integers(1500, 9000), sc=st.sampled_from([1, 2, 3]))
+@settings(max_examples=20, deadline=None)
+def test_any_rectangular_c24_beam_matches_the_clause_equations(b, h, L, sc):
+    # spans every range of k_crit (6.34) and both branches of k_h (3.1)
+    r = run(f"""
+        j = timber.ec5_beam(grade="C24", b={b} mm, h={h} mm, L={L} mm, M_d=5 kN*m, V_d=5 kN,
+            service_class={sc}, F_c90_d=5 kN, l_b=60 mm, w_G=0.5 kN/m, w_Q=1 kN/m, psi_2=0.3,
+            limit_inst=300, limit_fin=250)
+    """)
+    hand = ec5_beam_by_hand(b, h, L, 5.0, 5.0, 5.0, 60, 0.5, 1.0, 0.3, sc)
+    k_h = min((150 / h) ** 0.2, 1.3) if h < 150 else 1.0
+    for key in ("U_bending", "U_shear", "U_bearing", "k_crit"):
+        assert f(r, "j", key) == pytest.approx(hand[key], rel=1e-9), key
+    assert f(r, "j", "k_h") == pytest.approx(k_h)
+
+
+def test_the_factor_chain_is_a_table_with_a_reason_for_each_factor():
+    from calcsheet.trace import Note, Table
+    r = run("""
+        g = timber.ec5_beam(grade="GL24h", b=90 mm, h=450 mm, L=6 m, M_d=40 kN*m, V_d=25 kN)
+    """)
+    items = r.values["g"].working.items
+    table = next(i for i in items if isinstance(i, Table))
+    assert table.columns == ["factor", "value", "why it applies"]
+    assert [row[0] for row in table.rows] == ["k_mod", "γ_M", "k_h", "k_crit"]
+    assert all(row[2] for row in table.rows)
+    notes = [i.text for i in items if isinstance(i, Note)]
+    assert any(t.startswith("Governing factor: k_crit") for t in notes)
+    assert any(t.startswith("Governing check: bending") for t in notes)
