@@ -6,8 +6,6 @@ files are recorded with their table; a case outside what is built is a located e
 """
 from __future__ import annotations
 
-import math
-
 from calcsheet.plugin import Field, Param
 
 from . import data as D
@@ -371,7 +369,6 @@ def _deflection(work, g, product, sc_, L, w_G, w_Q, u_G, u_Q, psi_2, limit_inst,
     if psi_2 is None:
         work.fail("give psi_2, the quasi-permanent factor of the variable action (EN 1990 Table A1.1), for the "
                   "final deflection (2.3.2.2 Eq. (2.4))", param="w_G" if w_G is not None else "u_G")
-    where = "w_G" if w_G is not None else "u_G"
     if not 0 <= _num(psi_2) <= 1:
         work.fail("psi_2 must lie between 0 and 1 (EN 1990 Table A1.1)", param="psi_2")
     for k, v in (("limit_inst", limit_inst), ("limit_fin", limit_fin)):
@@ -428,13 +425,13 @@ def ec5_beam(work, grade, b, h, L, M_d, V_d, service_class=1, duration="medium-t
     chain = Chain()
     g, product, sc_ = _setup(work, grade, service_class, duration, annex, k_sys, chain)
     work.let("f_m_k", work.q(float(g["f_m_k"]), "MPa"), desc="characteristic bending strength", note=g["source"])
-    k_h = _k_h(work, g, product, "k_h", h, chain, "y")
+    _k_h(work, g, product, "k_h", h, chain, "y")
     # bending, 6.1.6 and 6.3.3
     work.calc("W_y", "b*h^2/6", unit="mm^3", desc="section modulus about the major axis")
     work.calc("sigma_m_d", "M_d/W_y", unit="MPa", desc="design bending stress")
     work.calc("f_m_d", "k_mod*k_h*k_sys*f_m_k/gamma_M", unit="MPa",
               desc=f"design bending strength, {STD} 2.4.1 Eq. (2.14) with k_h (3.2/3.3) and k_sys (6.6)")
-    kcrit = _k_crit(work, g, product, b, h, L, l_ef, load_case, load_position, braced, chain)
+    _k_crit(work, g, product, b, h, L, l_ef, load_case, load_position, braced, chain)
     work.calc("U_bending", "sigma_m_d/(k_crit*f_m_d)", unit="1",
               desc=f"bending utilisation, {STD} 6.1.6 Eq. (6.11) with k_crit, 6.3.3 Eq. (6.33)")
     # shear, 6.1.7

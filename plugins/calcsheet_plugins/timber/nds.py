@@ -259,7 +259,6 @@ def nds_beam(work, species, grade, L, M, V, size=None, b=None, d=None, load_dura
     m = Member(work, species, grade, size, b, d)
     chain = Chain()
     _common_factors(work, m, load_duration, wet, temperature, incised, chain, need=("b", "v", "cp", "E"))
-    sc = work.scope
     if _flag(flat_use):
         work.calc("S", "d*b^2/6", unit="in^3", desc="section modulus, flatwise")
     else:
@@ -379,7 +378,7 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
     work.calc("C_P", "(1 + F_cE/F_c_star)/(2*c) - sqrt(((1 + F_cE/F_c_star)/(2*c))^2 - (F_cE/F_c_star)/c)",
               unit="1", desc=f"column stability factor, {STD} 3.7.1 Eq. (3.7-1)")
     chain.add("C_P", float(work["C_P"].m_as("")), "column stability (3.7.1)")
-    work.calc("F_c_p", f"F_c_star*C_P", unit="psi", desc=f"adjusted compression design value F'_c, {STD} Table 4.3.1")
+    work.calc("F_c_p", "F_c_star*C_P", unit="psi", desc=f"adjusted compression design value F'_c, {STD} Table 4.3.1")
     work.calc("f_c", "P/A", unit="psi", desc="compression stress")
     work.calc("U_axial", "f_c/F_c_p", unit="1", desc=f"compression, f_c ≤ F'_c ({STD} 3.6.3)")
     out = {k: work[k] for k in ("C_D", "C_P", "F_c_p", "f_c", "F_cE", "U_axial")}
