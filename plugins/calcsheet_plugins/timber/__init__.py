@@ -23,7 +23,7 @@ namespace = Namespace("timber", version="0.1.0",
 # The standards and editions this plugin implements (the contract has no field for it yet: an attribute the
 # package's design-basis block can read).
 namespace.standards = (
-    "EN 1995-1-1:2004+A1:2008 (+A2:2014)",
+    "EN 1995-1-1:2004+AC:2006+A1:2008",
     "EN 338:2009 (strength classes)",
     "EN 14080:2013 (glulam strength classes)",
     "ANSI/AWC NDS-2018 (ASD) and NDS Supplement 2018",
