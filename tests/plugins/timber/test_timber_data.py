@@ -60,7 +60,8 @@ def test_strength_and_stiffness_grow_with_the_class():
 
 
 def test_k_mod_table_3_1():
-    # EN 1995-1-1 Table 3.1, solid timber and glulam (from memory)
+    # EN 1995-1-1 Table 3.1, solid timber and glulam, as reproduced in the ICE Manual of Structural Design:
+    # Buildings (2012), Table 19.9 (read at what-when-how.com, ICE-Manual-of-Structural-Design-Buildings-368)
     assert [D.k_mod("solid", 1, d) for d in D.durations()] == [0.6, 0.7, 0.8, 0.9, 1.1]
     assert [D.k_mod("solid", 3, d) for d in D.durations()] == [0.5, 0.55, 0.65, 0.7, 0.9]
     for product in ("solid", "glulam"):
