@@ -284,7 +284,7 @@ BEAM_PARAMS = [
     Param("b_b", "[length]", "bearing width (default b)", default=None),
     Param("a_end", "[length]", "distance from the member end to the bearing (default 0: an end bearing)",
           default=None),
-    Param("support", kind="text", choices=("discrete", "continuous"), doc="support kind for k_c,90 (6.1.5(4))",
+    Param("support", kind="text", choices=("discrete", "continuous"), doc="support kind for k_c,90 (6.1.5(4)-(6))",
           default="discrete"),
     Param("w_G", "[force]/[length]", "characteristic permanent line load, simply supported (deflection)",
           default=None),
@@ -341,11 +341,11 @@ def _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out):
     kc = float(t["default"])
     why = "k_c,90 = 1.0"
     if g["kind"] != "softwood":
-        why = "hardwood: the increased values of 6.1.5(4) are for softwood only"
+        why = "hardwood: the increased values of 6.1.5(4)-(6) are for softwood only"
     elif not l1_ok:
-        why = "l_1 < 2h: the increased values of 6.1.5(4) do not apply"
+        why = "l_1 < 2h: the increased values of 6.1.5(4)-(6) do not apply"
     elif support == "discrete" and product == "glulam" and l_b.m_as("mm") > t["discrete_glulam_l_max"]:
-        why = f"glulam on a discrete support with l > {t['discrete_glulam_l_max']} mm: 6.1.5(4) gives 1.0"
+        why = f"glulam on a discrete support with l > {t['discrete_glulam_l_max']} mm: 6.1.5(4)-(6) gives 1.0"
     else:
         kc = float(t[support][product])
         why = f"{product} softwood on {support} supports, l_1 ≥ 2h"
@@ -643,7 +643,7 @@ def ec5_k_crit(work, grade, b, h, L, load_case="simply-supported-uniform-load", 
             Param("F_c90_d", "[force]", "design support reaction"), Param("l_b", "[length]", "bearing length"),
             Param("b_b", "[length]", "bearing width (default b)", default=None),
             Param("a_end", "[length]", "distance from the member end (default 0)", default=None),
-            Param("support", kind="text", choices=("discrete", "continuous"), doc="6.1.5(4)",
+            Param("support", kind="text", choices=("discrete", "continuous"), doc="6.1.5(4)-(6)",
                   default="discrete"),
             *PARAMS_COMMON],
     fields=[Field("k_c90"), Field("sigma_c90_d", "[pressure]"), Field("f_c90_d", "[pressure]"),
