@@ -89,7 +89,7 @@ def test_C_L_published_example():
 
 
 def test_C_L_is_continuous_across_the_rows_of_table_3_3_3():
-    rows = D.nds()["l_e"]["single-span-uniform-load"]
+    rows = D.nds()["l_e"]["any"]            # the footnote rows: the only case with a break at 14.3
     d, b, e_min, fb_star = 11.25, 1.5, 580_000.0, 1100.0
     for lim in (7.0, 14.3):
         below = EQ.l_e(rows, lim * d * (1 - 1e-9), d)[0]
@@ -110,3 +110,16 @@ def test_torsion_constant_of_a_square_against_the_exact_series():
     # St Venant constant of a square a×a: 0.1406·a⁴ (Timoshenko & Goodier, from memory)
     assert EQ.torsion_constant_rectangle(1.0, 1.0) == pytest.approx(0.1406, rel=0.01)
     assert math.isclose(EQ.sigma_m_crit_softwood(75, 225, 3690, 7400), 0.78 * 75**2 * 7400 / (225 * 3690))
+
+
+def test_table_3_3_3_rows_match_the_published_table():
+    # NDS Table 3.3.3 as reproduced at wikiengineer.com ("Effective length for wood bending members")
+    t = D.nds()["l_e"]
+    assert t["single-span-uniform-load"] == [[7, 2.06, 0], [1e9, 1.63, 3]]
+    assert t["cantilever-uniform-load"] == [[7, 1.33, 0], [1e9, 0.90, 3]]
+    assert t["cantilever-end-point-load"] == [[7, 1.87, 0], [1e9, 1.44, 3]]
+    assert t["single-span-central-point-load"] == [[7, 1.80, 0], [1e9, 1.37, 3]]
+    assert t["equal-end-moments"] == [[1e9, 1.84, 0]]
+    assert t["any"] == [[7, 2.06, 0], [14.3, 1.63, 3], [1e9, 1.84, 0]]
+    # a uniformly loaded single span with l_u/d = 20: 1.63·l_u + 3d, not the footnote's 1.84·l_u
+    assert EQ.l_e(t["single-span-uniform-load"], 20.0, 1.0)[0] == pytest.approx(1.63 * 20 + 3)
