@@ -228,6 +228,8 @@ ADJ = [
             Param("w_LT", "[force]/[length]", "long-term line load (dead + sustained live), simply supported",
                   default=None),
             Param("w_ST", "[force]/[length]", "short-term line load (live)", default=None),
+            Param("D_LT", "[length]", "deflection under the long-term load (instead of w_LT)", default=None),
+            Param("D_ST", "[length]", "deflection under the short-term load (instead of w_ST)", default=None),
             Param("K_cr", kind="text", choices=tuple(k for k in D.nds()["K_cr"] if k != "source"),
                   doc="creep case (3.5.2)", default=None),
             Param("limit_ST", doc="short-term deflection limit as span/limit (e.g. 360)", default=None),
@@ -246,8 +248,8 @@ ADJ = [
 )
 def nds_beam(work, species, grade, L, M, V, size=None, b=None, d=None, load_duration="10 years", wet="no",
              temperature="normal", incised="no", repetitive="no", flat_use="no", l_u=None,
-             loading="single-span-uniform-load", R=None, l_b=None, w_LT=None, w_ST=None, K_cr=None,
-             limit_ST=None, limit_T=None):
+             loading="single-span-uniform-load", R=None, l_b=None, w_LT=None, w_ST=None, D_LT=None, D_ST=None,
+             K_cr=None, limit_ST=None, limit_T=None):
     """A sawn-lumber or glulam beam to the NDS 2018 (ASD): bending with C_L/C_V, shear, bearing, deflection."""
     _positive(work, L=L)
     for k, v in (("M", M), ("V", V), ("R", R), ("w_LT", w_LT), ("w_ST", w_ST)):
@@ -286,19 +288,32 @@ def nds_beam(work, species, grade, L, M, V, size=None, b=None, d=None, load_dura
         work.calc("f_c_perp", "R/(b*l_b)", unit="psi", desc="bearing stress")
         work.calc("U_bearing", "f_c_perp/F_c_perp_p", unit="1", desc=f"bearing, f_c⊥ ≤ F'_c⊥ ({STD} 3.10.2)")
         out["U_bearing"] = work["U_bearing"]
-    if w_LT is not None or w_ST is not None:
-        if w_LT is None or w_ST is None or limit_ST is None or limit_T is None:
-            work.fail("deflection needs w_LT, w_ST and the limits limit_ST and limit_T the sheet sets",
-                      param="w_LT" if w_LT is not None else "w_ST")
+    loads_given = w_LT is not None or w_ST is not None
+    defl_given = D_LT is not None or D_ST is not None
+    if loads_given or defl_given:
+        where = "w_LT" if w_LT is not None else "w_ST" if w_ST is not None else "D_LT" if D_LT is not None else "D_ST"
+        if loads_given and defl_given:
+            work.fail("give the line loads w_LT, w_ST or the deflections D_LT, D_ST, not both", param=where)
+        pair = (w_LT, w_ST) if loads_given else (D_LT, D_ST)
+        if None in pair or limit_ST is None or limit_T is None:
+            work.fail("deflection needs both long- and short-term parts (w_LT and w_ST, or D_LT and D_ST) and the "
+                      "limits limit_ST and limit_T the sheet sets", param=where)
+        for k, v in (("D_LT", D_LT), ("D_ST", D_ST)):
+            if v is not None and v.magnitude < 0:
+                work.fail(f"{k} is a magnitude: give it as a positive value", param=k)
         f = D.nds()["K_cr"]
         case = K_cr or ("glulam-" if m.product == "glulam" else "seasoned-") + ("wet" if _flag(wet) else "dry")
         if case == "seasoned-wet":
             case = "unseasoned-or-wet"
         work.let("K_cr", work.q(float(f[case]), ""), desc=f"creep factor, {case}", note=f["source"])
-        work.calc("I", "b*d^3/12" if not _flag(flat_use) else "d*b^3/12", unit="in^4", desc="second moment of area")
-        work.calc("Delta_LT", "5*w_LT*L^4/(384*E_p*I)", unit="in",
-                  desc="deflection under the long-term load, simply supported, 5wL⁴/(384E'I)")
-        work.calc("Delta_ST", "5*w_ST*L^4/(384*E_p*I)", unit="in", desc="deflection under the short-term load")
+        if loads_given:
+            work.calc("I", "b*d^3/12" if not _flag(flat_use) else "d*b^3/12", unit="in^4",
+                      desc="second moment of area")
+            work.calc("Delta_LT", "5*w_LT*L^4/(384*E_p*I)", unit="in",
+                      desc="deflection under the long-term load, simply supported, 5wL⁴/(384E'I)")
+            work.calc("Delta_ST", "5*w_ST*L^4/(384*E_p*I)", unit="in", desc="deflection under the short-term load")
+        else:
+            work.scope["Delta_LT"], work.scope["Delta_ST"] = D_LT, D_ST
         work.calc("Delta_T", "K_cr*Delta_LT + Delta_ST", unit="in", desc=f"total deflection with creep, {STD} 3.5.2")
         work.calc("U_defl_ST", "Delta_ST/(L/limit_ST)", unit="1", desc="short-term deflection against span/limit_ST")
         work.calc("U_defl_T", "Delta_T/(L/limit_T)", unit="1", desc="total deflection against span/limit_T")

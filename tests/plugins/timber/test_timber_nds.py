@@ -172,3 +172,15 @@ def test_a_combination_names_its_duration_either_way():
         b = timber.nds_adjusted(species="Douglas Fir-Larch", grade="No.2", size="2x8", load_duration="2 months")
     """)
     assert f(r, "a", "C_D") == f(r, "b", "C_D") == 1.15        # NDS 2018 Table 2.3.2, snow
+
+
+def test_deflections_from_an_analysis_take_the_creep_factor():
+    r = run("""
+        j = timber.nds_beam(species="Douglas Fir-Larch", grade="No.2", size="2x10", L=13 ft, M=1000 lbf*ft,
+            V=300 lbf, D_LT=0.1 in, D_ST=0.3 in, limit_ST=360, limit_T=240)
+    """)
+    assert f(r, "j", "Delta_T", "in") == pytest.approx(1.5 * 0.1 + 0.3)        # 3.5.2, K_cr = 1.5 (dry lumber)
+    assert f(r, "j", "U_defl_T") == pytest.approx((1.5 * 0.1 + 0.3) / (156 / 240))
+    errs = errors('x = timber.nds_beam(species="Douglas Fir-Larch", grade="No.2", size="2x10", L=13 ft, '
+                  'M=1 lbf*ft, V=1 lbf, D_LT=0.1 in, limit_ST=360, limit_T=240)\n')
+    assert errs and "D_ST" in errs[0].message
