@@ -41,7 +41,10 @@ class Chain:
     def __init__(self):
         self.rows: list[list] = []
 
+    WHY_MAX = 70  # characters: the table's cells do not wrap on the page
+
     def add(self, name: str, value: float, why: str, reduces: bool = True):
+        assert len(why) <= self.WHY_MAX, why
         self.rows.append([name, value, why, reduces])
 
     def table(self, work, title: str):
@@ -76,7 +79,7 @@ def _setup(work, grade, service_class, duration, annex, k_sys, chain: Chain):
         t = D.ec5()["k_sys"]
         ks = float(t["value"])
         work.let("k_sys", work.q(ks, ""), desc="system strength factor", note=f"{t['source']}: {t['why']}")
-        chain.add("k_sys", ks, t["why"] + " (6.6)")
+        chain.add("k_sys", ks, "members share the load through a distribution system (6.6(2))")
     else:
         work.let("k_sys", work.q(1.0, ""), desc="system strength factor (no load-distribution system)",
                  note=f"{STD} 6.6(1)")

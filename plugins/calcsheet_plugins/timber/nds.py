@@ -132,7 +132,7 @@ def _bending(work, m: Member, l_u, loading, repetitive, flat_use, chain: Chain, 
                       param="repetitive")
         work.let("C_r", work.q(float(f["C_r"]["value"]), ""), desc="repetitive member factor",
                  note=f"{f['C_r']['source']}: {f['C_r']['why']}")
-        chain.add("C_r", float(f["C_r"]["value"]), f["C_r"]["why"] + " (4.3.9)")
+        chain.add("C_r", float(f["C_r"]["value"]), "repetitive members, at most 24 in on centre (4.3.9)")
     else:
         work.let("C_r", work.q(1.0, ""), desc="repetitive member factor (not a repetitive system)",
                  note=f["C_r"]["source"])

@@ -184,3 +184,19 @@ def test_deflections_from_an_analysis_take_the_creep_factor():
     errs = errors('x = timber.nds_beam(species="Douglas Fir-Larch", grade="No.2", size="2x10", L=13 ft, '
                   'M=1 lbf*ft, V=1 lbf, D_LT=0.1 in, limit_ST=360, limit_T=240)\n')
     assert errs and "D_ST" in errs[0].message
+
+
+def test_every_reason_in_a_factor_table_fits_on_the_page():
+    # the package prints table cells without wrapping; a long reason would run off the page
+    from calcsheet.trace import Table
+    r = run("""
+        a = timber.nds_adjusted(species="Spruce-Pine-Fir", grade="No.1/No.2", size="2x6", wet="yes",
+            temperature="125F-150F", incised="yes", repetitive="yes", flat_use="yes", load_duration="impact")
+        p = timber.nds_column(species="Douglas Fir-Larch", grade="No.2", size="4x6", L=8.5 ft, P=3150 lbf,
+            M_x=459 lbf*ft, M_y=100 lbf*ft, load_duration="2 months")
+        e = timber.ec5_beam(grade="GL24c", b=90 mm, h=300 mm, L=6 m, M_d=10 kN*m, V_d=5 kN, k_sys="yes",
+            service_class=3, duration="instantaneous")
+    """)
+    for name in ("a", "p", "e"):
+        table = next(i for i in r.values[name].working.items if isinstance(i, Table))
+        assert all(len(row[2]) <= 70 for row in table.rows), name
