@@ -3,7 +3,7 @@
 Sheet syntax::
 
     j = timber.ec5_beam(grade="C24", b=75 mm, h=225 mm, L=3.6 m, M_d=M, V_d=V,
-                        service_class=2, duration="medium-term", F_c90_d=R, l_b=50 mm,
+                        service_class=2, duration="medium-term", F_c_90_d=R, l_b=50 mm,
                         w_G=w_g, w_Q=w_q, psi_2=0.3, limit_inst=300, limit_fin=250)
     check j.U_bending <= 1
     p = timber.ec5_column(grade="GL24h", b=140 mm, h=140 mm, L=3 m, N_d=N, M_y_d=M)

@@ -282,7 +282,7 @@ BEAM_PARAMS = [
     Param("load_position", kind="text", choices=("centroid", "compression-edge", "tension-edge"),
           doc="where the load acts on the depth (Table 6.1 note)", default="compression-edge"),
     Param("l_ef", "[length]", "effective length for lateral torsional buckling (overrides Table 6.1)", default=None),
-    Param("F_c90_d", "[force]", "design support reaction for the bearing check", default=None),
+    Param("F_c_90_d", "[force]", "design support reaction for the bearing check", default=None),
     Param("l_b", "[length]", "bearing length along the grain", default=None),
     Param("b_b", "[length]", "bearing width (default b)", default=None),
     Param("a_end", "[length]", "distance from the member end to the bearing (default 0: an end bearing)",
@@ -323,10 +323,10 @@ def _positive(work, **vals):
             work.fail(f"{k} must be greater than zero", param=k)
 
 
-def _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out):
+def _bearing(work, g, product, b, h, L, F_c_90_d, l_b, b_b, a_end, support, out):
     """6.1.5, A1:2008 text: σ_c,90,d ≤ k_c,90·f_c,90,d (6.3), σ_c,90,d = F_c,90,d/A_ef (6.4)."""
     if l_b is None:
-        work.fail("give the bearing length l_b with F_c90_d", param="F_c90_d")
+        work.fail("give the bearing length l_b with F_c_90_d", param="F_c_90_d")
     _positive(work, l_b=l_b, b_b=b_b)
     t = D.ec5()["k_c90"]
     sc = work.scope
@@ -339,7 +339,7 @@ def _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out):
               desc="extension into the span, 6.1.5(1) (≤ 30 mm, ≤ l, ≤ l_1/2)")
     work.calc("A_ef", "b_b*(l_b + Delta_l_1 + Delta_l_2)", unit="mm^2",
               desc="effective contact area, 6.1.5(1)")
-    work.calc("sigma_c90_d", "F_c90_d/A_ef", unit="MPa", desc=f"design bearing stress, {STD} 6.1.5 Eq. (6.4)")
+    work.calc("sigma_c_90_d", "F_c_90_d/A_ef", unit="MPa", desc=f"design bearing stress, {STD} 6.1.5 Eq. (6.4)")
     l1_ok = sc["l_1"].m_as("mm") >= 2 * h.m_as("mm")
     kc = float(t["default"])
     why = "k_c,90 = 1.0"
@@ -352,11 +352,12 @@ def _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out):
     else:
         kc = float(t[support][product])
         why = f"{product} softwood on {support} supports, l_1 ≥ 2h"
-    work.let("k_c90", work.q(kc, ""), desc="bearing factor k_c,90", note=f"{t['source']}: {why}")
-    work.calc("f_c90_d", f"k_mod*k_sys*{g['f_c_90_k']} MPa/gamma_M", unit="MPa",
-              desc=f"design compression strength perpendicular to the grain, f_c,90,k = {g['f_c_90_k']} MPa "
-                   f"({g['source']}), Eq. (2.14)")
-    work.calc("U_bearing", "sigma_c90_d/(k_c90*f_c90_d)", unit="1", desc=f"bearing utilisation, {STD} 6.1.5 Eq. (6.3)")
+    work.let("k_c_90", work.q(kc, ""), desc="bearing factor k_c,90", note=f"{t['source']}: {why}")
+    work.let("f_c_90_k", work.q(float(g["f_c_90_k"]), "MPa"), unit="MPa",
+             desc="characteristic compression strength perpendicular to the grain", note=g["source"])
+    work.calc("f_c_90_d", "k_mod*k_sys*f_c_90_k/gamma_M", unit="MPa",
+              desc=f"design compression strength perpendicular to the grain, {STD} 2.4.1 Eq. (2.14)")
+    work.calc("U_bearing", "sigma_c_90_d/(k_c_90*f_c_90_d)", unit="1", desc=f"bearing utilisation, {STD} 6.1.5 Eq. (6.3)")
     out["U_bearing"] = work["U_bearing"]
 
 
@@ -385,7 +386,9 @@ def _deflection(work, g, product, sc_, L, w_G, w_Q, u_G, u_Q, psi_2, limit_inst,
     work.let("k_def", work.q(kd, ""), desc=f"deformation factor, {product} timber, service class {sc_}",
              note=f"{STD} 3.1.4, Table 3.2")
     if w_G is not None:
-        work.calc("E_0_mean", f"{g['E_0_mean']} GPa", unit="GPa", desc=f"mean modulus ({g['source']}), 2.2.3(2)")
+        work.let("E_0_mean", work.q(float(g["E_0_mean"]), "GPa"), unit="GPa",
+                 desc="mean modulus parallel to the grain, for the instantaneous deflection (2.2.3(2))",
+                 note=g["source"])
         work.calc("I_y", "b*h^3/12", unit="mm^4", desc="second moment about the major axis")
         work.calc("u_inst_G", "5*w_G*L^4/(384*E_0_mean*I_y)", unit="mm",
                   desc="instantaneous deflection, permanent load, 5wL⁴/(384EI) (bending only)")
@@ -416,7 +419,7 @@ def _finish(work, out, names: dict[str, str]):
 @namespace.function("ec5_beam", params=BEAM_PARAMS, fields=BEAM_FIELDS, returns="timber.beam")
 def ec5_beam(work, grade, b, h, L, M_d, V_d, service_class=1, duration="medium-term", annex="recommended",
              k_sys="no", braced="no", load_case="simply-supported-uniform-load", load_position="compression-edge",
-             l_ef=None, F_c90_d=None, l_b=None, b_b=None, a_end=None, support="discrete", w_G=None, w_Q=None,
+             l_ef=None, F_c_90_d=None, l_b=None, b_b=None, a_end=None, support="discrete", w_G=None, w_Q=None,
              u_G=None, u_Q=None, psi_2=None, limit_inst=None, limit_fin=None):
     """A rectangular beam: bending with lateral torsional stability, shear, bearing, deflection (EN 1995-1-1)."""
     _positive(work, b=b, h=h, L=L, l_ef=l_ef)
@@ -442,13 +445,14 @@ def ec5_beam(work, grade, b, h, L, M_d, V_d, service_class=1, duration="medium-t
     work.let("k_cr", work.q(kcr, ""), desc="crack factor for shear", note=D.ec5()["k_cr"]["source"])
     work.calc("b_ef", "k_cr*b", unit="mm", desc=f"effective width for shear, {STD} 6.1.7(2) Eq. (6.13a)")
     work.calc("tau_d", "1.5*V_d/(b_ef*h)", unit="MPa", desc="design shear stress, rectangular section, 1.5V/(b_ef·h)")
-    work.calc("f_v_d", f"k_mod*k_sys*{g['f_v_k']} MPa/gamma_M", unit="MPa",
-              desc=f"design shear strength, f_v,k = {g['f_v_k']} MPa ({g['source']}), Eq. (2.14)")
+    work.let("f_v_k", work.q(float(g["f_v_k"]), "MPa"), unit="MPa", desc="characteristic shear strength",
+             note=g["source"])
+    work.calc("f_v_d", "k_mod*k_sys*f_v_k/gamma_M", unit="MPa", desc=f"design shear strength, {STD} 2.4.1 Eq. (2.14)")
     work.calc("U_shear", "tau_d/f_v_d", unit="1", desc=f"shear utilisation, {STD} 6.1.7 Eq. (6.13)")
     out = {k: work[k] for k in ("k_mod", "gamma_M", "k_h", "k_crit", "sigma_m_d", "f_m_d", "tau_d", "f_v_d",
                                 "U_bending", "U_shear")}
-    if F_c90_d is not None:
-        _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out)
+    if F_c_90_d is not None:
+        _bearing(work, g, product, b, h, L, F_c_90_d, l_b, b_b, a_end, support, out)
     if any(v is not None for v in (w_G, w_Q, u_G, u_Q)):
         _deflection(work, g, product, sc_, L, w_G, w_Q, u_G, u_Q, psi_2, limit_inst, limit_fin, out)
         out["k_def"] = work["k_def"]
@@ -643,24 +647,24 @@ def ec5_k_crit(work, grade, b, h, L, load_case="simply-supported-uniform-load", 
 @namespace.function(
     "ec5_bearing",
     params=[*_RECT, Param("L", "[length]", "span (for the clear distance l_1 to the next bearing)"),
-            Param("F_c90_d", "[force]", "design support reaction"), Param("l_b", "[length]", "bearing length"),
+            Param("F_c_90_d", "[force]", "design support reaction"), Param("l_b", "[length]", "bearing length"),
             Param("b_b", "[length]", "bearing width (default b)", default=None),
             Param("a_end", "[length]", "distance from the member end (default 0)", default=None),
             Param("support", kind="text", choices=("discrete", "continuous"), doc="6.1.5(4)-(6)",
                   default="discrete"),
             *PARAMS_COMMON],
-    fields=[Field("k_c90"), Field("sigma_c90_d", "[pressure]"), Field("f_c90_d", "[pressure]"),
+    fields=[Field("k_c_90"), Field("sigma_c_90_d", "[pressure]"), Field("f_c_90_d", "[pressure]"),
             Field("U_bearing", doc="(6.3)")],
     returns="timber.bearing",
 )
-def ec5_bearing(work, grade, b, h, L, F_c90_d, l_b, b_b=None, a_end=None, support="discrete", service_class=1,
+def ec5_bearing(work, grade, b, h, L, F_c_90_d, l_b, b_b=None, a_end=None, support="discrete", service_class=1,
                 duration="medium-term", annex="recommended", k_sys="no"):
     """Compression perpendicular to the grain at a support (6.1.5, A1:2008 text)."""
     _positive(work, b=b, h=h, L=L)
     g, product, _ = _setup(work, grade, service_class, duration, annex, k_sys, Chain())
     out = {}
-    _bearing(work, g, product, b, h, L, F_c90_d, l_b, b_b, a_end, support, out)
-    return {k: work[k] for k in ("k_c90", "sigma_c90_d", "f_c90_d", "U_bearing")}
+    _bearing(work, g, product, b, h, L, F_c_90_d, l_b, b_b, a_end, support, out)
+    return {k: work[k] for k in ("k_c_90", "sigma_c_90_d", "f_c_90_d", "U_bearing")}
 
 
 @namespace.function(

@@ -61,7 +61,7 @@ def test_beam_matches_the_clause_equations(b, h, L, sc):
     M, V, F, l_b, wG, wQ = 6.0, 7.0, 7.0, 60, 0.6, 1.5
     r = run(f"""
         j = timber.ec5_beam(grade="C24", b={b} mm, h={h} mm, L={L} mm, M_d={M} kN*m, V_d={V} kN,
-            service_class={sc}, duration="medium-term", F_c90_d={F} kN, l_b={l_b} mm,
+            service_class={sc}, duration="medium-term", F_c_90_d={F} kN, l_b={l_b} mm,
             w_G={wG} kN/m, w_Q={wQ} kN/m, psi_2=0.3, limit_inst=300, limit_fin=250)
     """)
     hand = ec5_beam_by_hand(b, h, L, M, V, F, l_b, wG, wQ, 0.3, sc)
@@ -185,8 +185,8 @@ def test_strengths_chain_for_the_boardwalk_class():
      "service_class=4", "2.3.1.3"),
     ('timber.ec5_beam(grade="C24", b=75 mm, h=200 mm, L=3 m, M_d=1 kN*m, V_d=1 kN, w_G=1 kN/m, w_Q=1 kN/m, '
      'psi_2=0.3)', "w_G=1 kN/m", "Table 7.2"),
-    ('timber.ec5_beam(grade="C24", b=75 mm, h=200 mm, L=3 m, M_d=1 kN*m, V_d=1 kN, F_c90_d=3 kN)',
-     "F_c90_d=3 kN", "l_b"),
+    ('timber.ec5_beam(grade="C24", b=75 mm, h=200 mm, L=3 m, M_d=1 kN*m, V_d=1 kN, F_c_90_d=3 kN)',
+     "F_c_90_d=3 kN", "l_b"),
     ('timber.ec5_column(grade="C24", b=75 mm, h=200 mm, L=3 m, N_d=-1 kN)', "N_d=-1 kN", "6.1.2"),
 ])
 def test_out_of_scope_and_bad_input_are_located_errors(body, where, words):
@@ -215,7 +215,7 @@ def test_single_checks_agree_with_the_member_calls_and_the_equations():
         a = timber.ec5_k_c(grade="C24", b=100 mm, h=200 mm, l_ef_y=3.75 m)
         c = timber.ec5_column(grade="C24", b=100 mm, h=200 mm, L=3.75 m, N_d=30 kN)
         k = timber.ec5_k_crit(grade="C24", b=75 mm, h=225 mm, L=3.6 m)
-        br = timber.ec5_bearing(grade="C24", b=75 mm, h=225 mm, L=4 m, F_c90_d=8 kN, l_b=75 mm, a_end=40 mm)
+        br = timber.ec5_bearing(grade="C24", b=75 mm, h=225 mm, L=4 m, F_c_90_d=8 kN, l_b=75 mm, a_end=40 mm)
         df = timber.ec5_deflection(grade="C24", b=75 mm, h=225 mm, L=4 m, u_G=3 mm, u_Q=6 mm, psi_2=0.3,
             limit_inst=300, limit_fin=250, service_class=2)
     """)
@@ -254,7 +254,7 @@ def test_any_rectangular_c24_beam_matches_the_clause_equations(b, h, L, sc):
     # spans every range of k_crit (6.34) and both branches of k_h (3.1)
     r = run(f"""
         j = timber.ec5_beam(grade="C24", b={b} mm, h={h} mm, L={L} mm, M_d=5 kN*m, V_d=5 kN,
-            service_class={sc}, F_c90_d=5 kN, l_b=60 mm, w_G=0.5 kN/m, w_Q=1 kN/m, psi_2=0.3,
+            service_class={sc}, F_c_90_d=5 kN, l_b=60 mm, w_G=0.5 kN/m, w_Q=1 kN/m, psi_2=0.3,
             limit_inst=300, limit_fin=250)
     """)
     hand = ec5_beam_by_hand(b, h, L, 5.0, 5.0, 5.0, 60, 0.5, 1.0, 0.3, sc)
