@@ -358,6 +358,9 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
         if v is not None and v.magnitude < 0:
             work.fail(f"{k} is a magnitude: give it as a positive value", param=k)
     m = Member(work, species, grade, size, b, d)
+    if m.product == "glulam":
+        work.fail(f"{grade} is a bending combination (NDS Supplement Table 5A); glulam columns take the axial "
+                  f"combinations of Table 5B, which are not built", param="grade")
     f = D.nds()
     sc = work.scope
     chain = Chain()

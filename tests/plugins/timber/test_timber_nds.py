@@ -128,6 +128,8 @@ def test_beam_column_interaction_eq_3_9_3():
      'grade="No.2"', "No.1/No.2"),
     ('timber.nds_beam(species="Douglas Fir-Larch", grade="No.2", b=1.5 in, d=9.25 in, L=10 ft, M=1 lbf*ft, '
      'V=1 lbf)', "b=1.5 in", "C_F"),
+    ('timber.nds_column(species="Glulam DF/DF", grade="24F-V4", b=6.75 in, d=9 in, L=10 ft, P=1 lbf)',
+     'grade="24F-V4"', "Table 5B"),
 ])
 def test_out_of_scope_cases_are_located_errors_naming_the_clause(body, where, words):
     errs = errors(f"x = {body}\n")
