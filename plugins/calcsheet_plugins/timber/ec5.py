@@ -335,6 +335,8 @@ def _bearing(work, g, product, b, h, L, F_c_90_d, l_b, b_b, a_end, support, out)
     work.calc("Delta_l_1", f"min({t['extension']} mm, a_end, l_b)", unit="mm",
               desc="extension of the contact length towards the member end, 6.1.5(1) (≤ 30 mm, ≤ a, ≤ l)")
     work.calc("l_1", "L - l_b", unit="mm", desc="clear distance to the next bearing (the other support)")
+    if work["l_1"].magnitude <= 0:
+        work.fail("the bearing length is not shorter than the span", param="l_b")
     work.calc("Delta_l_2", f"min({t['extension']} mm, l_b, l_1/2)", unit="mm",
               desc="extension into the span, 6.1.5(1) (≤ 30 mm, ≤ l, ≤ l_1/2)")
     work.calc("A_ef", "b_b*(l_b + Delta_l_1 + Delta_l_2)", unit="mm^2",
