@@ -1,0 +1,11 @@
+"""Print the fuzzer's counts at the end of every run that included it (CI logs keep them)."""
+from __future__ import annotations
+
+
+def pytest_terminal_summary(terminalreporter):
+    from .harness import COUNTS
+
+    if COUNTS["cases"]:
+        terminalreporter.write_line(
+            f"calcsheet fuzz: {COUNTS['cases']} cases, {COUNTS['clean']} clean, {COUNTS['located']} located "
+            f"errors, {COUNTS['crash']} crashes, {COUNTS['hang']} hangs, {COUNTS['unlocated']} unlocated")
