@@ -68,11 +68,11 @@ TARGETS: dict[str, dict] = {
         "functions": ["_finite", "_eval_BinOp", "_add", "_pow", "_eval_Call", "_eval_if", "_plain",
                       "coerce_argument", "_check_dim", "make_record", "plugin_step", "evaluate_definition",
                       "evaluate_check"],
-        "tests": ["tests/calcsheet", "tests/test_evaluator_oracle.py", "tests/test_engine.py",
+        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator_oracle.py", "tests/test_engine.py",
                   "tests/test_units.py"],
     },
     "units": {"sources": ["calcsheet/units.py"],
-              "tests": ["tests/test_units.py", "tests/calcsheet", "tests/test_engine.py"]},
+              "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
 }
 # every target also runs the cross-cutting value tests that name their sources
 SHARED_TESTS = ["tests/test_golden_values.py", "tests/plugins/test_defaults.py",
