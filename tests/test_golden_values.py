@@ -274,7 +274,10 @@ def test_mezzanine_column_buckling(mezz):
     lam = max(lam_x, lam_y)
     assert field(r, "c", "KL_r", "") == pytest.approx(lam, rel=1e-12)
     Cc = math.sqrt(2 * math.pi**2 * E / Fy)
+    assert field(r, "c", "C_c", "") == pytest.approx(Cc, rel=1e-12)  # transition slenderness √(2π²E/F_y)
     assert lam < Cc  # inelastic: Johnson's parabola (Shigley §4-14 — from memory)
+    assert r.values["c"].fields["range"] == "inelastic (Johnson)"
+    assert r.values["c"].fields["axis"] == ("x" if lam_x > lam_y else "y")
     sig = min(Fy - Fy**2 * l**2 / (4 * math.pi**2 * E) for l in (lam_x, lam_y))
     assert field(r, "c", "sigma_cr", "MPa") == pytest.approx(sig, rel=1e-12)
     assert field(r, "c", "P_cr", "kN") == pytest.approx(sig * A / 1e3, rel=1e-12)
