@@ -38,6 +38,7 @@ import json
 import os
 import re
 import shutil
+import signal
 import subprocess
 import sys
 import tempfile
@@ -454,6 +455,8 @@ def main(argv=None) -> int:
             print(f"{t}: {len(ms)} mutants")
         return 0
 
+    # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
     work = Path(tempfile.mkdtemp(prefix="calcsheet-mutation-"))
     copy_root = scratch_copy(work / "project")
     results: list[Mutant] = []
