@@ -37,6 +37,8 @@ BUGS = [
     ("Johnson parabola with a wrong factor", f"{P}/column/buckling.py", 'f"F_y - F_y^2*KL_r_{axis}^2/(4*pi^2*E)"', 'f"F_y - F_y^2*KL_r_{axis}^2/(4.4*pi^2*E)"', "tests/test_golden_values.py"),
     ("plastic neutral... Q_x off by 1%", f"{P}/section/report.py", 'rec.let("Q_x", _q(vals["Q_x"], "mm^3")', 'rec.let("Q_x", _q(1.01 * vals["Q_x"], "mm^3")', "tests/test_golden_values.py"),
 ]
+only = sys.argv[1:]  # optional words: run only the bugs whose description contains one of them
+BUGS = [b for b in BUGS if not only or any(w in b[0] for w in only)]
 red = 0
 for what, rel, old, new, test in BUGS:
     path = work / rel
