@@ -123,6 +123,19 @@ def test_products_quotients_and_powers_carry_their_dimensions():
     assert ev("(5 mm/(1 m))^2").m_as("") == pytest.approx(25e-6)  # a ratio is reduced before its power
 
 
+def test_powers_at_the_edges_of_their_rules():
+    # x^0 = 1 and 1^p = 1 for any p; a positive base below 1 has real fractional powers
+    assert ev("(0 m)^0").m_as("") == 1.0
+    assert ev("0^0").m_as("") == 1.0
+    assert ev("1^(-2)").m_as("") == 1.0
+    assert ev("(1 m)^(-1)").m_as("1/m") == 1.0
+    assert ev("(0.25 m^2)^0.5").m_as("m") == 0.5
+    assert ev("0.25^0.5").m_as("") == 0.5
+    assert ev("(0 m)^2").m_as("m^2") == 0.0
+    assert "zero to a negative power" in str(pytest.raises(DivisionByZeroError, ev, "0^(-1)").value)
+    assert "zero to a negative power" in str(pytest.raises(DivisionByZeroError, ev, "(0 m)^(-2)").value)
+
+
 def test_angles_are_converted_to_radians_for_trigonometry():
     assert ev("sin(30 deg)").m_as("") == pytest.approx(0.5)
     assert ev("cos(60 deg)").m_as("") == pytest.approx(0.5)
