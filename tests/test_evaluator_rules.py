@@ -158,6 +158,15 @@ def test_functions_of_plain_numbers_and_of_quantities():
     assert ev("if(1 m <= 1000 mm, 10 kN, 20 kN)").m_as("kN") == 10.0  # equality takes the first branch
 
 
+def test_a_conditional_step_records_the_values_of_both_branches():
+    # the package prints the branch not taken with its numbers too, so a reviewer sees both cases
+    env = {k: U.Quantity(v, "kN") for k, v in (("a", 1.0), ("b", 2.0), ("c", 3.0), ("d", 4.0))}
+    step = Evaluator().evaluate_definition(parse_statement("x = if(a <= b, c, d)"), env, {})
+    assert step.value.m_as("kN") == 3.0
+    assert set(step.used) == {"a", "b", "c", "d"}
+    assert step.used["d"][0].m_as("kN") == 4.0
+
+
 # ---------------------------------------------------------------- same verdict as the static checker
 
 # (2 m)^13 is refused only when evaluated: a cap on powers of quantities, not a dimension rule
