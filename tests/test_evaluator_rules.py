@@ -321,3 +321,90 @@ def test_a_ratio_is_not_formed_against_a_zero_or_negative_capacity():
 def test_a_check_across_dimensions_is_an_error():
     with pytest.raises(DimensionError):
         _check("<=", (1.0, "m"), (1.0, "s"))
+
+
+# ---------------------------------------------------------------- plugin arguments, checked by the evaluator itself
+
+from calcsheet.errors import PluginArgumentError, Span  # noqa: E402
+
+ARGS = Namespace("argprobe", version="1.0")
+
+
+@ARGS.function("f", params=[Param("b", "[length]"), Param("F", "[force]"),
+                            Param("pts", "[length]", kind="points"), Param("n", doc="a plain number"),
+                            Param("xs", "[length]", kind="list"), Param("mode", kind="text", choices=("a", "b"))],
+               fields=[Field("v", doc="unused")])
+def _argprobe(work, b, F, pts, n, xs, mode):
+    return {"v": work.q(0.0, "")}
+
+
+PF = ARGS.functions["f"]
+AT = Span(3, 5, 3, 9)
+
+
+def coerce(name, value):
+    return Evaluator().coerce_argument(PF, PF.param(name), value, AT)
+
+
+def q(v, unit):
+    return U.Quantity(v, unit)
+
+
+@pytest.mark.parametrize("name, value, words", [
+    ("b", q(2.0, "s"), "needs length, got time"),
+    ("b", "text", "got a text"),
+    ("n", q(2.0, "m"), "dimensionless"),
+    ("pts", q(1.0, "m"), "list of (x, y) points"),
+    ("pts", ((q(1.0, "m"),),), "points written (x, y)"),
+    ("pts", ((q(1.0, "m"), "x"),), "points written (x, y)"),
+    ("pts", ((q(1.0, "m"), q(1.0, "s")),), "needs length, got time"),
+    ("xs", (q(1.0, "m"), q(1.0, "kN")), "needs length, got force"),
+    ("xs", (q(1.0, "m"), "x"), "list of quantities"),
+    ("mode", "c", "must be one of"),
+])
+def test_a_wrong_argument_is_refused_at_its_own_span(name, value, words):
+    with pytest.raises(PluginArgumentError) as info:
+        coerce(name, value)
+    assert words in str(info.value) and info.value.span == AT
+
+
+def test_arguments_of_the_right_kind_pass_through():
+    pts = ((q(0.0, "mm"), q(0.0, "mm")), (q(1.0, "m"), q(2.0, "m")))
+    assert coerce("pts", pts) == pts
+    assert coerce("xs", q(1.0, "m")) == (q(1.0, "m"),)  # a single value is a list of one
+    assert coerce("b", q(150.0, "mm")).m_as("mm") == 150.0
+    assert coerce("mode", "a") == "a"
+
+
+def test_a_bare_number_for_a_quantity_gets_a_hint_naming_the_unit():
+    with pytest.raises(PluginArgumentError) as info:
+        coerce("b", q(150.0, ""))
+    assert info.value.hint == "give the unit, e.g. b=… mm"
+    with pytest.raises(PluginArgumentError) as info:
+        coerce("F", q(10.0, ""))
+    assert info.value.hint == "give the value its unit"
+    with pytest.raises(PluginArgumentError) as info:
+        coerce("F", q(10.0, "m"))
+    assert info.value.hint is None  # a unit of the wrong kind is not a missing unit
+
+
+# ---------------------------------------------------------------- a definition's declared unit
+
+
+def test_a_declared_unit_converts_the_value_and_sets_its_display():
+    step = Evaluator().evaluate_definition(parse_statement("M [kN*m] = 2000 N*m"), {}, {})
+    assert step.value.m_as("kN*m") == 2.0 and step.value.magnitude == pytest.approx(2.0)
+    assert step.display_unit == U.Quantity(1, "kN*m").units
+
+
+def test_a_declared_plain_number_has_no_display_unit():
+    step = Evaluator().evaluate_definition(parse_statement("r [1] = 5 mm/(1 m)"), {}, {})
+    assert step.value.m_as("") == pytest.approx(0.005)
+    assert step.display_unit is None
+
+
+def test_a_declared_unit_of_the_wrong_dimension_is_an_error():
+    from calcsheet.errors import DeclaredUnitError
+
+    with pytest.raises(DeclaredUnitError):
+        Evaluator().evaluate_definition(parse_statement("M [kN*m] = 2 kN"), {}, {})
