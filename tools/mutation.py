@@ -327,6 +327,11 @@ class _Points(ast.NodeTransformer):
         return self.generic_visit(node)
 
 
+def find_all(target: str) -> list[Mutant]:
+    spec = TARGETS[target]
+    return [m for rel in spec["sources"] for m in find_mutants(target, ROOT / rel, rel, spec.get("functions"))]
+
+
 def find_mutants(target: str, path: Path, rel: str, functions: list[str] | None = None) -> list[Mutant]:
     text = path.read_text(encoding="utf-8")
     lines = text.splitlines()
@@ -435,6 +440,8 @@ def main(argv=None) -> int:
     ap.add_argument("--list", action="store_true", help="list the mutants, run nothing")
     ap.add_argument("--report", type=Path, default=ROOT / "out" / "mutation.json")
     ap.add_argument("--keep", action="store_true", help="keep the scratch copy")
+    ap.add_argument("--survivors", type=Path, default=None,
+                    help="run only the mutants a previous --report lists as survived (after adding tests)")
     args = ap.parse_args(argv)
     targets = args.targets or list(TARGETS)
     unknown = [t for t in targets if t not in TARGETS]
@@ -448,6 +455,11 @@ def main(argv=None) -> int:
         for rel in spec["sources"]:
             ms += find_mutants(t, ROOT / rel, rel, spec.get("functions"))
         plan[t] = spread(ms, args.limit)
+    if args.survivors:
+        earlier = json.loads(args.survivors.read_text())["mutants"]
+        keep = {(m["path"], m["index"], m["what"]) for m in earlier if m["status"] == "survived"}
+        plan = {t: [m for m in find_all(t) if (m.path, m.index, m.what) in keep]
+                for t in plan}
     if args.list:
         for t, ms in plan.items():
             for m in ms:
