@@ -312,6 +312,15 @@ def test_boundary_through_a_plugin_check(plugins, op, holds):
     assert r.values["res"].fields["ratio"].m_as("") == pytest.approx(1.0)
 
 
+@pytest.mark.parametrize("text", ["check a <= b", "check a < b", "check b >= a", "check b > a"])
+def test_demand_and_capacity_are_shown_in_the_demand_s_own_unit(text):
+    kNm, Nm = U.Quantity(1, "kN*m").units, U.Quantity(1, "N*m").units
+    env = {"a": U.Quantity(2.0, "kN*m"), "b": U.Quantity(5000.0, "N*m")}
+    c = Evaluator().evaluate_check(parse_statement(text), env, lambda k, v: {"a": kNm, "b": Nm}[k])
+    assert c.demand.units == kNm and c.capacity.units == kNm
+    assert c.demand.magnitude == 2.0 and c.capacity.magnitude == pytest.approx(5.0)
+
+
 def test_a_ratio_is_not_formed_against_a_zero_or_negative_capacity():
     assert _check("<=", (1.0, "kN"), (0.0, "kN")).ratio is None
     assert _check("<=", (-1.0, "kN"), (5.0, "kN")).ratio is None
@@ -326,15 +335,18 @@ def test_a_check_across_dimensions_is_an_error():
 # ---------------------------------------------------------------- plugin arguments, checked by the evaluator itself
 
 from calcsheet.errors import PluginArgumentError, Span  # noqa: E402
+from calcsheet.plugin import Record  # noqa: E402
 
 ARGS = Namespace("argprobe", version="1.0")
 
 
 @ARGS.function("f", params=[Param("b", "[length]"), Param("F", "[force]"),
                             Param("pts", "[length]", kind="points"), Param("n", doc="a plain number"),
-                            Param("xs", "[length]", kind="list"), Param("mode", kind="text", choices=("a", "b"))],
+                            Param("xs", "[length]", kind="list"), Param("mode", kind="text", choices=("a", "b")),
+                            Param("sec", kind="record", record="section"),
+                            Param("secs", kind="list", record="section")],
                fields=[Field("v", doc="unused")])
-def _argprobe(work, b, F, pts, n, xs, mode):
+def _argprobe(work, b, F, pts, n, xs, mode, sec, secs):
     return {"v": work.q(0.0, "")}
 
 
@@ -361,6 +373,10 @@ def q(v, unit):
     ("xs", (q(1.0, "m"), q(1.0, "kN")), "needs length, got force"),
     ("xs", (q(1.0, "m"), "x"), "list of quantities"),
     ("mode", "c", "must be one of"),
+    ("sec", q(1.0, "m"), "needs a section record"),
+    ("sec", Record(type="material", fields={}), "needs a section record"),
+    ("secs", (Record(type="section", fields={}), Record(type="material", fields={})), "list of section records"),
+    ("secs", (Record(type="section", fields={}), q(1.0, "m")), "list of section records"),
 ])
 def test_a_wrong_argument_is_refused_at_its_own_span(name, value, words):
     with pytest.raises(PluginArgumentError) as info:
@@ -374,6 +390,8 @@ def test_arguments_of_the_right_kind_pass_through():
     assert coerce("xs", q(1.0, "m")) == (q(1.0, "m"),)  # a single value is a list of one
     assert coerce("b", q(150.0, "mm")).m_as("mm") == 150.0
     assert coerce("mode", "a") == "a"
+    sec = Record(type="section", fields={})
+    assert coerce("sec", sec) is sec and coerce("secs", (sec, sec)) == (sec, sec)
 
 
 def test_a_bare_number_for_a_quantity_gets_a_hint_naming_the_unit():
