@@ -86,6 +86,18 @@ TARGETS: dict[str, dict] = {
 # failure; "k" narrows the cross-cutting files to the tests about that target (pytest -k, matched on test and
 # module names). Golden rendering tests (tests/test_sheets.py) are never used to kill a mutant.
 
+# Survivors judged equivalent (no input can tell them apart from the original), keyed by the source line's text
+# and the mutation, with the reason. They are listed apart in the report and left out of the adjusted rate.
+EQUIVALENT = {
+    ("if slenderness >= transition_slenderness(E, F_y):", ">= → >"):
+        "at KL/r = C_c exactly Euler and Johnson both give F_y/2 (the parabola is tangent there)",
+    ("if lam >= cc:", ">= → >"):
+        "same tangent point: the two formulas agree at KL/r = C_c; only a label at an exact float tie differs",
+    ('elastic_ok = se.m_as("Pa") <= sc["f_pl"].m_as("Pa")', "<= → <"):
+        "changes only the wording of a note at an exact float tie σ_e = f_pl",
+    ('word = "add" if sign > 0 else "subtract"', "> → >="): "sign is +1 or −1, never 0",
+}
+
 QUIET = {"raise"}
 MESSAGE_CALLS = {"fail", "note", "warn", "figure", "caption", "get_close_matches", "format", "join"}
 UNIT_CALLS = {"q", "_q", "m_as", "to", "Unit", "Quantity", "unit", "build_unit", "parse_units", "parse_dimension"}
@@ -519,9 +531,20 @@ def report(results: list[Mutant]) -> dict:
         print(f"{'all':10s} {killed:4d}/{total:<4d} {100 * killed / total:5.1f} %")
     summary["all"] = {"mutants": total, "killed": killed, "rate": round(killed / total, 4) if total else None}
     survivors = [m for m in results if m.status == "survived"]
-    if survivors:
+    explained = [m for m in survivors if (m.source_line, m.what) in EQUIVALENT]
+    if total:
+        adjusted = killed / (total - len(explained)) if total > len(explained) else 1.0
+        print(f"{'adjusted':10s} {killed:4d}/{total - len(explained):<4d} {100 * adjusted:5.1f} %"
+              f"  (leaving out {len(explained)} equivalent mutants)")
+        summary["all"]["adjusted_rate"] = round(adjusted, 4)
+    if explained:
+        print("\n== equivalent mutants (explained in tools/mutation.py EQUIVALENT)")
+        for m in explained:
+            print(f"{m.where:55s} {m.what}   | {EQUIVALENT[(m.source_line, m.what)]}")
+    unexplained = [m for m in survivors if m not in explained]
+    if unexplained:
         print("\n== surviving mutants")
-        for m in survivors:
+        for m in unexplained:
             print(f"{m.where:55s} {m.what}   | {m.source_line[:70]}")
     return summary
 

@@ -99,3 +99,16 @@ def test_every_target_names_files_and_tests_that_exist():
         for rel in spec["sources"]:
             assert (ROOT / rel).is_file(), (name, rel)
         assert any((ROOT / t).exists() for t in spec["tests"]), name
+
+
+def test_the_report_counts_timeouts_as_killed_and_sets_equivalent_survivors_apart(capsys):
+    line, what = next(iter(M.EQUIVALENT))
+    ms = [M.Mutant("t", "a.py", 0, 1, "x", "y", status="killed"), M.Mutant("t", "a.py", 1, 2, "x", "y", status="timeout"),
+          M.Mutant("t", "a.py", 2, 3, what, line, status="survived"),
+          M.Mutant("t", "a.py", 3, 4, "<= → <", "if a <= b:", status="survived")]
+    summary = M.report(ms)
+    out = capsys.readouterr().out
+    assert summary["t"] == {"mutants": 4, "killed": 2, "timeouts": 1, "rate": 0.5}
+    assert summary["all"]["adjusted_rate"] == pytest.approx(2 / 3, abs=1e-4)
+    survivors = out.split("== surviving mutants")[1]
+    assert "if a <= b:" in survivors and line not in survivors
