@@ -5,6 +5,7 @@ import textwrap
 import pytest
 
 import calcsheet
+from calcsheet import units as U
 from calcsheet.trace import Step
 
 GIVEN = "E=200 GPa, F_y=250 MPa, A=6000 mm^2, I_x=8e7 mm^4, I_y=2e7 mm^4"
@@ -104,3 +105,18 @@ def test_a_section_record_lends_its_own_radius_of_gyration():
     assert "√(I/A)" in given["r_x"].description  # computed from the values given
     # rectangle: r = h/√12 (common practice)
     assert steps["r_x"].value.m_as("mm") == pytest.approx(200 / math.sqrt(12), rel=1e-12)
+
+
+@pytest.mark.parametrize("system, E_unit, F_unit", [("SI", "GPa", "MPa"), ("US", "ksi", "ksi")])
+def test_values_taken_from_a_material_are_shown_in_the_sheet_s_units(system, E_unit, F_unit):
+    r = run(f"""
+        ---
+        units: {system}
+        ---
+        mat = material.steel(grade="S355")
+        c = column.buckling(L=3 m, material=mat, A=6000 mm^2, I_x=8e7 mm^4, I_y=2e7 mm^4)
+    """)
+    assert r.ok, r.format_diagnostics()
+    steps = {i.name: i for i in r.values["c"].working.items if isinstance(i, Step)}
+    assert steps["E"].display_unit == U.Quantity(1, E_unit).units
+    assert steps["F_y"].display_unit == U.Quantity(1, F_unit).units
