@@ -59,3 +59,8 @@ def test_aci_rule_gives_4700_root_fc():
     m = make('material.concrete(f_c=28 MPa, rule="ACI 318")').values["m"].fields
     assert m["E"].m_as("MPa") == pytest.approx(4700 * 28**0.5, rel=1e-12)
     assert m["f_u"].m_as("MPa") == pytest.approx(0.62 * 28**0.5, rel=1e-12)
+
+
+def test_the_c50_warning_starts_just_above_50_mpa():
+    warn = [d for d in make("material.concrete(f_c=51 MPa)").diagnostics if d.severity == "warning"]
+    assert any("C50/60" in d.message for d in warn)
