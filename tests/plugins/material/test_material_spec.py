@@ -42,6 +42,12 @@ def test_poissons_ratio_must_lie_strictly_between_minus_one_and_a_half(nu, ok):
     assert make(f'material.custom(name="x", E=200 GPa, f_y=300 MPa, nu={nu})').ok is ok
 
 
+@pytest.mark.parametrize("nu", ["-1", "-1.5", "0.5"])
+def test_an_impossible_poissons_ratio_is_refused_even_when_G_is_given(nu):
+    r = make(f'material.custom(name="x", E=200 GPa, f_y=300 MPa, G=80 GPa, nu={nu})')
+    assert not r.ok and "Poisson" in r.errors[0].message
+
+
 @pytest.mark.parametrize("arg", ["E=0 GPa, f_y=300 MPa", "E=200 GPa, f_y=0 MPa", "E=-1 GPa, f_y=300 MPa"])
 def test_custom_material_needs_positive_stiffness_and_strength(arg):
     assert not make(f'material.custom(name="x", {arg})').ok
@@ -52,6 +58,8 @@ def test_a_small_but_positive_modulus_written_in_large_units_is_accepted():
     assert m.ok, m.format_diagnostics()
     # G = E/(2(1+ν)) with the default ν = 0.3 (isotropic elasticity — common practice)
     assert m.values["m"].fields["G"].m_as("MPa") == pytest.approx(50 / 2.6, rel=1e-12)
+    G_step = next(i for i in m.values["m"].working.items if getattr(i, "name", None) == "G")
+    assert str(G_step.display_unit) == "GPa"  # shown in GPa like every modulus, however small
 
 
 def test_aci_rule_gives_4700_root_fc():
