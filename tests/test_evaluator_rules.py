@@ -92,6 +92,19 @@ def test_the_evaluator_refuses_it_with_a_located_error(text, error, words):
     assert span is not None and span.line == 1 and span.end_col > span.col  # located, not a raw pint error
 
 
+@pytest.mark.parametrize("text, message", [
+    ("30 deg + 1", "cannot add dimensionless to angle"),
+    ("2 m - 3 s", "cannot subtract time from length"),
+    ("2 kN + 1 MPa", "cannot add pressure (stress, area load) to force"),
+    ("1 m^2 + 1 m^3", "cannot add length³ (section modulus, volume) to area"),
+    ("sin(2 m)", "sin() needs an angle, got length"),
+])
+def test_the_message_names_both_dimensions_in_words(text, message):
+    with pytest.raises(CalcError) as info:
+        ev(text)
+    assert str(info.value) == message
+
+
 def test_the_error_points_at_the_operation_that_broke():
     # "2 m + (3 s*1)": the bad sum is the whole expression; "x*(2 m + 3 s)": only the bracket
     whole = pytest.raises(DimensionError, ev, "2 m + 3 s*1").value.span

@@ -99,6 +99,8 @@ EQUIVALENT = {
     ('word = "add" if sign > 0 else "subtract"', "> → >="): "sign is +1 or −1, never 0",
     ('work.calc("G", "E/(2*(1 + nu))", unit="GPa" if E.m_as("GPa") > 0 else None,', "> → >="):
         "E > 0 is already enforced a few lines above, so E = 0 never reaches this line",
+    ("solid = [r for r in rings if r.sign > 0]", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
+    ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
 }

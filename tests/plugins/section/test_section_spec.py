@@ -28,3 +28,18 @@ def test_thick_walls_short_of_closing_the_void_are_accepted(call, I_x):
 def test_walls_that_close_the_void_are_refused_naming_the_wall(call, param):
     r = make(call)
     assert not r.ok and f"wall {param} =" in r.errors[0].message
+
+
+def test_the_product_of_area_table_splits_own_products_from_transfer_terms():
+    from calcsheet.trace import Table
+
+    r = make("section.angle(h=150 mm, b=90 mm, t=10 mm)")
+    assert r.ok
+    rec = r.values["s"]
+    table = next(i for i in rec.working.items if isinstance(i, Table) and "product of area" in i.title)
+    own = [row[1].m_as("mm^4") for row in table.rows]
+    transfer = [row[4].m_as("mm^4") for row in table.rows]
+    # the angle's parts are rectangles, each symmetric about its own axes: no product of its own
+    assert own == pytest.approx([0.0] * len(own), abs=1e-6)
+    # parallel-axis theorem: I_xy = Σ I_o,xy + Σ A·d_x·d_y
+    assert sum(own) + sum(transfer) == pytest.approx(rec.fields["I_xy"].m_as("mm^4"), rel=1e-12)
