@@ -72,12 +72,16 @@ TARGETS: dict[str, dict] = {
                            "tests/plugins/test_defaults.py", "tests/test_golden_values.py"],
                  "k": "material or concrete or custom or golden"},
     "evaluator": {
-        "sources": ["calcsheet/evaluator.py"],
-        "functions": ["_finite", "_eval_BinOp", "_add", "_pow", "_eval_Call", "_eval_if", "_plain",
-                      "coerce_argument", "_check_dim", "make_record", "plugin_step", "evaluate_definition",
-                      "evaluate_check"],
-        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator_oracle.py", "tests/test_engine.py",
-                  "tests/test_units.py"],
+        # the evaluator's check and unit logic: its own walk, the rules table it shares with the checker, and the
+        # plugin host's argument checks
+        "sources": ["calcsheet/evaluator.py", "calcsheet/builtins.py", "calcsheet/plugin_host.py"],
+        "functions": {
+            "calcsheet/evaluator.py": ["_finite", "_eval_BinOp", "_eval_Call", "_eval_if", "evaluate_definition",
+                                       "evaluate_check"],
+            "calcsheet/plugin_host.py": ["coerce_argument", "_check_dim", "make_record"],
+        },
+        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator.py", "tests/test_builtins.py",
+                  "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py"],
     },
     "units": {"sources": ["calcsheet/units.py"],
               "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
@@ -346,9 +350,14 @@ class _Points(ast.NodeTransformer):
         return self.generic_visit(node)
 
 
+def functions_for(target: str, rel: str) -> list[str] | None:
+    """The functions of ``rel`` to mutate (None: all of the file)."""
+    return (TARGETS[target].get("functions") or {}).get(rel)
+
+
 def find_all(target: str) -> list[Mutant]:
-    spec = TARGETS[target]
-    return [m for rel in spec["sources"] for m in find_mutants(target, ROOT / rel, rel, spec.get("functions"))]
+    return [m for rel in TARGETS[target]["sources"]
+            for m in find_mutants(target, ROOT / rel, rel, functions_for(target, rel))]
 
 
 def find_mutants(target: str, path: Path, rel: str, functions: list[str] | None = None) -> list[Mutant]:
@@ -469,11 +478,7 @@ def main(argv=None) -> int:
 
     plan: dict[str, list[Mutant]] = {}
     for t in targets:
-        spec = TARGETS[t]
-        ms = []
-        for rel in spec["sources"]:
-            ms += find_mutants(t, ROOT / rel, rel, spec.get("functions"))
-        plan[t] = spread(ms, args.limit)
+        plan[t] = spread(find_all(t), args.limit)
     if args.survivors:
         earlier = json.loads(args.survivors.read_text())["mutants"]
         keep = {(m["path"], m["index"], m["what"]) for m in earlier if m["status"] == "survived"}
@@ -505,7 +510,7 @@ def main(argv=None) -> int:
                   f"limit {timeout:.0f} s each)", flush=True)
             for m in ms:
                 path = copy_root / m.path
-                with applied(path, m.index, TARGETS[t].get("functions")):
+                with applied(path, m.index, functions_for(t, m.path)):
                     outcome, dt, first = run_tests(copy_root, tests, timeout, k)
                 m.seconds = round(dt, 1)
                 m.status = {"failed": "killed", "passed": "survived", "timeout": "timeout"}[outcome]
