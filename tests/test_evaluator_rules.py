@@ -98,6 +98,8 @@ def test_the_evaluator_refuses_it_with_a_located_error(text, error, words):
     ("2 kN + 1 MPa", "cannot add pressure (stress, area load) to force"),
     ("1 m^2 + 1 m^3", "cannot add length³ (section modulus, volume) to area"),
     ("sin(2 m)", "sin() needs an angle, got length"),
+    ("1 kN/m^3 + 1 kN", "cannot add force to force/volume (unit weight)"),
+    ("1 kg/m + 1 kg", "cannot add mass to mass/length"),
 ])
 def test_the_message_names_both_dimensions_in_words(text, message):
     with pytest.raises(CalcError) as info:
