@@ -100,6 +100,8 @@ def test_the_evaluator_refuses_it_with_a_located_error(text, error, words):
     ("sin(2 m)", "sin() needs an angle, got length"),
     ("1 kN/m^3 + 1 kN", "cannot add force to force/volume (unit weight)"),
     ("1 kg/m + 1 kg", "cannot add mass to mass/length"),
+    ("1 kg/m^3 + 1 kg", "cannot add mass to density"),
+    ("1 K + 1 m", "cannot add length to temperature"),
 ])
 def test_the_message_names_both_dimensions_in_words(text, message):
     with pytest.raises(CalcError) as info:
