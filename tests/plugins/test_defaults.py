@@ -60,6 +60,7 @@ DEFAULTS = {
     ("column.buckling", "E"): None, ("column.buckling", "F_y"): None, ("column.buckling", "A"): None,
     ("column.buckling", "I_x"): None, ("column.buckling", "I_y"): None, ("column.buckling", "f_pl"): None,
     ("material.concrete", "rule"): "EN 1992-1-1",
+    ("material.steel", "t"): None,
     ("material.custom", "nu"): None, ("material.custom", "G"): None, ("material.custom", "f_u"): None,
     ("material.custom", "rho"): None,
 }
@@ -371,6 +372,14 @@ def test_column_proportional_limit_defaults_to_half_the_yield_stress():
 
 
 # ---------------------------------------------------------------- material
+
+
+def test_steel_without_a_thickness_takes_the_thinnest_band():
+    m = one('m = material.steel(grade="S355")\n').values["m"]
+    # S355, t ≤ 40 mm: f_y = 355 MPa (EN 1993-1-1 Table 3.1 — from memory)
+    assert f(m, "f_y", "MPa") == 355.0
+    thin = one('m = material.steel(grade="S355", t=10 mm)\n').values["m"]
+    assert f(thin, "f_y", "MPa") == f(m, "f_y", "MPa")
 
 
 def test_concrete_rule_defaults_to_en_1992():
