@@ -134,8 +134,11 @@ def _unchanged_files(out_dir: Path, member: str, formats: list[str], h: str) -> 
 def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[str], *, jobs: int = 1,
                    cluster: str | None = None, force: bool = False, paper: str | None = None,
                    overrides: dict[str, str] | None = None, progress: bool | None = None,
-                   out=print) -> tuple[int, Summary]:
-    """Build every member of ``table``; returns (exit status, summary). Exit 1 if any row failed."""
+                   out=print, runner: Callable | None = None) -> tuple[int, Summary]:
+    """Build every member of ``table``; returns (exit status, summary). Exit 1 if any row failed.
+
+    ``runner(log)`` may supply the function that turns items into outcomes (embedding, tests).
+    """
     from .output import ScheduleWriter, load_previous, write_member
 
     sheet = load_sheet(sheet_path)
@@ -167,7 +170,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
             rows_by_index[item.index] = row
             yield item
 
-    run = executor(jobs, cluster, "pdf" in formats, bar.log)
+    run = runner(bar.log) if runner else executor(jobs, cluster, "pdf" in formats, bar.log)
     try:
         for outcome in run(items()):
             row = rows_by_index.pop(outcome.index)
