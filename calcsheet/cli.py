@@ -152,8 +152,8 @@ def cmd_build(args) -> int:
     missing = _missing(args.sheets)
     if missing:
         return _usage(f"no such sheet: {missing[0]}")
-    if args.schedule or args.sweep:
-        from .schedule import cli_build  # schedules and sweeps: many runs of one sheet
+    if args.schedule or args.sweep or (len(args.sheets) > 1 and args.jobs != 1 and not args.since):
+        from .schedule import cli_build  # schedules, sweeps, and several sheets on every core
 
         return cli_build(args, formats, overrides)
     from .engine import run

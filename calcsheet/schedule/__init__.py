@@ -223,7 +223,11 @@ def cli_build(args, formats: list[str], overrides: dict[str, str]) -> int:
     if jobs < 1:
         print("calcsheet: error: -j needs a whole number of at least 1", file=sys.stderr)
         return 2
-    if len(args.sheets) != 1 and (args.schedule or args.sweep):
+    if not (args.schedule or args.sweep):
+        from .sheets import build_sheets
+
+        return build_sheets(args, formats, overrides, jobs)
+    if len(args.sheets) != 1:
         print("calcsheet: error: --schedule and --sweep take one sheet", file=sys.stderr)
         return 2
     if args.schedule and args.sweep:
