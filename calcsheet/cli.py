@@ -45,6 +45,9 @@ def _parser() -> argparse.ArgumentParser:
     b.add_argument("-j", "--jobs", type=int, metavar="N", help="worker processes (default: the number of cores)")
     b.add_argument("--cluster", metavar="tcp://HOST:PORT", help="send rows to a Dask scheduler (extra 'cluster')")
     b.add_argument("--force", action="store_true", help="rebuild members whose content hash has not changed")
+    b.add_argument("--size", metavar="NAME", help="pick the lightest catalogue section with every check OK for "
+                                                  "the text input NAME (with --from FAMILY)")
+    b.add_argument("--from", dest="family", metavar="FAMILY", help="catalogue family for --size (W, IPE, HEA…)")
 
     c = sub.add_parser("check", help="parse, resolve and dimension-check sheets without rendering")
     c.add_argument("sheets", nargs="+", type=Path)
@@ -152,7 +155,7 @@ def cmd_build(args) -> int:
     missing = _missing(args.sheets)
     if missing:
         return _usage(f"no such sheet: {missing[0]}")
-    if args.schedule or args.sweep or (len(args.sheets) > 1 and args.jobs != 1 and not args.since):
+    if args.schedule or args.sweep or args.size or args.family or (len(args.sheets) > 1 and args.jobs != 1 and not args.since):
         from .schedule import cli_build  # schedules, sweeps, and several sheets on every core
 
         return cli_build(args, formats, overrides)

@@ -31,17 +31,22 @@ class SheetInfo:
     meta: dict
     fingerprint: dict
     errors: str = ""  # formatted errors: the sheet itself does not build
+    text_inputs: list[str] = field(default_factory=list)  # inputs written as text ("W18X50")
 
 
 def load_sheet(path: Path) -> SheetInfo:
     """Read, parse and check the sheet once in the calling process (its inputs, its fingerprint)."""
+    from .. import nodes as N
     from ..engine import run
 
     source = path.read_text(encoding="utf-8")
     result = run(source, path=str(path), evaluate=False)
     errors = result.format_diagnostics() if result.errors else ""
-    return SheetInfo(str(path), source, list(result.inputs), list(result.resolution.defined_at)
-                     if result.resolution else [], dict(result.meta), sheet_fingerprint(str(path), source), errors)
+    res = result.resolution
+    texts = [n for n in result.inputs if res is not None and isinstance(getattr(res.statements.get(n), "expr", None),
+                                                                        N.Text)]
+    return SheetInfo(str(path), source, list(result.inputs), list(res.defined_at) if res else [], dict(result.meta),
+                     sheet_fingerprint(str(path), source), errors, texts)
 
 
 @dataclass
@@ -223,6 +228,19 @@ def cli_build(args, formats: list[str], overrides: dict[str, str]) -> int:
     if jobs < 1:
         print("calcsheet: error: -j needs a whole number of at least 1", file=sys.stderr)
         return 2
+    if args.size or args.family:
+        if not (args.size and args.family) or args.schedule or args.sweep or len(args.sheets) != 1:
+            print("calcsheet: error: --size NAME needs --from FAMILY and one sheet (no --schedule/--sweep)",
+                  file=sys.stderr)
+            return 2
+        from .sizing import build_sizing
+
+        try:
+            return build_sizing(args.sheets[0], args.size, args.family, args.out, formats, jobs=jobs,
+                                cluster=args.cluster, paper=args.paper, overrides=overrides)
+        except ScheduleError as exc:
+            print(str(exc), file=sys.stderr)
+            return 1
     if not (args.schedule or args.sweep):
         from .sheets import build_sheets
 

@@ -30,6 +30,8 @@ class Task:
     label: str = ""  # how messages name the row, e.g. "row 3 (B-3)"
     where: str = ""  # file:row of the row
     subject_suffix: str = ""  # appended to the package's subject (the member's name)
+    extra_front: str = ""  # an escaped HTML page put after the summary (auto-sizing's selection page)
+    extra_json: tuple = ()  # (key, JSON-able value) pairs added to the package's JSON
 
 
 @dataclass
@@ -214,7 +216,7 @@ def render_member(result, task: Task) -> dict[str, bytes]:
     files: dict[str, bytes] = {}
     html = None
     if "html" in task.formats or "pdf" in task.formats:
-        html = StampedDocument(result, paper=task.paper).html()
+        html = StampedDocument(result, paper=task.paper, extra_front=task.extra_front).html()
     if "html" in task.formats:
         files["html"] = html.encode("utf-8")
     if "pdf" in task.formats:
@@ -222,6 +224,8 @@ def render_member(result, task: Task) -> dict[str, bytes]:
     if "json" in task.formats:
         data = result.to_json()
         data["build"] = {"member": task.member, "content_hash": task.content_hash}
+        for k, v in task.extra_json:
+            data[k] = v
         files["json"] = (json.dumps(data, indent=2, ensure_ascii=False) + "\n").encode("utf-8")
     return files
 
