@@ -139,3 +139,27 @@ def test_set_applies_to_every_row_and_a_row_value_wins(beam, table, tmp_path):
     rows = json.loads((out / "schedule.json").read_text())["members"]
     assert rows[0]["utilisation"]["check-1"] == pytest.approx(1 * 9 / 8 / 5)
     assert rows[1]["utilisation"]["check-1"] == pytest.approx(1 * 16 / 8 / 5)
+
+
+def test_a_sheet_with_errors_builds_no_member(tmp_path, table, capsys):
+    sheet = tmp_path / "bad.calc"
+    sheet.write_text("w = 2 kN/m\nL = 3 m\nM [kN*m] = w*L\n")
+    out = tmp_path / "o"
+    assert main(["build", str(sheet), "--schedule", str(table("member,L\nB-1,3 m\n")), "-o", str(out),
+                 "-j", "1"]) == 1
+    err = capsys.readouterr().err
+    assert f"{sheet}:3:4: error: M is declared [kN*m]" in err and "no member built" in err
+    assert not out.exists()
+
+
+@pytest.mark.parametrize("extra,code", [
+    (["--schedule", "nosuch.csv"], 2), (["--schedule", "m.csv", "--sweep", "L=1:2:1 m"], 2), (["-j", "0"], 2),
+    (["--size", "L"], 2),
+])
+def test_option_mistakes_are_usage_errors(beam, table, tmp_path, extra, code, monkeypatch):
+    monkeypatch.chdir(tmp_path)
+    table("member,L\nB-1,3 m\n", name="m.csv")
+    args = ["build", str(beam), "-o", str(tmp_path / "o"), *extra]
+    if "--schedule" not in extra and "--size" not in extra:
+        args += ["--schedule", "m.csv"]
+    assert main(args) == code
