@@ -69,6 +69,7 @@ class Progress:
         if enabled:
             from tqdm import tqdm
 
+            tqdm.monitor_interval = 0  # no monitor thread: the pool may then fork safely
             self.bar = tqdm(total=total, desc=desc, unit="member", file=sys.stderr, leave=False, dynamic_ncols=True)
 
     def log(self, message: str) -> None:

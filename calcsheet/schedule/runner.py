@@ -8,6 +8,7 @@ in flight, so a schedule of any length runs in constant memory.
 from __future__ import annotations
 
 import os
+import sys
 from collections import deque
 from typing import Callable, Iterable, Iterator
 
@@ -23,6 +24,19 @@ def default_jobs() -> int:
         return max(1, os.cpu_count() or 1)
 
 
+def pool_context():
+    """Fork when it is safe (Linux, and this process runs no other thread): workers start at once with the
+    modules already imported. Otherwise spawn fresh interpreters (they import pint, lark and WeasyPrint once,
+    in the initializer); forking a process that holds threads can deadlock on a lock held at the fork."""
+    import multiprocessing as mp
+    import threading
+
+    if sys.platform.startswith("linux") and threading.active_count() == 1 and \
+            "fork" in mp.get_all_start_methods():
+        return mp.get_context("fork")
+    return mp.get_context("spawn")
+
+
 def run_serial(items: Iterable, *, pdf: bool = False, log: Callable[[str], None] = lambda m: None
                ) -> Iterator[Outcome]:
     for item in items:
@@ -31,13 +45,13 @@ def run_serial(items: Iterable, *, pdf: bool = False, log: Callable[[str], None]
 
 def run_pool(items: Iterable, jobs: int, *, pdf: bool = False, log: Callable[[str], None] = lambda m: None,
              window: int | None = None) -> Iterator[Outcome]:
-    """A process pool (spawned workers, each importing pint, lark and WeasyPrint once)."""
+    """A process pool whose workers import pint, lark and (for PDFs) WeasyPrint once, before the first row."""
     import multiprocessing as mp
     from concurrent.futures import ProcessPoolExecutor
     from concurrent.futures.process import BrokenProcessPool
 
     window = window or max(4, 4 * jobs)
-    ctx = mp.get_context("spawn")  # no fork of a process that may hold threads (progress bar, pint caches)
+    ctx = pool_context()
 
     def new_pool():
         return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx, initializer=init_worker, initargs=(pdf,))

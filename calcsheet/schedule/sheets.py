@@ -55,15 +55,15 @@ def build_one(sheet: str, overrides: dict, out: str, formats: list[str], paper: 
 
 def build_sheets(args, formats: list[str], overrides: dict, jobs: int) -> int:
     """Several sheets on ``jobs`` worker processes; messages and exit status as a serial build gives them."""
-    import multiprocessing as mp
     from concurrent.futures import ProcessPoolExecutor
 
+    from .runner import pool_context
     from .work import init_worker
 
     sheets = [str(s) for s in args.sheets]
     if jobs <= 1:
         return _report(sheets, (build_one(s, overrides, str(args.out), formats, args.paper) for s in sheets), args)
-    with ProcessPoolExecutor(max_workers=min(jobs, len(sheets)), mp_context=mp.get_context("spawn"),
+    with ProcessPoolExecutor(max_workers=min(jobs, len(sheets)), mp_context=pool_context(),
                              initializer=init_worker, initargs=("pdf" in formats,)) as pool:
         futures = deque(pool.submit(build_one, s, overrides, str(args.out), formats, args.paper) for s in sheets)
         return _report(sheets, (futures.popleft().result() for _ in sheets), args)

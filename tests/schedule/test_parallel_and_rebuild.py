@@ -112,3 +112,35 @@ def test_the_progress_bar_counts_members_on_a_terminal(capsys):
     bar.close()
     err = capsys.readouterr().err
     assert "3/3" in err and "a message above the bar" in err
+
+
+def _die_once(task):
+    """Kill the pool worker the first time it runs member B-2 (test only; the marker lives beside the sheet)."""
+    import os
+    from pathlib import Path
+
+    from calcsheet.schedule.work import build_task
+
+    marker = Path(task.sheet).parent / "died"
+    if task.member == "B-2" and not marker.exists():
+        marker.touch()
+        os._exit(3)
+    return build_task(task)
+
+
+@pytest.mark.skipif(not __import__("sys").platform.startswith("linux"), reason="forks the test process")
+def test_a_pool_worker_that_dies_has_its_rows_run_again_and_reported(beam, table, tmp_path, capsys, monkeypatch):
+    import multiprocessing as mp
+
+    from calcsheet.schedule import runner
+
+    t = table("member,L\nB-1,3 m\nB-2,4 m\nB-3,5 m\n")
+    _build(beam, t, tmp_path / "serial", "-j", "1")
+    monkeypatch.setattr(runner, "build_task", _die_once)
+    monkeypatch.setattr(runner, "pool_context", lambda: mp.get_context("fork"))  # the workers see the patch
+    capsys.readouterr()
+    assert _build(beam, t, tmp_path / "pool", "-j", "2") == 0
+    err = capsys.readouterr().err
+    assert (tmp_path / "died").exists()
+    assert f"{t}:3: row 2 (B-2): a worker process died; running the row again (attempt 2)" in err
+    assert tree(tmp_path / "pool") == tree(tmp_path / "serial")
