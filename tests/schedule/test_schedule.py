@@ -163,3 +163,19 @@ def test_option_mistakes_are_usage_errors(beam, table, tmp_path, extra, code, mo
     if "--schedule" not in extra and "--size" not in extra:
         args += ["--schedule", "m.csv"]
     assert main(args) == code
+
+
+from hypothesis import given, settings, strategies as st  # noqa: E402
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.text(min_size=0, max_size=70))
+def test_an_accepted_member_name_always_stays_inside_the_output_folder(name):
+    from pathlib import Path
+
+    if member_name_problem(name) is None:
+        out = Path("/srv/out")
+        for fmt in ("html", "pdf", "json"):
+            p = out / f"{name}.{fmt}"
+            assert p.parent == out and p.name == f"{name}.{fmt}" and not p.name.startswith(".")
+        assert name.strip() == name and "/" not in name and "\\" not in name and ".." not in name.split(".")
