@@ -12,7 +12,7 @@ import math
 from pathlib import Path
 
 from ..svg import Svg
-from .html import esc
+from ..svg import esc  # html.escape(quote=True)
 
 OK_COLOUR, NG_COLOUR, ERR_COLOUR, AXIS = "#2f7d4a", "#b42318", "#6b7280", "#333"
 MARKERS = ["circle", "square", "diamond", "triangle", "cross"]

@@ -255,9 +255,9 @@ class ScheduleWriter:
 
 
 def _caution() -> str:
-    from ..package import CAUTION
+    from .work import caution
 
-    return CAUTION
+    return caution()
 
 
 def load_previous(out_dir: Path) -> tuple[dict[str, dict], dict[str, dict]]:

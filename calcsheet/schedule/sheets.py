@@ -22,7 +22,6 @@ class SheetOutcome:
 
 
 def build_one(sheet: str, overrides: dict, out: str, formats: list[str], paper: str | None) -> SheetOutcome:
-    from ..cli import _shown
     from ..engine import run
     from ..package import write_package
 
@@ -82,3 +81,12 @@ def _report(sheets, outcomes, args) -> int:
         elif o.n_ng and args.fail_on_ng and status == 0:
             status = 3
     return status
+
+
+def _shown(value) -> str:
+    """A value as the build command prints an override."""
+    import pint
+
+    from ..diff import show_quantity
+
+    return show_quantity(value) if isinstance(value, pint.Quantity) else str(value)

@@ -50,7 +50,7 @@ def _quoted(designation: str) -> str:
 
 def selection_page(name: str, family: str, source: str, chosen: tuple, lighter: tuple | None,
                    lighter_outcome, chosen_outcome, tried: int, total: int) -> str:
-    from ..render.html import esc
+    from ..svg import esc
 
     def ratio(r):
         return "—" if r is None else f"{r:.2f}"

@@ -17,7 +17,7 @@ from dataclasses import dataclass
 from pathlib import Path
 
 from .table import ScheduleError
-from .work import Task
+from .work import Task, caution
 
 MAX_POINTS = 2001
 _NUM = re.compile(r"\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$")
@@ -106,7 +106,7 @@ def build_sweep(sheet_path: Path, spec_text: str, out_dir: Path, formats: list[s
                 out=print) -> int:
     from .. import __version__
     from ..atomic import write_atomic
-    from ..package import ASSETS, CAUTION, pdf_bytes
+    from ..package import ASSETS, pdf_bytes
     from ..render import schedule as RS
     from . import Progress, executor, load_sheet
 
@@ -196,7 +196,7 @@ def build_sweep(sheet_path: Path, spec_text: str, out_dir: Path, formats: list[s
             status = "ERROR" if p["error"] else ("OK" if all(p["ok"].values()) else "NG")
             buf.write(f"<tr class='{ {'OK': 'ok', 'NG': 'ng'}.get(status, 'err') }'><td>{RS.esc(p['text'])}</td>"
                       f"{cells}<td class='st'>{status}</td></tr>")
-        buf.write(f"</tbody></table><div class='caution'><strong>Caution.</strong> {RS.esc(CAUTION)}</div></main>")
+        buf.write(f"</tbody></table><div class='caution'><strong>Caution.</strong> {RS.esc(caution())}</div></main>")
         buf.write(RS.page_end("", script=False))
         html = buf.getvalue()
         if "html" in formats:

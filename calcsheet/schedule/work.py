@@ -124,10 +124,9 @@ def init_worker(pdf: bool = False) -> None:
     """Pool initializer: import pint, lark and (when PDFs are written) WeasyPrint once per process,
     and build the unit registry, the grammar and the plugin table before the first row arrives."""
     global _WORKER_READY
-    import lark  # noqa: F401
     import pint  # noqa: F401
 
-    from .. import engine, units
+    from .. import engine, units  # the engine imports the parser, the one module that imports lark
     from ..plugin import default_registry
 
     units.registry()
@@ -200,7 +199,7 @@ def build_task(task: Task) -> Outcome:
 def render_member(result, task: Task) -> dict[str, bytes]:
     """The member's package as bytes per format, each stamped with the content hash."""
     from ..package import PackageDocument, pdf_bytes
-    from ..render.html import esc
+    from ..svg import esc
 
     if task.subject_suffix:
         subject = str(result.meta.get("subject") or Path(task.sheet).stem)
@@ -211,12 +210,14 @@ def render_member(result, task: Task) -> dict[str, bytes]:
             base = super().footer()
             stamp = (f'<div>Member {esc(task.member)} · build sha256 '
                      f'<span class="hash" id="content-hash">{esc(task.content_hash)}</span></div>')
-            return base.replace("</footer>", stamp + "</footer>", 1) if "</footer>" in base else base + stamp
+            text = str(base)
+            text = text.replace("</footer>", stamp + "</footer>", 1) if "</footer>" in text else text + stamp
+            return type(base)(text)  # the document's own markup type (already-escaped HTML)
 
     files: dict[str, bytes] = {}
     html = None
     if "html" in task.formats or "pdf" in task.formats:
-        html = StampedDocument(result, paper=task.paper, extra_front=task.extra_front).html()
+        html = StampedDocument(result, paper=task.paper, extra_front=markup(task.extra_front)).html()
     if "html" in task.formats:
         files["html"] = html.encode("utf-8")
     if "pdf" in task.formats:
@@ -244,3 +245,21 @@ def stamp_of(path: Path) -> str | None:
     except (OSError, ValueError, UnicodeDecodeError, AttributeError):
         return None
     return None
+
+
+def markup(text: str):
+    """Already-escaped HTML as the renderer's markup type, where it has one."""
+    try:
+        from ..render.markup import Html
+    except ImportError:
+        return text
+    return Html(text)
+
+
+def caution() -> str:
+    """The package's caution sentence, wherever the renderer keeps it."""
+    try:
+        from ..render.page import CAUTION
+    except ImportError:
+        from ..package import CAUTION
+    return CAUTION
