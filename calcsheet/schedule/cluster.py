@@ -23,7 +23,8 @@ from .table import ScheduleError
 from .work import Outcome, build_task, init_worker
 
 CONNECT_TIMEOUT = "20s"
-REPORT_EVERY = 32  # rows between two questions to the scheduler about retried rows
+REPORT_EVERY = 8  # chunks between two questions to the scheduler about retried rows
+CHUNK = 4  # rows per cluster task
 
 try:  # the extra may be absent; the class is only needed when it is there
     from distributed.diagnostics.plugin import WorkerPlugin as _Base
@@ -64,10 +65,15 @@ def connect(address: str):
         raise ScheduleError("--cluster", f"cannot reach the scheduler at {address}: {exc}") from None
 
 
+def run_chunk(task_fn, tasks):
+    """Runs on a worker: several consecutive rows in one task (fewer round trips through the scheduler)."""
+    return [task_fn(t) for t in tasks]
+
+
 def run_cluster(items: Iterable, address: str | None = None, *, pdf: bool = False,
                 log: Callable[[str], None] = lambda m: None, client=None, task_fn=build_task,
-                window: int | None = None) -> Iterator[Outcome]:
-    """Yield one Outcome per item, in order; at most ``window`` rows are in flight."""
+                window: int | None = None, chunk: int = CHUNK) -> Iterator[Outcome]:
+    """Yield one Outcome per item, in order; rows go in chunks of ``chunk``, at most ``window`` chunks in flight."""
     from distributed import KilledWorker
 
     own = client is None
@@ -77,63 +83,86 @@ def run_cluster(items: Iterable, address: str | None = None, *, pdf: bool = Fals
         register = getattr(client, "register_plugin", None) or client.register_worker_plugin
         register(WorkerSetup(pdf), name=WorkerSetup.name)
         n_workers = max(1, len(client.scheduler_info().get("workers", {})))
-        window = window or max(8, 4 * n_workers)
+        window = window or max(4, 2 * n_workers)
         run_id = uuid.uuid4().hex[:12]
-        pending: deque = deque()  # [item, future|None, attempts]
-        to_ask: list = []  # (future, task) finished, not yet asked about
+        pending: deque = deque()  # [Outcome] or [tasks, future, attempts]
+        to_ask: list = []  # (future, tasks) finished, not yet asked about
+        refused = []
         it = iter(items)
         exhausted = False
 
-        def submit(task, attempt):
-            return client.submit(task_fn, task, key=f"calcsheet-{run_id}-{task.index}-{attempt}", pure=False)
+        def submit(tasks, attempt):
+            return client.submit(run_chunk, task_fn, tasks, key=f"calcsheet-{run_id}-{tasks[0].index}-{attempt}",
+                                 pure=False)
 
         def ask(final=False):
             if not to_ask or (len(to_ask) < REPORT_EVERY and not final):
                 return
             keys = [f.key for f, _ in to_ask]
-            try:
-                counts = client.run_on_scheduler(_suspicious, keys=keys)
-            except Exception as exc:  # a scheduler that refuses to run our function: say so once
-                log(f"--cluster: cannot ask the scheduler which rows were retried ({type(exc).__name__})")
-                counts = {}
-            for fut, task in to_ask:
+            counts = {}
+            if not refused:
+                try:
+                    counts = client.run_on_scheduler(_suspicious, keys=keys)
+                except Exception as exc:  # a scheduler that refuses to run our function: say so once
+                    refused.append(exc)
+                    log(f"--cluster: cannot ask the scheduler which rows were retried ({type(exc).__name__})")
+            for fut, tasks in to_ask:
                 n = counts.get(fut.key)
-                if n:
+                for task in tasks if n else ():
                     log(f"{task.where}: {task.label}: its worker died; the scheduler ran the row again "
                         f"({n} time(s))")
             to_ask.clear()
 
-        while True:
+        def fill():
+            nonlocal exhausted
+            batch: list = []
             while not exhausted and len(pending) < window:
                 try:
                     item = next(it)
                 except StopIteration:
                     exhausted = True
                     break
-                pending.append([item, None if isinstance(item, Outcome) else submit(item, 1), 1])
+                if isinstance(item, Outcome):
+                    if batch:
+                        pending.append([batch, submit(batch, 1), 1])
+                        batch = []
+                    pending.append([item])
+                    continue
+                batch.append(item)
+                if len(batch) >= chunk:
+                    pending.append([batch, submit(batch, 1), 1])
+                    batch = []
+            if batch:
+                pending.append([batch, submit(batch, 1), 1])
+
+        while True:
+            fill()
             if not pending:
                 break
-            item, fut, attempts = pending[0]
-            if fut is None:
+            head = pending[0]
+            if len(head) == 1:
                 pending.popleft()
-                yield item
+                yield head[0]
                 continue
+            tasks, fut, attempts = head
             try:
-                out = fut.result()
+                outs = fut.result()
             except KilledWorker:
                 if attempts > RETRIES:
                     pending.popleft()
-                    yield _died(item, attempts)
+                    for t in tasks:
+                        yield _died(t, attempts)
                     continue
-                log(f"{item.where}: {item.label}: workers died running this row; submitting it again "
-                    f"(attempt {attempts + 1})")
-                pending[0][1] = submit(item, attempts + 1)
-                pending[0][2] = attempts + 1
+                for t in tasks:
+                    log(f"{t.where}: {t.label}: workers died running this row; submitting it again "
+                        f"(attempt {attempts + 1})")
+                head[1] = submit(tasks, attempts + 1)
+                head[2] = attempts + 1
                 continue
             pending.popleft()
-            to_ask.append((fut, item))
+            to_ask.append((fut, tasks))
             ask()
-            yield out
+            yield from outs
         ask(final=True)
     finally:
         if own:
