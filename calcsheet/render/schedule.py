@@ -23,6 +23,7 @@ EXTRA_CSS = """
 table.members { border-collapse: collapse; width: 100%; font-size: 7.8pt; }
 table.members th, table.members td { border-bottom: 0.5pt solid #bbb; padding: 0.8mm 1.2mm; text-align: left; }
 table.members thead th { border-bottom: 1pt solid #333; background: #f3f4f6; font-size: 7.2pt; }
+table.members td.v { white-space: nowrap; }
 table.members td.u { text-align: right; white-space: nowrap; font-variant-numeric: tabular-nums; }
 table.members td.u.ng { color: #fff; background: #a11d1d; font-weight: bold; }
 table.members td.u.gov { font-weight: bold; text-decoration: underline; }
@@ -136,7 +137,7 @@ def table_row(rec: dict, checks: list[dict], columns: list[str]) -> str:
              f'<td data-v="{esc(rec["member"])}">{_member_link(rec)}</td>']
     for c in columns:
         v = values.get(c, "")
-        cells.append(f'<td data-v="{esc(v)}">{esc(v)}</td>')
+        cells.append(f'<td class="v" data-v="{esc(v)}">{esc(v)}</td>')
     util = rec.get("utilisation", {})
     gov = rec.get("governing")
     for c in checks:
