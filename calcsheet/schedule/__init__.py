@@ -57,7 +57,8 @@ class Summary:
     errors: int = 0
     built: int = 0
     unchanged: int = 0
-    written: list[Path] = field(default_factory=list)
+    files: int = 0  # member files written (counted, not kept: a long schedule stays in flat memory)
+    schedule_files: list[Path] = field(default_factory=list)
 
 
 class Progress:
@@ -187,7 +188,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
                 bar.log(e)
             if outcome.ok and not outcome.skipped:
                 try:
-                    summary.written += write_member(out_dir, outcome)
+                    summary.files += len(write_member(out_dir, outcome))
                 except OSError as exc:
                     outcome.ok = False
                     outcome.errors.append(f"{row.where}: error: cannot write the package of {row.member}: {exc}")
@@ -207,7 +208,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
             bar.step()
     finally:
         bar.close()
-    summary.written += writer.close()
+    summary.schedule_files = writer.close()
     out(f"{table}: {summary.members} members: {summary.ok} OK, {summary.ng} NG, {summary.errors} not built; "
         f"{summary.built} built, {summary.unchanged} unchanged -> {out_dir / 'schedule.html' if 'html' in formats else out_dir / 'schedule.json'}")
     return (1 if summary.errors else 0), summary
