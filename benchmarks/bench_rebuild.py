@@ -15,7 +15,8 @@ from pathlib import Path
 
 import calcsheet
 from calcsheet.incremental import rebuild, recompute
-from calcsheet.package import PackageDocument, pdf_bytes
+from calcsheet.package import pdf_bytes
+from calcsheet.render.page import PackageDocument
 from timing import best
 
 ROOT = Path(__file__).resolve().parent.parent

@@ -202,7 +202,7 @@ def cmd_check(args) -> int:
     missing = _missing(args.sheets)
     if missing:
         return _usage(f"no such sheet: {missing[0]}")
-    from . import checkreport as R
+    from .render import check as R
     from .engine import run
 
     status = EXIT_OK
@@ -270,7 +270,8 @@ def _shown(value) -> str:
 
 def since_options(since: str, sheet: Path, result, many: bool) -> dict:
     """PackageDocument options for ``build --since``: the changes page and the changed names."""
-    from .diff import DiffSourceError, changes_page_html, diff_snapshots, load_side, snapshot_of_result
+    from .diff import DiffSourceError, diff_snapshots, load_side, snapshot_of_result
+    from .render.diff import changes_page
 
     spec = since
     if not Path(since).exists() and ":" not in since:
@@ -282,22 +283,23 @@ def since_options(since: str, sheet: Path, result, many: bool) -> dict:
     except DiffSourceError as exc:
         raise ValueError(f"--since: {exc}") from None
     d = diff_snapshots(old, snapshot_of_result(result, str(sheet)))
-    return {"extra_front": changes_page_html(d), "changed": d.changed_names}
+    return {"extra_front": changes_page(d), "changed": d.changed_names}
 
 
 def cmd_diff(args) -> int:
     import json
 
-    from .diff import DiffSourceError, diff_specs, to_text
+    from .diff import DiffSourceError, diff_specs
+    from .render import diff as printers
 
     try:
         d = diff_specs(args.old, args.new)
     except DiffSourceError as exc:
         return _usage(str(exc))
     if args.format == "json":
-        print(json.dumps(d.to_json(), indent=2, ensure_ascii=False))
+        print(json.dumps(printers.to_json(d), indent=2, ensure_ascii=False))
     else:
-        print(to_text(d))
+        print(printers.text(d))
     return EXIT_ERRORS if d.new.errors else EXIT_OK
 
 

@@ -49,7 +49,7 @@ def _u(text: str) -> pint.Unit:
 
 @lru_cache(maxsize=None)
 def _unit_cache(text: str) -> pint.Unit:
-    from .parser import split_unit
+    from .units import split_unit
 
     return U.build_unit(split_unit(text))
 

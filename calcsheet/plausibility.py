@@ -158,7 +158,7 @@ def material_of(name: str) -> str:
 
 @lru_cache(maxsize=None)
 def _unit(text: str):
-    from .parser import split_unit
+    from .units import split_unit
 
     return U.build_unit(split_unit(text)) if text else U.registry().Unit("")
 

@@ -9,11 +9,12 @@ from __future__ import annotations
 
 import difflib
 import math
+import re
 from functools import lru_cache
 
 import pint
 
-from .errors import UnknownUnitError
+from .errors import SheetSyntaxError, Span, UnknownUnitError
 
 # Trade units pint lacks, defined exactly from their parts.
 # (A unit's symbol defaults to its name; repeating it as "= psf" makes pint warn.)
@@ -124,6 +125,57 @@ def build_unit(factors: tuple[tuple[str, float], ...]) -> pint.Unit:
         base = unit_named(name)
         unit = unit * (base if exp == 1 else base**exp)
     return unit
+
+
+# ---------------------------------------------------------------- unit text
+# How a unit is written in a sheet: after a number (``5 kN/m``), in a declared
+# unit (``[kN*m]``) and in a plugin's ``unit=`` string. The grammar's UNIT
+# terminal decides where a unit ends; these read what it matched.
+
+_SUPER = str.maketrans("²³⁴", "234")
+
+
+def unit_name_alternatives() -> str:
+    """The names that may continue a unit after ``*`` or ``/`` (the grammar's ``{unit_names}``), longest first."""
+    names = sorted((n for n in VOCABULARY if re.fullmatch(r"[^\W\d]\w*", n)), key=len, reverse=True)
+    return "|".join(re.escape(n) for n in names)
+
+
+def split_unit(text: str) -> tuple[tuple[str, float], ...]:
+    """'kN/m^2' -> (('kN', 1), ('m', -2)). The grammar has already vetted the shape."""
+    factors: list[tuple[str, float]] = []
+    sign = 1
+    for piece in re.split(r"([*/·])", text.replace(" ", "")):
+        if piece in ("*", "·"):
+            sign = 1
+            continue
+        if piece == "/":
+            sign = -1
+            continue
+        if not piece:
+            continue
+        m = re.fullmatch(r"(.+?)(?:\^(-?[0-9]+(?:\.[0-9]+)?)|([²³⁴]))?", piece)
+        name, exp, sup = m.group(1), m.group(2), m.group(3)
+        power = float(exp) if exp else float(sup.translate(_SUPER)) if sup else 1.0
+        factors.append((name, sign * power))
+    return tuple(factors)
+
+
+_UNIT_TEXT = re.compile(
+    r"\s*(?:[^\W\d]\w*|%|°)(?:\^-?[0-9]+|[²³⁴])?(?:\s*[*/·]\s*(?:[^\W\d]\w*)(?:\^-?[0-9]+|[²³⁴])?)*\s*"
+)
+
+
+def parse_unit_text(text: str, span: Span | None = None) -> tuple[tuple[str, float], ...]:
+    """A declared unit ``[kN*m]`` (or a plugin's ``unit=`` string); '1' and '-' mean dimensionless."""
+    stripped = text.strip()
+    if stripped in ("1", "-", ""):
+        return ()
+    if not _UNIT_TEXT.fullmatch(stripped):
+        raise SheetSyntaxError(
+            f"'{stripped}' is not a unit", span, hint="write units like kN*m, N/mm^2, mm^4 (no numbers or brackets)"
+        )
+    return split_unit(stripped)
 
 
 # ---------------------------------------------------------------- dimensions

@@ -19,8 +19,7 @@ import time
 from http.server import BaseHTTPRequestHandler, ThreadingHTTPServer
 from pathlib import Path
 
-from .atomic import write_atomic
-from .render.html import esc
+from .render.preview import error_page, message_page, refresh_script
 
 HOST = "127.0.0.1"
 POLL_SECONDS = 0.25
@@ -34,47 +33,6 @@ def is_loopback(address: str) -> bool:
     if ip.version == 6 and ip.ipv4_mapped is not None:
         ip = ip.ipv4_mapped
     return ip.is_loopback
-
-
-def refresh_script(version: int, nonce: str) -> str:
-    """Polls /version on the page's own origin and reloads when the build moves on (keeps the scroll)."""
-    return f"""<script nonce="{esc(nonce)}">
-(function () {{
-  var shown = {int(version)};
-  try {{
-    var y = sessionStorage.getItem("calcsheet-scroll");
-    if (y !== null) {{ sessionStorage.removeItem("calcsheet-scroll"); window.scrollTo(0, parseInt(y, 10) || 0); }}
-  }} catch (e) {{}}
-  function poll() {{
-    fetch("/version", {{cache: "no-store", credentials: "same-origin"}})
-      .then(function (r) {{ return r.json(); }})
-      .then(function (v) {{
-        if (v.version !== shown) {{
-          try {{ sessionStorage.setItem("calcsheet-scroll", String(window.scrollY)); }} catch (e) {{}}
-          location.reload();
-        }} else {{ setTimeout(poll, 400); }}
-      }})
-      .catch(function () {{ setTimeout(poll, 1500); }});
-  }}
-  setTimeout(poll, 400);
-}})();
-</script>"""
-
-
-def error_page(sheet: str, result, last_good: Path | None, version: int, nonce: str) -> str:
-    """What the browser shows while the sheet has errors: the diagnostics, not a blank page."""
-    diags = "\n\n".join(d.format(result.source_for(d)) for d in result.diagnostics if d.severity == "error")
-    kept = (f"<p>The last good package is kept at <code>{esc(last_good)}</code>.</p>" if last_good
-            else "<p>No good build yet.</p>")
-    return f"""<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8"><title>{esc(Path(sheet).name)}: errors</title>
-<style>body {{ font-family: sans-serif; margin: 2em; }} pre {{ background: #fff4f4; border: 1px solid #c00;
-padding: 1em; white-space: pre-wrap; }} h1 {{ color: #a00; font-size: 1.3em; }}</style></head><body>
-<h1 class="watch-errors">{esc(Path(sheet).name)}: {len(result.errors)} error(s) — package not rebuilt</h1>
-<pre class="diagnostics">{esc(diags)}</pre>
-{kept}
-{refresh_script(version, nonce)}
-</body></html>"""
 
 
 class Preview:
@@ -119,7 +77,8 @@ class Preview:
     def build(self) -> str:
         """Rebuild from the sheet on disk; returns a one-line status."""
         from .incremental import rebuild
-        from .package import PackageDocument, write_package
+        from .package import write_package
+        from .render.page import PackageDocument
 
         try:
             source = self.sheet.read_text(encoding="utf-8")
@@ -153,8 +112,7 @@ class Preview:
         return status
 
     def _publish_text(self, message: str) -> str:
-        html = (f"<!DOCTYPE html><html><head><meta charset='utf-8'><title>calcsheet</title></head><body>"
-                f"<pre>{esc(message)}</pre>{refresh_script(self.version + 1, self.nonce)}</body></html>")
+        html = message_page(message, self.version + 1, self.nonce)
         with self.lock:
             self.page = html.encode("utf-8")
             self.version += 1

@@ -3,7 +3,7 @@ import pytest
 
 from calcsheet import units as U
 from calcsheet.display import DisplayPolicy, split_number, unit_text
-from calcsheet.parser import split_unit
+from calcsheet.units import split_unit
 
 
 def qty(v, unit):

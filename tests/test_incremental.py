@@ -8,7 +8,7 @@ import calcsheet
 from calcsheet import evaluator
 from calcsheet.evaluator import Evaluator
 from calcsheet.incremental import rebuild, recompute
-from calcsheet.package import PackageDocument
+from calcsheet.render.page import PackageDocument
 
 SHEET = textwrap.dedent("""\
     ---

@@ -2,12 +2,12 @@
 import io
 import os
 import textwrap
-from pathlib import Path
 
 import pytest
 
 import calcsheet
-from calcsheet.package import make_fetcher, pdf_bytes, write_package, PackageDocument
+from calcsheet.package import make_fetcher, pdf_bytes, write_package
+from calcsheet.render.page import PackageDocument
 
 pypdf = pytest.importorskip("pypdf")
 

@@ -3,7 +3,8 @@
 The golden files are a regression check on *rendering* (a changed line means
 the package a reviewer reads changed); the engineering numbers of the demo
 are checked separately against a hand calculation below. Regenerate golden
-files deliberately with CALCSHEET_UPDATE_GOLDEN=1 and review the diff.
+files deliberately with CALCSHEET_UPDATE_GOLDEN=1 and review the diff; a missing golden file
+is a failure, never written silently.
 """
 import os
 from pathlib import Path
@@ -11,7 +12,7 @@ from pathlib import Path
 import pytest
 
 import calcsheet
-from calcsheet.render.text import TextPrinter
+from calcsheet.render.text import TextDocument
 
 ROOT = Path(__file__).resolve().parents[1]
 SHEETS = sorted((ROOT / "sheets").glob("*.calc"))
@@ -22,10 +23,11 @@ GOLDEN = Path(__file__).parent / "golden"
 def test_sheet_builds_without_errors_and_matches_its_golden_rendering(sheet):
     r = calcsheet.run(sheet)
     assert r.ok, r.format_diagnostics()
-    text = TextPrinter(sigfigs=r.policy.sigfigs).items(r.items).strip() + "\n"
+    text = TextDocument(sigfigs=r.policy.sigfigs).items(r.items).strip() + "\n"
     golden = GOLDEN / f"{sheet.stem}.txt"
-    if os.environ.get("CALCSHEET_UPDATE_GOLDEN") or not golden.exists():
+    if os.environ.get("CALCSHEET_UPDATE_GOLDEN") == "1":
         golden.write_text(text, encoding="utf-8")
+    assert golden.exists(), f"no golden rendering {golden.name}: write it with CALCSHEET_UPDATE_GOLDEN=1 and review it"
     assert text == golden.read_text(encoding="utf-8")
 
 
@@ -65,3 +67,11 @@ def test_us_demo_numbers_against_a_hand_calculation():
     assert v["rb"].fields["delta_gov"].m_as("in") == pytest.approx(delta, rel=1e-6)
     assert v["rb"].fields["delta_allow"].m_as("in") == pytest.approx(L / 240)
     assert all(c.ok for c in r.checks)
+
+
+def test_a_missing_golden_file_fails_and_is_not_written(tmp_path, monkeypatch):
+    monkeypatch.setitem(globals(), "GOLDEN", tmp_path)
+    monkeypatch.delenv("CALCSHEET_UPDATE_GOLDEN", raising=False)
+    with pytest.raises(AssertionError, match="no golden rendering"):
+        test_sheet_builds_without_errors_and_matches_its_golden_rendering(SHEETS[0])
+    assert list(tmp_path.iterdir()) == []

@@ -39,7 +39,7 @@ def test_psi_and_ksi():
 ])
 def test_trade_units_pint_lacks_are_exact(name, exact_si):
     unit = {"psf": "Pa", "ksf": "Pa", "plf": "N/m", "klf": "N/m", "pcf": "N/m^3"}[name]
-    from calcsheet.parser import split_unit
+    from calcsheet.units import split_unit
 
     assert q(1, name).to(U.build_unit(split_unit(unit))).magnitude == pytest.approx(exact_si, rel=1e-12)
 
@@ -64,7 +64,7 @@ def test_angles_have_their_own_dimension():
 
 
 def test_describe_dim_reads_like_an_engineer():
-    from calcsheet.parser import split_unit
+    from calcsheet.units import split_unit
 
     def d(text):
         return U.describe_dim(U.dim_of(U.build_unit(split_unit(text))))
@@ -80,3 +80,23 @@ def test_parse_dimension_of_plugin_declarations():
     assert U.parse_dimension("[force]/[length]") == (("[mass]", 1), ("[time]", -2))
     assert U.parse_dimension("[angle]") == U.ANGLE
     assert U.parse_dimension("") == U.DIMENSIONLESS
+
+
+def test_split_unit():
+    from calcsheet.units import split_unit
+
+    assert split_unit("kN*m/s^2") == (("kN", 1.0), ("m", 1.0), ("s", -2.0))
+    assert split_unit("mm⁴") == (("mm", 4.0),)
+
+
+def test_declared_unit_text_is_read_here_and_bad_text_is_a_located_syntax_error():
+    from calcsheet.errors import SheetSyntaxError, Span
+    from calcsheet.units import parse_unit_text
+
+    assert parse_unit_text(" kN*m ") == (("kN", 1.0), ("m", 1.0))
+    assert parse_unit_text("N/mm^2") == (("N", 1.0), ("mm", -2.0))
+    assert parse_unit_text("1") == parse_unit_text("-") == ()
+    span = Span(3, 5, 3, 9)
+    with pytest.raises(SheetSyntaxError) as exc:
+        parse_unit_text("kN 2", span)
+    assert exc.value.span == span and "not a unit" in exc.value.message

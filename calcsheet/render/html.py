@@ -1,29 +1,27 @@
 """HTML math printer: stacked fractions, superscripts, subscripts, Greek, radicals.
 
-Every piece of sheet text passes through ``esc``; nothing from a sheet ever
-lands in an attribute other than an ``href="#..."`` built from a checked name.
+Every hook returns ``Html`` (a typed markup string, see ``markup``): plain
+strings handed to it are escaped on the way in, so no sheet text reaches the
+page unescaped; nothing from a sheet lands in an attribute other than an
+``href="#..."`` built by ``anchor_id`` from a checked name.
 """
 from __future__ import annotations
 
-import html
 import re
 
 from ..display import unit_factors
 from ..trace import CheckResult, Step
 from .base import split_name
+from .markup import Html, anchor_id, esc
 from .math import MathPrinter, is_literal
 
+__all__ = ["HtmlMathPrinter", "Html", "anchor_id", "esc"]
 
-def esc(text) -> str:
-    return html.escape(str(text), quote=True)
-
-
-_ANCHOR_SAFE = re.compile(r"[^A-Za-z0-9_.\-]")
+_CMP = {"<=": Html("≤"), ">=": Html("≥"), "<": Html("&lt;"), ">": Html("&gt;")}
 
 
-def anchor_id(text: str) -> str:
-    """An id/href fragment from a name; anything unexpected is replaced."""
-    return _ANCHOR_SAFE.sub("-", text)
+def _symbol(head: str, subs: list[str]) -> Html:
+    return Html("<var>{}</var>").format(head) + (Html("<sub>{}</sub>").format(",".join(subs)) if subs else Html())
 
 
 class HtmlMathPrinter(MathPrinter):
@@ -33,96 +31,97 @@ class HtmlMathPrinter(MathPrinter):
         return esc(text)
 
     def m_string(self, text):
-        return f'<span class="str">“{esc(text)}”</span>'
+        return Html('<span class="str">“{}”</span>').format(text)
 
     def m_name(self, name, link=None):
-        head, subs = split_name(name)
-        body = f'<var>{esc(head)}</var>' + (f"<sub>{esc(','.join(subs))}</sub>" if subs else "")
+        body = _symbol(*split_name(name))
         if link:
-            return f'<a class="sym" href="#{anchor_id(link)}">{body}</a>'
-        return f'<span class="sym">{body}</span>'
+            return Html('<a class="sym" href="#{}">{}</a>').format(anchor_id(link), body)
+        return Html('<span class="sym">{}</span>').format(body)
 
     def m_field(self, obj, field, link=None):
-        head, subs = split_name(field)
-        body = f'<var>{esc(head)}</var>' + (f"<sub>{esc(','.join(subs))}</sub>" if subs else "")
-        inner = f'<span class="owner">{obj}.</span>{body}'
+        inner = Html('<span class="owner">{}.</span>{}').format(obj, _symbol(*split_name(field)))
         if link:
-            return f'<a class="sym" href="#{anchor_id(link)}">{inner}</a>'
-        return f'<span class="sym">{inner}</span>'
+            return Html('<a class="sym" href="#{}">{}</a>').format(anchor_id(link), inner)
+        return Html('<span class="sym">{}</span>').format(inner)
 
     def m_number(self, text, exp):
         text = esc(text).replace("-", "−")
         if exp is None:
-            return f'<span class="num">{text}</span>'
-        return f'<span class="num">{text}×10<sup>{esc(str(exp)).replace("-", "−")}</sup></span>'
+            return Html('<span class="num">{}</span>').format(text)
+        return Html('<span class="num">{}×10<sup>{}</sup></span>').format(text, esc(str(exp)).replace("-", "−"))
 
     def m_unit(self, unit):
         num, den = unit_factors(unit)
 
         def part(items):
-            return "·".join(esc(s) + (f"<sup>{_exp(e)}</sup>" if e != 1 else "") for s, e in items)
+            return Html("·").join(esc(s) + (Html("<sup>{}</sup>").format(_exp(e)) if e != 1 else Html())
+                                  for s, e in items)
 
-        top = part(num) or ("1" if den else "")
+        top = part(num) or (Html("1") if den else Html())
         if den:
             bottom = part(den)
-            text = f"{top}/({bottom})" if len(den) > 1 else f"{top}/{bottom}"
+            text = Html("{}/({})").format(top, bottom) if len(den) > 1 else Html("{}/{}").format(top, bottom)
         else:
             text = top
-        return f'<span class="unit">{text}</span>'
+        return Html('<span class="unit">{}</span>').format(text)
 
     def m_quantity(self, number, unit):
         if not unit:
             return number
         if ">°<" in unit:
-            return f'<span class="qty">{number}{unit}</span>'
-        return f'<span class="qty">{number}&#8239;{unit}</span>'
+            return Html('<span class="qty">{}{}</span>').format(number, unit)
+        return Html('<span class="qty">{}&#8239;{}</span>').format(number, unit)
 
     def m_paren(self, inner):
-        return f'<span class="paren">(</span>{inner}<span class="paren">)</span>'
+        return Html('<span class="paren">(</span>{}<span class="paren">)</span>').format(inner)
 
     def m_neg(self, inner):
-        return f"−{inner}"
+        return Html("−{}").format(inner)
 
     def m_binary(self, left, op, right):
         if op == "·":
-            return f'{left}<span class="op dot">·</span>{right}'
-        return f'{left}<span class="op">{esc(op)}</span>{right}'
+            return Html('{}<span class="op dot">·</span>{}').format(left, right)
+        return Html('{}<span class="op">{}</span>{}').format(left, op, right)
 
     def m_frac(self, num, den):
-        return (f'<span class="frac"><span class="fn">{num}</span>'
-                f'<span class="fd">{den}</span></span>')
+        return Html('<span class="frac"><span class="fn">{}</span><span class="fd">{}</span></span>').format(num, den)
 
     def m_pow(self, base, exponent):
-        return f"{base}<sup>{exponent}</sup>"
+        return Html("{}<sup>{}</sup>").format(base, exponent)
 
     def m_sqrt(self, inner):
-        return f'<span class="sqrt"><span class="radic">√</span><span class="radicand">{inner}</span></span>'
+        return Html('<span class="sqrt"><span class="radic">√</span><span class="radicand">{}</span></span>'
+                    ).format(inner)
 
     def m_abs(self, inner):
-        return f'<span class="abs">|</span>{inner}<span class="abs">|</span>'
+        return Html('<span class="abs">|</span>{}<span class="abs">|</span>').format(inner)
 
     def m_call(self, func, args, plugin=False):
-        cls = "plugin" if plugin else "fn"
-        sep = '<span class="comma">, </span>'
-        return f'<span class="{cls}">{esc(func)}</span>{self.m_paren(sep.join(args))}'
+        sep = Html('<span class="comma">, </span>')
+        return Html('<span class="{}">{}</span>{}').format("plugin" if plugin else "fn", func,
+                                                            self.m_paren(sep.join(args)))
 
     def m_keyword(self, name, value):
-        return f'<span class="kw">{self.m_name(name)}&#8201;=&#8201;{value}</span>'
+        return Html('<span class="kw">{}&#8201;=&#8201;{}</span>').format(self.m_name(name), value)
 
     def m_list(self, items):
-        return "[" + ", ".join(items) + "]"
+        return Html("[{}]").format(Html(", ").join(items))
+
+    def m_tuple(self, items):
+        return self.m_paren(Html(", ").join(items))
 
     def m_compare(self, left, op, right):
-        sym = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}[op]
-        return f'{left}<span class="op">{sym}</span>{right}'
+        return Html('{}<span class="op">{}</span>{}').format(left, _CMP[op], right)
 
     def m_cases(self, then, cond, otherwise):
-        return (f'<span class="cases"><span class="brace">{{</span><span class="rows">'
-                f'<span class="row">{then}<span class="when">if</span>{cond}</span>'
-                f'<span class="row">{otherwise}<span class="when">otherwise</span></span></span></span>')
+        return Html('<span class="cases"><span class="brace">{{</span><span class="rows">'
+                    '<span class="row">{}<span class="when">if</span>{}</span>'
+                    '<span class="row">{}<span class="when">otherwise</span></span></span></span>'
+                    ).format(then, cond, otherwise)
 
     # ------------------------------------------------------------ trace records
-    def step_parts(self, step: Step, link=None) -> list[str]:
+    def step_parts(self, step: Step, link=None) -> list[Html]:
         """The chain symbol = formula = substitution = result, each already HTML."""
         lhs = self.m_name(step.name)
         result = self.value(step.value, step.display_unit)
@@ -142,16 +141,15 @@ class HtmlMathPrinter(MathPrinter):
             parts.append(result)
         return parts
 
-    def check_parts(self, check: CheckResult, link=None) -> tuple[str, str]:
-        cmp = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}[check.op]
-        sym = f'{self.expr(check.left, link=link)}<span class="op">{cmp}</span>{self.expr(check.right, link=link)}'
-        sub = (f'{self.expr(check.left, values=check.used)}<span class="op">{cmp}</span>'
-               f'{self.expr(check.right, values=check.used)}')
+    def check_parts(self, check: CheckResult, link=None) -> tuple[Html, Html]:
+        cmp = Html('<span class="op">{}</span>').format(_CMP[check.op])
+        sym = self.expr(check.left, link=link) + cmp + self.expr(check.right, link=link)
+        sub = self.expr(check.left, values=check.used) + cmp + self.expr(check.right, values=check.used)
         return sym, sub
 
 
 def _plain(markup: str) -> str:
-    return re.sub(r"<[^>]+>", "", markup).replace("&#8239;", " ")
+    return re.sub(r"<[^>]+>", "", str(markup)).replace("&#8239;", " ")
 
 
 def _exp(e) -> str:

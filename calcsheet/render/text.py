@@ -1,16 +1,16 @@
 """Plain-text printer, for the terminal: 'M = w·L²/8 = 5.20 kN/m · (6.00 m)² / 8 = 23.4 kN·m'."""
 from __future__ import annotations
 
-import pint
 
 from ..display import superscript, unit_text
-from ..trace import CheckResult, Heading, Prose, Step, Table, Working, Note, Figure
+from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
 from .base import split_name
+from .document import DocumentPrinter
 from .math import MathPrinter, is_literal
 
 
 class TextPrinter(MathPrinter):
-    default_settings = {"sigfigs": 3, "stacked_fractions": False, "width": 100}
+    default_settings = {"sigfigs": 3, "stacked_fractions": False}
 
     def m_text(self, text): return text
     def m_string(self, text): return f'"{text}"'
@@ -51,6 +51,7 @@ class TextPrinter(MathPrinter):
     def m_call(self, func, args, plugin=False): return f"{func}({', '.join(args)})"
     def m_keyword(self, name, value): return f"{name}={value}"
     def m_list(self, items): return "[" + ", ".join(items) + "]"
+    def m_tuple(self, items): return "(" + ", ".join(items) + ")"
 
     def m_compare(self, left, op, right):
         return f"{left} {({'<=': '≤', '>=': '≥'}).get(op, op)} {right}"
@@ -58,61 +59,78 @@ class TextPrinter(MathPrinter):
     def m_cases(self, then, cond, otherwise):
         return f"({then} if {cond}, else {otherwise})"
 
-    # ------------------------------------------------------------ trace records
+
+class TextDocument(DocumentPrinter):
+    """Trace records as terminal text, one line per step; a plugin's working indented under its call."""
+
+    empty = None  # a record with no text form adds no line
+
+    def __init__(self, **settings):
+        super().__init__(**settings)
+        self.math = TextPrinter(sigfigs=self.settings["sigfigs"])
+
+    def join(self, pieces):
+        return "\n".join(p for p in pieces if p is not None)
+
+    def _print_Heading(self, item: Heading, indent=""):
+        return "\n" + indent + ("#" * item.level) + " " + (item.number + " " if item.number else "") + item.text
+
+    def _print_Prose(self, item: Prose, indent=""):
+        return indent + item.text
+
+    def _print_Step(self, item: Step, indent=""):
+        line = indent + self.step(item) + (f"   -- {item.description}" if item.description else "")
+        if item.working is not None:
+            line += "\n" + self.items(item.working.items, indent=indent + "    ")
+        return line
+
+    def _print_CheckResult(self, item: CheckResult, indent=""):
+        return indent + self.check(item) + (f"   -- {item.description}" if item.description else "")
+
+    def _print_Table(self, item: Table, indent=""):
+        return indent + f"[table: {item.title}, {len(item.rows)} rows]"
+
+    def _print_Note(self, item: Note, indent=""):
+        return indent + ("warning: " if item.kind == "warning" else "") + item.text
+
+    def _print_Figure(self, item: Figure, indent=""):
+        return indent + f"[figure: {item.caption}]"
+
+    def _print_Working(self, item: Working, indent=""):
+        return self.items(item.items, indent=indent + "    ")
+
     def step(self, step: Step) -> str:
-        lhs = self.m_name(step.name)
-        result = self.value(step.value, step.display_unit)
+        """symbol = formula = substitution = result."""
+        m = self.math
+        lhs = m.m_name(step.name)
+        result = m.value(step.value, step.display_unit)
         if step.expr is None:
             line = f"{lhs} = {result}"
             return line + (f"   ({step.note})" if step.note else "")
-        sym = self.expr(step.expr)
+        sym = m.expr(step.expr)
         if hasattr(step.value, "working") or step.working is not None:
             return f"{lhs} = {sym}"
         parts = [lhs, sym]
         if is_literal(step.expr) and step.overridden is None:
             return f"{lhs} = {sym}"
         if step.used:
-            sub = self.expr(step.expr, values=step.used)
+            sub = m.expr(step.expr, values=step.used)
             if sub != sym:
                 parts.append(sub)
         if result != parts[-1]:
             parts.append(result)
         line = " = ".join(parts)
         if step.overridden is not None:
-            line += f"   [set on the command line; sheet has {self.value(step.overridden, step.display_unit)}]"
+            line += f"   [set on the command line; sheet has {m.value(step.overridden, step.display_unit)}]"
         return line
 
     def check(self, check: CheckResult) -> str:
-        left = self.expr(check.left)
-        right = self.expr(check.right)
-        demand = self.value(check.demand)
+        m = self.math
+        left = m.expr(check.left)
+        right = m.expr(check.right)
         status = "OK" if check.ok else "NG"
         ratio = f"  ratio {check.ratio:.2f}" if check.ratio is not None else ""
-        lv = self.expr(check.left, values=check.used)
-        rv = self.expr(check.right, values=check.used)
+        lv = m.expr(check.left, values=check.used)
+        rv = m.expr(check.right, values=check.used)
         cmp = {"<=": "≤", ">=": "≥"}.get(check.op, check.op)
         return f"check {left} {cmp} {right}:  {lv} {cmp} {rv}  →  {status}{ratio}"
-
-    def items(self, items, indent: str = "") -> str:
-        out = []
-        for item in items:
-            if isinstance(item, Heading):
-                out.append("")
-                out.append(indent + ("#" * item.level) + " " + (item.number + " " if item.number else "") + item.text)
-            elif isinstance(item, Prose):
-                out.append(indent + item.text)
-            elif isinstance(item, Step):
-                out.append(indent + self.step(item) + (f"   -- {item.description}" if item.description else ""))
-                if item.working is not None:
-                    out.append(self.items(item.working.items, indent + "    "))
-            elif isinstance(item, CheckResult):
-                out.append(indent + self.check(item) + (f"   -- {item.description}" if item.description else ""))
-            elif isinstance(item, Table):
-                out.append(indent + f"[table: {item.title}, {len(item.rows)} rows]")
-            elif isinstance(item, Note):
-                out.append(indent + ("warning: " if item.kind == "warning" else "") + item.text)
-            elif isinstance(item, Figure):
-                out.append(indent + f"[figure: {item.caption}]")
-            elif isinstance(item, Working):
-                out.append(self.items(item.items, indent + "    "))
-        return "\n".join(out)

@@ -9,7 +9,7 @@ from calcsheet.engine import run
 
 
 def q(value, unit):
-    from calcsheet.parser import split_unit
+    from calcsheet.units import split_unit
 
     return U.registry().Quantity(value, U.build_unit(split_unit(unit)))
 

@@ -25,7 +25,7 @@ def test_an_allowed_warning_is_kept_with_its_reason_but_not_active():
 
 
 def test_the_reason_is_printed_in_the_package_inputs_list():
-    from calcsheet.package import PackageDocument
+    from calcsheet.render.page import PackageDocument
 
     html = PackageDocument(calcsheet.run(SOIL)).inputs_list()
     assert "implausible-value" in html and "soil modulus from the site investigation" in html

@@ -1,5 +1,6 @@
 """Round trip: parse, print as sheet syntax, parse again — the same tree."""
-from hypothesis import given, settings, strategies as st
+from hypothesis import given, settings
+from hypothesis import strategies as st
 
 from calcsheet import nodes as N
 from calcsheet.parser import parse_expression

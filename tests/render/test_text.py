@@ -2,13 +2,13 @@
 import textwrap
 
 import calcsheet
-from calcsheet.render.text import TextPrinter
+from calcsheet.render.text import TextDocument
 
 
 def lines(text):
     r = calcsheet.run(textwrap.dedent(text).lstrip())
     assert r.ok, r.format_diagnostics()
-    return TextPrinter(sigfigs=r.policy.sigfigs).items(r.items).strip().splitlines()
+    return TextDocument(sigfigs=r.policy.sigfigs).items(r.items).strip().splitlines()
 
 
 def test_symbol_formula_substitution_result():

@@ -8,10 +8,7 @@ listed apart with their reasons.
 """
 from __future__ import annotations
 
-from .errors import Diagnostic
-
-SEVERITY_ORDER = {"error": 0, "warning": 1, "info": 2}
-
+from ..errors import Diagnostic
 
 def human(d: Diagnostic, source: str | None) -> str:
     return d.format(source, with_code=True)

@@ -4,7 +4,7 @@ import os
 import pytest
 
 import calcsheet
-from calcsheet.package import PackageDocument
+from calcsheet.render.page import PackageDocument
 
 
 @pytest.fixture

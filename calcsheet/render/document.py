@@ -1,0 +1,58 @@
+"""The walk over trace records that every document format shares, and the numbering pass.
+
+A document printer dispatches on the record's class up its MRO
+(``_print_Step``, ``_print_CheckResult``, ``_print_Table`` ...), the way the
+math printers dispatch on nodes; a format supplies one method per record
+class and how to join the pieces. A record class a format has no method for
+prints nothing.
+"""
+from __future__ import annotations
+
+import dataclasses
+
+from ..trace import CheckResult, Heading, Step
+from .base import Printer
+
+
+class DocumentPrinter(Printer):
+    """Base of the text and HTML document printers: ``items`` prints records in order."""
+
+    default_settings: dict = {"sigfigs": 3}
+    empty = ""
+
+    def record(self, item, **context):
+        return self._print(item, **context)
+
+    def empty_printer(self, item):
+        return self.empty
+
+    def items(self, items, **context):
+        return self.join([self.record(item, **context) for item in items])
+
+    def join(self, pieces):
+        raise NotImplementedError
+
+
+def number_items(items: list) -> list:
+    """New records with section numbers on headings (1, 1.1) and step numbers on steps and checks (1.3).
+
+    A pure pass: the records given are not changed. A plugin's working inside a step is not numbered.
+    """
+    counters = [0, 0, 0, 0]
+    step_no = 0
+    current = "0"
+    out = []
+    for item in items:
+        if isinstance(item, Heading):
+            level = min(max(item.level, 1), 4)
+            counters[level - 1] += 1
+            for i in range(level, 4):
+                counters[i] = 0
+            current = ".".join(str(c) for c in counters[:level])
+            step_no = 0
+            item = dataclasses.replace(item, number=current, anchor="s-" + current)
+        elif isinstance(item, (Step, CheckResult)):
+            step_no += 1
+            item = dataclasses.replace(item, number=f"{current}.{step_no}" if current != "0" else str(step_no))
+        out.append(item)
+    return out

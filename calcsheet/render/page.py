@@ -1,0 +1,303 @@
+"""The package document: one self-contained HTML page, paged for print (the PDF is made from it).
+
+Styles are inlined and figures are inline SVG, so the PDF renderer never
+needs to fetch anything. Every piece is ``Html`` (see ``markup``): sheet text
+is escaped wherever it enters, and the trace records print through the
+document printer's dispatch (``_print_Heading``, ``_print_Step`` ...).
+"""
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+from pathlib import Path
+
+import pint
+
+from .. import __version__
+from ..display import split_number, unit_text
+from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
+from .base import split_name
+from .document import DocumentPrinter, number_items
+from .html import HtmlMathPrinter
+from .markup import Html, anchor_id, esc
+
+ASSETS = Path(__file__).resolve().parent.parent / "assets"
+
+CAUTION = (
+    "This calculation package was prepared with calcsheet. It is an aid to, not a substitute for, the "
+    "judgement of a licensed engineer: every input, assumption and result must be checked by a qualified "
+    "person against the governing local codes and standards before it is relied on."
+)
+
+TITLE_FIELDS = [("project", "Project"), ("job", "Job"), ("subject", "Subject"), ("by", "By"),
+                ("checked", "Checked"), ("date", "Date"), ("rev", "Rev")]
+
+_TITLE_BLOCK = Html("""<header class="titleblock"><table>
+<tr><th>Project</th><td colspan="3" class="project">{project}</td><th>Job</th><td>{job}</td>
+<th>Sheet</th><td class="pageno"><span class="pn-screen">—</span></td></tr>
+<tr><th>Subject</th><td colspan="3">{subject}</td><th>By</th><td>{by}</td>
+<th>Date</th><td>{date}</td></tr>
+<tr><th>Checked</th><td colspan="3">{checked}</td><th>Rev</th><td>{rev}</td>
+<th>Units</th><td>{units}</td></tr>
+</table></header>""")
+
+_FRONT = Html("""<section class="front">
+<h1 class="doc-title">{title}</h1>
+<p class="doc-project">{project}</p>
+<div class="overall {cls}">{status}</div>
+<h2 class="front-h">Summary of checks</h2>
+{table}
+{revs}
+<div class="caution"><strong>Caution.</strong> {caution}</div>
+</section>""")
+
+
+class PackageDocument(DocumentPrinter):
+    """The package HTML of a Result; one instance per build. The Result is not changed."""
+
+    default_settings: dict = {}
+    empty = Html()
+
+    def __init__(self, result, *, paper: str | None = None, extra_front: Html | None = None,
+                 changed: set[str] | None = None, watch_script: Html | None = None):
+        super().__init__()
+        self.result = result
+        self.meta = result.meta
+        self.printer = HtmlMathPrinter(sigfigs=result.policy.sigfigs)
+        self.paper = (paper or str(self.meta.get("paper", "A4"))).strip()
+        self.extra_front = Html() if extra_front is None else extra_front  # the "changes since" page; a str is escaped
+        self.changed = changed or set()
+        self.watch_script = Html() if watch_script is None else watch_script
+        self.numbered = number_items(result.items)
+        self.checks = [i for i in self.numbered if isinstance(i, CheckResult)]
+        self.anchors = {name: step.anchor for name, step in result.steps.items()}
+
+    def link(self, name: str):
+        return self.anchors.get(name)
+
+    def join(self, pieces):
+        return Html("").join(pieces)
+
+    # ------------------------------------------------------------ document
+    def html(self) -> Html:
+        css = (ASSETS / "package.css").read_text(encoding="utf-8")
+        size = "letter" if self.paper.lower() in ("letter", "us-letter") else "A4"
+        title = self.meta.get("subject") or self.meta.get("project") or Path(self.result.path).stem
+        return Html("\n").join([
+            Html("<!DOCTYPE html>"),
+            Html('<html lang="en"><head><meta charset="utf-8">'),
+            Html("<title>{}</title>").format(title),
+            Html('<meta name="generator" content="calcsheet">'),
+            Html("<style>@page {{ size: {}; }}\n{}</style>").format(size, Html(css)),  # our own bundled CSS
+            Html("</head><body>"),
+            self.title_block(),
+            self.footer(),
+            Html("<main>"),
+            self.front(),
+            self.extra_front,
+            self.body(),
+            self.inputs_list(),
+            self.diagnostics(),
+            Html("</main>"),
+            self.watch_script,
+            Html("</body></html>"),
+        ])
+
+    def title_block(self) -> Html:
+        m = self.meta
+        cells = {k: m.get(k, "") for k, _ in TITLE_FIELDS}
+        cells["date"] = m.get("date") or _dt.date.today().isoformat()
+        return _TITLE_BLOCK.format(units=self.result.policy.system, **cells)
+
+    def footer(self) -> Html:
+        r = self.result
+        plugins = Html(", ").join(Html("{} {}").format(n, v) for n, v in sorted(r.plugin_versions.items())) or "none"
+        included = Html("").join(
+            Html('<div>Includes {} · sha256 <span class="hash">{}</span></div>').format(
+                p, hashlib.sha256(t.encode("utf-8")).hexdigest()) for p, t in r.includes)
+        return Html('<footer class="stamp"><div>Source {} · sha256 <span class="hash">{}</span></div>{}'
+                    '<div>calcsheet {} · plugins: {}</div>'
+                    '<div class="caution-short">An aid to, not a substitute for, a licensed engineer\'s judgement; '
+                    'check against the governing local codes.</div></footer>').format(
+            Path(r.path).name, r.sha256, included, __version__, plugins)
+
+    def front(self) -> Html:
+        r = self.result
+        checks = self.checks
+        n_ng = sum(1 for c in checks if not c.ok)
+        if r.errors:
+            status, cls = f"{len(r.errors)} ERROR(S) — PACKAGE INCOMPLETE", "ng"
+        elif not checks:
+            status, cls = "NO CHECKS", "none"
+        elif n_ng:
+            status, cls = f"NG — {n_ng} of {len(checks)} checks not satisfied", "ng"
+        else:
+            status, cls = f"OK — all {len(checks)} checks satisfied", "ok"
+        rows = []
+        for c in checks:
+            sym, _ = self.printer.check_parts(c, self.link)
+            rows.append(Html(
+                '<tr class="{}"><td><a href="#{}">{}</a></td><td>{}</td><td class=\'math\'>{}</td>'
+                "<td class='numcol'>{}</td><td class='numcol'>{}</td><td class='numcol'>{}</td>"
+                "<td class='status'>{}</td></tr>").format(
+                "ok" if c.ok else "ng", c.anchor, c.number, c.description or "", sym,
+                self.printer.value(c.demand), self.printer.value(c.capacity, _unit(c.demand)),
+                f"{c.ratio:.2f}" if c.ratio is not None else "—", "OK" if c.ok else "NG"))
+        table = (Html("<table class='summary'><thead><tr><th>Step</th><th>Check</th><th>Condition</th>"
+                      "<th>Demand</th><th>Capacity</th><th>Ratio</th><th></th></tr></thead><tbody>{}"
+                      "</tbody></table>").format(Html("").join(rows))
+                 if rows else Html("<p>This sheet states no checks.</p>"))
+        return _FRONT.format(title=self.meta.get("subject") or Path(r.path).stem, project=self.meta.get("project", ""),
+                             cls=cls, status=status, table=table, revs=self.revisions(), caution=CAUTION)
+
+    def revisions(self) -> Html:
+        revs = self.meta.get("revisions")
+        if not isinstance(revs, list) or not revs:
+            return Html()
+        rows = []
+        for entry in revs:
+            cells = [c.strip() for c in str(entry).split("|", 3)]  # a "|" in the description stays
+            cells += [""] * (4 - len(cells))
+            rows.append(Html("<tr>{}</tr>").format(Html("").join(Html("<td>{}</td>").format(c) for c in cells[:4])))
+        return Html("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
+                    "<th>By</th><th>Description</th></tr></thead><tbody>{}</tbody></table>").format(Html("").join(rows))
+
+    def body(self) -> Html:
+        return Html("\n").join([Html('<section class="calc">'), *(self.record(i) for i in self.numbered),
+                                Html("</section>")])
+
+    # ------------------------------------------------------------ trace records
+    def _print_Heading(self, item: Heading, inner: bool = False) -> Html:
+        level = min(item.level + 1, 5)
+        return Html('<h{0} id="{1}" class="sec"><span class="secno">{2}</span> {3}</h{0}>').format(
+            level, item.anchor, item.number, item.text)
+
+    def _print_Prose(self, item: Prose, inner: bool = False) -> Html:
+        paras = [p for p in item.text.split("\n\n") if p.strip()]
+        return Html("").join(Html('<p class="prose">{}</p>').format(p) for p in paras)
+
+    def _print_Figure(self, item: Figure, inner: bool = False) -> Html:
+        # a plugin's SVG, drawn by calcsheet.svg, which escapes every text it is given
+        return Html('<figure class="fig">{}<figcaption>{}</figcaption></figure>').format(Html(item.svg), item.caption)
+
+    def _print_Note(self, item: Note, inner: bool = False) -> Html:
+        return Html('<p class="note {}">{}</p>').format(item.kind, item.text)
+
+    def _print_Working(self, w: Working, inner: bool = False, owner: str = "") -> Html:
+        items = Html("\n").join(self.record(i, inner=True) for i in w.items)
+        return Html('<div class="working"><div class="working-title">Working of {}{}</div>{}</div>').format(
+            w.title, " for " + owner if owner else "", items)
+
+    def _print_Step(self, step: Step, inner: bool = False) -> Html:
+        parts = self.printer.step_parts(step, None if inner else self.link)
+        chain = Html('<span class="eq">=</span>').join(Html('<span class="term">{}</span>').format(p) for p in parts)
+        marks = []
+        if step.overridden is not None:
+            marks.append(Html('<span class="mark override">set for this build; sheet value {}</span>').format(
+                self.printer.value(step.overridden, step.display_unit)))
+        if step.name in self.changed and not inner:
+            marks.append(Html('<span class="mark changed">changed</span>'))
+        note = Html('<div class="method">{}</div>').format(step.note) if step.note else Html()
+        ident = Html(' id="{}"').format(anchor_id(step.anchor)) if step.anchor and not inner else Html()
+        number = Html('<span class="stepno">{}</span>').format(step.number) if step.number else Html()
+        desc = Html('<div class="desc">{}</div>').format(step.description) if step.description else Html()
+        out = Html('<div class="step{}"{}>{}<div class="stepbody">{}<div class="math">{}</div>{}{}</div></div>').format(
+            " input" if step.is_input else "", ident, number, desc, chain, note, Html("").join(marks))
+        if step.working is not None:
+            out += self._print_Working(step.working, owner=step.name)
+        return out
+
+    def _print_CheckResult(self, c: CheckResult, inner: bool = False) -> Html:
+        sym, sub = self.printer.check_parts(c, None if inner else self.link)
+        ratio = f"ratio {c.ratio:.2f}" if c.ratio is not None else "ratio cannot be formed"
+        ident = Html(' id="{}"').format(c.anchor) if c.anchor and not inner else Html()
+        number = Html('<span class="stepno">{}</span>').format(c.number) if c.number else Html()
+        desc = Html('<div class="desc">{}</div>').format(c.description) if c.description else Html()
+        return Html('<div class="step check {}"{}>{}<div class="stepbody">{}'
+                    '<div class="math"><span class="kwd">check</span> {}<span class="eq">:</span>{}'
+                    '<span class="verdict">{}</span><span class="ratio">{}</span></div></div></div>').format(
+            "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio)
+
+    def _print_Table(self, t: Table, inner: bool = False) -> Html:
+        def cell(v, unit=None):
+            if isinstance(v, pint.Quantity):
+                if unit is not None:  # the unit is in the column head: the cell shows the number
+                    try:
+                        mag = float(v.to(unit).magnitude)
+                    except (pint.DimensionalityError, TypeError):
+                        return self.printer.value(v, unit)
+                    return self.printer.m_number(*split_number(mag, self.printer.settings["sigfigs"]))
+                return self.printer.value(v, unit)
+            if isinstance(v, float):
+                return esc(f"{v:.4g}")
+            return esc(v)
+
+        def row(r):
+            return Html("<tr>{}</tr>").format(Html("").join(
+                Html("<td>{}</td>").format(cell(v, u)) for v, u in zip(r, units + [None] * len(r))))
+
+        units = t.units or [None] * len(t.columns)
+        head = Html("").join(
+            Html("<th>{}{}</th>").format(_header(c), Html("<br><span class=unit-h>{}</span>").format(unit_text(u))
+                                         if u is not None else "")
+            for c, u in zip(t.columns, units + [None] * (len(t.columns) - len(units))))
+        rows = Html("").join(row(r) for r in t.rows)
+        foot = Html("").join(row(r) for r in (t.footer or []))
+        note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
+        return Html("<table class='parts'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>{}</table>{}"
+                    ).format(t.title, head, rows, Html("<tfoot>{}</tfoot>").format(foot) if foot else "", note)
+
+    # ------------------------------------------------------------ back matter
+    def inputs_list(self) -> Html:
+        r = self.result
+        rows = []
+        for name in r.inputs:
+            step = r.steps.get(name)
+            if step is None:
+                continue
+            mark = Html()
+            if step.overridden is not None:
+                mark = Html("<span class='mark override'>set for this build (sheet: {})</span>").format(
+                    self.printer.value(step.overridden, step.display_unit))
+            rows.append(Html("<tr><td><a href='#{}'>{}</a></td><td>{}</td><td class='numcol'>{}</td><td>{}</td></tr>"
+                             ).format(anchor_id(step.anchor), self.printer.m_name(name), step.description or "",
+                                      self.printer.value(step.value, step.display_unit), mark))
+        suppressed = [d for d in r.diagnostics if d.suppressed]
+        sup = Html()
+        if suppressed:
+            sup = Html("<h3>Suppressed warnings</h3><ul class='suppressed'>{}</ul>").format(Html("").join(
+                Html("<li>line {}: {}: {} — reason: {}</li>").format(d.span.line, d.code, d.message, d.suppressed)
+                for d in suppressed))
+        if not rows and not sup:
+            return Html()
+        return Html("<section class='inputs'><h2 class='sec'>Inputs</h2><table class='inputs'><thead><tr>"
+                    "<th>Symbol</th><th>Description</th><th>Value</th><th></th></tr></thead><tbody>{}"
+                    "</tbody></table>{}</section>").format(Html("").join(rows), sup)
+
+    def diagnostics(self) -> Html:
+        diags = [d for d in self.result.diagnostics if not d.suppressed]
+        if not diags:
+            return Html()
+        items = Html("").join(
+            Html("<li class='{}'><code>line {}, col {}</code> {} {}: {}{}</li>").format(
+                d.severity, d.span.line, d.span.col, d.severity, d.code, d.message,
+                Html(" — {}").format(d.hint) if d.hint else "")
+            for d in diags)
+        return Html("<section class='diagnostics'><h2 class='sec'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+
+
+def _unit(q):
+    return q.units if isinstance(q, pint.Quantity) else None
+
+
+def _header(text: str) -> Html:
+    """Table headers may name symbols (A_i, y_i): typeset the subscript."""
+    if " " in text or not text:
+        return esc(text)
+    if "·" in text:  # a product of symbols: n·A_i·y_i
+        return Html("·").join(_header(piece) for piece in text.split("·"))
+    power = Html()
+    if text[-1] in "²³⁴":  # a squared symbol: d_y,i²
+        text, power = text[:-1], Html("<sup>{}</sup>").format("234"["²³⁴".index(text[-1])])
+    head, subs = split_name(text)
+    return Html("<var>{}</var>").format(head) + (Html("<sub>{}</sub>").format(",".join(subs)) if subs else "") + power
