@@ -12,7 +12,7 @@ import math
 from pathlib import Path
 
 from ..svg import Svg
-from ..svg import esc  # html.escape(quote=True)
+from .markup import Html, esc
 
 OK_COLOUR, NG_COLOUR, ERR_COLOUR, AXIS = "#2f7d4a", "#b42318", "#6b7280", "#333"
 MARKERS = ["circle", "square", "diamond", "triangle", "cross"]
@@ -75,41 +75,51 @@ def ratio_text(r) -> str:
     return "—" if r is None else f"{r:.2f}"
 
 
-def page_start(meta: dict, title: str, subtitle: str, paper: str | None, css: str) -> str:
-    """Document head and the title block, from the sheet's front matter."""
-    size = "letter" if str(paper or meta.get("paper", "A4")).lower() in ("letter", "us-letter") else "A4"
-    date = meta.get("date") or _dt.date.today().isoformat()
-    cell = {k: esc(meta.get(k, "")) for k in ("project", "job", "by", "checked", "rev")}
-    return f"""<!DOCTYPE html>
+def _num(r) -> str:
+    """A sortable number for a data-v attribute (empty when there is none)."""
+    return "" if r is None else repr(float(r))
+
+
+_PAGE_START = Html("""<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
-<title>{esc(title)}</title>
+<title>{title}</title>
 <meta name="generator" content="calcsheet">
 <style>@page {{ size: {size}; }}
 {css}
-{EXTRA_CSS}</style>
+{extra}</style>
 </head><body>
 <header class="titleblock"><table>
-<tr><th>Project</th><td colspan="3" class="project">{cell['project']}</td><th>Job</th><td>{cell['job']}</td>
+<tr><th>Project</th><td colspan="3" class="project">{project}</td><th>Job</th><td>{job}</td>
 <th>Sheet</th><td class="pageno"><span class="pn-screen">—</span></td></tr>
-<tr><th>Subject</th><td colspan="3">{esc(title)}</td><th>By</th><td>{cell['by']}</td>
-<th>Date</th><td>{esc(date)}</td></tr>
-<tr><th>Checked</th><td colspan="3">{cell['checked']}</td><th>Rev</th><td>{cell['rev']}</td>
-<th>Of</th><td>{esc(subtitle)}</td></tr>
-</table></header>"""
+<tr><th>Subject</th><td colspan="3">{title}</td><th>By</th><td>{by}</td>
+<th>Date</th><td>{date}</td></tr>
+<tr><th>Checked</th><td colspan="3">{checked}</td><th>Rev</th><td>{rev}</td>
+<th>Of</th><td>{subtitle}</td></tr>
+</table></header>""")
+
+
+def page_start(meta: dict, title: str, subtitle: str, paper: str | None, css: str) -> Html:
+    """Document head and the title block, from the sheet's front matter."""
+    size = "letter" if str(paper or meta.get("paper", "A4")).lower() in ("letter", "us-letter") else "A4"
+    date = meta.get("date") or _dt.date.today().isoformat()
+    return _PAGE_START.format(title=title, size=size, css=Html(css), extra=Html(EXTRA_CSS),  # our own CSS
+                              subtitle=subtitle, date=date,
+                              **{k: meta.get(k, "") for k in ("project", "job", "by", "checked", "rev")})
 
 
 def footer(sheet_name: str, sheet_sha: str, table_name: str, table_sha: str, version: str,
-           plugins: dict[str, str]) -> str:
-    plug = ", ".join(f"{esc(n)} {esc(v)}" for n, v in sorted(plugins.items())) or "none"
-    table = (f'<div>Schedule {esc(table_name)} · sha256 <span class="hash">{esc(table_sha)}</span></div>'
-             if table_name else "")
-    return (f'<footer class="stamp"><div>Source {esc(sheet_name)} · sha256 <span class="hash">{esc(sheet_sha)}'
-            f'</span></div>{table}<div>calcsheet {esc(version)} · plugins: {plug}</div>'
-            '<div class="caution-short">An aid to, not a substitute for, a licensed engineer\'s judgement; '
-            'check against the governing local codes.</div></footer>')
+           plugins: dict[str, str]) -> Html:
+    plug = Html(", ").join(Html("{} {}").format(n, v) for n, v in sorted(plugins.items())) or "none"
+    table = (Html('<div>Schedule {} · sha256 <span class="hash">{}</span></div>').format(table_name, table_sha)
+             if table_name else Html())
+    return Html('<footer class="stamp"><div>Source {} · sha256 <span class="hash">{}</span></div>{}'
+                '<div>calcsheet {} · plugins: {}</div>'
+                '<div class="caution-short">An aid to, not a substitute for, a licensed engineer\'s judgement; '
+                'check against the governing local codes.</div></footer>').format(
+        sheet_name, sheet_sha, table, version, plug)
 
 
-def overall(totals: dict) -> str:
+def overall(totals: dict) -> Html:
     n, ng, err = totals["members"], totals["ng"], totals["errors"]
     if err:
         cls, text = "ng", f"{err} of {n} members not built (errors)" + (f"; {ng} NG" if ng else "")
@@ -119,75 +129,106 @@ def overall(totals: dict) -> str:
         cls, text = "ok", f"OK — all checks of all {n} members satisfied"
     else:
         cls, text = "none", "The schedule has no members"
-    return f'<div class="overall {cls}">{esc(text)}</div>'
+    return Html('<div class="overall {}">{}</div>').format(cls, text)
 
 
-def table_head(checks: list[dict], columns: list[str]) -> str:
-    cols = "".join(f'<th>{esc(c)}</th>' for c in columns)
-    utils = "".join(f'<th data-num="1" title="{esc(c["text"])}">{esc(c["label"])}</th>' for c in checks)
-    return ('<table class="members" id="members"><thead><tr><th data-num="1">Row</th><th>Member</th>'
-            f'{cols}{utils}<th>Governing</th><th data-num="1">Utilisation</th><th>Status</th></tr></thead><tbody>')
+def table_head(checks: list[dict], columns: list[str]) -> Html:
+    cols = Html("").join(Html("<th>{}</th>").format(c) for c in columns)
+    utils = Html("").join(Html('<th data-num="1" title="{}">{}</th>').format(c["text"], c["label"]) for c in checks)
+    return Html('<table class="members" id="members"><thead><tr><th data-num="1">Row</th><th>Member</th>'
+                '{}{}<th>Governing</th><th data-num="1">Utilisation</th><th>Status</th></tr></thead><tbody>'
+                ).format(cols, utils)
 
 
-def table_row(rec: dict, checks: list[dict], columns: list[str]) -> str:
+def table_row(rec: dict, checks: list[dict], columns: list[str]) -> Html:
     status = rec["status"]
     cls = {"OK": "ok", "NG": "ng"}.get(status, "err")
     values = rec.get("values", {})
-    cells = [f'<td data-v="{rec["row"]}">{rec["row"]}</td>',
-             f'<td data-v="{esc(rec["member"])}">{_member_link(rec)}</td>']
+    cells = [Html('<td data-v="{0}">{0}</td>').format(rec["row"]),
+             Html('<td data-v="{}">{}</td>').format(rec["member"], _member_link(rec))]
     for c in columns:
-        v = values.get(c, "")
-        cells.append(f'<td class="v" data-v="{esc(v)}">{esc(v)}</td>')
+        cells.append(Html('<td class="v" data-v="{0}">{0}</td>').format(values.get(c, "")))
     util = rec.get("utilisation", {})
     gov = rec.get("governing")
     for c in checks:
         r = util.get(c["key"])
-        ng = c["key"] in rec.get("ng", [])
-        klass = "u" + (" ng" if ng else "") + (" gov" if c["key"] == gov else "")
-        cells.append(f'<td class="{klass}" data-v="{"" if r is None else repr(r)}">{esc(ratio_text(r))}</td>')
+        klass = "u" + (" ng" if c["key"] in rec.get("ng", []) else "") + (" gov" if c["key"] == gov else "")
+        cells.append(Html('<td class="{}" data-v="{}">{}</td>').format(klass, _num(r), ratio_text(r)))
     label = next((c["label"] for c in checks if c["key"] == gov), "")
     g = rec.get("governing_ratio")
-    cells.append(f'<td data-v="{esc(label)}">{esc(label)}</td>')
-    cells.append(f'<td class="u" data-v="{"" if g is None else repr(g)}">{esc(ratio_text(g))}</td>')
-    cells.append(f'<td class="st" data-v="{esc(status)}">{esc(status)}</td>')
-    return f'<tr class="{cls}" data-i="{rec["row"]}">' + "".join(cells) + "</tr>\n"
+    cells.append(Html('<td data-v="{0}">{0}</td>').format(label))
+    cells.append(Html('<td class="u" data-v="{}">{}</td>').format(_num(g), ratio_text(g)))
+    cells.append(Html('<td class="st" data-v="{0}">{0}</td>').format(status))
+    return Html('<tr class="{}" data-i="{}">{}</tr>\n').format(cls, rec["row"], Html("").join(cells))
 
 
-def _member_link(rec: dict) -> str:
+def _member_link(rec: dict) -> Html:
     link = rec.get("link")
     if link and rec["status"] != "ERROR":
-        return f'<a href="{esc(link)}">{esc(rec["member"])}</a>'
+        return Html('<a href="{}">{}</a>').format(link, rec["member"])
     return esc(rec["member"])
 
 
-def table_end() -> str:
-    return "</tbody></table>"
+def table_end() -> Html:
+    return Html("</tbody></table>")
 
 
-def ranked(top: list[dict], checks: list[dict], total: int) -> str:
+def ranked(top: list[dict], checks: list[dict], total: int) -> Html:
     """The PDF's sorted view: members by governing utilisation, highest first."""
     labels = {c["key"]: c["label"] for c in checks}
-    rows = "".join(
-        f'<tr class="{ {"OK": "ok", "NG": "ng"}.get(r["status"], "err") }"><td>{i}</td><td>{esc(r["member"])}</td>'
-        f'<td>{esc(labels.get(r.get("governing"), ""))}</td><td class="u">{esc(ratio_text(r.get("governing_ratio")))}'
-        f'</td><td class="st">{esc(r["status"])}</td></tr>' for i, r in enumerate(top, 1))
-    more = (f"<p>The {len(top)} most utilised of {total} members are shown; the full list is in the table above "
-            "and in schedule.csv.</p>") if total > len(top) else ""
-    return ('<section class="ranked"><h2 class="sec">Members by governing utilisation</h2>'
-            '<table class="members ranked"><thead><tr><th>Rank</th><th>Member</th><th>Governing check</th>'
-            f'<th>Utilisation</th><th>Status</th></tr></thead><tbody>{rows}</tbody></table>{more}</section>')
+    rows = Html("").join(
+        Html('<tr class="{}"><td>{}</td><td>{}</td><td>{}</td><td class="u">{}</td><td class="st">{}</td></tr>').format(
+            {"OK": "ok", "NG": "ng"}.get(r["status"], "err"), i, r["member"], labels.get(r.get("governing"), ""),
+            ratio_text(r.get("governing_ratio")), r["status"]) for i, r in enumerate(top, 1))
+    more = (Html("<p>The {} most utilised of {} members are shown; the full list is in the table above and in "
+                 "schedule.csv.</p>").format(len(top), total) if total > len(top) else Html())
+    return Html('<section class="ranked"><h2 class="sec">Members by governing utilisation</h2>'
+                '<table class="members ranked"><thead><tr><th>Rank</th><th>Member</th><th>Governing check</th>'
+                '<th>Utilisation</th><th>Status</th></tr></thead><tbody>{}</tbody></table>{}</section>'
+                ).format(rows, more)
 
 
-def errors_list(errors: list[str], more: int) -> str:
+def errors_list(errors: list[str], more: int) -> Html:
     if not errors:
-        return ""
-    tail = f"<li>… and {more} more (see the build's messages)</li>" if more else ""
-    return ("<section class='sched-errors'><h2 class='sec'>Rows not built</h2><ul>" +
-            "".join(f"<li>{esc(e)}</li>" for e in errors) + tail + "</ul></section>")
+        return Html()
+    tail = Html("<li>… and {} more (see the build's messages)</li>").format(more) if more else Html()
+    items = Html("").join(Html("<li>{}</li>").format(e) for e in errors)
+    return Html("<section class='sched-errors'><h2 class='sec'>Rows not built</h2><ul>{}{}</ul></section>"
+                ).format(items, tail)
 
 
-def page_end(foot: str, script: bool = True) -> str:
-    return f"{foot}\n{SORT_SCRIPT if script else ''}\n</body></html>\n"
+def page_end(script: bool = True) -> Html:
+    return Html("\n{}\n</body></html>\n").format(Html(SORT_SCRIPT) if script else Html())  # our fixed script
+
+
+def section(title: str, body: Html) -> Html:
+    return Html("<h2 class='front-h'>{}</h2>{}").format(title, body)
+
+
+def figure(svg: str, caption: str) -> Html:
+    """A chart drawn with calcsheet.svg (its text escaped there) and its caption."""
+    return Html("<figure class='chart'>{}<figcaption>{}</figcaption></figure>").format(Html(svg), caption)
+
+
+def caution_box(text: str) -> Html:
+    return Html("<div class='caution'><strong>Caution.</strong> {}</div>").format(text)
+
+
+def title(heading: str, sub: str) -> Html:
+    return Html("<h1 class='doc-title'>{}</h1><p class='doc-project'>{}</p>").format(heading, sub)
+
+
+def simple_table(head: list[str], rows: list[list], row_classes: list[str] | None = None,
+                 cell_classes: list[list[str]] | None = None) -> Html:
+    """A plain table of text cells (escaped)."""
+    thead = Html("").join(Html("<th>{}</th>").format(h) for h in head)
+    body = []
+    for i, r in enumerate(rows):
+        cc = cell_classes[i] if cell_classes else [""] * len(r)
+        cells = Html("").join(Html('<td class="{}">{}</td>').format(k, v) for v, k in zip(r, cc))
+        body.append(Html('<tr class="{}">{}</tr>').format(row_classes[i] if row_classes else "", cells))
+    return Html("<table class='members'><thead><tr>{}</tr></thead><tbody>{}</tbody></table>").format(
+        thead, Html("").join(body))
 
 
 # ------------------------------------------------------------ charts

@@ -226,17 +226,15 @@ class ScheduleWriter:
         fh.write(RS.footer(Path(info["sheet"]).name, info["sheet_sha256"], Path(info["table"]).name,
                            info["table_sha256"], __version__, info["plugins"]))
         fh.write("<main><section class='front'>")
-        fh.write(f"<h1 class='doc-title'>{RS.esc(title)}</h1>")
-        fh.write(f"<p class='doc-project'>{RS.esc(subject)} · {RS.esc(meta.get('project', ''))}</p>")
+        fh.write(RS.title(title, f"{subject} · {meta.get('project', '')}"))
         fh.write(RS.overall(self.totals))
-        fh.write("<h2 class='front-h'>Utilisation</h2><figure class='chart'>")
         if self.totals["members"] <= RS.BAR_CHART_MAX:
-            fh.write(RS.member_chart(self.first, checks))
+            chart = RS.member_chart(self.first, checks)
             cap = "Each member's check utilisations; the bar reaches the governing one. Dashed line: 1.0."
         else:
-            fh.write(RS.histogram_chart(self.hist_ok, self.hist_ng, BIN_WIDTH))
+            chart = RS.histogram_chart(self.hist_ok, self.hist_ng, BIN_WIDTH)
             cap = f"Members per band of governing utilisation ({self.totals['members']} members)."
-        fh.write(f"<figcaption>{RS.esc(cap)}</figcaption></figure>")
+        fh.write(RS.section("Utilisation", RS.figure(chart, cap)))
         fh.write("<h2 class='front-h'>Members</h2>")
         if not for_pdf:
             fh.write("<p class='screen-only'>Click a column heading to sort by it.</p>")
@@ -250,8 +248,9 @@ class ScheduleWriter:
         ranked = [r for _, r in sorted(self.top, key=lambda t: t[0], reverse=True)]
         fh.write(RS.ranked(ranked, checks, self.totals["members"] - self.totals["errors"]))
         fh.write(RS.errors_list(self.errors, self.more_errors))
-        fh.write(f"<div class='caution'><strong>Caution.</strong> {RS.esc(_caution())}</div></main>")
-        fh.write(RS.page_end("", script=not for_pdf))
+        fh.write(RS.caution_box(_caution()))
+        fh.write("</main>")
+        fh.write(RS.page_end(script=not for_pdf))
 
 
 def _caution() -> str:

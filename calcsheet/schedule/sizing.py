@@ -49,37 +49,40 @@ def _quoted(designation: str) -> str:
 
 
 def selection_page(name: str, family: str, source: str, chosen: tuple, lighter: tuple | None,
-                   lighter_outcome, chosen_outcome, tried: int, total: int) -> str:
-    from ..svg import esc
+                   lighter_outcome, chosen_outcome, tried: int, total: int):
+    """The package's selection page: the chosen section beside the next lighter one and what it fails."""
+    from ..render.markup import Html
 
     def ratio(r):
         return "—" if r is None else f"{r:.2f}"
 
     gov = chosen_outcome.governing()
-    rows = [f"<tr class='ok'><td>{esc(chosen[0])}</td><td class='numcol'>{chosen[1]:.1f}</td>"
-            f"<td>{esc(gov.label if gov else 'no checks')}</td><td class='numcol'>{ratio(gov.ratio if gov else None)}"
-            "</td><td class='status'>OK</td></tr>"]
+    row = Html("<tr class='{}'><td>{}</td><td class='numcol'>{:.1f}</td><td>{}</td><td class='numcol'>{}</td>"
+               "<td class='status'>{}</td></tr>")
+    rows = [row.format("ok", chosen[0], chosen[1], gov.label if gov else "no checks",
+                       ratio(gov.ratio if gov else None), "OK")]
     if lighter is not None:
-        if lighter_outcome.ok:
-            failing = [c for c in lighter_outcome.checks if not c.ok]
-            what = "; ".join(f"{c.label} ({ratio(c.ratio)})" for c in failing)
-            worst = max((c.ratio for c in failing if c.ratio is not None), default=None)
-        else:
-            what = "the sheet does not run with it: " + lighter_outcome.errors[0].split("\n")[0].split(": error: ", 1)[-1]
-            worst = None
-        rows.append(f"<tr class='ng'><td>{esc(lighter[0])}</td><td class='numcol'>{lighter[1]:.1f}</td>"
-                    f"<td>{esc(what)}</td><td class='numcol'>{ratio(worst)}</td><td class='status'>NG</td></tr>")
-        lead = (f"{esc(chosen[0])} is the lightest {esc(family)} section for which every check of this sheet is "
-                f"OK. The next lighter section, {esc(lighter[0])}, fails: {esc(what)}.")
+        what, worst = failure(lighter_outcome)
+        rows.append(row.format("ng", lighter[0], lighter[1], what, ratio(worst), "NG"))
+        lead = (f"{chosen[0]} is the lightest {family} section for which every check of this sheet is OK. "
+                f"The next lighter section, {lighter[0]}, fails: {what}.")
     else:
-        lead = f"{esc(chosen[0])} is the lightest {esc(family)} section in the catalogue, and every check is OK."
-    return (f"<section class='changes sizing'><h2 class='front-h'>Section selection: {esc(name)}</h2>"
-            f"<p>{lead}</p><table class='summary'><thead><tr><th>Section</th><th>Mass [kg/m]</th>"
-            "<th>Governing / failing check</th><th>Utilisation</th><th></th></tr></thead><tbody>"
-            + "".join(rows) + "</tbody></table>"
-            f"<p class='note'>Sections tried from the lightest up, by mass per length: {tried} of the {total} "
-            f"{esc(family)} sections in {esc(source)}. Every section lighter than {esc(chosen[0])} failed a check "
-            "or could not be used by the sheet.</p></section>")
+        lead = f"{chosen[0]} is the lightest {family} section in the catalogue, and every check is OK."
+    note = (f"Sections tried from the lightest up, by mass per length: {tried} of the {total} {family} sections "
+            f"in {source}. Every section lighter than {chosen[0]} failed a check or could not be used by the sheet.")
+    return Html("<section class='changes sizing'><h2 class='front-h'>Section selection: {}</h2><p>{}</p>"
+                "<table class='summary'><thead><tr><th>Section</th><th>Mass [kg/m]</th>"
+                "<th>Governing / failing check</th><th>Utilisation</th><th></th></tr></thead><tbody>{}</tbody>"
+                "</table><p class='note'>{}</p></section>").format(name, lead, Html("").join(rows), note)
+
+
+def failure(outcome) -> tuple[str, float | None]:
+    """What a section fails: its NG checks with their utilisations, or why the sheet cannot use it."""
+    if outcome.ok:
+        failing = [c for c in outcome.checks if not c.ok]
+        what = "; ".join(f"{c.label} ({'—' if c.ratio is None else f'{c.ratio:.2f}'})" for c in failing)
+        return what, max((c.ratio for c in failing if c.ratio is not None), default=None)
+    return "the sheet does not run with it: " + outcome.errors[0].split("\n")[0].split(": error: ", 1)[-1], None
 
 
 def build_sizing(sheet_path: Path, name: str, family: str, out_dir: Path, formats: list[str], *, jobs: int = 1,

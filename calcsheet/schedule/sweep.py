@@ -8,7 +8,6 @@ between the two points that straddle it.
 """
 from __future__ import annotations
 
-import io
 import json
 import math
 import re
@@ -162,43 +161,34 @@ def build_sweep(sheet_path: Path, spec_text: str, out_dir: Path, formats: list[s
     write_atomic(path, (json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n").encode("utf-8"))
     written.append(path)
     if "html" in formats or "pdf" in formats:
-        buf = io.StringIO()
         title = f"Sweep of {spec.name}"
-        buf.write(RS.page_start(sheet.meta, title, Path(sheet.path).name, paper,
-                                (ASSETS / "package.css").read_text(encoding="utf-8")))
-        buf.write(RS.footer(Path(sheet.path).name, sheet.fingerprint["sheet"], "", "", __version__,
-                            sheet.fingerprint["plugins"]))
-        buf.write(f"<main><h1 class='doc-title'>{RS.esc(title)}</h1>")
-        buf.write(f"<p class='doc-project'>{RS.esc(sheet.meta.get('subject', ''))} · "
-                  f"{len(points)} points from {RS.esc(points[0]['text'] if points else '')} to "
-                  f"{RS.esc(points[-1]['text'] if points else '')}</p>")
-        buf.write("<figure class='chart'>" + RS.sweep_chart(spec.name, spec.unit, xs, check_list, ratios, flips) +
-                  "<figcaption>Utilisation of each check against "
-                  f"{RS.esc(spec.name)}; dashed line: 1.0; a diamond marks where a check changes between OK and NG"
-                  " (interpolated between the two points either side).</figcaption></figure>")
+        span = f"{points[0]['text']} to {points[-1]['text']}" if points else ""
+        parts = [RS.page_start(sheet.meta, title, Path(sheet.path).name, paper,
+                               (ASSETS / "package.css").read_text(encoding="utf-8")),
+                 RS.footer(Path(sheet.path).name, sheet.fingerprint["sheet"], "", "", __version__,
+                           sheet.fingerprint["plugins"]),
+                 RS.Html("<main>"),
+                 RS.title(title, f"{sheet.meta.get('subject', '')} · {len(points)} points from {span}"),
+                 RS.figure(RS.sweep_chart(spec.name, spec.unit, xs, check_list, ratios, flips),
+                           f"Utilisation of each check against {spec.name}; dashed line: 1.0; a diamond marks where "
+                           "a check changes between OK and NG (interpolated between the two points either side).")]
         if flips:
-            buf.write("<h2 class='front-h'>Where checks change</h2><table class='members'><thead><tr>"
-                      "<th>Check</th><th>Becomes</th><th>At about</th><th>Between points</th></tr></thead><tbody>")
-            for f in flips:
-                buf.write(f"<tr><td>{RS.esc(f['label'])}</td><td>{f['to']}</td>"
-                          f"<td class='u'>{RS.esc(spec.text(_sig4(f['at'])))}</td>"
-                          f"<td>{RS.esc(spec.text(f['between'][0]))} – {RS.esc(spec.text(f['between'][1]))}</td></tr>")
-            buf.write("</tbody></table>")
+            parts.append(RS.section("Where checks change", RS.simple_table(
+                ["Check", "Becomes", "At about", "Between points"],
+                [[f["label"], f["to"], spec.text(_sig4(f["at"])),
+                  f"{spec.text(f['between'][0])} – {spec.text(f['between'][1])}"] for f in flips])))
         else:
-            buf.write("<p>No check changes between OK and NG over this range.</p>")
-        buf.write("<h2 class='front-h'>Points</h2><table class='members'><thead><tr>"
-                  f"<th>{RS.esc(spec.name)}</th>" + "".join(f"<th>{RS.esc(c['label'])}</th>" for c in check_list) +
-                  "<th>Status</th></tr></thead><tbody>")
+            parts.append(RS.Html("<p>No check changes between OK and NG over this range.</p>"))
+        rows, row_cls, cell_cls = [], [], []
         for p in points:
-            cells = "".join(
-                f"<td class='u{'' if p['ok'].get(c['key'], True) else ' ng'}'>"
-                f"{RS.esc(RS.ratio_text(p['utilisation'].get(c['key'])))}</td>" for c in check_list)
             status = "ERROR" if p["error"] else ("OK" if all(p["ok"].values()) else "NG")
-            buf.write(f"<tr class='{ {'OK': 'ok', 'NG': 'ng'}.get(status, 'err') }'><td>{RS.esc(p['text'])}</td>"
-                      f"{cells}<td class='st'>{status}</td></tr>")
-        buf.write(f"</tbody></table><div class='caution'><strong>Caution.</strong> {RS.esc(caution())}</div></main>")
-        buf.write(RS.page_end("", script=False))
-        html = buf.getvalue()
+            rows.append([p["text"], *[RS.ratio_text(p["utilisation"].get(c["key"])) for c in check_list], status])
+            row_cls.append({"OK": "ok", "NG": "ng"}.get(status, "err"))
+            cell_cls.append(["v", *["u" + ("" if p["ok"].get(c["key"], True) else " ng") for c in check_list], "st"])
+        parts.append(RS.section("Points", RS.simple_table([spec.name, *[c["label"] for c in check_list], "Status"],
+                                                          rows, row_cls, cell_cls)))
+        parts += [RS.caution_box(caution()), RS.Html("</main>"), RS.page_end(script=False)]
+        html = str(RS.Html("").join(parts))
         if "html" in formats:
             path = out_dir / f"{stem}.html"
             write_atomic(path, html.encode("utf-8"))

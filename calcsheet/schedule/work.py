@@ -199,7 +199,7 @@ def build_task(task: Task) -> Outcome:
 def render_member(result, task: Task) -> dict[str, bytes]:
     """The member's package as bytes per format, each stamped with the content hash."""
     from ..package import PackageDocument, pdf_bytes
-    from ..svg import esc
+    from ..render.markup import Html
 
     if task.subject_suffix:
         subject = str(result.meta.get("subject") or Path(task.sheet).stem)
@@ -208,11 +208,10 @@ def render_member(result, task: Task) -> dict[str, bytes]:
     class StampedDocument(PackageDocument):
         def footer(self) -> str:
             base = super().footer()
-            stamp = (f'<div>Member {esc(task.member)} · build sha256 '
-                     f'<span class="hash" id="content-hash">{esc(task.content_hash)}</span></div>')
-            text = str(base)
-            text = text.replace("</footer>", stamp + "</footer>", 1) if "</footer>" in text else text + stamp
-            return type(base)(text)  # the document's own markup type (already-escaped HTML)
+            stamp = Html('<div>Member {} · build sha256 <span class="hash" id="content-hash">{}</span></div>'
+                         ).format(task.member, task.content_hash)
+            head, sep, tail = str(base).rpartition("</footer>")
+            return Html(head) + stamp + Html(sep + tail) if sep else base + stamp  # base: already-escaped markup
 
     files: dict[str, bytes] = {}
     html = None
@@ -247,19 +246,15 @@ def stamp_of(path: Path) -> str | None:
     return None
 
 
-def markup(text: str):
-    """Already-escaped HTML as the renderer's markup type, where it has one."""
-    try:
-        from ..render.markup import Html
-    except ImportError:
-        return text
-    return Html(text)
+def markup(html):
+    """A page built from markup templates (already escaped), as the renderer's markup type."""
+    from ..render.markup import Html
+
+    return Html(html) if html else None
 
 
 def caution() -> str:
     """The package's caution sentence, wherever the renderer keeps it."""
-    try:
-        from ..render.page import CAUTION
-    except ImportError:
-        from ..package import CAUTION
+    from ..render.page import CAUTION
+
     return CAUTION
