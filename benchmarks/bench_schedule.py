@@ -139,16 +139,18 @@ def main() -> int:
     ap.add_argument("--large-formats", default="html,json")
     ap.add_argument("--skip-cluster", action="store_true")
     ap.add_argument("--skip-memory", action="store_true")
+    ap.add_argument("--only-memory", action="store_true")
     args = ap.parse_args()
     sys.path.insert(0, str(ROOT))
     results = []
     with tempfile.TemporaryDirectory() as d:
         tmp = Path(d)
-        ok, pool_time = bench_pool(tmp, args.rows, ["html", "json"], "HTML+JSON")
-        results.append(ok)
-        if not args.skip_cluster:
+        if not args.only_memory:
+            ok, pool_time = bench_pool(tmp, args.rows, ["html", "json"], "HTML+JSON")
+            results.append(ok)
+        if not args.skip_cluster and not args.only_memory:
             results.append(bench_cluster(tmp, args.rows, pool_time))
-        if args.pdf:
+        if args.pdf and not args.only_memory:
             results.append(bench_pool(tmp, args.pdf, ["html", "pdf", "json"], "HTML+PDF+JSON")[0])
         if not args.skip_memory:
             sizes = sorted({max(1, args.large // 10), args.large})
