@@ -64,9 +64,15 @@ def _arg_of_unit(unit: pint.Unit) -> Arg:
     return Arg(U.dim_of(unit), offset)
 
 
+@lru_cache(maxsize=4096)
+def _arg_of_units(units) -> Arg:
+    return _arg_of_unit(U.registry().Unit(units))
+
+
 def arg_of(q: pint.Quantity) -> Arg:
-    """The ``Arg`` of an evaluated quantity."""
-    return _arg_of_unit(q.units)
+    """The ``Arg`` of an evaluated quantity (cached on its units container: ``q.units`` builds a new
+    ``Unit`` on every read, which costs more than the arithmetic it guards)."""
+    return _arg_of_units(q._units)
 
 
 def _d(a: Arg) -> str:

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 from collections.abc import Mapping
 from dataclasses import dataclass
+from functools import cached_property
 
 import pint
 
@@ -53,14 +54,20 @@ class T:
     record_type: str | None = None
     offset: bool = False
 
-    @property
+    @cached_property
     def arg(self) -> B.Arg | None:
         """What the built-in rules know of this type (None: not known)."""
         return B.Arg(self.dim, self.offset) if self.kind == "q" else None
 
     @staticmethod
     def of(arg: B.Arg | None) -> "T":
-        return ANY if arg is None else T("q", arg.dim, offset=arg.offset)
+        """The quantity type of a rule's result (one shared instance per result)."""
+        if arg is None:
+            return ANY
+        t = _OF.get(arg)
+        if t is None:
+            t = _OF[arg] = T("q", arg.dim, offset=arg.offset)
+        return t
 
     def word(self):
         """This type as ``builtins.rule_if`` compares it: an Arg, a word, or None (unknown)."""
@@ -76,6 +83,7 @@ class T:
         return self.kind
 
 
+_OF: dict = {}
 ANY = T("any")
 TEXT = T("text")
 NUMBER = T("q", U.DIMENSIONLESS)
@@ -260,7 +268,7 @@ class Checker:
             raise OffsetTemperatureError(
                 f"'{node.unit_text}' puts a temperature scale (°C/°F) inside a compound unit", _unit_span(node),
                 hint="a per-degree coefficient is per kelvin: write e.g. 1.2e-5 K^-1")
-        return T("q", U.dim_of(unit), offset=offset)
+        return T.of(B.Arg(U.dim_of(unit), offset))
 
     def _infer_Text(self, node) -> T:
         return TEXT
@@ -284,8 +292,9 @@ class Checker:
     def _infer_BinOp(self, node: N.BinOp) -> T:
         a = self._quantity(self.infer(node.left), node.left)
         b = self._quantity(self.infer(node.right), node.right)
-        if node.op == "^":
-            return T.of(B.rule_pow(a.arg, b.arg, node, B.written_power(node.right)))
+        if node.op == "^":  # the written power matters only for a base with units
+            p = B.written_power(node.right) if a.kind == "q" and a.dim != U.DIMENSIONLESS else None
+            return T.of(B.rule_pow(a.arg, b.arg, node, p))
         return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node))
 
     def _infer_FieldAccess(self, node: N.FieldAccess) -> T:

@@ -295,6 +295,9 @@ class Record:
     source: str = ""  # "section.rectangle"
     declared: dict[str, Field] = field(default_factory=dict)
     optional: dict[str, str] = field(default_factory=dict)  # absent optional field -> why
+    # What the plugin needs to take this record back as an argument (a section's outline), kept
+    # beside the fields: never a field, never printed or compared, copied with the record.
+    payload: Any = field(default=None, repr=False, compare=False)
 
     def get(self, name: str):
         if name in self.fields:

@@ -46,11 +46,56 @@ STANDARD = [
     ("I_y_ref", "[length]**4", "mm^4", "second moment about the axis x = x_ref (I_y when none named)"),
 ]
 
+# Present only where they mean something (see docs/plugins/section.md); every section function declares them.
+OPTIONAL = [
+    ("d", "[length]", "mm", "overall depth"),
+    ("b_f", "[length]", "mm", "flange width"),
+    ("t_f", "[length]", "mm", "flange thickness"),
+    ("t_w", "[length]", "mm", "web thickness"),
+    ("t", "[length]", "mm", "wall or leg thickness (AISC HSS: the design wall)"),
+    ("r", "[length]", "mm", "root radius"),
+    ("k", "[length]", "mm", "AISC k_des: outer face of the flange to the web toe of the fillet"),
+    ("h_o", "[length]", "mm", "distance between the flange centroids"),
+    ("r_ts", "[length]", "mm", "effective radius of gyration for lateral-torsional buckling (AISC 360-16 F2-7)"),
+    ("C_w", "[length]**6", "mm^6", "warping constant"),
+    ("x_s", "[length]", "mm", "shear centre, x in the shape's coordinates"),
+    ("y_s", "[length]", "mm", "shear centre, y in the shape's coordinates"),
+    ("x_0", "[length]", "mm", "shear centre relative to the centroid, x"),
+    ("y_0", "[length]", "mm", "shear centre relative to the centroid, y"),
+    ("r_o", "[length]", "mm", "polar radius of gyration about the shear centre"),
+    ("beta_x", "[length]", "mm", "monosymmetry property β_x"),
+    ("A_m", "[length]**2", "mm^2", "area enclosed by the wall mid-line of a closed section (Bredt: q = T/(2·A_m))"),
+    ("h", "[length]", "mm", "overall depth (European symbol)"),
+    ("b", "[length]", "mm", "width (European symbol)"),
+    ("I_z", "[length]**4", "mm^4", "second moment about the minor axis z-z (EN 1993 axes; = I_y here)"),
+    ("W_el_y", "[length]**3", "mm^3", "elastic modulus about the major axis y-y (EN 1993; = S_x here)"),
+    ("W_el_z", "[length]**3", "mm^3", "elastic modulus about the minor axis z-z (= S_y here)"),
+    ("W_pl_y", "[length]**3", "mm^3", "plastic modulus about the major axis (= Z_x here)"),
+    ("W_pl_z", "[length]**3", "mm^3", "plastic modulus about the minor axis (= Z_y here)"),
+    ("i_y", "[length]", "mm", "radius of gyration about the major axis (= r_x here)"),
+    ("i_z", "[length]", "mm", "radius of gyration about the minor axis (= r_y here)"),
+    ("I_t", "[length]**4", "mm^4", "torsion constant (= J)"),
+    ("I_w", "[length]**6", "mm^6", "warping constant (= C_w)"),
+    ("A_vz", "[length]**2", "mm^2", "shear area, load parallel to the web (from the table)"),
+    ("A_vy", "[length]**2", "mm^2", "shear area, load parallel to the flanges (from the table)"),
+    ("E_ref", "[pressure]", "MPa", "reference elastic modulus of a transformed section"),
+    ("n_max", None, "", "largest modular ratio E_i/E_ref among the parts of a transformed section"),
+]
+OPTIONAL_TEXT = [
+    ("designation", "the catalogue designation (section.rolled only)"),
+    ("source", "the table, edition and publisher of the values (section.rolled only)"),
+]
+ALIASES = {"h": "d", "b": "b_f", "I_z": "I_y", "W_el_y": "S_x", "W_el_z": "S_y", "W_pl_y": "Z_x", "W_pl_z": "Z_y",
+           "i_y": "r_x", "i_z": "r_y", "I_t": "J", "I_w": "C_w"}
+OPT_UNITS = {name: unit for name, _, unit, _ in OPTIONAL}
+
 NAMES = [name for name, *_ in STANDARD]
 UNITS = {name: unit for name, _, unit, _ in STANDARD}
 
 
 def section_fields() -> list[Field]:
+    absent = " (absent: this section function does not give it; see docs/plugins/section.md)"
     return [Field(n, dim, desc) for n, dim, _, desc in STANDARD] + [
-        Field("shape", kind="text", doc="what the section is (also the key to its outline for built_up)")
-    ]
+        Field("shape", kind="text", doc="what the section is")
+    ] + [Field(n, dim, desc + absent, kind=None if dim else "number", optional=True) for n, dim, _, desc in OPTIONAL
+         ] + [Field(n, kind="text", doc=desc + absent, optional=True) for n, desc in OPTIONAL_TEXT]

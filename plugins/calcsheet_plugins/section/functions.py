@@ -25,9 +25,13 @@ import hashlib
 import numpy as np
 from dataclasses import replace
 
-from calcsheet.plugin import Field, Namespace, Param
+from calcsheet.plugin import Field, Namespace, Param, Record
+from calcsheet import units as U
 
 from . import builtup as B
+from . import catalogue as C
+from . import fillets as FL
+from .fields import ALIASES, OPT_UNITS, UNITS
 from . import shapes as S
 from .fields import section_fields
 from .report import _q, report, unit
@@ -49,7 +53,35 @@ COMMON = [
           default="full", choices=("full", "brief")),
 ]
 
-_GEOMETRY: dict[str, object] = {}  # record key (its 'shape' text) -> Shape or Placed
+
+
+def _record(work, out: dict, geometry) -> Record:
+    """The result record, carrying its own geometry (a Shape or a Placed part) as the record's payload.
+
+    The record is built here rather than by the host only so the payload can travel with it; its fields are
+    checked against the declaration exactly as the host checks a returned dict (presence, dimension).
+    """
+    pf = work.plugin
+    declared = {}
+    for name, value in out.items():
+        f = pf.field(name)
+        if f is None:
+            raise AssertionError(f"{pf.qualname} returned an undeclared field '{name}'")
+        if f.kind_ == "quantity" and U.without_angle(U.dim_of(value)) != U.without_angle(f.dimension):
+            raise AssertionError(f"{pf.qualname} field '{name}' has the wrong dimension")
+        declared[name] = f
+    absent = {}
+    for f in pf.fields:
+        if f.name not in out:
+            if not f.optional:
+                raise AssertionError(f"{pf.qualname} did not return its field '{f.name}'")
+            absent[f.name] = f.doc
+    return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
+                  declared=declared, optional=absent, payload=geometry)
+
+
+def _geometry(rec):
+    return rec.payload if isinstance(rec, Record) else None
 
 
 def _mm(q):
@@ -75,8 +107,7 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
                                        for r in shape.rings)).hexdigest()[:10]
         shape.label += f" #{digest}"
     out = report(work, shape, rho=rho, x_ref=x_ref, y_ref=y_ref, **kw)
-    _GEOMETRY[shape.label] = shape
-    return out
+    return _record(work, out, shape)
 
 
 def _register(name, params, doc):
@@ -96,10 +127,32 @@ def rectangle(work, b, h, **common):
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
                    Param("t", L, "uniform wall", default=None),
                    Param("t_f", L, "top and bottom walls", default=None),
-                   Param("t_w", L, "side walls", default=None)],
-           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides).")
-def box(work, b, h, t=None, t_f=None, t_w=None, **common):
-    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), **common)
+                   Param("t_w", L, "side walls", default=None),
+                   Param("r_out", L, "outside corner radius (uniform wall t only)", default=None),
+                   Param("r_in", L, "inside corner radius (uniform wall t only)", default=None),
+                   Param("corners", kind="text", doc="corner radii by a product standard's rule: hot-finished "
+                         "(EN 10210-2), cold-formed (EN 10219-2) or AISC HSS", default="sharp",
+                         choices=("sharp", "EN 10210-2", "EN 10219-2", "AISC"))],
+           "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides); corners sharp, or rounded "
+           "by r_out/r_in or a product standard's rule.")
+def box(work, b, h, t=None, t_f=None, t_w=None, r_out=None, r_in=None, corners="sharp", **common):
+    if corners == "sharp" and r_out is None and r_in is None:
+        return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), **common)
+    if t is None or t_f is not None or t_w is not None:
+        work.fail("rounded corners need one uniform wall t", param="t" if t is None else "t_f" if t_f is not None
+                  else "t_w")
+    if corners != "sharp":
+        if r_out is not None or r_in is not None:
+            work.fail(f'give either corners="{corners}" or r_out and r_in, not both',
+                      param="r_out" if r_out is not None else "r_in")
+        ro, ri = C.hollow_radii(corners, _mm(t))
+        work.calc("r_out", f"{ro / _mm(t):g}*t", unit="mm", desc=f"outside corner radius ({corners})")
+        work.calc("r_in", f"{ri / _mm(t):g}*t", unit="mm", desc=f"inside corner radius ({corners})")
+    else:
+        if r_out is None or r_in is None:
+            work.fail("give both corner radii r_out and r_in", param="r_in" if r_out is not None else "r_out")
+        ro, ri = _mm(r_out), _mm(r_in)
+    return _section(work, _build(work, lambda: FL.box(_mm(b), _mm(h), _mm(t), ro, ri)), **common)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
@@ -114,33 +167,50 @@ def tube(work, d, t=None, d_i=None, **common):
     return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), **common)
 
 
+R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp corners", default=None)
+
+
 @_register("ishape", [Param("h", L, "overall depth"), Param("b", L, "top flange width"),
                       Param("t_f", L, "top flange thickness"), Param("t_w", L, "web thickness"),
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
-                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None)],
-           "I-shape with equal flanges, or unequal ones via b_bot and t_fb (fillets not modelled).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, **common):
-    return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))), **common)
+                      Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
+           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, **common):
+    if r is not None:
+        if b_bot is not None or t_fb is not None:
+            work.fail("root fillets are modelled on equal flanges only", param="r")
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+    return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
+                    **common)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness")],
-           "Channel, web on the left, flanges pointing right.")
-def channel(work, h, b, t_f, t_w, **common):
+                       Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness"), R],
+           "Channel (parallel flanges), web on the left, flanges pointing right; root fillets r.")
+def channel(work, h, b, t_f, t_w, r=None, **common):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
     return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
-                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness")],
-           "Tee, flange on top.")
-def tee(work, h, b, t_f, t_w, **common):
+                   Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness"), R],
+           "Tee, flange on top; root fillets r.")
+def tee(work, h, b, t_f, t_w, r=None, **common):
+    if r is not None:
+        return _section(work, _build(work, lambda: FL.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
     return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
-                     Param("b", L, "horizontal leg (default h: equal angle)", default=None)],
-           "Equal or unequal angle, heel at the bottom-left.")
-def angle(work, h, t, b=None, **common):
+                     Param("b", L, "horizontal leg (default h: equal angle)", default=None), R],
+           "Equal or unequal angle, heel at the bottom-left; root fillet r.")
+def angle(work, h, t, b=None, r=None, **common):
+    if r is not None:
+        if b is None:
+            work.calc("b", "h", unit="mm", desc="horizontal leg (equal angle)")
+        return _section(work, _build(work, lambda: FL.angle(_mm(h), _mm(b if b is not None else h), _mm(t), _mm(r))),
+                        **common)
     return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), **common)
 
 
@@ -187,9 +257,9 @@ _COUNT = {"part": 0, "hole": 0}
 
 
 def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=None):
-    geom = _GEOMETRY.get(shape.fields.get("shape"))
-    if geom is None:
-        work.fail("this section record was not made in this run; build it with a section function", param="shape")
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
     if E is not None and E.m_as("MPa") <= 0:
         work.fail("E must be greater than zero", param="E")
     if rho is not None and rho.m_as("kg/m^3") <= 0:
@@ -208,13 +278,13 @@ def _placed(work, role, shape, x, y, anchor, rotate, mirror, name, E=None, rho=N
                                 E.m_as("MPa") if E is not None else None, rho_mm)).encode()).hexdigest()[:10]
     label = name or f"{role} ({geom.label.split(' #')[0]})"
     key = f"{role} {label} #{digest}"
-    _GEOMETRY[key] = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
+    placed = B.Placed(label, role, moved, E.m_as("MPa") if E is not None else None, rho_mm)
     work.note(f"{'Hole' if role == 'hole' else 'Part'} '{label}': {geom.label.split(' #')[0]}, "
               f"{'mirrored ' + mirror + ', ' if mirror != 'none' else ''}"
               f"rotated {rotate.m_as('deg') if rotate is not None else 0:g}°, {anchor} at "
               f"({_mm(x) or 0:g}, {_mm(y) or 0:g}) mm" + (f", E = {E.m_as('MPa'):g} MPa" if E is not None else ""))
-    return {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"), "role": role,
-            "shape": key}
+    return _record(work, {"A": _q(abs(b.A), "mm^2"), "x_c": _q(b.x_c, "mm"), "y_c": _q(b.y_c, "mm"),
+                          "role": role, "shape": key}, placed)
 
 
 @namespace.function("part", params=PLACE + [
@@ -245,9 +315,9 @@ def hole(work, shape, x=None, y=None, anchor=None, rotate=None, mirror="none", n
 def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
     placed = []
     for k, rec in enumerate(parts):
-        p = _GEOMETRY.get(rec.fields.get("shape"))
+        p = _geometry(rec)
         if not isinstance(p, B.Placed):
-            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole in this run",
+            work.fail(f"item {k + 1} of parts was not made by section.part or section.hole",
                       param="parts")
         placed.append(p)
     names = [p.name for p in placed]
@@ -263,5 +333,222 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
                      "at n = E of the part / E of the reference (parts without E are of the reference material).")
     out = report(work, asm.shape, x_ref=x_ref, y_ref=y_ref, transformed=transformed, extra_notes=notes,
                  detail=detail)
-    _GEOMETRY[asm.shape.label] = asm.shape
-    return out
+    if asm.E_ref is not None and transformed:
+        out["E_ref"] = _q(asm.E_ref, "MPa")
+        out["n_max"] = U.registry().Quantity(max(asm.n), "")
+    return _record(work, out, asm.shape)
+
+
+# ---------------------------------------------------------------- catalogue sections
+
+
+COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
+            ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
+            ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
+_MODEL_NOTE = {
+    "I": "rolled I with parallel flanges and four root fillets of radius r",
+    "I-tapered": "I with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, and "
+                 "four root fillets r (toe radii not modelled)",
+    "C-tapered": "channel with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, "
+                 "and two root fillets r (toe radii not modelled)",
+    "C": "channel with parallel flanges of the tabulated t_f and two root fillets r (an MC's own flange slope, "
+         "which varies by size, is not modelled)",
+    "T": "tee cut from a rolled I, two root fillets of radius r",
+    "L": "angle with a root fillet of radius r (toe radii not modelled)",
+    "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
+                "(AISC Manual, Part 1)",
+    "box-en": "hot-finished hollow section, corner radii 1.5·t outside and 1.0·t inside (EN 10210-2:2019)",
+    "tube": "circular tube of the (design) wall t",
+}
+
+
+_TABLE_UNITS = {"mm": ("in", "mm"), "mm^2": ("in^2", "cm^2"), "mm^3": ("in^3", "cm^3"), "mm^4": ("in^4", "cm^4"),
+                "mm^6": ("in^6", "cm^6"), "kg/m": ("lb/ft", "kg/m")}
+
+
+def _table_unit(entry, name):
+    """The unit the table prints ``name`` in: inches and lb/ft (AISC); mm, cm², cm⁴… and radii of gyration in cm
+    (European tables)."""
+    aisc = entry.source == C.AISC_SOURCE
+    if not aisc and name in ("r_x", "r_y", "r_min"):
+        return "cm"
+    return _TABLE_UNITS[OPT_UNITS.get(name) or UNITS[name]][0 if aisc else 1]
+
+
+_SUPER = str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻")
+
+
+def _published(entry, name, value) -> str:
+    """A table value as the table prints it (its own unit, its own digits)."""
+    u = _table_unit(entry, name)
+    v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
+    text = f"{v:.6g}"
+    if "e" in text:
+        mant, exp = text.split("e")
+        text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
+    return f"{text} {u.replace('^2', '²').replace('^3', '³').replace('^4', '⁴').replace('^6', '⁶')}"
+
+
+def _model(work, entry):
+    g = entry.dims
+    dims = []
+
+    def let(n, v, d):  # the model's dimensions, from the row: one table, bound for the formulas below
+        work.scope[n] = _q(v, "mm")
+        dims.append((n, _published(entry, n if n not in ("h", "b") else {"h": "d", "b": "b_f"}[n], v), d))
+
+    shape = _model_shape(work, entry, g, let, dims)
+    cells = [c for n, v, d in dims for c in (n, v, d)]
+    cells += [""] * (-len(cells) % 6)
+    work.table(f"Dimensions of the model, from the table row {entry.designation}", ["Symbol", "Value", "Meaning"] * 2,
+               [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
+    return shape
+
+
+def _model_shape(work, entry, g, let, dims):
+    m = entry.model
+    if m in ("I", "I-tapered", "C-tapered", "C", "T"):
+        for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
+                     ("t_w", "web thickness")):
+            let(n, g[n], d)
+        let("r", g.get("r", 0.0), "root radius" + (" (k_des − t_f)" if entry.source == C.AISC_SOURCE else ""))
+        if m == "T":
+            return FL.tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "C-tapered":
+            return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        if m == "C":
+            return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "I-tapered":
+            return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+    if m == "L":
+        let("h", g["h"], "vertical leg d")
+        let("b", g["b"], "horizontal leg b")
+        let("t", g["t"], "leg thickness")
+        let("r", g["r"], "root radius (k_des − t)")
+        return FL.angle(g["h"], g["b"], g["t"], g["r"])
+    if m in ("box-aisc", "box-en"):
+        std = "AISC" if m == "box-aisc" else "EN 10210-2"
+        ro, ri = C.hollow_radii(std, g["t"])
+        let("h", g["h"], "outside depth")
+        let("b", g["b"], "outside width")
+        let("t", g["t"], "wall" + (" (design wall t_des)" if m == "box-aisc" else ""))
+        work.scope["r_out"], work.scope["r_in"] = _q(ro, "mm"), _q(ri, "mm")
+        dims.append(("r_out", f"{ro / g['t']:g}·t", f"outside corner radius ({std})"))
+        dims.append(("r_in", f"{ri / g['t']:g}·t", f"inside corner radius ({std})"))
+        return FL.box(g["b"], g["h"], g["t"], ro, ri)
+    if m == "tube":
+        let("d", g["d"], "outside diameter")
+        let("t", g["t"], "wall" + (" (design wall t_des)" if entry.source == C.AISC_SOURCE else ""))
+        return S.tube(g["d"], g["t"])
+    raise AssertionError(m)  # pragma: no cover
+
+
+@namespace.function("rolled", params=[
+    Param("designation", kind="text", doc='catalogue designation: "W18X50", "IPE 300", "HE 300 B", "HSS8X8X1/2", '
+                                          '"RHS 150x100x6.3" …'),
+    Param("x_ref", L, "a vertical axis x = x_ref for I_y_ref", default=None),
+    Param("y_ref", L, "a horizontal axis y = y_ref (0 mm is the base) for I_x_ref", default=None)],
+    fields=FIELDS, returns="section",
+    doc="A rolled or hollow section from a published table: the table's values, beside the section's own "
+        "geometric model (fillets, corner radii) and their deviation.")
+def rolled(work, designation, x_ref=None, y_ref=None):
+    if len(designation) > 40:
+        work.fail(f"a designation is a short name such as W18X50 or IPE 300 (this one has {len(designation)} "
+                  "characters)", param="designation")
+    entry = C.lookup(designation)
+    if entry is None:
+        near = C.nearest(designation)
+        work.fail(f"no section '{designation}' in the catalogue", param="designation",
+                  hint=("nearest: " + ", ".join(near)) if near else
+                  "families: W, M, S, HP, C, MC, L, WT, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, CHS, SHS, RHS")
+    work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}. Geometric model: "
+              + _MODEL_NOTE[entry.model] + ". The record's fields take the table's values where the table gives "
+              "them, the model's otherwise.", kind="method")
+    compared = {name for name, _, _ in COMPARED}
+    others = [(n, v) for n, v in entry.values.items() if n not in compared and n not in entry.dims
+              and not (n in ("d", "b_f", "t") and entry.model != "tube")]
+    if others:
+        cells = [c for n, v in others for c in (n, _published(entry, n, v))]
+        cells += [""] * (-len(cells) % 6)
+        work.table(f"Further values of the table row {entry.designation}", ["Property", "Table"] * 3,
+                   [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
+    shape = _build(work, lambda: _model(work, entry))
+    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief", compact=True)
+    rows, worst = [], []
+    for name, u, tol in COMPARED:
+        if name not in entry.values or name not in out:
+            continue
+        tv, mv = entry.values[name], out[name].m_as(unit(u))
+        dev = (mv - tv) / tv if tv else 0.0
+        rows.append([name, _published(entry, name, tv), _q(mv, u).to(unit(_table_unit(entry, name))),
+                     f"{100 * dev:+.2f} %", f"{100 * tol:.0f} %"])
+        if abs(dev) > tol:
+            worst.append(f"{name} {100 * dev:+.1f} %")
+    work.table(f"Table row {entry.designation} ({entry.source}) against the geometric model",
+               ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
+               note="Table values as published, in the table's units; deviation = (model − table)/table.")
+    if worst:
+        work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
+                  + ", ".join(worst), param="designation")
+    else:
+        work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
+                  "properties.", kind="agreement")
+    for name, v in entry.values.items():
+        u = UNITS.get(name) or OPT_UNITS.get(name)
+        out[name] = _q(v, u)
+    for name, base, dist in (("S_x_top", "I_x", "y_top"), ("S_x_bot", "I_x", "y_bot"), ("S_y_left", "I_y", "x_left"),
+                             ("S_y_right", "I_y", "x_right")):
+        out[name] = (out[base] / out[dist]).to(unit("mm^3"))
+    if "I_2" not in entry.values and abs(out["I_xy"].m_as(unit("mm^4"))) <= 1e-9 * out["I_x"].m_as(unit("mm^4")):
+        out["I_1"], out["I_2"] = max(out["I_x"], out["I_y"]), min(out["I_x"], out["I_y"])  # principal axes x, y
+        out["r_min"] = min(out["r_x"], out["r_y"])  # the table's own radius (its I/A is rounded differently)
+    if y_ref is None:
+        out["I_x_ref"] = out["I_x"]
+    if x_ref is None:
+        out["I_y_ref"] = out["I_y"]
+    for alias, base in ALIASES.items():
+        if base in out:
+            out[alias] = out[base].to(unit(OPT_UNITS[alias]))
+    out["designation"] = entry.designation
+    out["source"] = entry.source
+    out["shape"] = f"{entry.designation} ({entry.source.split(' (')[0]})"
+    return _record(work, out, shape)
+
+
+# ---------------------------------------------------------------- first moment at any level
+
+@namespace.function("Q_at", params=[
+    Param("shape", kind="record", record="section", doc="any section record"),
+    Param("y", L, "level of the cut, in the section's own coordinates (0 mm is the base of a shape)")],
+    fields=[Field("Q", "[length]**3", "first moment, about the centroidal x axis, of the area above the cut"),
+            Field("t", L, "material width cut at y (the smaller side at a step; transformed for several materials)"),
+            Field("A_above", "[length]**2", "area above the cut"),
+            Field("y_bar", L, "centroid of the area above the cut"),
+            Field("y_c", L, "centroid of the whole section")],
+    returns="section.cut",
+    doc="First moment Q and width t at any level y, for the shear stress τ = V·Q/(I_x·t) there.")
+def Q_at(work, shape, y):
+    from . import polygon as P
+
+    geom = _geometry(shape)
+    if not isinstance(geom, S.Shape):
+        work.fail("this section record carries no outline; build it with a section function", param="shape")
+    rings = geom.rings
+    c = _mm(y)
+    solid = [r for r in rings if r.sign > 0]
+    lo = min(float(r.y.min()) for r in solid)
+    hi = max(float(r.y.max()) for r in solid)
+    if not lo < c < hi:
+        work.fail(f"the cut y = {c:g} mm must lie inside the section, between {lo:g} and {hi:g} mm", param="y")
+    whole = P.centroidal(P.region_moments(rings))
+    above = P._moments_above(rings, c)
+    work.let("y_c", _q(whole.y_c, "mm"), unit="mm", desc="centroid of the section", note="from the outline")
+    work.let("A_above", _q(above.A, "mm^2"), unit="mm^2", desc="area above the cut",
+             note="Green's theorem over the outline clipped at y")
+    work.let("y_bar", _q(c + above.Sx / above.A, "mm"), unit="mm", desc="centroid of the area above the cut",
+             note="first moment of the clipped outline about the cut, over its area")
+    work.calc("Q", "A_above*(y_bar - y_c)", unit="mm^3", desc="first moment about the centroidal axis (Q = A'·ȳ')")
+    work.let("t", _q(P.width_at(rings, c, weighted=True), "mm"), unit="mm", desc="material width at the cut",
+             note="width of material cut by the line (at a step, the smaller side)")
+    return {n: work[n] for n in ("Q", "t", "A_above", "y_bar", "y_c")}

@@ -16,7 +16,8 @@ from functools import lru_cache
 from calcsheet import units as U
 
 from . import drawing
-from .fields import NAMES, UNITS
+from .fields import ALIASES, NAMES, OPT_UNITS, OPTIONAL, UNITS
+from .warping import cubic_moment
 from .shapes import ARC_SEGMENTS
 from .properties import Basic, disagreement, green, properties, tabular
 
@@ -44,6 +45,42 @@ def _snap(v: float, scale: float) -> float:
 
 def _label(r) -> str:
     return r.name + (" (hole)" if r.sign < 0 and "hole" not in r.name.lower() else "")
+
+
+def _compact_table_steps(work, shape) -> None:
+    """The parallel-axis method in one table (a single material, no holes to explain): areas, centroids and
+    second moments of the parts, then A, the centroid and I as the table's column sums."""
+    rows = shape.rows
+    sA = sum(r.sign * r.A for r in rows)
+    xc = sum(r.sign * r.A * r.x for r in rows) / sA
+    yc = sum(r.sign * r.A * r.y for r in rows) / sA
+    scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
+    body, sums = [], [0.0] * 5
+    for r in rows:
+        a = r.sign * r.A
+        dx, dy = _snap(r.x - xc, scale), _snap(r.y - yc, scale)
+        vals = [r.sign * r.Iox, a * dy * dy, r.sign * r.Ioy, a * dx * dx, r.sign * r.Ioxy + a * dx * dy]
+        sums = [p + v for p, v in zip(sums, vals)]
+        body.append([_label(r), _q(a, "mm^2"), _q(r.x, "mm"), _q(r.y, "mm"), _q(vals[0], "mm^4"),
+                     _q(vals[1], "mm^4"), _q(vals[2], "mm^4"), _q(vals[3], "mm^4")])
+    work.table("Parts table: areas, centroids and second moments (parallel-axis theorem)",
+               ["Part", "A_i", "x_i", "y_i", "I_o,x,i", "A_i·d_y,i²", "I_o,y,i", "A_i·d_x,i²"], body,
+               units=[None, "mm^2", "mm", "mm", "mm^4", "mm^4", "mm^4", "mm^4"],
+               footer=[["Σ", _q(sA, "mm^2"), "", "", _q(sums[0], "mm^4"), _q(sums[1], "mm^4"), _q(sums[2], "mm^4"),
+                        _q(sums[3], "mm^4")]],
+               note="d = yᵢ − ȳ and xᵢ − x̄ from the centroid below; Iₒ about each part's own centroid; rounded-off "
+                    "corners are negative rows.")
+    work.let("A", _q(sA, "mm^2"), unit="mm^2", desc="area", note="Σ Aᵢ, " + _COLUMN_SUMS)
+    work.let("x_c", _q(xc, "mm"), unit="mm", desc="centroid, x", note="Σ Aᵢ·xᵢ / Σ Aᵢ over the table")
+    work.let("y_c", _q(yc, "mm"), unit="mm", desc="centroid, y", note="Σ Aᵢ·yᵢ / Σ Aᵢ over the table")
+    work.let("I_x", _q(sums[0] + sums[1], "mm^4"), unit="mm^4", desc="second moment about the centroidal x axis",
+             note="Σ I_o,x + Σ A·d_y², sums of the columns in the parts table")
+    work.let("I_y", _q(sums[2] + sums[3], "mm^4"), unit="mm^4", desc="second moment about the centroidal y axis",
+             note="Σ I_o,y + Σ A·d_x², sums of the columns in the parts table")
+    ixy = 0.0 if shape.symmetry != "none" else sums[4]
+    work.let("I_xy", _q(ixy, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
+             note="the section is symmetric about an axis parallel to x or y" if shape.symmetry != "none"
+             else "Σ (I_o,xy + A·d_x·d_y) over the parts")
 
 
 def _table_steps(work, shape, transformed: bool) -> None:
@@ -77,6 +114,8 @@ def _table_steps(work, shape, transformed: bool) -> None:
     i_scale = sum(abs(r.n) * (abs(r.Iox) + abs(r.Ioy) + r.A * ((r.x - xc) ** 2 + (r.y - yc) ** 2)) for r in rows)
     product = any(abs(r.Ioxy) > 1e-12 * i_scale or abs(r.n * r.A * (r.x - xc) * (r.y - yc)) > 1e-12 * i_scale
                   for r in rows)
+    by_symmetry = product and getattr(shape, "symmetry", "none") != "none"  # spandrels' products cancel
+    product = product and not by_symmetry
     scale = 1e-9 * (sum(abs(r.x) + abs(r.y) for r in rows) / len(rows) + 1.0)
     body_x, body_y, body_p = [], [], []
     sums = [0.0] * 6
@@ -121,8 +160,9 @@ def _table_steps(work, shape, transformed: bool) -> None:
         work.calc("I_xy", "Sigma_Ioxy + Sigma_Adxdy", unit="mm^4", desc="product of area about the centroidal axes")
     else:
         work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
-                 note="every part is symmetric about an axis parallel to x or y through its own centroid and "
-                      "the transfer terms cancel")
+                 note="the section is symmetric about an axis parallel to x or y" if by_symmetry
+                 else "every part is symmetric about an axis parallel to x or y through its own centroid "
+                 "and the transfer terms cancel")
 
 
 class _Brief:
@@ -154,7 +194,7 @@ class _Brief:
     def let(self, name, value, unit=None, desc=None, note=None):
         self.work.let(name, value, unit=unit, desc=desc, note=note)
         self._take(name)
-        if note and "extreme vertex" not in note and "named" not in note and "density" not in note:
+        if note and not any(w in note for w in ("extreme vertex", "named", "density", "symmetric")):
             self.methods.append(name)
 
     def __getitem__(self, name):
@@ -179,7 +219,7 @@ def _engine_basic(work) -> Basic:
 
 
 def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, J_steps=True,
-           extra_notes=(), mass_note=None, detail="full") -> dict:
+           extra_notes=(), mass_note=None, detail="full", compact=False) -> dict:
     """Trace every standard property of ``shape`` into ``work`` and return the fields."""
     for message, param in shape.warnings:
         work.warn(message, param=param)
@@ -196,7 +236,10 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
             work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
                      note="the section is symmetric about a centroidal axis")
     else:
-        _table_steps(work, shape, transformed)
+        if compact and not transformed:
+            _compact_table_steps(work, shape)
+        else:
+            _table_steps(work, shape, transformed)
     # the engine's values are the reported ones; they must match the core's tabular sums
     mine, engine = tabular(shape.rows), _engine_basic(work)
     worst = max(disagreement(mine, engine).values())
@@ -265,6 +308,8 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     else:
         rec.let("J", _q(shape.J, "mm^4"), unit="mm^4", desc="torsion constant", note=shape.J_method)
 
+    _warping(work, rec, shape, vals)
+
     if rho is not None:
         rec.calc("mass", "rho*A", unit="kg/m", desc="mass per length")
     elif vals["mass"] > 0:
@@ -289,7 +334,68 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     _agreement(work, shape, engine, table=detail != "brief")
     out = {name: work[name].to(unit(UNITS[name])) if name != "theta_p" else work[name] for name in NAMES}
     out["shape"] = shape.label
+    out.update(optional_fields(work, shape))
     return out
+
+
+_DIMENSIONED = {name: dim for name, dim, _, _ in OPTIONAL}
+
+
+def optional_fields(work, shape) -> dict:
+    """The optional fields this working produced (and the European aliases of the standard ones)."""
+    out = {}
+    for name, u in OPT_UNITS.items():
+        v = work.scope.get(name)
+        if v is None or not hasattr(v, "m_as") or _DIMENSIONED[name] is None:
+            continue
+        if U.dim_of(v) != U.parse_dimension(_DIMENSIONED[name]):
+            continue
+        out[name] = v.to(unit(u))
+    if "x_s" not in out and shape.symmetry == "double":
+        for name, base in (("x_s", "x_c"), ("y_s", "y_c")):
+            out[name] = work.scope[base].to(unit("mm"))
+        out["x_0"] = out["y_0"] = _q(0.0, "mm")
+        out["beta_x"] = _q(0.0, "mm")
+        out["r_o"] = ((work.scope["I_x"] + work.scope["I_y"]) / work.scope["A"]) ** 0.5
+        out["r_o"] = out["r_o"].to(unit("mm"))
+    if shape.kind in ("ishape", "channel", "tee"):
+        if "h" in out:
+            out.setdefault("d", out["h"])
+        if "b" in out:
+            out.setdefault("b_f", out["b"])
+    for alias, base in ALIASES.items():
+        if alias in out:
+            continue
+        v = out.get(base) if base in out else work.scope.get(base) if base in NAMES else None
+        if v is not None and hasattr(v, "m_as"):
+            out[alias] = v.to(unit(OPT_UNITS[alias]))
+    return out
+
+
+def _warping(work, rec, shape, vals) -> None:
+    """Shear centre, warping constant, monosymmetry property and r_ts, each traced (see warping.py)."""
+    if shape.closed:
+        work.note("Closed cell: under a torque T the wall carries the shear flow q = T/(2·A_m), the shear stress "
+                  "τ = q/t; warping of a closed section is negligible and C_w is not given.", kind="method")
+    for st in shape.warping:
+        rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
+    if "x_s" not in work.scope:
+        return  # doubly symmetric solids and cells: the shear centre is the centroid (given as fields, untraced)
+    rec.calc("x_0", "x_s - x_c", unit="mm", desc="shear centre relative to the centroid, x")
+    rec.calc("y_0", "y_s - y_c", unit="mm", desc="shear centre relative to the centroid, y")
+    rec.calc("r_o", "sqrt(x_0^2 + y_0^2 + (I_x + I_y)/A)", unit="mm",
+             desc="polar radius of gyration about the shear centre (AISC 360-16 E4-9)")
+    if shape.symmetry in ("double", "horizontal"):
+        rec.let("beta_x", _q(0.0, "mm"), unit="mm", desc="monosymmetry property",
+                note="the section is symmetric about its x axis: β_x = 0")
+    elif shape.symmetry == "vertical":
+        m3 = cubic_moment(shape.rings, vals["x_c"], vals["y_c"])
+        rec.let("Sigma_y3", _q(m3, "mm^5"), unit="mm^5", desc="∬y·(x² + y²) dA about the centroid",
+                note="Green's theorem over the outline, 3-point Gauss–Legendre on each edge (exact for a polygon)")
+        rec.calc("beta_x", "Sigma_y3/I_x - 2*y_0", unit="mm", desc="monosymmetry property β_x")
+    if "C_w" in work.scope and shape.kind in ("ishape", "channel"):
+        rec.calc("r_ts", "sqrt(sqrt(I_y*C_w)/S_x)", unit="mm",
+                 desc="effective radius of gyration for LTB (AISC 360-16 F2-7)")
 
 
 def _agreement(work, shape, engine: Basic, table: bool = True) -> None:

@@ -21,6 +21,7 @@ from dataclasses import dataclass, field, replace
 import numpy as np
 
 from .polygon import Ring, make_ring, self_intersection, signed_area
+from . import warping as WP
 
 ARC_SEGMENTS = 2048  # segments per full turn; inscribed-polygon error in I is about (2π/N)²/1.5 ≈ 6e-6
 ARC_TOLERANCE = 5e-5  # relative agreement demanded of shapes with arcs
@@ -100,6 +101,10 @@ class Shape:
     dims: list[Dimension] = field(default_factory=list)
     has_arcs: bool = False
     warnings: list[tuple[str, str | None]] = field(default_factory=list)
+    # warping and shear centre: formulas (sheet syntax, in the call's scope) for h_o, C_w, x_s, y_s ...
+    warping: list[Step] = field(default_factory=list)
+    symmetry: str = "none"  # "double", "vertical" (about a vertical axis), "horizontal", "none"
+    closed: bool = False  # a closed cell (box, tube): Bredt's J, shear flow T/(2·A_m)
 
     @property
     def tolerance(self) -> float:
@@ -190,7 +195,7 @@ def rectangle(b: float, h: float) -> Shape:
                      Step("y_c", "h/2", "mm", "centroid above the base"),
                      Step("I_x", "b*h^3/12", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "h*b^3/12", "mm^4", "second moment about the centroidal y axis")],
-        dims=_dims_box(b, h),
+        dims=_dims_box(b, h), symmetry="double",
     )
 
 
@@ -207,7 +212,7 @@ def circle(d: float) -> Shape:
                      Step("I_x", "pi*d^4/64", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "pi*d^4/64", "mm^4", "second moment about the centroidal y axis")],
         dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)}", 0)],
-        has_arcs=True,
+        has_arcs=True, symmetry="double",
     )
 
 
@@ -230,7 +235,8 @@ def tube(d: float, t: float | None = None, d_i: float | None = None) -> Shape:
         "tube", f"tube d={_fmt(d)} d_i={_fmt(di)} mm", rows,
         _outline([_circle_points(r, r, r), _circle_points(r, r, ri)], [1, -1]),
         J=math.pi * (d**4 - di**4) / 32, J_method="exact for a circular tube, J = π·(d⁴ − d_i⁴)/32 = 2·I",
-        J_steps=[Step("J", "pi*(d^4 - d_i^4)/32", "mm^4", "torsion constant (exact)")],
+        J_steps=[Step("J", "pi*(d^4 - d_i^4)/32", "mm^4", "torsion constant (exact)"),
+                 Step("A_m", "pi*((d + d_i)/2)^2/4", "mm^2", "area enclosed by the wall mid-line")],
         pre_steps=pre,
         closed_form=[Step("A", "pi*(d^2 - d_i^2)/4", "mm^2", "area"),
                      Step("x_c", "d/2", "mm", "centroid from the left edge"),
@@ -238,7 +244,7 @@ def tube(d: float, t: float | None = None, d_i: float | None = None) -> Shape:
                      Step("I_x", "pi*(d^4 - d_i^4)/64", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "pi*(d^4 - d_i^4)/64", "mm^4", "second moment about the centroidal y axis")],
         dims=[Dimension(0, r, d, r, f"⌀{_fmt(d)} × {_fmt((d - di) / 2)}", 0)],
-        has_arcs=True,
+        has_arcs=True, symmetry="double", closed=True,
     )
 
 
@@ -278,7 +284,7 @@ def box(b: float, h: float, t: float | None = None, t_f: float | None = None, t_
                      Step("y_c", "h/2", "mm", "centroid above the base"),
                      Step("I_x", "(b*h^3 - b_i*h_i^3)/12", "mm^4", "second moment about the centroidal x axis"),
                      Step("I_y", "(h*b^3 - h_i*b_i^3)/12", "mm^4", "second moment about the centroidal y axis")],
-        dims=_dims_box(b, h) + [Dimension(b, h - tf, b, h, _fmt(tf), -1)],
+        dims=_dims_box(b, h) + [Dimension(b, h - tf, b, h, _fmt(tf), -1)], symmetry="double", closed=True,
     )
 
 
@@ -323,6 +329,8 @@ def ishape(h: float, b: float, t_f: float, t_w: float, b_bot: float | None = Non
         J_steps=[Step("J", "(b*t_f^3 + b_bot*t_fb^3 + (h - t_f - t_fb)*t_w^3)/3", "mm^4",
                       "torsion constant (thin-walled open)")],
         pre_steps=pre,
+        warping=WP.doubly_symmetric_I() if (bb == b and tb == t_f) else WP.unequal_I(),
+        symmetry="double" if (bb == b and tb == t_f) else "vertical",
         dims=[Dimension(xc - b / 2, h, xc + b / 2, h, _fmt(b), 1), Dimension(xc - W / 2, h, xc - W / 2, 0, _fmt(h), -1),
               Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1),
               Dimension(xc + b / 2, h - t_f, xc + b / 2, h, _fmt(t_f), -1)],
@@ -343,6 +351,7 @@ def channel(h: float, b: float, t_f: float, t_w: float) -> Shape:
         J=(2 * b * t_f**3 + (h - 2 * t_f) * t_w**3) / 3,
         J_method=THIN_OPEN + "; flanges full width, web over its clear depth",
         J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4", "torsion constant (thin-walled open)")],
+        warping=WP.channel(), symmetry="horizontal",
         dims=_dims_box(b, h) + [Dimension(b, h - t_f, b, h, _fmt(t_f), -1)],
         warnings=warnings,
     )
@@ -361,6 +370,7 @@ def tee(h: float, b: float, t_f: float, t_w: float) -> Shape:
         "tee", f"tee h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} mm", rows, _outline([pts]),
         J=(b * t_f**3 + hs * t_w**3) / 3, J_method=THIN_OPEN + "; stem below the flange",
         J_steps=[Step("J", "(b*t_f^3 + (h - t_f)*t_w^3)/3", "mm^4", "torsion constant (thin-walled open)")],
+        warping=WP.tee(), symmetry="vertical",
         dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1),
               Dimension(b, hs, b, h, _fmt(t_f), -1)],
         warnings=warnings,
@@ -379,7 +389,7 @@ def angle(h: float, t: float, b: float | None = None) -> Shape:
         "angle", f"angle h={_fmt(h)} b={_fmt(bb)} t={_fmt(t)} mm", rows, _outline([pts]),
         J=(h + bb - t) * t**3 / 3, J_method=THIN_OPEN + "; legs along their outer edges less the shared corner",
         J_steps=[Step("J", "(h + b - t)*t^3/3", "mm^4", "torsion constant (thin-walled open)")],
-        pre_steps=pre,
+        pre_steps=pre, warping=WP.angle(),
         dims=_dims_box(bb, h) + [Dimension(t, h, 0, h, _fmt(t), -1)],
     )
 

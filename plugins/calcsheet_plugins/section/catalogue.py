@@ -1,0 +1,236 @@
+"""Published section tables: loading, forgiving designation matching, and each family's geometric model.
+
+Data files live in ``catalogue/`` with their source, edition and licence in their header lines. A row is read
+into a ``Row`` holding the table's own values converted to millimetres (and kg/m), plus the dimensions its
+geometric model needs.
+"""
+from __future__ import annotations
+
+import csv
+import difflib
+import re
+from dataclasses import dataclass, field
+from functools import lru_cache
+from pathlib import Path
+
+HERE = Path(__file__).parent / "catalogue"
+IN = 25.4
+LB_FT = 0.45359237 / 0.3048  # kg/m per lb/ft
+
+AISC_SOURCE = "AISC Shapes Database v16.0 (American Institute of Steel Construction)"
+EN_I_SOURCE = "European I and H sections, dimensions to EN 10365:2017 (values as tabulated by eurocodepy 2026.1.1)"
+EN_HOLLOW_SOURCE = "EN 10210-2:2019 hot-finished hollow sections (values as tabulated by eurocodepy 2026.1.1)"
+
+# family -> (file, kind of geometric model)
+AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": ("HP", "I"), "C": ("C", "C-tapered"),
+              "MC": ("MC", "C"), "L": ("L", "L"), "WT": ("WT", "T"), "HSS": ("HSS_rect", "box-aisc"),
+              "HSS_R": ("HSS_round", "tube"), "PIPE": ("Pipe", "tube")}
+
+
+# S shapes and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness
+# (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size: modelled with parallel flanges.
+AISC_FLANGE_SLOPE = 2 / 12
+
+
+@dataclass
+class Entry:
+    designation: str  # as printed
+    family: str
+    model: str  # "I", "T", "L", "box-aisc", "box-en", "tube", "I-tapered", "C-tapered"
+    source: str
+    file: str
+    dims: dict[str, float] = field(default_factory=dict)  # mm: h, b, t_f, t_w, r, t, k
+    values: dict[str, float] = field(default_factory=dict)  # field name -> value in the field's unit (mm…, kg/m)
+    raw: dict[str, str] = field(default_factory=dict)  # the table row as printed, with its units
+    units: dict[str, str] = field(default_factory=dict)
+
+
+def key(text: str) -> str:
+    """The matching key: upper case, no spaces, '-', '/', '.', ',' and '_' all alike, '×' as 'X'."""
+    t = text.upper().replace("×", "X").replace("*", "X")
+    t = re.sub(r"\s+", " ", t.strip())
+    m = re.fullmatch(r"HE ?(\d+) ?([ABM])|HE ?([ABM]) ?(\d+)", t)
+    if m:
+        num, letter = (m.group(1), m.group(2)) if m.group(1) else (m.group(4), m.group(3))
+        return f"HE{letter}{num}"
+    t = t.replace(" ", "")
+    t = re.sub(r"[-/.,_]", "_", t)
+    return t
+
+
+def _fraction_name(token: str) -> str:
+    parts = token.split("_")
+    if len(parts) == 3:
+        return f"{parts[0]}-{parts[1]}/{parts[2]}"
+    if len(parts) == 2:
+        return f"{parts[0]}/{parts[1]}"
+    return token
+
+
+def _aisc_name(raw: str, family: str) -> str:
+    if family in ("HSS", "L", "PIPE"):
+        if family == "PIPE":
+            m = re.fullmatch(r"Pipe([\d_]+)(STD|XS|XXS)", raw)
+            return f"Pipe{_fraction_name(m.group(1))}{m.group(2)}" if m else raw
+        return "X".join(_fraction_name(t) for t in raw.split("X"))
+    return raw.replace("_", ".")
+
+
+def _rows(path: Path):
+    with path.open(encoding="utf-8") as fh:
+        lines = [ln for ln in fh if not ln.startswith("#")]
+    return list(csv.DictReader(lines))
+
+
+def _num(v: str) -> float | None:
+    v = (v or "").strip()
+    if not v or v in ("–", "-", "—"):
+        return None
+    return float(v)
+
+
+def _aisc_entries():
+    out = []
+    for family, (fname, model) in AISC_FILES.items():
+        path = HERE / f"aisc_v16_{fname}.csv"
+        for row in _rows(path):
+            raw = row["shape"]
+            if family == "HSS" and raw.count("X") != 2:
+                continue
+            e = Entry(_aisc_name(raw, family), family, model, AISC_SOURCE, path.name, raw=dict(row))
+            g = {k: _num(v) for k, v in row.items() if k != "shape"}
+            vals, dims = e.values, e.dims
+            def put(name, col, f=1.0):
+                if g.get(col) is not None:
+                    vals[name] = g[col] * f
+            put("A", "area", IN**2)
+            put("I_x", "Ix", IN**4)
+            put("I_y", "Iy", IN**4)
+            put("S_x", "Sx", IN**3)
+            put("S_y", "Sy", IN**3)
+            put("Z_x", "Zx", IN**3)
+            put("Z_y", "Zy", IN**3)
+            put("r_x", "rx", IN)
+            put("r_y", "ry", IN)
+            put("J", "J", IN**4)
+            put("r_o", "ro", IN)  # polar radius of gyration about the shear centre (C, MC, L, WT)
+            put("I_2", "Iz", IN**4)  # angles: the minor principal axis
+            put("r_min", "rz", IN)
+            put("C_w", "Cw", IN**6)
+            put("r_ts", "rts", IN)
+            put("h_o", "ho", IN)
+            put("mass", "weight", LB_FT)
+            if model in ("I", "I-tapered", "C-tapered", "C", "T"):
+                put("d", "d", IN)
+                put("b_f", "bf", IN)
+                put("t_f", "tf", IN)
+                put("t_w", "tw", IN)
+                put("k", "k", IN)
+                dims.update(h=g["d"] * IN, b=g["bf"] * IN, t_f=g["tf"] * IN, t_w=g["tw"] * IN)
+                if g.get("k") is not None:
+                    dims["r"] = max(g["k"] - g["tf"], 0.0) * IN  # k_des = t_f + r
+            elif model == "L":
+                # the file's 'b' column is the leg along y (I_x = 69.7 in⁴ of L8X4X1 belongs to its 8 in leg
+                # upright), its 'd' column the leg along x
+                put("d", "b", IN)
+                put("b_f", "d", IN)
+                put("t", "t", IN)
+                put("k", "k", IN)
+                dims.update(h=g["b"] * IN, b=g["d"] * IN, t=g["t"] * IN, r=max(g["k"] - g["t"], 0.0) * IN)
+            elif model == "box-aisc":
+                put("d", "Ht", IN)
+                put("b_f", "B", IN)
+                put("t", "tdes", IN)
+                dims.update(h=g["Ht"] * IN, b=g["B"] * IN, t=g["tdes"] * IN)
+            elif model == "tube":
+                put("d", "OD", IN)
+                put("t", "tdes", IN)
+                dims.update(d=g["OD"] * IN, t=g["tdes"] * IN)
+            out.append(e)
+    return out
+
+
+def _en_entries():
+    out = []
+    cm = {"A": 1e2, "A_vz": 1e2, "A_vy": 1e2, "I_y": 1e4, "I_z": 1e4, "i_y": 10, "i_z": 10, "W_el_y": 1e3,
+          "W_el_z": 1e3, "W_pl_y": 1e3, "W_pl_z": 1e3, "I_t": 1e4, "I_w": 1e6}
+    ours = {"A": "A", "A_vz": "A_vz", "A_vy": "A_vy", "I_y": "I_x", "I_z": "I_y", "i_y": "r_x", "i_z": "r_y",
+            "W_el_y": "S_x", "W_el_z": "S_y", "W_pl_y": "Z_x", "W_pl_z": "Z_y", "I_t": "J", "I_w": "C_w"}
+    for fname, source, model in (("en_i_sections.csv", EN_I_SOURCE, "I"), ("en10210_rhs.csv", EN_HOLLOW_SOURCE, "box-en"),
+                                 ("en10210_shs.csv", EN_HOLLOW_SOURCE, "box-en"),
+                                 ("en10210_chs.csv", EN_HOLLOW_SOURCE, "tube")):
+        path = HERE / fname
+        for row in _rows(path):
+            raw = row["section"]
+            g = {k: _num(v) for k, v in row.items() if k != "section"}
+            if model == "I":
+                m = re.fullmatch(r"(IPE|HE[ABM])(\d+)", raw)
+                name = f"IPE {m.group(2)}" if m.group(1) == "IPE" else f"HE {m.group(2)} {m.group(1)[2]}"
+                family = m.group(1)
+            else:
+                family = raw[:3]
+                name = family + " " + raw[3:].replace("_", ".").replace("x", "x")
+            e = Entry(name, family, model, source, fname, raw=dict(row))
+            vals, dims = e.values, e.dims
+            if model == "tube":
+                for col, f, mine in (("A", 1e2, "A"), ("I", 1e4, "I_x"), ("I", 1e4, "I_y"), ("i", 10, "r_x"),
+                                     ("i", 10, "r_y"), ("W_el", 1e3, "S_x"), ("W_el", 1e3, "S_y"),
+                                     ("W_pl", 1e3, "Z_x"), ("W_pl", 1e3, "Z_y")):
+                    vals[mine] = g[col] * f
+                vals["mass"] = g["mass"]
+                vals["d"] = g["d"]
+                vals["t"] = g["t"]
+                dims.update(d=g["d"], t=g["t"])
+            else:
+                for col, mine in ours.items():
+                    if g.get(col) not in (None, 0.0):
+                        vals[mine] = g[col] * cm[col]
+                vals["mass"] = g["mass"]
+                if model == "I":
+                    vals.update(d=g["h"], b_f=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r"])
+                    dims.update(h=g["h"], b=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r"])
+                else:
+                    vals.update(d=g["h"], b_f=g["b"], t=g["t_f"])
+                    dims.update(h=g["h"], b=g["b"], t=g["t_f"])
+            out.append(e)
+    return out
+
+
+@lru_cache(maxsize=1)
+def entries() -> dict[str, Entry]:
+    """Every catalogue row by its matching key (read once; the files are read-only package data)."""
+    table: dict[str, Entry] = {}
+    for e in _aisc_entries() + _en_entries():
+        table.setdefault(key(e.designation), e)
+    return table
+
+
+def lookup(designation: str) -> Entry | None:
+    return entries().get(key(designation))
+
+
+def nearest(designation: str, n: int = 5) -> list[str]:
+    table = entries()
+    k = key(designation)
+    close = difflib.get_close_matches(k, list(table), n=n, cutoff=0.5)
+    return [table[c].designation for c in close]
+
+
+# ---------------------------------------------------------------- product-standard corner radii (as data)
+
+def hollow_radii(standard: str, t: float) -> tuple[float, float]:
+    """(outside, inside) corner radius for calculating properties (mm), per the product standard's rule in
+    catalogue/corner_radii.toml (AISC, EN 10210-2 hot-finished, EN 10219-2 cold-formed)."""
+    for rule in radii_rules()[standard]:
+        limit = float(rule["t_max"])
+        if t <= limit:
+            return rule["ro"] * t, rule["ri"] * t
+    raise ValueError(standard)  # pragma: no cover (the last rule has no limit)
+
+
+@lru_cache(maxsize=1)
+def radii_rules() -> dict:
+    import tomllib
+
+    with (HERE / "corner_radii.toml").open("rb") as fh:
+        return {k: v["rules"] for k, v in tomllib.load(fh).items()}
