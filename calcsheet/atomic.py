@@ -120,7 +120,7 @@ def publish_package(out_dir: Path, stem: str, files: dict[str, bytes], mode: int
     try:
         for name, data in files.items():
             path = build / name
-            with open(path, "wb") as fh:
+            with os.fdopen(os.open(path, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o600), "wb") as fh:
                 fh.write(data)
                 fh.flush()
                 os.fsync(fh.fileno())

@@ -1,143 +1,194 @@
-"""The package is published as one unit (issue 16, part 5): every file written into a new build folder,
-then one rename swaps it in. A failure at any step -- including a kill -- leaves the previous package
-byte-identical, and nothing temporary is left behind."""
-from __future__ import annotations
+"""A write that fails part-way leaves the old file byte-identical and no temporary file behind.
 
+The failure is injected at each stage of a write — the data half written (a
+full disk), the flush to disk, the rename over the old file — and by a folder
+standing where the file should go. After each, the folder holds exactly what it
+held before.
+"""
+import errno
 import os
-import subprocess
-import sys
-import time
-from pathlib import Path
 
 import pytest
 
 import calcsheet
-from calcsheet import atomic
-from calcsheet.atomic import STORE, publish_package
+import calcsheet.atomic as atomic
+from calcsheet.atomic import write_atomic
 from calcsheet.package import write_package
 
-FORMATS = ["html", "json"]
+OLD = b"the last good package\n" * 100
+NEW = b"a new package that never arrives\n" * 1000
 
 
-def package(out: Path, stem="s") -> dict[str, bytes]:
-    return {p.name: p.read_bytes() for p in sorted(out.glob(f"{stem}.*"))}
+def snapshot(folder):
+    return {p.name: (p.read_bytes() if p.is_file() else "<dir>") for p in folder.iterdir()}
 
 
-def leftovers(out: Path, stem="s") -> list[str]:
-    """Anything in the output folder that is not the package: temp files, stray build folders."""
-    store = out / STORE / stem
-    keep = {"current", os.readlink(store / "current")}
-    stray = sorted(p.name for p in store.iterdir() if p.name not in keep)
-    return stray + sorted(p.name for p in out.iterdir() if p.name.endswith(".tmp"))
+@pytest.fixture
+def target(tmp_path):
+    p = tmp_path / "sheet.html"
+    p.write_bytes(OLD)
+    return p
+
+
+def _disk_full(monkeypatch):
+    """Every file object os.fdopen returns accepts half of what it is given, then reports a full disk."""
+    real = os.fdopen
+
+    class HalfWriter:
+        def __init__(self, fh):
+            self.fh = fh
+
+        def write(self, data):
+            self.fh.write(bytes(data[: len(data) // 2]))
+            self.fh.flush()
+            raise OSError(errno.ENOSPC, "No space left on device")
+
+        def fileno(self):
+            return self.fh.fileno()
+
+        def flush(self):
+            self.fh.flush()
+
+        def close(self):
+            self.fh.close()
+
+        def __enter__(self):
+            return self
+
+        def __exit__(self, *exc):
+            self.close()
+
+    monkeypatch.setattr(os, "fdopen", lambda fd, *a, **k: HalfWriter(real(fd, *a, **k)))
+
+
+def _fsync_fails(monkeypatch):
+    def fail(fd):
+        raise OSError(errno.EIO, "Input/output error")
+
+    monkeypatch.setattr(os, "fsync", fail)
+
+
+def _rename_fails(monkeypatch):
+    def fail(src, dst, **kw):
+        raise OSError(errno.EXDEV, "Invalid cross-device link")
+
+    monkeypatch.setattr(os, "replace", fail)
+    monkeypatch.setattr(os, "rename", fail)
+
+
+FAILURES = {"the disk fills half-way": _disk_full, "fsync fails": _fsync_fails, "the rename fails": _rename_fails}
+
+
+@pytest.mark.parametrize("inject", FAILURES.values(), ids=list(FAILURES))
+def test_a_failed_write_keeps_the_old_file_and_leaves_no_temporary(target, monkeypatch, inject):
+    before = snapshot(target.parent)
+    inject(monkeypatch)
+    with pytest.raises(OSError):
+        write_atomic(target, NEW)
+    monkeypatch.undo()
+    assert snapshot(target.parent) == before
+    assert target.read_bytes() == OLD
+
+
+@pytest.mark.parametrize("inject", FAILURES.values(), ids=list(FAILURES))
+def test_a_failed_first_write_leaves_no_file_at_all(tmp_path, monkeypatch, inject):
+    inject(monkeypatch)
+    with pytest.raises(OSError):
+        write_atomic(tmp_path / "new.pdf", NEW)
+    monkeypatch.undo()
+    assert list(tmp_path.iterdir()) == []
+
+
+def test_a_folder_in_the_way_is_an_error_and_stays_untouched(tmp_path):
+    blocker = tmp_path / "sheet.pdf"
+    blocker.mkdir()
+    (blocker / "keep.txt").write_bytes(b"keep")
+    with pytest.raises(OSError):
+        write_atomic(blocker, NEW)
+    assert blocker.is_dir() and (blocker / "keep.txt").read_bytes() == b"keep"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["sheet.pdf"]
+
+
+def test_an_interrupt_during_the_write_also_cleans_up(target, monkeypatch):
+    def interrupted(fd):
+        raise KeyboardInterrupt
+
+    monkeypatch.setattr(os, "fsync", interrupted)
+    with pytest.raises(KeyboardInterrupt):
+        write_atomic(target, NEW)
+    monkeypatch.undo()
+    assert snapshot(target.parent) == {"sheet.html": OLD}
+
+
+def test_a_successful_write_replaces_the_whole_file_and_flushes_it(target, monkeypatch):
+    synced = []
+    real_fsync = os.fsync
+    monkeypatch.setattr(os, "fsync", lambda fd: (synced.append(fd), real_fsync(fd)))
+    write_atomic(target, NEW)
+    assert target.read_bytes() == NEW
+    assert len(synced) >= 2  # the data, then the folder entry
+    assert snapshot(target.parent) == {"sheet.html": NEW}
+    assert (os.stat(target).st_mode & 0o777) == 0o644
+
+
+def test_the_temporary_file_is_written_beside_the_target(target, monkeypatch):
+    # a rename is atomic only within one file system: the temporary must live in the same folder
+    seen = []
+    real = os.replace
+    monkeypatch.setattr(os, "replace", lambda src, dst: (seen.append((str(src), str(dst))), real(src, dst)))
+    write_atomic(target, NEW)
+    (src, dst), = seen
+    assert os.path.dirname(src) == str(target.parent) and dst == str(target)
+
+
+# ---------------------------------------------------------------- the package writer
 
 
 @pytest.fixture
 def built(tmp_path):
     src = tmp_path / "s.calc"
     src.write_text("x = 2 m\ncheck x <= 3 m\n")
-    out = tmp_path / "out"
-    write_package(calcsheet.run(src), out, FORMATS)
+    write_package(calcsheet.run(src), tmp_path / "out", ["html", "json"])
+    return src, tmp_path / "out"
+
+
+@pytest.mark.parametrize("inject", FAILURES.values(), ids=list(FAILURES))
+def test_a_failed_package_write_keeps_every_old_file_whole(built, monkeypatch, inject):
+    src, out = built
+    before = snapshot(out)
     src.write_text("x = 2.5 m\ncheck x <= 3 m\n")
-    return src, out, package(out)
-
-
-def test_the_paths_users_open_are_unchanged_and_come_from_one_build(built):
-    src, out, before = built
-    assert set(before) == {"s.html", "s.json"} and b"2.5" not in before["s.json"]
-    write_package(calcsheet.run(src), out, FORMATS)
-    after = package(out)
-    assert b"2.5" in after["s.json"] and after != before
-    folders = {(out / name).resolve().parent for name in after}
-    assert len(folders) == 1 and folders.pop().name.startswith("build-")
-    assert leftovers(out) == []
-
-
-# every file-system step of a publish, and the call of it that fails: the first, and the last one before
-# the swap (os.replace is the swap itself: failing it must also leave the old package)
-# (the folder's fsync is best effort: some file systems refuse it, and that is not a failed build)
-STEPS = [("open", 1), ("open", 2), ("fsync", 1), ("fsync", 2), ("chmod", 1), ("chmod", 3),
-         ("mkdtemp", 1), ("symlink", 1), ("replace", 1)]
-
-
-@pytest.mark.parametrize("error", [OSError(28, "No space left on device"), KeyboardInterrupt()],
-                         ids=["disk-full", "interrupted"])
-@pytest.mark.parametrize("step, nth", STEPS, ids=[f"{s}{n}" for s, n in STEPS])
-def test_a_failure_at_any_step_leaves_the_old_package_byte_identical(built, monkeypatch, step, nth, error):
-    import tempfile
-
-    src, out, before = built
-    owner, name = {"open": (atomic, "open"), "mkdtemp": (tempfile, "mkdtemp")}.get(step, (os, step))
-    real = getattr(owner, name, None) or open
-    calls = {"n": 0}
-
-    def failing(*args, **kwargs):
-        calls["n"] += 1
-        if calls["n"] == nth:
-            raise error
-        return real(*args, **kwargs)
-
-    monkeypatch.setattr(owner, name, failing, raising=False)
-    with pytest.raises(type(error)):
-        write_package(calcsheet.run(src), out, FORMATS)
+    result = calcsheet.run(src)
+    inject(monkeypatch)
+    with pytest.raises(OSError):
+        write_package(result, out, ["html", "json"])
     monkeypatch.undo()
-    assert calls["n"] >= nth, "the step was not reached: the test would prove nothing"
-    assert package(out) == before
-    assert leftovers(out) == []
+    assert snapshot(out) == before
 
 
-def test_a_folder_in_the_way_is_found_before_anything_changes(built):
-    src, out, before = built
-    (out / "s.pdf").mkdir()
-    with pytest.raises(IsADirectoryError):
-        publish_package(out, "s", {"s.html": b"new", "s.json": b"new", "s.pdf": b"new"})
-    assert {p.name: p.read_bytes() for p in out.glob("s.*") if p.is_file()} == before
-    assert (out / "s.pdf").is_dir() and leftovers(out) == []
+def test_a_folder_in_the_way_of_one_output_leaves_no_temporary_and_no_partial_file(built):
+    src, out = built
+    (out / "s.json").unlink()
+    (out / "s.json").mkdir()
+    src.write_text("x = 2.5 m\ncheck x <= 3 m\n")
+    new = calcsheet.run(src)
+    with pytest.raises(OSError):
+        write_package(new, out, ["html", "json"])
+    # (.calcsheet holds the package's build folders: tests/test_package_publish.py)
+    assert sorted(p.name for p in out.iterdir() if not p.name.startswith(".")) == ["s.html", "s.json"]
+    assert (out / "s.json").is_dir()
+    html = (out / "s.html").read_text()
+    assert html.rstrip().endswith("</html>")  # whichever version it is, it is whole
 
 
-KILLER = """
-import os, signal, sys
-from pathlib import Path
-import calcsheet
-from calcsheet.package import write_package
-real = os.replace
-def replace(a, b):
-    if str(b).endswith("current"):
-        os.kill(os.getpid(), signal.SIGKILL)   # killed at the worst moment: just before the swap
-    return real(a, b)
-os.replace = replace
-write_package(calcsheet.run(Path(sys.argv[1])), Path(sys.argv[2]), ["html", "json"])
-"""
+def test_the_package_writer_publishes_all_files_as_one_unit(built, monkeypatch):
+    # the package is not written file by file: every file goes to one build folder, swapped in by one
+    # rename (atomic.publish_package; its failure at each step: tests/test_package_publish.py)
+    src, out = built
+    calls = []
+    real = atomic.publish_package
+    import calcsheet.package as package
 
-
-def test_a_kill_just_before_the_swap_leaves_the_old_package_and_the_next_build_cleans_up(built):
-    src, out, before = built
-    proc = subprocess.run([sys.executable, "-c", KILLER, str(src), str(out)], capture_output=True)
-    assert proc.returncode == -9, proc.stderr.decode()
-    assert package(out) == before
-    left = leftovers(out)  # what the kill left: one unfinished build and the new link that was not swapped in
-    assert len(left) == 2 and left[0].startswith(".current.") and left[1].startswith("build-")
-    stale = time.time() - atomic.STALE_SECONDS - 1
-    for name in left:
-        os.utime(out / STORE / "s" / name, (stale, stale), follow_symlinks=False)
-    write_package(calcsheet.run(src), out, FORMATS)
-    assert b"2.5" in package(out)["s.json"] and leftovers(out) == []
-
-
-def test_a_format_the_new_build_did_not_make_is_no_longer_offered(built):
-    src, out, before = built
-    write_package(calcsheet.run(src), out, ["html"])
-    assert set(package(out)) == {"s.html"} and leftovers(out) == []
-
-
-def test_a_package_of_the_old_layout_plain_files_is_taken_over(tmp_path):
-    out = tmp_path / "out"
-    out.mkdir()
-    (out / "s.html").write_bytes(b"old plain file")
-    publish_package(out, "s", {"s.html": b"new"})
-    assert (out / "s.html").is_symlink() and (out / "s.html").read_bytes() == b"new"
-    assert leftovers(out) == []
-
-
-def test_files_are_readable_by_others(tmp_path):
-    (path,) = publish_package(tmp_path, "s", {"s.json": b"{}"})
-    assert (path.resolve().stat().st_mode & 0o777) == 0o644
+    monkeypatch.setattr(package, "publish_package",
+                        lambda o, stem, files, *a, **k: (calls.append(sorted(files)), real(o, stem, files))[1])
+    write_package(calcsheet.run(src), out, ["html", "json"])
+    assert calls == [["s.html", "s.json"]]
