@@ -237,14 +237,16 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         if isinstance(stmt, N.Prose):
             result.items.append(TR.Prose(stmt.text))
             continue
-        key = stmt.name if isinstance(stmt, N.Definition) else check_key(stmt)
+        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef)) else check_key(stmt)
         if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
             res.broken.add(key)
             continue
         try:
             record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=result.overrides,
                                         inputs=inputs, unit_of=unit_of)
-            if isinstance(record, TR.Step):
+            if isinstance(record, TR.FunctionStep):
+                pass  # a sheet function: shown once, not a value
+            elif isinstance(record, TR.Step):
                 result.values[stmt.name] = record.value
                 result.steps[stmt.name] = record
             else:
