@@ -28,6 +28,7 @@ from .display import DisplayPolicy
 from .errors import (
     CalcError,
     DeclaredUnitError,
+    DivisionByZeroError,
     Diagnostic,
     NumericError,
     OffsetTemperatureError,
@@ -205,6 +206,8 @@ class Evaluator:
                 except CalcError as exc:
                     raise exc.with_span(p.unit_span or p.span)
                 B.rule_user_param(fd, p, B.arg_of(self._need_quantity(v, a.span)), a)
+                if p.unit:  # the parameter takes its declared unit, as a declared definition does
+                    v = v.to(U.build_unit(p.unit))
             local[p.name] = v
         body_used: dict | None = {} if used is not None else None
         try:
@@ -226,6 +229,30 @@ class Evaluator:
                 value = value.to(U.build_unit(fd.unit))
             del want
         return self._finite(value, node.span)
+
+    def try_function(self, fd: N.FunctionDef, env) -> None:
+        """A function whose parameters all have declared units is tried once where it is defined, with one
+        of each unit, so a dimension mistake in its body is found even if it is never called (as the checker
+        finds it); a numeric failure of the trial values says nothing and is let go."""
+        declared = {}
+        for p in (*fd.params, fd):
+            try:
+                declared[p.name] = B.declared_arg(p)
+            except CalcError as exc:
+                raise exc.with_span(p.unit_span or p.span)
+        if any(p.unit is None for p in fd.params):
+            return
+        local = {p.name: self.number(1.0, U.build_unit(p.unit) if p.unit else None) for p in fd.params}
+        try:
+            value = self._need_quantity(self.eval(fd.expr, collections.ChainMap(local, env), None), fd.expr.span)
+        except (NumericError, DivisionByZeroError):
+            return
+        want = declared[fd.name]
+        if want is not None:
+            got = B.arg_of(value)
+            B.rule_declared(got, want, fd, lambda: DeclaredUnitError(
+                f"{fd.name} is declared [{fd.unit_text}] ({U.describe_dim(want.dim)}) but its body gives "
+                f"{U.describe_dim(got.dim)}", fd.unit_span or fd.span))
 
     def _eval_if(self, node: N.Call, env, used):
         cond, then, otherwise = node.args
@@ -355,6 +382,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
             check.shown_left, check.shown_right = inline_calls(stmt.left, env), inline_calls(stmt.right, env)
         return check
     if isinstance(stmt, N.FunctionDef):
+        ev.try_function(stmt, env)
         step = FunctionStep(name=stmt.name, expr=stmt.expr, value=None, description=stmt.description,
                             span=stmt.span, params=tuple((p.name, p.unit_text) for p in stmt.params),
                             unit_text=stmt.unit_text, anchor="f-" + stmt.name)
