@@ -39,6 +39,7 @@ from .errors import (
     DivisionByZeroError,
     NumericError,
     OffsetTemperatureError,
+    TooComplexError,
     TypeMismatchError,
 )
 from .names import operand
@@ -591,6 +592,20 @@ def declared_arg(decl) -> Arg | None:
     if decl.unit is None:
         return None
     return unit_arg(U.build_unit(decl.unit)) if decl.unit else NUMBER
+
+
+# Sheet functions calling sheet functions multiply: a statement may expand this many calls in all (a
+# sheet is untrusted text; f calling g twice, g calling h twice … must not run for hours).
+MAX_FUNCTION_CALLS = 10_000
+
+
+def count_user_call(walker, node: N.Call) -> None:
+    """One more call of a sheet function in the statement ``walker`` is on (each walker resets its count)."""
+    walker.user_calls = getattr(walker, "user_calls", 0) + 1
+    if walker.user_calls > MAX_FUNCTION_CALLS:
+        raise TooComplexError(f"this statement calls the sheet's functions more than {MAX_FUNCTION_CALLS} times "
+                              "(functions calling functions)", node.span,
+                              hint="compute the inner results once, as named values")
 
 
 def check_user_call_shape(fd: N.FunctionDef, node: N.Call) -> None:

@@ -167,6 +167,7 @@ class Checker:
                     self.types.setdefault(stmt.name, ANY)
                 continue
             self._shadows, self._pending = [], []
+            self.user_calls = 0
             try:
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = self.definition(stmt)
@@ -199,6 +200,7 @@ class Checker:
             self.types.setdefault(stmt.name, ANY)
             return []
         self._shadows, self._pending = [], []
+        self.user_calls = 0
         try:
             declared = {}
             for p in (*stmt.params, stmt):
@@ -234,6 +236,7 @@ class Checker:
         """A call of a sheet function: each argument against its parameter, then the body with the
         arguments' types (an error inside the body is reported at this call)."""
         B.check_user_call_shape(fd, node)
+        B.count_user_call(self, node)
         local: dict[str, T] = {}
         for p, a in zip(fd.params, node.args):
             t = self.infer(a)

@@ -197,6 +197,7 @@ class Evaluator:
         """A sheet function: the arguments against the declared parameters (the rule the checker applies),
         then the body with the parameters bound, then the declared result."""
         B.check_user_call_shape(fd, node)
+        B.count_user_call(self, node)
         local = {}
         for p, a in zip(fd.params, node.args):
             v = self.eval(a, env, used)
@@ -376,6 +377,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
     sheet's own as ``overridden`` and records (original, new) in ``applied``; its value and display unit are
     bound in ``env`` and ``display``. A check's demand is shown in ``unit_of(key, value)``.
     """
+    ev.user_calls = 0  # the budget of sheet-function calls is per statement
     if isinstance(stmt, N.Check):
         check = ev.evaluate_check(stmt, env, unit_of)
         if _calls_sheet_function(stmt.left, env) or _calls_sheet_function(stmt.right, env):

@@ -173,3 +173,10 @@ def test_sheet_text_in_a_function_is_escaped_in_html(run):
     from calcsheet.render.page import PackageDocument
 
     assert "<script>alert" not in str(PackageDocument(r).html())
+
+
+def test_functions_calling_functions_cannot_blow_up(run):
+    lines = ["f_0(x) = x"] + [f"f_{i}(x) = f_{i - 1}(x) + f_{i - 1}(x)" for i in range(1, 17)]  # 2^16 calls
+    r = run("\n".join(lines) + "\ny = f_16(1 m)\nz = f_3(1 m)\n")
+    assert codes(r) == [("too-complex", 18, 5)], r.format_diagnostics()
+    assert r.values["z"].m_as("m") == 8  # a reasonable nesting still works
