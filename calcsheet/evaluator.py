@@ -217,9 +217,13 @@ class Evaluator:
         except CalcError as exc:
             raise B.at_call(exc, fd, node)
         if used is not None:  # the values the body read besides its parameters, for the substitution
+            renamed = {p.name: dotted(a) for p, a in zip(fd.params, node.args)}
             for k, v in body_used.items():
-                if k not in local:
+                head, dot, rest = k.partition(".")
+                if head not in local:
                     used.setdefault(k, v)
+                elif dot and renamed.get(head):  # x.M of a parameter x is p.M of the argument p
+                    used.setdefault(f"{renamed[head]}.{rest}", v)
         if fd.unit is not None:
             try:
                 want = B.declared_arg(fd)

@@ -180,3 +180,11 @@ def test_functions_calling_functions_cannot_blow_up(run):
     r = run("\n".join(lines) + "\ny = f_16(1 m)\nz = f_3(1 m)\n")
     assert codes(r) == [("too-complex", 18, 5)], r.format_diagnostics()
     assert r.values["z"].m_as("m") == 8  # a reasonable nesting still works
+
+
+def test_a_field_of_a_parameter_is_substituted_as_the_arguments_field(run):
+    r = run("sec = section.rectangle(b=100 mm, h=200 mm)\nsig(M, s) = M/s.S_x\nsigma [MPa] = sig(10 kN*m, sec)\n")
+    assert r.ok, r.format_diagnostics()
+    assert r.values["sigma"].m_as("MPa") == pytest.approx(10e6 / (100 * 200**2 / 6))  # M/(bh²/6)
+    line = TextDocument().items(r.items).splitlines()[-1]
+    assert "sec.S_x" not in line.split("=")[2] and "6.67×10⁵ mm³" in line.split("=")[2]  # S_x = bh²/6
