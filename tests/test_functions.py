@@ -188,3 +188,28 @@ def test_a_field_of_a_parameter_is_substituted_as_the_arguments_field(run):
     assert r.values["sigma"].m_as("MPa") == pytest.approx(10e6 / (100 * 200**2 / 6))  # M/(bh²/6)
     line = TextDocument().items(r.items).splitlines()[-1]
     assert "sec.S_x" not in line.split("=")[2] and "6.67×10⁵ mm³" in line.split("=")[2]  # S_x = bh²/6
+
+
+BODIES = ["u*v^2/8", "u + v", "sqrt(u*v)", "max(u, v) - min(u, v)", "(u - v)/2", "if(u <= v, u, v)", "abs(u - v)*k"]
+ARGS = ["3 m", "250 mm", "a", "2*a", "(a + 1 m)", "b/2", "-a"]
+
+
+@settings(max_examples=80, deadline=None, derandomize=True)
+@given(st.sampled_from(BODIES), st.sampled_from(ARGS), st.sampled_from(ARGS), st.sampled_from([None, "m"]))
+def test_a_call_gives_what_the_body_gives_with_the_arguments_written_in(body, x, y, unit):
+    """The meaning of a call is its body with each parameter replaced by its (bracketed) argument."""
+    import re
+
+    import calcsheet
+
+    decl = "" if unit is None else f" [{unit}]"
+    written = re.sub(r"\b[uv]\b", lambda m: f"({x})" if m.group() == "u" else f"({y})", body)
+    r = calcsheet.run(f"k = 1.5\na = 2 m\nb = 900 mm\nF(u{decl}, v{decl}) = {body}\n"
+                      f"p = F({x}, {y})\nq = {written}\n")
+    if not r.ok:  # e.g. the square root of a negative: then both ways fail, on their own lines
+        assert sorted(d.span.line for d in r.errors) == [5, 6], r.format_diagnostics()
+        assert {d.code for d in r.errors} == {"not-finite"}
+        return
+    p, q = r.values["p"], r.values["q"]
+    assert p.dimensionality == q.dimensionality
+    assert p.to_base_units().magnitude == pytest.approx(q.to_base_units().magnitude)
