@@ -226,13 +226,12 @@ class Evaluator:
                     used.setdefault(f"{renamed[head]}.{rest}", v)
         if fd.unit is not None:
             try:
-                want = B.declared_arg(fd)
+                B.declared_arg(fd)
             except CalcError as exc:
                 raise exc.with_span(fd.unit_span or fd.span)
             B.rule_user_result(fd, B.arg_of(value), node)
             if fd.unit:
                 value = value.to(U.build_unit(fd.unit))
-            del want
         return self._finite(value, node.span)
 
     def try_function(self, fd: N.FunctionDef, env) -> None:
