@@ -6,7 +6,7 @@ VENV    := .venv
 BIN     := $(VENV)/bin
 STAMP   := $(VENV)/.installed
 
-.PHONY: demo test setup bench clean
+.PHONY: demo test setup bench clean mutation
 
 $(STAMP): pyproject.toml
 	bash .ci/system-deps
@@ -19,6 +19,8 @@ setup: $(STAMP)
 
 demo: $(STAMP)
 	$(BIN)/calcsheet build sheets/*.calc -o out --format html,pdf,json
+	$(BIN)/calcsheet build sheets/boardwalk_joist.calc --schedule sheets/schedules/boardwalk_joists.csv -o out/boardwalk_joists --format html,pdf,json
+	$(BIN)/calcsheet build sheets/boardwalk_joist.calc --sweep "L=2.4:4.8:0.1 m" -o out --format html,pdf,json
 
 test: $(STAMP)
 	bash .ci/system-deps --test
@@ -26,6 +28,11 @@ test: $(STAMP)
 
 bench: $(STAMP)
 	for b in benchmarks/bench_*.py; do $(BIN)/python $$b || exit 1; done
+
+# Mutation testing of the engineering modules (slow; not part of CI). Narrow it with
+#   make mutation MUTATION_ARGS="column material --limit 40"
+mutation: $(STAMP)
+	$(BIN)/python tools/mutation.py $(MUTATION_ARGS)
 
 clean:
 	rm -rf out build *.egg-info
