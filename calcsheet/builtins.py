@@ -33,10 +33,13 @@ from . import units as U
 from .errors import (
     AngleError,
     ArityError,
+    CalcError,
+    DeclaredUnitError,
     DimensionError,
     DivisionByZeroError,
     NumericError,
     OffsetTemperatureError,
+    TooComplexError,
     TypeMismatchError,
 )
 from .names import operand
@@ -577,3 +580,82 @@ def print_form(node: N.Call) -> str:
     if fn is None or len(node.args) < fn.min_args or (fn.max_args is not None and len(node.args) > fn.max_args):
         return "call"
     return fn.print_form
+
+
+# ------------------------------------------------------------ the sheet's own functions
+# ``M_ss(w [kN/m], L [m]) [kN*m] = w*L^2/8``: the checker (on inferred dimensions) and the evaluator (on
+# evaluated ones) apply these same rules at every call, as they do the built-ins' rules above.
+
+
+def declared_arg(decl) -> Arg | None:
+    """The ``Arg`` a parameter or function result is declared with (None: not declared)."""
+    if decl.unit is None:
+        return None
+    return unit_arg(U.build_unit(decl.unit)) if decl.unit else NUMBER
+
+
+# Sheet functions calling sheet functions multiply: a statement may expand this many calls in all (a
+# sheet is untrusted text; f calling g twice, g calling h twice … must not run for hours).
+MAX_FUNCTION_CALLS = 10_000
+
+
+def count_user_call(walker, node: N.Call) -> None:
+    """One more call of a sheet function in the statement ``walker`` is on (each walker resets its count)."""
+    walker.user_calls = getattr(walker, "user_calls", 0) + 1
+    if walker.user_calls > MAX_FUNCTION_CALLS:
+        raise TooComplexError(f"this statement calls the sheet's functions more than {MAX_FUNCTION_CALLS} times "
+                              "(functions calling functions)", node.span,
+                              hint="compute the inner results once, as named values")
+
+
+def check_user_call_shape(fd: N.FunctionDef, node: N.Call) -> None:
+    """Arguments in order, as many as the function has parameters."""
+    if node.kwargs:
+        raise TypeMismatchError(f"{fd.name} takes its arguments in order, without names", node.kwargs[0].span)
+    if len(node.args) != len(fd.params):
+        want = ", ".join(fd.param_names)
+        raise ArityError(f"{fd.name}({want}) takes {len(fd.params)} argument{'s' * (len(fd.params) != 1)}, "
+                         f"got {len(node.args)}", node.span)
+
+
+def rule_user_param(fd: N.FunctionDef, param: N.Param, got: Arg | None, arg_node: N.Expr) -> Arg | None:
+    """An argument for a parameter declared ``[unit]`` has that unit's dimension (the declared-unit rule)."""
+    want = declared_arg(param)
+    if want is None:
+        return got
+
+    def mismatch():
+        return DeclaredUnitError(
+            f"{fd.name}: parameter '{param.name}' is [{param.unit_text}] ({U.describe_dim(want.dim)}) but the "
+            f"argument is {U.describe_dim(got.dim)}", arg_node.span,
+            hint=f"{operand(arg_node, 'the argument')} is {U.describe_dim(got.dim)}")
+
+    return rule_declared(got, want, param, mismatch)
+
+
+def rule_user_result(fd: N.FunctionDef, got: Arg | None, node: N.Call) -> Arg | None:
+    """The body's dimension for this call is the declared result's, if one is declared."""
+    want = declared_arg(fd)
+    if want is None:
+        return got
+
+    def mismatch():
+        return DeclaredUnitError(
+            f"{fd.name} is declared [{fd.unit_text}] ({U.describe_dim(want.dim)}) but for this call its body "
+            f"gives {U.describe_dim(got.dim)}", node.span,
+            hint=f"the definition is on {fd.span.where()}" if fd.span else None)
+
+    return rule_declared(got, want, fd, mismatch)
+
+
+def at_call(exc: CalcError, fd: N.FunctionDef, node: N.Call) -> CalcError:
+    """An error inside a function's body, for one call: reported at the call, naming the function."""
+    if fd.span is not None and exc.span is not None and not (
+            exc.span.line >= fd.span.line and exc.span.end_line <= fd.span.end_line
+            and exc.span.path == fd.span.path):
+        return exc  # already located outside the body
+    where = f" (defined on {fd.span.where()})" if fd.span else ""
+    exc.message = f"in this call of {fd.name}{where}: {exc.message}"
+    exc.args = (exc.message,)
+    exc.span = node.span
+    return exc

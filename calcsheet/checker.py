@@ -145,6 +145,7 @@ class Checker:
         self.shadowed: set[str] = set()  # variable names read as units somewhere (not also "unused")
         self._pending: list[Diagnostic] = []  # warnings of the current statement (dropped if it has an error)
         self.consts = lint.Constants(self)
+        self.functions: dict[str, N.FunctionDef] = {}  # the sheet's own functions that check clean
 
     # ------------------------------------------------------------ statements
     def check_sheet(self, sheet: N.Sheet, res: Resolution) -> list[Diagnostic]:
@@ -152,6 +153,9 @@ class Checker:
         self.defined = res.defined_at
         diags: list[Diagnostic] = []
         for stmt in sheet.body:
+            if isinstance(stmt, N.FunctionDef):
+                diags.extend(self._function_statement(stmt, res))
+                continue
             if isinstance(stmt, N.Definition):
                 key = stmt.name
             elif isinstance(stmt, N.Check):
@@ -163,6 +167,7 @@ class Checker:
                     self.types.setdefault(stmt.name, ANY)
                 continue
             self._shadows, self._pending = [], []
+            self.user_calls = 0
             try:
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = self.definition(stmt)
@@ -187,6 +192,68 @@ class Checker:
                 diags.extend(lint.check_findings(stmt, self, self.path))
         diags.extend(lint.unused_inputs(res, self.path, skip=self.shadowed))
         return diags
+
+    def _function_statement(self, stmt: N.FunctionDef, res: Resolution) -> list[Diagnostic]:
+        """A sheet function: its body is checked now where every parameter has a declared unit, and at
+        each call (with the arguments' dimensions) where one has not."""
+        if stmt.name in res.broken:
+            self.types.setdefault(stmt.name, ANY)
+            return []
+        self._shadows, self._pending = [], []
+        self.user_calls = 0
+        try:
+            declared = {}
+            for p in (*stmt.params, stmt):
+                try:
+                    declared[p.name] = B.declared_arg(p)
+                except CalcError as exc:
+                    raise exc.with_span(p.unit_span or p.span)
+            want = declared.pop(stmt.name)
+            if all(p.unit is not None for p in stmt.params):
+                saved = self.types
+                self.types = {**saved, **{k: T.of(a) for k, a in declared.items()}}
+                try:
+                    t = self._quantity(self.infer(stmt.expr), stmt.expr)
+                finally:
+                    self.types = saved
+                if want is not None:
+                    B.rule_declared(t.arg, want, stmt, lambda: DeclaredUnitError(
+                        f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want.dim)}) "
+                        f"but its body gives {U.describe_dim(t.dim)}", stmt.unit_span or stmt.span,
+                        hint=_explain(stmt.expr, self)))
+        except Broken:
+            res.broken.add(stmt.name)
+            self.types[stmt.name] = ANY
+            return []
+        except CalcError as exc:
+            res.broken.add(stmt.name)
+            self.types[stmt.name] = ANY
+            return [self._with_shadow_note(exc).diagnostic(self.path)]
+        self.functions[stmt.name] = stmt
+        return list(self._pending)
+
+    def _infer_user_call(self, fd: N.FunctionDef, node: N.Call) -> T:
+        """A call of a sheet function: each argument against its parameter, then the body with the
+        arguments' types (an error inside the body is reported at this call)."""
+        B.check_user_call_shape(fd, node)
+        B.count_user_call(self, node)
+        local: dict[str, T] = {}
+        for p, a in zip(fd.params, node.args):
+            t = self.infer(a)
+            if p.unit is not None:
+                t = T.of(B.rule_user_param(fd, p, self._quantity(t, a).arg, a))
+            elif t.kind == "any":
+                raise Broken()
+            local[p.name] = t
+        saved = self.types
+        self.types = {**saved, **local}
+        try:
+            body = self._quantity(self.infer(fd.expr), fd.expr)
+        except CalcError as exc:
+            raise B.at_call(exc, fd, node)
+        finally:
+            self.types = saved
+        return T.of(B.rule_user_result(fd, body.arg, node))
 
     def _with_shadow_note(self, exc: CalcError) -> CalcError:
         """An error in a statement with ``2 L`` (L a variable) most likely comes from that literal."""
@@ -367,6 +434,10 @@ class Checker:
 
     def _infer_Call(self, node: N.Call) -> T:
         fn = B.FUNCTIONS.get(node.func)
+        if fn is None and node.func in self.functions:
+            return self._infer_user_call(self.functions[node.func], node)
+        if fn is None and node.func in self.types:
+            raise Broken()  # a sheet function with an error of its own, reported at its definition
         if fn is None:  # reported by the resolver; here only for expressions checked on their own
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))

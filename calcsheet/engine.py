@@ -25,6 +25,7 @@ from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet, parse_statement
 from .plugin import PluginRegistry, Record, default_registry
 from .resolver import Resolution, check_key, resolve
+from .suggest import closest
 
 MAX_SIGFIGS = 8
 
@@ -175,11 +176,9 @@ def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | No
 
 def _prepare_overrides(overrides: dict[str, Any], res: Resolution, result: Result) -> dict[str, N.Expr]:
     out = {}
-    import difflib
-
     for name, value in overrides.items():
         if name not in res.defined_at:
-            close = difflib.get_close_matches(name, list(res.defined_at), n=1)
+            close = [c for c in [closest(name, res.defined_at)] if c]
             result.diagnostics.append(OverrideError(
                 f"--set {name}: the sheet defines no '{name}'", Span(1, 1, 1, 2),
                 hint=f"did you mean '{close[0]}'?" if close else None).diagnostic(result.path))
@@ -241,14 +240,16 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         if isinstance(stmt, N.Prose):
             result.items.append(TR.Prose(stmt.text))
             continue
-        key = stmt.name if isinstance(stmt, N.Definition) else check_key(stmt)
+        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef)) else check_key(stmt)
         if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
             res.broken.add(key)
             continue
         try:
             record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=result.overrides,
                                         inputs=inputs, unit_of=unit_of)
-            if isinstance(record, TR.Step):
+            if isinstance(record, TR.FunctionStep):
+                pass  # a sheet function: shown once, not a value
+            elif isinstance(record, TR.Step):
                 result.values[stmt.name] = record.value
                 result.steps[stmt.name] = record
             else:

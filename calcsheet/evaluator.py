@@ -14,6 +14,7 @@ run (``engine``) and the incremental rebuild (``incremental``) both call it.
 """
 from __future__ import annotations
 
+import collections
 import dataclasses
 import math
 from typing import Any, Callable
@@ -25,7 +26,9 @@ from . import nodes as N
 from . import units as U
 from .display import DisplayPolicy
 from .errors import (
+    CalcError,
     DeclaredUnitError,
+    DivisionByZeroError,
     Diagnostic,
     NumericError,
     OffsetTemperatureError,
@@ -38,7 +41,17 @@ from .errors import (
 from .names import did_you_mean, dotted, strip_sign
 from .plugin import PluginRegistry, Record, default_registry
 from .plugin_host import PluginHost, kind_of, show
-from .trace import CheckResult, Step
+from .trace import CheckResult, FunctionStep, Step
+
+
+@dataclasses.dataclass(frozen=True)
+class SheetFunction:
+    """A sheet's own function as a value in the environment (the resolver keeps its name from being read)."""
+
+    fd: N.FunctionDef
+
+    def __str__(self):
+        return f"function {self.fd.name}"
 
 
 
@@ -170,6 +183,8 @@ class Evaluator:
 
     def _eval_Call(self, node: N.Call, env, used):
         fn = B.FUNCTIONS.get(node.func)
+        if fn is None and isinstance(env.get(node.func), SheetFunction):
+            return self._eval_user_call(env[node.func].fd, node, env, used)
         if fn is None:
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))
@@ -184,6 +199,71 @@ class Evaluator:
         except (OverflowError, ValueError) as exc:  # math.ceil(inf), math.sin(inf): never a traceback
             raise NumericError(f"{node.func}() cannot be computed here: {exc}", node.span) from None
         return self._finite(result, node.span)
+
+    def _eval_user_call(self, fd: N.FunctionDef, node: N.Call, env, used):
+        """A sheet function: the arguments against the declared parameters (the rule the checker applies),
+        then the body with the parameters bound, then the declared result."""
+        B.check_user_call_shape(fd, node)
+        B.count_user_call(self, node)
+        local = {}
+        for p, a in zip(fd.params, node.args):
+            v = self.eval(a, env, used)
+            if p.unit is not None:
+                try:
+                    B.declared_arg(p)
+                except CalcError as exc:
+                    raise exc.with_span(p.unit_span or p.span)
+                B.rule_user_param(fd, p, B.arg_of(self._need_quantity(v, a.span)), a)
+                if p.unit:  # the parameter takes its declared unit, as a declared definition does
+                    v = v.to(U.build_unit(p.unit))
+            local[p.name] = v
+        body_used: dict | None = {} if used is not None else None
+        try:
+            value = self._need_quantity(self.eval(fd.expr, collections.ChainMap(local, env), body_used),
+                                        fd.expr.span)
+        except CalcError as exc:
+            raise B.at_call(exc, fd, node)
+        if used is not None:  # the values the body read besides its parameters, for the substitution
+            renamed = {p.name: dotted(a) for p, a in zip(fd.params, node.args)}
+            for k, v in body_used.items():
+                head, dot, rest = k.partition(".")
+                if head not in local:
+                    used.setdefault(k, v)
+                elif dot and renamed.get(head):  # x.M of a parameter x is p.M of the argument p
+                    used.setdefault(f"{renamed[head]}.{rest}", v)
+        if fd.unit is not None:
+            try:
+                B.declared_arg(fd)
+            except CalcError as exc:
+                raise exc.with_span(fd.unit_span or fd.span)
+            B.rule_user_result(fd, B.arg_of(value), node)
+            if fd.unit:
+                value = value.to(U.build_unit(fd.unit))
+        return self._finite(value, node.span)
+
+    def try_function(self, fd: N.FunctionDef, env) -> None:
+        """A function whose parameters all have declared units is tried once where it is defined, with one
+        of each unit, so a dimension mistake in its body is found even if it is never called (as the checker
+        finds it); a numeric failure of the trial values says nothing and is let go."""
+        declared = {}
+        for p in (*fd.params, fd):
+            try:
+                declared[p.name] = B.declared_arg(p)
+            except CalcError as exc:
+                raise exc.with_span(p.unit_span or p.span)
+        if any(p.unit is None for p in fd.params):
+            return
+        local = {p.name: self.number(1.0, U.build_unit(p.unit) if p.unit else None) for p in fd.params}
+        try:
+            value = self._need_quantity(self.eval(fd.expr, collections.ChainMap(local, env), None), fd.expr.span)
+        except (NumericError, DivisionByZeroError):
+            return
+        want = declared[fd.name]
+        if want is not None:
+            got = B.arg_of(value)
+            B.rule_declared(got, want, fd, lambda: DeclaredUnitError(
+                f"{fd.name} is declared [{fd.unit_text}] ({U.describe_dim(want.dim)}) but its body gives "
+                f"{U.describe_dim(got.dim)}", fd.unit_span or fd.span))
 
     def _eval_if(self, node: N.Call, env, used):
         cond, then, otherwise = node.args
@@ -315,8 +395,19 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
     sheet's own as ``overridden`` and records (original, new) in ``applied``; its value and display unit are
     bound in ``env`` and ``display``. A check's demand is shown in ``unit_of(key, value)``.
     """
+    ev.user_calls = 0  # the budget of sheet-function calls is per statement
     if isinstance(stmt, N.Check):
-        return ev.evaluate_check(stmt, env, unit_of)
+        check = ev.evaluate_check(stmt, env, unit_of)
+        if _calls_sheet_function(stmt.left, env) or _calls_sheet_function(stmt.right, env):
+            check.shown_left, check.shown_right = inline_calls(stmt.left, env), inline_calls(stmt.right, env)
+        return check
+    if isinstance(stmt, N.FunctionDef):
+        ev.try_function(stmt, env)
+        step = FunctionStep(name=stmt.name, expr=stmt.expr, value=None, description=stmt.description,
+                            span=stmt.span, params=tuple((p.name, p.unit_text) for p in stmt.params),
+                            unit_text=stmt.unit_text, anchor="f-" + stmt.name)
+        env[stmt.name] = SheetFunction(stmt)
+        return step
     overrides = overrides or {}
     if stmt.name in overrides:
         original = ev.evaluate_definition(stmt, env, display).value
@@ -333,9 +424,42 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
         step = ev.evaluate_definition(stmt, env, display)
     step.is_input = stmt.name in inputs
     step.anchor = "v-" + stmt.name
+    if _calls_sheet_function(step.expr, env):
+        step.shown_expr = inline_calls(step.expr, env)
     env[stmt.name] = step.value
     display[stmt.name] = step.display_unit
     return step
+
+
+def _calls_sheet_function(expr, env) -> bool:
+    return expr is not None and any(isinstance(n, N.Call) and isinstance(env.get(n.func), SheetFunction)
+                                    for n in N.walk(expr))
+
+
+def inline_calls(expr: N.Expr, env) -> N.Expr:
+    """The expression with each call of a sheet function replaced by its body, the parameters by the
+    arguments (bracketed where they need it): what the substitution line of a hand calculation shows."""
+
+    def sub(node, params):
+        if isinstance(node, N.Name) and node.id in params:
+            return params[node.id]
+        if isinstance(node, N.Call) and isinstance(env.get(node.func), SheetFunction):
+            fd = env[node.func].fd
+            args = [sub(a, params) for a in node.args]
+            inner = {p: (a if isinstance(a, (N.Name, N.Number, N.Paren, N.FieldAccess)) else N.Paren(a, span=a.span))
+                     for p, a in zip(fd.param_names, args)}
+            return N.Paren(sub(fd.expr, inner), span=node.span)
+        changes = {}
+        for fname in node._children:
+            value = getattr(node, fname)
+            if isinstance(value, tuple):
+                changes[fname] = tuple(sub(v, params) if isinstance(v, N.Node) else v for v in value)
+            elif isinstance(value, N.Node):
+                changes[fname] = sub(value, params)
+        return dataclasses.replace(node, **changes) if changes else node
+
+    out = sub(expr, {})
+    return out.inner if isinstance(out, N.Paren) and isinstance(expr, N.Call) else out
 
 
 def literal_unit(expr: N.Expr):

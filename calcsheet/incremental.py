@@ -23,10 +23,10 @@ from .checker import Checker
 from .engine import Result, _check_text, parse_override, run
 from .errors import CalcError, Diagnostic
 from .builtins import CONSTANTS
-from .evaluator import Evaluator, evaluate_statement
+from .evaluator import Evaluator, SheetFunction, evaluate_statement
 from .parser import parse_sheet
 from .plugin import Record
-from .trace import CheckResult, Step
+from .trace import CheckResult, FunctionStep, Step
 
 
 @dataclass
@@ -182,6 +182,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
 
     ev = Evaluator(prev.policy, plugins or _registry())
     env: dict[str, Any] = dict(prev.values)
+    env.update({name: SheetFunction(fd) for name, fd in res.functions.items()})  # the sheet's own functions
     display: dict[str, Any] = {n: s.display_unit for n, s in prev.steps.items()}
     new_steps: dict[str, Step] = {}
     new_checks: dict[str, CheckResult] = {}
@@ -229,7 +230,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
                 item = dataclasses.replace(item)
             result.checks.append(item)
         result.items.append(item)
-        if isinstance(item, Step):
+        if isinstance(item, Step) and not isinstance(item, FunctionStep):  # a function is not a value
             result.steps[item.name] = item
             result.values[item.name] = item.value
     dirty_lines = [(res.statements[k].span.line, res.statements[k].span.end_line) for k in dirty_order]

@@ -194,6 +194,41 @@ class Definition(Statement):
 
 
 @dataclass(frozen=True)
+class Param(Node):
+    """A parameter of a sheet function: ``w`` or ``w [kN/m]``."""
+
+    name: str
+    unit: tuple[tuple[str, float], ...] | None = None
+    unit_text: str | None = None
+    span: Span | None = field(default=None, compare=False)
+    unit_span: Span | None = field(default=None, compare=False)
+
+
+@dataclass(frozen=True)
+class FunctionDef(Statement):
+    """``M_ss(w [kN/m], L [m]) [kN*m] = w*L^2/8  -- description``: a sheet's own function.
+
+    Its body reads only its parameters and values defined above it; it is called like a built-in.
+    """
+
+    name: str
+    params: tuple[Param, ...]
+    expr: Expr
+    unit: tuple[tuple[str, float], ...] | None = None
+    unit_text: str | None = None
+    description: str | None = None
+    span: Span | None = field(default=None, compare=False)
+    name_span: Span | None = field(default=None, compare=False)
+    unit_span: Span | None = field(default=None, compare=False)
+    comment: str | None = None
+    _children: tuple[str, ...] = field(default=("expr",), init=False, repr=False, compare=False)
+
+    @property
+    def param_names(self) -> tuple[str, ...]:
+        return tuple(p.name for p in self.params)
+
+
+@dataclass(frozen=True)
 class Check(Statement):
     """``check a <= b  -- description``."""
 

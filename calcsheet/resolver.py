@@ -41,6 +41,7 @@ class Resolution:
     dependents: dict[str, list[str]] = field(default_factory=dict)  # name -> keys reading it
     inputs: list[str] = field(default_factory=list)  # definitions reading no other value
     broken: set[str] = field(default_factory=set)  # keys with an error (themselves or upstream)
+    functions: dict[str, N.FunctionDef] = field(default_factory=dict)  # the sheet's own functions, by name
     diagnostics: list[Diagnostic] = field(default_factory=list)
 
     def downstream(self, name: str) -> list[str]:
@@ -64,21 +65,35 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     res = Resolution()
     path = sheet.path
     all_defs: dict[str, int] = {}
+    all_functions: set[str] = set()
     for stmt in sheet.body:
-        if isinstance(stmt, N.Definition) and stmt.name not in all_defs:
+        if isinstance(stmt, (N.Definition, N.FunctionDef)) and stmt.name not in all_defs:
             all_defs[stmt.name] = stmt.span
+            if isinstance(stmt, N.FunctionDef):
+                all_functions.add(stmt.name)
     for stmt in sheet.body:
-        if isinstance(stmt, N.Definition):
+        params: tuple[str, ...] = ()
+        if isinstance(stmt, (N.Definition, N.FunctionDef)):
             key = stmt.name
             exprs = [stmt.expr]
+            if isinstance(stmt, N.FunctionDef):
+                params = stmt.param_names
         elif isinstance(stmt, N.Check):
             key = check_key(stmt)
             exprs = [stmt.left, stmt.right]
         else:
             continue
         errors: list[CalcError] = []
-        if isinstance(stmt, N.Definition):
-            if stmt.name in res.defined_at:
+        if isinstance(stmt, N.FunctionDef):
+            errors.extend(_param_errors(stmt, plugins))
+        if isinstance(stmt, (N.Definition, N.FunctionDef)):
+            if stmt.name in res.defined_at and (stmt.name in res.functions) != isinstance(stmt, N.FunctionDef):
+                was = "a function" if stmt.name in res.functions else "a value"
+                errors.append(RedefinitionError(
+                    f"'{stmt.name}' is already {was} (defined on {res.def_spans[stmt.name].where()}); "
+                    f"a name is either a function or a value", stmt.name_span,
+                    hint="give one of them another name"))
+            elif stmt.name in res.defined_at:
                 errors.append(RedefinitionError(
                     f"'{stmt.name}' is already defined on {res.def_spans[stmt.name].where()}", stmt.name_span,
                     hint="give the new value its own name (e.g. a subscript: M_2)"))
@@ -91,16 +106,25 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         reads: list[str] = []
         for expr in exprs:
             for node in N.walk(expr):
-                err = _check_node(node, res, all_defs, plugins, key)
+                if isinstance(node, N.Name) and node.id in params:
+                    continue  # a parameter of the function being defined
+                err = _check_node(node, res, all_defs, plugins, key, all_functions)
                 if err is not None:
                     errors.append(err)
                 if isinstance(node, N.Name) and node.id not in CONSTANTS and node.id in res.defined_at:
                     if node.id not in reads:
                         reads.append(node.id)
+                if isinstance(node, N.Call) and node.func in res.functions and node.func not in reads:
+                    reads.append(node.func)  # a call depends on the function (and what its body reads)
         res.statements[key] = stmt
         res.precedents[key] = reads
         for name in reads:
             res.dependents.setdefault(name, []).append(key)
+        if isinstance(stmt, N.FunctionDef):
+            if stmt.name not in res.defined_at:
+                res.functions[stmt.name] = stmt
+            res.defined_at.setdefault(stmt.name, stmt.span.line)
+            res.def_spans.setdefault(stmt.name, stmt.span)
         if isinstance(stmt, N.Definition):
             res.defined_at.setdefault(stmt.name, stmt.span.line)
             res.def_spans.setdefault(stmt.name, stmt.span)
@@ -114,8 +138,28 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     return res
 
 
-def _check_node(node, res: Resolution, all_defs, plugins: PluginRegistry, key) -> CalcError | None:
+def _param_errors(stmt: N.FunctionDef, plugins: PluginRegistry) -> list[CalcError]:
+    """Parameters: distinct names, none of them built in or a plugin."""
+    out: list[CalcError] = []
+    seen: set[str] = set()
+    for p in stmt.params:
+        if p.name in seen:
+            out.append(RedefinitionError(f"parameter '{p.name}' is listed twice", p.span))
+        elif p.name == stmt.name:
+            out.append(RedefinitionError(f"parameter '{p.name}' has the function's own name", p.span,
+                                         hint="choose another name"))
+        elif is_builtin(p.name) or plugins.is_namespace(p.name):
+            out.append(RedefinitionError(f"parameter '{p.name}' is a built-in or plugin name", p.span,
+                                         hint="choose another name"))
+        seen.add(p.name)
+    return out
+
+
+def _check_node(node, res: Resolution, all_defs, plugins: PluginRegistry, key,
+                all_functions: set[str] = frozenset()) -> CalcError | None:
     if isinstance(node, N.Name):
+        if node.id in res.functions:
+            return UndefinedNameError(f"'{node.id}' is a function of this sheet; call it: {node.id}(…)", node.span)
         if node.id in res.defined_at or node.id in CONSTANTS:
             if node.id == key:
                 return UndefinedNameError(f"'{node.id}' is used in its own definition", node.span)
@@ -131,11 +175,28 @@ def _check_node(node, res: Resolution, all_defs, plugins: PluginRegistry, key) -
                                       node.span)
         return UndefinedNameError(f"'{node.id}' is not defined", node.span,
                                   hint=did_you_mean(node.id, [*res.defined_at, *CONSTANTS]))
+    if isinstance(node, N.Call) and node.func not in FUNCTIONS:
+        where = node.func_span or node.span
+        if node.func in res.functions:
+            if node.kwargs:
+                return UnknownFunctionError(f"{node.func} takes its arguments in order, without names",
+                                            node.kwargs[0].span)
+            return None
+        if node.func == key and node.func in all_functions:
+            return UseBeforeDefinitionError(f"'{node.func}' calls itself; a sheet function cannot be recursive",
+                                            where, hint="write the steps out as values")
+        if node.func in all_functions:
+            return UseBeforeDefinitionError(
+                f"function '{node.func}' is used before its definition on {all_defs[node.func].where()}", where,
+                hint="a sheet reads top to bottom: move the definition above this line")
+        if node.func in res.defined_at or node.func in all_defs:
+            return UnknownFunctionError(f"'{node.func}' is a value, not a function", where,
+                                        hint="multiply with '*': 2*(a + b)")
     if isinstance(node, N.Call):
         if node.func not in FUNCTIONS:
             return UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
-                                        hint=did_you_mean(node.func, FUNCTIONS) or
-                                        "functions: " + ", ".join(sorted(FUNCTIONS)))
+                                        hint=did_you_mean(node.func, [*FUNCTIONS, *res.functions]) or
+                                        "functions: " + ", ".join(sorted([*FUNCTIONS, *res.functions])))
     if isinstance(node, N.PluginCall):
         try:
             plugins.function(node.namespace, node.func)

@@ -30,6 +30,18 @@ class Step:
     note: str | None = None  # e.g. the method a plugin used for a result
     anchor: str = ""  # html id of the definition
     namespace: str = ""  # "" for the sheet, or the plugin call's anchor prefix
+    shown_expr: Any = None  # the formula with the sheet's own functions written out (for the substitution)
+
+
+@dataclass
+class FunctionStep(Step):
+    """A sheet function's definition, shown once: ``M_ss(w [kN/m], L [m]) [kN*m] = w*L^2/8``.
+
+    ``expr`` is the body; ``params`` the (name, declared unit text or None) pairs; ``value`` is None.
+    """
+
+    params: tuple = ()
+    unit_text: str | None = None
 
 
 @dataclass
@@ -49,6 +61,8 @@ class CheckResult:
     span: Span | None = None
     number: str = ""
     anchor: str = ""
+    shown_left: Any = None  # each side with the sheet's own functions written out (for the substitution)
+    shown_right: Any = None
 
 
 @dataclass

@@ -32,7 +32,7 @@ from calcsheet.errors import (
     PluginArgumentError,
     TypeMismatchError,
 )
-from calcsheet.evaluator import Evaluator, evaluate_statement
+from calcsheet.evaluator import Evaluator, SheetFunction, evaluate_statement
 from calcsheet.parser import parse_sheet
 from calcsheet.plugin import Field, Namespace, Param, PluginRegistry, Record
 from calcsheet.resolver import resolve
@@ -180,9 +180,28 @@ def statements():
     return st.one_of(
         definition,
         check,
+        sheet_function_calls(),
         st.tuples(plugin, field).map("\n".join),
         st.tuples(definition, st.one_of(expr, typed("N")).map(lambda e: f"z = x * {e}")).map("\n".join),
     )
+
+
+# a sheet function of two parameters (each declared or not, the result declared or not) and calls of it
+FUNCTION_BODIES = ["u*v^2/8", "u + v", "u*v", "sqrt(u*v)", "u/v", "max(u, v)", "u + a", "u*v/b", "(u - v)*r",
+                   "sin(u)", "u^2", "if(u <= v, u, v)", "u - t_1"]
+PARAM_UNITS = [None, None, "m", "kN", "kN/m", "1", "deg", "degC"]
+
+
+def sheet_function_calls():
+    decl = st.sampled_from(PARAM_UNITS).map(lambda u: "" if u is None else f" [{u}]")
+    definition = st.tuples(decl, decl, st.sampled_from(PARAM_UNITS + DECLARED), st.sampled_from(FUNCTION_BODIES)).map(
+        lambda t: f"F(u{t[0]}, v{t[1]}){'' if t[2] is None else f' [{t[2]}]'} = {t[3]}")
+    arg = st.one_of(*(maybe_typed(k) for k in ("L", "F", "W", "N", "A")), st.sampled_from(["t_1", "t_2"]))
+    call = st.tuples(arg, arg).map(lambda t: f"F({t[0]}, {t[1]})")
+    use = st.one_of(call.map(lambda c: f"x = {c}"), call.map(lambda c: f"x = 2*{c}"),
+                    st.tuples(call, call).map(lambda t: f"check {t[0]} <= {t[1]}"),
+                    st.tuples(call, call).map(lambda t: f"x = {t[0]}\nz = x * {t[1]}"))
+    return st.tuples(definition, st.one_of(st.just(""), use)).map(lambda t: "\n".join(x for x in t if x))
 
 
 # ---------------------------------------------------------------- both sides, independently
@@ -200,7 +219,7 @@ def evaluate_alone(sheet: N.Sheet):
     ev = Evaluator(plugins=REGISTRY)
     env, display = {}, {}
     for stmt in sheet.body:
-        if isinstance(stmt, (N.Definition, N.Check)):
+        if isinstance(stmt, (N.Definition, N.Check, N.FunctionDef)):
             evaluate_statement(ev, stmt, env, display)
     return env
 
@@ -227,6 +246,9 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
         f"\n{body}\ncheck: {[d.one_line() for d in found]}\nevaluation: {raised!r}")
     if raised is None:
         for name, value in env.items():
+            if isinstance(value, SheetFunction):
+                assert name in checker.functions, (body, name)
+                continue
             t = checker.types[name]
             if isinstance(value, pint.Quantity):
                 assert t.kind == "q" and t.dim == U.dim_of(value), (body, name, t, value)
@@ -250,6 +272,9 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
     "x = a^r",                              # a power read from a name
     "x = max(t_1, 300 K)\nz = x * 2",        # °C and K mixed: the result's scale would depend on the values
     "x = if(a < b, t_1, t_2 - t_1)\nz = x * 2",  # one outcome on the °C scale, the other a difference
+    "F(u [m], v) = u + v\nx = F(a, c)",     # an untyped parameter: the body is checked at each call
+    "F(u [m], v [m]) [kN] = u + v",         # never called: a typed body is still checked
+    "F(u [deg], v) = u*2 + 1\nx = F(r, a)",  # a plain number for an angle parameter takes the angle
 ])
 def test_known_disagreements_stay_agreed(body):
     text = PREAMBLE + body + "\n"

@@ -166,3 +166,24 @@ def test_a_new_input_value_gets_the_same_findings_as_a_full_check():
     full = calcsheet.run(edited)
     assert [d.one_line() for d in out.result.diagnostics] == [d.one_line() for d in full.diagnostics]
     assert out.result.values["k"].m_as("kN") == pytest.approx(200 * 100 / 1000)
+
+
+FUNCTION_SHEET = """\
+gamma = 1.35
+M_ss(w [kN/m], L [m]) [kN*m] = gamma*w*L^2/8   -- factored midspan moment
+w = 5 kN/m
+L = 4 m
+M = M_ss(w, L)
+check M_ss(w, L) <= 40 kN*m
+"""
+
+
+@pytest.mark.parametrize("edit", [("w = 5 kN/m", "w = 6 kN/m"), ("gamma = 1.35", "gamma = 1.5")])
+def test_a_sheet_with_functions_rebuilds_fast_and_like_a_full_run(edit):
+    edited = FUNCTION_SHEET.replace(*edit)
+    fast = rebuild(calcsheet.run(FUNCTION_SHEET, path="f.calc"), edited)
+    full = calcsheet.run(edited, path="f.calc")
+    assert not fast.full, fast.reason
+    assert "M_ss" not in fast.result.values
+    assert PackageDocument(fast.result).html() == PackageDocument(full).html()
+    assert fast.result.to_json() == full.to_json()

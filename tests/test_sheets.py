@@ -88,3 +88,23 @@ def test_a_missing_golden_file_fails_and_is_not_written(tmp_path, monkeypatch):
     with pytest.raises(AssertionError, match="no golden rendering"):
         test_sheet_builds_without_errors_and_matches_its_golden_rendering(SHEETS[0])
     assert list(tmp_path.iterdir()) == []
+
+
+def test_lintel_demo_numbers_against_a_hand_calculation():
+    """The sheet-function demo: each lintel by hand, without the sheet's functions."""
+    r = calcsheet.run(ROOT / "sheets" / "workshop_lintels.calc")
+    assert r.ok, r.format_diagnostics()
+    v = r.values
+    f_md = 0.8 * 16 / 1.3                                              # MPa
+    lintels = [(1, 4.2, 3.0, 1.2, 75, 200), (2, 6.5, 4.6, 2.4, 100, 250), (3, 9.5, 5.7, 3.0, 100, 250)]
+    ok = []
+    for i, w, ws, L, b, h in lintels:
+        M = w * L**2 / 8                                               # kN·m, wL²/8 (common practice)
+        sigma = M * 1e6 / (b * h**2 / 6)                               # MPa, M/(bh²/6) (common practice)
+        delta = 5 * ws * (L * 1e3) ** 4 / (384 * 8800 * b * h**3 / 12)  # mm, 5wL⁴/384EI (common practice)
+        assert v[f"M_{i}"].m_as("kN*m") == pytest.approx(M)
+        assert v[f"V_{i}"].m_as("kN") == pytest.approx(w * L / 2)       # wL/2
+        assert v[f"sigma_{i}"].m_as("MPa") == pytest.approx(sigma)
+        ok += [sigma <= f_md, delta <= L * 1e3 / 300]
+    assert [c.ok for c in r.checks] == ok
+    assert ok[4] is False  # L-3 is overstressed, as its description says

@@ -44,6 +44,10 @@ def _part_span(part) -> Span | None:
     return getattr(part, "span", None)
 
 
+def _join(a: Span, b: Span | None) -> Span:
+    return Span(a.line, a.col, b.end_line, b.end_col) if b is not None else a
+
+
 def _is_bracket(part) -> bool:
     return isinstance(part, Token) and part.type in ("LPAR", "RPAR", "LSQB", "RSQB")
 
@@ -71,6 +75,30 @@ class ToNodes(Transformer):
             name=str(name_tok), expr=expr, unit=unit, unit_text=unit_text.strip() if unit_text else None,
             span=_span_of(name_tok, expr), name_span=tok_span(name_tok), unit_span=unit_span,
         )
+
+    def function_def(self, children):
+        name_tok, _lpar, *rest = children
+        expr = rest[-1]
+        decl = rest[-2]
+        params = tuple(c for c in rest[:-3] if isinstance(c, N.Param))
+        unit = unit_text = unit_span = None
+        if decl is not None:
+            unit_text, unit_span = decl
+            unit = parse_unit_text(unit_text, unit_span)
+        return N.FunctionDef(
+            name=str(name_tok), params=params, expr=expr, unit=unit,
+            unit_text=unit_text.strip() if unit_text else None,
+            span=_span_of(name_tok, expr), name_span=tok_span(name_tok), unit_span=unit_span,
+        )
+
+    def param(self, children):
+        name_tok, decl = children
+        unit = unit_text = unit_span = None
+        if decl is not None:
+            unit_text, unit_span = decl
+            unit = parse_unit_text(unit_text, unit_span)
+        return N.Param(name=str(name_tok), unit=unit, unit_text=unit_text.strip() if unit_text else None,
+                       span=_join(tok_span(name_tok), unit_span), unit_span=unit_span)
 
     def unit_decl(self, children):
         tok = children[1]

@@ -10,7 +10,7 @@ from __future__ import annotations
 import re
 
 from ..display import unit_factors
-from ..trace import CheckResult, Step
+from ..trace import CheckResult, FunctionStep, Step
 from .base import split_name
 from .markup import Html, anchor_id, esc
 from .math import MathPrinter, is_literal
@@ -123,6 +123,13 @@ class HtmlMathPrinter(MathPrinter):
     # ------------------------------------------------------------ trace records
     def step_parts(self, step: Step, link=None) -> list[Html]:
         """The chain symbol = formula = substitution = result, each already HTML."""
+        if isinstance(step, FunctionStep):  # a sheet function: its definition, once
+            params = [self.m_name(p) + (Html('&#8201;<span class="unit">[{}]</span>').format(u) if u is not None
+                                        else Html()) for p, u in step.params]
+            head = self.m_call(self.m_name(step.name), params)
+            if step.unit_text:
+                head += Html('&#8201;<span class="unit">[{}]</span>').format(step.unit_text)
+            return [head, self.expr(step.expr, link=link)]
         lhs = self.m_name(step.name)
         result = self.value(step.value, step.display_unit)
         if step.expr is None:
@@ -133,8 +140,8 @@ class HtmlMathPrinter(MathPrinter):
         if is_literal(step.expr) and step.overridden is None:
             return [lhs, sym]
         parts = [lhs, sym]
-        if step.used:
-            sub = self.expr(step.expr, values=step.used)
+        if step.used or step.shown_expr is not None:
+            sub = self.expr(step.shown_expr or step.expr, values=step.used)
             if _plain(sub) != _plain(sym):
                 parts.append(sub)
         if _plain(result) != _plain(parts[-1]):
@@ -144,7 +151,8 @@ class HtmlMathPrinter(MathPrinter):
     def check_parts(self, check: CheckResult, link=None) -> tuple[Html, Html]:
         cmp = Html('<span class="op">{}</span>').format(_CMP[check.op])
         sym = self.expr(check.left, link=link) + cmp + self.expr(check.right, link=link)
-        sub = self.expr(check.left, values=check.used) + cmp + self.expr(check.right, values=check.used)
+        sub = (self.expr(check.shown_left or check.left, values=check.used) + cmp
+               + self.expr(check.shown_right or check.right, values=check.used))
         return sym, sub
 
 

@@ -8,7 +8,7 @@ from __future__ import annotations
 import pint
 
 from .. import nodes as N
-from ..builtins import OPERATORS, print_form
+from ..builtins import FUNCTIONS, OPERATORS, print_form
 from ..names import dotted, strip_sign, unparen
 from ..display import shown, split_number
 from ..plugin import Record
@@ -134,8 +134,8 @@ class MathPrinter(Printer):
         if form == "cases":
             cond, then, otherwise = args
             return self.m_cases(then, cond, otherwise)
-        if form == "call":
-            return self.m_call(node.func, args)
+        if form == "call":  # a sheet's own function is named like a symbol (M_ss: M with subscript ss)
+            return self.m_call(node.func if node.func in FUNCTIONS else self.m_name(node.func), args)
         return getattr(self, "m_" + form)(*args)
 
     def _print_PluginCall(self, node: N.PluginCall, ctx):

@@ -15,6 +15,24 @@ class SheetPrinter(Printer):
     def expr(self, node: N.Expr) -> str:
         return self._print(node)
 
+    def statement(self, stmt: N.Statement) -> str:
+        """A definition, check or function definition as the sheet writes it (its description after ``--``)."""
+        return self._print(stmt) + (f"  -- {stmt.description}" if getattr(stmt, "description", None) else "")
+
+    @staticmethod
+    def _decl(unit_text):
+        return f" [{unit_text}]" if unit_text is not None else ""
+
+    def _print_Definition(self, node: N.Definition):
+        return f"{node.name}{self._decl(node.unit_text)} = {self._print(node.expr)}"
+
+    def _print_Check(self, node: N.Check):
+        return f"check {self._print(node.left)} {node.op} {self._print(node.right)}"
+
+    def _print_FunctionDef(self, node: N.FunctionDef):
+        params = ", ".join(p.name + self._decl(p.unit_text) for p in node.params)
+        return f"{node.name}({params}){self._decl(node.unit_text)} = {self._print(node.expr)}"
+
     def _wrap(self, child, ctx: int, strict: bool = False) -> str:
         text = self._print(child)
         p = precedence(child)

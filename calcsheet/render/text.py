@@ -3,7 +3,7 @@ from __future__ import annotations
 
 
 from ..display import superscript, unit_text
-from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
+from ..trace import CheckResult, Figure, FunctionStep, Heading, Note, Prose, Step, Table, Working
 from .base import split_name
 from .document import DocumentPrinter
 from .math import MathPrinter, is_literal
@@ -102,6 +102,10 @@ class TextDocument(DocumentPrinter):
     def step(self, step: Step) -> str:
         """symbol = formula = substitution = result."""
         m = self.math
+        if isinstance(step, FunctionStep):  # a sheet function: its definition, once
+            params = [m.m_name(p) + (f" [{u}]" if u is not None else "") for p, u in step.params]
+            head = m.m_call(m.m_name(step.name), params) + (f" [{step.unit_text}]" if step.unit_text else "")
+            return f"{head} = {m.expr(step.expr)}"
         lhs = m.m_name(step.name)
         result = m.value(step.value, step.display_unit)
         if step.expr is None:
@@ -113,8 +117,8 @@ class TextDocument(DocumentPrinter):
         parts = [lhs, sym]
         if is_literal(step.expr) and step.overridden is None:
             return f"{lhs} = {sym}"
-        if step.used:
-            sub = m.expr(step.expr, values=step.used)
+        if step.used or step.shown_expr is not None:
+            sub = m.expr(step.shown_expr or step.expr, values=step.used)
             if sub != sym:
                 parts.append(sub)
         if result != parts[-1]:
@@ -130,7 +134,7 @@ class TextDocument(DocumentPrinter):
         right = m.expr(check.right)
         status = "OK" if check.ok else "NG"
         ratio = f"  ratio {check.ratio:.2f}" if check.ratio is not None else ""
-        lv = m.expr(check.left, values=check.used)
-        rv = m.expr(check.right, values=check.used)
+        lv = m.expr(check.shown_left or check.left, values=check.used)
+        rv = m.expr(check.shown_right or check.right, values=check.used)
         cmp = {"<=": "≤", ">=": "≥"}.get(check.op, check.op)
         return f"check {left} {cmp} {right}:  {lv} {cmp} {rv}  →  {status}{ratio}"
