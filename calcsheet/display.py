@@ -215,3 +215,32 @@ def pint_unit_string(unit: pint.Unit | None) -> str:
     if unit is None:
         return ""
     return format(unit, "~")
+
+
+# Our trade units a stock pint registry lacks, as the stock units they are defined from (units.py).
+_STOCK_FACTORS = {
+    "psf": {"force_pound": 1, "foot": -2}, "ksf": {"kip": 1, "foot": -2}, "pcf": {"force_pound": 1, "foot": -3},
+    "plf": {"force_pound": 1, "foot": -1}, "klf": {"kip": 1, "foot": -1},
+}
+
+
+def portable_unit_string(unit: pint.Unit | None) -> str:
+    """The unit as a stock ``pint.UnitRegistry()`` parses it, meaning the same quantity: 'kN * m', and
+    'lbf / ft ** 2' for psf (our registry's psf, klf ... are unknown to a stock one)."""
+    if unit is None:
+        return ""
+    if not any(n in _STOCK_FACTORS for n in unit._units):
+        return pint_unit_string(unit)
+    factors: dict[str, float] = {}
+    for name, exp in unit._units.items():
+        for part, e in _STOCK_FACTORS.get(name, {name: 1}).items():
+            factors[part] = factors.get(part, 0) + e * exp
+    reg = U.registry()
+
+    def term(name, e):
+        e = abs(e)
+        return reg.get_symbol(name) + ("" if e == 1 else f" ** {int(e) if float(e).is_integer() else e}")
+
+    num = [term(n, e) for n, e in factors.items() if e > 0]
+    den = [term(n, e) for n, e in factors.items() if e < 0]
+    return " / ".join([" * ".join(num) or "1", *den])
