@@ -104,6 +104,7 @@ class PackageDocument(DocumentPrinter):
         self.watch_script = Html() if watch_script is None else watch_script
         self.numbered = number_items(result.items)
         self.exact = exact_inputs(result.items)
+        self.appendix: list = []  # (owner, working title, records) of cross-checks, filled by body()
         # a plugin warning allowed with a reason is listed once, with the suppressed findings, not inline
         self.allowed = ({d.message for d in result.diagnostics if d.suppressed and d.code == "plugin-warning"}
                         - {d.message for d in result.diagnostics if not d.suppressed})
@@ -140,7 +141,24 @@ class PackageDocument(DocumentPrinter):
     def _main(self) -> list[Html]:
         inputs, diags = self.inputs_list(), self.diagnostics()
         self._sections = {name for name, part in (("inputs", inputs), ("diagnostics", diags)) if part}
-        return [self.front(), self.contents(), self.extra_front, inputs, self.body(), diags]
+        self.appendix = []
+        body = self.body()  # fills self.appendix
+        appendix = self.appendix_section()
+        if appendix:
+            self._sections.add("appendix")
+        return [self.front(), self.contents(), self.extra_front, inputs, body, diags, appendix]
+
+    def appendix_section(self) -> Html:
+        """Appendix A: each working's check by a second method, referenced from its step."""
+        if not self.appendix:
+            return Html()
+        parts = []
+        for n, (owner, title, cross) in enumerate(self.appendix, 1):
+            parts.append(Html('<h3 class="sec" id="cross-{}"><span class="secno">A.{}</span> {}{}</h3>{}').format(
+                n, n, title, " for " + owner if owner else "",
+                Html("\n").join(self.record(i, inner=True) for i in cross if not isinstance(i, Note))))
+        return Html("<section class='appendix' id='appendix'><h2 class='sec'>Appendix A — checks by a second "
+                    "method</h2>{}</section>").format(Html("").join(parts))
 
     def title_block(self) -> Html:
         m = self.meta
@@ -220,7 +238,7 @@ class PackageDocument(DocumentPrinter):
         entries = extra("inputs", "Inputs") + [
             Html("<li class='toc-{}'><a href='#{}'><span class='toc-no'>{}</span> {}</a></li>").format(
                 i.level, i.anchor, i.number, i.text) for i in self.numbered if isinstance(i, Heading) and i.anchor
-        ] + extra("diagnostics", "Diagnostics")
+        ] + extra("diagnostics", "Diagnostics") + extra("appendix", "Appendix A — checks by a second method")
         if not entries:
             return Html()
         return Html("<nav class='contents'><h2 class='front-h'>Contents</h2><ol>{}</ol></nav>").format(
@@ -262,7 +280,14 @@ class PackageDocument(DocumentPrinter):
         return Html('<p class="note {}">{}</p>').format(item.kind, item.text)
 
     def _print_Working(self, w: Working, inner: bool = False, owner: str = "") -> Html:
-        items = Html("\n").join(self.record(i, inner=True) for i in w.items)
+        main, cross = _split_cross_checks(w.items)
+        items = Html("\n").join(self.record(i, inner=True) for i in main)
+        if cross:  # an independent cross-check is kept, in the appendix the reader may skip
+            self.appendix.append((owner, w.title, cross))
+            ref = "cross-" + str(len(self.appendix))
+            note = Html("").join(i.text for i in cross if isinstance(i, Note))
+            items += Html('<p class="note agreement">{} <a href="#{}">Appendix A.{}</a>.</p>').format(
+                note or "Checked by a second method:", ref, len(self.appendix))
         return Html('<div class="working"><div class="working-title">Working of {}{}</div>{}</div>').format(
             w.title, " for " + owner if owner else "", items)
 
@@ -372,6 +397,20 @@ class PackageDocument(DocumentPrinter):
                 Html(" — {}").format(d.hint) if d.hint else "")
             for d in diags)
         return Html("<section class='diagnostics' id='diagnostics'><h2 class='sec'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+
+
+def _split_cross_checks(items: list) -> tuple[list, list]:
+    """A working's records, and its check by a second method: a note of kind "agreement" with the
+    table just before it."""
+    main, cross = [], []
+    for item in items:
+        if isinstance(item, Note) and item.kind == "agreement":
+            if main and isinstance(main[-1], Table):
+                cross.append(main.pop())
+            cross.append(item)
+        else:
+            main.append(item)
+    return main, cross
 
 
 def _unit(q):

@@ -105,3 +105,11 @@ def test_readme_example_builds_without_warnings():
     example = re.search(r"## Writing a sheet.*?```text\n(.*?)```", readme, re.S).group(1)
     r = calcsheet.run(example)
     assert [d for d in r.diagnostics if not d.suppressed] == [], r.format_diagnostics()
+
+
+def test_a_sections_second_method_check_moves_to_the_appendix_referenced_from_its_working():
+    _, h = page("---\nsubject: plate\n---\np = section.rectangle(b=100 mm, h=200 mm)\n")
+    body = h.split('<section class="calc">')[1].split("</section>")[0]
+    appendix = h.split("<section class='appendix' id='appendix'>")[1]
+    assert "Green" in appendix and "<table" in appendix  # the second method's table is kept
+    assert "Outline integral" not in body and "href=\"#cross-1\"" in body  # referenced, not inline
