@@ -6,7 +6,7 @@ VENV    := .venv
 BIN     := $(VENV)/bin
 STAMP   := $(VENV)/.installed
 
-.PHONY: demo test setup bench clean
+.PHONY: demo test setup bench clean mutation
 
 $(STAMP): pyproject.toml
 	bash .ci/system-deps
@@ -26,6 +26,11 @@ test: $(STAMP)
 
 bench: $(STAMP)
 	for b in benchmarks/bench_*.py; do $(BIN)/python $$b || exit 1; done
+
+# Mutation testing of the engineering modules (slow; not part of CI). Narrow it with
+#   make mutation MUTATION_ARGS="column material --limit 40"
+mutation: $(STAMP)
+	$(BIN)/python tools/mutation.py $(MUTATION_ARGS)
 
 clean:
 	rm -rf out build *.egg-info

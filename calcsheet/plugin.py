@@ -153,13 +153,17 @@ class Namespace:
 
     ``shared`` parameters are declared once for the namespace (or later with ``share``) and validated
     once; a function registered with ``shared=True`` takes them after its own, and its Python function
-    may receive them by name or all together through ``**kwargs``.
+    may receive them by name or all together through ``**kwargs``. ``standards`` names the published
+    standards (with edition) a design plugin implements, e.g. ("AISC 360-16",).
     """
 
-    def __init__(self, name: str, version: str = "0", doc: str = "", shared: list[Param] | tuple[Param, ...] = ()):
+    def __init__(self, name: str, version: str = "0", doc: str = "", shared: list[Param] | tuple[Param, ...] = (),
+                 standards: tuple[str, ...] = ()):
         self.name = name
         self.version = version
         self.doc = doc
+        # the published standards (with edition) a design plugin implements, e.g. ("AISC 360-16",)
+        self.standards = tuple(standards)
         self.functions: dict[str, PluginFunction] = {}
         self.shared: tuple[Param, ...] = ()
         self._record_fields: dict[str, dict[str, tuple]] = {}  # record type -> its fields as declared so far

@@ -38,16 +38,29 @@ def test_demo_numbers_against_a_hand_calculation():
     s, L, g_k, q_k = 0.45, 3.6, 0.55, 4.0               # m, m, kPa, kPa
     w = 1.35 * g_k * s + 1.5 * q_k * s                 # kN/m
     M = w * L**2 / 8                                   # kN·m
+    V = w * L / 2                                      # kN
     S = 75 * 250**2 / 6                                # mm³, rectangle bh²/6 (Roark, Table A.1)
     sigma = M * 1e6 / S                                # MPa
     I = 75 * 250**3 / 12                               # mm⁴, bh³/12 (Roark, Table A.1)
-    delta = 5 * (g_k + q_k) * s * (L * 1e3) ** 4 / (384 * 7400 * I)   # mm, 5wL⁴/384EI
+    E_mean, E_05 = 8000, 5400                          # MPa, C16 (EN 338:2009 Table 1, from memory)
+    delta = 5 * (g_k + q_k) * s * (L * 1e3) ** 4 / (384 * E_mean * I)   # mm, 5wL⁴/384EI
+    k_mod, gamma_M = 0.65, 1.3                         # EN 1995-1-1 Table 3.1 (SC3, medium-term), Table 2.3
+    l_ef = 0.9 * L * 1e3 + 2 * 250                     # mm, EN 1995-1-1 Table 6.1, load on the compression edge
+    lam = (16 / (0.78 * 75**2 * E_05 / (250 * l_ef))) ** 0.5   # (6.30) with (6.32)
+    k_crit = 1.56 - 0.75 * lam                         # (6.34), 0.75 < λ ≤ 1.4
+    U_m = sigma / (k_crit * k_mod * 16 / gamma_M)
+    U_v = 1.5 * V * 1e3 / (0.67 * 75 * 250) / (k_mod * 3.2 / gamma_M)   # (6.13), k_cr = 0.67
+    U_c90 = V * 1e3 / (75 * (50 + 30)) / (1.5 * k_mod * 2.2 / gamma_M)  # (6.3)/(6.4), k_c,90 = 1.5
     assert v["w"].m_as("kN/m") == pytest.approx(w)
     assert v["M_max"].m_as("kN*m") == pytest.approx(M)
     assert v["sigma_m"].m_as("MPa") == pytest.approx(sigma, rel=1e-9)
     assert v["delta"].m_as("mm") == pytest.approx(delta, rel=1e-9)
+    jb = v["jb"].fields
+    assert jb["U_bending"].m_as("") == pytest.approx(U_m, rel=1e-9)
+    assert jb["U_shear"].m_as("") == pytest.approx(U_v, rel=1e-9)
+    assert jb["U_bearing"].m_as("") == pytest.approx(U_c90, rel=1e-9)
     statuses = [c.ok for c in r.checks]
-    assert statuses == [sigma <= 0.8 * 16 / 1.3, True, delta <= L * 1e3 / 300, False]
+    assert statuses == [U_m <= 1, U_v <= 1, delta <= L * 1e3 / 300, True, U_c90 <= 1]
 
 
 def test_us_demo_numbers_against_a_hand_calculation():

@@ -149,7 +149,8 @@ class MathPrinter(Printer):
     def _print_Pow(self, node: N.Pow, ctx):
         base = self._wrap(node.left, PRECEDENCE[N.Pow] + 1)
         exponent_values = self._values
-        self._values = None  # exponents are printed as written (they are plain numbers)
+        if not any(isinstance(n, (N.Name, N.FieldAccess)) for n in N.walk(node.right)):
+            self._values = None  # a number exponent is printed as written; a named one is substituted
         try:
             exponent = self._print(unparen(node.right), 0)
         finally:
@@ -234,6 +235,8 @@ def _evaluator():
 
 def _rounded(value, unit, sigfigs: int):
     """The value as printed at ``sigfigs`` figures, as a quantity (None when it is not a scalar)."""
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
+        value = _evaluator().number(value)
     if not isinstance(value, pint.Quantity):
         return None
     q = shown(value, unit)
@@ -305,8 +308,11 @@ def reproducing_sigfigs(node, values: dict, exact: dict, result, sigfigs: int) -
             got = got.to(value.units) if isinstance(got, pint.Quantity) else None
         except Exception:
             return 0
-        if got is not None and _rounded(got, unit, sigfigs) is not None and \
-                split_number(float(shown(got, unit).magnitude), sigfigs) == \
-                split_number(float(shown(value, unit).magnitude), sigfigs):
+        if got is None or _rounded(got, unit, sigfigs) is None:
+            return 0
+        shown_got = float(shown(got, unit).magnitude)
+        # the printed numbers must give the printed result clearly, not by a tie a calculator rounds otherwise
+        if all(split_number(shown_got * f, sigfigs) == split_number(float(shown(value, unit).magnitude), sigfigs)
+               for f in (1 - 1e-9, 1.0, 1 + 1e-9)):
             return p if p > sigfigs else 0
     return _MAX_SIGFIGS

@@ -157,7 +157,7 @@ class PackageDocument(DocumentPrinter):
             parts.append(Html('<h3 class="sec" id="cross-{}"><span class="secno">A.{}</span> {}{}</h3>{}').format(
                 n, n, title, " for " + owner if owner else "",
                 Html("\n").join(self.record(i, inner=True) for i in cross if not isinstance(i, Note))))
-        return Html("<section class='appendix' id='appendix'><h2 class='sec'>Appendix A — checks by a second "
+        return Html("<section class='appendix'><h2 class='sec' id='appendix'>Appendix A — checks by a second "
                     "method</h2>{}</section>").format(Html("").join(parts))
 
     def title_block(self) -> Html:
@@ -253,7 +253,13 @@ class PackageDocument(DocumentPrinter):
             cells = [c.strip() for c in str(entry).split("|", 3)]  # a "|" in the description stays
             cells += [""] * (4 - len(cells))
             rows.append(Html("<tr>{}</tr>").format(Html("").join(Html("<td>{}</td>").format(c) for c in cells[:4])))
-        return Html("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
+        latest = latest_revision(self.meta) or ("", "")
+        stale = [Html("{}: {} in the front matter, {} in the latest revision entry").format(key, self.meta[key], new)
+                 for key, new in (("rev", latest[0]), ("date", latest[1]))
+                 if self.meta.get(key) and new and str(self.meta[key]).strip() != new]
+        note = (Html("<p class='note warning'>The title block follows the latest revision entry; {}.</p>").format(
+            Html("; ").join(stale)) if stale else Html())
+        return note + Html("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
                     "<th>By</th><th>Description</th></tr></thead><tbody>{}</tbody></table>").format(Html("").join(rows))
 
     def body(self) -> Html:
@@ -383,7 +389,7 @@ class PackageDocument(DocumentPrinter):
                 for d in suppressed))
         if not rows and not sup:
             return Html()
-        return Html("<section class='inputs' id='inputs'><h2 class='sec'>Inputs</h2><table class='inputs'><thead><tr>"
+        return Html("<section class='inputs'><h2 class='sec' id='inputs'>Inputs</h2><table class='inputs'><thead><tr>"
                     "<th>Symbol</th><th>Description</th><th>Value</th><th></th></tr></thead><tbody>{}"
                     "</tbody></table>{}</section>").format(Html("").join(rows), sup)
 
@@ -396,7 +402,7 @@ class PackageDocument(DocumentPrinter):
                 d.severity, d.span.line, d.span.col, d.severity, d.code, d.message,
                 Html(" — {}").format(d.hint) if d.hint else "")
             for d in diags)
-        return Html("<section class='diagnostics' id='diagnostics'><h2 class='sec'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+        return Html("<section class='diagnostics'><h2 class='sec' id='diagnostics'>Diagnostics</h2><ul>{}</ul></section>").format(items)
 
 
 def _split_cross_checks(items: list) -> tuple[list, list]:

@@ -45,6 +45,7 @@ def test_title_block_takes_rev_and_date_from_the_latest_revision_entry():
     _, h = page()
     block = text_of(h.split('<header class="titleblock">')[1].split("</header>")[0])
     assert "Date 2026-11-20" in block and "Rev B" in block
+    assert "rev: A in the front matter, B in the latest revision entry" in text_of(h)  # the stale key is named
 
 
 def test_signoff_lists_prepared_checked_approved_with_dates():
@@ -110,6 +111,6 @@ def test_readme_example_builds_without_warnings():
 def test_a_sections_second_method_check_moves_to_the_appendix_referenced_from_its_working():
     _, h = page("---\nsubject: plate\n---\np = section.rectangle(b=100 mm, h=200 mm)\n")
     body = h.split('<section class="calc">')[1].split("</section>")[0]
-    appendix = h.split("<section class='appendix' id='appendix'>")[1]
+    appendix = h.split("<section class='appendix'>")[1]
     assert "Green" in appendix and "<table" in appendix  # the second method's table is kept
     assert "Outline integral" not in body and "href=\"#cross-1\"" in body  # referenced, not inline

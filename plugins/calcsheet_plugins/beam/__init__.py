@@ -16,14 +16,17 @@ clockwise positive, M is sagging positive, deflection δ is downward positive)::
     check st.sigma_max <= 0.66*F_y
 
 Supports: one per span end, each "pinned", "roller", "fixed", "free",
-"guided" (no rotation, free to slide) or "hinge" (an internal moment
-release with no support). Loads: ``beam.point(P, x)``, ``beam.moment(M, x)``,
-``beam.udl(w, start, end)`` (whole beam when start/end are left out) and
-``beam.varying(w_1, w_2, start, end)`` (triangular or trapezoidal); each takes
-``case="D"`` and ``span=k`` (then positions are measured from span k's left
-support). Results: reactions R_1, R_2 … numbered by position in ``supports``,
-support moments M_sup_1 …, maxima and minima of V, M, θ, δ with their
-locations, span/deflection ratio against ``limit``; see docs/plugins/beam.md.
+"guided" (no rotation, free to slide), "hinge" (an internal moment release
+with no support) or "spring" (``springs=[beam.spring(at="B", k=…)]``);
+``settlement=[beam.settlement(at="B", delta=…)]`` moves a support. Loads: one
+class each in kinds.py — ``beam.point(P, x)``, ``beam.moment(M, x)``,
+``beam.udl(w, start, end)``, ``beam.varying(w_1, w_2, start, end)`` and
+``beam.axial(F, x)``; each takes ``case="D"`` and ``span=k``. Standard
+combination sets come from ``loads.combinations`` (``combinations=[…]``).
+Results: reactions and support moments by support letter (R_A, M_B; R_1,
+M_sup_1 … remain), envelope extremes with their governing combination and
+concurrent actions, per-span maxima; ``beam.result`` gives one combination,
+``beam.at`` the values at any x; see docs/plugins/beam.md.
 """
 from calcsheet.plugin import Namespace
 
@@ -35,3 +38,4 @@ namespace = Namespace(
 
 from . import loads as _loads  # noqa: E402,F401  (registers the load functions)
 from . import analysis as _analysis  # noqa: E402,F401  (registers solve and stresses)
+from . import query as _query  # noqa: E402,F401  (registers at and result)

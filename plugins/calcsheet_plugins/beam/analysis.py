@@ -23,17 +23,30 @@ SOLVE_PARAMS = [
     Param("loads", kind="list", record="load", doc="beam.point / moment / udl / varying records"),
     Param("combos", kind="list", record="combo", default=None,
           doc="beam.combo records; results are enveloped over them (default: every load at factor 1)"),
+    Param("combinations", kind="list", record="combinations", default=None,
+          doc="loads.combinations sets; their combinations are solved too, with pattern loading of the "
+              "variable cases on a beam of more than one span"),
     Param("E", "[pressure]", "modulus of elasticity (default: material.E)", default=None),
     Param("I", "[length]**4", "second moment of area (default: section.I_x)", default=None),
     Param("I_spans", kind="list", dim="[length]**4", doc="I of each span, for a member that changes section",
           default=None),
     Param("material", kind="record", record="material", doc="a material record giving E", default=None),
     Param("section", kind="record", record="section", doc="a section record giving I_x", default=None),
+    Param("springs", kind="list", record="spring", default=None,
+          doc="beam.spring records: elastic supports (a \"spring\" support) and rotational springs"),
+    Param("settlement", kind="list", record="settlement", default=None,
+          doc="beam.settlement records: prescribed downward movement of supports"),
     Param("limit", doc="deflection limit as span/δ, e.g. 360 for L/360 (default 360)", default=None),
     Param("deflection", kind="text", doc="name of the combination the deflection limit applies to "
                                          "(default: all)", default=None),
     Param("samples", doc="diagram points per span (default 200)", default=None),
 ]
+
+# fields that need E and I: absent for a statically determinate beam given neither
+NEEDS_STIFFNESS = {"delta_max", "x_delta_max", "theta_max", "delta_gov", "L_gov", "span_ratio", "delta_allow",
+                   "limit", "EI", "combo_delta_max", "delta_down", "x_delta_down", "combo_delta_down", "delta_up",
+                   "x_delta_up", "combo_delta_up", "combo_delta_gov", "delta_max_{i}"}
+STIFFNESS_HINT = " — needs E and I: give E (or material=…) and I (or section=…) to beam.solve"
 
 SOLVE_FIELDS = [
     Field("L", LEN, "total length"),
@@ -58,7 +71,38 @@ SOLVE_FIELDS = [
     Field("delta_allow", LEN, "allowed deflection L_gov/limit"),
     Field("limit", doc="the limit span/δ used"),
     Field("EI", "[force]*[length]**2", "flexural stiffness (of span 1)"),
-]
+    Field("combo_M_max", kind="text", doc="combination giving M_max"),
+    Field("V_at_M_max", FORCE, "shear acting with M_max (same section and combination; the larger in magnitude "
+                               "of the values just left and right)"),
+    Field("combo_M_min", kind="text", doc="combination giving M_min"),
+    Field("V_at_M_min", FORCE, "shear acting with M_min"),
+    Field("combo_V_max", kind="text", doc="combination giving V_max"),
+    Field("M_at_V_max", MOM, "moment acting with V_max"),
+    Field("combo_delta_max", kind="text", doc="combination giving delta_max"),
+    Field("delta_down", LEN, "largest downward deflection (0 when none)"),
+    Field("x_delta_down", LEN, "where it occurs"),
+    Field("combo_delta_down", kind="text", doc="combination giving delta_down"),
+    Field("delta_up", LEN, "largest upward deflection, as a positive number (0 when none)"),
+    Field("x_delta_up", LEN, "where it occurs"),
+    Field("combo_delta_up", kind="text", doc="combination giving delta_up"),
+    Field("combo_delta_gov", kind="text", doc="combination giving delta_gov"),
+    Field("M_max_{i}", MOM, "largest sagging moment in span i (envelope)"),
+    Field("M_min_{i}", MOM, "largest hogging moment in span i (envelope, negative)"),
+    Field("delta_max_{i}", LEN, "largest deflection in magnitude in span i (envelope)"),
+    Field("N_at_M_max", FORCE, "axial force acting with M_max, compression positive"),
+    Field("N_at_M_min", FORCE, "axial force acting with M_min, compression positive"),
+    Field("N_at_V_max", FORCE, "axial force acting with V_max, compression positive"),
+    Field("N_max", FORCE, "largest axial compression (0 without loads along the axis; negative: tension only)"),
+    Field("x_N_max", LEN, "where it starts (the leftmost stretch)"),
+    Field("combo_N_max", kind="text", doc="combination giving N_max"),
+    Field("n_combos", doc="number of combinations solved (pattern variants included)"),
+    Field("ties", doc="how many of M_max, M_min, V_max, delta_max occur at more than one place or combination"),
+    Field("model", kind="text", doc="the solved beam (not a value: beam.at and beam.result read it)"),
+] + [Field(f"{p}_{c}", dim, doc, optional=True) for c in "ABCDEFGHIJKLMNOPQRSTUVWXYZ" for p, dim, doc in (
+    ("R", FORCE, f"largest upward reaction at support {c} (absent: no vertical restraint there)"),
+    ("R_min", FORCE, f"smallest reaction at support {c}, negative is uplift (absent: no vertical restraint there)"),
+    ("M", MOM, f"bending moment in the member at support {c}, largest in magnitude (absent: a free end or hinge)"),
+)]
 
 
 def _number(q, name, lo=None):
@@ -68,12 +112,17 @@ def _number(q, name, lo=None):
     return v
 
 
+SOLVE_FIELDS = [Field(f.name, f.dim, f.doc + STIFFNESS_HINT, f.kind, f.record, True) if f.name in NEEDS_STIFFNESS
+                else f for f in SOLVE_FIELDS]
+
+
 @namespace.function("solve", params=SOLVE_PARAMS, fields=SOLVE_FIELDS, returns="beam")
-def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=None, material=None, section=None,
-          limit=None, deflection=None, samples=None):
+def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, I=None, I_spans=None, material=None,
+          section=None, springs=None, settlement=None, limit=None, deflection=None, samples=None):
     """Reactions, shear, moment, slope and deflection of a beam on any supports, exactly, with its working."""
     try:
-        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section)
+        setup = build(work, spans, supports, loads, combos, E, I, I_spans, material, section, combinations,
+                      springs, settlement)
         per_span = int(_number(samples, "samples", 10)) if samples is not None else 200
         lim = _number(limit, "limit", 1) if limit is not None else None
         res = results.run(setup, per_span=min(per_span, 5000))
@@ -86,7 +135,11 @@ def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=Non
     Ls = letters(len(X))
 
     _input_tables(work, setup, lit)
-    if len(set(model.EI)) == 1:
+    if not setup.stiff:
+        work.note("No E or I was given: the beam is statically determinate, so its reactions, shears and moments "
+                  "follow from statics alone; deflections and slopes need E and I and are not computed.",
+                  kind="method")
+    elif len(set(model.EI)) == 1:
         if E is not None and I is not None:
             work.calc("EI", "E*I", unit=u["EI"], desc="flexural stiffness")
         else:
@@ -105,6 +158,10 @@ def solve(work, spans, supports, loads, combos=None, E=None, I=None, I_spans=Non
     working.write(work, setup, res, lit)
     _result_tables(work, setup, res, lit)
     out = _envelope(work, setup, res, lit, lim, deflection)
+    if not setup.stiff:
+        for name in list(out):
+            if name in NEEDS_STIFFNESS or name.startswith("delta_max_"):
+                del out[name]
     for svg, caption in diagrams.figures(setup, res, lit):
         work.figure(svg, caption=caption)
     return out
@@ -115,28 +172,37 @@ def _input_tables(work, setup, lit):
     Ls = letters(len(X))
     u = setup.units
     work.table("Supports", ["Support", "x", "Type"],
-               [[Ls[i], lit.q(X[i], "length"), k] for i, k in enumerate(setup.kinds)], units=[None, u["length"], None])
+               [[Ls[i], lit.q(X[i], "length"), _support_text(setup, i, k)] for i, k in enumerate(setup.kinds)],
+               units=[None, u["length"], None])
     rows = []
     for ld in setup.loads:
-        s = ld.solver
-        if ld.kind == "point":
-            rows.append([ld.index, ld.case or "–", "point", f"P = {working.num(lit.value(s.P, 'force'))} {u['force']}",
-                         lit.q(s.x, "length"), "–"])
-        elif ld.kind == "moment":
-            rows.append([ld.index, ld.case or "–", "couple (clockwise +)",
-                         f"M = {working.num(lit.value(s.M, 'moment'))} {u['moment']}", lit.q(s.x, "length"), "–"])
-        else:
-            w1, w2 = working.num(lit.value(s.w1, "line")), working.num(lit.value(s.w2, "line"))
-            what = f"w = {w1} {u['line']}" if s.w1 == s.w2 else f"w = {w1} → {w2} {u['line']}"
-            name = "uniform" if s.w1 == s.w2 else ("triangular" if 0 in (s.w1, s.w2) else "trapezoidal")
-            rows.append([ld.index, ld.case or "–", name, what, lit.q(s.x1, "length"), lit.q(s.x2, "length")])
+        name, what, x1, x2 = ld.solver.row(lit, working.num)
+        rows.append([ld.index, ld.case or "–", name, what, lit.q(x1, "length"),
+                     lit.q(x2, "length") if x2 is not None else "–"])
     if len(rows) <= 60:
         work.table("Loads (unfactored; downward positive)", ["No.", "Case", "Type", "Value", "from x", "to x"], rows,
                    units=[None, None, None, None, u["length"], u["length"]])
     else:
         work.note(f"{len(rows)} loads were given; the table is left out for length.")
     if len(setup.combos) > 1 or not setup.default_combo:
-        work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
+        if any(c.clause for c in setup.combos):
+            work.table("Combinations", ["Name", "Factors", "Leading", "Duration", "Source"],
+                       [[c.name, c.text, c.leading or "–", c.duration or "–", c.clause or "the sheet"]
+                        for c in setup.combos])
+        else:
+            work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
+
+
+def _support_text(setup, i, kind):
+    parts = [kind]
+    k, kt = setup.model.springs.get(i, (0.0, 0.0))
+    if k:
+        parts.append(f"k = {working.num(k / 1e3)} kN/m")
+    if kt:
+        parts.append(f"k_θ = {working.num(kt / 1e3)} kN·m/rad")
+    if i in setup.model.settlement:
+        parts.append(f"settles {working.num(setup.model.settlement[i] * 1e3)} mm")
+    return ", ".join(parts)
 
 
 def _result_tables(work, setup, res, lit):
@@ -144,18 +210,22 @@ def _result_tables(work, setup, res, lit):
     if not _indeterminate_path(setup):
         working.reactions_table(work, setup, res, lit)
     rows = []
+    stiff = setup.stiff
     for c in res.combos:
         rows.append([c.combo.name, lit.q(c.M_max.value, "moment"), lit.q(c.M_max.x, "length"),
                      lit.q(c.M_min.value, "moment"), lit.q(c.M_min.x, "length"),
                      lit.q(abs(c.V_max.value), "force"), lit.q(c.V_max.x, "length"),
                      lit.q(c.d_max.value, "defl"), lit.q(c.d_max.x, "length")])
-    work.table("Maxima by combination (found exactly from the piecewise polynomials)",
-               ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"], rows,
-               units=[None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"],
-                      u["length"]])
+    cols = ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x", "δ_max (down +)", "at x"]
+    units = [None, u["moment"], u["length"], u["moment"], u["length"], u["force"], u["length"], u["defl"], u["length"]]
+    if not stiff:
+        rows, cols, units = [r[:7] for r in rows], cols[:7], units[:7]
+    work.table("Maxima by combination (found exactly from the piecewise polynomials)", cols, rows, units=units)
 
 
 def _indeterminate_path(setup) -> bool:
+    if setup.model.springs or setup.model.settlement:
+        return True
     kinds = setup.kinds
     vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
     rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
@@ -173,13 +243,19 @@ def _envelope(work, setup, res, lit, lim, deflection):
     env = " (envelope of the combinations)" if many else ""
     out = {"L": lit.q(model.length, "length"), "n_spans": work.q(len(model.spans), "")}
     for i, k in enumerate(setup.kinds):
-        if k in ("pinned", "roller", "fixed"):
+        if k in ("pinned", "roller", "fixed", "spring") and (k != "spring" or setup.model.springs[i][0]):
             vals = [c.sol.reactions[i] for c in res.combos]
             out[f"R_{i + 1}"] = lit.q(max(vals), "force")
             out[f"R_min_{i + 1}"] = lit.q(min(vals), "force")
         if k in ("pinned", "roller", "fixed", "guided"):
             ms = [c.support_M[i] for c in res.combos]
             out[f"M_sup_{i + 1}"] = lit.q(max(ms, key=abs), "moment")
+        if i < 26:
+            letter = letters(len(X))[i]
+            for old, new in ((f"R_{i + 1}", f"R_{letter}"), (f"R_min_{i + 1}", f"R_min_{letter}"),
+                             (f"M_sup_{i + 1}", f"M_{letter}")):
+                if old in out:
+                    out[new] = out[old]
     gmax = res.governing("M_max")
     gmin = res.governing("M_min", -1)
     gV = max(res.combos, key=lambda c: abs(c.V_max.value))
@@ -190,10 +266,10 @@ def _envelope(work, setup, res, lit, lim, deflection):
         return f" ({c.combo.name})" if many else ""
 
     out["M_max"] = work.let("M_max", lit.q(gmax.M_max.value, "moment"), unit=u["moment"],
-                            desc=f"largest sagging moment{env}", note=f"at x = {_x(lit, gmax.M_max.x)}{tagged(gmax)}")
+                            desc=extreme_label("sagging", gmax.M_max.value) + env, note=f"at x = {_x(lit, gmax.M_max.x)}{tagged(gmax)}")
     out["x_M_max"] = lit.q(gmax.M_max.x, "length")
     out["M_min"] = work.let("M_min", lit.q(gmin.M_min.value, "moment"), unit=u["moment"],
-                            desc=f"largest hogging moment{env}", note=f"at x = {_x(lit, gmin.M_min.x)}{tagged(gmin)}")
+                            desc=extreme_label("hogging", gmin.M_min.value) + env, note=f"at x = {_x(lit, gmin.M_min.x)}{tagged(gmin)}")
     out["x_M_min"] = lit.q(gmin.M_min.x, "length")
     out["M_abs"] = work.calc("M_abs", "max(abs(M_max), abs(M_min))", unit=u["moment"],
                              desc="largest moment in magnitude")
@@ -204,16 +280,19 @@ def _envelope(work, setup, res, lit, lim, deflection):
     x0 = min(zs, key=lambda z: abs(z - gmax.M_max.x)) if zs else gmax.M_max.x
     out["x_V0"] = lit.q(x0, "length")
     direction = "downward" if gd.d_max.value >= 0 else "upward"
-    out["delta_max"] = work.let("delta_max", lit.q(abs(gd.d_max.value), "defl"), unit=u["defl"],
+    out["delta_max"] = lit.q(abs(gd.d_max.value), "defl") if not setup.stiff else work.let("delta_max", lit.q(abs(gd.d_max.value), "defl"), unit=u["defl"],
                                 desc=f"largest deflection{env}",
                                 note=f"{direction}, at x = {_x(lit, gd.d_max.x)}{tagged(gd)}")
     out["x_delta_max"] = lit.q(gd.d_max.x, "length")
     out["theta_max"] = work.q(abs(gt.theta_max.value), "rad")
+    _governing(work, setup, res, lit, out, gmax, gmin, gV, gd)
 
+    if not setup.stiff:
+        return out
     # deflection against the limit
     pool = res.combos
     if deflection is not None:
-        pool = [c for c in res.combos if c.combo.name == deflection]
+        pool = [c for c in res.combos if c.combo.named(deflection)]
         if not pool:
             work.fail(f"no combination is named {deflection!r} (combinations: "
                       + ", ".join(c.combo.name for c in res.combos) + ")", param="deflection")
@@ -237,7 +316,8 @@ def _envelope(work, setup, res, lit, lim, deflection):
     if best is None:
         work.note("The beam does not deflect under these loads.")
         zero = lit.q(0.0, "defl")
-        out.update(delta_gov=zero, L_gov=lit.q(model.spans[0], "length"), span_ratio=work.q(1e9, ""))
+        out.update(delta_gov=zero, L_gov=lit.q(model.spans[0], "length"), span_ratio=work.q(1e9, ""),
+                   combo_delta_gov=pool[0].combo.name)
         out["delta_allow"] = lit.q(model.spans[0] / float(out["limit"].m_as("")), "defl")
         out["EI"] = lit.q(model.EI[0], "EI")
         return out
@@ -249,6 +329,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
                                       f"(common practice)")
     else:
         out["L_gov"] = work.calc("L_gov", lit(model.spans[k], "length"), unit=u["length"], desc=f"span {span_name}")
+    out["combo_delta_gov"] = c.combo.name
     out["delta_gov"] = work.let("delta_gov", lit.q(abs(e.value), "length"), unit=u["defl"],
                                 desc=f"largest deflection in span {span_name}",
                                 note=f"at x = {_x(lit, e.x)}" + (f", {c.combo.name}" if many else ""))
@@ -260,6 +341,70 @@ def _envelope(work, setup, res, lit, lim, deflection):
     work.check("delta_gov <= delta_allow", desc=f"deflection within span/{working.num(float(out['limit'].m_as('')))}")
     out["EI"] = lit.q(model.EI[0], "EI")
     return out
+
+
+def _governing(work, setup, res, lit, out, gmax, gmin, gV, gd):
+    """Which combination governs each extreme, the actions acting with it, maxima per span, ties."""
+    from .model import SolvedBeam
+
+    out["combo_M_max"] = gmax.combo.name
+    out["V_at_M_max"] = lit.q(gmax.V_at(gmax.M_max.x), "force")
+    out["combo_M_min"] = gmin.combo.name
+    out["V_at_M_min"] = lit.q(gmin.V_at(gmin.M_min.x), "force")
+    out["combo_V_max"] = gV.combo.name
+    out["M_at_V_max"] = lit.q(gV.M_at(gV.V_max.x), "moment")
+    out["combo_delta_max"] = gd.combo.name
+    out["N_at_M_max"] = lit.q(gmax.N_at(gmax.M_max.x), "force")
+    out["N_at_M_min"] = lit.q(gmin.N_at(gmin.M_min.x), "force")
+    out["N_at_V_max"] = lit.q(gV.N_at(gV.V_max.x), "force")
+    gN, _ = res.governing_tie(lambda c: c.N_max().value)
+    nmax = gN.N_max()
+    if any(c.axial[0] for c in res.combos):
+        names = letters(len(setup.model.nodes))
+        held = next(names[i] for i, k in enumerate(setup.kinds) if k in ("pinned", "fixed"))
+        out["N_max"] = work.let("N_max", lit.q(nmax.value, "force"), unit=lit.units["force"],
+                                desc="largest axial compression" + (" (envelope of the combinations)"
+                                                                    if len(res.combos) > 1 else ""),
+                                note=f"statics along the axis: support {held} holds the member, so N(x) is the sum "
+                                     f"of the axial forces on the far side of x; from x = {_x(lit, nmax.x)}"
+                                     + (f" ({gN.combo.name})" if len(res.combos) > 1 else ""))
+    else:
+        out["N_max"] = lit.q(0.0, "force")
+    out["x_N_max"] = lit.q(nmax.x, "length")
+    out["combo_N_max"] = gN.combo.name
+    dn, _ = res.governing_tie(lambda c: c.d_down.value)
+    up, _ = res.governing_tie(lambda c: -c.d_up.value)
+    out["delta_down"] = lit.q(max(0.0, dn.d_down.value), "defl")
+    out["x_delta_down"] = lit.q(dn.d_down.x, "length")
+    out["combo_delta_down"] = dn.combo.name
+    out["delta_up"] = lit.q(max(0.0, -up.d_up.value), "defl")
+    out["x_delta_up"] = lit.q(up.d_up.x, "length")
+    out["combo_delta_up"] = up.combo.name
+    for k in range(len(setup.model.spans)):
+        out[f"M_max_{k + 1}"] = lit.q(max(c.span_M[k][0].value for c in res.combos), "moment")
+        out[f"M_min_{k + 1}"] = lit.q(min(c.span_M[k][1].value for c in res.combos), "moment")
+        out[f"delta_max_{k + 1}"] = lit.q(max(abs(c.span_delta[k].value) for c in res.combos), "defl")
+    out["n_combos"] = work.q(len(res.combos), "")
+    ties = 0
+    for label, g, ext, others in (
+            ("M_max", gmax, gmax.M_max, res.governing_tie(lambda c: c.M_max.value)[1]),
+            ("M_min", gmin, gmin.M_min, res.governing_tie(lambda c: -c.M_min.value)[1]),
+            ("V_max", gV, gV.V_max, res.governing_tie(lambda c: abs(c.V_max.value))[1]),
+            ("delta_max", gd, gd.d_max, res.governing_tie(lambda c: abs(c.d_max.value))[1])):
+        if abs(ext.value) == 0:
+            continue
+        where = [_x(lit, x) for x in ext.others]
+        if where or others:
+            ties += 1
+            text = f"The same value of {label} occurs at x = {_x(lit, ext.x)}"
+            if where:
+                text += " and also at x = " + ", ".join(where)
+            if others:
+                text += f" in {g.combo.name}, and in " + ", ".join(c.combo.name for c in others[:6]) + (
+                    " …" if len(others) > 6 else "")
+            work.note(text + "; the leftmost place (and the first combination) is reported.")
+    out["ties"] = work.q(ties, "")
+    out["model"] = SolvedBeam(setup, res)
 
 
 def _x(lit, x):
@@ -305,3 +450,12 @@ def stresses(work, member, section):
               "the two for each fibre, with M = max(|M_max|, |M_min|).")
     return {"sigma_top": top.to(st), "sigma_bot": bot.to(st), "sigma_max": work["sigma_max"].to(st),
             "tau_max": tau.to(st), "M": work["M"].to(mo), "V": work["V"].to(fo)}
+
+
+def extreme_label(kind: str, value: float) -> str:
+    """What an extreme moment is: 'largest sagging moment', or 'no sagging moment' when the member has none
+    (sagging positive: the largest moment is then the least hogging one)."""
+    if (value > 0) if kind == "sagging" else (value < 0):
+        return f"largest {kind} moment"
+    other = "hogging" if kind == "sagging" else "sagging"
+    return f"no {kind} moment anywhere (the value is the least {other} moment)"

@@ -75,7 +75,7 @@ def beam_figure(setup, lit) -> str:
     fr = Frame(model.length)
     loads = setup.loads
     label = len(loads) <= 16
-    line_loads = [ld for ld in loads if ld.kind in ("udl", "varying")]
+    line_loads = [ld for ld in loads if ld.solver.glyph == "line"]
     layer_of, n_layers = _layers([(ld.solver.x1, ld.solver.x2) for ld in line_loads])
     band_h = 18.0 if n_layers <= 3 else max(6.0, 54.0 / n_layers)
     step = band_h + (13 if label else 4)
@@ -128,7 +128,7 @@ def beam_figure(setup, lit) -> str:
     fu, mu = unit_label(lit.units["force"]), unit_label(lit.units["moment"])
     for ld in loads:
         s = ld.solver
-        if ld.kind == "point":
+        if s.glyph == "point":
             px = float(fr.px(s.x))
             up = s.P < 0
             top = y0 - 14 - n_layers * step
@@ -143,7 +143,15 @@ def beam_figure(setup, lit) -> str:
                 last_label.append((px, ty))
                 _text(svg, px + 4, ty, f"{fmt(lit.value(abs(s.P), 'force'))} {fu}" +
                       (f" ({ld.case})" if ld.case else ""), 9, anchor="start")
-        elif ld.kind == "moment":
+        elif s.glyph == "axial":
+            px = float(fr.px(s.x))
+            d = 22 if s.F >= 0 else -22
+            svg.line(px - d, y0 - 9, px, y0 - 9, stroke=INK, stroke_width=1.2)
+            svg.polygon([(px, y0 - 9), (px - (5 if d > 0 else -5), y0 - 12), (px - (5 if d > 0 else -5), y0 - 6)],
+                        fill=INK)
+            if label:
+                _text(svg, px - d / 2, y0 - 14, f"{fmt(lit.value(abs(s.F), 'force'))} {fu}", 9)
+        elif s.glyph == "couple":
             px = float(fr.px(s.x))
             _couple(svg, px, y0, s.M >= 0)
             if label:
@@ -191,10 +199,25 @@ def _support(svg, px, y0, kind, first):
             svg.circle(px - s * 4, y0 + 8, 2.5, fill="white", stroke=INK)
     elif kind == "hinge":
         svg.circle(px, y0, 4, fill="white", stroke=INK, stroke_width=1.4)
+    elif kind == "spring":
+        pts = [(px, y0 + 2)] + [(px + (5 if k % 2 else -5), y0 + 5 + 3 * k) for k in range(5)] + [(px, y0 + 20)]
+        svg.polyline(pts, fill="none", stroke=INK, stroke_width=1.1)
+        svg.line(px - 10, y0 + 21, px + 10, y0 + 21, stroke=INK, stroke_width=1)
 
 
 def _budget(model) -> int:
     return max(12, int(1600 / len(model.spans)))
+
+
+MANY_CURVES = 8  # beyond this many combinations a diagram shows their envelope
+
+
+class _Named:
+    """A legend entry that is not a combination (the envelope curves)."""
+
+    def __init__(self, name: str):
+        self.combo = self
+        self.name = name
 
 
 def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_positive: bool = False) -> str:
@@ -210,6 +233,12 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
         y = {"V": V, "M": M, "delta": D}[what]
         curves.append((cr, x, y))
     vmax = max(float(np.max(np.abs(y))) for _, _, y in curves) or 1.0
+    if len(curves) > MANY_CURVES and all(len(x) == len(curves[0][1]) and np.array_equal(x, curves[0][1])
+                                         for _, x, _ in curves):
+        # many combinations (pattern loading): draw their envelope, the pointwise largest and smallest values
+        ys = np.vstack([y for _, _, y in curves])
+        x0 = curves[0][1]
+        curves = [(_Named("envelope, largest"), x0, ys.max(axis=0)), (_Named("envelope, smallest"), x0, ys.min(axis=0))]
     half = (bot - top) / 2
     sgn = 1.0 if down_positive else -1.0  # pixel y grows downward
 
@@ -278,7 +307,7 @@ def value_figure(setup, res, lit, what: str, title: str, unit_kind: str, down_po
                       anchor="start")
         if len(model.spans) <= 6 and single:
             for i, xn in enumerate(X):
-                if setup.kinds[i] in ("pinned", "roller", "fixed"):
+                if setup.kinds[i] in ("pinned", "roller", "fixed", "spring"):
                     for side in ("left", "right"):
                         if xn <= 0 or xn >= model.length:  # end values are the labelled extremes
                             continue
@@ -306,9 +335,12 @@ def _mark(svg, fr, py, x, v, text, placed, down_positive, vmax):
 
 
 def figures(setup, res, lit):
-    return [
+    out = [
         (beam_figure(setup, lit), "Beam to scale, with its supports and loads (unfactored)"),
         (value_figure(setup, res, lit, "V", "Shear V", "force"), "Shear diagram"),
         (value_figure(setup, res, lit, "M", "Bending moment M", "moment"), "Bending moment diagram"),
-        (value_figure(setup, res, lit, "delta", "Deflection δ", "defl", down_positive=True), "Deflection diagram"),
     ]
+    if setup.stiff:
+        out.append((value_figure(setup, res, lit, "delta", "Deflection δ", "defl", down_positive=True),
+                    "Deflection diagram"))
+    return out

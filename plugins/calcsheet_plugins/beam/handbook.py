@@ -8,12 +8,13 @@ and Strain, Table 8.1.
 """
 from __future__ import annotations
 
-import math
+import re
+import tomllib
+from pathlib import Path
 
-from .solver import LineLoad, MomentLoad, PointLoad
+from .kinds import LineLoad, MomentLoad, PointLoad
 
 SIMPLE = ("pinned", "roller")
-SOURCE = "AISC Manual Table 3-23"
 
 
 def _classify(model, kinds, loads):
@@ -38,130 +39,169 @@ def _classify(model, kinds, loads):
     return full_w, points, others
 
 
+def _load_data() -> dict:
+    with (Path(__file__).with_name("handbook.toml")).open("rb") as fh:
+        return tomllib.load(fh)
+
+
+DATA = _load_data()
+SOURCE = DATA["source"]
+CASES = DATA["case"]
+
+
+def symbolic(formula: str) -> str:
+    """A formula as printed beside the check: '5*w*L^4/(384*EI)' -> '5·w·L⁴/(384·EI)'."""
+    out = formula.replace("*", "·")
+    for k, v in _SUPERSCRIPT.items():
+        out = out.replace("^" + k, v)
+    return out
+
+
+def describe(check: dict) -> str:
+    text = symbolic(check["formula"])
+    if check.get("note"):
+        text += f" ({check['note']})"
+    return text + check.get("suffix", "")
+
+
+_SUPERSCRIPT = {"2": "²", "3": "³", "4": "⁴"}
+_NAME = re.compile(r"[A-Za-z_][A-Za-z_0-9]*")
+
+
+def substitute(formula: str, subs: dict[str, str]) -> str:
+    """The formula with each value name replaced by its literal (parenthesised, so a power applies to it all)."""
+    def one(m):
+        v = subs.get(m.group(0))
+        if v is None:
+            return m.group(0)
+        return v if v.startswith("(") else f"({v})"
+    return _NAME.sub(one, formula)
+
+
+# ---------------------------------------------------------------- matchers: recognise a case, give its values
+# Each returns None, or (values in SI, support indices named in `solver` keys such as R[fixed]).
+
+
+def simple_udl(model, kinds, w, points, EI):
+    if len(model.spans) == 1 and kinds[0] in SIMPLE and kinds[1] in SIMPLE and w and not points:
+        return {"w": w, "L": model.length, "EI": EI}, {}
+
+
+def simple_central_point(model, kinds, w, points, EI):
+    L = model.length
+    if (len(model.spans) == 1 and kinds[0] in SIMPLE and kinds[1] in SIMPLE and len(points) == 1 and not w
+            and abs(points[0].x - L / 2) <= 1e-9 * L):
+        return {"P": points[0].P, "L": L, "EI": EI}, {}
+
+
+def simple_point(model, kinds, w, points, EI):
+    L = model.length
+    if (len(model.spans) == 1 and kinds[0] in SIMPLE and kinds[1] in SIMPLE and len(points) == 1 and not w
+            and abs(points[0].x - L / 2) > 1e-9 * L and 0 < points[0].x < L):
+        a = points[0].x
+        return {"P": points[0].P, "L": L, "EI": EI, "a": a, "b": L - a}, {}
+
+
+def _cantilever(model, kinds):
+    if len(model.spans) == 1 and sorted(kinds) == ["fixed", "free"]:
+        return 0 if kinds[0] == "fixed" else 1
+    return None
+
+
+def cantilever_end_point(model, kinds, w, points, EI):
+    iF = _cantilever(model, kinds)
+    L = model.length
+    if iF is not None and len(points) == 1 and not w:
+        tip = L if iF == 0 else 0.0
+        if abs(points[0].x - tip) <= 1e-9 * L:
+            return {"P": points[0].P, "L": L, "EI": EI}, {"fixed": iF}
+
+
+def cantilever_udl(model, kinds, w, points, EI):
+    iF = _cantilever(model, kinds)
+    if iF is not None and w and not points:
+        return {"w": w, "L": model.length, "EI": EI}, {"fixed": iF}
+
+
+def fixed_fixed_udl(model, kinds, w, points, EI):
+    if len(model.spans) == 1 and kinds == ["fixed", "fixed"] and w and not points:
+        return {"w": w, "L": model.length, "EI": EI}, {}
+
+
+def propped_udl(model, kinds, w, points, EI):
+    if (len(model.spans) == 1 and "fixed" in kinds and (kinds[0] in SIMPLE or kinds[1] in SIMPLE) and w
+            and not points):
+        iF = kinds.index("fixed")
+        return {"w": w, "L": model.length}, {"fixed": iF, "simple": 1 - iF}
+
+
+def two_equal_spans_udl(model, kinds, w, points, EI):
+    if (len(model.spans) == 2 and all(k in SIMPLE for k in kinds)
+            and abs(model.spans[0] - model.spans[1]) <= 1e-9 * model.length and w and not points):
+        return {"w": w, "L": model.spans[0]}, {}
+
+
+def overhang_end_point(model, kinds, w, points, EI):
+    if (len(model.spans) == 2 and not w and len(points) == 1 and kinds[0] in SIMPLE and kinds[1] in SIMPLE
+            and kinds[2] == "free" and abs(points[0].x - model.length) <= 1e-9 * model.length):
+        return {"P": points[0].P, "L": model.spans[0], "a": model.spans[1], "EI": EI}, {}
+
+
 def cases(model, kinds, loads):
-    """(title, [(name, formula_symbolic, formula_substituted_builder, solver_value_key, unit_kind)])"""
-    n = len(model.spans)
+    """(case from handbook.toml, values, support indices) for the first case this beam and load match, or None."""
     if len(set(model.EI)) != 1:
         return None
     w, points, others = _classify(model, kinds, loads)
     if others:
         return None
-    L = model.length
-    EI = model.EI[0]
-    if n == 1 and kinds[0] in SIMPLE and kinds[1] in SIMPLE:
-        if w and not points:
-            return ("simply supported beam, uniform load (case 1)", {"w": w, "L": L, "EI": EI}, [
-                ("R_hb", "w·L/2", "{w}*{L}/2", ("R", 0), "force"),
-                ("M_hb", "w·L²/8", "{w}*{L}^2/8", ("Mmax",), "moment"),
-                ("delta_hb", "5·w·L⁴/(384·EI)", "5*{w}*{L}^4/(384*{EI})", ("dmax",), "defl"),
-            ])
-        if len(points) == 1 and not w:
-            P, a = points[0].P, points[0].x
-            b = L - a
-            if abs(a - L / 2) <= 1e-9 * L:
-                return ("simply supported beam, central point load (case 7)", {"P": P, "L": L, "EI": EI}, [
-                    ("R_hb", "P/2", "{P}/2", ("R", 0), "force"),
-                    ("M_hb", "P·L/4", "{P}*{L}/4", ("Mmax",), "moment"),
-                    ("delta_hb", "P·L³/(48·EI)", "{P}*{L}^3/(48*{EI})", ("dmax",), "defl"),
-                ])
-            if 0 < a < L:
-                return ("simply supported beam, point load at any point (case 8)",
-                        {"P": P, "L": L, "EI": EI, "a": a, "b": b}, [
-                    ("R_hb", "P·b/L (left support)", "{P}*{b}/{L}", ("R", 0), "force"),
-                    ("M_hb", "P·a·b/L", "{P}*{a}*{b}/{L}", ("Mmax",), "moment"),
-                    ("delta_hb", "P·a²·b²/(3·EI·L) under the load", "{P}*{a}^2*{b}^2/(3*{EI}*{L})",
-                     ("delta_at", a), "defl"),
-                ])
-    if n == 1 and sorted(kinds) == ["fixed", "free"]:
-        fixed_left = kinds[0] == "fixed"
-        tip = L if fixed_left else 0.0
-        iF = 0 if fixed_left else 1
-        if len(points) == 1 and not w and abs(points[0].x - tip) <= 1e-9 * L:
-            return ("cantilever, point load at the free end (case 22)", {"P": points[0].P, "L": L, "EI": EI}, [
-                ("R_hb", "P", "{P}", ("R", iF), "force"),
-                ("M_hb", "P·L (hogging, at the support)", "{P}*{L}", ("Mabs",), "moment"),
-                ("delta_hb", "P·L³/(3·EI) at the free end", "{P}*{L}^3/(3*{EI})", ("dmax",), "defl"),
-            ])
-        if w and not points:
-            return ("cantilever, uniform load (case 18)", {"w": w, "L": L, "EI": EI}, [
-                ("R_hb", "w·L", "{w}*{L}", ("R", iF), "force"),
-                ("M_hb", "w·L²/2 (hogging, at the support)", "{w}*{L}^2/2", ("Mabs",), "moment"),
-                ("delta_hb", "w·L⁴/(8·EI) at the free end", "{w}*{L}^4/(8*{EI})", ("dmax",), "defl"),
-            ])
-    if n == 1 and kinds == ["fixed", "fixed"] and w and not points:
-        return ("beam fixed at both ends, uniform load (case 15)", {"w": w, "L": L, "EI": EI}, [
-            ("R_hb", "w·L/2", "{w}*{L}/2", ("R", 0), "force"),
-            ("M_hb", "w·L²/12 (hogging, at the ends)", "{w}*{L}^2/12", ("Mneg",), "moment"),
-            ("M_hb2", "w·L²/24 (sagging, at the centre)", "{w}*{L}^2/24", ("Mmax",), "moment"),
-            ("delta_hb", "w·L⁴/(384·EI)", "{w}*{L}^4/(384*{EI})", ("dmax",), "defl"),
-        ])
-    if n == 1 and "fixed" in kinds and (kinds[0] in SIMPLE or kinds[1] in SIMPLE) and w and not points:
-        iF = kinds.index("fixed")
-        return ("beam fixed at one end, supported at the other, uniform load (case 12)", {"w": w, "L": L}, [
-            ("R_hb", "5·w·L/8 (fixed end)", "5*{w}*{L}/8", ("R", iF), "force"),
-            ("R_hb2", "3·w·L/8 (simple end)", "3*{w}*{L}/8", ("R", 1 - iF), "force"),
-            ("M_hb", "w·L²/8 (hogging, fixed end)", "{w}*{L}^2/8", ("Mneg",), "moment"),
-            ("M_hb2", "9·w·L²/128 at 3L/8 from the simple end", "9*{w}*{L}^2/128", ("Mmax",), "moment"),
-        ])
-    if (n == 2 and all(k in SIMPLE for k in kinds) and abs(model.spans[0] - model.spans[1]) <= 1e-9 * L
-            and w and not points):
-        l1 = model.spans[0]
-        return ("continuous beam, two equal spans, uniform load on both (case 29)", {"w": w, "L": l1}, [
-            ("R_hb", "0.375·w·L (end supports)", "0.375*{w}*{L}", ("R", 0), "force"),
-            ("R_hb2", "1.25·w·L (centre support)", "1.25*{w}*{L}", ("R", 1), "force"),
-            ("M_hb", "w·L²/8 (hogging, centre support)", "{w}*{L}^2/8", ("Mneg",), "moment"),
-        ])
-    if n == 2 and not w and len(points) == 1:
-        if kinds[0] in SIMPLE and kinds[1] in SIMPLE and kinds[2] == "free":
-            l, a, P = model.spans[0], model.spans[1], points[0]
-            if abs(P.x - L) <= 1e-9 * L:
-                return ("beam overhanging one support, point load at the end of the overhang (case 26)",
-                        {"P": P.P, "L": l, "a": a, "EI": EI}, [
-                    ("R_hb", "P·(L + a)/L (support next to the overhang)", "{P}*({L} + {a})/{L}", ("R", 1),
-                     "force"),
-                    ("M_hb", "P·a (hogging, at that support)", "{P}*{a}", ("Mabs",), "moment"),
-                    ("delta_hb", "P·a²·(L + a)/(3·EI) at the free end", "{P}*{a}^2*({L} + {a})/(3*{EI})",
-                     ("delta_at", L), "defl"),
-                ])
+    for case in CASES:
+        found = globals()[case["match"]](model, kinds, w, points, model.EI[0])
+        if found:
+            return case, found[0], found[1]
     return None
 
 
-def _solver_value(cr, key):
-    if key[0] == "R":
-        return cr.sol.reactions[key[1]]
-    if key[0] == "Mmax":
+_SOLVER_KEY = re.compile(r"(?:R\[(\w+)\]|M_max|-M_min|\|M\||\|delta\||delta\(x=(\w+)\))\Z")
+
+
+def solver_value(cr, key: str, values: dict, supports: dict) -> float:
+    """The solver's value named by a check's `solver` key (see handbook.toml)."""
+    m = _SOLVER_KEY.match(key)
+    if not m:
+        raise KeyError(key)
+    if key.startswith("R["):
+        i = m.group(1)
+        return float(cr.sol.reactions[supports[i] if i in supports else int(i)])
+    if key == "M_max":
         return cr.M_max.value
-    if key[0] == "Mneg":
-        return cr.M_min.value
-    if key[0] == "Mabs":
+    if key == "-M_min":
+        return -cr.M_min.value
+    if key == "|M|":
         return max(abs(cr.M_max.value), abs(cr.M_min.value))
-    if key[0] == "dmax":
+    if key == "|delta|":
         return abs(cr.d_max.value)
-    if key[0] == "delta_at":
-        return float(cr.sol.at("delta", key[1], side="left")[0])
-    raise KeyError(key)
+    at = m.group(2)
+    x = cr.sol.model.length if at == "end" else values[at]
+    return float(cr.sol.at("delta", x, side="left")[0])
 
 
 def cross_check(work, setup, cr, lit, many: bool):
     found = cases(setup.model, setup.kinds, cr.loads)
     if not found:
         return
-    title, values, rows = found
+    case, values, supports = found
     tag = cr.combo.tag
     label = f" ({cr.combo.name})" if many else ""
     kinds_of = {"w": "line", "P": "force", "L": "length", "a": "length", "b": "length", "EI": "EI"}
     subs = {k: lit(v, kinds_of[k]) for k, v in values.items()}
-    work.note(f"Cross-check{label}: this is a standard case — {title}, {SOURCE}.", kind="method")
-    for name, symbolic, template, key, what in rows:
-        unit = lit.units[what]
-        n = f"{name}{tag}"
-        sub = template
-        for k, v in subs.items():
-            # every literal carries a unit: parenthesise so a power applies to the whole quantity
-            sub = sub.replace("{" + k + "}", v if v.startswith("(") else f"({v})")
-        work.calc(n, sub, unit=unit, desc=f"handbook: {symbolic}")
-        solver = _solver_value(cr, key)
-        if key[0] == "Mneg":
-            solver = -solver
+    work.note(f"Cross-check{label}: this is a standard case — {case['title']}, {SOURCE}.", kind="method")
+    for check in case["checks"]:
+        what = check["unit"]
+        if what == "defl" and not setup.stiff:
+            continue
+        n = f"{check['name']}{tag}"
+        text = describe(check)
+        work.calc(n, substitute(check["formula"], subs), unit=lit.units[what], desc=f"handbook: {text}")
+        solver = solver_value(cr, check["solver"], values, supports)
         work.check(f"abs({n} - {lit(solver, what)}) <= 1e-4*abs({n})",
-                   desc=f"the stiffness solution ({lit(solver, what)}) agrees with {symbolic}")
+                   desc=f"the stiffness solution ({lit(solver, what)}) agrees with {text}")

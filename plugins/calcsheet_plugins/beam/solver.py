@@ -18,12 +18,15 @@ V = dM/dx (the sum of upward forces to the left); δ is downward positive and
 """
 from __future__ import annotations
 
+import bisect
 import math
 from dataclasses import dataclass, field
 
 import numpy as np
 
-SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided")
+from . import kinds as _kinds
+
+SUPPORT_KINDS = ("pinned", "roller", "fixed", "free", "hinge", "guided", "spring")
 HOLDS_DEFLECTION = {"pinned", "roller", "fixed"}
 HOLDS_ROTATION = {"fixed", "guided"}
 
@@ -36,41 +39,8 @@ class BeamInputError(ValueError):
         self.param = param
 
 
-@dataclass(frozen=True)
-class PointLoad:
-    x: float
-    P: float  # downward
-    case: str = ""
-
-
-@dataclass(frozen=True)
-class MomentLoad:
-    x: float
-    M: float  # clockwise
-    case: str = ""
-
-
-@dataclass(frozen=True)
-class LineLoad:
-    x1: float
-    x2: float
-    w1: float  # downward intensity at x1
-    w2: float  # downward intensity at x2
-    case: str = ""
-
-    @property
-    def total(self) -> float:
-        return 0.5 * (self.w1 + self.w2) * (self.x2 - self.x1)
-
-    @property
-    def centroid(self) -> float:
-        a, b, L = self.w1, self.w2, self.x2 - self.x1
-        if abs(a + b) < 1e-300:
-            return 0.5 * (self.x1 + self.x2)
-        return self.x1 + L * (a + 2 * b) / (3 * (a + b))
-
-
-Load = PointLoad | MomentLoad | LineLoad
+Load = _kinds.Load
+PointLoad, MomentLoad, LineLoad = _kinds.PointLoad, _kinds.MomentLoad, _kinds.LineLoad
 
 
 @dataclass
@@ -78,6 +48,8 @@ class Model:
     spans: list[float]
     supports: list[str]
     EI: list[float]  # one per span
+    springs: dict = field(default_factory=dict)  # node -> (k N/m, k_theta N·m/rad): elastic supports
+    settlement: dict = field(default_factory=dict)  # node -> prescribed downward displacement, m
 
     def __post_init__(self):
         self.spans = [float(s) for s in self.spans]
@@ -113,6 +85,27 @@ def validate_model(m: Model) -> None:
             raise BeamInputError(f"support {i} is {k!r}; use one of {', '.join(SUPPORT_KINDS)}", "supports")
     if m.supports[0] == "hinge" or m.supports[-1] == "hinge":
         raise BeamInputError("a hinge at an end of the beam releases nothing; use \"free\" or a support", "supports")
+    for i, (k, kt) in m.springs.items():
+        if not (0 <= i < len(m.supports)):
+            raise BeamInputError(f"a spring is at support {i + 1}, but the beam has {len(m.supports)}", "springs")
+        if not (np.isfinite(k) and np.isfinite(kt)) or k < 0 or kt < 0 or (k == 0 and kt == 0):
+            raise BeamInputError(f"the spring at support {i + 1} needs a stiffness greater than zero", "springs")
+        kind = m.supports[i]
+        if k and kind in HOLDS_DEFLECTION:
+            raise BeamInputError(f"support {i + 1} is {kind}: it already holds the beam up; make it \"spring\" "
+                                 f"for a translational spring", "springs")
+        if kt and kind in HOLDS_ROTATION:
+            raise BeamInputError(f"support {i + 1} is {kind}: it already holds the rotation; a rotational spring "
+                                 f"needs a support free to rotate (pinned, roller, spring)", "springs")
+        if kind == "hinge":
+            raise BeamInputError(f"support {i + 1} is a hinge; put the spring on a support", "springs")
+    for i, v in m.settlement.items():
+        if not (0 <= i < len(m.supports)) or m.supports[i] not in HOLDS_DEFLECTION:
+            raise BeamInputError(f"a settlement needs a support that holds the beam up (pinned, roller or fixed); "
+                                 f"support {i + 1} is {m.supports[i] if 0 <= i < len(m.supports) else 'missing'}",
+                                 "settlement")
+        if not np.isfinite(v):
+            raise BeamInputError(f"the settlement at support {i + 1} is not a number", "settlement")
     if len(m.EI) != len(m.spans):
         raise BeamInputError(f"give EI for each of the {len(m.spans)} spans", "I")
     for i, e in enumerate(m.EI, 1):
@@ -122,18 +115,8 @@ def validate_model(m: Model) -> None:
 
 def validate_loads(m: Model, loads) -> None:
     L = m.length
-    tol = 1e-9 * L
     for ld in loads:
-        if isinstance(ld, (PointLoad, MomentLoad)):
-            if not (-tol <= ld.x <= L + tol):
-                raise BeamInputError(f"a load at x = {ld.x:g} m lies outside the beam (0 to {L:g} m)", "loads")
-        else:
-            if ld.x2 < ld.x1:
-                raise BeamInputError(f"a line load ends (x = {ld.x2:g} m) before it starts (x = {ld.x1:g} m)", "loads")
-            if ld.x1 < -tol or ld.x2 > L + tol:
-                raise BeamInputError(
-                    f"a line load from x = {ld.x1:g} m to {ld.x2:g} m runs outside the beam (0 to {L:g} m)", "loads"
-                )
+        ld.validate(L, 1e-9 * L, BeamInputError)
 
 
 # ---------------------------------------------------------------- degrees of freedom
@@ -324,10 +307,7 @@ def breakpoints(m: Model, loads) -> np.ndarray:
     X = m.nodes
     pts = [X]
     for ld in loads:
-        if isinstance(ld, LineLoad):
-            pts.append([ld.x1, ld.x2])
-        else:
-            pts.append([ld.x])
+        pts.append(ld.breakpoints())
     b = np.unique(np.clip(np.concatenate([np.atleast_1d(np.asarray(p, float)) for p in pts]), 0.0, m.length))
     # merge points closer than a hair (a load placed "at" a support by arithmetic)
     keep = np.concatenate([[True], np.diff(b) > 1e-9 * m.length])
@@ -344,7 +324,8 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
     validate_loads(m, loads)
     if grid is None:
         grid = breakpoints(m, loads)
-    loads = [_snap(ld, grid, 1e-9 * m.length) for ld in loads]
+    grid_list = grid.tolist()
+    loads = [_snap(ld, grid_list, 1e-9 * m.length) for ld in loads]
     X = m.nodes
     L_tot = m.length
     dofs = number_dofs(m)
@@ -352,20 +333,17 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
 
     # loads per element, in local coordinates
     per_el: list[list] = [[] for _ in range(nspan)]
+    tol_el = 1e-12 * L_tot
+    Xl = X.tolist()
     for ld in loads:
-        if isinstance(ld, LineLoad):
-            for e in range(nspan):
-                a, b = max(ld.x1, X[e]), min(ld.x2, X[e + 1])
-                if b - a > 1e-12 * L_tot:
-                    slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1) if ld.x2 > ld.x1 else 0.0
-                    wa = ld.w1 + slope * (a - ld.x1)
-                    wb = ld.w1 + slope * (b - ld.x1)
-                    per_el[e].append(("w", a - X[e], b - X[e], wa, wb))
-        else:
-            x = min(max(ld.x, 0.0), L_tot)
-            e = int(np.clip(np.searchsorted(X, x, side="right") - 1, 0, nspan - 1))
-            kind = "P" if isinstance(ld, PointLoad) else "M"
-            per_el[e].append((kind, x - X[e], 0.0, ld.P if kind == "P" else ld.M, 0.0))
+        bp = ld.breakpoints()
+        if not bp:
+            continue
+        # only the spans the load's extent touches (a point load: one or two)
+        lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)
+        hi = min(max(bisect.bisect_left(Xl, max(bp)), 0), nspan - 1)
+        for e in range(lo, hi + 1):
+            per_el[e].extend(_on_span(ld, Xl, e, nspan, tol_el, L_tot))
 
     # assemble (full system, banded lower storage)
     n = dofs.n
@@ -385,6 +363,20 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
         el_k.append(k)
         el_f.append(f)
 
+    for i, (k, kt) in m.springs.items():
+        band[dofs.w[i], 0] += k
+        band[dofs.rl[i], 0] += kt
+    # prescribed support settlement: move the restrained dof, and its stiffness loads the free dofs
+    u = np.zeros(dofs.n)
+    for i, s_down in m.settlement.items():
+        r = dofs.w[i]
+        u[r] = -s_down  # y up
+        for dd in range(1, HALF_BAND + 1):
+            if r + dd < dofs.n:
+                F[r + dd] -= band[r + dd, dd] * u[r]
+            if r - dd >= 0:
+                F[r - dd] -= band[r, dd] * u[r]
+
     free = np.flatnonzero(~dofs.restrained)
     pos = -np.ones(n, dtype=int)
     pos[free] = np.arange(len(free))
@@ -394,7 +386,6 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
             gj = gi - dd
             if gj >= 0 and pos[gj] >= 0:
                 rb[pos[gi], pos[gi] - pos[gj]] = band[gi, dd]
-    u = np.zeros(n)
     if len(free):
         scale = np.maximum(rb[:, 0], 1e-300)
         try:
@@ -411,8 +402,13 @@ def solve(m: Model, loads, grid: np.ndarray | None = None) -> Solution:
         R[d] += fe
         ends.append((fe[0], -fe[1], -fe[2], fe[3]))  # V(0+), M(0+), V(L-), M(L-) in beam signs
     # reaction = what the supports must supply: K u - F at restrained dofs plus loads at nodes
-    reactions = np.array([R[dofs.w[i]] if dofs.restrained[dofs.w[i]] else 0.0 for i in range(nspan + 1)])
-    rmom = np.array([R[dofs.rl[i]] if dofs.restrained[dofs.rl[i]] else 0.0 for i in range(nspan + 1)])
+    # (at a spring the element forces balance the spring force, so the same sum is the spring's reaction)
+    sprung_w = {i for i, (k, _) in m.springs.items() if k}
+    sprung_r = {i for i, (_, kt) in m.springs.items() if kt}
+    reactions = np.array([R[dofs.w[i]] if dofs.restrained[dofs.w[i]] or i in sprung_w else 0.0
+                          for i in range(nspan + 1)])
+    rmom = np.array([R[dofs.rl[i]] if dofs.restrained[dofs.rl[i]] or i in sprung_r else 0.0
+                     for i in range(nspan + 1)])
     # R above already includes equivalent loads of point loads at nodes through fe; a point load
     # exactly at a node sits inside one element's load vector, so R is correct as assembled.
 
@@ -435,13 +431,30 @@ def _snap_x(x: float, grid: np.ndarray, tol: float) -> float:
     return float(grid[j]) if abs(grid[j] - x) <= tol else x
 
 
-def _snap(ld, grid: np.ndarray, tol: float):
+def _snap(ld, grid: list, tol: float):
     """Put a load that sits a hair from a breakpoint exactly on it, so its jump lands on a piece start."""
-    if isinstance(ld, PointLoad):
-        return PointLoad(_snap_x(ld.x, grid, tol), ld.P, ld.case)
-    if isinstance(ld, MomentLoad):
-        return MomentLoad(_snap_x(ld.x, grid, tol), ld.M, ld.case)
-    return LineLoad(_snap_x(ld.x1, grid, tol), _snap_x(ld.x2, grid, tol), ld.w1, ld.w2, ld.case)
+    def snap(x: float) -> float:
+        j = bisect.bisect_left(grid, x)
+        for k in (j - 1, j):
+            if 0 <= k < len(grid) and abs(grid[k] - x) <= tol:
+                return grid[k]
+        return x
+    return ld.snapped(snap)
+
+
+def _on_span(ld, X, e: int, nspan: int, tol: float, L_tot: float) -> list:
+    """The load's parts on span e (local coordinates). A point force or couple belongs to exactly one span:
+    the one starting at or before it (the last span for one at the right end)."""
+    out = []
+    for part in ld.parts(X[e], X[e + 1], tol):
+        if part[0] == "w":
+            out.append(part)
+            continue
+        x = min(max(X[e] + part[1], 0.0), L_tot)
+        home = min(max(bisect.bisect_right(X, x) - 1, 0), nspan - 1)
+        if home == e:
+            out.append((part[0], x - X[e], 0.0, part[3], 0.0))
+    return out
 
 
 def _mechanism_message(m: Model, dofs: Dofs, free: np.ndarray, rb: np.ndarray) -> str:
@@ -526,10 +539,14 @@ def _integrate(m: Model, per_el, ends, u, dofs: Dofs, grid: np.ndarray) -> Piece
 # ---------------------------------------------------------------- extrema and sampling
 
 
+TIE = 1e-9  # two extremes within this relative difference are the same value
+
+
 @dataclass
 class Extreme:
     value: float
     x: float
+    others: list = field(default_factory=list)  # other positions where the same value occurs (ties)
 
 
 def piece_extrema(C: np.ndarray, start: np.ndarray, length: np.ndarray, samples: int = 12):
@@ -577,12 +594,25 @@ def piece_extrema(C: np.ndarray, start: np.ndarray, length: np.ndarray, samples:
 
 
 def extremes(sol: Solution, what: str, spans=None) -> tuple[Extreme, Extreme]:
-    """(max, min) of V, M, theta or delta over the beam (or over given span indices)."""
+    """(max, min) of V, M, theta or delta over the beam (or over given span indices).
+
+    Values within a relative 1e-9 of each other are ties: the leftmost position is reported and the others
+    are listed (positions closer than 1e-9 of the beam's length are one place).
+    """
     p = sol.pieces
     sel = np.ones(len(p.start), bool) if spans is None else np.isin(p.span, list(spans))
     mx, xmx, mn, xmn = piece_extrema(getattr(p, what)[sel], p.start[sel], p.length[sel])
-    i, j = int(np.argmax(mx)), int(np.argmin(mn))
-    return Extreme(float(mx[i]), float(xmx[i])), Extreme(float(mn[j]), float(xmn[j]))
+    return _pick(mx, xmx, 1, sol.model.length), _pick(mn, xmn, -1, sol.model.length)
+
+
+def _pick(vals: np.ndarray, xs: np.ndarray, sign: int, L: float) -> Extreme:
+    i = int(np.argmax(sign * vals))
+    best = float(vals[i])
+    near = np.flatnonzero(np.abs(vals - best) <= TIE * max(abs(best), 1e-300))
+    places = np.sort(xs[near])
+    keep = np.concatenate([[True], np.diff(places) > 1e-9 * L]) if len(places) else places
+    places = places[keep]
+    return Extreme(best, float(places[0]), [float(x) for x in places[1:]])
 
 
 def zero_shear_points(sol: Solution) -> list[float]:
@@ -623,13 +653,4 @@ def sample(sol: Solution, per_span: int = 200):
 
 def combine(model: Model, case_loads: dict[str, list], factors: dict[str, float]) -> list:
     """The loads of a combination: each case's loads scaled by its factor."""
-    out = []
-    for case, f in factors.items():
-        for ld in case_loads.get(case, []):
-            if isinstance(ld, PointLoad):
-                out.append(PointLoad(ld.x, f * ld.P, ld.case))
-            elif isinstance(ld, MomentLoad):
-                out.append(MomentLoad(ld.x, f * ld.M, ld.case))
-            else:
-                out.append(LineLoad(ld.x1, ld.x2, f * ld.w1, f * ld.w2, ld.case))
-    return out
+    return [ld.scaled(f) for case, f in factors.items() for ld in case_loads.get(case, [])]

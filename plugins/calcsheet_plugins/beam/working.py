@@ -10,9 +10,9 @@ from calcsheet.units import Quantity
 
 from . import handbook
 from .model import _SI_OF, letters
-from .solver import LineLoad, MomentLoad, PointLoad
 
 MAX_TERMS = 12
+MANY_COMBOS = 8  # beyond this many combinations, equilibrium is tabulated and the worst one checked
 
 
 def num(v: float) -> str:
@@ -57,22 +57,16 @@ def _sanitize_case(c: str) -> str:
 
 def load_terms(ld, x_ref: float, lit: Lit):
     """(force term, moment-about-x_ref term) for one load, clockwise moments positive."""
-    if isinstance(ld, PointLoad):
-        return lit(ld.P, "force"), f"{lit(ld.P, 'force')}*{lit(ld.x - x_ref, 'length')}"
-    if isinstance(ld, MomentLoad):
-        return None, lit(ld.M, "moment")
-    length = ld.x2 - ld.x1
-    if abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), abs(ld.w2), 1e-300):
-        W = f"{lit(ld.w1, 'line')}*{lit(length, 'length')}"
-    else:
-        W = f"0.5*({lit(ld.w1, 'line')} + {lit(ld.w2, 'line')})*{lit(length, 'length')}"
-    return W, f"{W}*{lit(ld.centroid - x_ref, 'length')}"
+    return ld.terms(x_ref, lit)
 
 
 def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment: bool = True) -> dict:
     """Per case: total downward load W_c and its moment about the reference support M_ref_c."""
     names = {}
+    used = setup.used_cases()
     for case, loads in setup.case_loads().items():
+        if case not in used:
+            continue
         tag = _sanitize_case(case)
         label = f"case {case}" if case else "the loads"
         W_name, M_name = f"W{tag}", f"M_{ref_letter}{tag}"
@@ -85,29 +79,20 @@ def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment:
                          desc=f"moment of {label} about {ref_letter}, clockwise positive",
                          note=f"Σ W·a over the {len(loads)} loads in the loads table")
         else:
-            terms = [load_terms(ld, x_ref, lit) for ld in loads]
+            terms = [t for t in (load_terms(ld, x_ref, lit) for ld in loads) if t[1] is not None]
             Wt = [t[0] for t in terms if t[0]]
             work.calc(W_name, " + ".join(Wt) if Wt else f"0 {lit.units['force']}", unit=lit.units["force"],
                       desc=f"total downward load of {label}")
             if with_moment:
-                work.calc(M_name, " + ".join(t[1] for t in terms), unit=lit.units["moment"],
+                work.calc(M_name, " + ".join(t[1] for t in terms) or f"0 {lit.units['moment']}",
+                          unit=lit.units["moment"],
                           desc=f"moment of {label} about {ref_letter} (load × lever arm, clockwise positive)")
         names[case] = (W_name, M_name)
     return names
 
 
 def _resultants(loads, x_ref):
-    W = Mo = 0.0
-    for ld in loads:
-        if isinstance(ld, PointLoad):
-            W += ld.P
-            Mo += ld.P * (ld.x - x_ref)
-        elif isinstance(ld, MomentLoad):
-            Mo += ld.M
-        else:
-            W += ld.total
-            Mo += ld.total * (ld.centroid - x_ref)
-    return W, Mo
+    return sum(ld.force() for ld in loads), sum(ld.moment_about(x_ref) for ld in loads)
 
 
 def combo_sum(factors: dict, names: dict, which: int) -> str:
@@ -152,7 +137,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
     if cr.M_max.value <= 0:
         work.note(f"No sagging moment{label}: the largest moment is hogging, at a support.")
         return
-    at_load = any(abs(x0 - ld.x) < 1e-9 * setup.model.length for ld in cr.loads if isinstance(ld, (PointLoad, MomentLoad)))
+    at_load = any(abs(x0 - ld.start()) < 1e-9 * setup.model.length for ld in cr.loads if ld.glyph != "line")
     at_node = any(abs(x0 - xn) < 1e-9 * setup.model.length for xn in X)
     how = ("the shear changes sign across the load there" if at_load or at_node
            else "the shear V(x) = 0 there (the root of V on that stretch, found exactly)")
@@ -162,8 +147,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
     tol = 1e-9 * setup.model.length
     # forces to the left of x₀; a clockwise couple exactly at x₀ counts too (the maximum is the value just
     # after its upward jump), an anticlockwise one does not (the maximum is the value just before it)
-    left = [ld for ld in cr.loads if (ld.x if not isinstance(ld, LineLoad) else ld.x1) < x0 - tol
-            or isinstance(ld, MomentLoad) and abs(ld.x - x0) <= tol and ld.M > 0]
+    left = [t for t in (ld.left_term(x0, xn, lit, tol) for ld in cr.loads) if t]
     if len(left) > MAX_TERMS:
         work.let(f"M_0{tag}", lit.q(cr.M_max.value, "moment"), unit=lit.units["moment"],
                  desc=f"largest sagging moment{label}", note="area of the shear diagram from the left end to x₀")
@@ -173,18 +157,7 @@ def max_moment_simple(work, setup, cr, iA, iB, RA, RB, lit: Lit, label: str):
         terms.append(f"{RA}*({xn} - {lit(X[iA], 'length')})" if X[iA] else f"{RA}*{xn}")
     if X[iB] < x0:
         terms.append(f"+ {RB}*({xn} - {lit(X[iB], 'length')})")
-    for ld in left:
-        if isinstance(ld, PointLoad):
-            terms.append(f"- {lit(ld.P, 'force')}*({xn} - {lit(ld.x, 'length')})")
-        elif isinstance(ld, MomentLoad):
-            terms.append(f"+ {lit(ld.M, 'moment')}")
-        else:
-            b = min(ld.x2, x0)
-            slope = (ld.w2 - ld.w1) / (ld.x2 - ld.x1)
-            wb = ld.w1 + slope * (b - ld.x1)
-            part = LineLoad(ld.x1, b, ld.w1, wb)
-            W, _ = load_terms(part, 0.0, lit)
-            terms.append(f"- {W}*({xn} - {lit(part.centroid, 'length')})")
+    terms.extend(left)
     formula = " ".join(terms).lstrip("+ ")
     work.calc(f"M_0{tag}", formula, unit=lit.units["moment"],
               desc=f"largest sagging moment{label}: moments about x₀ of the forces to its left")
@@ -261,7 +234,7 @@ def reactions_table(work, setup, res, lit):
     X = setup.model.nodes
     Ls = letters(len(X))
     u = lit.units
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided")]
+    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
     if len(sup) > 40:
         return
     cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
@@ -286,6 +259,9 @@ def equilibrium_check(work, setup, res, lit: Lit):
     A = Ls[iA]
     work.note(f"Equilibrium of the result: the reactions in the table must balance the factored loads, in force "
               f"and in moment about {A}.", kind="method")
+    if len(res.combos) > MANY_COMBOS:
+        _equilibrium_table(work, setup, res, lit, X, iA, A)
+        return
     names = case_sums(work, setup, X[iA], A, lit)
     fu, mu = lit.units["force"], lit.units["moment"]
     for cr in res.combos:
@@ -305,14 +281,52 @@ def equilibrium_check(work, setup, res, lit: Lit):
                    desc=f"ΣM about {A} = 0{label}")
 
 
+def _equilibrium_table(work, setup, res, lit: Lit, X, iA: int, A: str):
+    """Many combinations: ΣF_y and ΣM for each in one table, and the largest residual checked in the working."""
+    fu, mu = lit.units["force"], lit.units["moment"]
+    case_loads = setup.case_loads()
+    rows, worst = [], None
+    for cr in res.combos:
+        W = sum(f * ld.force() for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        MW = sum(f * ld.moment_about(X[iA]) for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        R = float(cr.sol.reactions.sum())
+        MR = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
+        rows.append([cr.combo.name, lit.q(W, "force"), lit.q(R, "force"), lit.q(MW, "moment"), lit.q(MR, "moment")])
+        rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))
+        if worst is None or rel > worst[0]:
+            worst = (rel, cr, W, R, MW, MR)
+    work.table(f"Equilibrium by combination (factored loads from the loads table; moments about {A}, "
+               f"clockwise positive)", ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"], rows,
+               units=[None, fu, fu, mu, mu])
+    _, cr, W, R, MW, MR = worst
+    work.let("W_tot", lit.q(W, "force"), unit=fu, desc=f"total factored load ({cr.combo.name}, the largest "
+                                                          f"residual in the table)", note="Σ factor × load")
+    work.let("R_sum", lit.q(R, "force"), unit=fu, desc=f"sum of the reactions ({cr.combo.name})",
+             note="ΣR over the reactions")
+    work.let("M_W", lit.q(MW, "moment"), unit=mu, desc=f"moment of the factored loads about {A} ({cr.combo.name})",
+             note="Σ factor × load × lever arm")
+    work.let("M_R", lit.q(MR, "moment"), unit=mu, desc=f"moment of the reactions about {A} ({cr.combo.name})",
+             note="Σ R·a + support couples")
+    work.check(f"abs(R_sum - W_tot) <= 1e-6*(abs(W_tot) + 1 {fu})", desc="ΣF_y = 0 (every combination in the table)")
+    work.check(f"abs(M_R - M_W) <= 1e-6*(abs(M_W) + 1 {mu})", desc=f"ΣM about {A} = 0 (every combination)")
+
+
 def write(work, setup, res, lit: Lit):
     kinds = setup.kinds
     vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
     rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
     hinges = sum(1 for k in kinds if k == "hinge")
-    r = len(vert) + len(rot)
+    elastic = setup.model.springs or setup.model.settlement
+    r = len(vert) + len(rot) + sum((k > 0) + (kt > 0) for k, kt in setup.model.springs.values())
     degree = r - 2 - hinges
-    if hinges == 0 and not rot and len(vert) == 2:
+    if elastic:
+        work.note("Elastic supports and prescribed settlements: a spring's force is its stiffness times the "
+                  "movement of its support, and a settled support moves by the amount given; both enter the "
+                  "stiffness matrix directly, so E and I govern the forces as well as the deflections.",
+                  kind="method")
+        indeterminate(work, setup, res, max(degree, 1), lit, hinges)
+        equilibrium_check(work, setup, res, lit)
+    elif hinges == 0 and not rot and len(vert) == 2:
         simple_span(work, setup, res, vert[0], vert[1], lit)
     elif hinges == 0 and len(vert) == 1 and rot == vert and vert[0] in (0, len(kinds) - 1):
         cantilever(work, setup, res, vert[0], lit)

@@ -34,10 +34,38 @@ def _from_library(work, category: str, key: str) -> dict:
 
 
 @namespace.function("steel", params=[Param("grade", kind="text", choices=library.grades("steel"),
-                                           doc="steel grade")], fields=FIELDS, returns="material")
-def steel(work, grade):
-    """A structural steel grade from the library."""
-    return _from_library(work, "steel", grade)
+                                           doc="steel grade"),
+                                     Param("t", "[length]", "nominal thickness of the thickest part (EN grades: f_y and "
+                                                            "f_u by the product standard's thickness bands)",
+                                           default=None)],
+                    fields=FIELDS, returns="material")
+def steel(work, grade, t=None):
+    """A structural steel grade from the library; for EN grades, optionally at a nominal thickness."""
+    out = _from_library(work, "steel", grade)
+    if t is None:
+        return out
+    entry = library.entry("steel", grade)
+    bands = entry.get("bands")
+    if bands is None:
+        work.fail(f"{entry['name']}: the library has no thickness bands for this grade; omit t", param="t")
+    mm = t.m_as("mm")
+    if mm <= 0:
+        work.fail("t must be greater than zero", param="t")
+    if mm > bands["t_max"][-1]:
+        work.fail(f"t = {mm:g} mm is thicker than the last band of {bands['source'].split(' —')[0]} "
+                  f"({bands['t_max'][-1]} mm)", param="t")
+    i = next(k for k, lim in enumerate(bands["t_max"]) if mm <= lim)
+    lo = 0 if i == 0 else bands["t_max"][i - 1]
+    j = 0 if mm < bands["fu_t_max"][0] else next(k for k, lim in enumerate(bands["fu_t_max"]) if mm <= lim)
+    out["f_y"] = work.let("f_y", work.q(bands["f_y"][i], "MPa"), unit="MPa",
+                          desc=f"yield strength R_eH for {lo} < t ≤ {bands['t_max'][i]} mm (t = {mm:g} mm)",
+                          note=bands["source"])
+    out["f_u"] = work.let("f_u", work.q(bands["f_u"][j], "MPa"), unit="MPa",
+                          desc=f"tensile strength R_m at t = {mm:g} mm", note=bands["source"])
+    work.note(f"f_y and f_u taken from the product standard's thickness bands (EN 1993-1-1 3.2.1(1) a)); "
+              f"a National Annex may instead require Table 3.1 (3.2.1(1) b)).", kind="method")
+    out["name"] = f"{entry['name']}, t = {mm:g} mm"
+    return out
 
 
 @namespace.function("aluminium", params=[Param("alloy", kind="text", choices=library.grades("aluminium"),

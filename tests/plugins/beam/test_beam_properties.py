@@ -46,7 +46,7 @@ def resultants(loads):
     return F, Mo
 
 
-@settings(max_examples=40, deadline=None)
+@settings(max_examples=40, deadline=None, database=None)
 @given(data=st.data())
 def test_reactions_balance_the_loads(data):
     m = data.draw(beams())
@@ -60,7 +60,7 @@ def test_reactions_balance_the_loads(data):
     assert abs((s.reactions * X).sum() + s.reaction_moments.sum() - Mo) <= 1e-8 * scale * (1 + m.length)
 
 
-@settings(max_examples=30, deadline=None)
+@settings(max_examples=30, deadline=None, database=None)
 @given(data=st.data())
 def test_superposition(data):
     m = data.draw(beams())
@@ -78,7 +78,7 @@ def test_superposition(data):
         assert all(round(v, 9) in pts for v in xs[bad])
 
 
-@settings(max_examples=30, deadline=None)
+@settings(max_examples=30, deadline=None, database=None)
 @given(data=st.data())
 def test_maxwell_betti_reciprocity(data):
     m = data.draw(beams())
@@ -90,7 +90,7 @@ def test_maxwell_betti_reciprocity(data):
     assert abs(d21 - d12) <= 1e-8 * scale  # δ at 2 due to P at 1 = δ at 1 due to P at 2
 
 
-@settings(max_examples=30, deadline=None)
+@settings(max_examples=30, deadline=None, database=None)
 @given(data=st.data())
 def test_splitting_a_span_changes_nothing(data):
     m = data.draw(beams())

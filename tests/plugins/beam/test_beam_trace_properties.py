@@ -31,20 +31,24 @@ def beams(draw):
     supports = (["free"] if left else []) + ["pinned", "roller"] + (["free"] if right else [])
     L = left + span + right
     loads = []
+    size = 0.0  # the size of the loads: Σ|P| + Σ|C|/L + Σ|w|·length, kN
     for _ in range(draw(st.integers(1, 4))):
         kind = draw(st.sampled_from("PMw"))
         a = round(draw(st.floats(0, L - 0.5)), 3)
         b = round(draw(st.floats(a + 0.25, L)), 3)
-        loads.append(load_text(kind, a, b, round(draw(st.floats(1, 30)), 3), round(draw(st.floats(0, 30)), 3)))
+        v1, v2 = round(draw(st.floats(1, 30)), 3), round(draw(st.floats(0, 30)), 3)
+        loads.append(load_text(kind, a, b, v1, v2))
+        size += {"P": v1, "M": v1 / L, "w": max(v1, v2) * (b - a)}[kind]
     text = (f"b = beam.solve(spans=[{', '.join(f'{s} m' for s in spans)}], supports=\"{', '.join(supports)}\", "
             f"E=200 GPa, I=1e8 mm^4, loads=[{', '.join(loads)}])\n")
-    return text, supports.index("pinned"), supports.index("roller")
+    return text, supports.index("pinned"), supports.index("roller"), size * L
 
 
-@settings(max_examples=15, deadline=None)
+# database=None: a past failure is never replayed, so the test passes or fails on its own examples
+@settings(max_examples=15, deadline=None, database=None)
 @given(case=beams())
 def test_traced_equilibrium_and_max_moment_match_the_solver(case):
-    text, iA, iB = case
+    text, iA, iB, moment_scale = case
     r = calcsheet.run(HEAD + textwrap.dedent(text))
     assert not [d for d in r.diagnostics if d.severity == "error"], text
     rec = r.values["b"]
@@ -54,4 +58,7 @@ def test_traced_equilibrium_and_max_moment_match_the_solver(case):
     assert steps[f"R_{A}"].m_as("kN") == pytest.approx(rec.fields[f"R_{iA + 1}"].m_as("kN"), abs=1e-8 * scale)
     assert steps[f"R_{B}"].m_as("kN") == pytest.approx(rec.fields[f"R_{iB + 1}"].m_as("kN"), abs=1e-8 * scale)
     if "M_0" in steps:
-        assert steps["M_0"].m_as("kN*m") == pytest.approx(rec.fields["M_max"].m_as("kN*m"), rel=1e-7, abs=1e-9)
+        # the traced sum adds terms as large as the loads times the beam's length and may cancel to a small
+        # moment: its round-off is relative to those terms, not to the result
+        assert steps["M_0"].m_as("kN*m") == pytest.approx(rec.fields["M_max"].m_as("kN*m"),
+                                                           abs=1e-8 * (1 + moment_scale))

@@ -93,3 +93,29 @@ def test_unknown_grade_is_refused_with_choices():
     r = calcsheet.run("---\nproject: t\n---\nm = material.steel(grade=\"S999\")\n")
     errs = [d for d in r.diagnostics if d.severity == "error"]
     assert errs and "S355" in errs[0].message
+
+
+@pytest.mark.parametrize("grade, t_mm, f_y, f_u", [
+    # EN 10025-2:2004 Table 7 (R_eH by nominal thickness; R_m for 3 ≤ t ≤ 100 mm) — from memory
+    ("S355", 10, 355, 470), ("S355", 16, 355, 470), ("S355", 16.5, 345, 470), ("S355", 40, 345, 470),
+    ("S355", 50, 335, 470), ("S355", 120, 295, 450), ("S275", 20, 265, 410), ("S235", 70, 215, 360),
+    ("S355", 2, 355, 510),
+])
+def test_en_grades_take_strengths_by_thickness_band(grade, t_mm, f_y, f_u):
+    r = run(f'm = material.steel(grade="{grade}", t={t_mm} mm)')
+    assert r.values["m"].fields["f_y"].m_as("MPa") == f_y
+    assert r.values["m"].fields["f_u"].m_as("MPa") == f_u
+
+
+def test_thickness_outside_the_bands_or_without_bands_is_a_located_error():
+    for body in ('m = material.steel(grade="S355", t=200 mm)', 'm = material.steel(grade="A992", t=20 mm)'):
+        r = calcsheet.run("---\nproject: Material tests\n---\n" + body)
+        errs = [d for d in r.diagnostics if d.severity == "error"]
+        assert errs and errs[0].span is not None and "t" in errs[0].message
+
+
+def test_en_yield_strength_never_increases_with_thickness():
+    for grade in ("S235", "S275", "S355"):
+        fy = library.entry("steel", grade)["bands"]["f_y"]
+        assert all(a >= b for a, b in zip(fy, fy[1:])), grade
+        assert fy[0] == library.value(library.entry("steel", grade)["f_y"])[0].m_as("MPa")

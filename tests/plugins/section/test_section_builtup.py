@@ -55,11 +55,11 @@ def test_welded_girder_with_bolt_holes_in_the_bottom_flange(run):
 
 def test_timber_beam_with_a_steel_plate_below_transformed(run):
     r = run("""
-        timber = section.part(shape=section.rectangle(b=100 mm, h=200 mm), x=0 mm, y=10 mm, E=10 GPa,
+        wood = section.part(shape=section.rectangle(b=100 mm, h=200 mm), x=0 mm, y=10 mm, E=10 GPa,
                               rho=500 kg/m^3, name="timber")
         steel = section.part(shape=section.rectangle(b=100 mm, h=10 mm), x=0 mm, y=0 mm, E=200 GPa,
                              rho=7850 kg/m^3, name="steel plate")
-        s = section.built_up(parts=[timber, steel], E_ref=10 GPa)
+        s = section.built_up(parts=[wood, steel], E_ref=10 GPa)
     """)
     assert not [d for d in r.diagnostics if d.severity == "error"], r.diagnostics
     s = r.values["s"].fields

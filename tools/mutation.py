@@ -1,0 +1,565 @@
+"""Mutation testing of the engineering modules: plant one small bug at a time, see whether a test fails.
+
+Why our own script: the plugins live outside the ``calcsheet`` package (``plugins/``) and several modules
+keep their formulas as strings in sheet syntax (``work.calc("r_x", "sqrt(I_x/A)")``), which a generic tool
+would not mutate. The mutants are curated, AST-based and one at a time:
+
+* comparisons ``<``/``<=``, ``>``/``>=``, ``==``/``!=``, ``is``/``is not``, ``in``/``not in`` swapped;
+* arithmetic ``+``/``-``, ``*``/``/``, ``**`` → ``*``, ``//`` → ``/`` (also in ``+=`` and friends);
+* ``and``/``or`` swapped, ``not`` dropped, a unary minus dropped, ``True``/``False`` swapped;
+* a number changed (an integer n → n + 1; a float x → 2x, 0.0 → 1.0); tolerances (|x| < 1e-6) are left
+  alone, their mutants being equivalent in all but contrived cases;
+* inside a formula string (a call argument that parses as a sheet expression): each operator swapped as
+  above, each number changed, one at a time.
+
+Text that is only a message (``raise``, ``work.fail/note/warn``, ``desc=``/``note=``/``hint=`` arguments,
+f-strings, docstrings) is not mutated; neither is a line marked ``# pragma: no mutate``.
+
+Every mutant runs in a scratch copy of the project (so the working tree is never touched), with the tests
+that mirror its module, stopping at the first failure, under a per-mutant time limit (a mutant that runs
+past it counts as killed, reported apart). Golden rendering tests are left out on purpose: a regenerated
+golden would accept the bug, so a mutant must be killed by a test that names its source.
+
+    python tools/mutation.py                          # every target (slow: hours on two cores)
+    python tools/mutation.py column material          # some targets
+    python tools/mutation.py section --limit 80       # an evenly spread sample of 80 mutants
+    python tools/mutation.py --list evaluator         # list the mutants without running them
+
+Prints each result, the kill rate per target and overall, and the surviving mutants; writes them all to
+``--report`` (JSON) as well.
+"""
+from __future__ import annotations
+
+import argparse
+import ast
+import contextlib
+import copy
+import json
+import os
+import re
+import shutil
+import signal
+import subprocess
+import sys
+import tempfile
+import time
+from dataclasses import asdict, dataclass
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parents[1]
+P = "plugins/calcsheet_plugins"
+
+# target -> (source files [, only these functions], tests that mirror them)
+TARGETS: dict[str, dict] = {
+    "section": {
+        "sources": [f"{P}/section/{m}.py" for m in ("shapes", "properties", "polygon", "report", "builtup",
+                                                     "functions")],
+        "tests": ["tests/plugins/section", "tests/plugins/test_traced_fields.py", "tests/plugins/test_defaults.py",
+                  "tests/test_golden_values.py"],
+        "k": "not column_ and not material_ and not concrete and not custom",
+    },
+    "beam": {
+        "sources": [f"{P}/beam/{m}.py" for m in ("solver", "analysis", "handbook", "loads", "model", "combos",
+                                                  "results", "working")],
+        "tests": ["tests/plugins/beam", "tests/test_golden_values.py"],
+    },
+    "column": {"sources": [f"{P}/column/buckling.py"],
+               "tests": ["tests/plugins/column", "tests/plugins/test_traced_fields.py",
+                         "tests/plugins/test_defaults.py", "tests/test_golden_values.py"],
+               "k": "column or mezzanine"},
+    "material": {"sources": [f"{P}/material/functions.py", f"{P}/material/library.py"],
+                 "tests": ["tests/plugins/material", "tests/plugins/test_traced_fields.py",
+                           "tests/plugins/test_defaults.py", "tests/test_golden_values.py"],
+                 "k": "material or concrete or custom or golden"},
+    "evaluator": {
+        # the evaluator's check and unit logic: its own walk, the rules table it shares with the checker, and the
+        # plugin host's argument checks
+        "sources": ["calcsheet/evaluator.py", "calcsheet/builtins.py", "calcsheet/plugin_host.py"],
+        "functions": {
+            "calcsheet/evaluator.py": ["_finite", "_eval_BinOp", "_eval_Call", "_eval_if", "evaluate_definition",
+                                       "evaluate_check"],
+            "calcsheet/plugin_host.py": ["coerce_argument", "_check_dim", "make_record"],
+        },
+        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator.py", "tests/test_builtins.py",
+                  "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py"],
+    },
+    "units": {"sources": ["calcsheet/units.py"],
+              "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
+}
+# Each target's tests run in the order listed (the tests that mirror the module first), stopping at the first
+# failure; "k" narrows the cross-cutting files to the tests about that target (pytest -k, matched on test and
+# module names). Golden rendering tests (tests/test_sheets.py) are never used to kill a mutant.
+
+# Survivors judged equivalent (no input can tell them apart from the original) or cosmetic (they move a line of a
+# figure, no value), keyed by the source line's text and the mutation, with the reason. They are listed apart in
+# the report and left out of the adjusted rate.
+EQUIVALENT = {
+    ("if slenderness >= transition_slenderness(E, F_y):", ">= → >"):
+        "at KL/r = C_c exactly Euler and Johnson both give F_y/2 (the parabola is tangent there)",
+    ("if lam >= cc:", ">= → >"):
+        "same tangent point: the two formulas agree at KL/r = C_c; only a label at an exact float tie differs",
+    ('elastic_ok = se.m_as("Pa") <= sc["f_pl"].m_as("Pa")', "<= → <"):
+        "changes only the wording of a note at an exact float tie σ_e = f_pl",
+    ('word = "add" if sign > 0 else "subtract"', "> → >="): "sign is +1 or −1, never 0",
+    ('work.calc("G", "E/(2*(1 + nu))", unit="GPa" if E.m_as("GPa") > 0 else None,', "> → >="):
+        "E > 0 is already enforced a few lines above, so E = 0 never reaches this line",
+    ("solid = [r for r in rings if r.sign > 0]", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
+    ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
+    ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
+        "cosmetic: the offset of a dimension line in the polygon's drawing",
+}
+
+QUIET = {"raise"}
+MESSAGE_CALLS = {"fail", "note", "warn", "figure", "caption", "get_close_matches", "format", "join"}
+UNIT_CALLS = {"q", "_q", "m_as", "to", "Unit", "Quantity", "unit", "build_unit", "parse_units", "parse_dimension"}
+MESSAGE_KEYWORDS = {"desc", "note", "doc", "hint", "caption", "title", "kind", "prefix", "suffix"}
+TOLERANCE = 1e-6
+COMPARE_SWAP = {ast.Lt: ast.LtE, ast.LtE: ast.Lt, ast.Gt: ast.GtE, ast.GtE: ast.Gt, ast.Eq: ast.NotEq,
+                ast.NotEq: ast.Eq, ast.Is: ast.IsNot, ast.IsNot: ast.Is, ast.In: ast.NotIn, ast.NotIn: ast.In}
+BINOP_SWAP = {ast.Add: ast.Sub, ast.Sub: ast.Add, ast.Mult: ast.Div, ast.Div: ast.Mult, ast.Pow: ast.Mult,
+              ast.FloorDiv: ast.Div}
+SYMBOL = {ast.Lt: "<", ast.LtE: "<=", ast.Gt: ">", ast.GtE: ">=", ast.Eq: "==", ast.NotEq: "!=", ast.Is: "is",
+          ast.IsNot: "is not", ast.In: "in", ast.NotIn: "not in", ast.Add: "+", ast.Sub: "-", ast.Mult: "*",
+          ast.Div: "/", ast.Pow: "**", ast.FloorDiv: "//", ast.And: "and", ast.Or: "or"}
+FORMULA_CHARS = re.compile(r"^[A-Za-z0-9_ .+\-*/^(),]+$")
+FORMULA_TOKEN = re.compile(r"(?<![A-Za-z_0-9.])(\d+(?:\.\d+)?(?:[eE][-+]?\d+)?)(?![A-Za-z_0-9.])|([-+*/^])")
+FORMULA_SWAP = {"+": "-", "-": "+", "*": "/", "/": "*", "^": "*"}
+
+
+@dataclass
+class Mutant:
+    target: str
+    path: str  # relative to the project root
+    index: int  # among this file's mutation points
+    line: int
+    what: str  # e.g. "<= → <"
+    source_line: str
+    status: str = ""  # killed | survived | timeout | error
+    seconds: float = 0.0
+    killed_by: str = ""
+
+    @property
+    def where(self) -> str:
+        return f"{self.path}:{self.line}"
+
+
+# ---------------------------------------------------------------- finding and applying mutants
+
+
+def _number_mutant(value):
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        return None
+    if isinstance(value, int):
+        return value + 1
+    if value == 0.0:
+        return 1.0
+    if abs(value) < TOLERANCE:
+        return None
+    return value * 2
+
+
+def _formula_variants(text: str) -> list[tuple[str, str]]:
+    """(mutated text, description) for each operator and number in a formula string."""
+    out = []
+    for m in FORMULA_TOKEN.finditer(text):
+        if m.group(1):
+            old = m.group(1)
+            try:
+                new_num = _number_mutant(int(old) if old.isdigit() else float(old))
+            except ValueError:  # pragma: no cover
+                continue
+            if new_num is None:
+                continue
+            new = repr(new_num)
+        else:
+            old = m.group(2)
+            if old == "-" and (m.start() == 0 or text[:m.start()].rstrip()[-1:] in "(,+-*/^"):
+                continue  # a unary minus
+            new = FORMULA_SWAP[old]
+        mutated = text[:m.start()] + new + text[m.end():]
+        out.append((mutated, f'formula "{text}" → "{mutated}"'))
+    return out
+
+
+def _is_formula(text: str) -> bool:
+    if not FORMULA_CHARS.match(text) or not re.search(r"[-+*/^]", text) or not re.search(r"[A-Za-z]", text):
+        return False
+    try:
+        from calcsheet.parser import parse_expression
+        parse_expression(text)
+    except Exception:
+        return False
+    return True
+
+
+class _Points(ast.NodeTransformer):
+    """Walks a module; counts mutation points; applies the one numbered ``target`` (or none, when -1)."""
+
+    def __init__(self, lines: list[str], functions: list[str] | None, target: int = -1):
+        self.lines = lines
+        self.functions = set(functions) if functions else None
+        self.target = target
+        self.found: list[tuple[int, str]] = []  # (line, description)
+        self._func: list[str] = []
+        self._quiet = 0
+
+    # -- bookkeeping
+    def _active(self, node) -> bool:
+        if self._quiet:
+            return False
+        if self.functions is not None and not (set(self._func) & self.functions):
+            return False
+        line = getattr(node, "lineno", 0)
+        return not (0 < line <= len(self.lines) and "pragma: no mutate" in self.lines[line - 1])
+
+    def _point(self, node, what: str) -> bool:
+        """Record a point; True when it is the one to apply."""
+        self.found.append((getattr(node, "lineno", 0), what))
+        return len(self.found) - 1 == self.target
+
+    @contextlib.contextmanager
+    def _silenced(self):
+        self._quiet += 1
+        try:
+            yield
+        finally:
+            self._quiet -= 1
+
+    # -- scopes that are not mutated
+    def visit_FunctionDef(self, node):
+        self._func.append(node.name)
+        if ast.get_docstring(node) is not None:
+            node.body = node.body[:1] + [self.visit(s) for s in node.body[1:]]
+            node.body = [s for s in node.body if s is not None]
+            for k in ("args", "returns"):  # decorators (caches, registration) are not mutated
+                v = getattr(node, k)
+                if isinstance(v, list):
+                    setattr(node, k, [self.visit(x) for x in v])
+                elif v is not None:
+                    setattr(node, k, self.visit(v))
+        else:
+            node.body = [s for s in (self.visit(s) for s in node.body) if s is not None]
+            node.args = self.visit(node.args)
+        self._func.pop()
+        return node
+
+    visit_AsyncFunctionDef = visit_FunctionDef
+
+    def visit_Raise(self, node):
+        return node
+
+    def visit_JoinedStr(self, node):
+        return node
+
+    def visit_Assert(self, node):
+        return node
+
+    def visit_Expr(self, node):
+        if isinstance(node.value, ast.Constant) and isinstance(node.value.value, str):
+            return node  # a docstring or a bare string
+        return self.generic_visit(node)
+
+    def visit_Call(self, node):
+        name = node.func.attr if isinstance(node.func, ast.Attribute) else getattr(node.func, "id", "")
+        if name in MESSAGE_CALLS:
+            return node
+        node.func = self.visit(node.func)
+        new_args = []
+        for a in node.args:
+            if isinstance(a, ast.Constant) and isinstance(a.value, str) and name not in UNIT_CALLS \
+                    and self._active(a) and _is_formula(a.value):
+                for mutated, what in _formula_variants(a.value):
+                    if self._point(a, what):
+                        a = ast.copy_location(ast.Constant(mutated), a)
+                new_args.append(a)
+            else:
+                new_args.append(self.visit(a))
+        node.args = new_args
+        for kw in node.keywords:
+            if kw.arg in MESSAGE_KEYWORDS:
+                continue
+            kw.value = self.visit(kw.value)
+        return node
+
+    # -- the mutation operators
+    def visit_Compare(self, node):
+        self.generic_visit(node)
+        if self._active(node):
+            for k, op in enumerate(node.ops):
+                new = COMPARE_SWAP.get(type(op))
+                if new and self._point(node, f"{SYMBOL[type(op)]} → {SYMBOL[new]}"):
+                    node.ops[k] = new()
+        return node
+
+    def visit_BinOp(self, node):
+        if isinstance(node.op, ast.Mod) and isinstance(node.left, ast.Constant):
+            return node  # "%" formatting
+        self.generic_visit(node)
+        new = BINOP_SWAP.get(type(node.op))
+        if new and self._active(node) and self._point(node, f"{SYMBOL[type(node.op)]} → {SYMBOL[new]}"):
+            node.op = new()
+        return node
+
+    def visit_AugAssign(self, node):
+        self.generic_visit(node)
+        new = BINOP_SWAP.get(type(node.op))
+        if new and self._active(node) and self._point(node, f"{SYMBOL[type(node.op)]}= → {SYMBOL[new]}="):
+            node.op = new()
+        return node
+
+    def visit_BoolOp(self, node):
+        self.generic_visit(node)
+        new = ast.Or if isinstance(node.op, ast.And) else ast.And
+        if self._active(node) and self._point(node, f"{SYMBOL[type(node.op)]} → {SYMBOL[new]}"):
+            node.op = new()
+        return node
+
+    def visit_UnaryOp(self, node):
+        self.generic_visit(node)
+        if isinstance(node.op, (ast.USub, ast.Not)) and self._active(node):
+            if isinstance(node.op, ast.USub) and isinstance(node.operand, ast.Constant):
+                return node  # a negative literal: its number is mutated instead
+            word = "not" if isinstance(node.op, ast.Not) else "unary -"
+            if self._point(node, f"{word} dropped"):
+                return node.operand
+        return node
+
+    def visit_Constant(self, node):
+        if not self._active(node):
+            return node
+        v = node.value
+        if isinstance(v, bool):
+            if self._point(node, f"{v} → {not v}"):
+                return ast.copy_location(ast.Constant(not v), node)
+            return node
+        new = _number_mutant(v)
+        if new is not None and self._point(node, f"{v!r} → {new!r}"):
+            return ast.copy_location(ast.Constant(new), node)
+        return node
+
+    def visit_Subscript(self, node):
+        node.value = self.visit(node.value)
+        if isinstance(node.slice, ast.Constant) and isinstance(node.slice.value, str):
+            return node
+        node.slice = self.visit(node.slice)
+        return node
+
+    def visit_keyword(self, node):
+        if node.arg in MESSAGE_KEYWORDS:
+            return node
+        return self.generic_visit(node)
+
+
+def functions_for(target: str, rel: str) -> list[str] | None:
+    """The functions of ``rel`` to mutate (None: all of the file)."""
+    return (TARGETS[target].get("functions") or {}).get(rel)
+
+
+def find_all(target: str) -> list[Mutant]:
+    return [m for rel in TARGETS[target]["sources"]
+            for m in find_mutants(target, ROOT / rel, rel, functions_for(target, rel))]
+
+
+def find_mutants(target: str, path: Path, rel: str, functions: list[str] | None = None) -> list[Mutant]:
+    text = path.read_text(encoding="utf-8")
+    lines = text.splitlines()
+    walker = _Points(lines, functions)
+    walker.visit(ast.parse(text))
+    return [Mutant(target, rel, k, line, what, lines[line - 1].strip() if 0 < line <= len(lines) else "")
+            for k, (line, what) in enumerate(walker.found)]
+
+
+def mutated_source(text: str, index: int, functions: list[str] | None = None) -> str:
+    tree = ast.parse(text)
+    walker = _Points(text.splitlines(), functions, target=index)
+    tree = walker.visit(tree)
+    if index >= len(walker.found):
+        raise IndexError(f"no mutation point {index}")
+    return ast.unparse(ast.fix_missing_locations(tree)) + "\n"
+
+
+@contextlib.contextmanager
+def applied(path: Path, index: int, functions: list[str] | None = None):
+    """Write mutant ``index`` into ``path``; restore the original bytes afterwards, whatever happens."""
+    original = path.read_bytes()
+    try:
+        path.write_text(mutated_source(original.decode("utf-8"), index, functions), encoding="utf-8")
+        _drop_bytecode(path)
+        yield path
+    finally:
+        path.write_bytes(original)
+        _drop_bytecode(path)
+
+
+def _drop_bytecode(path: Path) -> None:
+    cache = path.parent / "__pycache__"
+    if cache.is_dir():
+        for pyc in cache.glob(path.stem + ".*.pyc"):
+            pyc.unlink(missing_ok=True)
+
+
+# ---------------------------------------------------------------- running
+
+
+def scratch_copy(dest: Path) -> Path:
+    """The project's sources and tests copied into ``dest`` (the working tree is never mutated)."""
+    for part in ("calcsheet", "plugins", "tests", "sheets", "docs"):
+        src = ROOT / part
+        if src.exists():
+            shutil.copytree(src, dest / part, ignore=shutil.ignore_patterns("__pycache__", ".hypothesis",
+                                                                            "*.egg-info"))
+    for f in ("pyproject.toml", "README.md", "DEVELOPERS.md"):
+        if (ROOT / f).exists():
+            shutil.copy2(ROOT / f, dest / f)
+    return dest
+
+
+def _env(copy_root: Path) -> dict:
+    env = dict(os.environ)
+    env["PYTHONPATH"] = os.pathsep.join([str(copy_root), str(copy_root / "plugins")])
+    env["PYTHONDONTWRITEBYTECODE"] = "1"
+    return env
+
+
+def run_tests(copy_root: Path, tests: list[str], timeout: float, k: str | None = None) -> tuple[str, float, str]:
+    """('passed' | 'failed' | 'timeout', seconds, first failing test)."""
+    cmd = [sys.executable, "-m", "pytest", "-x", "-q", "--no-header", "-p", "no:cacheprovider",
+           "--hypothesis-seed=0", *(["-k", k] if k else []), *tests]
+    t0 = time.monotonic()
+    try:
+        proc = subprocess.run(cmd, cwd=copy_root, env=_env(copy_root), capture_output=True, text=True,
+                              timeout=timeout, start_new_session=True)
+    except subprocess.TimeoutExpired:
+        return "timeout", time.monotonic() - t0, ""
+    dt = time.monotonic() - t0
+    if proc.returncode == 0:
+        return "passed", dt, ""
+    failed = re.findall(r"^(?:FAILED|ERROR) (\S+)", proc.stdout, re.M)
+    return "failed", dt, failed[0] if failed else proc.stdout.strip().splitlines()[-1:][0] if proc.stdout else ""
+
+
+def _check_copy_is_used(copy_root: Path) -> None:
+    code = "import calcsheet, calcsheet_plugins.section as s; print(calcsheet.__file__); print(s.__file__)"
+    out = subprocess.run([sys.executable, "-c", code], cwd=copy_root, env=_env(copy_root), capture_output=True,
+                         text=True, check=True).stdout.split()
+    if not all(Path(p).resolve().is_relative_to(copy_root.resolve()) for p in out):
+        raise SystemExit(f"the scratch copy is not the code under test: {out}")
+
+
+def spread(items: list, limit: int | None) -> list:
+    """An evenly spread, deterministic sample of ``limit`` items (all when None)."""
+    if limit is None or limit >= len(items):
+        return list(items)
+    step = len(items) / limit
+    return [items[int(k * step)] for k in range(limit)]
+
+
+def tests_for(target: str, copy_root: Path) -> list[str]:
+    return [p for p in TARGETS[target]["tests"] if (copy_root / p).exists()]
+
+
+def main(argv=None) -> int:
+    ap = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
+    ap.add_argument("targets", nargs="*", default=[], metavar="TARGET",
+                    help=f"any of {', '.join(TARGETS)} (default: all)")
+    ap.add_argument("--limit", type=int, default=None, help="at most this many mutants per target (spread evenly)")
+    ap.add_argument("--timeout", type=float, default=None,
+                    help="seconds per mutant (default: 3 × the unmutated run, at least 60)")
+    ap.add_argument("--list", action="store_true", help="list the mutants, run nothing")
+    ap.add_argument("--report", type=Path, default=ROOT / "out" / "mutation.json")
+    ap.add_argument("--keep", action="store_true", help="keep the scratch copy")
+    ap.add_argument("--survivors", type=Path, default=None,
+                    help="run only the mutants a previous --report lists as survived (after adding tests)")
+    args = ap.parse_args(argv)
+    targets = args.targets or list(TARGETS)
+    unknown = [t for t in targets if t not in TARGETS]
+    if unknown:
+        ap.error(f"unknown target(s) {', '.join(unknown)}; choose from {', '.join(TARGETS)}")
+
+    plan: dict[str, list[Mutant]] = {}
+    for t in targets:
+        plan[t] = spread(find_all(t), args.limit)
+    if args.survivors:
+        earlier = json.loads(args.survivors.read_text())["mutants"]
+        keep = {(m["path"], m["index"], m["what"]) for m in earlier if m["status"] == "survived"}
+        plan = {t: [m for m in find_all(t) if (m.path, m.index, m.what) in keep]
+                for t in plan}
+    if args.list:
+        for t, ms in plan.items():
+            for m in ms:
+                print(f"{t:10s} {m.where:55s} {m.what}")
+            print(f"{t}: {len(ms)} mutants")
+        return 0
+
+    # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
+    work = Path(tempfile.mkdtemp(prefix="calcsheet-mutation-"))
+    copy_root = scratch_copy(work / "project")
+    results: list[Mutant] = []
+    try:
+        _check_copy_is_used(copy_root)
+        for t, ms in plan.items():
+            tests = tests_for(t, copy_root)
+            k = TARGETS[t].get("k")
+            status, base, first = run_tests(copy_root, tests, timeout=3600, k=k)
+            if status != "passed":
+                print(f"{t}: the unmutated tests do not pass ({first}); skipped", flush=True)
+                continue
+            timeout = args.timeout or max(60.0, 3 * base)
+            print(f"== {t}: {len(ms)} mutants, tests {' '.join(tests)} ({base:.0f} s unmutated, "
+                  f"limit {timeout:.0f} s each)", flush=True)
+            for m in ms:
+                path = copy_root / m.path
+                with applied(path, m.index, functions_for(t, m.path)):
+                    outcome, dt, first = run_tests(copy_root, tests, timeout, k)
+                m.seconds = round(dt, 1)
+                m.status = {"failed": "killed", "passed": "survived", "timeout": "timeout"}[outcome]
+                m.killed_by = first
+                results.append(m)
+                print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
+    finally:
+        if not args.keep:
+            shutil.rmtree(work, ignore_errors=True)
+        summary = report(results)
+        args.report.parent.mkdir(parents=True, exist_ok=True)
+        args.report.write_text(json.dumps({"summary": summary, "mutants": [asdict(m) for m in results]},
+                                          indent=2, ensure_ascii=False) + "\n")
+    return 0
+
+
+def report(results: list[Mutant]) -> dict:
+    summary = {}
+    print("\n== kill rate")
+    for t in dict.fromkeys(m.target for m in results):
+        ms = [m for m in results if m.target == t]
+        killed = sum(m.status in ("killed", "timeout") for m in ms)
+        summary[t] = {"mutants": len(ms), "killed": killed, "timeouts": sum(m.status == "timeout" for m in ms),
+                      "rate": round(killed / len(ms), 4) if ms else None}
+        print(f"{t:10s} {killed:4d}/{len(ms):<4d} {100 * killed / len(ms):5.1f} %"
+              f"  ({summary[t]['timeouts']} by time limit)")
+    total = len(results)
+    killed = sum(m.status in ("killed", "timeout") for m in results)
+    if total:
+        print(f"{'all':10s} {killed:4d}/{total:<4d} {100 * killed / total:5.1f} %")
+    summary["all"] = {"mutants": total, "killed": killed, "rate": round(killed / total, 4) if total else None}
+    survivors = [m for m in results if m.status == "survived"]
+    explained = [m for m in survivors if (m.source_line, m.what) in EQUIVALENT]
+    if total:
+        adjusted = killed / (total - len(explained)) if total > len(explained) else 1.0
+        print(f"{'adjusted':10s} {killed:4d}/{total - len(explained):<4d} {100 * adjusted:5.1f} %"
+              f"  (leaving out {len(explained)} equivalent mutants)")
+        summary["all"]["adjusted_rate"] = round(adjusted, 4)
+    if explained:
+        print("\n== equivalent or cosmetic mutants (explained in tools/mutation.py EQUIVALENT)")
+        for m in explained:
+            print(f"{m.where:55s} {m.what}   | {EQUIVALENT[(m.source_line, m.what)]}")
+    unexplained = [m for m in survivors if m not in explained]
+    if unexplained:
+        print("\n== surviving mutants")
+        for m in unexplained:
+            print(f"{m.where:55s} {m.what}   | {m.source_line[:70]}")
+    return summary
+
+
+if __name__ == "__main__":
+    sys.exit(main())
