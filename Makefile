@@ -19,6 +19,8 @@ setup: $(STAMP)
 
 demo: $(STAMP)
 	$(BIN)/calcsheet build sheets/*.calc -o out --format html,pdf,json
+	$(BIN)/calcsheet build sheets/boardwalk_joist.calc --schedule sheets/schedules/boardwalk_joists.csv -o out/boardwalk_joists --format html,pdf,json
+	$(BIN)/calcsheet build sheets/boardwalk_joist.calc --sweep "L=2.4:4.8:0.1 m" -o out --format html,pdf,json
 
 test: $(STAMP)
 	bash .ci/system-deps --test

@@ -38,6 +38,16 @@ def _parser() -> argparse.ArgumentParser:
                         "(the same sheet at REV), REV:path, an older sheet file or a saved JSON result")
     b.add_argument("--fail-on-ng", action="store_true", help="exit 3 when any check is NG")
     b.add_argument("--paper", choices=["A4", "Letter"], help="paper size (default: front matter, else A4)")
+    b.add_argument("--schedule", type=Path, metavar="TABLE",
+                   help="run the sheet once per row of a .csv/.toml table (columns: inputs, and 'member')")
+    b.add_argument("--sweep", metavar="NAME=START:STOP:STEP",
+                   help="run the sheet over one input (or NAME=v1,v2,…) and chart each check's utilisation")
+    b.add_argument("-j", "--jobs", type=int, metavar="N", help="worker processes (default: the number of cores)")
+    b.add_argument("--cluster", metavar="tcp://HOST:PORT", help="send rows to a Dask scheduler (extra 'cluster')")
+    b.add_argument("--force", action="store_true", help="rebuild members whose content hash has not changed")
+    b.add_argument("--size", metavar="NAME", help="pick the lightest catalogue section with every check OK for "
+                                                  "the text input NAME (with --from FAMILY)")
+    b.add_argument("--from", dest="family", metavar="FAMILY", help="catalogue family for --size (W, IPE, HEA…)")
 
     c = sub.add_parser("check", help="parse, resolve and dimension-check sheets without rendering")
     c.add_argument("sheets", nargs="+", type=Path)
@@ -145,6 +155,10 @@ def cmd_build(args) -> int:
     missing = _missing(args.sheets)
     if missing:
         return _usage(f"no such sheet: {missing[0]}")
+    if args.schedule or args.sweep or args.size or args.family or (len(args.sheets) > 1 and args.jobs != 1 and not args.since):
+        from .schedule import cli_build  # schedules, sweeps, and several sheets on every core
+
+        return cli_build(args, formats, overrides)
     from .engine import run
     from .package import write_package
 

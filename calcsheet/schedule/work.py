@@ -1,0 +1,260 @@
+"""One unit of work: run the sheet with one row's values and render its package to bytes.
+
+This is what a pool process or a cluster worker runs. It reads the sheet (and
+what the sheet may include) and writes nothing: the rendered files come back
+as bytes and the caller writes them into its own output folder.
+"""
+from __future__ import annotations
+
+import hashlib
+import json
+import math
+from dataclasses import dataclass, field
+from pathlib import Path
+
+STAMP_VERSION = 1
+
+
+@dataclass(frozen=True)
+class Task:
+    """Everything a worker needs for one member; small and picklable."""
+
+    index: int  # 0-based position in the run (keeps outputs in input order)
+    sheet: str  # path of the sheet
+    source: str  # the sheet text, read once by the caller
+    member: str  # output stem
+    cells: tuple = ()  # (column, text, where) — the row's values and where each came from
+    formats: tuple[str, ...] = ("html", "json")
+    paper: str | None = None
+    content_hash: str = ""
+    label: str = ""  # how messages name the row, e.g. "row 3 (B-3)"
+    where: str = ""  # file:row of the row
+    subject_suffix: str = ""  # appended to the package's subject (the member's name)
+    extra_front: str = ""  # an escaped HTML page put after the summary (auto-sizing's selection page)
+    extra_json: tuple = ()  # (key, JSON-able value) pairs added to the package's JSON
+
+
+@dataclass
+class CheckLine:
+    key: str  # "check-N": the check's place in the sheet
+    label: str  # its description, else its text
+    text: str
+    ratio: float | None
+    ok: bool
+
+
+@dataclass
+class Outcome:
+    index: int
+    member: str
+    ok: bool  # built without errors
+    files: dict[str, bytes] = field(default_factory=dict)
+    checks: list[CheckLine] = field(default_factory=list)
+    errors: list[str] = field(default_factory=list)  # located messages
+    warnings: list[str] = field(default_factory=list)
+    values: dict[str, str] = field(default_factory=dict)  # the row's values as used (text)
+    skipped: bool = False  # unchanged since the last build: nothing rendered
+    content_hash: str = ""
+    worker: str = ""  # which worker built it (cluster runs)
+
+    @property
+    def all_ok(self) -> bool:
+        return self.ok and all(c.ok for c in self.checks)
+
+    def governing(self) -> CheckLine | None:
+        """The check with the highest utilisation (the first of equals); an NG check without a ratio governs."""
+        best = None
+        for c in self.checks:
+            r = c.ratio if c.ratio is not None else (math.inf if not c.ok else -math.inf)
+            if best is None or r > best[0]:
+                best = (r, c)
+        return best[1] if best else None
+
+
+# ------------------------------------------------------------ content hash
+
+
+def sheet_fingerprint(sheet: str, source: str) -> dict:
+    """What of the sheet goes into every member's hash: its text, its includes and the plugins it calls.
+
+    Plugin versions are those of every namespace the sheet calls (a sheet whose
+    plugin is upgraded is rebuilt); the engine version covers the renderers.
+    """
+    from .. import __version__
+    from .. import nodes as N
+    from ..errors import SheetErrors
+    from ..parser import parse_sheet
+    from ..plugin import PluginDefinitionError, default_registry
+
+    includes: list[tuple[str, str]] = []
+    plugins: dict[str, str] = {}
+    try:
+        parsed, _ = parse_sheet(source, sheet)
+    except SheetErrors:
+        parsed = None
+    if parsed is not None:
+        includes = [(p, hashlib.sha256(t.encode("utf-8")).hexdigest()) for p, t in parsed.includes]
+        reg = default_registry()
+        for stmt in parsed.body:
+            for node in N.walk(stmt) if isinstance(stmt, N.Node) else ():
+                if isinstance(node, N.PluginCall) and node.namespace not in plugins:
+                    try:
+                        ns = reg.namespace(node.namespace)
+                    except PluginDefinitionError:
+                        ns = None
+                    plugins[node.namespace] = ns.version if ns is not None else "missing"
+    return {"stamp": STAMP_VERSION, "calcsheet": __version__,
+            "sheet": hashlib.sha256(source.encode("utf-8")).hexdigest(),
+            "includes": includes, "plugins": dict(sorted(plugins.items()))}
+
+
+def content_hash(fingerprint: dict, member: str, overrides: dict[str, str], paper: str | None) -> str:
+    """sha256 of the sheet fingerprint, the member's name, its values and the paper size."""
+    blob = json.dumps({"f": fingerprint, "member": member, "set": sorted(overrides.items()), "paper": paper},
+                      sort_keys=True, ensure_ascii=True, separators=(",", ":"))
+    return hashlib.sha256(blob.encode("ascii")).hexdigest()
+
+
+# ------------------------------------------------------------ the worker side
+
+_WORKER_READY = False
+
+
+def init_worker(pdf: bool = False) -> None:
+    """Pool initializer: import pint, lark and (when PDFs are written) WeasyPrint once per process,
+    and build the unit registry, the grammar and the plugin table before the first row arrives."""
+    global _WORKER_READY
+    import pint  # noqa: F401
+
+    from .. import engine, units  # the engine imports the parser, the one module that imports lark
+    from ..plugin import default_registry
+
+    units.registry()
+    engine.parse_statement("x = 1 m")  # builds the statement grammar
+    reg = default_registry()
+    for name in reg.names():
+        try:
+            reg.namespace(name)
+        except Exception:  # reported, located, by the sheet that calls it
+            pass
+    if pdf:
+        import weasyprint  # noqa: F401
+    _WORKER_READY = True
+
+
+def _strip_set(message: str, name: str, text: str) -> str:
+    for prefix in (f"--set {name}={text}: ", f"--set {name}: "):
+        if message.startswith(prefix):
+            return message[len(prefix):]
+    return message
+
+
+def build_task(task: Task) -> Outcome:
+    """Run one row and render its package; never raises for a problem in the sheet or the row."""
+    from ..engine import run
+
+    out = Outcome(task.index, task.member, ok=False, content_hash=task.content_hash)
+    overrides = {c: t for c, t, _ in task.cells}
+    out.values = dict(overrides)
+    try:
+        result = run(task.source, overrides=overrides, path=task.sheet)
+    except Exception as exc:  # an engine fault must not take the other rows down
+        out.errors.append(f"{task.where}: error: {task.label}: internal error while running the sheet: "
+                          f"{type(exc).__name__}: {exc}")
+        return out
+    located = set()
+    for d in result.errors:
+        if d.code != "override":
+            continue
+        for column, text, where in task.cells:
+            if d.message.startswith(f"--set {column}=") or d.message.startswith(f"--set {column}:"):
+                out.errors.append(f"{where}: error: {task.label}, column {column!r}: "
+                                  f"{_strip_set(d.message, column, text)}"
+                                  + (f" ({d.hint})" if d.hint else ""))
+                located.add(id(d))
+                break
+    rest = [d for d in result.errors if id(d) not in located]
+    if rest:
+        out.errors.append(f"{task.where}: error: {task.label}: the sheet has {len(rest)} error(s) with this "
+                          "row's values:\n" + "\n".join(d.format(result.source_for(d)) for d in rest))
+    for d in result.diagnostics:
+        if d.severity == "warning" and not d.suppressed:
+            out.warnings.append(d.one_line())
+    if out.errors:
+        return out
+    for c in result.checks:
+        ratio = c.ratio if c.ratio is not None and math.isfinite(c.ratio) else None
+        out.checks.append(CheckLine(c.anchor or "", c.description or c.text, c.text, ratio, bool(c.ok)))
+    if task.formats:
+        try:
+            out.files = render_member(result, task)
+        except Exception as exc:
+            out.errors.append(f"{task.where}: error: {task.label}: the package could not be rendered: "
+                              f"{type(exc).__name__}: {exc}")
+            return out
+    out.ok = True
+    return out
+
+
+def render_member(result, task: Task) -> dict[str, bytes]:
+    """The member's package as bytes per format, each stamped with the content hash."""
+    from ..package import PackageDocument, pdf_bytes
+    from ..render.markup import Html
+
+    if task.subject_suffix:
+        subject = str(result.meta.get("subject") or Path(task.sheet).stem)
+        result.meta = {**result.meta, "subject": f"{subject} — {task.subject_suffix}"}
+
+    class StampedDocument(PackageDocument):
+        def footer(self) -> str:
+            base = super().footer()
+            stamp = Html('<div>Member {} · build sha256 <span class="hash" id="content-hash">{}</span></div>'
+                         ).format(task.member, task.content_hash)
+            head, sep, tail = str(base).rpartition("</footer>")
+            return Html(head) + stamp + Html(sep + tail) if sep else base + stamp  # base: already-escaped markup
+
+    files: dict[str, bytes] = {}
+    html = None
+    if "html" in task.formats or "pdf" in task.formats:
+        html = StampedDocument(result, paper=task.paper, extra_front=markup(task.extra_front)).html()
+    if "html" in task.formats:
+        files["html"] = html.encode("utf-8")
+    if "pdf" in task.formats:
+        files["pdf"] = pdf_bytes(html)
+    if "json" in task.formats:
+        data = result.to_json()
+        data["build"] = {"member": task.member, "content_hash": task.content_hash}
+        for k, v in task.extra_json:
+            data[k] = v
+        files["json"] = (json.dumps(data, indent=2, ensure_ascii=False) + "\n").encode("utf-8")
+    return files
+
+
+def stamp_of(path: Path) -> str | None:
+    """The content hash stamped in a written member package (its JSON, else its HTML), or None."""
+    try:
+        if path.suffix == ".json":
+            data = json.loads(path.read_text(encoding="utf-8"))
+            return (data.get("build") or {}).get("content_hash")
+        if path.suffix == ".html":
+            import re
+
+            m = re.search(r'id="content-hash">([0-9a-f]{64})<', path.read_text(encoding="utf-8"))
+            return m.group(1) if m else None
+    except (OSError, ValueError, UnicodeDecodeError, AttributeError):
+        return None
+    return None
+
+
+def markup(html):
+    """A page built from markup templates (already escaped), as the renderer's markup type."""
+    from ..render.markup import Html
+
+    return Html(html) if html else None
+
+
+def caution() -> str:
+    """The package's caution sentence, wherever the renderer keeps it."""
+    from ..render.page import CAUTION
+
+    return CAUTION
