@@ -287,6 +287,8 @@ class PackageDocument(DocumentPrinter):
 
     def _print_Working(self, w: Working, inner: bool = False, owner: str = "") -> Html:
         main, cross = _split_cross_checks(w.items)
+        if not any(isinstance(i, Table) for i in cross):  # a one-line agreement note stays where it is
+            main, cross = list(w.items), []
         items = Html("\n").join(self.record(i, inner=True) for i in main)
         if cross:  # an independent cross-check is kept, in the appendix the reader may skip
             self.appendix.append((owner, w.title, cross))
