@@ -25,6 +25,7 @@ from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet, parse_statement
 from .plugin import PluginRegistry, Record, default_registry
 from .resolver import Resolution, check_key, resolve
+from .suggest import closest
 
 MAX_SIGFIGS = 8
 
@@ -178,11 +179,9 @@ def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | No
 
 def _prepare_overrides(overrides: dict[str, Any], res: Resolution, result: Result) -> dict[str, N.Expr]:
     out = {}
-    import difflib
-
     for name, value in overrides.items():
         if name not in res.defined_at:
-            close = difflib.get_close_matches(name, list(res.defined_at), n=1)
+            close = [c for c in [closest(name, res.defined_at)] if c]
             result.diagnostics.append(OverrideError(
                 f"--set {name}: the sheet defines no '{name}'", Span(1, 1, 1, 2),
                 hint=f"did you mean '{close[0]}'?" if close else None).diagnostic(result.path))

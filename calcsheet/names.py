@@ -5,10 +5,10 @@ and signs for a literal, or suggests the closest known name reads it here.
 """
 from __future__ import annotations
 
-import difflib
 from typing import Iterable
 
 from . import nodes as N
+from .suggest import closest, did_you_mean  # noqa: F401  ("did you mean" lives below every stage)
 
 
 def dotted(node) -> str | None:
@@ -57,15 +57,3 @@ def operand(node, fallback: str = "the expression") -> str:
     if isinstance(node, N.Number):
         return f"{node.text} {node.unit_text}".strip()
     return fallback
-
-
-def closest(name: str, options: Iterable[str]) -> str | None:
-    """The known name ``name`` most likely meant, if one is close."""
-    close = difflib.get_close_matches(name, list(options), n=1)
-    return close[0] if close else None
-
-
-def did_you_mean(name: str, options: Iterable[str], quote: str = "'", prefix: str = "") -> str | None:
-    """"did you mean 'x'?" for the closest option, else None."""
-    hit = closest(name, options)
-    return f"did you mean {quote}{prefix}{hit}{quote}?" if hit else None

@@ -28,6 +28,7 @@ from .errors import (
 from .names import did_you_mean
 from .trace import Working
 from . import units as U
+from .suggest import closest
 
 ENTRY_POINT_GROUP = "calcsheet.plugins"
 KINDS = ("quantity", "number", "text", "record", "list", "points", "flag")
@@ -306,13 +307,11 @@ class Record:
     def get(self, name: str):
         if name in self.fields:
             return self.fields[name]
-        import difflib
-
         if name in self.optional:
             raise UnknownFieldError(f"{self.source or self.type} did not produce '{name}' for these arguments",
                                     hint=self.optional[name] or None)
 
-        close = difflib.get_close_matches(name, list(self.fields), n=1)
+        close = [c for c in [closest(name, self.fields)] if c]
         hint = f"did you mean '{close[0]}'?" if close else f"fields: {', '.join(self.fields)}"
         raise UnknownFieldError(f"{self.source or self.type} result has no field '{name}'", hint=hint)
 

@@ -16,6 +16,7 @@ from dataclasses import dataclass
 from . import errors as E
 from . import nodes as N
 from .errors import Diagnostic, Span
+from .suggest import did_you_mean
 
 # Codes that only arise while evaluating; an allow for one is not "unused" in a check-only run.
 EVALUATION_ONLY = {"plugin-warning", "plugin-input", "not-finite", "division-by-zero"}
@@ -77,12 +78,9 @@ def parse_allows(sheet: N.Sheet, path: str) -> tuple[list[Allow], list[Diagnosti
             codes_known = codes_known or known_codes()
             unknown = [c for c in codes if c not in codes_known]
             if unknown:
-                import difflib
-
-                close = difflib.get_close_matches(unknown[0], sorted(codes_known), n=1)
                 diags.append(E.SuppressionError(
                     f"'{unknown[0]}' is not a diagnostic code", span,
-                    hint=f"did you mean '{close[0]}'?" if close else "see docs/diagnostics.md for the codes"
+                    hint=did_you_mean(unknown[0], sorted(codes_known)) or "see docs/diagnostics.md for the codes"
                 ).diagnostic(path))
                 codes = tuple(c for c in codes if c in codes_known)
                 if not codes:

@@ -7,7 +7,6 @@ vocabulary of engineering units we chose on purpose (pint alone would read
 """
 from __future__ import annotations
 
-import difflib
 import math
 import re
 from functools import lru_cache
@@ -15,6 +14,7 @@ from functools import lru_cache
 import pint
 
 from .errors import SheetSyntaxError, Span, UnknownUnitError
+from .suggest import did_you_mean
 
 # Trade units pint lacks, defined exactly from their parts.
 # (A unit's symbol defaults to its name; repeating it as "= psf" makes pint warn.)
@@ -112,8 +112,7 @@ def unit_named(symbol: str) -> pint.Unit:
         return registry().Unit(VOCABULARY[symbol])
     if symbol in REFUSED:
         raise UnknownUnitError(f"unknown unit '{symbol}'", hint=REFUSED[symbol])
-    close = difflib.get_close_matches(symbol, list(VOCABULARY), n=1)
-    hint = f"did you mean '{close[0]}'?" if close else "see 'calcsheet units' for the unit names"
+    hint = did_you_mean(symbol, VOCABULARY) or "see 'calcsheet units' for the unit names"
     raise UnknownUnitError(f"unknown unit '{symbol}'", hint=hint)
 
 

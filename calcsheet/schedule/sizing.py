@@ -15,6 +15,7 @@ import sys
 from pathlib import Path
 
 from .table import ScheduleError
+from ..suggest import did_you_mean
 from .work import Task, build_task, content_hash
 
 
@@ -29,10 +30,7 @@ def family_sections(family: str) -> list[tuple[str, float, str]]:
     wanted = family.strip().upper()
     chosen = [e for e in entries if e.family.upper() == wanted]
     if not chosen:
-        import difflib
-
-        close = difflib.get_close_matches(wanted, families, n=1)
-        hint = f"did you mean {close[0]}?" if close else "families: " + ", ".join(families)
+        hint = did_you_mean(wanted, families, quote="") or "families: " + ", ".join(families)
         raise ScheduleError("--from", f"no catalogue family {family!r} ({hint})")
     missing = [e.designation for e in chosen if e.values.get("mass") is None]
     if missing:

@@ -12,6 +12,8 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Iterator
 
+from ..suggest import did_you_mean
+
 MEMBER = "member"
 MAX_MEMBER = 64
 # A member name becomes a file name: letters, digits, '-', '_' and inner dots only.
@@ -92,8 +94,6 @@ def open_schedule(path: Path, inputs: list[str], defined: list[str] | None = Non
 
 def _check_columns(path: Path, columns: list[tuple[str, str]], inputs: list[str], defined: list[str]) -> None:
     """columns: (name, where). Every column but 'member' must be an input of the sheet, once."""
-    import difflib
-
     seen = set()
     for name, where in columns:
         if name == MEMBER:
@@ -106,8 +106,8 @@ def _check_columns(path: Path, columns: list[tuple[str, str]], inputs: list[str]
         if name in defined:
             raise ScheduleError(where, f"column {name!r} is calculated by the sheet, not an input; "
                                        "a schedule sets inputs only")
-        close = difflib.get_close_matches(name, inputs, n=1)
-        hint = f" (did you mean {close[0]!r}?)" if close else f"; inputs: {', '.join(inputs) or 'none'}"
+        hint = did_you_mean(name, inputs)
+        hint = f" ({hint})" if hint else f"; inputs: {', '.join(inputs) or 'none'}"
         raise ScheduleError(where, f"column {name!r} names no input of the sheet{hint}")
 
 

@@ -9,6 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from calcsheet.units import Quantity
+from calcsheet.suggest import did_you_mean
 
 from .combos import parse_factors
 from .kinds import KINDS, Place
@@ -44,10 +45,8 @@ def parse_supports(supports) -> list[str]:
         items = [str(s) for s in supports]
     for i, s in enumerate(items, 1):
         if s not in SUPPORT_KINDS:
-            import difflib
-
-            close = difflib.get_close_matches(s, SUPPORT_KINDS, n=1)
-            hint = f" (did you mean \"{close[0]}\"?)" if close else ""
+            hint = did_you_mean(s, SUPPORT_KINDS, quote='"')
+            hint = f" ({hint})" if hint else ""
             raise BeamInputError(f"support {i} is \"{s}\"{hint}; use " + ", ".join(SUPPORT_KINDS), "supports")
     return items
 

@@ -8,11 +8,11 @@ not from a sampled diagram.
 """
 from __future__ import annotations
 
-import difflib
 
 import numpy as np
 
 from calcsheet.plugin import Field, Param
+from calcsheet.suggest import did_you_mean
 
 from . import namespace
 from .analysis import extreme_label
@@ -42,9 +42,9 @@ def _combo(work, res, combo):
                   ", ".join(names[:12]) + (" …" if len(names) > 12 else "") + ")", param="combo")
     cr = res.by_name(combo)
     if cr is None:
-        close = difflib.get_close_matches(combo, names, n=1)
+        hint = did_you_mean(combo, names, quote='"')
         work.fail(f"the beam has no combination named {combo!r}" +
-                  (f" (did you mean \"{close[0]}\"?)" if close else "") + "; combinations: " +
+                  (f" ({hint})" if hint else "") + "; combinations: " +
                   ", ".join(names[:12]) + (" …" if len(names) > 12 else ""), param="combo")
     return cr
 

@@ -15,6 +15,8 @@ import tomllib
 from dataclasses import dataclass, field
 from pathlib import Path
 
+from calcsheet.suggest import did_you_mean
+
 _HERE = Path(__file__).parent
 
 
@@ -108,11 +110,9 @@ def parse_cases(text: str, set_name: str) -> list[Case]:
             kind = _kind_from_name(name, standard)
         kind = _CANONICAL.get(" ".join(kind.split()).lower(), kind)
         if kind not in KINDS:
-            import difflib
-
-            close = difflib.get_close_matches(kind, list(KINDS), n=1)
+            hint = did_you_mean(kind, KINDS, quote='"')
             raise CombinationError(f"case {name}: unknown kind {kind!r}" +
-                                   (f" (did you mean \"{close[0]}\"?)" if close else "") +
+                                   (f" ({hint})" if hint else "") +
                                    "; kinds: " + ", ".join(k for k in KINDS if KINDS[k]["standard"] == standard),
                                    "cases")
         if KINDS[kind]["standard"] != standard:
@@ -145,11 +145,9 @@ def _kind_from_name(name: str, standard: str) -> str:
 
 def generate(set_name: str, cases: list[Case]) -> list[Combination]:
     if set_name not in SETS["set"]:
-        import difflib
-
-        close = difflib.get_close_matches(set_name, SET_NAMES, n=1)
+        hint = did_you_mean(set_name, SET_NAMES, quote='"')
         raise CombinationError(f"unknown combination set {set_name!r}" +
-                               (f" (did you mean \"{close[0]}\"?)" if close else "") + "; sets: " +
+                               (f" ({hint})" if hint else "") + "; sets: " +
                                ", ".join(SET_NAMES), "set")
     spec = SETS["set"][set_name]
     raw = _asce(spec, cases) if "combination" in spec else _en(spec, cases)
