@@ -27,6 +27,7 @@ from . import units as U
 from .display import DisplayPolicy
 from .errors import (
     CalcError,
+    CheckSignError,
     DeclaredUnitError,
     DivisionByZeroError,
     Diagnostic,
@@ -351,6 +352,8 @@ class Evaluator:
         demand, capacity = (a, b) if stmt.op in ("<=", "<") else (b, a)
         dm = float(demand.to(a.units).magnitude)
         cm = float(capacity.to(a.units).magnitude)
+        if dm * cm < 0 or (dm < 0 and cm < 0):  # no utilisation exists: never OK
+            raise _sign_error(stmt, demand, capacity)
         ratio = dm / cm if cm > 0 and dm >= 0 else None
         unit_of = unit_of or (lambda k, v: self.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
         key = dotted(stmt.left if stmt.op in ("<=", "<") else stmt.right) or "value"
@@ -364,6 +367,16 @@ class Evaluator:
 
 
 _DISPATCH: dict = {}
+
+
+def _sign_error(stmt: N.Check, demand, capacity) -> CheckSignError:
+    side = stmt.left if stmt.op in ("<=", "<") else stmt.right
+    name = dotted(side) or "the demand"
+    return CheckSignError(
+        f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
+        "negative, so the check has no utilisation and cannot pass", stmt.span,
+        hint=f"compare magnitudes with check abs({name}) {stmt.op} ..., or write a compression check "
+             f"with the compressive value positive (check -{name} {stmt.op} ...)")
 
 
 def _word(value):
