@@ -299,7 +299,16 @@ def cmd_plugins() -> int:
     from .plugin import PluginDefinitionError, default_registry
     from . import units as U
 
-    reg = default_registry()
+    try:
+        return _list_plugins(default_registry(), PluginDefinitionError, U)
+    except BrokenPipeError:  # `calcsheet plugins | head` closed the pipe: end quietly, as Unix tools do
+        import os
+
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        return EXIT_OK
+
+
+def _list_plugins(reg, PluginDefinitionError, U) -> int:
     status = EXIT_OK
     for ns_name in reg.names():
         try:
@@ -318,6 +327,7 @@ def cmd_plugins() -> int:
                 fields = ", ".join(f.name + (f" [{U.describe_dim(f.dimension)}]" if f.dim else "")
                                    for f in pf.fields)
                 print(f"      → {fields}")
+    sys.stdout.flush()  # a closed pipe is found here, not at exit
     return status
 
 

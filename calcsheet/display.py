@@ -6,6 +6,7 @@ is written; they only decide the markup.
 from __future__ import annotations
 
 import math
+from decimal import ROUND_HALF_UP, Decimal
 from dataclasses import dataclass
 from functools import lru_cache
 
@@ -141,6 +142,15 @@ def shown(value: pint.Quantity, unit: pint.Unit | None = None) -> pint.Quantity:
 # ------------------------------------------------------------------ numbers
 
 
+def _round_sig(x: float, sigfigs: int) -> float:
+    """``x`` to ``sigfigs`` figures, a half rounded up as on paper, after float noise is dropped at 12
+    figures (19.2499999999996 from a unit conversion is 19.25, shown 19.3 at three figures)."""
+    d = Decimal(f"{x:.12g}")
+    if d == 0:
+        return 0.0
+    return float(d.quantize(Decimal(1).scaleb(d.adjusted() - sigfigs + 1), rounding=ROUND_HALF_UP))
+
+
 def split_number(x: float, sigfigs: int = 3) -> tuple[str, int | None]:
     """Mantissa text and power of ten (None when written plainly).
 
@@ -152,7 +162,7 @@ def split_number(x: float, sigfigs: int = 3) -> tuple[str, int | None]:
     if not math.isfinite(x):
         return str(x), None
     sigfigs = max(1, int(sigfigs))
-    x = float(f"{x:.{sigfigs - 1}e}")  # round to the significant figures first
+    x = _round_sig(x, sigfigs)  # round to the significant figures first
     exp = math.floor(math.log10(abs(x)))
     if 1e-3 <= abs(x) < 1e5:
         return f"{x:.{max(0, sigfigs - 1 - exp)}f}", None
@@ -215,3 +225,32 @@ def pint_unit_string(unit: pint.Unit | None) -> str:
     if unit is None:
         return ""
     return format(unit, "~")
+
+
+# Our trade units a stock pint registry lacks, as the stock units they are defined from (units.py).
+_STOCK_FACTORS = {
+    "psf": {"force_pound": 1, "foot": -2}, "ksf": {"kip": 1, "foot": -2}, "pcf": {"force_pound": 1, "foot": -3},
+    "plf": {"force_pound": 1, "foot": -1}, "klf": {"kip": 1, "foot": -1},
+}
+
+
+def portable_unit_string(unit: pint.Unit | None) -> str:
+    """The unit as a stock ``pint.UnitRegistry()`` parses it, meaning the same quantity: 'kN * m', and
+    'lbf / ft ** 2' for psf (our registry's psf, klf ... are unknown to a stock one)."""
+    if unit is None:
+        return ""
+    if not any(n in _STOCK_FACTORS for n in unit._units):
+        return pint_unit_string(unit)
+    factors: dict[str, float] = {}
+    for name, exp in unit._units.items():
+        for part, e in _STOCK_FACTORS.get(name, {name: 1}).items():
+            factors[part] = factors.get(part, 0) + e * exp
+    reg = U.registry()
+
+    def term(name, e):
+        e = abs(e)
+        return reg.get_symbol(name) + ("" if e == 1 else f" ** {int(e) if float(e).is_integer() else e}")
+
+    num = [term(n, e) for n, e in factors.items() if e > 0]
+    den = [term(n, e) for n, e in factors.items() if e < 0]
+    return " / ".join([" * ".join(num) or "1", *den])

@@ -99,14 +99,15 @@ class Result:
         return self.source
 
     def format_diagnostics(self) -> str:
-        return "\n".join(d.format(self.source_for(d)) for d in self.diagnostics)
+        """The findings for the console; one allowed with a reason (``// allow``) is not among them."""
+        return "\n".join(d.format(self.source_for(d)) for d in self.diagnostics if not d.suppressed)
 
 
-def _policy(meta: dict, diags: list[Diagnostic], path: str) -> DisplayPolicy:
+def _policy(meta: dict, diags: list[Diagnostic], path: str, lines: dict | None = None) -> DisplayPolicy:
     system = str(meta.get("units", "SI")).strip().upper()
     if system not in ("SI", "US"):
         diags.append(Diagnostic("warning", "front-matter", f"units: {meta.get('units')!r} is not SI or US; using SI",
-                                Span(1, 1, 1, 2), path=path))
+                                _key_span(lines, "units"), path=path))
         system = "SI"
     sig = meta.get("sigfigs", 3)
     try:
@@ -115,9 +116,15 @@ def _policy(meta: dict, diags: list[Diagnostic], path: str) -> DisplayPolicy:
             raise ValueError
     except (TypeError, ValueError):
         diags.append(Diagnostic("warning", "front-matter", f"sigfigs must be a whole number 1–{MAX_SIGFIGS}; using 3",
-                                Span(1, 1, 1, 2), path=path))
+                                _key_span(lines, "sigfigs"), path=path))
         sig = 3
     return DisplayPolicy(system=system, sigfigs=sig)
+
+
+def _key_span(lines: dict | None, key: str) -> Span:
+    """The front-matter line of ``key`` (line 1 when not known)."""
+    line = (lines or {}).get(key, 1)
+    return Span(line, 1, line, len(key) + 1)
 
 
 def read_source(path_or_text, path: str | None = None) -> tuple[str, str]:
@@ -154,7 +161,7 @@ def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | No
         path = path or str(path_or_text)
         return Result(path=path, source=source, meta={}, diagnostics=list(exc.diagnostics))
     meta = sheet.meta_dict
-    policy = _policy(meta, diags, path)
+    policy = _policy(meta, diags, path, dict(sheet.meta_lines))
     result = Result(path=path, source=sheet.source, meta=meta, diagnostics=diags, policy=policy, sheet=sheet)
 
     res = resolve(sheet, plugins)

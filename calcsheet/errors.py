@@ -72,6 +72,9 @@ class Diagnostic:
         }
         if self.hint:
             out["hint"] = self.hint
+        if self.suppressed:
+            out["suppressed"] = True
+            out["reason"] = self.suppressed
         return out
 
     def one_line(self) -> str:
@@ -169,6 +172,11 @@ class AngleError(CalcError):
 class DivisionByZeroError(CalcError):
     """A division by zero."""
     code = "division-by-zero"
+
+
+class CheckSignError(CalcError):
+    """A check's demand and capacity have opposite signs (or are both negative): no utilisation exists."""
+    code = "check-sign"
 
 
 class NumericError(CalcError):

@@ -27,6 +27,7 @@ from . import units as U
 from .display import DisplayPolicy
 from .errors import (
     CalcError,
+    CheckSignError,
     DeclaredUnitError,
     DivisionByZeroError,
     Diagnostic,
@@ -363,6 +364,8 @@ class Evaluator:
         demand, capacity = (a, b) if stmt.op in ("<=", "<") else (b, a)
         dm = float(demand.to(a.units).magnitude)
         cm = float(capacity.to(a.units).magnitude)
+        if dm * cm < 0 or (dm < 0 and cm < 0):  # no utilisation exists: never OK
+            raise _sign_error(stmt, demand, capacity)
         ratio = dm / cm if cm > 0 and dm >= 0 else None
         if ratio is not None and not math.isfinite(ratio):
             raise NumericError("the check's ratio (demand / capacity) overflows", stmt.span,
@@ -379,6 +382,16 @@ class Evaluator:
 
 
 _DISPATCH: dict = {}
+
+
+def _sign_error(stmt: N.Check, demand, capacity) -> CheckSignError:
+    side = stmt.left if stmt.op in ("<=", "<") else stmt.right
+    name = dotted(side) or "the demand"
+    return CheckSignError(
+        f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
+        "negative, so the check has no utilisation and cannot pass", stmt.span,
+        hint=f"compare magnitudes with check abs({name}) {stmt.op} ..., or write a compression check "
+             f"with the compressive value positive (check -{name} {stmt.op} ...)")
 
 
 def _word(value):

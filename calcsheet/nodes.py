@@ -261,6 +261,7 @@ class Sheet(Node):
     path: str = "<sheet>"
     source: str = field(default="", repr=False, compare=False)
     includes: tuple[tuple[str, str], ...] = field(default=(), repr=False, compare=False)  # (path, text)
+    meta_lines: tuple[tuple[str, int], ...] = field(default=(), repr=False, compare=False)  # (key, line)
     _children: tuple[str, ...] = field(default=("body",), init=False, repr=False, compare=False)
 
     @property

@@ -98,3 +98,11 @@ def test_module_entry_and_check_does_not_import_weasyprint(sheet):
     assert r.returncode == 0 and r.stdout.strip().endswith("False")
     r = subprocess.run([sys.executable, "-m", "calcsheet", "check", str(p)], capture_output=True, text=True)
     assert r.returncode == 0
+
+
+def test_plugins_into_a_closed_pipe_ends_quietly():
+    import subprocess
+
+    proc = subprocess.run(f"{sys.executable} -m calcsheet plugins | head -n 1", shell=True,
+                          capture_output=True, text=True)
+    assert proc.stdout.strip() and proc.stderr == ""

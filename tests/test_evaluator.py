@@ -81,3 +81,20 @@ def test_the_host_coerces_lists_and_points_and_checks_each_item():
 def test_a_field_the_plugin_did_not_declare_is_a_plugin_bug_not_a_crash():
     with pytest.raises(PluginInputError, match="undeclared field 'extra'"):
         call("ev1.leaky()")
+
+
+def test_a_check_of_opposite_signs_is_an_error_at_its_line_never_ok():
+    import calcsheet
+
+    r = calcsheet.run("N = -116 kN\nA = 1500 mm^2\nsigma = N/A\ncheck sigma <= 275 MPa\n")
+    (d,) = [d for d in r.diagnostics if d.code == "check-sign"]
+    assert d.severity == "error" and d.span.line == 4
+    assert "abs(sigma)" in d.hint and "compression" in d.hint
+    fixed = calcsheet.run("N = -116 kN\nA = 1500 mm^2\nsigma = N/A\ncheck abs(sigma) <= 275 MPa\n")
+    assert fixed.ok and fixed.checks[0].ratio == pytest.approx(116e3 / 1500 / 275)  # |N|/A/f: arithmetic
+
+
+def test_a_check_against_zero_is_still_a_plain_comparison():
+    import calcsheet
+
+    assert calcsheet.run("R = 3 kN\ncheck R >= 0 kN\n").ok  # a sign check: no ratio, no error

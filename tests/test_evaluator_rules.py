@@ -13,6 +13,8 @@ import math
 
 import pytest
 
+from calcsheet.errors import CheckSignError
+
 import calcsheet
 from calcsheet import units as U
 from calcsheet.checker import Checker
@@ -340,7 +342,8 @@ def test_demand_and_capacity_are_shown_in_the_demand_s_own_unit(text):
 
 def test_a_ratio_is_not_formed_against_a_zero_or_negative_capacity():
     assert _check("<=", (1.0, "kN"), (0.0, "kN")).ratio is None
-    assert _check("<=", (-1.0, "kN"), (5.0, "kN")).ratio is None
+    with pytest.raises(CheckSignError):  # opposite signs: no utilisation, an error rather than OK
+        _check("<=", (-1.0, "kN"), (5.0, "kN"))
     assert _check("<=", (0.0, "kN"), (5.0, "kN")).ratio == 0.0
 
 

@@ -92,11 +92,28 @@ def statement_lines(lines: list[str], i: int) -> tuple[int, str, list[str], list
     return j, "\n".join(code_lines), descs, comments
 
 
+class FrontMatter(dict):
+    """The front matter's ``key: value`` table; ``lines`` gives the sheet line of each key, so a
+    warning about a value points at its own line."""
+
+    def __init__(self, *args, **kw):
+        super().__init__(*args, **kw)
+        self.lines: dict[str, int] = {}
+
+    def line_of(self, key: str) -> int:
+        return self.lines.get(key, 1)
+
+
+_TRAILING_COMMENT = re.compile(r"(?:^|\s)//.*$")
+
+
 def front_matter(lines: list[str], path: str) -> tuple[dict, int, list[Diagnostic]]:
     """``---`` block of ``key: value`` lines; list values as indented ``- item`` lines.
 
-    Returns the table, the index of the first body line, and any problems found."""
-    meta: dict = {}
+    A ``//`` comment is a comment here as elsewhere, on its own line or after a value (after a space,
+    so a URL's ``//`` stays). Returns the table, the index of the first body line, and any problems
+    found."""
+    meta = FrontMatter()
     diags: list[Diagnostic] = []
     i = 0
     while i < len(lines) and not lines[i].strip():
@@ -108,7 +125,7 @@ def front_matter(lines: list[str], path: str) -> tuple[dict, int, list[Diagnosti
     current_list: list | None = None
     while i < len(lines):
         raw = lines[i]
-        text = raw.strip()
+        text = _TRAILING_COMMENT.sub("", raw).strip()
         if text == "---":
             return meta, i + 1, diags
         if not text or text.startswith("//"):
@@ -125,9 +142,11 @@ def front_matter(lines: list[str], path: str) -> tuple[dict, int, list[Diagnosti
                                               Span(i + 1, 1, i + 1, len(raw) + 1)).diagnostic(path))
             elif value:
                 meta[key] = value
+                meta.lines[key] = i + 1
                 current_list = None
             else:
                 current_list = meta.setdefault(key, [])
+                meta.lines[key] = i + 1
         else:
             diags.append(FrontMatterError("front matter lines are 'key: value'",
                                           Span(i + 1, 1, i + 1, len(raw) + 1)).diagnostic(path))

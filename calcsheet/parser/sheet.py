@@ -114,5 +114,6 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
         body.append(stmt)
     flush_prose()
     sheet = N.Sheet(meta=tuple(meta.items()), body=tuple(body), path=path, source=source,
+                    meta_lines=tuple(getattr(meta, "lines", {}).items()),
                     includes=tuple(state.sources) if _includes is None else ())
     return sheet, diags

@@ -12,6 +12,7 @@ import dataclasses
 
 from ..trace import CheckResult, Heading, Step
 from .base import Printer
+from .math import is_literal
 
 
 class DocumentPrinter(Printer):
@@ -56,3 +57,13 @@ def number_items(items: list) -> list:
             item = dataclasses.replace(item, number=f"{current}.{step_no}" if current != "0" else str(step_no))
         out.append(item)
     return out
+
+
+def exact_inputs(items: list) -> dict:
+    """The sheet's own inputs as it wrote them: name -> literal, for substitution exactly as written.
+
+    Only the sheet's top-level inputs (not a plugin's working, not a value set on the command line).
+    """
+    return {i.name: i.expr for i in items
+            if isinstance(i, Step) and i.is_input and not i.namespace and i.overridden is None
+            and i.expr is not None and is_literal(i.expr)}

@@ -121,7 +121,7 @@ class HtmlMathPrinter(MathPrinter):
                     ).format(then, cond, otherwise)
 
     # ------------------------------------------------------------ trace records
-    def step_parts(self, step: Step, link=None) -> list[Html]:
+    def step_parts(self, step: Step, link=None, exact: dict | None = None) -> list[Html]:
         """The chain symbol = formula = substitution = result, each already HTML."""
         if isinstance(step, FunctionStep):  # a sheet function: its definition, once
             params = [self.m_name(p) + (Html('&#8201;<span class="unit">[{}]</span>').format(u) if u is not None
@@ -141,18 +141,19 @@ class HtmlMathPrinter(MathPrinter):
             return [lhs, sym]
         parts = [lhs, sym]
         if step.used or step.shown_expr is not None:
-            sub = self.expr(step.shown_expr or step.expr, values=step.used)
+            sub = self.expr(step.shown_expr or step.expr, values=step.used, exact=exact,
+                            result=(step.value, step.display_unit))
             if _plain(sub) != _plain(sym):
                 parts.append(sub)
         if _plain(result) != _plain(parts[-1]):
             parts.append(result)
         return parts
 
-    def check_parts(self, check: CheckResult, link=None) -> tuple[Html, Html]:
+    def check_parts(self, check: CheckResult, link=None, exact: dict | None = None) -> tuple[Html, Html]:
         cmp = Html('<span class="op">{}</span>').format(_CMP[check.op])
         sym = self.expr(check.left, link=link) + cmp + self.expr(check.right, link=link)
-        sub = (self.expr(check.shown_left or check.left, values=check.used) + cmp
-               + self.expr(check.shown_right or check.right, values=check.used))
+        sub = (self.expr(check.shown_left or check.left, values=check.used, exact=exact) + cmp
+               + self.expr(check.shown_right or check.right, values=check.used, exact=exact))
         return sym, sub
 
 

@@ -9,7 +9,7 @@ import json
 
 import pint
 
-from ..display import pint_unit_string, shown
+from ..display import pint_unit_string, portable_unit_string, shown
 from ..plugin import Record
 from .base import Printer
 
@@ -31,7 +31,14 @@ class JsonPrinter(Printer):
                 mag = float(mag)
             except TypeError:
                 mag = [float(x) for x in mag]
-            return {"value": mag, "unit": pint_unit_string(value.units) if value.units._units else ""}
+            if not value.units._units:
+                return {"value": mag, "unit": ""}
+            # "unit" parses with a stock pint registry; where the package shows the value in a trade unit
+            # a stock registry lacks (psf, klf), "display_unit" names it
+            out = {"value": mag, "unit": portable_unit_string(value.units)}
+            if pint_unit_string(value.units) != out["unit"]:
+                out["display_unit"] = pint_unit_string(value.units)
+            return out
         if isinstance(value, str):
             return {"text": value}
         if isinstance(value, Record):

@@ -5,6 +5,9 @@ value replaces which symbol); subclasses only supply the markup hooks.
 """
 from __future__ import annotations
 
+import dataclasses
+import math
+
 import pint
 
 from .. import nodes as N
@@ -21,13 +24,35 @@ class MathPrinter(Printer):
     default_settings = {"sigfigs": 3, "stacked_fractions": False}
 
     # ------------------------------------------------------------ public
-    def expr(self, node: N.Expr, values: dict | None = None, link=None) -> str:
-        """``values`` maps a symbol ('L', 'sec.A') to (value, display unit) for substitution."""
+    def expr(self, node: N.Expr, values: dict | None = None, link=None, *, exact: dict | None = None,
+             result=None) -> str:
+        """``values`` maps a symbol ('L', 'sec.A') to (value, display unit) for substitution.
+
+        ``exact`` maps an input's name to its literal: it is printed as the sheet wrote it. With
+        ``result`` (value, display unit), calculated values are printed with as many significant
+        figures as recomputing the formula from the printed numbers needs to give the printed result.
+        """
         self._values = values
         self._link = link
-        return self._print(node, 0)
+        self._exact = exact or {}
+        self._digits = 0
+        if values is not None and result is not None:
+            self._digits = reproducing_sigfigs(node, values, self._exact, result, self.settings["sigfigs"])
+        try:
+            return self._print(node, 0)
+        finally:
+            self._exact, self._digits = {}, 0
 
-    def value(self, value, unit=None) -> str:
+    def _substituted(self, key):
+        if key in self._exact:  # an input, as the sheet wrote it
+            literal = self._exact[key]
+            if isinstance(literal, N.Neg) and isinstance(literal.operand, N.Number):
+                return self.m_neg(self._print(literal.operand, ATOM))  # "−2 kN", not "−(2 kN)"
+            return self._print(literal, 0)
+        v, unit = self._values[key]
+        return self.value(v, unit, sigfigs=self._digits or None)
+
+    def value(self, value, unit=None, sigfigs: int | None = None) -> str:
         """A result: '23.4 kN·m', '1.23×10⁵ mm³', 'OK'."""
         if isinstance(value, pint.Quantity):
             value = shown(value, unit)
@@ -37,6 +62,14 @@ class MathPrinter(Printer):
             except TypeError:
                 return self.m_text(f"array of {len(mag)} values")
             text, exp = split_number(mag, self.settings["sigfigs"])
+            if sigfigs and sigfigs > self.settings["sigfigs"]:  # extra figures, but no trailing zeros
+                more = split_number(mag, sigfigs)
+                for fewer_figures in range(sigfigs - 1, self.settings["sigfigs"] - 1, -1):
+                    fewer = split_number(mag, fewer_figures)
+                    if float(_num(*fewer)) != float(_num(*more)):
+                        break
+                    more = fewer
+                text, exp = more
             number = self.m_number(text, exp)
             unit_markup = self.m_unit(value.units) if not _is_dimensionless(value.units) else ""
             return self.m_quantity(number, unit_markup)
@@ -79,15 +112,13 @@ class MathPrinter(Printer):
 
     def _print_Name(self, node: N.Name, ctx):
         if self._values is not None and node.id in self._values:
-            v, unit = self._values[node.id]
-            return self.value(v, unit)
+            return self._substituted(node.id)
         return self.m_name(node.id, link=self._link(node.id) if self._link else None)
 
     def _print_FieldAccess(self, node: N.FieldAccess, ctx):
         key = dotted(node)
         if self._values is not None and key in self._values:
-            v, unit = self._values[key]
-            return self.value(v, unit)
+            return self._substituted(key)
         return self.m_field(self._print(node.obj, ATOM), node.field_name,
                             link=self._link(key) if self._link and key else None)
 
@@ -118,7 +149,8 @@ class MathPrinter(Printer):
     def _print_Pow(self, node: N.Pow, ctx):
         base = self._wrap(node.left, PRECEDENCE[N.Pow] + 1)
         exponent_values = self._values
-        self._values = None  # exponents are printed as written (they are plain numbers)
+        if not any(isinstance(n, (N.Name, N.FieldAccess)) for n in N.walk(node.right)):
+            self._values = None  # a number exponent is printed as written; a named one is substituted
         try:
             exponent = self._print(unparen(node.right), 0)
         finally:
@@ -173,6 +205,10 @@ class MathPrinter(Printer):
 
 
 
+def _num(text: str, exp) -> str:
+    return text if exp is None else f"{text}e{exp}"
+
+
 def _is_dimensionless(unit) -> bool:
     return not unit._units
 
@@ -180,3 +216,103 @@ def _is_dimensionless(unit) -> bool:
 def is_literal(node) -> bool:
     """A value written directly (``6.0 m``, ``-2 kN``): its formula is its result."""
     return isinstance(strip_sign(node), (N.Number, N.Text))
+
+
+# ------------------------------------------------------------------ reproducible substitution
+
+_MAX_SIGFIGS = 15
+_EVALUATOR = None
+
+
+def _evaluator():
+    global _EVALUATOR
+    if _EVALUATOR is None:
+        from ..evaluator import Evaluator
+
+        _EVALUATOR = Evaluator()
+    return _EVALUATOR
+
+
+def _rounded(value, unit, sigfigs: int):
+    """The value as printed at ``sigfigs`` figures, as a quantity (None when it is not a scalar)."""
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
+        value = _evaluator().number(value)
+    if not isinstance(value, pint.Quantity):
+        return None
+    q = shown(value, unit)
+    try:
+        mag = float(q.magnitude)
+    except TypeError:
+        return None
+    if not math.isfinite(mag):
+        return None
+    text, exp = split_number(mag, sigfigs)
+    return q.__class__(float(text) * (10.0 ** exp if exp else 1.0), q.units)
+
+
+def _replace_symbols(node, keys: dict):
+    """The formula with each substituted symbol ('L', 'sec.A') replaced by a placeholder name."""
+    key = dotted(node) if isinstance(node, (N.Name, N.FieldAccess)) else None
+    if key is not None and key in keys:
+        return N.Name(keys[key], span=getattr(node, "span", None))
+    if not dataclasses.is_dataclass(node) or isinstance(node, type):
+        return node
+    changes = {}
+    for f in dataclasses.fields(node):
+        if not f.init or f.name.endswith("span"):
+            continue
+        v = getattr(node, f.name)
+        if isinstance(v, N.Expr) or (dataclasses.is_dataclass(v) and not isinstance(v, type)):
+            new = _replace_symbols(v, keys)
+        elif isinstance(v, (tuple, list)):
+            new = type(v)(_replace_symbols(i, keys) for i in v)
+        else:
+            continue
+        if new is not v:
+            changes[f.name] = new
+    return dataclasses.replace(node, **changes) if changes else node
+
+
+def _has_plugin_call(node) -> bool:
+    return any(isinstance(n, N.PluginCall) for n in N.walk(node))
+
+
+def reproducing_sigfigs(node, values: dict, exact: dict, result, sigfigs: int) -> int:
+    """The fewest significant figures (at least the sheet's) for the calculated values substituted
+    into ``node`` such that recomputing it from the printed numbers (inputs exactly as written) gives
+    the printed result to its last digit; 0 when nothing needs it or it cannot be recomputed."""
+    value, unit = result
+    target = _rounded(value, unit, sigfigs)
+    calculated = [k for k in values if k not in exact]
+    if target is None or not calculated or _has_plugin_call(node):
+        return 0
+    keys = {k: f"__sub{i}" for i, k in enumerate(values)}
+    formula = _replace_symbols(node, keys)
+    ev = _evaluator()
+    fixed = {}
+    for k in values:
+        if k in exact:
+            try:
+                fixed[keys[k]] = ev.eval(exact[k], {})
+            except Exception:
+                return 0
+    for p in range(sigfigs, _MAX_SIGFIGS + 1):
+        env = dict(fixed)
+        for k in calculated:
+            r = _rounded(values[k][0], values[k][1], p)
+            if r is None:
+                return 0
+            env[keys[k]] = r
+        try:
+            got = ev.eval(formula, env)
+            got = got.to(value.units) if isinstance(got, pint.Quantity) else None
+        except Exception:
+            return 0
+        if got is None or _rounded(got, unit, sigfigs) is None:
+            return 0
+        shown_got = float(shown(got, unit).magnitude)
+        # the printed numbers must give the printed result clearly, not by a tie a calculator rounds otherwise
+        if all(split_number(shown_got * f, sigfigs) == split_number(float(shown(value, unit).magnitude), sigfigs)
+               for f in (1 - 1e-9, 1.0, 1 + 1e-9)):
+            return p if p > sigfigs else 0
+    return _MAX_SIGFIGS

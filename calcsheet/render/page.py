@@ -17,8 +17,10 @@ from .. import __version__
 from ..display import split_number, unit_text
 from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
 from .base import split_name
-from .document import DocumentPrinter, number_items
+from .document import DocumentPrinter, exact_inputs, number_items
+from .. import nodes as N
 from .html import HtmlMathPrinter
+from .math import is_literal
 from .markup import Html, anchor_id, esc
 
 ASSETS = Path(__file__).resolve().parent.parent / "assets"
@@ -45,11 +47,43 @@ _FRONT = Html("""<section class="front">
 <h1 class="doc-title">{title}</h1>
 <p class="doc-project">{project}</p>
 <div class="overall {cls}">{status}</div>
+{signoff}
 <h2 class="front-h">Summary of checks</h2>
 {table}
 {revs}
+{basis}
 <div class="caution"><strong>Caution.</strong> {caution}</div>
 </section>""")
+
+# front-matter keys of the sign-off lines: (role, name key, date key)
+SIGNOFF = [("Prepared", "by", "date"), ("Checked", "checked", "checked_date"),
+           ("Approved", "approved", "approved_date")]
+
+
+def latest_revision(meta: dict) -> tuple[str, str] | None:
+    """(rev, date) of the last entry of ``revisions:``, or None when there is none."""
+    revs = meta.get("revisions")
+    if not isinstance(revs, list) or not revs:
+        return None
+    cells = [c.strip() for c in str(revs[-1]).split("|", 3)] + ["", ""]
+    return cells[0], cells[1]
+
+
+def standards_used(result, registry=None) -> list[tuple[str, str]]:
+    """(standard with edition, who relies on it): the sheet's own ``standards:`` and every plugin it called."""
+    out: list[tuple[str, str]] = []
+    own = result.meta.get("standards")
+    for entry in (own if isinstance(own, list) else [own] if own else []):
+        out.append((str(entry).strip(), "this sheet"))
+    if result.plugin_versions:
+        from ..plugin import default_registry
+
+        registry = registry or default_registry()
+        for name in sorted(result.plugin_versions):
+            ns = registry.namespace(name)
+            for std in getattr(ns, "standards", ()) or ():
+                out.append((str(std), f"plugin {name} {result.plugin_versions[name]}"))
+    return out
 
 
 class PackageDocument(DocumentPrinter):
@@ -69,6 +103,11 @@ class PackageDocument(DocumentPrinter):
         self.changed = changed or set()
         self.watch_script = Html() if watch_script is None else watch_script
         self.numbered = number_items(result.items)
+        self.exact = exact_inputs(result.items)
+        self.appendix: list = []  # (owner, working title, records) of cross-checks, filled by body()
+        # a plugin warning allowed with a reason is listed once, with the suppressed findings, not inline
+        self.allowed = ({d.message for d in result.diagnostics if d.suppressed and d.code == "plugin-warning"}
+                        - {d.message for d in result.diagnostics if not d.suppressed})
         self.checks = [i for i in self.numbered if isinstance(i, CheckResult)]
         self.anchors = {name: step.anchor for name, step in result.steps.items()}
 
@@ -93,20 +132,42 @@ class PackageDocument(DocumentPrinter):
             self.title_block(),
             self.footer(),
             Html("<main>"),
-            self.front(),
-            self.extra_front,
-            self.body(),
-            self.inputs_list(),
-            self.diagnostics(),
+            *self._main(),
             Html("</main>"),
             self.watch_script,
             Html("</body></html>"),
         ])
 
+    def _main(self) -> list[Html]:
+        inputs, diags = self.inputs_list(), self.diagnostics()
+        self._sections = {name for name, part in (("inputs", inputs), ("diagnostics", diags)) if part}
+        self.appendix = []
+        body = self.body()  # fills self.appendix
+        appendix = self.appendix_section()
+        if appendix:
+            self._sections.add("appendix")
+        return [self.front(), self.contents(), self.extra_front, inputs, body, diags, appendix]
+
+    def appendix_section(self) -> Html:
+        """Appendix A: each working's check by a second method, referenced from its step."""
+        if not self.appendix:
+            return Html()
+        parts = []
+        for n, (owner, title, cross) in enumerate(self.appendix, 1):
+            parts.append(Html('<h3 class="sec" id="cross-{}"><span class="secno">A.{}</span> {}{}</h3>{}').format(
+                n, n, title, " for " + owner if owner else "",
+                Html("\n").join(self.record(i, inner=True) for i in cross if not isinstance(i, Note))))
+        return Html("<section class='appendix'><h2 class='sec' id='appendix'>Appendix A — checks by a second "
+                    "method</h2>{}</section>").format(Html("").join(parts))
+
     def title_block(self) -> Html:
         m = self.meta
         cells = {k: m.get(k, "") for k, _ in TITLE_FIELDS}
         cells["date"] = m.get("date") or _dt.date.today().isoformat()
+        latest = latest_revision(m)
+        if latest is not None:  # the title block states the issue the latest revision entry records
+            cells["rev"] = latest[0] or cells["rev"]
+            cells["date"] = latest[1] or cells["date"]
         return _TITLE_BLOCK.format(units=self.result.policy.system, **cells)
 
     def footer(self) -> Html:
@@ -140,7 +201,7 @@ class PackageDocument(DocumentPrinter):
                 '<tr class="{}"><td><a href="#{}">{}</a></td><td>{}</td><td class=\'math\'>{}</td>'
                 "<td class='numcol'>{}</td><td class='numcol'>{}</td><td class='numcol'>{}</td>"
                 "<td class='status'>{}</td></tr>").format(
-                "ok" if c.ok else "ng", c.anchor, c.number, c.description or "", sym,
+                "ok" if c.ok else "ng", c.anchor, c.number, c.description or sym, sym,
                 self.printer.value(c.demand), self.printer.value(c.capacity, _unit(c.demand)),
                 f"{c.ratio:.2f}" if c.ratio is not None else "—", "OK" if c.ok else "NG"))
         table = (Html("<table class='summary'><thead><tr><th>Step</th><th>Check</th><th>Condition</th>"
@@ -148,7 +209,40 @@ class PackageDocument(DocumentPrinter):
                       "</tbody></table>").format(Html("").join(rows))
                  if rows else Html("<p>This sheet states no checks.</p>"))
         return _FRONT.format(title=self.meta.get("subject") or Path(r.path).stem, project=self.meta.get("project", ""),
-                             cls=cls, status=status, table=table, revs=self.revisions(), caution=CAUTION)
+                             cls=cls, status=status, table=table, revs=self.revisions(), caution=CAUTION,
+                             signoff=self.signoff(), basis=self.design_basis())
+
+    def signoff(self) -> Html:
+        """Prepared / checked / approved, with names and dates from the front matter."""
+        rows = Html("").join(
+            Html("<tr><th>{}</th><td class='who'>{}</td><td class='when'>{}</td><td class='sign'></td></tr>").format(
+                role, self.meta.get(who, ""), self.meta.get(when, "") if self.meta.get(who) else "")
+            for role, who, when in SIGNOFF)
+        return Html("<table class='signoff'><thead><tr><th></th><th>Name</th><th>Date</th><th>Signature</th></tr>"
+                    "</thead><tbody>{}</tbody></table>").format(rows)
+
+    def design_basis(self) -> Html:
+        """Every standard and edition the sheet and its plugins rely on, collected from the plugins."""
+        used = standards_used(self.result)
+        items = (Html("").join(Html("<li>{} <span class='by'>({})</span></li>").format(std, by) for std, by in used)
+                 if used else Html("<li>No published standard is named by this sheet or the plugins it calls.</li>"))
+        return Html("<h2 class='front-h'>Design basis</h2><ul class='basis'>{}</ul>").format(items)
+
+    def contents(self) -> Html:
+        """Headings with their page numbers (the PDF fills them in with target-counter)."""
+        def extra(anchor, title):
+            if anchor not in self._sections:
+                return []
+            return [Html("<li class='toc-1'><a href='#{}'>{}</a></li>").format(anchor, title)]
+
+        entries = extra("inputs", "Inputs") + [
+            Html("<li class='toc-{}'><a href='#{}'><span class='toc-no'>{}</span> {}</a></li>").format(
+                i.level, i.anchor, i.number, i.text) for i in self.numbered if isinstance(i, Heading) and i.anchor
+        ] + extra("diagnostics", "Diagnostics") + extra("appendix", "Appendix A — checks by a second method")
+        if not entries:
+            return Html()
+        return Html("<nav class='contents'><h2 class='front-h'>Contents</h2><ol>{}</ol></nav>").format(
+            Html("").join(entries))
 
     def revisions(self) -> Html:
         revs = self.meta.get("revisions")
@@ -159,7 +253,13 @@ class PackageDocument(DocumentPrinter):
             cells = [c.strip() for c in str(entry).split("|", 3)]  # a "|" in the description stays
             cells += [""] * (4 - len(cells))
             rows.append(Html("<tr>{}</tr>").format(Html("").join(Html("<td>{}</td>").format(c) for c in cells[:4])))
-        return Html("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
+        latest = latest_revision(self.meta) or ("", "")
+        stale = [Html("{}: {} in the front matter, {} in the latest revision entry").format(key, self.meta[key], new)
+                 for key, new in (("rev", latest[0]), ("date", latest[1]))
+                 if self.meta.get(key) and new and str(self.meta[key]).strip() != new]
+        note = (Html("<p class='note warning'>The title block follows the latest revision entry; {}.</p>").format(
+            Html("; ").join(stale)) if stale else Html())
+        return note + Html("<h2 class='front-h'>Revisions</h2><table class='revisions'><thead><tr><th>Rev</th><th>Date</th>"
                     "<th>By</th><th>Description</th></tr></thead><tbody>{}</tbody></table>").format(Html("").join(rows))
 
     def body(self) -> Html:
@@ -181,15 +281,26 @@ class PackageDocument(DocumentPrinter):
         return Html('<figure class="fig">{}<figcaption>{}</figcaption></figure>').format(Html(item.svg), item.caption)
 
     def _print_Note(self, item: Note, inner: bool = False) -> Html:
+        if item.kind == "warning" and item.text in self.allowed:
+            return Html()
         return Html('<p class="note {}">{}</p>').format(item.kind, item.text)
 
     def _print_Working(self, w: Working, inner: bool = False, owner: str = "") -> Html:
-        items = Html("\n").join(self.record(i, inner=True) for i in w.items)
+        main, cross = _split_cross_checks(w.items)
+        if not any(isinstance(i, Table) for i in cross):  # a one-line agreement note stays where it is
+            main, cross = list(w.items), []
+        items = Html("\n").join(self.record(i, inner=True) for i in main)
+        if cross:  # an independent cross-check is kept, in the appendix the reader may skip
+            self.appendix.append((owner, w.title, cross))
+            ref = "cross-" + str(len(self.appendix))
+            note = Html("").join(i.text for i in cross if isinstance(i, Note))
+            items += Html('<p class="note agreement">{} <a href="#{}">Appendix A.{}</a>.</p>').format(
+                note or "Checked by a second method:", ref, len(self.appendix))
         return Html('<div class="working"><div class="working-title">Working of {}{}</div>{}</div>').format(
             w.title, " for " + owner if owner else "", items)
 
     def _print_Step(self, step: Step, inner: bool = False) -> Html:
-        parts = self.printer.step_parts(step, None if inner else self.link)
+        parts = self.printer.step_parts(step, None if inner else self.link, None if inner else self.exact)
         chain = Html('<span class="eq">=</span>').join(Html('<span class="term">{}</span>').format(p) for p in parts)
         marks = []
         if step.overridden is not None:
@@ -208,7 +319,7 @@ class PackageDocument(DocumentPrinter):
         return out
 
     def _print_CheckResult(self, c: CheckResult, inner: bool = False) -> Html:
-        sym, sub = self.printer.check_parts(c, None if inner else self.link)
+        sym, sub = self.printer.check_parts(c, None if inner else self.link, None if inner else self.exact)
         ratio = f"ratio {c.ratio:.2f}" if c.ratio is not None else "ratio cannot be formed"
         ident = Html(' id="{}"').format(c.anchor) if c.anchor and not inner else Html()
         number = Html('<span class="stepno">{}</span>').format(c.number) if c.number else Html()
@@ -261,7 +372,17 @@ class PackageDocument(DocumentPrinter):
                     self.printer.value(step.overridden, step.display_unit))
             rows.append(Html("<tr><td><a href='#{}'>{}</a></td><td>{}</td><td class='numcol'>{}</td><td>{}</td></tr>"
                              ).format(anchor_id(step.anchor), self.printer.m_name(name), step.description or "",
-                                      self.printer.value(step.value, step.display_unit), mark))
+                                      self.printer.expr(self.exact[name]) if name in self.exact
+                                      else self.printer.value(step.value, step.display_unit), mark))
+        for step in r.steps.values():  # the literal values a sheet passes to a plugin are inputs too
+            if isinstance(step.expr, N.PluginCall):
+                for kw in step.expr.kwargs:
+                    if is_literal(kw.value) and kw.name != "detail":  # detail: how much working is shown
+                        rows.append(Html("<tr><td><a href='#{}'>{}</a></td><td>{}</td><td class='numcol'>{}</td>"
+                                         "<td></td></tr>").format(
+                            anchor_id(step.anchor), self.printer.m_field(self.printer.m_name(step.name), kw.name),
+                            Html("{} of {}.{}").format(kw.name, step.expr.namespace, step.expr.func),
+                            self.printer.expr(kw.value)))
         suppressed = [d for d in r.diagnostics if d.suppressed]
         sup = Html()
         if suppressed:
@@ -270,7 +391,7 @@ class PackageDocument(DocumentPrinter):
                 for d in suppressed))
         if not rows and not sup:
             return Html()
-        return Html("<section class='inputs'><h2 class='sec'>Inputs</h2><table class='inputs'><thead><tr>"
+        return Html("<section class='inputs'><h2 class='sec' id='inputs'>Inputs</h2><table class='inputs'><thead><tr>"
                     "<th>Symbol</th><th>Description</th><th>Value</th><th></th></tr></thead><tbody>{}"
                     "</tbody></table>{}</section>").format(Html("").join(rows), sup)
 
@@ -283,7 +404,21 @@ class PackageDocument(DocumentPrinter):
                 d.severity, d.span.line, d.span.col, d.severity, d.code, d.message,
                 Html(" — {}").format(d.hint) if d.hint else "")
             for d in diags)
-        return Html("<section class='diagnostics'><h2 class='sec'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+        return Html("<section class='diagnostics'><h2 class='sec' id='diagnostics'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+
+
+def _split_cross_checks(items: list) -> tuple[list, list]:
+    """A working's records, and its check by a second method: a note of kind "agreement" with the
+    table just before it."""
+    main, cross = [], []
+    for item in items:
+        if isinstance(item, Note) and item.kind == "agreement":
+            if main and isinstance(main[-1], Table):
+                cross.append(main.pop())
+            cross.append(item)
+        else:
+            main.append(item)
+    return main, cross
 
 
 def _unit(q):

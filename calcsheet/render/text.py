@@ -5,7 +5,7 @@ from __future__ import annotations
 from ..display import superscript, unit_text
 from ..trace import CheckResult, Figure, FunctionStep, Heading, Note, Prose, Step, Table, Working
 from .base import split_name
-from .document import DocumentPrinter
+from .document import DocumentPrinter, exact_inputs
 from .math import MathPrinter, is_literal
 
 
@@ -72,6 +72,11 @@ class TextDocument(DocumentPrinter):
     def join(self, pieces):
         return "\n".join(p for p in pieces if p is not None)
 
+    def items(self, items, indent=""):
+        if not indent:  # the sheet's own records: its inputs are substituted as written
+            self.exact = exact_inputs(items)
+        return super().items(items, indent=indent)
+
     def _print_Heading(self, item: Heading, indent=""):
         return "\n" + indent + ("#" * item.level) + " " + (item.number + " " if item.number else "") + item.text
 
@@ -79,13 +84,13 @@ class TextDocument(DocumentPrinter):
         return indent + item.text
 
     def _print_Step(self, item: Step, indent=""):
-        line = indent + self.step(item) + (f"   -- {item.description}" if item.description else "")
+        line = indent + self.step(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
         if item.working is not None:
             line += "\n" + self.items(item.working.items, indent=indent + "    ")
         return line
 
     def _print_CheckResult(self, item: CheckResult, indent=""):
-        return indent + self.check(item) + (f"   -- {item.description}" if item.description else "")
+        return indent + self.check(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
 
     def _print_Table(self, item: Table, indent=""):
         return indent + f"[table: {item.title}, {len(item.rows)} rows]"
@@ -99,7 +104,7 @@ class TextDocument(DocumentPrinter):
     def _print_Working(self, item: Working, indent=""):
         return self.items(item.items, indent=indent + "    ")
 
-    def step(self, step: Step) -> str:
+    def step(self, step: Step, nested: bool = False) -> str:
         """symbol = formula = substitution = result."""
         m = self.math
         if isinstance(step, FunctionStep):  # a sheet function: its definition, once
@@ -118,7 +123,9 @@ class TextDocument(DocumentPrinter):
         if is_literal(step.expr) and step.overridden is None:
             return f"{lhs} = {sym}"
         if step.used or step.shown_expr is not None:
-            sub = m.expr(step.shown_expr or step.expr, values=step.used)
+            sub = m.expr(step.shown_expr or step.expr, values=step.used,
+                         exact=None if nested else getattr(self, "exact", {}),
+                         result=(step.value, step.display_unit))
             if sub != sym:
                 parts.append(sub)
         if result != parts[-1]:
@@ -128,13 +135,14 @@ class TextDocument(DocumentPrinter):
             line += f"   [set on the command line; sheet has {m.value(step.overridden, step.display_unit)}]"
         return line
 
-    def check(self, check: CheckResult) -> str:
+    def check(self, check: CheckResult, nested: bool = False) -> str:
         m = self.math
         left = m.expr(check.left)
         right = m.expr(check.right)
         status = "OK" if check.ok else "NG"
         ratio = f"  ratio {check.ratio:.2f}" if check.ratio is not None else ""
-        lv = m.expr(check.shown_left or check.left, values=check.used)
-        rv = m.expr(check.shown_right or check.right, values=check.used)
+        exact = None if nested else getattr(self, "exact", {})
+        lv = m.expr(check.shown_left or check.left, values=check.used, exact=exact)
+        rv = m.expr(check.shown_right or check.right, values=check.used, exact=exact)
         cmp = {"<=": "≤", ">=": "≥"}.get(check.op, check.op)
         return f"check {left} {cmp} {right}:  {lv} {cmp} {rv}  →  {status}{ratio}"

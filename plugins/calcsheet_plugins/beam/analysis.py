@@ -266,10 +266,10 @@ def _envelope(work, setup, res, lit, lim, deflection):
         return f" ({c.combo.name})" if many else ""
 
     out["M_max"] = work.let("M_max", lit.q(gmax.M_max.value, "moment"), unit=u["moment"],
-                            desc=f"largest sagging moment{env}", note=f"at x = {_x(lit, gmax.M_max.x)}{tagged(gmax)}")
+                            desc=extreme_label("sagging", gmax.M_max.value) + env, note=f"at x = {_x(lit, gmax.M_max.x)}{tagged(gmax)}")
     out["x_M_max"] = lit.q(gmax.M_max.x, "length")
     out["M_min"] = work.let("M_min", lit.q(gmin.M_min.value, "moment"), unit=u["moment"],
-                            desc=f"largest hogging moment{env}", note=f"at x = {_x(lit, gmin.M_min.x)}{tagged(gmin)}")
+                            desc=extreme_label("hogging", gmin.M_min.value) + env, note=f"at x = {_x(lit, gmin.M_min.x)}{tagged(gmin)}")
     out["x_M_min"] = lit.q(gmin.M_min.x, "length")
     out["M_abs"] = work.calc("M_abs", "max(abs(M_max), abs(M_min))", unit=u["moment"],
                              desc="largest moment in magnitude")
@@ -450,3 +450,12 @@ def stresses(work, member, section):
               "the two for each fibre, with M = max(|M_max|, |M_min|).")
     return {"sigma_top": top.to(st), "sigma_bot": bot.to(st), "sigma_max": work["sigma_max"].to(st),
             "tau_max": tau.to(st), "M": work["M"].to(mo), "V": work["V"].to(fo)}
+
+
+def extreme_label(kind: str, value: float) -> str:
+    """What an extreme moment is: 'largest sagging moment', or 'no sagging moment' when the member has none
+    (sagging positive: the largest moment is then the least hogging one)."""
+    if (value > 0) if kind == "sagging" else (value < 0):
+        return f"largest {kind} moment"
+    other = "hogging" if kind == "sagging" else "sagging"
+    return f"no {kind} moment anywhere (the value is the least {other} moment)"

@@ -15,6 +15,7 @@ from calcsheet.plugin import Field, Param
 from calcsheet.suggest import did_you_mean
 
 from . import namespace
+from .analysis import extreme_label
 from .model import letters
 from .solver import TIE, horner
 from .working import Lit
@@ -184,11 +185,11 @@ def result(work, member, combo=None):
            "duration": cb.duration}
     note = f"{cb.name}: exact, from the piecewise polynomials"
     out["M_max"] = work.let("M_max", lit.q(cr.M_max.value, "moment"), unit=u["moment"],
-                            desc="largest sagging moment", note=note + f", at x = {cr.M_max.x:.4g} m")
+                            desc=extreme_label("sagging", cr.M_max.value), note=note + f", at x = {cr.M_max.x:.4g} m")
     out["x_M_max"] = lit.q(cr.M_max.x, "length")
     out["V_at_M_max"] = lit.q(cr.V_at(cr.M_max.x), "force")
     out["M_min"] = work.let("M_min", lit.q(cr.M_min.value, "moment"), unit=u["moment"],
-                            desc="largest hogging moment", note=note + f", at x = {cr.M_min.x:.4g} m")
+                            desc=extreme_label("hogging", cr.M_min.value), note=note + f", at x = {cr.M_min.x:.4g} m")
     out["x_M_min"] = lit.q(cr.M_min.x, "length")
     out["V_at_M_min"] = lit.q(cr.V_at(cr.M_min.x), "force")
     out["V_max"] = work.let("V_max", lit.q(abs(cr.V_max.value), "force"), unit=u["force"],

@@ -192,3 +192,15 @@ def test_partial_udl_simply_supported():
     Mmax, _ = extremes(s, "M")
     assert Mmax.value == pytest.approx(R1 * (a + R1 / (2 * w)), **rel)
     assert Mmax.x == pytest.approx(a + R1 / w, **rel)  # where the shear is zero
+
+
+def test_extreme_moment_labels_say_when_there_is_no_sagging_or_hogging():
+    import calcsheet
+
+    # a cantilever under a downward end load hogs everywhere (AISC T3-23 case 22); a simple span sags
+    r = calcsheet.run('c = beam.solve(spans=[3 m], supports="fixed, free", loads=[beam.point(P=10 kN, x=3 m)], '
+                      'E=200 GPa, I=1e8 mm^4)\n')
+    assert r.ok, r.format_diagnostics()
+    descs = {s.name: s.description for s in r.steps["c"].working.items if hasattr(s, "name")}
+    assert descs["M_max"].startswith("no sagging moment anywhere")
+    assert descs["M_min"].startswith("largest hogging moment")
