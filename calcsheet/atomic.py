@@ -4,17 +4,21 @@ from __future__ import annotations
 
 import os
 import tempfile
+from contextlib import contextmanager
 from pathlib import Path
 
 
-def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
-    """Write to a temporary file in the same folder, fsync, then rename over ``path``."""
+@contextmanager
+def atomic_stream(path: Path, mode: int = 0o644, binary: bool = False):
+    """Stream into a temporary file in the same folder; fsync and rename over ``path`` when the block ends.
+
+    If the block raises (or the process is interrupted), the temporary file is removed and ``path`` keeps
+    its old bytes."""
     path = Path(path)
-    folder = path.parent
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
     try:
-        with os.fdopen(fd, "wb") as fh:
-            fh.write(data)
+        with os.fdopen(fd, "wb" if binary else "w", **({} if binary else {"encoding": "utf-8", "newline": ""})) as fh:
+            yield fh
             fh.flush()
             os.fsync(fh.fileno())
         os.chmod(tmp, mode)
@@ -25,16 +29,14 @@ def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
         except FileNotFoundError:
             pass
         raise
-    try:
-        dfd = os.open(folder, os.O_RDONLY)
-    except OSError:
-        return
-    try:
-        os.fsync(dfd)
-    except OSError:
-        pass
-    finally:
-        os.close(dfd)
+
+
+def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
+    """Write to a temporary file in the same folder, fsync, then rename over ``path``."""
+    path = Path(path)
+    with atomic_stream(path, mode, binary=True) as fh:
+        fh.write(data)
+    _fsync_dir(path.parent)
 
 
 # ---------------------------------------------------------------- a package: several files as one unit

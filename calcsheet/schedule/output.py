@@ -13,11 +13,10 @@ import io
 import json
 import os
 import tempfile
-from contextlib import contextmanager
 from pathlib import Path
 
 from .. import __version__
-from ..atomic import write_atomic
+from ..atomic import atomic_stream, write_atomic
 from ..render import schedule as RS
 from .work import CheckLine, Outcome
 
@@ -25,25 +24,6 @@ TOP_RANKED = 100
 BIN_WIDTH = 0.1
 N_BINS = 16  # 0.0–1.5 and ≥ 1.5
 MAX_ERRORS_LISTED = 50
-
-
-@contextmanager
-def atomic_stream(path: Path, mode: int = 0o644, binary: bool = False):
-    """Stream into a temporary file in the same folder; fsync and rename over ``path`` when done."""
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
-    try:
-        with os.fdopen(fd, "wb" if binary else "w", **({} if binary else {"encoding": "utf-8", "newline": ""})) as fh:
-            yield fh
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.chmod(tmp, mode)
-        os.replace(tmp, path)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except FileNotFoundError:
-            pass
-        raise
 
 
 def write_member(out_dir: Path, outcome: Outcome) -> list[Path]:
