@@ -10,25 +10,28 @@ inputs, checks without a utilisation, unusual declared units.
 """
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 
+import pint
+
+from . import builtins as B
 from . import nodes as N
 from . import units as U
 from . import lint
 from .errors import (
-    AngleError,
     CalcError,
     DeclaredUnitError,
-    DimensionError,
     Diagnostic,
     OffsetTemperatureError,
     PluginArgumentError,
     TypeMismatchError,
     UnknownFieldError,
+    UnknownFunctionError,
     UnknownUnitError,
 )
-from .evaluator import INVERSE_TRIG, TRANSCENDENTAL, TRIG
-from .plugin import PluginFunction, PluginRegistry
+from .names import did_you_mean, operand as _operand
+from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds
 from .resolver import Resolution, check_key
 from .slips import specialise
 
@@ -50,6 +53,21 @@ class T:
     record_type: str | None = None
     offset: bool = False
 
+    @property
+    def arg(self) -> B.Arg | None:
+        """What the built-in rules know of this type (None: not known)."""
+        return B.Arg(self.dim, self.offset) if self.kind == "q" else None
+
+    @staticmethod
+    def of(arg: B.Arg | None) -> "T":
+        return ANY if arg is None else T("q", arg.dim, offset=arg.offset)
+
+    def word(self):
+        """This type as ``builtins.rule_if`` compares it: an Arg, a word, or None (unknown)."""
+        if self.kind == "any":
+            return None
+        return self.arg if self.kind == "q" else self.describe()
+
     def describe(self) -> str:
         if self.kind == "q":
             return U.describe_dim(self.dim) + (" on an offset scale (°C/°F)" if self.offset else "")
@@ -61,6 +79,47 @@ class T:
 ANY = T("any")
 TEXT = T("text")
 NUMBER = T("q", U.DIMENSIONLESS)
+
+
+class ValueTypes(Mapping):
+    """The static types of evaluated values, by name: the evaluator asks the checker for the dimension
+    of an ``if`` branch it does not take, reading the names it has values for."""
+
+    def __init__(self, env: dict, plugins: PluginRegistry):
+        self.env = env
+        self.plugins = plugins
+
+    def __getitem__(self, name: str) -> T:
+        return type_of_value(self.env[name], self.plugins)
+
+    def __contains__(self, name) -> bool:
+        return name in self.env
+
+    def __iter__(self):
+        return iter(self.env)
+
+    def __len__(self) -> int:
+        return len(self.env)
+
+
+def type_of_value(value, plugins: PluginRegistry) -> T:
+    """The static type an evaluated value has."""
+    if isinstance(value, pint.Quantity):
+        arg = B.arg_of(value)
+        return T("q", arg.dim, offset=arg.offset)
+    if isinstance(value, str):
+        return TEXT
+    if isinstance(value, Record):
+        pf = None
+        if value.source and "." in value.source:
+            try:
+                pf = plugins.function(*value.source.split(".", 1))
+            except CalcError:
+                pf = None
+        return T("record", record=pf, record_type=value.type)
+    if isinstance(value, tuple):
+        return T("list", item=type_of_value(value[0], plugins) if value else ANY)
+    return ANY
 
 
 class Broken(Exception):
@@ -133,41 +192,33 @@ class Checker:
 
     def definition(self, stmt: N.Definition) -> T:
         t = self.infer(stmt.expr)
-        if stmt.unit is not None:
-            try:
-                want = U.dim_of(U.build_unit(stmt.unit)) if stmt.unit else U.DIMENSIONLESS
-            except CalcError as exc:
-                raise exc.with_span(stmt.unit_span or stmt.span)
-            if t.kind == "any":
-                return T("q", want)
-            if t.kind != "q":
-                raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
-                                        stmt.unit_span or stmt.span)
-            if U.without_angle(t.dim) != U.without_angle(want):
-                exc = DeclaredUnitError(
-                    f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want)}) "
-                    f"but the expression gives {U.describe_dim(t.dim)}",
-                    stmt.unit_span or stmt.span,
-                    hint=_explain(stmt.expr, self),
-                )
-                specialise(exc, want, t.dim, _operand(stmt.expr, "the expression"))
-                raise exc
-        return t
+        if stmt.unit is None:
+            return t
+        try:
+            unit = U.build_unit(stmt.unit) if stmt.unit else None
+        except CalcError as exc:
+            raise exc.with_span(stmt.unit_span or stmt.span)
+        want = B.unit_arg(unit) if unit is not None else B.NUMBER
+        if t.kind not in ("q", "any"):
+            raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
+                                    stmt.unit_span or stmt.span)
+
+        def mismatch():
+            exc = DeclaredUnitError(
+                f"{stmt.name} is declared [{stmt.unit_text}] ({U.describe_dim(want.dim)}) "
+                f"but the expression gives {U.describe_dim(t.dim)}",
+                stmt.unit_span or stmt.span,
+                hint=_explain(stmt.expr, self),
+            )
+            specialise(exc, want.dim, t.dim, _operand(stmt.expr, "the expression"))
+            return exc
+
+        return T.of(B.rule_declared(t.arg, want, stmt, mismatch))
 
     def check(self, stmt: N.Check) -> None:
         a = self._quantity(self.infer(stmt.left), stmt.left)
         b = self._quantity(self.infer(stmt.right), stmt.right)
-        if a.kind == "any" or b.kind == "any":
-            return
-        if a.dim != b.dim:
-            exc = DimensionError(
-                f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", stmt.span,
-                hint=f"left: {_operand(stmt.left)} is {U.describe_dim(a.dim)}; "
-                     f"right: {_operand(stmt.right)} is {U.describe_dim(b.dim)}; "
-                     "both sides of a check must have the same dimension")
-            if not specialise(exc, b.dim, a.dim, _operand(stmt.left, "the left side")):
-                specialise(exc, a.dim, b.dim, _operand(stmt.right, "the right side"))
-            raise exc
+        B.rule_compare(a.arg, b.arg, stmt, stmt.left, stmt.right)
 
     # ------------------------------------------------------------ expressions
     def infer(self, node: N.Expr) -> T:
@@ -220,61 +271,22 @@ class Checker:
             if t.kind == "any":
                 raise Broken()
             return t
-        return NUMBER  # pi; undefined names were reported by the resolver
+        if node.id in B.CONSTANTS:
+            return T.of(B.CONSTANTS[node.id].arg)
+        return NUMBER  # undefined names were reported by the resolver
 
     def _infer_Paren(self, node) -> T:
         return self.infer(node.inner)
 
     def _infer_Neg(self, node) -> T:
-        return self._quantity(self.infer(node.operand), node.operand)
-
-    def _offset_error(self, node: N.BinOp, a: T, b: T) -> None:
-        side = node.left if a.offset else node.right
-        what = {"+": "added to", "-": "combined with", "*": "multiplied", "/": "divided", "^": "raised to a power"}
-        raise OffsetTemperatureError(
-            f"{_operand(side, 'this value')} is a temperature on the °C/°F scale; it cannot be "
-            f"{what[node.op]}" + ("" if node.op in "*/^" else " another value"), side.span,
-            hint="only a difference of two such temperatures is a quantity (T_2 - T_1 gives K); "
-                 "use that difference, or write the temperature in K")
+        return T.of(B.rule_neg(self._quantity(self.infer(node.operand), node.operand).arg, node))
 
     def _infer_BinOp(self, node: N.BinOp) -> T:
         a = self._quantity(self.infer(node.left), node.left)
         b = self._quantity(self.infer(node.right), node.right)
-        op = node.op
-        if a.offset or b.offset:
-            if op == "-" and a.offset and b.offset:
-                return T("q", a.dim)
-            self._offset_error(node, a, b)
-        if op in "+-":
-            if a.kind == "any" or b.kind == "any":
-                return a if b.kind == "any" else b
-            if a.dim != b.dim:
-                word = "add" if op == "+" else "subtract"
-                exc = DimensionError(
-                    f"cannot {word} {U.describe_dim(b.dim)} {'to' if op == '+' else 'from'} {U.describe_dim(a.dim)}",
-                    node.span, hint=f"left: {_operand(node.left)} is {U.describe_dim(a.dim)}; "
-                                    f"right: {_operand(node.right)} is {U.describe_dim(b.dim)}")
-                if not specialise(exc, a.dim, b.dim, _operand(node.right, "the right operand")):
-                    specialise(exc, b.dim, a.dim, _operand(node.left, "the left operand"))
-                raise exc
-            return a
-        if op in "*/":
-            if a.kind == "any" or b.kind == "any":
-                return ANY
-            return T("q", U.dim_mul(a.dim, b.dim, 1 if op == "*" else -1))
-        # power
-        if b.kind == "q" and b.dim != U.DIMENSIONLESS:
-            raise DimensionError(f"an exponent must be a plain number, not {U.describe_dim(b.dim)}", node.right.span,
-                                 hint=f"{_operand(node.right)} is {U.describe_dim(b.dim)}")
-        if a.kind == "any":
-            return ANY
-        if a.dim == U.DIMENSIONLESS:
-            return NUMBER
-        p = constant_value(node.right)
-        if p is None:
-            raise DimensionError("a quantity with units may only be raised to a number written in the sheet",
-                                 node.right.span, hint="write e.g. L^2 or L^0.5")
-        return T("q", U.dim_pow(a.dim, p))
+        if node.op == "^":
+            return T.of(B.rule_pow(a.arg, b.arg, node, B.written_power(node.right)))
+        return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node))
 
     def _infer_FieldAccess(self, node: N.FieldAccess) -> T:
         obj = self.infer(node.obj)
@@ -286,13 +298,10 @@ class Checker:
             return ANY
         f = obj.record.field(node.field_name)
         if f is None:
-            import difflib
-
             names = [x.name for x in obj.record.fields]
-            close = difflib.get_close_matches(node.field_name, names, n=1)
             raise UnknownFieldError(f"{obj.record.qualname} result has no field '{node.field_name}'",
                                     node.field_span or node.span,
-                                    hint=f"did you mean '{close[0]}'?" if close else "fields: " + ", ".join(names))
+                                    hint=did_you_mean(node.field_name, names) or "fields: " + ", ".join(names))
         return self._field_type(f)
 
     def _field_type(self, f) -> T:
@@ -336,79 +345,27 @@ class Checker:
                                 hint="write if(a <= b, value, otherwise)")
 
     def _infer_if(self, node: N.Call) -> T:
-        if len(node.args) != 3:
-            raise TypeMismatchError(f"if() takes 3 arguments (condition, value, otherwise), got {len(node.args)}",
-                                    node.span)
         cond, then, otherwise = node.args
         if not isinstance(cond, N.Compare):
             raise TypeMismatchError("if() needs a comparison first: if(a <= b, value, otherwise)", cond.span)
         a = self._quantity(self.infer(cond.left), cond.left)
         b = self._quantity(self.infer(cond.right), cond.right)
-        if a.kind == "q" and b.kind == "q" and a.dim != b.dim:
-            raise DimensionError(f"cannot compare {U.describe_dim(a.dim)} with {U.describe_dim(b.dim)}", cond.span,
-                                 hint="both sides of the condition must have the same dimension")
+        B.rule_compare(a.arg, b.arg, cond, cond.left, cond.right, where="the condition")
         x, y = self.infer(then), self.infer(otherwise)
-        if x.kind == "any" or y.kind == "any":
+        if B.rule_if(x.word(), y.word(), node) is None:
             return ANY
-        if x.kind != y.kind or (x.kind == "q" and x.dim != y.dim):
-            raise DimensionError(f"the two values of if() differ: {x.describe()} and {y.describe()}", node.span,
-                                 hint="both outcomes must have the same dimension")
-        return x
+        return x if x.kind != "any" else y
 
     def _infer_Call(self, node: N.Call) -> T:
-        name = node.func
-        if name == "if":
+        fn = B.FUNCTIONS.get(node.func)
+        if fn is None:  # reported by the resolver; here only for expressions checked on their own
+            raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
+                                       hint=did_you_mean(node.func, B.FUNCTIONS))
+        B.check_call_shape(fn, node)
+        if fn.lazy:
             return self._infer_if(node)
-        args = [self._quantity(self.infer(a), a) for a in node.args]
-        if not args:
-            raise TypeMismatchError(f"{name}() needs an argument", node.span)
-        x = args[0]
-        if any(a.kind == "any" for a in args):
-            return ANY if name not in TRIG and name not in INVERSE_TRIG else (
-                NUMBER if name in TRIG else T("q", U.ANGLE))
-        if name in ("abs", "min", "max"):
-            for a, arg in zip(args[1:], node.args[1:]):
-                if a.dim != x.dim:
-                    raise DimensionError(f"{name}() of {U.describe_dim(x.dim)} and {U.describe_dim(a.dim)}",
-                                         arg.span, hint=f"{_operand(node.args[0])} is {U.describe_dim(x.dim)}, "
-                                                        f"{_operand(arg)} is {U.describe_dim(a.dim)}; every value "
-                                                        "compared must have the same dimension")
-            return x
-        for a, arg in zip(args, node.args):
-            if a.offset:
-                raise OffsetTemperatureError(f"{name}() of a temperature on the °C/°F scale", arg.span,
-                                             hint="use a temperature difference (T_2 - T_1), or the value in K")
-        if name == "sqrt":
-            return T("q", U.dim_pow(x.dim, 0.5))
-        if name in TRIG:
-            if x.dim != U.ANGLE:
-                arg = node.args[0]
-                if x.dim == U.DIMENSIONLESS:
-                    shown = _operand(arg, "")
-                    hint = (f"{shown} is a bare number; write the angle with its unit, e.g. {shown} deg or "
-                            f"{shown} rad" if isinstance(arg, N.Number) else
-                            f"{shown or 'the argument'} is a bare number; give it a unit where it is defined "
-                            "(deg or rad)")
-                else:
-                    hint = f"{_operand(arg)} is {U.describe_dim(x.dim)}; a trigonometric function takes an angle"
-                raise AngleError(f"{name}() needs an angle, got {U.describe_dim(x.dim)}", arg.span, hint=hint)
-            return NUMBER
-        if name in INVERSE_TRIG:
-            if x.dim != U.DIMENSIONLESS:
-                raise DimensionError(f"{name}() needs a plain number (a ratio), got {U.describe_dim(x.dim)}",
-                                     node.args[0].span, hint="divide two values of the same dimension first")
-            return T("q", U.ANGLE)
-        if name == "atan2":
-            if len(args) == 2 and args[1].dim != x.dim:
-                raise DimensionError("atan2() needs two values of the same dimension", node.span,
-                                     hint=f"{U.describe_dim(x.dim)} and {U.describe_dim(args[1].dim)}")
-            return T("q", U.ANGLE)
-        if name in TRANSCENDENTAL or name in ("ceil", "floor"):
-            if x.dim != U.DIMENSIONLESS:
-                raise DimensionError(f"{name}() needs a plain number, got {U.describe_dim(x.dim)}",
-                                     node.args[0].span, hint="divide by a reference value of the same unit first")
-            return NUMBER
-        return ANY
+        args = [self._quantity(self.infer(a), a).arg for a in node.args]
+        return T.of(fn.rule(args, node.args, node))
 
     def _infer_PluginCall(self, node: N.PluginCall) -> T:
         pf = self.plugins.function(node.namespace, node.func)
@@ -417,13 +374,10 @@ class Checker:
             if kw.name in given:
                 raise PluginArgumentError(f"'{kw.name}' is given twice", kw.span)
             given[kw.name] = (self.infer(kw.value), kw)
-        from .plugin import check_argument_kinds
-
         try:
             check_argument_kinds(pf, {k: None for k in given})
         except PluginArgumentError as exc:
-            param = getattr(exc, "param", None)
-            raise exc.with_span(given[param][1].span if param in given else node.func_span or node.span)
+            raise exc.with_span(given[exc.param][1].span if exc.param in given else node.func_span or node.span)
         for name, (t, kw) in given.items():
             self._argument(pf, pf.param(name), t, kw)
         return T("record", record=pf, record_type=pf.returns)
@@ -452,7 +406,7 @@ class Checker:
         if t.kind == "any":
             return
         if kind in ("quantity", "number"):
-            want = p.dimension if kind == "quantity" else U.DIMENSIONLESS
+            want = p.wanted
             self._need(where, want, t, kw.value)
             self._pending.extend(lint.argument_findings(p.name, kw.value, self, self.path))
         elif kind in ("text", "flag"):
@@ -460,11 +414,8 @@ class Checker:
                 raise PluginArgumentError(f"{where} needs a text in quotes, got a {t.describe()}", kw.value.span)
             choices = p.choices or (("yes", "no") if kind == "flag" else None)
             if choices and isinstance(kw.value, N.Text) and kw.value.value not in choices:
-                import difflib
-
-                close = difflib.get_close_matches(kw.value.value, list(choices), n=1)
                 raise PluginArgumentError(f"{where} must be one of " + ", ".join(f'"{c}"' for c in choices),
-                                          kw.value.span, hint=f'did you mean "{close[0]}"?' if close else None)
+                                          kw.value.span, hint=did_you_mean(kw.value.value, choices, quote='"'))
         elif kind == "record":
             if t.kind != "record" or t.record_type != p.record:
                 raise PluginArgumentError(f"{where} needs a {p.record} record, got a {t.describe()}", kw.value.span)
@@ -486,33 +437,13 @@ class Checker:
                     for c in pts:
                         ct = self.infer(c)
                         if ct.kind == "q":
-                            self._need(f"{where} coordinate", p.dimension, ct, c)
+                            self._need(f"{where} coordinate", p.wanted, ct, c)
                 elif p.record:
                     if it.kind != "record" or it.record_type != p.record:
                         raise PluginArgumentError(f"{where} needs {p.record} records, got a {it.describe()}",
                                                   item.span)
                 else:
-                    want = p.dimension if p.dim is not None else U.DIMENSIONLESS
-                    self._need(f"{where} item", want, it, item)
-
-
-def constant_value(node: N.Expr) -> float | None:
-    """The value of an expression made only of plain number literals (for exponents)."""
-    if isinstance(node, N.Number):
-        return None if node.unit else node.value
-    if isinstance(node, N.Paren):
-        return constant_value(node.inner)
-    if isinstance(node, N.Neg):
-        v = constant_value(node.operand)
-        return None if v is None else -v
-    if isinstance(node, N.BinOp) and node.op in "+-*/":
-        a, b = constant_value(node.left), constant_value(node.right)
-        if a is None or b is None:
-            return None
-        if node.op == "/":
-            return a / b if b else None
-        return {"+": a + b, "-": a - b, "*": a * b}[node.op]
-    return None
+                    self._need(f"{where} item", p.wanted, it, item)
 
 
 _EXAMPLE_UNITS = {
@@ -538,19 +469,6 @@ def _unit_span(node: N.Number):
         return None
     width = len(node.unit_text)
     return type(s)(s.end_line, s.end_col - width, s.end_line, s.end_col)
-
-
-def _operand(node, fallback: str = "the expression") -> str:
-    while isinstance(node, N.Paren):
-        node = node.inner
-    if isinstance(node, N.Name):
-        return node.id
-    if isinstance(node, N.FieldAccess):
-        inner = _operand(node.obj, "")
-        return f"{inner}.{node.field_name}" if inner else node.field_name
-    if isinstance(node, N.Number):
-        return f"{node.text} {node.unit_text}".strip()
-    return fallback
 
 
 def _explain(expr, checker: Checker) -> str | None:

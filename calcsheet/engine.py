@@ -21,7 +21,7 @@ from . import units as U
 from .checker import Checker
 from .display import DisplayPolicy, pint_unit_string
 from .errors import CalcError, Diagnostic, OverrideError, SheetErrors, Span
-from .evaluator import Evaluator
+from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet, parse_statement
 from .plugin import PluginRegistry, Record, default_registry
 from .resolver import Resolution, check_key, resolve
@@ -225,6 +225,11 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
     check_no = 0
     source_lines = result.source.split("\n")
     included_lines: dict[str, list[str]] = {}
+    inputs = frozenset(res.inputs)
+
+    def unit_of(k, v):
+        return display.get(k) if k in display else (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
+
     for stmt in sheet.body:
         if isinstance(stmt, N.Heading):
             result.items.append(TR.Heading(stmt.text, stmt.level))
@@ -237,54 +242,26 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
             res.broken.add(key)
             continue
         try:
-            if isinstance(stmt, N.Definition):
-                original = None
-                if stmt.name in overrides:
-                    original = ev.evaluate_definition(stmt, env, display).value
-                    o = overrides[stmt.name]
-                    stmt_used = stmt if isinstance(o, pint.Quantity) else _with_expr(stmt, o)
-                    if isinstance(o, pint.Quantity):
-                        step = ev.evaluate_definition(stmt, env, display)
-                        step.value = o
-                    else:
-                        step = ev.evaluate_definition(stmt_used, env, display)
-                    step.overridden = original
-                    result.overrides[stmt.name] = (original, step.value)
-                else:
-                    step = ev.evaluate_definition(stmt, env, display)
-                step.is_input = stmt.name in res.inputs
-                step.anchor = "v-" + stmt.name
-                env[stmt.name] = step.value
-                display[stmt.name] = step.display_unit
-                result.values[stmt.name] = step.value
-                result.steps[stmt.name] = step
-                result.items.append(step)
+            record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=result.overrides,
+                                        inputs=inputs, unit_of=unit_of)
+            if isinstance(record, TR.Step):
+                result.values[stmt.name] = record.value
+                result.steps[stmt.name] = record
             else:
-                check = ev.evaluate_check(stmt, env, lambda k, v: display.get(k) if k in display else
-                                          (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None))
                 check_no += 1
-                check.anchor = f"check-{check_no}"
+                record.anchor = f"check-{check_no}"
                 lines = source_lines
                 if stmt.span is not None and stmt.span.path:
                     lines = included_lines.setdefault(stmt.span.path, dict(result.includes).get(
                         stmt.span.path, "").split("\n"))
-                check.text = _check_text(stmt, lines)
-                result.checks.append(check)
-                result.items.append(check)
+                record.text = _check_text(stmt, lines)
+                result.checks.append(record)
+            result.items.append(record)
         except CalcError as exc:
             res.broken.add(key)
             result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))
-        for message, span in ev.warnings:
-            result.diagnostics.append(Diagnostic("warning", "plugin-warning", message, span or stmt.span,
-                                                 path=result.path))
-        ev.warnings.clear()
+        result.diagnostics.extend(ev.take_warnings(stmt.span, result.path))
     result.plugin_versions = dict(ev.plugin_versions)
-
-
-def _with_expr(stmt: N.Definition, expr: N.Expr) -> N.Definition:
-    import dataclasses
-
-    return dataclasses.replace(stmt, expr=expr)
 
 
 def _check_text(stmt: N.Check, lines: list[str]) -> str:

@@ -87,16 +87,21 @@ class Diagnostic:
 
 
 class CalcError(Exception):
-    """Base of every sheet error. Subclasses set a stable ``code``."""
+    """Base of every sheet error. Subclasses set a stable ``code``.
+
+    ``slip`` names the known slip a dimension error most likely is (``calcsheet.slips``).
+    """
 
     code = "error"
     severity = "error"
 
-    def __init__(self, message: str, span: Span | None = None, hint: str | None = None):
+    def __init__(self, message: str, span: Span | None = None, hint: str | None = None, *,
+                 slip: str | None = None):
         super().__init__(message)
-        self.message = message
-        self.span = span
-        self.hint = hint
+        self.message: str = message
+        self.span: Span | None = span
+        self.hint: str | None = hint
+        self.slip: str | None = slip
 
     def with_span(self, span: Span) -> "CalcError":
         if self.span is None:
@@ -108,36 +113,121 @@ class CalcError(Exception):
         return Diagnostic(self.severity, self.code, self.message, span, self.hint, span.path or path)
 
 
-def _error(name: str, code: str, doc: str, severity: str = "error") -> type[CalcError]:
-    return type(name, (CalcError,), {"code": code, "severity": severity, "__doc__": doc})
+class SheetSyntaxError(CalcError):
+    """The text is not a valid statement."""
+    code = "syntax"
 
 
-SheetSyntaxError = _error("SheetSyntaxError", "syntax", "The text is not a valid statement.")
-FrontMatterError = _error("FrontMatterError", "front-matter", "The front matter block is malformed.")
-UnknownUnitError = _error("UnknownUnitError", "unknown-unit", "A unit name is not in our vocabulary.")
-UndefinedNameError = _error("UndefinedNameError", "undefined-name", "A name is used but never defined.")
-UseBeforeDefinitionError = _error(
-    "UseBeforeDefinitionError", "use-before-definition", "A name is used above the line defining it."
-)
-RedefinitionError = _error("RedefinitionError", "redefinition", "A name is defined twice.")
-DimensionError = _error("DimensionError", "dimension-mismatch", "Quantities of different dimensions meet.")
-DeclaredUnitError = _error(
-    "DeclaredUnitError", "declared-unit-mismatch", "A value's declared [unit] disagrees with its expression."
-)
-AngleError = _error("AngleError", "not-an-angle", "A trigonometric function got something that is not an angle.")
-DivisionByZeroError = _error("DivisionByZeroError", "division-by-zero", "A division by zero.")
-NumericError = _error("NumericError", "not-finite", "A result is infinite, NaN or complex.")
-UnknownFunctionError = _error("UnknownFunctionError", "unknown-function", "A function name is not known.")
-UnknownPluginError = _error("UnknownPluginError", "unknown-plugin", "A plugin namespace or function is not known.")
-UnknownFieldError = _error("UnknownFieldError", "unknown-field", "A record has no such field.")
-PluginArgumentError = _error(
-    "PluginArgumentError", "plugin-argument", "A plugin was called with a missing, extra or mistyped argument."
-)
-PluginInputError = _error("PluginInputError", "plugin-input", "A plugin refused its input values.")
-TypeMismatchError = _error("TypeMismatchError", "type-mismatch", "A value of the wrong kind (text, list, record).")
-TooComplexError = _error("TooComplexError", "too-complex", "A sheet or expression exceeds the size limits.")
-OverrideError = _error("OverrideError", "override", "A --set override names an unknown or derived value.")
-IncludeError = _error("IncludeError", "include", "An included file is missing or not allowed.")
+class FrontMatterError(CalcError):
+    """The front matter block is malformed."""
+    code = "front-matter"
+
+
+class UnknownUnitError(CalcError):
+    """A unit name is not in our vocabulary."""
+    code = "unknown-unit"
+
+
+class UndefinedNameError(CalcError):
+    """A name is used but never defined."""
+    code = "undefined-name"
+
+
+class UseBeforeDefinitionError(CalcError):
+    """A name is used above the line defining it."""
+    code = "use-before-definition"
+
+
+class RedefinitionError(CalcError):
+    """A name is defined twice."""
+    code = "redefinition"
+
+
+class DimensionError(CalcError):
+    """Quantities of different dimensions meet."""
+    code = "dimension-mismatch"
+
+
+class DeclaredUnitError(CalcError):
+    """A value's declared [unit] disagrees with its expression."""
+    code = "declared-unit-mismatch"
+
+
+class AngleError(CalcError):
+    """A trigonometric function got something that is not an angle."""
+    code = "not-an-angle"
+
+
+class DivisionByZeroError(CalcError):
+    """A division by zero."""
+    code = "division-by-zero"
+
+
+class NumericError(CalcError):
+    """A result is infinite, NaN or complex."""
+    code = "not-finite"
+
+
+class UnknownFunctionError(CalcError):
+    """A function name is not known."""
+    code = "unknown-function"
+
+
+class UnknownPluginError(CalcError):
+    """A plugin namespace or function is not known."""
+    code = "unknown-plugin"
+
+
+class UnknownFieldError(CalcError):
+    """A record has no such field."""
+    code = "unknown-field"
+
+
+class PluginArgumentError(CalcError):
+    """A plugin was called with a missing, extra or mistyped argument.
+
+    ``param`` names the argument at fault, so the caller can point at it in the call.
+    """
+    code = "plugin-argument"
+
+    def __init__(self, message: str, span: Span | None = None, hint: str | None = None, *,
+                 param: str | None = None):
+        super().__init__(message, span, hint)
+        self.param: str | None = param
+
+
+class PluginInputError(CalcError):
+    """A plugin refused its input values (``param``: the argument it refused, if one)."""
+    code = "plugin-input"
+
+    def __init__(self, message: str, span: Span | None = None, hint: str | None = None, *,
+                 param: str | None = None):
+        super().__init__(message, span, hint)
+        self.param: str | None = param
+
+
+class TypeMismatchError(CalcError):
+    """A value of the wrong kind (text, list, record)."""
+    code = "type-mismatch"
+
+
+class ArityError(TypeMismatchError):
+    """A built-in function called with too few or too many arguments (a kind of type mismatch)."""
+
+
+class TooComplexError(CalcError):
+    """A sheet or expression exceeds the size limits."""
+    code = "too-complex"
+
+
+class OverrideError(CalcError):
+    """A --set override names an unknown or derived value."""
+    code = "override"
+
+
+class IncludeError(CalcError):
+    """An included file is missing or not allowed."""
+    code = "include"
 
 
 class PluginDefinitionError(Exception):
@@ -159,30 +249,55 @@ class SheetErrors(Exception):
 # fix travels in the hint.
 
 
-OffsetTemperatureError = _error(
-    "OffsetTemperatureError", "offset-temperature",
-    "A temperature on an offset scale (degC, degF) is used in arithmetic.")
-ImplausibleValueWarning = _error(
-    "ImplausibleValueWarning", "implausible-value",
-    "A named quantity lies outside the range its kind has in practice.", severity="warning")
-UnitSlipWarning = _error(
-    "UnitSlipWarning", "unit-slip",
-    "A section property looks like a table value written in the wrong unit (cm⁴ as mm⁴).", severity="warning")
-UnitShadowsVariableWarning = _error(
-    "UnitShadowsVariableWarning", "unit-shadows-variable",
-    "A number is followed by a unit whose name is also a variable of the sheet (2 L is 2 litres).",
-    severity="warning")
-UnusedInputWarning = _error(
-    "UnusedInputWarning", "unused-input", "An input is defined but nothing uses it.", severity="warning")
-NoUtilisationWarning = _error(
-    "NoUtilisationWarning", "no-utilisation",
-    "A check's utilisation (demand/capacity) cannot be formed.", severity="warning")
-UnusualUnitInfo = _error(
-    "UnusualUnitInfo", "unusual-unit",
-    "A declared [unit] is valid but unusual for what the name says the value is.", severity="info")
-SuppressionError = _error(
-    "SuppressionError", "bad-suppression",
-    "An '// allow' comment is malformed, names an unknown code, or tries to hide an error.", severity="warning")
-UnusedSuppressionWarning = _error(
-    "UnusedSuppressionWarning", "unused-suppression",
-    "An '// allow' comment allows a code that does not occur on its line.", severity="warning")
+class OffsetTemperatureError(CalcError):
+    """A temperature on an offset scale (degC, degF) is used in arithmetic."""
+    code = "offset-temperature"
+
+
+class ImplausibleValueWarning(CalcError):
+    """A named quantity lies outside the range its kind has in practice."""
+    code = "implausible-value"
+    severity = "warning"
+
+
+class UnitSlipWarning(CalcError):
+    """A section property looks like a table value written in the wrong unit (cm⁴ as mm⁴)."""
+    code = "unit-slip"
+    severity = "warning"
+
+
+class UnitShadowsVariableWarning(CalcError):
+    """A number is followed by a unit whose name is also a variable of the sheet (2 L is 2 litres)."""
+    code = "unit-shadows-variable"
+    severity = "warning"
+
+
+class UnusedInputWarning(CalcError):
+    """An input is defined but nothing uses it."""
+    code = "unused-input"
+    severity = "warning"
+
+
+class NoUtilisationWarning(CalcError):
+    """A check's utilisation (demand/capacity) cannot be formed."""
+    code = "no-utilisation"
+    severity = "warning"
+
+
+class UnusualUnitInfo(CalcError):
+    """A declared [unit] is valid but unusual for what the name says the value is."""
+    code = "unusual-unit"
+    severity = "info"
+
+
+class SuppressionError(CalcError):
+    """An '// allow' comment is malformed, names an unknown code, or tries to hide an error."""
+    code = "bad-suppression"
+    severity = "warning"
+
+
+class UnusedSuppressionWarning(CalcError):
+    """An '// allow' comment allows a code that does not occur on its line."""
+    code = "unused-suppression"
+    severity = "warning"
+

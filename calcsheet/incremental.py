@@ -22,7 +22,8 @@ from . import units as U
 from .checker import Checker
 from .engine import Result, _check_text, parse_override, run
 from .errors import CalcError, Diagnostic
-from .evaluator import CONSTANTS, Evaluator
+from .builtins import CONSTANTS
+from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet
 from .plugin import Record
 from .trace import CheckResult, Step
@@ -186,6 +187,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     new_checks: dict[str, CheckResult] = {}
     new_overrides = {k: v for k, v in prev.overrides.items() if k not in roots}
     warnings: list[Diagnostic] = []
+    inputs = frozenset(res.inputs)
 
     def unit_of(k, v):
         if k in display:
@@ -195,25 +197,19 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     for key in dirty_order:
         stmt = res.statements[key]
         try:
-            if isinstance(stmt, N.Definition):
-                step = _definition(ev, stmt, env, display, overrides, new_overrides)
+            record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=new_overrides,
+                                        inputs=inputs, unit_of=unit_of)
+            if isinstance(record, Step):
                 old = prev.steps.get(key)
-                if key in roots and old is not None and not _same_kind(old.value, step.value):
+                if key in roots and old is not None and not _same_kind(old.value, record.value):
                     raise _FullRun(f"{key} changed dimension")
-                step.is_input = key in res.inputs
-                step.anchor = "v-" + key
-                env[key] = step.value
-                display[key] = step.display_unit
-                new_steps[key] = step
+                new_steps[key] = record
             else:
-                check = ev.evaluate_check(stmt, env, unit_of)
-                check.text = _check_text(stmt, source.split("\n"))
-                new_checks[key] = check
+                record.text = _check_text(stmt, source.split("\n"))
+                new_checks[key] = record
         except CalcError:
             raise _FullRun(f"{key} now raises an error") from None
-        for message, span in ev.warnings:
-            warnings.append(Diagnostic("warning", "plugin-warning", message, span or stmt.span, path=prev.path))
-        ev.warnings.clear()
+        warnings.extend(ev.take_warnings(stmt.span, prev.path))
 
     result = Result(path=prev.path, source=source, meta=dict(prev.meta), policy=prev.policy, resolution=res,
                     sheet=sheet, overrides=new_overrides,
@@ -241,22 +237,6 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
         a <= d.span.line <= b for a, b in dirty_lines))]
     result.diagnostics = sorted(keep + warnings, key=lambda d: (d.span.line, d.span.col))
     return result, dirty_order
-
-
-def _definition(ev: Evaluator, stmt: N.Definition, env, display, overrides, new_overrides) -> Step:
-    """One definition, as the engine evaluates it (an override replaces the sheet's expression)."""
-    if stmt.name not in overrides:
-        return ev.evaluate_definition(stmt, env, display)
-    original = ev.evaluate_definition(stmt, env, display).value
-    o = overrides[stmt.name]
-    if isinstance(o, pint.Quantity):
-        step = ev.evaluate_definition(stmt, env, display)
-        step.value = o
-    else:
-        step = ev.evaluate_definition(dataclasses.replace(stmt, expr=o), env, display)
-    step.overridden = original
-    new_overrides[stmt.name] = (original, step.value)
-    return step
 
 
 def _same_kind(a, b) -> bool:

@@ -9,9 +9,9 @@ evaluates a plugin.
 """
 from __future__ import annotations
 
-import math
 from typing import TYPE_CHECKING
 
+from . import builtins as B
 from . import nodes as N
 from . import plausibility as P
 from . import units as U
@@ -24,6 +24,8 @@ from .errors import (
     UnusedInputWarning,
     UnusualUnitInfo,
 )
+from .builtins import CONSTANTS
+from .names import closest, operand, unit_literal
 from .resolver import Resolution
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -46,7 +48,7 @@ class Constants:
             if isinstance(n, N.Number):
                 continue
             if isinstance(n, N.Name):
-                if n.id == "pi":
+                if n.id in CONSTANTS:
                     continue
                 known = self.foldable_names.get(n.id)
                 if known is None:
@@ -86,42 +88,9 @@ class Constants:
         if not self.foldable(node):
             return None
         try:
-            return self._of(node)
-        except Exception:  # any pint complaint means: not a plain constant
+            return B.fold(node, self.of_name)
+        except Exception:  # any rule or pint complaint means: not a plain constant
             return None
-
-    def _of(self, node):
-        if isinstance(node, N.Number):
-            if any(U.VOCABULARY.get(n) in U.OFFSET_UNITS for n, _ in node.unit):
-                return None
-            unit = U.build_unit(node.unit) if node.unit else U.registry().Unit("")
-            return U.registry().Quantity(node.value, unit)
-        if isinstance(node, N.Paren):
-            return self._of(node.inner)
-        if isinstance(node, N.Neg):
-            v = self._of(node.operand)
-            return None if v is None else -v
-        if isinstance(node, N.Name):
-            if node.id == "pi":
-                return U.registry().Quantity(math.pi, "")
-            return self.of_name(node.id)
-        if isinstance(node, N.BinOp):
-            a = self._of(node.left)
-            if a is None:
-                return None
-            b = self._of(node.right)
-            if b is None:
-                return None
-            if node.op == "+":
-                return a + b
-            if node.op == "-":
-                return a - b
-            if node.op == "*":
-                return a * b
-            if node.op == "/":
-                return a / b if float(b.magnitude) != 0 else None
-            return a ** float(b.to("").magnitude)
-        return None
 
 
 # ------------------------------------------------------------ values for their kind
@@ -145,12 +114,6 @@ def _article(words: str) -> str:
     return "an" if words[:1] in "aeiou" else "a"
 
 
-def _literal(node):
-    while isinstance(node, (N.Paren,)):
-        node = node.inner
-    return node if isinstance(node, N.Number) and node.unit else None
-
-
 def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diagnostic]:
     """Implausible-value and unit-slip warnings for ``name = value`` (value a pint Quantity)."""
     out: list[Diagnostic] = []
@@ -161,7 +124,7 @@ def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diag
     slipped = P.slip(kind, value)
     if slipped is not None:
         side, m, edge = slipped
-        lit = _literal(expr)
+        lit = unit_literal(expr)
         unit = "mm⁴" if kind.slip == "I" else "mm³"
         table = "cm⁴ (1 cm⁴ = 10⁴ mm⁴) or in⁴ (1 in⁴ ≈ 416,000 mm⁴)" if kind.slip == "I" else \
             "cm³ (1 cm³ = 10³ mm³) or in³ (1 in³ ≈ 16,400 mm³)"
@@ -185,7 +148,7 @@ def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diag
     kind, rng, m = judged
     where = f"the {kind.words} of {rng.material}" if rng.material else f"{_article(kind.words)} {kind.words}"
     unit = f" {rng.unit}" if rng.unit else ""
-    lit = _literal(expr)
+    lit = unit_literal(expr)
     shown = f"{_fmt(m)}{unit}"
     if lit is not None and lit.unit_text.replace(" ", "") != rng.unit.replace(" ", ""):
         shown = f"{lit.text} {lit.unit_text} ({shown})"
@@ -275,15 +238,13 @@ def _fold_from_inputs(node, checker: "Checker"):
     """
     res = checker.res
     inputs = set(res.inputs) if res else set()
-    if any(isinstance(n, N.Name) and n.id != "pi" and n.id not in inputs for n in N.walk(node)):
+    if any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
         return None
     return checker.consts.of(node)
 
 
 def _side(node) -> str:
-    from .checker import _operand
-
-    return _operand(node, "the expression")
+    return operand(node, "the expression")
 
 
 # ------------------------------------------------------------ names
@@ -334,15 +295,13 @@ def shadow_warnings(literals: list[N.Number], defined: dict[str, int], path: str
 
 def _misspelt_uses(res: Resolution) -> set[str]:
     """Defined names that an undefined name most likely meant (their uses are already reported)."""
-    import difflib
-
-    from .evaluator import CONSTANTS
-
     unknown = {n.id for stmt in res.statements.values() for expr in _exprs(stmt) for n in N.walk(expr)
                if isinstance(n, N.Name) and n.id not in res.defined_at and n.id not in CONSTANTS}
     meant = set()
     for name in unknown:
-        meant.update(difflib.get_close_matches(name, list(res.defined_at), n=1))
+        hit = closest(name, res.defined_at)
+        if hit:
+            meant.add(hit)
     return meant
 
 

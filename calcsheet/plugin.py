@@ -22,11 +22,11 @@ from typing import Any, Callable
 from .errors import (
     PluginArgumentError,
     PluginDefinitionError,
-    PluginInputError,
     UnknownFieldError,
     UnknownPluginError,
 )
-from .trace import CheckResult, Figure, Note, Step, Table, Working
+from .names import did_you_mean
+from .trace import Working
 from . import units as U
 
 ENTRY_POINT_GROUP = "calcsheet.plugins"
@@ -65,6 +65,12 @@ class Param:
     @property
     def dimension(self) -> U.Dim | None:
         return U.parse_dimension(self.dim) if self.dim is not None else None
+
+    @property
+    def wanted(self) -> U.Dim:
+        """The dimension each value of this parameter must have (a quantity, a list item, a coordinate):
+        the one rule the checker and the plugin host both apply."""
+        return U.parse_dimension(self.dim) if self.dim is not None else U.DIMENSIONLESS
 
     def describe(self) -> str:
         k = self.kind_
@@ -143,13 +149,31 @@ class PluginFunction:
 
 
 class Namespace:
-    """A group of plugin functions under one name (``section``, ``beam``)."""
+    """A group of plugin functions under one name (``section``, ``beam``).
 
-    def __init__(self, name: str, version: str = "0", doc: str = ""):
+    ``shared`` parameters are declared once for the namespace (or later with ``share``) and validated
+    once; a function registered with ``shared=True`` takes them after its own, and its Python function
+    may receive them by name or all together through ``**kwargs``.
+    """
+
+    def __init__(self, name: str, version: str = "0", doc: str = "", shared: list[Param] | tuple[Param, ...] = ()):
         self.name = name
         self.version = version
         self.doc = doc
         self.functions: dict[str, PluginFunction] = {}
+        self.shared: tuple[Param, ...] = ()
+        self._record_fields: dict[str, dict[str, tuple]] = {}  # record type -> its fields as declared so far
+        if shared:
+            self.share(*shared)
+
+    def share(self, *params: Param) -> None:
+        """Declare parameters every ``shared=True`` function of this namespace takes."""
+        for p in params:
+            _validate_param(p, f"plugin {self.name} (shared parameters)")
+        names = [p.name for p in (*self.shared, *params)]
+        if len(set(names)) != len(names):
+            raise PluginDefinitionError(f"plugin {self.name}: a shared parameter is declared twice")
+        self.shared = (*self.shared, *params)
 
     def function(
         self,
@@ -159,6 +183,7 @@ class Namespace:
         fields: list[Field] | tuple[Field, ...] = (),
         returns: str | None = None,
         doc: str | None = None,
+        shared: bool = False,
     ):
         def register(func: Callable) -> Callable:
             fname = name or func.__name__
@@ -166,53 +191,93 @@ class Namespace:
                 namespace=self.name,
                 name=fname,
                 func=func,
-                params=tuple(params),
+                params=tuple(params) + (self.shared if shared else ()),
                 fields=tuple(fields),
                 doc=(doc or inspect.getdoc(func) or "").strip(),
                 returns=returns or self.name,
                 version=self.version,
             )
-            validate(pf)
+            validate(pf, collective={p.name for p in self.shared} if shared else set())
+            _same_fields(self._record_fields.setdefault(pf.returns, {}), pf)
             self.functions[fname] = pf
             return func
 
         return register
 
 
-def validate(pf: PluginFunction) -> None:
-    """The contract, checked at registration; each failure names the plugin."""
+def _validate_param(p: Param, where: str) -> None:
+    if p.kind_ not in KINDS:
+        raise PluginDefinitionError(f"{where}: parameter {p.name} has unknown kind {p.kind_!r}")
+    if p.kind_ in ("quantity", "points") and p.dim is None:
+        raise PluginDefinitionError(f"{where}: parameter {p.name} needs a dimension")
+    if p.kind_ == "record" and not p.record:
+        raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
+    if p.record and p.kind_ not in ("record", "list"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} names a record type but is a {p.kind_}")
+    if p.dim is not None and p.kind_ in ("number", "text", "flag", "record"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} is a {p.kind_} and takes no dimension")
+    if p.choices is not None and p.kind_ not in ("text", "flag"):
+        raise PluginDefinitionError(f"{where}: parameter {p.name} has choices but is a {p.kind_}")
+    if p.dim is not None:
+        try:
+            U.parse_dimension(p.dim)
+        except Exception as exc:
+            raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
+
+
+def _same_fields(known: dict[str, tuple], pf: PluginFunction) -> None:
+    """Every function returning one record type declares its fields alike: a field of the same name has the
+    same kind, dimension and record type whichever function made the record (a reader of ``rec.x`` relies
+    on it). Variants of one record type may carry fields of their own (a point load has P, a couple M).
+
+    ``known``: field name -> (kind, dimension, record type, first declarer) for the record type so far;
+    ``pf``'s fields are checked against it and added."""
+    for f in pf.fields:
+        sig = (f.kind_, f.dimension, f.record)
+        seen = known.setdefault(f.name, (*sig, pf.qualname))
+        if seen[:3] != sig:
+            raise PluginDefinitionError(
+                f"plugin {pf.qualname}: returns a {pf.returns} record like {seen[3]} but declares field "
+                f"{f.name} differently; every function returning one record type declares each field alike")
+
+
+FIELD_KINDS = ("quantity", "number", "text", "record")
+
+
+def validate(pf: PluginFunction, collective: set[str] = frozenset()) -> None:
+    """The contract, checked at registration; each failure names the plugin.
+
+    ``collective``: shared parameters the Python function may take through ``**kwargs``.
+    """
     where = f"plugin {pf.qualname}"
     sig = inspect.signature(pf.func)
     names = list(sig.parameters)
     if not names:
         raise PluginDefinitionError(f"{where}: its first parameter must receive the Work")
-    py_params = names[1:]
+    rest = list(sig.parameters.values())[1:]
+    py_params = [p.name for p in rest if p.kind not in (p.VAR_KEYWORD, p.VAR_POSITIONAL)]
+    takes_kwargs = any(p.kind == p.VAR_KEYWORD for p in rest)
     declared = [p.name for p in pf.params]
     if len(set(declared)) != len(declared):
         raise PluginDefinitionError(f"{where}: a parameter is declared twice")
-    extra = [n for n in declared if n not in py_params]
+    extra = [n for n in declared if n not in py_params and not (takes_kwargs and n in collective)]
     missing = [n for n in py_params if n not in declared]
     if extra:
         raise PluginDefinitionError(f"{where}: declares parameter(s) {extra} its function does not take")
     if missing:
         raise PluginDefinitionError(f"{where}: function takes parameter(s) {missing} that are not declared")
     for p in pf.params:
-        if p.kind_ not in KINDS:
-            raise PluginDefinitionError(f"{where}: parameter {p.name} has unknown kind {p.kind_!r}")
-        if p.kind_ in ("quantity", "points") and p.dim is None:
-            raise PluginDefinitionError(f"{where}: parameter {p.name} needs a dimension")
-        if p.kind_ == "record" and not p.record:
-            raise PluginDefinitionError(f"{where}: record parameter {p.name} needs a record type")
-        if p.dim is not None:
-            try:
-                U.parse_dimension(p.dim)
-            except Exception as exc:
-                raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
+        _validate_param(p, where)
     seen = set()
     for f in pf.fields:
         if f.name in seen:
             raise PluginDefinitionError(f"{where}: field {f.name} is declared twice")
         seen.add(f.name)
+        if f.kind_ not in FIELD_KINDS:
+            raise PluginDefinitionError(f"{where}: field {f.name} has unknown kind {f.kind_!r} "
+                                        f"(kinds: {', '.join(FIELD_KINDS)})")
+        if f.kind_ == "record" and not f.record:
+            raise PluginDefinitionError(f"{where}: record field {f.name} needs a record type")
         if f.dim is not None:
             try:
                 U.parse_dimension(f.dim)
@@ -246,73 +311,6 @@ class Record:
 
     def __repr__(self) -> str:
         return f"<{self.source or self.type} record>"
-
-
-class Work:
-    """What a plugin function receives: its arguments, and its working recorder."""
-
-    def __init__(self, pf: PluginFunction, args: dict[str, Any], settings: dict[str, Any], evaluator):
-        self.plugin = pf
-        self.scope: dict[str, Any] = dict(args)
-        self.settings = settings
-        self.working = Working(title=pf.qualname)
-        self.warnings: list[tuple[str, str | None]] = []
-        self._evaluator = evaluator
-
-    # --- reading arguments
-    def __getitem__(self, name: str):
-        return self.scope[name]
-
-    def __contains__(self, name: str) -> bool:
-        return name in self.scope
-
-    # --- traced working
-    def calc(self, name: str, formula: str, unit: str | None = None, desc: str | None = None, note: str | None = None):
-        """Evaluate ``formula`` (sheet syntax) in this call's scope; trace and bind it."""
-        step = self._evaluator.plugin_step(self, name, formula, unit, desc)
-        step.note = note
-        self.working.items.append(step)
-        self.scope[name] = step.value
-        return step.value
-
-    def let(self, name: str, value, unit: str | None = None, desc: str | None = None, note: str | None = None):
-        """Record a result found by a method rather than a formula (say which in ``note``)."""
-        step = Step(name=name, expr=None, value=value, description=desc, note=note)
-        step.display_unit = self._evaluator.display_unit_for(value, unit)
-        self.working.items.append(step)
-        self.scope[name] = value
-        return value
-
-    def check(self, text: str, desc: str | None = None) -> CheckResult:
-        """A pass/fail inside the working (e.g. the two-method agreement)."""
-        result = self._evaluator.plugin_check(self, text, desc)
-        self.working.items.append(result)
-        return result
-
-    def table(self, title: str, columns: list[str], rows: list[list[Any]], units=None, footer=None, note=None):
-        units = [self._evaluator.display_unit_for(None, u) if isinstance(u, str) else u for u in (units or [])] or None
-        self.working.items.append(Table(title, list(columns), rows, units, footer, note))
-
-    def figure(self, svg: str, caption: str = ""):
-        self.working.items.append(Figure(svg, caption))
-
-    def note(self, text: str, kind: str = "note"):
-        self.working.items.append(Note(text, kind))
-
-    def warn(self, message: str, param: str | None = None):
-        """A warning shown at the call (and in the working)."""
-        self.warnings.append((message, param))
-        self.working.items.append(Note(message, "warning"))
-
-    def fail(self, message: str, param: str | None = None, hint: str | None = None):
-        """Refuse the input; the error points at ``param`` in the call."""
-        err = PluginInputError(f"{self.plugin.qualname}: {message}", hint=hint)
-        err.param = param
-        raise err
-
-    def q(self, value, unit: str):
-        """A quantity from a plugin's own number (trusted text)."""
-        return U.Quantity(value, unit)
 
 
 # ---------------------------------------------------------------- registry
@@ -364,24 +362,49 @@ class PluginRegistry:
         return ns
 
     def function(self, namespace: str, name: str) -> PluginFunction:
-        import difflib
-
         ns = self.namespace(namespace)
         if ns is None:
-            close = difflib.get_close_matches(namespace, self.names(), n=1)
-            hint = f"did you mean '{close[0]}'?" if close else f"plugins: {', '.join(self.names())}"
+            hint = did_you_mean(namespace, self.names()) or f"plugins: {', '.join(self.names())}"
             if namespace in self.blocked:
                 hint = "it is blocked (CALCSHEET_BLOCK_PLUGINS)"
             raise UnknownPluginError(f"unknown plugin '{namespace}'", hint=hint)
         pf = ns.functions.get(name)
         if pf is None:
-            close = difflib.get_close_matches(name, list(ns.functions), n=1)
-            hint = f"did you mean '{namespace}.{close[0]}'?" if close else f"functions: {', '.join(ns.functions)}"
+            hint = did_you_mean(name, ns.functions, prefix=f"{namespace}.") or f"functions: {', '.join(ns.functions)}"
             raise UnknownPluginError(f"plugin '{namespace}' has no function '{name}'", hint=hint)
         return pf
 
     def is_namespace(self, name: str) -> bool:
         return name not in self.blocked and (name in self._loaded or name in self._eps())
+
+    def check_contract(self) -> list[str]:
+        """The parts of the contract that need every plugin loaded: each record type a parameter or field
+        names is returned by some function, and every function returning one record type, across
+        namespaces, declares the same fields. Returns the problems found (empty: none)."""
+        problems: list[str] = []
+        functions: list[PluginFunction] = []
+        for name in self.names():
+            try:
+                ns = self.namespace(name)
+            except PluginDefinitionError as exc:
+                problems.append(str(exc))
+                continue
+            if ns is not None:
+                functions.extend(ns.functions.values())
+        makers: dict[str, dict[str, tuple]] = {}
+        for pf in functions:
+            try:
+                _same_fields(makers.setdefault(pf.returns, {}), pf)
+            except PluginDefinitionError as exc:
+                problems.append(str(exc))
+        for pf in functions:
+            wanted = [(f"parameter {p.name}", p.record) for p in pf.params if p.record]
+            wanted += [(f"field {f.name}", f.record) for f in pf.fields if f.record]
+            for what, record in wanted:
+                if record not in makers:
+                    problems.append(f"plugin {pf.qualname}: {what} needs a {record} record, "
+                                    "which no loaded plugin function returns")
+        return problems
 
     def loaded_versions(self) -> dict[str, str]:
         return {n: ns.version for n, ns in self._loaded.items()}
@@ -399,18 +422,14 @@ def default_registry() -> PluginRegistry:
 
 def check_argument_kinds(pf: PluginFunction, given: dict[str, Any]) -> None:
     """Missing and unknown keyword arguments (dimensions are checked by the caller)."""
-    import difflib
-
     for name in given:
         if pf.param(name) is None:
-            close = difflib.get_close_matches(name, [p.name for p in pf.params], n=1)
-            hint = f"did you mean '{close[0]}'?" if close else "parameters: " + ", ".join(p.name for p in pf.params)
-            err = PluginArgumentError(f"{pf.qualname} has no parameter '{name}'", hint=hint)
-            err.param = name
-            raise err
+            hint = did_you_mean(name, [p.name for p in pf.params]) or \
+                "parameters: " + ", ".join(p.name for p in pf.params)
+            raise PluginArgumentError(f"{pf.qualname} has no parameter '{name}'", hint=hint, param=name)
     for p in pf.params:
         if p.required and p.name not in given:
             raise PluginArgumentError(
                 f"{pf.qualname} needs '{p.name}' ({p.describe()})",
-                hint=f"add {p.name}=… to the call",
+                hint=f"add {p.name}=… to the call", param=None,
             )

@@ -6,7 +6,6 @@ the diff, the cross-references and the overrides.
 """
 from __future__ import annotations
 
-import difflib
 from dataclasses import dataclass, field
 
 from . import nodes as N
@@ -21,7 +20,8 @@ from .errors import (
     UnknownPluginError,
     UseBeforeDefinitionError,
 )
-from .evaluator import CONSTANTS, FUNCTIONS
+from .builtins import CONSTANTS, FUNCTIONS, is_builtin
+from .names import did_you_mean
 from .plugin import PluginRegistry
 
 
@@ -82,7 +82,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                 errors.append(RedefinitionError(
                     f"'{stmt.name}' is already defined on {res.def_spans[stmt.name].where()}", stmt.name_span,
                     hint="give the new value its own name (e.g. a subscript: M_2)"))
-            elif stmt.name in CONSTANTS or stmt.name in FUNCTIONS:
+            elif is_builtin(stmt.name):
                 errors.append(RedefinitionError(f"'{stmt.name}' is a built-in name", stmt.name_span,
                                                 hint="choose another name"))
             elif plugins.is_namespace(stmt.name):
@@ -129,14 +129,12 @@ def _check_node(node, res: Resolution, all_defs, plugins: PluginRegistry, key) -
         if plugins.is_namespace(node.id):
             return UndefinedNameError(f"'{node.id}' is a plugin; call one of its functions: {node.id}.name(…)",
                                       node.span)
-        close = difflib.get_close_matches(node.id, list(res.defined_at) + list(CONSTANTS), n=1)
         return UndefinedNameError(f"'{node.id}' is not defined", node.span,
-                                  hint=f"did you mean '{close[0]}'?" if close else None)
+                                  hint=did_you_mean(node.id, [*res.defined_at, *CONSTANTS]))
     if isinstance(node, N.Call):
         if node.func not in FUNCTIONS:
-            close = difflib.get_close_matches(node.func, list(FUNCTIONS), n=1)
             return UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
-                                        hint=f"did you mean '{close[0]}'?" if close else
+                                        hint=did_you_mean(node.func, FUNCTIONS) or
                                         "functions: " + ", ".join(sorted(FUNCTIONS)))
     if isinstance(node, N.PluginCall):
         try:

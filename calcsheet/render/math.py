@@ -8,6 +8,8 @@ from __future__ import annotations
 import pint
 
 from .. import nodes as N
+from ..builtins import OPERATORS, print_form
+from ..names import dotted, strip_sign, unparen
 from ..display import shown, split_number
 from ..plugin import Record
 from .base import ATOM, PRECEDENCE, Printer, precedence, value_precedence
@@ -56,7 +58,7 @@ class MathPrinter(Printer):
 
     def _child_precedence(self, child) -> int:
         if self._values is not None:
-            key = _symbol(child)
+            key = dotted(child)
             if key is not None and key in self._values:
                 return value_precedence(self._values[key][0])
         if isinstance(child, N.Paren):
@@ -82,7 +84,7 @@ class MathPrinter(Printer):
         return self.m_name(node.id, link=self._link(node.id) if self._link else None)
 
     def _print_FieldAccess(self, node: N.FieldAccess, ctx):
-        key = _symbol(node)
+        key = dotted(node)
         if self._values is not None and key in self._values:
             v, unit = self._values[key]
             return self.value(v, unit)
@@ -99,26 +101,26 @@ class MathPrinter(Printer):
         return self.m_neg(self._wrap(node.operand, PRECEDENCE[N.Neg]))
 
     def _print_Add(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 10), "+", self._wrap(node.right, 10))
+        return self.m_binary(self._wrap(node.left, 10), OPERATORS["+"].printed, self._wrap(node.right, 10))
 
     def _print_Sub(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 10), "−", self._wrap(node.right, 10, strict=True))
+        return self.m_binary(self._wrap(node.left, 10), OPERATORS["-"].printed, self._wrap(node.right, 10, strict=True))
 
     def _print_Mul(self, node, ctx):
-        return self.m_binary(self._wrap(node.left, 20), "·", self._wrap(node.right, 20, strict=isinstance(
+        return self.m_binary(self._wrap(node.left, 20), OPERATORS["*"].printed, self._wrap(node.right, 20, strict=isinstance(
             node.right, N.Div) and not self.settings["stacked_fractions"]))
 
     def _print_Div(self, node: N.Div, ctx):
         if self.settings["stacked_fractions"]:
-            return self.m_frac(self._print(_unparen(node.left), 0), self._print(_unparen(node.right), 0))
-        return self.m_binary(self._wrap(node.left, 20), "/", self._wrap(node.right, 20, strict=True))
+            return self.m_frac(self._print(unparen(node.left), 0), self._print(unparen(node.right), 0))
+        return self.m_binary(self._wrap(node.left, 20), OPERATORS["/"].printed, self._wrap(node.right, 20, strict=True))
 
     def _print_Pow(self, node: N.Pow, ctx):
         base = self._wrap(node.left, PRECEDENCE[N.Pow] + 1)
         exponent_values = self._values
         self._values = None  # exponents are printed as written (they are plain numbers)
         try:
-            exponent = self._print(_unparen(node.right), 0)
+            exponent = self._print(unparen(node.right), 0)
         finally:
             self._values = exponent_values
         return self.m_pow(base, exponent)
@@ -127,15 +129,14 @@ class MathPrinter(Printer):
         return self.m_compare(self._print(node.left, 0), node.op, self._print(node.right, 0))
 
     def _print_Call(self, node: N.Call, ctx):
-        if node.func == "if" and len(node.args) == 3:
-            cond, then, otherwise = (self._print(_unparen(a), 0) for a in node.args)
+        form = print_form(node)  # the built-ins table says how each function is shown
+        args = [self._print(unparen(a), 0) for a in node.args]
+        if form == "cases":
+            cond, then, otherwise = args
             return self.m_cases(then, cond, otherwise)
-        args = [self._print(_unparen(a), 0) for a in node.args]
-        if node.func == "sqrt" and len(args) == 1:
-            return self.m_sqrt(args[0])
-        if node.func == "abs" and len(args) == 1:
-            return self.m_abs(args[0])
-        return self.m_call(node.func, args)
+        if form == "call":
+            return self.m_call(node.func, args)
+        return getattr(self, "m_" + form)(*args)
 
     def _print_PluginCall(self, node: N.PluginCall, ctx):
         args = [self.m_keyword(kw.name, self._print(kw.value, 0)) for kw in node.kwargs]
@@ -170,17 +171,6 @@ class MathPrinter(Printer):
     def m_cases(self, then, cond, otherwise): raise NotImplementedError
 
 
-def _unparen(node):
-    return node.inner if isinstance(node, N.Paren) else node
-
-
-def _symbol(node) -> str | None:
-    if isinstance(node, N.Name):
-        return node.id
-    if isinstance(node, N.FieldAccess):
-        inner = _symbol(node.obj)
-        return f"{inner}.{node.field_name}" if inner else None
-    return None
 
 
 def _is_dimensionless(unit) -> bool:
@@ -189,6 +179,4 @@ def _is_dimensionless(unit) -> bool:
 
 def is_literal(node) -> bool:
     """A value written directly (``6.0 m``, ``-2 kN``): its formula is its result."""
-    while isinstance(node, (N.Neg, N.Paren)):
-        node = node.operand if isinstance(node, N.Neg) else node.inner
-    return isinstance(node, (N.Number, N.Text))
+    return isinstance(strip_sign(node), (N.Number, N.Text))

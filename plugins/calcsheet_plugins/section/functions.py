@@ -81,13 +81,16 @@ def _section(work, shape, rho=None, x_ref=None, y_ref=None, **kw):
 
 def _register(name, params, doc):
     def deco(func):
-        return namespace.function(name, params=params + COMMON, fields=FIELDS, returns="section", doc=doc)(func)
+        return namespace.function(name, params=params, shared=True, fields=FIELDS, returns="section", doc=doc)(func)
     return deco
 
 
+namespace.share(*COMMON)  # every shape takes rho, x_ref, y_ref and detail (as **common)
+
+
 @_register("rectangle", [Param("b", L, "width"), Param("h", L, "depth")], "Solid rectangle b × h.")
-def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), rho, x_ref, y_ref, detail=detail)
+def rectangle(work, b, h, **common):
+    return _section(work, _build(work, lambda: S.rectangle(_mm(b), _mm(h))), **common)
 
 
 @_register("box", [Param("b", L, "outside width"), Param("h", L, "outside depth"),
@@ -95,20 +98,20 @@ def rectangle(work, b, h, rho=None, x_ref=None, y_ref=None, detail="full"):
                    Param("t_f", L, "top and bottom walls", default=None),
                    Param("t_w", L, "side walls", default=None)],
            "Hollow rectangle: uniform wall t, or walls t_f (top, bottom) and t_w (sides).")
-def box(work, b, h, t=None, t_f=None, t_w=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+def box(work, b, h, t=None, t_f=None, t_w=None, **common):
+    return _section(work, _build(work, lambda: S.box(_mm(b), _mm(h), _mm(t), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("circle", [Param("d", L, "diameter")], "Solid circle.")
-def circle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.circle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def circle(work, d, **common):
+    return _section(work, _build(work, lambda: S.circle(_mm(d))), **common)
 
 
 @_register("tube", [Param("d", L, "outside diameter"), Param("t", L, "wall", default=None),
                     Param("d_i", L, "inside diameter", default=None)],
            "Circular tube: outside diameter d and wall t, or inside diameter d_i.")
-def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), rho, x_ref, y_ref, detail=detail)
+def tube(work, d, t=None, d_i=None, **common):
+    return _section(work, _build(work, lambda: S.tube(_mm(d), _mm(t), _mm(d_i))), **common)
 
 
 @_register("ishape", [Param("h", L, "overall depth"), Param("b", L, "top flange width"),
@@ -116,50 +119,49 @@ def tube(work, d, t=None, d_i=None, rho=None, x_ref=None, y_ref=None, detail="fu
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None)],
            "I-shape with equal flanges, or unequal ones via b_bot and t_fb (fillets not modelled).")
-def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
-                    rho, x_ref, y_ref, detail=detail)
+def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, **common):
+    return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))), **common)
 
 
 @_register("channel", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                        Param("t_f", L, "flange thickness"), Param("t_w", L, "web thickness")],
            "Channel, web on the left, flanges pointing right.")
-def channel(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+def channel(work, h, b, t_f, t_w, **common):
+    return _section(work, _build(work, lambda: S.channel(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("tee", [Param("h", L, "overall depth"), Param("b", L, "flange width"),
                    Param("t_f", L, "flange thickness"), Param("t_w", L, "stem thickness")],
            "Tee, flange on top.")
-def tee(work, h, b, t_f, t_w, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), rho, x_ref, y_ref, detail=detail)
+def tee(work, h, b, t_f, t_w, **common):
+    return _section(work, _build(work, lambda: S.tee(_mm(h), _mm(b), _mm(t_f), _mm(t_w))), **common)
 
 
 @_register("angle", [Param("h", L, "vertical leg"), Param("t", L, "leg thickness"),
                      Param("b", L, "horizontal leg (default h: equal angle)", default=None)],
            "Equal or unequal angle, heel at the bottom-left.")
-def angle(work, h, t, b=None, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), rho, x_ref, y_ref, detail=detail)
+def angle(work, h, t, b=None, **common):
+    return _section(work, _build(work, lambda: S.angle(_mm(h), _mm(t), _mm(b))), **common)
 
 
 @_register("triangle", [Param("b", L, "base"), Param("h", L, "height"),
                         Param("form", kind="text", doc="right angle at the bottom-left, or isosceles",
                               default="right", choices=("right", "isosceles"))],
            "Right or isosceles triangle on its base.")
-def triangle(work, b, h, form="right", rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), rho, x_ref, y_ref, detail=detail)
+def triangle(work, b, h, form="right", **common):
+    return _section(work, _build(work, lambda: S.triangle(_mm(b), _mm(h), form)), **common)
 
 
 @_register("semicircle", [Param("d", L, "diameter")], "Semicircle, flat side down.")
-def semicircle(work, d, rho=None, x_ref=None, y_ref=None, detail="full"):
-    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), rho, x_ref, y_ref, detail=detail)
+def semicircle(work, d, **common):
+    return _section(work, _build(work, lambda: S.semicircle(_mm(d))), **common)
 
 
 @_register("polygon", [Param("points", L, "outline vertices (x, y) in order", kind="points")],
            "Any simple polygon, given by its vertices in order (either direction).")
-def polygon(work, points, rho=None, x_ref=None, y_ref=None, detail="full"):
+def polygon(work, points, **common):
     pts = [(_mm(px), _mm(py)) for px, py in points]
-    return _section(work, _build(work, lambda: S.polygon(pts)), rho, x_ref, y_ref, detail=detail)
+    return _section(work, _build(work, lambda: S.polygon(pts)), **common)
 
 
 # ---------------------------------------------------------------- built-up sections

@@ -1,0 +1,573 @@
+"""The language's rules in one table: built-in functions, constants and operators.
+
+For every built-in function this module says, once: how many arguments it
+takes, what it requires of their dimensions and what dimension it returns
+(its *rule*), how it computes on pint quantities (its *implementation*) and
+how a formula printer shows it (its *print form*). Operators (``+ - * / ^``,
+unary minus, comparisons) have their rules here too.
+
+The resolver (which names exist), the static checker (rules on inferred
+dimensions), the evaluator (rules on the evaluated quantities' dimensions,
+then the implementation), constant folding and the printers all read this
+table; nothing else lists functions. Because the checker and the evaluator
+apply the *same* rule to the same dimensions, "check is clean" means
+"evaluation raises no unit or arity error".
+
+A rule receives each operand as an ``Arg`` (its dimension, and whether it is
+a temperature on an offset scale), or ``None`` when the checker does not know
+it (an operand already reported broken); it returns the result's ``Arg`` (or
+``None``: unknown) or raises a located ``CalcError``, using the nodes for the
+place and the operand names in its message.
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+from typing import Callable, NamedTuple, Sequence
+
+import pint
+
+from . import nodes as N
+from . import units as U
+from .errors import (
+    AngleError,
+    ArityError,
+    DimensionError,
+    DivisionByZeroError,
+    NumericError,
+    OffsetTemperatureError,
+    TypeMismatchError,
+)
+from .names import operand
+from .slips import specialise
+
+# A quantity with units may be raised only to a power written in the sheet as plain numbers, at most this
+# large: ``2 m ** (1 m/mm)`` would otherwise be m¹⁰⁰⁰, which is no physical quantity.
+MAX_UNIT_POWER = 12
+
+
+class Arg(NamedTuple):
+    """What a rule knows of an operand: its dimension, and whether it is a °C/°F temperature."""
+
+    dim: U.Dim
+    offset: bool = False
+
+
+NUMBER = Arg(U.DIMENSIONLESS)
+ANGLE = Arg(U.ANGLE)
+
+
+@lru_cache(maxsize=4096)
+def _arg_of_unit(unit: pint.Unit) -> Arg:
+    offset = any(name in U.OFFSET_UNITS for name in unit._units)
+    return Arg(U.dim_of(unit), offset)
+
+
+def arg_of(q: pint.Quantity) -> Arg:
+    """The ``Arg`` of an evaluated quantity."""
+    return _arg_of_unit(q.units)
+
+
+def _d(a: Arg) -> str:
+    return U.describe_dim(a.dim)
+
+
+# ================================================================ operators
+
+
+def _offset_error(op: str, side: N.Expr) -> OffsetTemperatureError:
+    what = {"+": "added to", "-": "combined with", "*": "multiplied", "/": "divided", "^": "raised to a power",
+            "neg": "negated"}
+    return OffsetTemperatureError(
+        f"{operand(side, 'this value')} is a temperature on the °C/°F scale; it cannot be "
+        f"{what[op]}" + ("" if op in ("*", "/", "^", "neg") else " another value"), side.span,
+        hint="only a difference of two such temperatures is a quantity (T_2 - T_1 gives K); "
+             "use that difference, or write the temperature in K")
+
+
+def rule_add(op: str, a: Arg | None, b: Arg | None, node: N.BinOp) -> Arg | None:
+    """``a + b``, ``a - b``: the same dimension; two °C/°F temperatures only subtract (to a difference)."""
+    if (a is not None and a.offset) or (b is not None and b.offset):
+        if op == "-" and a is not None and b is not None and a.offset and b.offset:
+            return Arg(a.dim)
+        raise _offset_error(op, node.left if a is not None and a.offset else node.right)
+    if a is None or b is None:
+        return a if b is None else b
+    if a.dim != b.dim:
+        word = "add" if op == "+" else "subtract"
+        exc = DimensionError(
+            f"cannot {word} {_d(b)} {'to' if op == '+' else 'from'} {_d(a)}", node.span,
+            hint=f"left: {operand(node.left)} is {_d(a)}; right: {operand(node.right)} is {_d(b)}")
+        if not specialise(exc, a.dim, b.dim, operand(node.right, "the right operand")):
+            specialise(exc, b.dim, a.dim, operand(node.left, "the left operand"))
+        raise exc
+    return a
+
+
+def rule_mul(op: str, a: Arg | None, b: Arg | None, node: N.BinOp) -> Arg | None:
+    """``a * b``, ``a / b``: any dimensions, multiplied or divided; never a °C/°F temperature."""
+    if (a is not None and a.offset) or (b is not None and b.offset):
+        raise _offset_error(op, node.left if a is not None and a.offset else node.right)
+    if a is None or b is None:
+        return None
+    return Arg(U.dim_mul(a.dim, b.dim, 1 if op == "*" else -1))
+
+
+def rule_pow(a: Arg | None, b: Arg | None, node: N.BinOp, p: float | None) -> Arg | None:
+    """``a ^ b``: the exponent is a plain number; a base with units takes only a power written in the
+    sheet as plain numbers (``p``, folded by ``written_power``; None when it is not), at most
+    ``MAX_UNIT_POWER`` in size."""
+    if (a is not None and a.offset) or (b is not None and b.offset):
+        raise _offset_error("^", node.left if a is not None and a.offset else node.right)
+    if b is not None and b.dim != U.DIMENSIONLESS:
+        raise DimensionError(f"an exponent must be a plain number, not {_d(b)}", node.right.span,
+                             hint=f"{operand(node.right)} is {_d(b)}")
+    if a is None:
+        return None
+    if a.dim == U.DIMENSIONLESS:
+        return NUMBER
+    if p is None:
+        raise DimensionError("a quantity with units may only be raised to a number written in the sheet",
+                             node.right.span, hint="write e.g. L^2 or L^0.5")
+    if abs(p) > MAX_UNIT_POWER:
+        raise DimensionError(f"a quantity with units raised to the power {p:g} is not a physical quantity",
+                             node.right.span, hint=f"{operand(node.left)} is {_d(a)}; powers of a quantity "
+                                                   f"with units go up to {MAX_UNIT_POWER}")
+    return Arg(U.dim_pow(a.dim, p))
+
+
+def rule_neg(a: Arg | None, node: N.Neg) -> Arg | None:
+    """``-a``: any quantity, same dimension."""
+    return a
+
+
+def rule_compare(a: Arg | None, b: Arg | None, node, left: N.Expr, right: N.Expr, where: str = "a check") -> None:
+    """``a <= b`` (a check, or the condition of ``if``): both sides of the same dimension."""
+    if a is None or b is None or a.dim == b.dim:
+        return
+    exc = DimensionError(
+        f"cannot compare {_d(a)} with {_d(b)}", node.span,
+        hint=f"left: {operand(left)} is {_d(a)}; right: {operand(right)} is {_d(b)}; "
+             f"both sides of {where} must have the same dimension")
+    if not specialise(exc, b.dim, a.dim, operand(left, "the left side")):
+        specialise(exc, a.dim, b.dim, operand(right, "the right side"))
+    raise exc
+
+
+def rule_declared(got: Arg | None, want: Arg, stmt: N.Definition, mismatch: Callable[[], Exception]) -> Arg | None:
+    """``name [unit] = expr``: the expression's dimension is the unit's (an angle and a plain number
+    agree: radians are plain numbers); the value takes the unit's dimension, except under ``[]`` where it
+    keeps its own. A unit on the °C/°F scale takes only a temperature on such a scale (a difference of
+    two is not one). ``mismatch`` makes the error for a dimension that differs (each walker says why)."""
+    if got is None:
+        return want if stmt.unit else None
+    if U.without_angle(got.dim) != U.without_angle(want.dim):
+        raise mismatch()
+    if want.offset and not got.offset:
+        raise OffsetTemperatureError(
+            f"{stmt.name} is declared [{stmt.unit_text}], a temperature on the °C/°F scale, but the expression "
+            "is a temperature difference or in K", stmt.unit_span or stmt.span,
+            hint="declare a difference in K (or delta units), or write the temperature itself in °C/°F")
+    return want if stmt.unit else got
+
+
+def unit_arg(unit: pint.Unit) -> Arg:
+    """The ``Arg`` of a declared unit."""
+    return _arg_of_unit(unit)
+
+
+def _pow_impl(a, b, node: N.BinOp, p: float):
+    if arg_of(a).dim == U.DIMENSIONLESS:
+        base = float(a.m_as(_unit("")))
+        if base < 0 and not p.is_integer():
+            raise NumericError("a negative number to a fractional power is not real", node.span)
+        if base == 0 and p < 0:
+            raise DivisionByZeroError("zero to a negative power", node.span)
+        try:
+            return _q(base**p)
+        except OverflowError:
+            raise NumericError("the power overflows", node.span) from None
+    if a.magnitude < 0 and not p.is_integer():
+        raise NumericError("a negative quantity to a fractional power is not real", node.span)
+    if a.magnitude == 0 and p < 0:
+        raise DivisionByZeroError("zero to a negative power", node.span)
+    return a**p
+
+
+def _div_impl(a, b, node: N.BinOp):
+    if b.magnitude == 0:
+        raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
+    return a / b
+
+
+@dataclass(frozen=True)
+class Operator:
+    """A binary operator: its rule on dimensions, its implementation on quantities, its printed symbol."""
+
+    symbol: str
+    rule: Callable  # (op, a, b, node[, p]) -> Arg | None
+    impl: Callable  # (a, b, node[, p]) -> Quantity
+    printed: str
+    doc: str
+
+
+OPERATORS: dict[str, Operator] = {
+    "+": Operator("+", rule_add, lambda a, b, node: a + b, "+", "sum of two values of one dimension"),
+    "-": Operator("-", rule_add, lambda a, b, node: a - b, "−", "difference of two values of one dimension"),
+    "*": Operator("*", rule_mul, lambda a, b, node: a * b, "·", "product; dimensions multiply"),
+    "/": Operator("/", rule_mul, _div_impl, "/", "quotient; dimensions divide"),
+    "^": Operator("^", rule_pow, _pow_impl, "^", "power; see rule_pow"),
+}
+
+COMPARISONS: dict[str, Callable[[float, float], bool]] = {
+    "<=": lambda a, b: a <= b, "<": lambda a, b: a < b, ">=": lambda a, b: a >= b, ">": lambda a, b: a > b,
+}
+
+
+@lru_cache(maxsize=2048)
+def written_power(node: N.Expr) -> float | None:
+    """The value of an exponent written with plain number literals only (``2``, ``(1/3)``, ``-0.5``), else None.
+
+    The checker and the evaluator both ask this of a power's exponent; it folds with the operators'
+    own implementations (``fold``)."""
+    if not _literal_only(node):
+        return None
+    try:
+        v = fold(node)
+    except Exception:  # a division by zero, an overflow: not a written power
+        return None
+    return None if v is None else float(v.m_as(_unit("")))
+
+
+def _literal_only(node: N.Expr) -> bool:
+    for n in N.walk(node):
+        if isinstance(n, N.Number):
+            if n.unit:
+                return False
+        elif not isinstance(n, (N.Paren, N.Neg, N.BinOp)):
+            return False
+    return True
+
+
+def fold(node: N.Expr, name_value: Callable[[str], pint.Quantity | None] | None = None):
+    """The one constant folder: the value of an expression of literals, constants and (through
+    ``name_value``) names with known values, computed with the operators' rules and implementations;
+    None when any part is not known without evaluating. Errors of the rules propagate."""
+    reg = U.registry()
+    if isinstance(node, N.Number):
+        if any(U.VOCABULARY.get(n) in U.OFFSET_UNITS for n, _ in node.unit):
+            return None
+        return reg.Quantity(node.value, U.build_unit(node.unit) if node.unit else _unit(""))
+    if isinstance(node, N.Paren):
+        return fold(node.inner, name_value)
+    if isinstance(node, N.Neg):
+        v = fold(node.operand, name_value)
+        return None if v is None else -v
+    if isinstance(node, N.Name):
+        if node.id in CONSTANTS:
+            return CONSTANTS[node.id].quantity()
+        return name_value(node.id) if name_value is not None else None
+    if isinstance(node, N.BinOp):
+        a = fold(node.left, name_value)
+        if a is None:
+            return None
+        b = fold(node.right, name_value)
+        if b is None:
+            return None
+        return apply_binop(node, a, b)
+    return None
+
+
+def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
+    """Rule, then implementation, of one binary operator on two quantities (the evaluator and the folder)."""
+    op = OPERATORS[node.op]
+    if node.op == "^":
+        p = written_power(node.right) if arg_of(a).dim != U.DIMENSIONLESS else None
+        rule_pow(arg_of(a), arg_of(b), node, p)
+        return _pow_impl(a, b, node, float(b.m_as(_unit(""))))
+    op.rule(node.op, arg_of(a), arg_of(b), node)
+    return op.impl(a, b, node)
+
+
+# ================================================================ functions
+
+
+def _no_offset(name: str, args: Sequence[Arg | None], nodes: Sequence[N.Expr]) -> None:
+    for a, arg in zip(args, nodes):
+        if a is not None and a.offset:
+            raise OffsetTemperatureError(f"{name}() of a temperature on the °C/°F scale", arg.span,
+                                         hint="use a temperature difference (T_2 - T_1), or the value in K")
+
+
+def _same_dims(name: str, args, nodes) -> Arg | None:
+    x = args[0]
+    for a, arg in zip(args[1:], nodes[1:]):
+        if x is not None and a is not None and a.dim != x.dim:
+            raise DimensionError(f"{name}() of {_d(x)} and {_d(a)}", arg.span,
+                                 hint=f"{operand(nodes[0])} is {_d(x)}, {operand(arg)} is {_d(a)}; every value "
+                                      "compared must have the same dimension")
+    return x if x is not None else next((a for a in args if a is not None), None)
+
+
+def _rule_same(name):
+    """abs, min, max: values of one dimension (°C/°F temperatures allowed, all on such a scale or none);
+    the result has it."""
+    def rule(args, nodes, node):
+        known = [(a, n) for a, n in zip(args, nodes) if a is not None]
+        if len({a.offset for a, _ in known}) > 1:
+            arg = next(n for a, n in known if a.offset != known[0][0].offset)
+            raise OffsetTemperatureError(
+                f"{name}() of a temperature on the °C/°F scale and one that is not", arg.span,
+                hint="write every value on one scale: all in °C (or °F), or all in K")
+        return _same_dims(name, args, nodes)
+    return rule
+
+
+def _rule_sqrt(args, nodes, node):
+    _no_offset("sqrt", args, nodes)
+    return None if args[0] is None else Arg(U.dim_pow(args[0].dim, 0.5))
+
+
+def _rule_trig(name):
+    """sin, cos, tan: an angle in, a plain number out."""
+    def rule(args, nodes, node):
+        _no_offset(name, args, nodes)
+        x, arg = args[0], nodes[0]
+        if x is not None and x.dim != U.ANGLE:
+            if x.dim == U.DIMENSIONLESS:
+                shown = operand(arg, "")
+                hint = (f"{shown} is a bare number; write the angle with its unit, e.g. {shown} deg or "
+                        f"{shown} rad" if isinstance(arg, N.Number) else
+                        f"{shown or 'the argument'} is a bare number; give it a unit where it is defined "
+                        "(deg or rad)")
+            else:
+                hint = f"{operand(arg)} is {_d(x)}; a trigonometric function takes an angle"
+            raise AngleError(f"{name}() needs an angle, got {_d(x)}", arg.span, hint=hint)
+        return NUMBER
+    return rule
+
+
+def _rule_inverse_trig(name):
+    """asin, acos, atan: a plain number (a ratio) in, an angle out."""
+    def rule(args, nodes, node):
+        _no_offset(name, args, nodes)
+        x = args[0]
+        if x is not None and x.dim != U.DIMENSIONLESS:
+            raise DimensionError(f"{name}() needs a plain number (a ratio), got {_d(x)}", nodes[0].span,
+                                 hint="divide two values of the same dimension first")
+        return ANGLE
+    return rule
+
+
+def _rule_atan2(args, nodes, node):
+    """atan2(y, x): two values of one dimension in, an angle out."""
+    _no_offset("atan2", args, nodes)
+    y, x = args
+    if y is not None and x is not None and y.dim != x.dim:
+        raise DimensionError("atan2() needs two values of the same dimension", node.span,
+                             hint=f"{operand(nodes[0])} is {_d(y)}, {operand(nodes[1])} is {_d(x)}")
+    return ANGLE
+
+
+def _rule_plain(name):
+    """exp, ln, log10, ceil, floor: a plain number in, a plain number out."""
+    def rule(args, nodes, node):
+        _no_offset(name, args, nodes)
+        x = args[0]
+        if x is not None and x.dim != U.DIMENSIONLESS:
+            raise DimensionError(f"{name}() needs a plain number, got {_d(x)}", nodes[0].span,
+                                 hint="divide by a reference value of the same unit first")
+        return NUMBER
+    return rule
+
+
+def rule_if(x, y, node: N.Call):
+    """if(cond, value, otherwise): both outcomes of one kind and dimension.
+
+    ``x``, ``y``: an ``Arg`` for a quantity, a word for another kind ('text', 'section.tee record'), or
+    None when unknown."""
+    if x is None or y is None:
+        return x if y is None else y
+    if isinstance(x, Arg) and isinstance(y, Arg):
+        if x.dim == y.dim and x.offset != y.offset:
+            raise OffsetTemperatureError(
+                "one value of if() is a temperature on the °C/°F scale, the other is not", node.span,
+                hint="give both outcomes on one scale: both in °C (or °F), or both in K")
+        if x.dim == y.dim:
+            return x
+        xd, yd = _d(x), _d(y)
+    elif x == y:
+        return x
+    else:
+        xd = _d(x) if isinstance(x, Arg) else x
+        yd = _d(y) if isinstance(y, Arg) else y
+    raise DimensionError(f"the two values of if() differ: {xd} and {yd}", node.span,
+                         hint="both outcomes must have the same dimension")
+
+
+# ---- implementations (arguments already passed their rule)
+
+
+def _plain(x) -> float:
+    return float(x.m_as(_unit("")))
+
+
+@lru_cache(maxsize=None)
+def _unit(name: str) -> pint.Unit:
+    return U.registry().Unit(name)
+
+
+def _q(value: float, unit: str = ""):
+    """A result quantity (units from a cached ``Unit``: a unit string costs pint a parse each time)."""
+    return U.registry().Quantity(value, _unit(unit))
+
+
+def _impl_sqrt(args, node):
+    x = args[0]
+    if x.magnitude < 0:
+        raise NumericError("square root of a negative value", node.args[0].span)
+    return x**0.5
+
+
+def _impl_minmax(pick):
+    def impl(args, node):
+        x = args[0]
+        return pick(args, key=lambda q: q.to(x.units).magnitude)
+    return impl
+
+
+def _impl_trig(f):
+    def impl(args, node):
+        return _q(f(args[0].m_as(_unit("radian"))))
+    return impl
+
+
+def _impl_inverse_trig(name, f):
+    def impl(args, node):
+        v = _plain(args[0])
+        if name != "atan" and not -1 <= v <= 1:
+            raise NumericError(f"{name}() of {v:g} is outside -1…1", node.args[0].span)
+        return _q(math.degrees(f(v)), "degree")
+    return impl
+
+
+def _impl_atan2(args, node):
+    y, x = args
+    return _q(math.degrees(math.atan2(y.magnitude, x.to(y.units).magnitude)), "degree")
+
+
+def _impl_transcendental(name, f):
+    def impl(args, node):
+        v = _plain(args[0])
+        if name != "exp" and v <= 0:
+            raise NumericError(f"{name}() of a value that is not positive", node.args[0].span)
+        try:
+            return _q(f(v))
+        except OverflowError:
+            raise NumericError(f"{name}() overflows", node.span) from None
+    return impl
+
+
+def _impl_round(f):
+    def impl(args, node):
+        return _q(float(f(_plain(args[0]))))
+    return impl
+
+
+@dataclass(frozen=True)
+class Function:
+    """A built-in function: the one place its arity, rule, implementation and print form are written.
+
+    ``print_form`` names the printers' markup hook: 'call' (``f(x)``), 'sqrt' (a radical), 'abs' (bars),
+    'cases' (a brace of two outcomes). ``lazy`` functions (``if``) get their arguments unevaluated: their
+    walkers handle them, with ``rule_if``.
+    """
+
+    name: str
+    min_args: int
+    max_args: int | None
+    rule: Callable | None  # (args: list[Arg | None], nodes, call node) -> Arg | None
+    impl: Callable | None  # (args: list[Quantity], call node) -> Quantity
+    doc: str
+    print_form: str = "call"
+    lazy: bool = False
+
+    def arity_text(self) -> str:
+        if self.min_args == self.max_args:
+            return f"{self.min_args} argument" + ("" if self.min_args == 1 else "s")
+        if self.max_args is None:
+            return f"at least {self.min_args} argument" + ("" if self.min_args == 1 else "s")
+        return f"{self.min_args} to {self.max_args} arguments"
+
+
+def _fn(name, n, rule, impl, doc, **kw):
+    lo, hi = (n, n) if isinstance(n, int) else n
+    return Function(name, lo, hi, rule, impl, doc, **kw)
+
+
+FUNCTIONS: dict[str, Function] = {f.name: f for f in [
+    _fn("sqrt", 1, _rule_sqrt, _impl_sqrt, "square root; the dimension's exponents halve", print_form="sqrt"),
+    _fn("abs", 1, _rule_same("abs"), lambda args, node: abs(args[0]), "magnitude", print_form="abs"),
+    _fn("min", (1, None), _rule_same("min"), _impl_minmax(min), "least of values of one dimension"),
+    _fn("max", (1, None), _rule_same("max"), _impl_minmax(max), "greatest of values of one dimension"),
+    _fn("sin", 1, _rule_trig("sin"), _impl_trig(math.sin), "sine of an angle"),
+    _fn("cos", 1, _rule_trig("cos"), _impl_trig(math.cos), "cosine of an angle"),
+    _fn("tan", 1, _rule_trig("tan"), _impl_trig(math.tan), "tangent of an angle"),
+    _fn("asin", 1, _rule_inverse_trig("asin"), _impl_inverse_trig("asin", math.asin), "angle of a sine"),
+    _fn("acos", 1, _rule_inverse_trig("acos"), _impl_inverse_trig("acos", math.acos), "angle of a cosine"),
+    _fn("atan", 1, _rule_inverse_trig("atan"), _impl_inverse_trig("atan", math.atan), "angle of a tangent"),
+    _fn("atan2", 2, _rule_atan2, _impl_atan2, "angle of the point (x, y): atan2(y, x)"),
+    _fn("exp", 1, _rule_plain("exp"), _impl_transcendental("exp", math.exp), "e to a plain number"),
+    _fn("ln", 1, _rule_plain("ln"), _impl_transcendental("ln", math.log), "natural logarithm"),
+    _fn("log10", 1, _rule_plain("log10"), _impl_transcendental("log10", math.log10), "common logarithm"),
+    _fn("ceil", 1, _rule_plain("ceil"), _impl_round(math.ceil), "round a plain number up"),
+    _fn("floor", 1, _rule_plain("floor"), _impl_round(math.floor), "round a plain number down"),
+    _fn("if", 3, None, None, "if(a <= b, value, otherwise): one of two values of one dimension",
+        print_form="cases", lazy=True),
+]}
+
+
+@dataclass(frozen=True)
+class Constant:
+    """A built-in constant name: its value and unit."""
+
+    name: str
+    value: float
+    unit: str
+    doc: str
+
+    @property
+    def arg(self) -> Arg:
+        return Arg(U.dim_of(U.registry().Unit(self.unit)))
+
+    def quantity(self):
+        return _q(self.value, self.unit)
+
+
+CONSTANTS: dict[str, Constant] = {
+    "pi": Constant("pi", math.pi, "", "the ratio of a circle's circumference to its diameter"),
+}
+
+def is_builtin(name: str) -> bool:
+    """A name the table gives a meaning (a sheet may not define it)."""
+    return name in FUNCTIONS or name in CONSTANTS
+
+
+def check_call_shape(fn: Function, node: N.Call) -> None:
+    """No named arguments, and the number of arguments the function takes (both walkers, before anything)."""
+    if node.kwargs:
+        raise TypeMismatchError(f"{fn.name}() takes no named arguments", node.kwargs[0].span)
+    n = len(node.args)
+    if n < fn.min_args or (fn.max_args is not None and n > fn.max_args):
+        if fn.name == "if":
+            raise ArityError(f"if() takes 3 arguments (condition, value, otherwise), got {n}", node.span)
+        raise ArityError(f"{fn.name}() takes {fn.arity_text()}, got {n}", node.span)
+
+
+def print_form(node: N.Call) -> str:
+    """The markup hook a printer uses for this call ('call' when the arity is not the function's own)."""
+    fn = FUNCTIONS.get(node.func)
+    if fn is None or len(node.args) < fn.min_args or (fn.max_args is not None and len(node.args) > fn.max_args):
+        return "call"
+    return fn.print_form
