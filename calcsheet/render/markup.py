@@ -42,10 +42,10 @@ class Html(Markup):
     def format(self, *args, **kwargs) -> "Html":
         if kwargs:
             return _new(Html, str.format(self, *map(_safe, args), **{k: _safe(v) for k, v in kwargs.items()}))
-        return _new(Html, str.format(self, *map(_safe, args)))
+        return _new(Html, str.format(self, *[a if type(a) is Html else _safe(a) for a in args]))
 
     def join(self, iterable) -> "Html":
-        return _new(Html, str.join(self, map(_safe_str, iterable)))
+        return _new(Html, str.join(self, [a if type(a) is Html else _safe_str(a) for a in iterable]))
 
 
 _new = str.__new__  # an escaped or already-markup str becomes Html without Markup.__new__'s checks
