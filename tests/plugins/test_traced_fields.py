@@ -207,16 +207,10 @@ def test_every_material_field_is_the_value_its_working_or_table_shows(call, give
         if field in given:
             _same(value, calcsheet.run(f"v = {given[field]}\n").values["v"], field)
         else:
-            if field == "nu" and "nu" not in shown:  # see the xfail below: the default is traced as nu_0
-                field_shown = "nu_0"
-            else:
-                field_shown = field
-            assert field_shown in shown, f"field {field} is returned but its working never shows it"
-            _same(shown[field_shown], value, field)
+            assert field in shown, f"field {field} is returned but its working never shows it"
+            _same(shown[field], value, field)
 
 
-@pytest.mark.xfail(strict=True, reason="bug: material.custom traces its default Poisson's ratio as nu_0 while "
-                   "the record field and the G formula's substitution call it nu")
 def test_the_default_poissons_ratio_is_traced_under_the_fields_own_name():
     rec = _run('m = material.custom(name="alloy", E=70 GPa, f_y=200 MPa)\n').values["m"]
     assert "nu" in _shown(rec)

@@ -96,8 +96,8 @@ RULES = ("EN 1992-1-1", "ACI 318")
 def concrete(work, f_c, rule="EN 1992-1-1"):
     """Normal-weight concrete with E from its strength by a named rule."""
     mpa = f_c.m_as("MPa")
-    if not 8 <= mpa <= 120:
-        work.fail(f"f_c = {mpa:g} MPa is outside the range the rules cover (about 12–90 MPa)", param="f_c")
+    if not 12 <= mpa <= 90:  # EN 1992-1-1 Table 3.1 covers C12/15 to C90/105
+        work.fail(f"f_c = {mpa:g} MPa is outside the range the rules cover (12–90 MPa)", param="f_c")
     c = library.data()["concrete"]
     nu, nu_src = library.value(c["nu"])
     rho, rho_src = library.value(c["rho"])
@@ -141,8 +141,7 @@ def custom(work, name, E, f_y, nu=None, G=None, f_u=None, rho=None):
     if f_y.magnitude <= 0:
         work.fail("f_y must be greater than zero", param="f_y")
     if nu is None:
-        nu = work.let("nu_0", work.q(0.3, ""), desc="Poisson's ratio", note="not given: 0.3 assumed (steel-like)")
-        work.scope["nu"] = nu
+        nu = work.let("nu", work.q(0.3, ""), desc="Poisson's ratio", note="not given: 0.3 assumed (steel-like)")
     v = float(nu.m_as(""))
     if not -1 < v < 0.5:
         work.fail(f"Poisson's ratio must lie between -1 and 0.5, got {v:g}", param="nu")
