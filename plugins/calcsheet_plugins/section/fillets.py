@@ -37,13 +37,13 @@ def spandrel_row(name: str, px: float, py: float, r: float, sx: int, sy: int, si
     return Row(name, A, px + sx * c, py + sy * c, Io, Io, Ioxy, sign=sign)
 
 
-def rounded(points, radii, segments: int = ARC_SEGMENTS) -> np.ndarray:
-    """The outline through ``points`` (right-angled corners) with corner k replaced by an arc of radius
-    ``radii[k]`` (0: sharp), tangent to both edges."""
+def _round_corners(points, radii, corner, count) -> np.ndarray:
+    """The outline through ``points`` with corner k replaced by an arc of radius ``radii[k]`` (0: sharp):
+    ``corner(p, u1, u2, r)`` gives the arc's tangent points and centre, ``count(d)`` its segments for the
+    swept angle d."""
     pts = [np.asarray(p, float) for p in points]
     n = len(pts)
     out = []
-    per_quarter = max(4, segments // 4)
     for k in range(n):
         p, r = pts[k], radii[k]
         if r <= 0:
@@ -53,14 +53,26 @@ def rounded(points, radii, segments: int = ARC_SEGMENTS) -> np.ndarray:
         u1 /= np.hypot(*u1)
         u2 = pts[(k + 1) % n] - p
         u2 /= np.hypot(*u2)
-        t1, t2 = p - r * u1, p + r * u2
-        c = t1 + r * u2  # right angle: the centre is r along the outgoing direction from the first tangent point
+        t1, t2, c = corner(p, u1, u2, r)
         a1 = math.atan2(*(t1 - c)[::-1])
         a2 = math.atan2(*(t2 - c)[::-1])
         d = (a2 - a1 + math.pi) % (2 * math.pi) - math.pi
-        t = np.linspace(a1, a1 + d, per_quarter + 1)
+        t = np.linspace(a1, a1 + d, count(d) + 1)
         out.extend(np.column_stack([c[0] + r * np.cos(t), c[1] + r * np.sin(t)]))
     return np.array(out)
+
+
+def _right_corner(p, u1, u2, r):
+    """Right angle: the centre is r along the outgoing direction from the first tangent point."""
+    t1 = p - r * u1
+    return t1, p + r * u2, t1 + r * u2
+
+
+def rounded(points, radii, segments: int = ARC_SEGMENTS) -> np.ndarray:
+    """The outline through ``points`` (right-angled corners) with corner k replaced by an arc of radius
+    ``radii[k]`` (0: sharp), tangent to both edges."""
+    per_quarter = max(4, segments // 4)
+    return _round_corners(points, radii, _right_corner, lambda d: per_quarter)
 
 
 def _ring(points, radii, sign=1):
@@ -256,26 +268,8 @@ def _corner(p, u1, u2, r):
 
 def rounded_any(points, radii, segments: int = ARC_SEGMENTS) -> np.ndarray:
     """As ``rounded``, for corners of any angle."""
-    pts = [np.asarray(p, float) for p in points]
-    n = len(pts)
-    out = []
-    for k in range(n):
-        p, r = pts[k], radii[k]
-        if r <= 0:
-            out.append(p)
-            continue
-        u1 = p - pts[k - 1]
-        u1 /= np.hypot(*u1)
-        u2 = pts[(k + 1) % n] - p
-        u2 /= np.hypot(*u2)
-        t1, t2, c, theta = _corner(p, u1, u2, r)
-        a1 = math.atan2(*(t1 - c)[::-1])
-        a2 = math.atan2(*(t2 - c)[::-1])
-        d = (a2 - a1 + math.pi) % (2 * math.pi) - math.pi
-        m = max(4, int(round(segments * abs(d) / (2 * math.pi))))
-        t = np.linspace(a1, a1 + d, m + 1)
-        out.extend(np.column_stack([c[0] + r * np.cos(t), c[1] + r * np.sin(t)]))
-    return np.array(out)
+    return _round_corners(points, radii, lambda p, u1, u2, r: _corner(p, u1, u2, r)[:3],
+                          lambda d: max(4, int(round(segments * abs(d) / (2 * math.pi)))))
 
 
 def triangle_row(name, p0, p1, p2, sign=1) -> Row:
