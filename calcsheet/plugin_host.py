@@ -252,9 +252,12 @@ class PluginHost:
         """``work.calc``: a formula in sheet syntax, evaluated in the call's scope and traced."""
         from .parser import parse_expression
 
-        expr = parse_expression(formula)
         used: dict = {}
-        value = self.evaluator.eval(expr, work.scope, used)
+        try:
+            expr = parse_expression(formula)
+            value = self.evaluator.eval(expr, work.scope, used)
+        except CalcError as exc:
+            raise at_the_call(exc, work, f"{name} = {formula}") from None
         display = self.display_unit_for(value, unit)
         if display is not None and isinstance(value, pint.Quantity):
             if U.without_angle(U.dim_of(value)) != U.without_angle(U.dim_of(display)):
@@ -273,7 +276,22 @@ class PluginHost:
         """``work.check``: a check in sheet syntax inside the working."""
         from .parser import parse_statement
 
-        stmt = parse_statement("check " + text)
-        result = self.evaluator.evaluate_check(stmt, work.scope, lambda k, v: self.unit_of_used(work, k, v))
+        try:
+            stmt = parse_statement("check " + text)
+            result = self.evaluator.evaluate_check(stmt, work.scope, lambda k, v: self.unit_of_used(work, k, v))
+        except CalcError as exc:
+            raise at_the_call(exc, work, f"check {text}") from None
         result.description = desc
         return result
+
+
+def at_the_call(exc: CalcError, work: Work, formula: str) -> CalcError:
+    """An error raised by one of a plugin's own formulas, made to point at the sheet's call.
+
+    The formula's text is the plugin's, not the sheet's: a span inside it (line 1, column 5 of "a + b") means
+    nothing in the sheet. The error keeps its class (its code) and hint, names the plugin and the formula in
+    its message, and loses that span, so ``PluginHost.call`` locates it at the call (file, line, column)."""
+    exc.message = f"{work.plugin.qualname}: in its formula {formula}: {exc.message}"
+    exc.args = (exc.message,)
+    exc.span = None
+    return exc
