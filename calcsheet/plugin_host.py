@@ -20,7 +20,7 @@ from . import nodes as N
 from . import units as U
 from .errors import CalcError, PluginArgumentError, PluginInputError
 from .names import did_you_mean
-from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds
+from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds, takes_record
 from .trace import CheckResult, Figure, Note, Step, Table, Working
 
 
@@ -180,14 +180,14 @@ class PluginHost:
                                           span, hint=did_you_mean(value, choices))
             return value
         if kind == "record":
-            if not isinstance(value, Record) or value.type != p.record:
+            if not isinstance(value, Record) or not takes_record(p.record, value.type, value.family):
                 raise PluginArgumentError(f"{where} needs a {p.record} record, got a {kind_of(value)}", span)
             return value
         if kind == "list":
             items = value if isinstance(value, tuple) else (value,)
             for item in items:
                 if p.record:
-                    if not isinstance(item, Record) or item.type != p.record:
+                    if not isinstance(item, Record) or not takes_record(p.record, item.type, item.family):
                         raise PluginArgumentError(f"{where} needs a list of {p.record} records, "
                                                   f"got a {kind_of(item)} in it", span)
                 elif not isinstance(item, pint.Quantity):
@@ -238,7 +238,7 @@ class PluginHost:
                     raise PluginInputError(f"{pf.qualname} did not return its field '{f.name}' (plugin bug)", span)
                 absent[f.name] = f.doc
         return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
-                      declared=declared, optional=absent)
+                      family=pf.family, declared=declared, optional=absent)
 
     # ---------------------------------------------------------------- the Work's host side
     def display_unit_for(self, value, unit_text: str | None = None):

@@ -219,7 +219,7 @@ probe = Namespace("probe", version="1.0", doc="a plugin that evaluates the formu
 
 
 @probe.function("calc", params=[Param("a", "[length]"), Param("b", "[time]"), Param("formula", kind="text")],
-                fields=[Field("v", doc="the value, as a plain number in its own unit")])
+                fields=[Field("v", doc="the value, as a plain number in its own unit")], returns="probe.calc")
 def _probe_calc(work, a, b, formula):
     work.calc("v", formula)
     return {"v": work.q(float(work["v"].magnitude), "")}
@@ -227,14 +227,14 @@ def _probe_calc(work, a, b, formula):
 
 @probe.function("check", params=[Param("a", "[length]"), Param("b", "[length]"),
                                  Param("op", kind="text", choices=("<=", "<", ">=", ">"))],
-                fields=[Field("ok", doc="1 when the check holds"), Field("ratio", doc="utilisation")])
+                fields=[Field("ok", doc="1 when the check holds"), Field("ratio", doc="utilisation")], returns="probe.check")
 def _probe_check(work, a, b, op):
     c = work.check(f"a {op} b", desc="probe check")
     return {"ok": work.q(1.0 if c.ok else 0.0, ""), "ratio": work.q(c.ratio if c.ratio is not None else -1, "")}
 
 
 @probe.function("compare", params=[Param("a", "[length]"), Param("b", "[time]")],
-                fields=[Field("ok", doc="1 when a <= b")])
+                fields=[Field("ok", doc="1 when a <= b")], returns="probe.compare")
 def _probe_compare(work, a, b):  # a plugin bug: a check between a length and a time
     c = work.check("a <= b")
     return {"ok": work.q(1.0 if c.ok else 0.0, "")}
@@ -396,7 +396,7 @@ ARGS = Namespace("argprobe", version="1.0")
                             Param("xs", "[length]", kind="list"), Param("mode", kind="text", choices=("a", "b")),
                             Param("sec", kind="record", record="section"),
                             Param("secs", kind="list", record="section")],
-               fields=[Field("v", doc="unused")])
+               fields=[Field("v", doc="unused")], returns="ARGS.f")
 def _argprobe(work, b, F, pts, n, xs, mode, sec, secs):
     return {"v": work.q(0.0, "")}
 
