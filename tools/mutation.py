@@ -23,7 +23,18 @@ golden would accept the bug, so a mutant must be killed by a test that names its
     python tools/mutation.py                          # every target (slow: hours on two cores)
     python tools/mutation.py column material          # some targets
     python tools/mutation.py section --limit 80       # an evenly spread sample of 80 mutants
+    python tools/mutation.py beam --sample 300        # a seeded random sample of 300 (--seed, default 19)
     python tools/mutation.py --list evaluator         # list the mutants without running them
+    python tools/mutation.py beam --survivors out/mutation.json --select all   # recheck survivors, every test
+
+Making a large target affordable (the beam: ~1,600 mutants, a minute of tests): with ``--select coverage``
+(the default for targets whose entry says ``"select": "coverage"``) the target's tests run once under a
+line tracer (tools/mutation_cover.py; the result is kept in out/ until a source or test file changes), and
+each mutant then runs only the tests that reach its statement, quickest first; a mutant on a line that runs
+at import (a table, a default argument) runs every test, and one on a line no test reaches survives without
+a run. The selection is exact for killing — a test that never runs the mutated statement cannot see it — so
+the score is the same as with every test. Each run is a fork of tools/mutation_server.py, which has imported
+numpy, pint, scipy and sympy once (``--no-fork`` starts a fresh pytest instead).
 
 Prints each result, the kill rate per target and overall, and the surviving mutants; writes them all to
 ``--report`` (JSON) as well.
@@ -59,9 +70,11 @@ TARGETS: dict[str, dict] = {
         "k": "not column_ and not material_ and not concrete and not custom",
     },
     "beam": {
-        "sources": [f"{P}/beam/{m}.py" for m in ("solver", "analysis", "handbook", "loads", "model", "combos",
-                                                  "results", "working")],
+        # diagrams.py (the SVG figures) is left out: its mutants move lines of a drawing, no value
+        "sources": [f"{P}/beam/{m}.py" for m in ("solver", "kinds", "analysis", "handbook", "loads", "model",
+                                                  "combos", "results", "query", "working")],
         "tests": ["tests/plugins/beam", "tests/test_golden_values.py"],
+        "select": "coverage",  # ~1,600 mutants × a minute of tests: each mutant runs only the tests that reach it
     },
     "column": {"sources": [f"{P}/column/buckling.py"],
                "tests": ["tests/plugins/column", "tests/plugins/test_traced_fields.py",
@@ -134,6 +147,7 @@ class Mutant:
     line: int
     what: str  # e.g. "<= → <"
     source_line: str
+    lines: tuple[int, int] = (0, 0)  # the statement (or compound statement's header) holding the mutant
     status: str = ""  # killed | survived | timeout | error
     seconds: float = 0.0
     killed_by: str = ""
@@ -365,8 +379,29 @@ def find_mutants(target: str, path: Path, rel: str, functions: list[str] | None 
     lines = text.splitlines()
     walker = _Points(lines, functions)
     walker.visit(ast.parse(text))
-    return [Mutant(target, rel, k, line, what, lines[line - 1].strip() if 0 < line <= len(lines) else "")
+    spans = statement_spans(text)
+    return [Mutant(target, rel, k, line, what, lines[line - 1].strip() if 0 < line <= len(lines) else "",
+                   spans.get(line, (line, line)))
             for k, (line, what) in enumerate(walker.found)]
+
+
+def statement_spans(text: str) -> dict[int, tuple[int, int]]:
+    """Line -> (first, last) line of the innermost statement holding it; for a compound statement (if, for,
+    def, with …) only its header counts (its body's statements are their own). A mutant on a line is
+    reached by a test exactly when the test runs some line of that span."""
+    spans: dict[int, tuple[int, int]] = {}
+    for node in ast.walk(ast.parse(text)):
+        if not isinstance(node, ast.stmt):
+            continue
+        first, last = node.lineno, node.end_lineno or node.lineno
+        body = getattr(node, "body", None)
+        if isinstance(body, list) and body and isinstance(body[0], ast.stmt):
+            last = max(first, body[0].lineno - 1)
+        for line in range(first, last + 1):
+            old = spans.get(line)
+            if old is None or old[1] - old[0] > last - first:
+                spans[line] = (first, last)
+    return spans
 
 
 def mutated_source(text: str, index: int, functions: list[str] | None = None) -> str:
@@ -421,21 +456,50 @@ def _env(copy_root: Path) -> dict:
     return env
 
 
-def run_tests(copy_root: Path, tests: list[str], timeout: float, k: str | None = None) -> tuple[str, float, str]:
+class Server:
+    """tools/mutation_server.py in the scratch copy's environment: each run is a fork of a process that has
+    already imported the heavy libraries (numpy, pint, scipy, sympy …), several seconds saved per mutant."""
+
+    def __init__(self, copy_root: Path):
+        self.proc = subprocess.Popen([sys.executable, str(ROOT / "tools" / "mutation_server.py")], cwd=copy_root,
+                                     env=_env(copy_root), stdin=subprocess.PIPE, stdout=subprocess.PIPE, text=True)
+        if not json.loads(self.proc.stdout.readline() or "{}").get("ready"):
+            raise SystemExit("the mutation test server did not start")
+
+    def run(self, args: list[str], timeout: float) -> dict:
+        self.proc.stdin.write(json.dumps({"args": args, "timeout": timeout}) + "\n")
+        self.proc.stdin.flush()
+        return json.loads(self.proc.stdout.readline())
+
+    def close(self) -> None:
+        with contextlib.suppress(Exception):
+            self.proc.stdin.close()
+            self.proc.wait(timeout=10)
+
+
+def run_tests(copy_root: Path, tests: list[str], timeout: float, k: str | None = None,
+              server: Server | None = None) -> tuple[str, float, str]:
     """('passed' | 'failed' | 'timeout', seconds, first failing test)."""
-    cmd = [sys.executable, "-m", "pytest", "-x", "-q", "--no-header", "-p", "no:cacheprovider",
-           "--hypothesis-seed=0", *(["-k", k] if k else []), *tests]
-    t0 = time.monotonic()
-    try:
-        proc = subprocess.run(cmd, cwd=copy_root, env=_env(copy_root), capture_output=True, text=True,
-                              timeout=timeout, start_new_session=True)
-    except subprocess.TimeoutExpired:
-        return "timeout", time.monotonic() - t0, ""
-    dt = time.monotonic() - t0
-    if proc.returncode == 0:
-        return "passed", dt, ""
-    failed = re.findall(r"^(?:FAILED|ERROR) (\S+)", proc.stdout, re.M)
-    return "failed", dt, failed[0] if failed else proc.stdout.strip().splitlines()[-1:][0] if proc.stdout else ""
+    args = ["-x", "-q", "--no-header", "-p", "no:cacheprovider", "--hypothesis-seed=0", *(["-k", k] if k else []),
+            *tests]
+    # no example saved by an earlier mutant's failure is replayed: every mutant meets the same examples
+    shutil.rmtree(copy_root / ".hypothesis", ignore_errors=True)
+    if server is not None:
+        answer = server.run(args, timeout)
+        status, dt, out = answer["status"], answer["seconds"], answer["output"]
+    else:
+        t0 = time.monotonic()
+        try:
+            proc = subprocess.run([sys.executable, "-m", "pytest", *args], cwd=copy_root, env=_env(copy_root),
+                                  capture_output=True, text=True, timeout=timeout, start_new_session=True)
+        except subprocess.TimeoutExpired:
+            return "timeout", time.monotonic() - t0, ""
+        dt, out = time.monotonic() - t0, proc.stdout
+        status = "passed" if proc.returncode == 0 else "failed"
+    if status != "failed":
+        return status, dt, ""
+    failed = re.findall(r"^(?:FAILED|ERROR) (\S+)", out, re.M)
+    return "failed", dt, failed[0] if failed else out.strip().splitlines()[-1:][0] if out.strip() else ""
 
 
 def _check_copy_is_used(copy_root: Path) -> None:
@@ -446,12 +510,84 @@ def _check_copy_is_used(copy_root: Path) -> None:
         raise SystemExit(f"the scratch copy is not the code under test: {out}")
 
 
+class Coverage:
+    """Which test reaches which line of a target's sources (one traced run of its tests, tools/mutation_cover.py)."""
+
+    def __init__(self, data: dict):
+        self.order: list[str] = data["order"]
+        self.seconds: dict[str, float] = data["seconds"]
+        self.imported = {tuple(x) for x in data["import"]}
+        self.by_line: dict[tuple[str, int], set[str]] = {}
+        for test, lines in data["tests"].items():
+            for path, line in lines:
+                self.by_line.setdefault((path, line), set()).add(test)
+        for module, lines in data["setup"].items():  # what a fixture made once, every test of its file uses
+            tests = {t for t in self.order if t.split("::", 1)[0] == module}
+            for path, line in lines:
+                self.by_line.setdefault((path, line), set()).update(tests)
+
+    @classmethod
+    def measure(cls, copy_root: Path, target: str, tests: list[str], k: str | None) -> "Coverage":
+        """Trace the target's tests once; kept in out/ and reused while no source or test file changes."""
+        import hashlib
+
+        digest = hashlib.sha256()
+        for folder in ("calcsheet", "plugins", "tests"):
+            for f in sorted((copy_root / folder).rglob("*.py")):
+                digest.update(str(f.relative_to(copy_root)).encode() + b"\0" + f.read_bytes())
+        digest.update(json.dumps([tests, k]).encode())
+        cache = ROOT / "out" / f"mutation-cover-{target}.json"
+        if cache.exists():
+            data = json.loads(cache.read_text())
+            if data.get("key") == digest.hexdigest():
+                return cls(data)
+        out = copy_root / f".cover-{target}.json"
+        env = _env(copy_root)
+        env["PYTHONPATH"] += os.pathsep + str(ROOT / "tools")
+        env["CALCSHEET_COVER_FILES"] = json.dumps([str(copy_root / s) for s in TARGETS[target]["sources"]])
+        env["CALCSHEET_COVER_ROOT"] = str(copy_root)
+        env["CALCSHEET_COVER_OUT"] = str(out)
+        cmd = [sys.executable, "-m", "pytest", "-q", "--no-header", "-p", "no:cacheprovider", "-p", "mutation_cover",
+               "--hypothesis-seed=0", *(["-k", k] if k else []), *tests]
+        shutil.rmtree(copy_root / ".hypothesis", ignore_errors=True)
+        proc = subprocess.run(cmd, cwd=copy_root, env=env, capture_output=True, text=True)
+        if proc.returncode != 0 or not out.exists():
+            raise SystemExit(f"{target}: the traced run of its tests failed:\n{proc.stdout[-3000:]}{proc.stderr[-3000:]}")
+        data = json.loads(out.read_text())
+        data["key"] = digest.hexdigest()
+        cache.parent.mkdir(parents=True, exist_ok=True)
+        cache.write_text(json.dumps(data))
+        return cls(data)
+
+    def tests_for(self, m: Mutant) -> list[str] | None:
+        """The tests that reach mutant ``m``, quickest first (a mutant most tests kill dies in the first
+        seconds); None: every test (the line runs at import)."""
+        span = range(m.lines[0] or m.line, (m.lines[1] or m.line) + 1)
+        if any((m.path, line) in self.imported for line in span):
+            return None
+        reach = set().union(*(self.by_line.get((m.path, line), set()) for line in span))
+        return sorted((t for t in self.order if t in reach), key=lambda t: self.seconds.get(t, 0.0))
+
+    def time_of(self, tests: list[str] | None) -> float:
+        return sum(self.seconds.get(t, 0.0) for t in (self.order if tests is None else tests))
+
+
 def spread(items: list, limit: int | None) -> list:
     """An evenly spread, deterministic sample of ``limit`` items (all when None)."""
     if limit is None or limit >= len(items):
         return list(items)
     step = len(items) / limit
     return [items[int(k * step)] for k in range(limit)]
+
+
+def sample(items: list, size: int | None, seed: int) -> list:
+    """A seeded random sample of ``size`` items, kept in their original order (all when None)."""
+    if size is None or size >= len(items):
+        return list(items)
+    import random
+
+    keep = set(random.Random(seed).sample(range(len(items)), size))
+    return [x for k, x in enumerate(items) if k in keep]
 
 
 def tests_for(target: str, copy_root: Path) -> list[str]:
@@ -468,8 +604,16 @@ def main(argv=None) -> int:
     ap.add_argument("--list", action="store_true", help="list the mutants, run nothing")
     ap.add_argument("--report", type=Path, default=ROOT / "out" / "mutation.json")
     ap.add_argument("--keep", action="store_true", help="keep the scratch copy")
+    ap.add_argument("--sample", type=int, default=None,
+                    help="a seeded random sample of this many mutants per target (see --seed)")
+    ap.add_argument("--seed", type=int, default=19, help="seed of --sample (default 19)")
     ap.add_argument("--survivors", type=Path, default=None,
                     help="run only the mutants a previous --report lists as survived (after adding tests)")
+    ap.add_argument("--select", choices=("coverage", "all"), default=None,
+                    help="coverage: each mutant runs only the tests that reach its line (default for targets "
+                         "that say so, e.g. beam); all: every test of the target")
+    ap.add_argument("--no-fork", action="store_true",
+                    help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
     targets = args.targets or list(TARGETS)
     unknown = [t for t in targets if t not in TARGETS]
@@ -478,11 +622,12 @@ def main(argv=None) -> int:
 
     plan: dict[str, list[Mutant]] = {}
     for t in targets:
-        plan[t] = spread(find_all(t), args.limit)
+        plan[t] = sample(spread(find_all(t), args.limit), args.sample, args.seed)
     if args.survivors:
         earlier = json.loads(args.survivors.read_text())["mutants"]
-        keep = {(m["path"], m["index"], m["what"]) for m in earlier if m["status"] == "survived"}
-        plan = {t: [m for m in find_all(t) if (m.path, m.index, m.what) in keep]
+        # matched by file, line text and mutation, so lines moved by an edit since are still found
+        keep = {(m["path"], m["source_line"], m["what"]) for m in earlier if m["status"] == "survived"}
+        plan = {t: [m for m in find_all(t) if (m.path, m.source_line, m.what) in keep]
                 for t in plan}
     if args.list:
         for t, ms in plan.items():
@@ -496,28 +641,53 @@ def main(argv=None) -> int:
     work = Path(tempfile.mkdtemp(prefix="calcsheet-mutation-"))
     copy_root = scratch_copy(work / "project")
     results: list[Mutant] = []
+    server = None
     try:
         _check_copy_is_used(copy_root)
+        server = None if args.no_fork else Server(copy_root)
         for t, ms in plan.items():
             tests = tests_for(t, copy_root)
             k = TARGETS[t].get("k")
-            status, base, first = run_tests(copy_root, tests, timeout=3600, k=k)
-            if status != "passed":
-                print(f"{t}: the unmutated tests do not pass ({first}); skipped", flush=True)
-                continue
+            cover = None
+            if (args.select or TARGETS[t].get("select")) == "coverage":
+                # the traced run is also the check that the unmutated tests pass (it refuses otherwise)
+                t0 = time.monotonic()
+                cover = Coverage.measure(copy_root, t, tests, k)
+                base = cover.time_of(None)
+                print(f"{t}: traced which of {len(cover.order)} tests reach which line "
+                      f"({time.monotonic() - t0:.0f} s)", flush=True)
+            else:
+                status, base, first = run_tests(copy_root, tests, timeout=3600, k=k, server=server)
+                if status != "passed":
+                    print(f"{t}: the unmutated tests do not pass ({first}); skipped", flush=True)
+                    continue
             timeout = args.timeout or max(60.0, 3 * base)
             print(f"== {t}: {len(ms)} mutants, tests {' '.join(tests)} ({base:.0f} s unmutated, "
-                  f"limit {timeout:.0f} s each)", flush=True)
+                  f"limit {timeout:.0f} s each{', tests chosen by coverage' if cover else ''})", flush=True)
             for m in ms:
                 path = copy_root / m.path
+                chosen, limit = tests, timeout
+                if cover is not None:
+                    reach = cover.tests_for(m)
+                    if reach == []:  # no test runs this line: nothing to run, the mutant survives
+                        m.status, m.killed_by = "survived", "(no test reaches this line)"
+                        results.append(m)
+                        print(f"{'UNCOVERED':9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
+                        continue
+                    if reach is not None:
+                        chosen, limit = reach, args.timeout or max(60.0, 30 + 3 * cover.time_of(reach))
                 with applied(path, m.index, functions_for(t, m.path)):
-                    outcome, dt, first = run_tests(copy_root, tests, timeout, k)
+                    outcome, dt, first = run_tests(copy_root, chosen, limit, k if chosen is tests else None,
+                                                   server=server)
                 m.seconds = round(dt, 1)
                 m.status = {"failed": "killed", "passed": "survived", "timeout": "timeout"}[outcome]
                 m.killed_by = first
                 results.append(m)
-                print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
+                print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}"
+                      f"{f'   [{len(chosen)} tests]' if chosen is not tests else ''}", flush=True)
     finally:
+        if server is not None:
+            server.close()
         if not args.keep:
             shutil.rmtree(work, ignore_errors=True)
         summary = report(results)
