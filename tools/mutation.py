@@ -472,8 +472,9 @@ class Server:
         return json.loads(self.proc.stdout.readline())
 
     def close(self) -> None:
+        """Stop the server and a run it may be in (a stopped mutation run leaves no process behind)."""
         with contextlib.suppress(Exception):
-            self.proc.stdin.close()
+            self.proc.terminate()
             self.proc.wait(timeout=10)
 
 
@@ -581,13 +582,13 @@ def spread(items: list, limit: int | None) -> list:
 
 
 def sample(items: list, size: int | None, seed: int) -> list:
-    """A seeded random sample of ``size`` items, kept in their original order (all when None)."""
-    if size is None or size >= len(items):
+    """A seeded random sample of ``size`` items (all when None), in the sample's random order: a run stopped
+    early (a time limit) has still run a random sample, not the first files' mutants."""
+    if size is None:
         return list(items)
     import random
 
-    keep = set(random.Random(seed).sample(range(len(items)), size))
-    return [x for k, x in enumerate(items) if k in keep]
+    return random.Random(seed).sample(items, min(size, len(items)))
 
 
 def tests_for(target: str, copy_root: Path) -> list[str]:

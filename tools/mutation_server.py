@@ -48,6 +48,18 @@ def _child(args: list[str], out_path: str) -> None:
         os._exit(code)
 
 
+_running: list[int] = []  # the child now running, killed with its group if this server is stopped
+
+
+def _stop(*_):
+    for pid in _running:
+        try:
+            os.killpg(pid, signal.SIGKILL)
+        except ProcessLookupError:
+            pass
+    os._exit(143)
+
+
 def run(args: list[str], timeout: float) -> dict:
     fd, out_path = tempfile.mkstemp(prefix="mutation-run-", suffix=".txt")
     os.close(fd)
@@ -55,6 +67,7 @@ def run(args: list[str], timeout: float) -> dict:
     pid = os.fork()
     if pid == 0:  # pragma: no cover - the child
         _child(args, out_path)
+    _running[:] = [pid]
     status = None
     while time.monotonic() - t0 < timeout:
         done, code = os.waitpid(pid, os.WNOHANG)
@@ -69,6 +82,7 @@ def run(args: list[str], timeout: float) -> dict:
             pass
         os.waitpid(pid, 0)
         status = "timeout"
+    _running.clear()
     seconds = time.monotonic() - t0
     with open(out_path, encoding="utf-8", errors="replace") as fh:
         output = fh.read()
@@ -77,6 +91,8 @@ def run(args: list[str], timeout: float) -> dict:
 
 
 def main() -> None:
+    signal.signal(signal.SIGTERM, _stop)
+    signal.signal(signal.SIGPIPE, signal.SIG_DFL)
     _preload()
     print(json.dumps({"ready": True}), flush=True)
     for line in sys.stdin:

@@ -161,12 +161,13 @@ def test_a_mutant_runs_only_the_tests_that_reach_its_statement_quickest_first():
     assert c.time_of(["t_a.py::quick", "t_b.py::other"]) == pytest.approx(1.1)
 
 
-def test_the_seeded_sample_is_repeatable_and_keeps_the_order():
+def test_the_seeded_sample_is_repeatable_and_in_random_order():
     items = list(range(100))
     a, b = M.sample(items, 10, seed=19), M.sample(items, 10, seed=19)
-    assert a == b == sorted(a) and len(set(a)) == 10
+    assert a == b and len(set(a)) == 10 and a != sorted(a)  # stopped early, it is still a random sample
     assert M.sample(items, 10, seed=20) != a
     assert M.sample(items, None, seed=19) == items
+    assert sorted(M.sample(items, 500, seed=19)) == items
 
 
 def test_the_tracer_tells_import_lines_test_lines_and_fixture_lines_apart(tmp_path):
