@@ -47,13 +47,16 @@ import contextlib
 import copy
 import json
 import os
+import queue
 import re
 import shutil
 import signal
 import subprocess
 import sys
 import tempfile
+import threading
 import time
+from concurrent.futures import ThreadPoolExecutor
 from dataclasses import asdict, dataclass
 from pathlib import Path
 
@@ -120,6 +123,12 @@ EQUIVALENT = {
     ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
+    # beam
+    ("if lo * hi < 0 or abs(lo) < 1e-9 * scale <= abs(hi) or abs(hi) < 1e-9 * scale <= abs(lo):", "<= → <"):
+        "differs only when a moment equals the round-off threshold 1e-9 × the largest moment exactly (a float tie)",
+    ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "2 → 3"):
+        "starts the search for the spans a load touches one span further left; _on_span gives nothing on a span "
+        "the load does not reach, so only time changes",
 }
 
 QUIET = {"raise"}
@@ -528,7 +537,8 @@ class Coverage:
                 self.by_line.setdefault((path, line), set()).update(tests)
 
     @classmethod
-    def measure(cls, copy_root: Path, target: str, tests: list[str], k: str | None) -> "Coverage":
+    def measure(cls, copy_root: Path, target: str, tests: list[str], k: str | None,
+                stale_ok: bool = False) -> "Coverage":
         """Trace the target's tests once; kept in out/ and reused while no source or test file changes."""
         import hashlib
 
@@ -540,7 +550,8 @@ class Coverage:
         cache = ROOT / "out" / f"mutation-cover-{target}.json"
         if cache.exists():
             data = json.loads(cache.read_text())
-            if data.get("key") == digest.hexdigest():
+            if data.get("key") == digest.hexdigest() or stale_ok:
+                # stale: tests added since are not chosen for a mutant (never a false kill; rerun the survivors)
                 return cls(data)
         out = copy_root / f".cover-{target}.json"
         env = _env(copy_root)
@@ -613,6 +624,13 @@ def main(argv=None) -> int:
     ap.add_argument("--select", choices=("coverage", "all"), default=None,
                     help="coverage: each mutant runs only the tests that reach its line (default for targets "
                          "that say so, e.g. beam); all: every test of the target")
+    ap.add_argument("--jobs", "-j", type=int, default=1,
+                    help="mutants run at a time, each in its own scratch copy (default 1)")
+    ap.add_argument("--resume", type=Path, default=None,
+                    help="a report of a stopped run of the same plan: its mutants are not run again")
+    ap.add_argument("--stale-cover", action="store_true",
+                    help="reuse the kept coverage map even if tests changed since (new tests are then not chosen; "
+                         "rerun the survivors with a fresh map)")
     ap.add_argument("--no-fork", action="store_true",
                     help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
@@ -637,15 +655,34 @@ def main(argv=None) -> int:
             print(f"{t}: {len(ms)} mutants")
         return 0
 
+    earlier: list[Mutant] = []
+    if args.resume and args.resume.exists():  # carry over what a stopped run of the same plan has done
+        done = {}
+        for d in json.loads(args.resume.read_text())["mutants"]:
+            d["lines"] = tuple(d.get("lines") or (0, 0))
+            done[(d["path"], d["line"], d["source_line"], d["what"])] = Mutant(**d)
+        for t in plan:
+            earlier += [done[key] for m in plan[t] if (key := (m.path, m.line, m.source_line, m.what)) in done]
+            plan[t] = [m for m in plan[t] if (m.path, m.line, m.source_line, m.what) not in done]
+        print(f"resuming: {len(earlier)} mutants done already, {sum(map(len, plan.values()))} to run", flush=True)
+
     # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
     work = Path(tempfile.mkdtemp(prefix="calcsheet-mutation-"))
-    copy_root = scratch_copy(work / "project")
-    results: list[Mutant] = []
-    server = None
+    results: list[Mutant] = list(earlier)
+    slots: queue.Queue = queue.Queue()  # (scratch copy, its server): one per job, each mutant takes one
+    servers: list[Server] = []
+    stop = threading.Event()
+    pool = None
     try:
-        _check_copy_is_used(copy_root)
-        server = None if args.no_fork else Server(copy_root)
+        for j in range(max(1, args.jobs)):
+            root = scratch_copy(work / f"project{j}")
+            _check_copy_is_used(root)
+            server = None if args.no_fork else Server(root)
+            servers += [server] if server else []
+            slots.put((root, server))
+        copy_root, server = slots.queue[0]
+        pool = ThreadPoolExecutor(max_workers=max(1, args.jobs))
         for t, ms in plan.items():
             tests = tests_for(t, copy_root)
             k = TARGETS[t].get("k")
@@ -653,7 +690,7 @@ def main(argv=None) -> int:
             if (args.select or TARGETS[t].get("select")) == "coverage":
                 # the traced run is also the check that the unmutated tests pass (it refuses otherwise)
                 t0 = time.monotonic()
-                cover = Coverage.measure(copy_root, t, tests, k)
+                cover = Coverage.measure(copy_root, t, tests, k, stale_ok=args.stale_cover)
                 base = cover.time_of(None)
                 print(f"{t}: traced which of {len(cover.order)} tests reach which line "
                       f"({time.monotonic() - t0:.0f} s)", flush=True)
@@ -664,9 +701,12 @@ def main(argv=None) -> int:
                     continue
             timeout = args.timeout or max(60.0, 3 * base)
             print(f"== {t}: {len(ms)} mutants, tests {' '.join(tests)} ({base:.0f} s unmutated, "
-                  f"limit {timeout:.0f} s each{', tests chosen by coverage' if cover else ''})", flush=True)
-            for m in ms:
-                path = copy_root / m.path
+                  f"limit {timeout:.0f} s each{', tests chosen by coverage' if cover else ''}, "
+                  f"{max(1, args.jobs)} at a time)", flush=True)
+
+            def one(m: Mutant, t=t, tests=tests, k=k, cover=cover, timeout=timeout) -> None:
+                if stop.is_set():
+                    return
                 chosen, limit = tests, timeout
                 if cover is not None:
                     reach = cover.tests_for(m)
@@ -674,21 +714,33 @@ def main(argv=None) -> int:
                         m.status, m.killed_by = "survived", "(no test reaches this line)"
                         results.append(m)
                         print(f"{'UNCOVERED':9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
-                        continue
+                        return
                     if reach is not None:
                         chosen, limit = reach, args.timeout or max(60.0, 30 + 3 * cover.time_of(reach))
-                with applied(path, m.index, functions_for(t, m.path)):
-                    outcome, dt, first = run_tests(copy_root, chosen, limit, k if chosen is tests else None,
-                                                   server=server)
+                root, srv = slots.get()
+                try:
+                    with applied(root / m.path, m.index, functions_for(t, m.path)):
+                        outcome, dt, first = run_tests(root, chosen, limit, k if chosen is tests else None,
+                                                       server=srv)
+                finally:
+                    slots.put((root, srv))
+                if stop.is_set():  # stopped mid-run: the outcome is not the mutant's
+                    return
                 m.seconds = round(dt, 1)
                 m.status = {"failed": "killed", "passed": "survived", "timeout": "timeout"}[outcome]
                 m.killed_by = first
                 results.append(m)
                 print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}"
-                      f"{f'   [{len(chosen)} tests]' if chosen is not tests else ''}", flush=True)
+                      f"{f'   [{len(chosen)} tests, {dt:.0f} s]' if chosen is not tests else ''}", flush=True)
+
+            for f in [pool.submit(one, m) for m in ms]:
+                f.result()
     finally:
-        if server is not None:
-            server.close()
+        stop.set()
+        for srv in servers:
+            srv.close()
+        if pool is not None:
+            pool.shutdown(wait=True, cancel_futures=True)
         if not args.keep:
             shutil.rmtree(work, ignore_errors=True)
         summary = report(results)

@@ -74,3 +74,13 @@ def test_two_supports_holding_it_along_its_axis_make_it_indeterminate_and_are_re
 def test_without_axial_loads_two_pinned_supports_are_fine_and_the_axial_force_is_zero():
     b = fields(solve("pinned, pinned", "beam.point(P=1 kN, x=1 m)"))
     assert b["N_max"].m_as("kN") == 0.0
+
+
+@pytest.mark.parametrize("supports, held", [("pinned, roller", "A"), ("roller, pinned", "B"), ("fixed, free", "A"),
+                                            ("free, fixed", "B")])
+def test_the_working_names_the_support_that_holds_the_member(supports, held):
+    r = calcsheet.run(f'b = beam.solve(spans=[6 m], supports="{supports}", loads=[beam.point(P=1 kN, x=3 m), '
+                      'beam.axial(F=-5 kN, x=3 m)])\n')
+    assert r.ok, r.diagnostics
+    (step,) = [s for s in r.values["b"].working.items if getattr(s, "name", None) == "N_max"]
+    assert f"support {held} holds the member" in step.note
