@@ -29,3 +29,40 @@ def test_the_tensile_formula_warning_starts_just_above_c50(f_c, warns):
     r = concrete(f_c)
     assert r.ok, r.diagnostics
     assert any("C50/60" in d.message for d in r.diagnostics if d.severity == "warning") is warns
+
+
+# EN 10025-2 Table 7 (as tabulated in readle.co.uk's "Steel Grades to Eurocodes"): S355, minimum yield strength
+# for nominal thickness ≤ 16, > 16 ≤ 40, …, > 100 ≤ 150 mm: 355, 345, 335, 325, 315, 295 MPa; tensile strength
+# for < 3, ≥ 3 ≤ 100, > 100 ≤ 150 mm: 510, 470, 450 MPa (the lower bound of each range)
+S355 = [  # t (mm), f_y, f_u, the band its yield strength is read in
+    ("0.5 mm", 355, 510, "0 < t ≤ 16"),
+    ("2.9 mm", 355, 510, "0 < t ≤ 16"),
+    ("3 mm", 355, 470, "0 < t ≤ 16"),
+    ("16 mm", 355, 470, "0 < t ≤ 16"),
+    ("16.5 mm", 345, 470, "16 < t ≤ 40"),
+    ("40 mm", 345, 470, "16 < t ≤ 40"),
+    ("100 mm", 315, 470, "80 < t ≤ 100"),
+    ("100.5 mm", 295, 450, "100 < t ≤ 150"),
+    ("150 mm", 295, 450, "100 < t ≤ 150"),
+]
+
+
+def steel(t):
+    return calcsheet.run(f'm = material.steel(grade="S355", t={t})\n')
+
+
+@pytest.mark.parametrize("t, f_y, f_u, band", S355)
+def test_steel_strengths_follow_the_thickness_bands_of_en_10025_2_to_their_edges(t, f_y, f_u, band):
+    r = steel(t)
+    assert r.ok, r.diagnostics
+    m = r.values["m"]
+    assert (m.fields["f_y"].m_as("MPa"), m.fields["f_u"].m_as("MPa")) == (f_y, f_u)
+    (step,) = [s for s in m.working.items if getattr(s, "name", None) == "f_y"]
+    assert f"for {band} mm" in step.description
+
+
+@pytest.mark.parametrize("t, words", [("0 mm", "t must be greater than zero"), ("-2 mm", "greater than zero"),
+                                      ("150.5 mm", "thicker than the last band"), ("200 mm", "(150 mm)")])
+def test_a_thickness_outside_the_bands_is_refused(t, words):
+    (err,) = steel(t).errors
+    assert words in err.message
