@@ -129,6 +129,9 @@ EQUIVALENT = {
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "2 → 3"):
         "starts the search for the spans a load touches one span further left; _on_span gives nothing on a span "
         "the load does not reach, so only time changes",
+    ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
+        "caps the first span searched one lower (with one span: index −1, the same last element, whose _on_span "
+        "gives nothing since a point's home span is never −1 and a line load's extent there is empty)",
 }
 
 QUIET = {"raise"}

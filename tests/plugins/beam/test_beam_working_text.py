@@ -1,0 +1,57 @@
+"""What the beam's working says in words and formulas: the loads table names each load's shape, the largest
+moment's formula takes exactly the forces to the left of its section, and an extreme that does not exist is
+said so. A checker reads these; they must say what the numbers are."""
+import pytest
+
+import calcsheet
+from calcsheet.render.sheet import SheetPrinter
+from calcsheet.trace import Step, Table
+from calcsheet_plugins.beam.analysis import extreme_label
+
+
+def solve(loads, supports="pinned, roller"):
+    r = calcsheet.run(f'b = beam.solve(spans=[6 m], supports="{supports}", E=200 GPa, I=1e8 mm^4, '
+                      f'loads=[{loads}])\n')
+    assert r.ok, r.diagnostics
+    return r.values["b"].working.items
+
+
+def test_the_loads_table_names_each_loads_shape():
+    items = solve('beam.udl(w=2 kN/m), beam.varying(w_1=0 kN/m, w_2=3 kN/m), '
+                  'beam.varying(w_1=4 kN/m, w_2=0 kN/m, start=1 m, end=2 m), '
+                  'beam.varying(w_1=1 kN/m, w_2=3 kN/m, start=2 m), beam.varying(w_1=2 kN/m, w_2=2 kN/m, end=3 m), '
+                  'beam.point(P=5 kN, x=2 m), beam.moment(M=3 kN*m, x=4 m), beam.axial(F=-1 kN, x=6 m)')
+    (table,) = [t for t in items if isinstance(t, Table) and t.title.startswith("Loads")]
+    kinds = [row[2] for row in table.rows]
+    assert kinds == ["uniform", "triangular", "triangular", "trapezoidal", "uniform", "point",
+                     "couple (clockwise +)", "axial (→ +)"]
+    values = [row[3] for row in table.rows]
+    assert values[0] == "w = 2 kN/m" and values[1] == "w = 0 → 3 kN/m" and values[3] == "w = 1 → 3 kN/m"
+
+
+def _formula(items, name):
+    (step,) = [s for s in items if isinstance(s, Step) and s.name == name]
+    return SheetPrinter().expr(step.expr)
+
+
+def test_the_largest_moment_takes_only_the_forces_to_the_left_of_its_section():
+    # P = 100 kN at mid-span governs: the shear changes sign under it, so x₀ = 3 m; the uniform load starting
+    # exactly there lies wholly to the right and takes no part in M₀ = R_A·x₀ (statics, common practice)
+    items = solve("beam.point(P=100 kN, x=3 m), beam.udl(w=1 kN/m, start=3 m)")
+    f = _formula(items, "M_0")
+    assert "kN/m" not in f, f
+    # a load that starts just before x₀ does take part, with its part left of x₀
+    items = solve("beam.point(P=100 kN, x=3 m), beam.udl(w=1 kN/m, start=2.5 m)")
+    assert "kN/m" in _formula(items, "M_0")
+
+
+@pytest.mark.parametrize("kind, value, words", [
+    ("sagging", 5.0, "largest sagging moment"), ("sagging", 0.5, "largest sagging moment"),
+    ("sagging", 1e-12, "largest sagging moment"), ("sagging", 0.0, "no sagging moment anywhere"),
+    ("sagging", -2.0, "no sagging moment anywhere (the value is the least hogging moment)"),
+    ("hogging", -5.0, "largest hogging moment"), ("hogging", -1e-12, "largest hogging moment"),
+    ("hogging", 0.0, "no hogging moment anywhere"), ("hogging", 0.5, "no hogging moment anywhere"),
+    ("hogging", 3.0, "no hogging moment anywhere (the value is the least sagging moment)"),
+])
+def test_an_extreme_that_does_not_exist_is_said_so(kind, value, words):
+    assert extreme_label(kind, value).startswith(words)
