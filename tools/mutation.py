@@ -129,6 +129,17 @@ EQUIVALENT = {
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "2 → 3"):
         "starts the search for the spans a load touches one span further left; _on_span gives nothing on a span "
         "the load does not reach, so only time changes",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", "<= → <"):
+        "the pieces are cut at every load's ends, so a line load's start a equals a piece start ls exactly; "
+        "the two differ only when a = ls + tol to the last bit",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", ">= → >"):
+        "likewise at the piece end: b equals lt exactly, never lt − tol to the last bit",
+    ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", "<= → <"):
+        "a full-length load starts at x1 = 0 (< tol as well); they differ only for x1 = tol = 1e-9 L exactly",
+    ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", ">= → >"):
+        "a full-length load ends at x2 = L (> L − tol as well); they differ only for x2 = L − tol exactly",
+    ("others = sorted(x for x in a.others + [b.x] + b.others if abs(x - a.x) > tol)", "> → >="):
+        "two places of a tie exactly 1e-9 L apart, to the last bit: a tolerance's own boundary",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
         "caps the first span searched one lower (with one span: index −1, the same last element, whose _on_span "
         "gives nothing since a point's home span is never −1 and a line load's extent there is empty)",

@@ -127,3 +127,38 @@ def test_a_determinate_beam_needs_no_stiffness():
             "C = b.R_C\n")
     assert r.ok, r.diagnostics
     assert r.values["C"].m_as("kN") == pytest.approx(5.0)  # the suspended span B–C carries P at its middle
+
+
+@pytest.mark.parametrize("at, ok", [('"1"', True), ('"3"', True), ('"A"', True), ('"C"', True), ('"0"', False),
+                                    ('"4"', False), ('"D"', False), ('"b"', False)])
+def test_a_settlement_names_any_support_from_the_first_to_the_last(at, ok):
+    r = run('b = beam.solve(spans=[4 m, 5 m], supports="pinned, roller, roller", E=200 GPa, I=1e8 mm^4, '
+            f'settlement=[beam.settlement(at={at}, delta=1 mm)], loads=[beam.point(P=1 kN, x=2 m)])\n')
+    assert r.ok is ok, r.diagnostics
+    if not ok:
+        assert "the supports are A, B, C" in r.errors[0].message
+
+
+@pytest.mark.parametrize("call, start, end, extent", [
+    ("beam.udl(w=5 kN/m)", 0, 0, "full"),
+    ("beam.udl(w=5 kN/m, start=1 m)", 1, 0, "from"),
+    ("beam.udl(w=5 kN/m, end=2 m)", 0, 2, "to"),
+    ("beam.varying(w_1=1 kN/m, w_2=2 kN/m, start=1 m, end=2 m)", 1, 2, "partial"),
+])
+def test_a_line_load_record_says_its_extent_and_reads_an_absent_end_as_zero(call, start, end, extent):
+    r = run(f"p = {call}\n")
+    assert r.ok, r.diagnostics
+    f = r.values["p"].fields
+    assert (f["start"].m_as("m"), f["end"].m_as("m"), f["extent"]) == (start, end, extent)
+
+
+def test_a_beam_that_does_not_deflect_says_so_and_allows_span_over_360():
+    # only a force along the axis: nothing bends, δ = 0 everywhere (statics); the default limit is L/360
+    r = run('b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, I=1e8 mm^4, '
+            'loads=[beam.axial(F=-5 kN, x=6 m)])\n')
+    assert r.ok, r.diagnostics
+    b = r.values["b"]
+    assert b.fields["delta_gov"].m_as("mm") == 0.0
+    assert b.fields["delta_allow"].m_as("mm") == pytest.approx(6000 / 360)
+    assert b.fields["L_gov"].m_as("m") == 6.0
+    assert any("does not deflect" in getattr(i, "text", "") for i in b.working.items)
