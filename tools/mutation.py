@@ -135,7 +135,8 @@ EQUIVALENT = {
     ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", ">= → >"):
         "likewise at the piece end: b equals lt exactly, never lt − tol to the last bit",
     ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", "<= → <"):
-        "a full-length load starts at x1 = 0 (< tol as well); they differ only for x1 = tol = 1e-9 L exactly",
+        "a full-length load starts at x1 = 0 (< tol as well); they differ only for x1 = tol = 1e-9 L exactly "
+        "(the line's other <=, |w1 − w2| ≤ 1e-12·|w1|, holds strictly too: a uniform load's difference is 0)",
     ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", ">= → >"):
         "a full-length load ends at x2 = L (> L − tol as well); they differ only for x2 = L − tol exactly",
     ("others = sorted(x for x in a.others + [b.x] + b.others if abs(x - a.x) > tol)", "> → >="):
