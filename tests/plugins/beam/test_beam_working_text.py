@@ -55,3 +55,32 @@ def test_the_largest_moment_takes_only_the_forces_to_the_left_of_its_section():
 ])
 def test_an_extreme_that_does_not_exist_is_said_so(kind, value, words):
     assert extreme_label(kind, value).startswith(words)
+
+
+@pytest.mark.parametrize("supports, about", [("pinned, roller, roller, roller", "A"),
+                                             ("free, pinned, roller, roller", "B"),
+                                             ("guided, fixed, roller, roller", "B"),
+                                             ("spring, roller, pinned, roller", "B")])
+def test_equilibrium_is_taken_about_the_first_support_that_holds_the_beam_up(supports, about):
+    # (an indeterminate beam: its solved reactions are checked against the loads by statics)
+    springs = ', springs=[beam.spring(at="A", k=5 kN/mm)]' if supports.startswith("spring") else ""
+    r = calcsheet.run(f'b = beam.solve(spans=[2 m, 5 m, 4 m], supports="{supports}", E=200 GPa, I=1e8 mm^4, '
+                      f'loads=[beam.udl(w=2 kN/m), beam.point(P=5 kN, x=1 m)]{springs})\n')
+    assert r.ok, r.diagnostics
+    notes = [i.text for i in r.values["b"].working.items if getattr(i, "text", "").startswith("Equilibrium")]
+    assert notes and notes[0].endswith(f"in force and in moment about {about}.")
+
+
+@pytest.mark.parametrize("units, stress, moment, force", [("SI", "MPa", "kN*m", "kN"), ("US", "ksi", "kip*ft", "kip")])
+def test_stresses_are_given_in_the_sheets_unit_system(units, stress, moment, force):
+    r = calcsheet.run(f"---\nunits: {units}\n---\nsec = section.rectangle(b=100 mm, h=300 mm)\n"
+                      'b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, section=sec, '
+                      "loads=[beam.udl(w=2 kN/m)])\nst = beam.stresses(member=b, section=sec)\n")
+    assert r.ok, r.diagnostics
+    f = r.values["st"].fields
+    assert str(f["sigma_max"].units) == str(calcsheet.units.registry().Unit(stress))
+    assert str(f["M"].units) == str(calcsheet.units.registry().Unit(moment))
+    assert str(f["V"].units) == str(calcsheet.units.registry().Unit(force))
+    # σ = M c / I = (wL²/8)(h/2)/(bh³/12) whatever the units it is shown in (common practice)
+    M = 2e3 * 36 / 8
+    assert f["sigma_max"].m_as("Pa") == pytest.approx(M * 0.15 / (0.1 * 0.3**3 / 12), rel=1e-9)
