@@ -143,6 +143,8 @@ EQUIVALENT = {
         "two places of a tie exactly 1e-9 L apart, to the last bit: a tolerance's own boundary",
     ("return 0.0 if abs(v) < 1e-9 * max(scale, 1e-300) else v", "< → <="):
         "a value exactly equal to the round-off threshold 1e-9 × the largest value (a float tie) is kept or zeroed",
+    ("while pos < len(text):", "< → <="):
+        "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
         "caps the first span searched one lower (with one span: index −1, the same last element, whose _on_span "
         "gives nothing since a point's home span is never −1 and a line load's extent there is empty)",
