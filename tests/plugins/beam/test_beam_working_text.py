@@ -84,3 +84,15 @@ def test_stresses_are_given_in_the_sheets_unit_system(units, stress, moment, for
     # σ = M c / I = (wL²/8)(h/2)/(bh³/12) whatever the units it is shown in (common practice)
     M = 2e3 * 36 / 8
     assert f["sigma_max"].m_as("Pa") == pytest.approx(M * 0.15 / (0.1 * 0.3**3 / 12), rel=1e-9)
+
+
+@pytest.mark.parametrize("loads, how", [
+    ("beam.point(P=10 kN, x=3 m)", "the shear changes sign across the load there"),
+    ("beam.point(P=10 kN, x=2 m), beam.moment(M=1 kN*m, x=4 m)", "the shear changes sign across the load there"),
+    ("beam.udl(w=4 kN/m)", "the shear V(x) = 0 there"),
+    ("beam.udl(w=4 kN/m, start=3 m), beam.udl(w=4 kN/m, end=3 m)", "the shear V(x) = 0 there"),
+])
+def test_the_working_says_how_the_place_of_the_largest_moment_was_found(loads, how):
+    items = solve(loads)
+    (step,) = [s for s in items if isinstance(s, Step) and s.name == "x_0"]
+    assert step.note.startswith(how)
