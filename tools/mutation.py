@@ -143,6 +143,14 @@ EQUIVALENT = {
         "two places of a tie exactly 1e-9 L apart, to the last bit: a tolerance's own boundary",
     ("return 0.0 if abs(v) < 1e-9 * max(scale, 1e-300) else v", "< → <="):
         "a value exactly equal to the round-off threshold 1e-9 × the largest value (a float tie) is kept or zeroed",
+    ("and kinds[2] == \"free\" and abs(points[0].x - model.length) <= 1e-9 * model.length):", "* → /"):
+        "the tolerance of 'the load is at the tip' becomes 1e-9/L instead of 1e-9·L: both accept a load at the tip "
+        "to round-off and nothing a sheet can place (the case's own cross-check compares it with the solver)",
+    ("and kinds[2] == \"free\" and abs(points[0].x - model.length) <= 1e-9 * model.length):", "<= → <"):
+        "differs only for a load exactly 1e-9·L from the tip (a float tie)",
+    ("lo = np.searchsorted(grid, x0 + 1e-12 * m.length, side=\"right\")", "* → /"):
+        "the grid holds the nodes exactly, so any offset between 0 and a fraction of the shortest piece (1e-12·L "
+        "or 1e-12/L) cuts the span at the same grid points",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

@@ -133,3 +133,26 @@ def test_a_stiffness_that_is_not_greater_than_zero_is_named_by_its_span(EIs, n):
     e = refused(EI=EIs)
     assert e.param == "I" and str(e).startswith(f"EI of span {n} is ")
     assert str(e).endswith("N·m²; E and I must be greater than zero")
+
+
+# ---------------------------------------------------------------- mechanisms: which part can move
+
+from calcsheet_plugins.beam.solver import PointLoad, solve  # noqa: E402
+
+
+@pytest.mark.parametrize("spans, supports, part", [
+    # statics of each arrangement: the part named is the one a rigid-body motion moves
+    ([4.0, 5.0, 3.0], ["pinned", "roller", "hinge", "free"], (9, 12)),  # C–D swings about the hinge at C
+    ([4.0, 4.0], ["fixed", "hinge", "free"], (4, 8)),  # B–C swings about the hinge at B
+    ([6.0, 6.0], ["pinned", "hinge", "roller"], (0, 12)),  # both spans fold at the hinge B
+    ([4.0, 4.0, 4.0], ["pinned", "hinge", "hinge", "roller"], (0, 12)),
+    ([6.0], ["guided", "free"], (0, 6)),  # nothing holds it up: the whole beam slides
+    ([3.0, 3.0], ["free", "hinge", "free"], (0, 6)),
+])
+def test_a_mechanism_is_refused_naming_the_part_that_can_move(spans, supports, part):
+    with pytest.raises(BeamInputError) as exc:
+        solve(Model(spans, supports, [EI] * len(spans)), [PointLoad(1.0, 1.0e3)])
+    assert exc.value.param == "supports"
+    assert str(exc.value) == (f"the supports cannot hold the beam — it is a mechanism: the part from x = {part[0]} m "
+                              f"to x = {part[1]} m can move up and down freely; add a support, fix an end, or "
+                              "remove a hinge")
