@@ -52,3 +52,10 @@ def test_a_couple_on_a_simple_span_changes_the_sign_of_the_moment_by_its_jump():
     assert result("6 m", "pinned, roller", "beam.moment(M=12 kN*m, x=2 m)") == pytest.approx([2.0], rel=1e-12)
     # and a couple at the end of the beam is no point inside it
     assert result("6 m", "pinned, roller", "beam.moment(M=12 kN*m, x=0 m)") == []
+
+
+def test_a_propped_cantilever_with_a_central_point_load_changes_sign_on_a_straight_stretch():
+    # fixed at A, supported at B, P at mid-span: R_A = 11P/16, M_A = −3PL/16 (Table 3-23, "fixed at one end,
+    # supported at other — concentrated load at center"): M(x) = −3PL/16 + 11P/16·x = 0 at x = 3L/11, where the
+    # moment diagram is a straight line (no load on that stretch)
+    assert result("6 m", "fixed, roller", "beam.point(P=10 kN, x=3 m)") == pytest.approx([3 * L / 11], rel=1e-9)

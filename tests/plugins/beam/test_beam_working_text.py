@@ -96,3 +96,35 @@ def test_the_working_says_how_the_place_of_the_largest_moment_was_found(loads, h
     items = solve(loads)
     (step,) = [s for s in items if isinstance(s, Step) and s.name == "x_0"]
     assert step.note.startswith(how)
+
+
+# a simple span (two supports holding it up, overhangs allowed) and a cantilever are worked by statics alone;
+# every other beam — indeterminate, or made determinate by internal hinges — span by span from its end actions
+@pytest.mark.parametrize("spans, supports, span_by_span", [
+    ("6 m", "pinned, roller", False), ("6 m", "fixed, free", False), ("6 m", "free, fixed", False),
+    ("2 m, 6 m", "free, pinned, roller", False), ("6 m", "fixed, roller", True), ("6 m", "fixed, fixed", True),
+    ("6 m, 6 m", "pinned, roller, roller", True), ("4 m, 4 m", "fixed, hinge, roller", True),
+])
+def test_the_working_shows_the_reactions_once_and_end_actions_for_a_beam_worked_span_by_span(spans, supports,
+                                                                                             span_by_span):
+    r = calcsheet.run(f'b = beam.solve(spans=[{spans}], supports="{supports}", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.udl(w=2 kN/m)])\n')
+    assert r.ok, r.diagnostics
+    titles = [t.title for t in r.values["b"].working.items if isinstance(t, Table)]
+    assert len(titles) == len(set(titles)), titles
+    assert titles.count("Reactions (upward positive)") == 1
+    assert ("End actions of each span" in titles) is span_by_span
+
+
+def test_the_place_of_zero_shear_is_the_place_of_the_largest_sagging_moment_however_light_the_load():
+    # dM/dx = V: under a distributed load the largest sagging moment sits where V = 0 (common practice). A very
+    # light triangular load (0 → 1 N/m over the first span) still has its root of V found inside the span,
+    # not replaced by the support B where V jumps through zero
+    r = calcsheet.run('b = beam.solve(spans=[6 m, 6 m], supports="pinned, roller, roller", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.varying(w_1=0 kN/m, w_2=0.001 kN/m, span=1)])\n'
+                      "v = beam.at(member=b, x=b.x_V0)\n")
+    assert r.ok, r.diagnostics
+    b = r.values["b"].fields
+    assert 0 < b["x_V0"].m_as("m") < 6
+    assert b["x_V0"].m_as("m") == pytest.approx(b["x_M_max"].m_as("m"), rel=1e-9)
+    assert r.values["v"].fields["V"].m_as("N") == pytest.approx(0.0, abs=1e-9)
