@@ -151,6 +151,9 @@ EQUIVALENT = {
     ("lo = np.searchsorted(grid, x0 + 1e-12 * m.length, side=\"right\")", "* → /"):
         "the grid holds the nodes exactly, so any offset between 0 and a fraction of the shortest piece (1e-12·L "
         "or 1e-12/L) cuts the span at the same grid points",
+    ("ld.validate(L, 1e-9 * L, BeamInputError)", "* → /"):
+        "a second check of positions the model already placed within 1e-9·L of the beam (model._load): a "
+        "tolerance of 1e-9/L instead changes nothing a sheet can reach",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

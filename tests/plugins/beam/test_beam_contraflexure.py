@@ -59,3 +59,9 @@ def test_a_propped_cantilever_with_a_central_point_load_changes_sign_on_a_straig
     # supported at other — concentrated load at center"): M(x) = −3PL/16 + 11P/16·x = 0 at x = 3L/11, where the
     # moment diagram is a straight line (no load on that stretch)
     assert result("6 m", "fixed, roller", "beam.point(P=10 kN, x=3 m)") == pytest.approx([3 * L / 11], rel=1e-9)
+
+
+def test_where_the_moment_ends_on_a_cantilever_is_reported_as_its_point_of_zero_moment():
+    # fixed at A, P at mid-span: M = −P(L/2 − x) up to the load and nothing beyond it (statics of the free end):
+    # the moment reaches zero at the load and stays zero, and that place is reported (the ends are not)
+    assert result("6 m", "fixed, free", "beam.point(P=10 kN, x=3 m)") == pytest.approx([3.0], rel=1e-12)

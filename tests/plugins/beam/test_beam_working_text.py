@@ -128,3 +128,34 @@ def test_the_place_of_zero_shear_is_the_place_of_the_largest_sagging_moment_howe
     assert 0 < b["x_V0"].m_as("m") < 6
     assert b["x_V0"].m_as("m") == pytest.approx(b["x_M_max"].m_as("m"), rel=1e-9)
     assert r.values["v"].fields["V"].m_as("N") == pytest.approx(0.0, abs=1e-9)
+
+
+def _notes(items):
+    return [getattr(i, "text", "") for i in items]
+
+
+def test_a_tie_between_combinations_is_said_with_their_names():
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.udl(w=2 kN/m, case="D")], combos=[beam.combo(name="first", factors="D"), '
+                      'beam.combo(name="again", factors="1.0 D")])\n')
+    assert r.ok, r.diagnostics
+    notes = [t for t in _notes(r.values["b"].working.items) if t.startswith("The same value of M_max")]
+    assert notes == ["The same value of M_max occurs at x = 3 m in first, and in again; the leftmost place "
+                     "(and the first combination) is reported."]
+    assert r.values["b"].fields["combo_M_max"] == "first"
+
+
+@pytest.mark.parametrize("P, direction", [("10 kN", "downward"), ("-10 kN", "upward")])
+def test_the_largest_deflection_says_which_way_it_goes(P, direction):
+    items = solve(f"beam.point(P={P}, x=3 m)")
+    (step,) = [s for s in items if isinstance(s, Step) and s.name == "delta_max"]
+    assert step.note.startswith(f"{direction}, at x = 3 m")
+
+
+def test_equilibrium_of_a_beam_on_springs_alone_is_taken_about_its_first_support():
+    springs = ", ".join(f'beam.spring(at="{c}", k=5 kN/mm)' for c in "ABC")
+    r = calcsheet.run('b = beam.solve(spans=[4 m, 4 m], supports="spring, spring, spring", E=200 GPa, I=1e8 mm^4, '
+                      f'loads=[beam.udl(w=2 kN/m)], springs=[{springs}])\n')
+    assert r.ok, r.diagnostics
+    notes = [t for t in _notes(r.values["b"].working.items) if t.startswith("Equilibrium")]
+    assert notes and notes[0].endswith("in force and in moment about A.")
