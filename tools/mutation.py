@@ -154,6 +154,11 @@ EQUIVALENT = {
     ("ld.validate(L, 1e-9 * L, BeamInputError)", "* → /"):
         "a second check of positions the model already placed within 1e-9·L of the beam (model._load): a "
         "tolerance of 1e-9/L instead changes nothing a sheet can reach",
+    ("inside = x0 - tol <= self.x < x1 - tol or (last and abs(self.x - x1) <= tol)", "<= → <"):
+        "a load at a span's left support has x = x0 exactly, inside both ways; only x = x0 − tol to the last bit "
+        "differs (a float tie)",
+    ("merged = [x for i, x in enumerate(others) if i == 0 or x - others[i - 1] > tol]", "> → >="):
+        "two tied places exactly 1e-9·L apart to the last bit (a float tie)",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

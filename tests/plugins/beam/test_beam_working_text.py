@@ -159,3 +159,31 @@ def test_equilibrium_of_a_beam_on_springs_alone_is_taken_about_its_first_support
     assert r.ok, r.diagnostics
     notes = [t for t in _notes(r.values["b"].working.items) if t.startswith("Equilibrium")]
     assert notes and notes[0].endswith("in force and in moment about A.")
+
+
+@pytest.mark.parametrize("M, M0, couple_in_formula", [("12 kN*m", 8.0, True), ("-12 kN*m", 4.0, False)])
+def test_a_couple_at_the_place_of_the_largest_moment_counts_only_when_the_moment_jumps_up_there(M, M0,
+                                                                                                   couple_in_formula):
+    # a couple M₀ at a = 2 m of a 6 m simple span (Roark Table 8.1, applied couple): M jumps by M₀ at a, so a
+    # clockwise couple's largest sagging moment is just after it, M₀(1 − a/L) = 8 kN·m (the couple is one of the
+    # forces to the left), an anticlockwise one's just before it, |M₀|·a/L = 4 kN·m (the couple is not)
+    items = solve(f"beam.moment(M={M}, x=2 m)")
+    (step,) = [s for s in items if isinstance(s, Step) and s.name == "M_0"]
+    assert step.value.m_as("kN*m") == pytest.approx(M0, rel=1e-12)
+    assert ("kN*m" in SheetPrinter().expr(step.expr)) is couple_in_formula
+
+
+def test_equal_shears_at_both_ends_are_a_tie_said_with_both_places():
+    # a uniform load on a simple span: V = +wL/2 at A and −wL/2 at B, equal in magnitude (statics)
+    items = solve("beam.udl(w=4 kN/m)")
+    assert "The same value of V_max occurs at x = 0 m and also at x = 6 m; the leftmost place (and the first " \
+           "combination) is reported." in _notes(items)
+
+
+def test_a_beam_of_more_than_26_supports_reports_the_first_26_by_letter():
+    r = calcsheet.run("b = beam.solve(spans=[" + ", ".join(["1 m"] * 27) + "], supports=\"" +
+                      ", ".join(["pinned"] + ["roller"] * 27) + "\", E=200 GPa, I=1e8 mm^4, loads=[beam.udl(w=1 kN/m)])\n"
+                      "res = beam.result(member=b)\n")
+    assert r.ok, r.diagnostics
+    f = r.values["res"].fields
+    assert "R_Z" in f and "R_AA" not in f and "theta_Z" in f
