@@ -159,6 +159,11 @@ EQUIVALENT = {
         "differs (a float tie)",
     ("merged = [x for i, x in enumerate(others) if i == 0 or x - others[i - 1] > tol]", "> → >="):
         "two tied places exactly 1e-9·L apart to the last bit (a float tie)",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", "> → >="):
+        "a line-load part never has b = a: on_span and parts drop any part of length ≤ tol before it gets here",
+    ("rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))", "1000.0 → 2000.0"):
+        "the guard against dividing by a zero load (1 kN or 2 kN) only rescales round-off residuals of ~1e-12; "
+        "the equilibrium check holds either way",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

@@ -187,3 +187,32 @@ def test_a_beam_of_more_than_26_supports_reports_the_first_26_by_letter():
     assert r.ok, r.diagnostics
     f = r.values["res"].fields
     assert "R_Z" in f and "R_AA" not in f and "theta_Z" in f
+
+
+def _table(items, start):
+    (t,) = [t for t in items if isinstance(t, Table) and t.title.startswith(start)]
+    return t
+
+
+@pytest.mark.parametrize("loads, fem_left, fem_right", [
+    # AISC Manual Table 3-23 (from memory), beam fixed at both ends: uniform load, M = wL²/12 at each end;
+    # a point load at a from the left (b = L − a): M₁ = P·a·b²/L², M₂ = P·a²·b/L² — both hogging
+    ("beam.udl(w=12 kN/m)", 12 * 36 / 12, 12 * 36 / 12),
+    ("beam.point(P=30 kN, x=2 m)", 30 * 2 * 16 / 36, 30 * 4 * 4 / 36),
+])
+def test_the_end_actions_table_gives_the_fixed_end_moments_of_the_span(loads, fem_left, fem_right):
+    t = _table(solve(loads, "fixed, fixed"), "End actions")
+    assert t.columns == ["Span", "M_FE,left", "M_FE,right", "V_left", "M_left", "V_right", "M_right"]
+    (row,) = t.rows
+    got = [q.m_as("kN*m") for q in (row[1], row[2], row[4], row[6])]
+    # both ends fixed: the member's end moments are the fixed-end moments themselves
+    assert got == pytest.approx([-fem_left, -fem_right, -fem_left, -fem_right], rel=1e-9)
+
+
+def test_a_beam_solved_by_statics_alone_shows_no_deflection_column():
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", loads=[beam.udl(w=12 kN/m)])\n')
+    assert r.ok, r.diagnostics
+    t = _table(r.values["b"].working.items, "Maxima")
+    assert t.columns == ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x"]
+    assert all(len(row) == 7 for row in t.rows) and len(t.units) == 7
+    assert t.rows[0][1].m_as("kN*m") == pytest.approx(12 * 36 / 8)  # wL²/8
