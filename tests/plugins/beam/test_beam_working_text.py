@@ -216,3 +216,32 @@ def test_a_beam_solved_by_statics_alone_shows_no_deflection_column():
     assert t.columns == ["Combination", "M_max", "at x", "M_min", "at x", "|V|_max", "at x"]
     assert all(len(row) == 7 for row in t.rows) and len(t.units) == 7
     assert t.rows[0][1].m_as("kN*m") == pytest.approx(12 * 36 / 8)  # wL²/8
+
+
+def test_with_many_combinations_equilibrium_is_tabulated_and_a_couple_adds_no_force():
+    # nine combinations of a dead load D (a uniform load and a couple) and a live load L: ΣW of each row is
+    # the factored total of the forces; a couple adds none (statics) but its moment enters ΣW·a
+    combos = ", ".join(f'beam.combo(name="C{k}", factors="{1 + k / 10:g} D + {k / 4:g} L")' for k in range(9))
+    r = calcsheet.run('b = beam.solve(spans=[4 m, 4 m], supports="pinned, roller, roller", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.udl(w=2 kN/m, case="D"), beam.moment(M=5 kN*m, x=2 m, case="D"), '
+                      f'beam.point(P=3 kN, x=6 m, case="L")], combos=[{combos}])\n')
+    assert r.ok, r.diagnostics
+    t = _table(r.values["b"].working.items, "Equilibrium by combination")
+    assert len(t.rows) == 9
+    for k, row in enumerate(t.rows):
+        fD, fL = 1 + k / 10, k / 4
+        W = fD * 2 * 8 + fL * 3  # kN: the uniform load over 8 m and the point load; the couple adds nothing
+        assert row[0] == f"C{k}"
+        assert row[1].m_as("kN") == pytest.approx(W, rel=1e-12) and row[2].m_as("kN") == pytest.approx(W, rel=1e-9)
+        # moments about A, clockwise positive: w·8·4 + the couple + P·6
+        assert row[3].m_as("kN*m") == pytest.approx(fD * (2 * 8 * 4 + 5) + fL * 3 * 6, rel=1e-12)
+
+
+def test_the_slopes_at_the_supports_of_a_simple_span():
+    # AISC Table 3-23 case 1 (from memory): θ = wL³/(24EI) at each end, the two ends turning opposite ways
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, I=1e8 mm^4, '
+                      "loads=[beam.udl(w=10 kN/m)])\nres = beam.result(member=b)\n")
+    assert r.ok, r.diagnostics
+    a, b = (r.values["res"].fields[f"theta_{c}"].m_as("rad") for c in "AB")
+    assert abs(b) == pytest.approx(10e3 * 6**3 / (24 * 2e7), rel=1e-9)
+    assert a == pytest.approx(-b, rel=1e-12)
