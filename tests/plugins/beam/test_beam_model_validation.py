@@ -156,3 +156,46 @@ def test_a_mechanism_is_refused_naming_the_part_that_can_move(spans, supports, p
     assert str(exc.value) == (f"the supports cannot hold the beam — it is a mechanism: the part from x = {part[0]} m "
                               f"to x = {part[1]} m can move up and down freely; add a support, fix an end, or "
                               "remove a hinge")
+
+
+# ---------------------------------------------------------------- loads against the beam, and zero shear
+
+from calcsheet_plugins.beam.kinds import LineLoad  # noqa: E402
+from calcsheet_plugins.beam.solver import validate_loads, zero_shear_points  # noqa: E402
+
+
+@pytest.mark.parametrize("load, words", [
+    (PointLoad(9.5, 1.0), "a load at x = 9.5 m lies outside the beam (0 to 9 m)"),
+    (PointLoad(-0.5, 1.0), "a load at x = -0.5 m lies outside the beam"),
+    (LineLoad(-1.0, 3.0, 1.0, 1.0), "a line load from x = -1 m to 3 m runs outside the beam (0 to 9 m)"),
+    (LineLoad(5.0, 9.5, 1.0, 1.0), "a line load from x = 5 m to 9.5 m runs outside the beam"),
+    (LineLoad(5.0, 4.0, 1.0, 1.0), "a line load ends (x = 4 m) before it starts (x = 5 m)"),
+])
+def test_the_solver_refuses_a_load_off_the_beam_itself(load, words):
+    # the sheet's positions are checked when the model is built; the solver checks again for direct callers
+    with pytest.raises(BeamInputError) as exc:
+        validate_loads(Model([4.0, 5.0], ["pinned", "roller", "roller"], [EI, EI]), [load])
+    assert str(exc.value) == words or str(exc.value).startswith(words)
+    assert exc.value.param == "loads"
+
+
+def test_loads_at_the_very_ends_are_on_the_beam():
+    validate_loads(Model([4.0, 5.0], ["pinned", "roller", "roller"], [EI, EI]),
+                   [PointLoad(0.0, 1.0), PointLoad(9.0, 1.0), LineLoad(0.0, 9.0, 1.0, 2.0)])
+
+
+def test_zero_shear_by_a_jump_is_found_at_that_load_and_nowhere_else():
+    # 10 kN at 2 m and 5 kN at 4 m on a 6 m simple span: R_A = (10·4 + 5·2)/6 kN; V = 8.33, −1.67, −6.67 kN on
+    # the three stretches (statics), so V passes through zero only by the jump at x = 2 m
+    sol = solve(Model([6.0], ["pinned", "roller"], [EI]), [PointLoad(2.0, 10e3), PointLoad(4.0, 5e3)])
+    assert zero_shear_points(sol) == pytest.approx([2.0])
+    # and a uniform load's zero lies inside its stretch: x = L/2
+    sol = solve(Model([6.0], ["pinned", "roller"], [EI]), [LineLoad(0.0, 6.0, 4e3, 4e3)])
+    assert zero_shear_points(sol) == pytest.approx([3.0])
+
+
+def test_a_line_load_without_resultant_has_its_lever_arm_at_its_middle():
+    # +5 → −5 N/m has no resultant, so no centroid; the middle keeps the printed lever arm inside the load
+    assert LineLoad(2.0, 8.0, 5.0, -5.0).centroid == 5.0
+    # otherwise the centroid of a trapezoid: x₁ + L(w₁ + 2w₂)/(3(w₁ + w₂)) (common practice)
+    assert LineLoad(2.0, 8.0, 1.0, 4.0).centroid == pytest.approx(2.0 + 6.0 * 9.0 / 15.0)
