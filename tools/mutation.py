@@ -174,6 +174,9 @@ EQUIVALENT = {
         "and EI fields are absent, so no output can show it",
     ("E = E if E is not None else Quantity(1.0, \"Pa\")  # any value: statics does not read it", "1.0 → 2.0"):
         "likewise the placeholder E of a beam solved by statics alone",
+    ("if worst is None or rel > worst[0]:", "> → >="):
+        "which of several combinations with exactly equal round-off residuals is printed as the worst; the two "
+        "checks below hold for every row of the table either way",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

@@ -27,8 +27,9 @@ def test_a_pull_puts_the_part_between_the_holding_support_and_the_force_in_tensi
     # held at A, 15 kN pulling at x = 4 m toward +x: 0–4 m in tension (−15 kN), 4–6 m carries nothing, so the
     # largest compression is 0, first reached at x = 4 m
     r = solve("pinned, roller", "beam.axial(F=15 kN, x=4 m)",
-              "p = beam.at(member=b, x=2 m)\nq = beam.at(member=b, x=5 m)\n")
+              "p = beam.at(member=b, x=2 m)\nq = beam.at(member=b, x=5 m)\ns = beam.at(member=b, x=4 m)\n")
     b = fields(r)
+    assert fields(r, "s")["N"].m_as("kN") == pytest.approx(-15.0)  # at the force: the larger either side
     assert b["N_max"].m_as("kN") == pytest.approx(0.0) and b["x_N_max"].m_as("m") == pytest.approx(4.0)
     assert fields(r, "p")["N"].m_as("kN") == pytest.approx(-15.0)
     assert fields(r, "q")["N"].m_as("kN") == pytest.approx(0.0)
