@@ -479,3 +479,27 @@ def test_a_declared_unit_of_the_wrong_dimension_is_an_error():
 
     with pytest.raises(DeclaredUnitError):
         Evaluator().evaluate_definition(parse_statement("M [kN*m] = 2 kN"), {}, {})
+
+
+# ---------------------------------------------------------------- small numbers, zero, arity words
+
+
+@pytest.mark.parametrize("op, a, b, ratio", [("<=", 0.2, 0.5, 0.4), ("<", 0.2, 0.5, 0.4), (">=", 0.5, 0.2, 0.4),
+                                             ("<=", 0.0, 0.5, 0.0), ("<=", 0.9, 0.9, 1.0)])
+def test_the_utilisation_of_values_below_one_is_their_ratio(op, a, b, ratio):
+    # a check's utilisation is demand / capacity whatever the size of the numbers (common practice)
+    c = _check(op, (a, ""), (b, ""))
+    assert c.ok is (op != "<" or a < b) and c.ratio == pytest.approx(ratio)
+
+
+@pytest.mark.parametrize("text, value", [("0^0.5", 0.0), ("0^1.5", 0.0), ("4^0.5", 2.0), ("(-8)^3", -512.0)])
+def test_zero_to_a_positive_fractional_power_is_zero(text, value):
+    assert float(ev(text).m_as("")) == value
+
+
+@pytest.mark.parametrize("text, words", [("max()", "max() takes at least 1 argument, got 0"),
+                                         ("sqrt(1, 2)", "sqrt() takes 1 argument, got 2")])
+def test_arity_errors_say_how_many_arguments_in_words(text, words):
+    with pytest.raises(CalcError) as exc:
+        ev(text)
+    assert words in exc.value.message
