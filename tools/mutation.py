@@ -177,6 +177,12 @@ EQUIVALENT = {
     ("if worst is None or rel > worst[0]:", "> → >="):
         "which of several combinations with exactly equal round-off residuals is printed as the worst; the two "
         "checks below hold for every row of the table either way",
+    ("if abs(self.w1 - self.w2) <= 1e-12 * max(abs(self.w1), abs(self.w2), 1e-300):", "* → /"):
+        "chooses how a uniform stretch's resultant is printed (w·L or ½(w₁ + w₂)·L, equal values); a uniform load "
+        "and its parts have w₁ = w₂ exactly, inside either tolerance",
+    ("and abs(points[0].x - L / 2) > 1e-9 * L and 0 < points[0].x < L):", "< → <="):
+        "a force exactly on a support also fits the off-centre case's formulas (R = P, M = 0, δ = 0 at a = 0): the "
+        "printed cross-check agrees with the solver either way",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

@@ -245,3 +245,52 @@ def test_the_slopes_at_the_supports_of_a_simple_span():
     a, b = (r.values["res"].fields[f"theta_{c}"].m_as("rad") for c in "AB")
     assert abs(b) == pytest.approx(10e3 * 6**3 / (24 * 2e7), rel=1e-9)
     assert a == pytest.approx(-b, rel=1e-12)
+
+
+@pytest.mark.parametrize("n, formula", [(12, True), (13, False)])
+def test_the_largest_moment_is_a_formula_up_to_twelve_forces_to_its_left(n, formula):
+    # n small forces left of a large one at mid-span (where the shear changes sign): up to 12 the moment is
+    # written out force by force; beyond, it is the area of the shear diagram, said so
+    small = ", ".join(f"beam.point(P=0.1 kN, x={0.2 * (k + 1):.1f} m)" for k in range(n))
+    items = solve(f"{small}, beam.point(P=50 kN, x=3 m)")
+    (step,) = [s for s in items if isinstance(s, Step) and s.name == "M_0"]
+    assert (step.expr is not None) is formula
+    if not formula:
+        assert step.note == "area of the shear diagram from the left end to x₀"
+
+
+@pytest.mark.parametrize("supports, loads", [
+    ("pinned, roller", "beam.point(P=12 kN, x=2 m), beam.axial(F=-5 kN, x=6 m)"),
+    ("roller, pinned", "beam.udl(w=3 kN/m), beam.axial(F=4 kN, x=1 m), beam.moment(M=2 kN*m, x=5 m)"),
+    ("fixed, free", "beam.point(P=4 kN, x=6 m), beam.axial(F=-5 kN, x=6 m)"),
+    ("free, fixed", "beam.varying(w_1=1 kN/m, w_2=3 kN/m), beam.axial(F=2 kN, x=0 m)"),
+])
+def test_every_traced_step_named_like_a_field_agrees_with_the_field(supports, loads):
+    # the working a checker reads and the value a sheet uses are one number (issue: fields computed twice drift)
+    r = calcsheet.run(f'b = beam.solve(spans=[6 m], supports="{supports}", E=200 GPa, I=1e8 mm^4, '
+                      f'loads=[{loads}])\n')
+    assert r.ok, r.diagnostics
+    rec = r.values["b"]
+    steps = {s.name: s for s in rec.working.items if isinstance(s, Step)
+             and not (s.description or "").startswith("moment of the loads about")}  # see the xfail below
+    shared = [n for n in steps if n in rec.fields and hasattr(rec.fields[n], "m_as")]
+    assert len(shared) >= 3, shared
+    for n in shared:
+        f, v = rec.fields[n], steps[n].value
+        assert v.to(f.units).magnitude == pytest.approx(f.magnitude, rel=1e-12, abs=1e-9), n
+    # and the reactions traced by statics are the solver's
+    for c in "AB":
+        if f"R_{c}" in steps:
+            assert steps[f"R_{c}"].value.m_as("N") == pytest.approx(rec.fields[f"R_{c}"].m_as("N"), rel=1e-12)
+
+
+@pytest.mark.xfail(strict=True, reason="bug (working.py, statics of a simple span): the moment of the loads about "
+                   "support A is traced under the name M_A, which is also the field 'bending moment in the member at "
+                   "support A' (0 at a pinned end); a checker reads M_A = 24 kN·m in the working and b.M_A = 0")
+def test_a_traced_step_never_reuses_a_fields_name_for_another_quantity():
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, I=1e8 mm^4, '
+                      "loads=[beam.point(P=12 kN, x=2 m)])\n")
+    rec = r.values["b"]
+    for s in rec.working.items:
+        if isinstance(s, Step) and s.name in rec.fields and hasattr(rec.fields[s.name], "m_as"):
+            assert s.value.m_as(rec.fields[s.name].units) == pytest.approx(rec.fields[s.name].magnitude, abs=1e-9)
