@@ -690,6 +690,11 @@ def main(argv=None) -> int:
     ap.add_argument("--stale-cover", action="store_true",
                     help="reuse the kept coverage map even if tests changed since (new tests are then not chosen; "
                          "rerun the survivors with a fresh map)")
+    ap.add_argument("--also", nargs="*", default=[],
+                    help="test files run first for every mutant whatever the coverage map says (with --stale-cover: "
+                         "the tests written since the map was traced)")
+    ap.add_argument("--skip-equivalent", action="store_true",
+                    help="do not run mutants already explained in EQUIVALENT (they count as explained)")
     ap.add_argument("--no-fork", action="store_true",
                     help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
@@ -724,6 +729,13 @@ def main(argv=None) -> int:
             earlier += [done[key] for m in plan[t] if (key := (m.path, m.line, m.source_line, m.what)) in done]
             plan[t] = [m for m in plan[t] if (m.path, m.line, m.source_line, m.what) not in done]
         print(f"resuming: {len(earlier)} mutants done already, {sum(map(len, plan.values()))} to run", flush=True)
+    if args.skip_equivalent:
+        for t in plan:
+            for m in plan[t]:
+                if (m.source_line, m.what) in EQUIVALENT:
+                    m.status, m.killed_by = "survived", "(explained in EQUIVALENT, not run)"
+                    earlier.append(m)
+            plan[t] = [m for m in plan[t] if (m.source_line, m.what) not in EQUIVALENT]
 
     # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
@@ -769,13 +781,15 @@ def main(argv=None) -> int:
                 chosen, limit = tests, timeout
                 if cover is not None:
                     reach = cover.tests_for(m)
-                    if reach == []:  # no test runs this line: nothing to run, the mutant survives
+                    if reach == [] and not args.also:  # no test runs this line: nothing to run, it survives
                         m.status, m.killed_by = "survived", "(no test reaches this line)"
                         results.append(m)
                         print(f"{'UNCOVERED':9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
                         return
                     if reach is not None:
                         chosen, limit = reach, args.timeout or max(60.0, 30 + 3 * cover.time_of(reach))
+                    if args.also:
+                        chosen = [*args.also, *(chosen if reach is not None else tests)]
                 root, srv = slots.get()
                 try:
                     with applied(root / m.path, m.index, functions_for(t, m.path)):
