@@ -183,6 +183,8 @@ EQUIVALENT = {
     ("and abs(points[0].x - L / 2) > 1e-9 * L and 0 < points[0].x < L):", "< → <="):
         "a force exactly on a support also fits the off-centre case's formulas (R = P, M = 0, δ = 0 at a = 0): the "
         "printed cross-check agrees with the solver either way",
+    ("if self.x < x0 - tol or (abs(self.x - x0) <= tol and self.M > 0):", "<= → <"):
+        "a couple at the section has x = x0 exactly (|x − x0| = 0 < tol too); only a distance of exactly tol differs",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):

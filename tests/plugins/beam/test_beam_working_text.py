@@ -219,11 +219,13 @@ def test_a_beam_solved_by_statics_alone_shows_no_deflection_column():
 
 
 def test_with_many_combinations_equilibrium_is_tabulated_and_a_couple_adds_no_force():
-    # nine combinations of a dead load D (a uniform load and a couple) and a live load L: ΣW of each row is
-    # the factored total of the forces; a couple adds none (statics) but its moment enters ΣW·a
+    # nine combinations of a dead load D (a uniform load, a couple, a push along the axis) and a live load L: ΣW
+    # of each row is the factored total of the forces; a couple adds none but its moment enters ΣW·a, and the
+    # push along the axis adds neither (statics)
     combos = ", ".join(f'beam.combo(name="C{k}", factors="{1 + k / 10:g} D + {k / 4:g} L")' for k in range(9))
     r = calcsheet.run('b = beam.solve(spans=[4 m, 4 m], supports="pinned, roller, roller", E=200 GPa, I=1e8 mm^4, '
                       'loads=[beam.udl(w=2 kN/m, case="D"), beam.moment(M=5 kN*m, x=2 m, case="D"), '
+                      'beam.axial(F=-7 kN, x=8 m, case="D"), '
                       f'beam.point(P=3 kN, x=6 m, case="L")], combos=[{combos}])\n')
     assert r.ok, r.diagnostics
     t = _table(r.values["b"].working.items, "Equilibrium by combination")
