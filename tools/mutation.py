@@ -185,6 +185,8 @@ EQUIVALENT = {
         "printed cross-check agrees with the solver either way",
     ("if self.x < x0 - tol or (abs(self.x - x0) <= tol and self.M > 0):", "<= → <"):
         "a couple at the section has x = x0 exactly (|x − x0| = 0 < tol too); only a distance of exactly tol differs",
+    ("if self.x1 < -tol or self.x2 > L + tol:", "> → >="):
+        "a line load ending at the beam's end has x2 = L exactly; only x2 = L + tol to the last bit differs",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
