@@ -36,6 +36,8 @@ from .fields import ALIASES, OPT_UNITS, UNITS
 from . import shapes as S
 from .fields import section_fields
 from .report import _q, report, unit
+from . import drawing
+from .properties import properties
 
 namespace = Namespace(
     "section", version="0.1.0",
@@ -478,16 +480,34 @@ def _model_shape(work, entry, g, let, dims):
     raise AssertionError(m)  # pragma: no cover
 
 
+COMPACT_FIGURE = (190.0, 150.0)  # px: the drawing of a catalogue section in the compact working
+
+
 def _silent_report(work, shape):
-    """The model's properties by the same traced working as detail="full", kept out of the package: only the
-    drawing, any warning and the one-line agreement of the two methods stay (the values are identical)."""
+    """The model's properties by the same traced working as detail="full", kept out of the package (the values
+    are identical). Returns them and what stays: a smaller drawing, any warning, and the one-line agreement of
+    the two methods, to be placed after the comparison with the table."""
     start = len(work.working.items)
     out = report(work, shape, detail="brief", compact=True)
-    kept = [it for it in work.working.items[start:]
-            if isinstance(it, Figure) or (isinstance(it, Note) and it.kind in ("warning", "agreement"))]
+    kept = []
+    for it in work.working.items[start:]:
+        if isinstance(it, Figure):
+            kept.append(Figure(drawing.draw(shape, properties(shape), box=COMPACT_FIGURE), it.caption))
+        elif isinstance(it, Note) and it.kind in ("warning", "agreement"):
+            kept.append(it)
     del work.working.items[start:]
-    work.working.items.extend(kept)
-    return out
+    return out, kept
+
+
+def _model_cell(entry, name, value) -> str:
+    """A model value in the table's unit, one significant digit more than tables print (5)."""
+    u = _table_unit(entry, name)
+    v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
+    text = f"{v:.5g}"
+    if "e" in text:
+        mant, exp = text.split("e")
+        text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
+    return f"{text} {u.replace('^2', '²').replace('^3', '³').replace('^4', '⁴').replace('^6', '⁶')}"
 
 
 @namespace.function("rolled", params=[
@@ -525,17 +545,17 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
                    [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
     shape = _build(work, lambda: _model(work, entry))
     if detail == "full":
-        out = report(work, shape, detail="brief", compact=True)
+        out, after = report(work, shape, detail="brief", compact=True), []
     else:
-        out = _silent_report(work, shape)
+        out, after = _silent_report(work, shape)
     rows, worst = [], []
     for name, u, tol in COMPARED:
         if name not in entry.values or name not in out:
             continue
         tv, mv = entry.values[name], out[name].m_as(unit(u))
         dev = (mv - tv) / tv if tv else 0.0
-        rows.append([name, _published(entry, name, tv), _q(mv, u).to(unit(_table_unit(entry, name))),
-                     f"{100 * dev:+.2f} %", f"{100 * tol:.0f} %"])
+        rows.append([name, _published(entry, name, tv), _model_cell(entry, name, mv), f"{100 * dev:+.2f} %",
+                     f"{100 * tol:.0f} %"])
         if abs(dev) > tol:
             worst.append(f"{name} {100 * dev:+.1f} %")
     if rows:
@@ -543,7 +563,8 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
                    ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
                    note="Table values as published, in the table's units; deviation = (model − table)/table.")
     else:
-        cells = [c for n in MODEL_ONLY if n in out for c in (n, out[n].to(unit(_table_unit(entry, n))))]
+        cells = [c for n in MODEL_ONLY if n in out
+                 for c in (n, _model_cell(entry, n, out[n].m_as(unit(OPT_UNITS.get(n) or UNITS[n]))))]
         cells += [""] * (-len(cells) % 6)
         work.table(f"Properties of {entry.designation} from its geometric model (the table gives dimensions only)",
                    ["Property", "Model"] * 3, [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6,
@@ -554,6 +575,7 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
     elif rows:
         work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
                   "properties.", kind="method")
+    work.working.items.extend(after)
     for name, v in entry.values.items():
         u = UNITS.get(name) or OPT_UNITS.get(name)
         out[name] = _q(v, u)
