@@ -103,34 +103,69 @@ def _dj(h, b, t_f, t_w, r):
     return 2 / 3 * b * t_f**3 + (h - 2 * t_f) * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
 
 
-def ishape(h: float, b: float, t_f: float, t_w: float, r: float) -> Shape:
-    """Doubly symmetric rolled I (parallel flanges) with four root fillets of radius r."""
-    _positive(h=h, b=b, t_f=t_f, t_w=t_w, r=r)
-    if 2 * t_f >= h:
-        raise ShapeError(f"flanges (2 × {_fmt(t_f)} mm) leave no web in the depth h = {_fmt(h)} mm", "t_f")
-    warnings = _web_checks(t_w, b, t_f)
-    if t_w + 2 * r > b or 2 * t_f + 2 * r > h:
+DJ_UNEQUAL_METHOD = ("rolled I with unequal flanges and root fillets: each flange b·t³/3 − 0.21·t⁴, the web "
+                     "(h − t_f − t_fb)·t_w³/3, and one El Darwish & Johnston (1965) junction term α·D⁴ per flange "
+                     "(with equal flanges this is their I-section formula)")
+DJ_UNEQUAL_STEPS = [
+    Step("alpha_t", "-0.042 + 0.2204*t_w/t_f + 0.1355*r/t_f - 0.0865*r*t_w/t_f^2 - 0.0725*t_w^2/t_f^2", "",
+         "fillet coefficient α, top junction (El Darwish & Johnston)"),
+    Step("D_t", "((t_f + r)^2 + (r + t_w/4)*t_w)/(2*r + t_f)", "mm", "inscribed circle, top junction"),
+    Step("alpha_b", "-0.042 + 0.2204*t_w/t_fb + 0.1355*r/t_fb - 0.0865*r*t_w/t_fb^2 - 0.0725*t_w^2/t_fb^2", "",
+         "fillet coefficient α, bottom junction"),
+    Step("D_b", "((t_fb + r)^2 + (r + t_w/4)*t_w)/(2*r + t_fb)", "mm", "inscribed circle, bottom junction"),
+    Step("J", "b*t_f^3/3 - 0.21*t_f^4 + b_bot*t_fb^3/3 - 0.21*t_fb^4 + (h - t_f - t_fb)*t_w^3/3 + alpha_t*D_t^4 "
+              "+ alpha_b*D_b^4", "mm^4", "torsion constant, rolled I with unequal flanges and fillets"),
+]
+
+
+def ishape(h: float, b: float, t_f: float, t_w: float, r: float, b_bot: float | None = None,
+           t_fb: float | None = None) -> Shape:
+    """Rolled I (parallel flanges) with four root fillets of radius r; equal flanges, or a bottom flange b_bot ×
+    t_fb of its own (monosymmetric)."""
+    _positive(h=h, b=b, t_f=t_f, t_w=t_w, r=r, b_bot=b_bot, t_fb=t_fb)
+    unequal = b_bot is not None or t_fb is not None
+    bb = b_bot if b_bot is not None else b
+    tb = t_fb if t_fb is not None else t_f
+    if t_f + tb >= h:
+        raise ShapeError(f"flanges ({_fmt(t_f)} + {_fmt(tb)} mm) leave no web in the depth h = {_fmt(h)} mm", "t_f")
+    warnings = _web_checks(t_w, min(b, bb), min(t_f, tb))
+    if t_w + 2 * r > min(b, bb) or t_f + tb + 2 * r > h:
         raise ShapeError(f"root radius r = {_fmt(r)} mm does not fit between the flanges and the web", "r")
-    xc = b / 2
-    hw = h - 2 * t_f
+    W = max(b, bb)
+    xc = W / 2
+    hw = h - t_f - tb
     xl, xr = xc - t_w / 2, xc + t_w / 2
-    rows = [_rect_row("top flange", 0, h - t_f, b, t_f), _rect_row("web", xl, t_f, t_w, hw),
-            _rect_row("bottom flange", 0, 0, b, t_f),
+    rows = [_rect_row("top flange", xc - b / 2, h - t_f, b, t_f), _rect_row("web", xl, tb, t_w, hw),
+            _rect_row("bottom flange", xc - bb / 2, 0, bb, tb),
             spandrel_row("fillet, top right", xr, h - t_f, r, 1, -1),
             spandrel_row("fillet, top left", xl, h - t_f, r, -1, -1),
-            spandrel_row("fillet, bottom right", xr, t_f, r, 1, 1),
-            spandrel_row("fillet, bottom left", xl, t_f, r, -1, 1)]
-    pts = [(0, 0), (b, 0), (b, t_f), (xr, t_f), (xr, h - t_f), (b, h - t_f), (b, h), (0, h), (0, h - t_f),
-           (xl, h - t_f), (xl, t_f), (0, t_f)]
+            spandrel_row("fillet, bottom right", xr, tb, r, 1, 1),
+            spandrel_row("fillet, bottom left", xl, tb, r, -1, 1)]
+    pts = [(xc - bb / 2, 0), (xc + bb / 2, 0), (xc + bb / 2, tb), (xr, tb), (xr, h - t_f), (xc + b / 2, h - t_f),
+           (xc + b / 2, h), (xc - b / 2, h), (xc - b / 2, h - t_f), (xl, h - t_f), (xl, tb), (xc - bb / 2, tb)]
     radii = [0, 0, 0, r, r, 0, 0, 0, 0, r, r, 0]
-    alpha, D = dj_alpha_D(t_f, t_w, r)
-    J = 2 / 3 * b * t_f**3 + hw * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
+    dims = [Dimension(xc - b / 2, h, xc + b / 2, h, _fmt(b), 1), Dimension(xc - W / 2, h, xc - W / 2, 0, _fmt(h), -1),
+            Dimension(xc + b / 2, h - t_f, xc + b / 2, h, _fmt(t_f), -1)]
+    label = f"rolled I h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+    if not unequal:
+        alpha, D = dj_alpha_D(t_f, t_w, r)
+        J = 2 / 3 * b * t_f**3 + hw * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
+        return Shape(
+            "ishape", label + " mm", rows, [_ring(pts, radii)], J=J, J_method=DJ_METHOD, J_steps=list(DJ_STEPS),
+            dims=dims, has_arcs=True, warnings=warnings, warping=WP.doubly_symmetric_I(), symmetry="double",
+        )
+    (at, Dt), (ab, Db) = dj_alpha_D(t_f, t_w, r), dj_alpha_D(tb, t_w, r)
+    J = b * t_f**3 / 3 - 0.21 * t_f**4 + bb * tb**3 / 3 - 0.21 * tb**4 + hw * t_w**3 / 3 + at * Dt**4 + ab * Db**4
+    pre = []
+    if b_bot is None:
+        pre.append(Step("b_bot", "b", "mm", "bottom flange width (as the top)"))
+    if t_fb is None:
+        pre.append(Step("t_fb", "t_f", "mm", "bottom flange thickness (as the top)"))
     return Shape(
-        "ishape", f"rolled I h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm", rows,
-        [_ring(pts, radii)], J=J, J_method=DJ_METHOD, J_steps=list(DJ_STEPS),
-        dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1),
-              Dimension(b, h - t_f, b, h, _fmt(t_f), -1)],
-        has_arcs=True, warnings=warnings, warping=WP.doubly_symmetric_I(), symmetry="double",
+        "ishape", label + f" b_bot={_fmt(bb)} t_fb={_fmt(tb)} mm", rows, [_ring(pts, radii)], J=J,
+        J_method=DJ_UNEQUAL_METHOD, J_steps=list(DJ_UNEQUAL_STEPS), pre_steps=pre,
+        dims=dims + [Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1)], has_arcs=True, warnings=warnings,
+        warping=WP.unequal_I(), symmetry="vertical",
     )
 
 

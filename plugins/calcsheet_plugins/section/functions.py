@@ -177,12 +177,11 @@ R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp cor
                       Param("t_f", L, "top flange thickness"), Param("t_w", L, "web thickness"),
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
-           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
+           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r.")
 def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, **common):
     if r is not None:
-        if b_bot is not None or t_fb is not None:
-            work.fail("root fillets are modelled on equal flanges only", param="r")
-        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r), _mm(b_bot),
+                                                             _mm(t_fb))), **common)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
                     **common)
 

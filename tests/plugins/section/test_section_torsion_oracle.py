@@ -110,3 +110,20 @@ def test_unequal_flange_I_monosymmetry_and_shear_centre(run):
     assert mm(f["C_w"], "mm^6") == pytest.approx(s.get_gamma(), rel=0.02)
     assert abs(mm(f["beta_x"])) == pytest.approx(abs(s.section_props.beta_x_plus), rel=0.01)
     assert mm(f["beta_x"]) < 0  # y up, the larger flange on top
+
+
+def test_unequal_flange_I_with_root_fillets(run):
+    # fillets on a monosymmetric rolled I: shear centre, C_w (AISC Design Guide 9 closed form, fillets ignored) and
+    # J (each flange b·t³/3 − 0.21·t⁴ plus one El Darwish & Johnston junction per flange) against the FE warping
+    # analysis of the same outline
+    f = traced(run, "section.ishape(h=400 mm, b=200 mm, t_f=16 mm, t_w=10 mm, b_bot=120 mm, t_fb=12 mm, r=14 mm)")
+    s = fe(FL.ishape(400.0, 200.0, 16.0, 10.0, 14.0, 120.0, 12.0), 60)
+    # plates plus four spandrels (1 − π/4)·r² (common practice)
+    assert mm(f["A"], "mm^2") == pytest.approx(200 * 16 + 120 * 12 + 372 * 10 + 4 * (1 - math.pi / 4) * 14**2, rel=1e-7)
+    assert mm(f["y_s"]) == pytest.approx(s.get_sc()[1], abs=0.01 * 400)
+    assert mm(f["C_w"], "mm^6") == pytest.approx(s.get_gamma(), rel=0.03)
+    assert mm(f["J"], "mm^4") == pytest.approx(s.get_j(), rel=0.03)
+    assert abs(mm(f["beta_x"])) == pytest.approx(abs(s.section_props.beta_x_plus), rel=0.01)
+    # with equal flanges the formula is El Darwish & Johnston's own I-section formula
+    same = FL.ishape(300.0, 150.0, 10.7, 7.1, 15.0, 150.0, 10.7)
+    assert same.J == pytest.approx(FL.ishape(300.0, 150.0, 10.7, 7.1, 15.0).J, rel=1e-12)
