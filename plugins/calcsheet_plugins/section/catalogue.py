@@ -267,8 +267,30 @@ def entries() -> dict[str, Entry]:
     return table
 
 
+CF_SOURCE = ("EN 10219-2:2019 cold-formed hollow section of the designation's size; corner radii by the "
+             "standard's rule (no table shipped)")
+_CF = re.compile(r"CF(RHS|SHS)(\d+(?:_\d+)?)X(\d+(?:_\d+)?)X(\d+(?:_\d+)?)")
+
+
 def lookup(designation: str) -> Entry | None:
-    return entries().get(key(designation))
+    k = key(designation)
+    return entries().get(k) or _cold_formed(k)
+
+
+def _cold_formed(k: str) -> Entry | None:
+    """A cold-formed hollow section (EN 10219-2) of any size named ``CFRHS HxBxT`` or ``CFSHS BxBxT``: the
+    product standard's corner rule makes the model; there is no table to compare with."""
+    m = _CF.fullmatch(k)
+    if not m:
+        return None
+    h, b, t = (float(g.replace("_", ".")) for g in m.group(2, 3, 4))
+    if m.group(1) == "SHS" and h != b:
+        return None
+    name = f"CF{m.group(1)} {h:g}x{b:g}x{t:g}"
+    e = Entry(name, "CF" + m.group(1), "box-cf", CF_SOURCE, "corner_radii.toml")
+    e.dims.update(h=h, b=b, t=t)
+    e.values.update(d=h, b_f=b, t=t)
+    return e
 
 
 def nearest(designation: str, n: int = 5) -> list[str]:

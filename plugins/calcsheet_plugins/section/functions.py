@@ -348,7 +348,7 @@ COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), (
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
             ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
 # properties the model gives where the table gives dimensions only (UPN)
-MODEL_ONLY = ("A", "I_x", "I_y", "S_x", "S_y", "Z_x", "Z_y", "r_x", "r_y", "J", "C_w", "x_c")
+MODEL_ONLY = ("A", "I_x", "I_y", "S_x", "S_y", "Z_x", "Z_y", "r_x", "r_y", "J", "C_w", "x_c", "A_m")
 STEEL_DENSITY = 7850.0  # kg/m³, the density product standards use for nominal masses (# from memory, EN 10279)
 
 
@@ -379,6 +379,8 @@ def _model_note(entry) -> str:
         "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
                     "(AISC Manual, Part 1)",
         "box-en": "hot-finished hollow section, corner radii 1.5·t outside and 1.0·t inside (EN 10210-2:2019)",
+        "box-cf": "cold-formed hollow section, corner radii by the wall: outside 2·t, 2.5·t or 3·t for t ≤ 6 mm, "
+                  "6 < t ≤ 10 mm and t > 10 mm, inside one t less (EN 10219-2:2019)",
         "tube": "circular tube of the (design) wall t",
     }[m]
 
@@ -462,8 +464,8 @@ def _model_shape(work, entry, g, let, dims):
             return FL.angle(g["h"], g["b"], g["t"], g["r"])
         let("gap", g["gap"], "spacing between the backs of the angles")
         return FL.double_angle(g["h"], g["b"], g["t"], g["r"], g["gap"])
-    if m in ("box-aisc", "box-en"):
-        std = "AISC" if m == "box-aisc" else "EN 10210-2"
+    if m in ("box-aisc", "box-en", "box-cf"):
+        std = {"box-aisc": "AISC", "box-en": "EN 10210-2", "box-cf": "EN 10219-2"}[m]
         ro, ri = C.hollow_radii(std, g["t"])
         let("h", g["h"], "outside depth")
         let("b", g["b"], "outside width")
@@ -530,7 +532,7 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
         work.fail(f"no section '{designation}' in the catalogue", param="designation",
                   hint=("nearest: " + ", ".join(near)) if near else
                   "families: W, M, S, HP, C, MC, L, 2L, WT, MT, ST, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, UPN, CHS, "
-                  "SHS, RHS")
+                  "SHS, RHS; cold-formed CFRHS/CFSHS HxBxT of any size")
     work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}. Geometric model: "
               + _model_note(entry) + ". The record's fields take the table's values where the table gives "
               "them, the model's otherwise.", kind="method")
@@ -567,7 +569,7 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
         cells += [""] * (-len(cells) % 6)
         work.table(f"Properties of {entry.designation} from its geometric model (the table gives dimensions only)",
                    ["Property", "Model"] * 3, [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6,
-                   note="x_c: centroid from the back of the web.")
+                   note="x_c: centroid from the back of the web." if entry.model == "C-tapered" else None)
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
                   + ", ".join(worst), param="designation")

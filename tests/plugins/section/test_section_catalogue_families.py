@@ -230,3 +230,42 @@ def test_a_reference_axis_is_traced_from_the_records_own_values(run):
     f = rec.fields
     # parallel-axis theorem (common practice), with the table's I and A
     assert f["I_x_ref"].m_as("cm^4") == pytest.approx(8356 + 53.81 * 15.0**2, rel=1e-9)
+
+
+# ---------------------------------------------------------------- cold-formed hollow sections (EN 10219-2)
+
+@pytest.mark.parametrize("typed, found", [("CFRHS 150x100x6.3", "CFRHS 150x100x6.3"),
+                                          ("cfrhs150X100X6,3", "CFRHS 150x100x6.3"),
+                                          ("CFSHS 100x100x5", "CFSHS 100x100x5")])
+def test_cold_formed_designations_of_any_size(typed, found):
+    assert C.lookup(typed).designation == found
+
+
+def test_a_square_cold_formed_section_has_equal_sides():
+    assert C.lookup("CFSHS 100x80x5") is None
+
+
+@pytest.mark.parametrize("t, ro_t", [(5.0, 2.0), (6.3, 2.5), (8.0, 2.5), (12.5, 3.0)])
+def test_cold_formed_corner_radii_lie_mid_band_of_the_standards_tolerance(t, ro_t):
+    # EN 10219-2 external corner profile: 1.6t–2.4t (t ≤ 6 mm), 2.0t–3.0t (6 < t ≤ 10 mm), 2.4t–3.6t (t > 10 mm);
+    # the values for calculating properties are the middles, the inside radius one t less (# from memory, and
+    # the tolerance bands as a stored public page quotes them)
+    lo, hi = (1.6, 2.4) if t <= 6 else (2.0, 3.0) if t <= 10 else (2.4, 3.6)
+    ro, ri = C.hollow_radii("EN 10219-2", t)
+    assert ro == pytest.approx(ro_t * t) and ro / t == pytest.approx((lo + hi) / 2) and ri == pytest.approx(ro - t)
+
+
+def test_a_cold_formed_rhs_is_the_product_standards_area_and_its_nominal_mass(run):
+    _, rec = rolled(run, "CFRHS 150x100x6.3")
+    t, B, H = 6.3, 100.0, 150.0
+    ro, ri = 2.5 * t, 1.5 * t
+    # EN 10219-2 Annex B: A = 2t(B + H − 2t) − (4 − π)(r_o² − r_i²); mass at 7.85 kg/dm³
+    A = 2 * t * (B + H - 2 * t) - (4 - math.pi) * (ro**2 - ri**2)
+    assert rec.fields["A"].m_as("mm^2") == pytest.approx(A, rel=1e-5)
+    assert rec.fields["mass"].m_as("kg/m") == pytest.approx(7850 * A * 1e-6, rel=1e-5)
+    assert rec.fields["A_m"].m_as("mm^2") > 0 and "EN 10219-2" in rec.fields["source"]
+
+
+def test_an_impossible_cold_formed_size_is_a_located_error(run):
+    (e,) = errors(run('s = section.rolled(designation="CFRHS 100x100x60")\n'))
+    assert e.span.line == 1 and "wall" in e.message
