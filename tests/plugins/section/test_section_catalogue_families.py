@@ -269,3 +269,20 @@ def test_a_cold_formed_rhs_is_the_product_standards_area_and_its_nominal_mass(ru
 def test_an_impossible_cold_formed_size_is_a_located_error(run):
     (e,) = errors(run('s = section.rolled(designation="CFRHS 100x100x60")\n'))
     assert e.span.line == 1 and "wall" in e.message
+
+
+# ---------------------------------------------------------------- the demo sheet, by hand
+
+def test_the_catalogue_demo_sheets_stair_stringer_by_hand(run):
+    from pathlib import Path
+
+    text = (Path(__file__).parents[3] / "sheets" / "steel_catalogue_sections.calc").read_text(encoding="utf-8")
+    r = run(text)
+    assert not errors(r), r.diagnostics
+    v = r.values
+    # w = 1.35·0.6 + 1.5·1.8 = 3.51 kN/m; M = w·L²/8 = 3.51·3.2²/8 = 4.4928 kN·m (hand calculation)
+    assert v["M_s"].m_as("kN*m") == pytest.approx(3.51 * 3.2**2 / 8, rel=1e-12)
+    # W_el,y of UPN 200 = 191 cm³ (# from memory, producers' tables): M_el = 191e3 mm³ · 355 MPa ≈ 67.8 kN·m
+    assert v["M_el"].m_as("kN*m") == pytest.approx(191e3 * 355 / 1e6, rel=0.005)
+    # the platform beam's table values: IPE 300 W_pl,y = 628.4 cm³ → M_pl = 223.1 kN·m (EN 10365 row, as shipped)
+    assert v["M_pl"].m_as("kN*m") == pytest.approx(628.4e3 * 355 / 1e6, rel=1e-9)
