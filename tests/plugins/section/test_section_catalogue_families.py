@@ -286,3 +286,12 @@ def test_the_catalogue_demo_sheets_stair_stringer_by_hand(run):
     assert v["M_el"].m_as("kN*m") == pytest.approx(191e3 * 355 / 1e6, rel=0.005)
     # the platform beam's table values: IPE 300 W_pl,y = 628.4 cm³ → M_pl = 223.1 kN·m (EN 10365 row, as shipped)
     assert v["M_pl"].m_as("kN*m") == pytest.approx(628.4e3 * 355 / 1e6, rel=1e-9)
+
+
+@pytest.mark.parametrize("typed, near", [("2L4X4X1/2X1/2", "2L4X4X1/2X3/8"), ("ST12X54", "ST12X53"),
+                                         ("MT6X5.3", "MT6X5.4")])
+def test_an_unknown_designation_of_a_new_family_names_its_nearest(run, typed, near):
+    text = f's = section.rolled(designation="{typed}")\n'
+    (e,) = errors(run(text))
+    assert e.span.line == 1 and text[e.span.col - 1:].startswith("designation")
+    assert near in e.hint
