@@ -37,6 +37,7 @@ AISC_FLANGE_SLOPE = 2 / 12
 # UPN (DIN 1026-1): 8 % for h <= 300 mm, t_f at b/2 from the back of the web; 5 % above, t_f at the middle of the
 # outstand (# from memory; the same rule as structuralcodes 0.7.2 builds)
 UPN_SLOPES = ((300.0, 0.08, "half"), (float("inf"), 0.05, "outstand"))
+STEEL_DENSITY = 7850.0  # kg/m³, the density product standards use for nominal masses (# from memory, EN 10279)
 
 
 @dataclass
@@ -50,6 +51,7 @@ class Entry:
     values: dict[str, float] = field(default_factory=dict)  # field name -> value in the field's unit (mm…, kg/m)
     raw: dict[str, str] = field(default_factory=dict)  # the table row as printed, with its units
     units: dict[str, str] = field(default_factory=dict)
+    derived: dict[str, str] = field(default_factory=dict)  # values not in the table, computed here: name -> how
 
 
 def key(text: str) -> str:
@@ -208,6 +210,14 @@ def _upn_entries():
         u = g["b"] / 2 if at == "half" else (g["b"] - g["t_w"]) / 2
         e.dims.update(h=g["h"], b=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"], r_toe=g["r2"], slope=slope, u=u)
         e.values.update(d=g["h"], b_f=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"])
+        # the nominal mass, so a UPN can be ranked by weight (--from UPN): ρ·A of the model's own parts table
+        from .fillets import tapered_channel
+        from .properties import tabular
+
+        d = e.dims
+        A = tabular(tapered_channel(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u).rows).A
+        e.values["mass"] = STEEL_DENSITY * A * 1e-6
+        e.derived["mass"] = "ρ·A of the geometric model, steel at 7850 kg/m³"
         out.append(e)
     return out
 

@@ -349,7 +349,7 @@ COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), (
             ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
 # properties the model gives where the table gives dimensions only (UPN)
 MODEL_ONLY = ("A", "I_x", "I_y", "S_x", "S_y", "Z_x", "Z_y", "r_x", "r_y", "J", "C_w", "x_c", "A_m")
-STEEL_DENSITY = 7850.0  # kg/m³, the density product standards use for nominal masses (# from memory, EN 10279)
+STEEL_DENSITY = C.STEEL_DENSITY
 
 
 def _slope_text(g):
@@ -539,7 +539,7 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
               "them, the model's otherwise.", kind="method")
     compared = {name for name, _, _ in COMPARED}
     others = [(n, v) for n, v in entry.values.items() if n not in compared and n not in entry.dims
-              and not (n in ("d", "b_f", "t") and entry.model != "tube")]
+              and n not in entry.derived and not (n in ("d", "b_f", "t") and entry.model != "tube")]
     if others:
         cells = [c for n, v in others for c in (n, _published(entry, n, v))]
         cells += [""] * (-len(cells) % 6)
@@ -584,9 +584,9 @@ def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
                   "properties.", kind="method")
     work.working.items.extend(after)
     for name, v in entry.values.items():
-        u = UNITS.get(name) or OPT_UNITS.get(name)
-        out[name] = _q(v, u)
-    if "mass" not in entry.values:
+        if name not in entry.derived:
+            out[name] = _q(v, UNITS.get(name) or OPT_UNITS.get(name))
+    if "mass" not in entry.values or "mass" in entry.derived:
         work.scope["rho_s"] = U.registry().Quantity(STEEL_DENSITY, unit("kg/m^3"))
         work.calc("mass", "rho_s*A", unit="kg/m", desc="nominal mass per length, steel at ρ = 7850 kg/m³")
         out["mass"] = work["mass"].to(unit("kg/m"))

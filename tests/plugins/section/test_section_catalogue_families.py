@@ -295,3 +295,15 @@ def test_an_unknown_designation_of_a_new_family_names_its_nearest(run, typed, ne
     (e,) = errors(run(text))
     assert e.span.line == 1 and text[e.span.col - 1:].startswith("designation")
     assert near in e.hint
+
+
+def test_upn_channels_can_be_ranked_by_weight_for_sizing():
+    # the nominal mass of each UPN is ρ·A of its model (no table ships it): UPN 200 25.3 kg/m, UPN 400 71.8 kg/m
+    # (DIN 1026-1, # from memory); the sizing search ranks the family lightest first
+    from calcsheet.schedule.sizing import family_sections
+
+    ranked = family_sections("UPN")
+    assert ranked[0][0] == "UPN 50" and len(ranked) == 18
+    masses = dict((name, m) for name, m, _ in ranked)
+    assert masses["UPN 200"] == pytest.approx(25.3, rel=0.005) and masses["UPN 400"] == pytest.approx(71.8, rel=0.005)
+    assert [m for _, m, _ in ranked] == sorted(m for _, m, _ in ranked)
