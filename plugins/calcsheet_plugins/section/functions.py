@@ -437,8 +437,10 @@ def _model_shape(work, entry, g, let, dims):
                                                    if m.endswith("tapered") else "")),
                      ("t_w", "web thickness")):
             let(n, g[n], d)
+        derived = aisc and m.endswith("tapered")  # r computed here: shown to four digits, not as if tabulated
         let("r", g.get("r", 0.0), "root radius" + ((" (from k_des and the taper)" if m.endswith("tapered")
-                                                    else " (k_des − t_f)") if aisc else ""))
+                                                    else " (k_des − t_f)") if aisc else ""),
+            shown=_model_cell(entry, "r", g.get("r", 0.0), 4) if derived else None)
         if m.endswith("tapered"):
             work.scope["slope"] = U.registry().Quantity(g["slope"], "")
             dims.append(("slope", _slope_text(g), "slope of the inner flange faces"))
@@ -501,11 +503,11 @@ def _silent_report(work, shape):
     return out, kept
 
 
-def _model_cell(entry, name, value) -> str:
+def _model_cell(entry, name, value, digits: int = 5) -> str:
     """A model value in the table's unit, one significant digit more than tables print (5)."""
     u = _table_unit(entry, name)
     v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
-    text = f"{v:.5g}"
+    text = f"{v:.{digits}g}"
     if "e" in text:
         mant, exp = text.split("e")
         text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
