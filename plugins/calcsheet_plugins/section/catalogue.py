@@ -20,8 +20,8 @@ LB_FT = 0.45359237 / 0.3048  # kg/m per lb/ft
 AISC_SOURCE = "AISC Shapes Database v16.0 (American Institute of Steel Construction)"
 EN_I_SOURCE = "European I and H sections, dimensions to EN 10365:2017 (values as tabulated by eurocodepy 2026.1.1)"
 EN_HOLLOW_SOURCE = "EN 10210-2:2019 hot-finished hollow sections (values as tabulated by eurocodepy 2026.1.1)"
-UPN_SOURCE = ("European taper-flange channels UPN, dimensions to DIN 1026-1 (as tabulated by structuralcodes 0.7.2, "
-              "fib)")
+UPN_SOURCE = ("European taper-flange channels UPN, dimensions to DIN 1026-1:2009 (as tabulated by "
+              "structuralcodes 0.7.2, fib)")
 
 # family -> (file, kind of geometric model)
 AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": ("HP", "I"), "C": ("C", "C-tapered"),
