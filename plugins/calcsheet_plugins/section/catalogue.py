@@ -20,29 +20,38 @@ LB_FT = 0.45359237 / 0.3048  # kg/m per lb/ft
 AISC_SOURCE = "AISC Shapes Database v16.0 (American Institute of Steel Construction)"
 EN_I_SOURCE = "European I and H sections, dimensions to EN 10365:2017 (values as tabulated by eurocodepy 2026.1.1)"
 EN_HOLLOW_SOURCE = "EN 10210-2:2019 hot-finished hollow sections (values as tabulated by eurocodepy 2026.1.1)"
+UPN_SOURCE = ("European taper-flange channels UPN, dimensions to DIN 1026-1:2009 (as tabulated by "
+              "structuralcodes 0.7.2, fib)")
 
 # family -> (file, kind of geometric model)
 AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": ("HP", "I"), "C": ("C", "C-tapered"),
               "MC": ("MC", "C"), "L": ("L", "L"), "WT": ("WT", "T"), "HSS": ("HSS_rect", "box-aisc"),
-              "HSS_R": ("HSS_round", "tube"), "PIPE": ("Pipe", "tube")}
+              "HSS_R": ("HSS_round", "tube"), "PIPE": ("Pipe", "tube"), "MT": ("MT", "T"), "ST": ("ST", "T-tapered"),
+              "2L": ("2L", "2L")}
 
 
-# S shapes and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness
-# (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size: modelled with parallel flanges.
+# S shapes, ST tees and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness, at the
+# middle of the outstand (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size and are not
+# tabulated: modelled with parallel flanges.
 AISC_FLANGE_SLOPE = 2 / 12
+# UPN (DIN 1026-1): 8 % for h <= 300 mm, t_f at b/2 from the back of the web; 5 % above, t_f at the middle of the
+# outstand (# from memory; the same rule as structuralcodes 0.7.2 builds)
+UPN_SLOPES = ((300.0, 0.08, "half"), (float("inf"), 0.05, "outstand"))
+STEEL_DENSITY = 7850.0  # kg/m³, the density product standards use for nominal masses (# from memory, EN 10279)
 
 
 @dataclass
 class Entry:
     designation: str  # as printed
     family: str
-    model: str  # "I", "T", "L", "box-aisc", "box-en", "tube", "I-tapered", "C-tapered"
+    model: str  # "I", "T", "L", "box-aisc", "box-en", "tube", "I-tapered", "C-tapered", "T-tapered", "2L"
     source: str
     file: str
     dims: dict[str, float] = field(default_factory=dict)  # mm: h, b, t_f, t_w, r, t, k
     values: dict[str, float] = field(default_factory=dict)  # field name -> value in the field's unit (mm…, kg/m)
     raw: dict[str, str] = field(default_factory=dict)  # the table row as printed, with its units
     units: dict[str, str] = field(default_factory=dict)
+    derived: dict[str, str] = field(default_factory=dict)  # values not in the table, computed here: name -> how
 
 
 def key(text: str) -> str:
@@ -68,6 +77,10 @@ def _fraction_name(token: str) -> str:
 
 
 def _aisc_name(raw: str, family: str) -> str:
+    if family == "2L":
+        m = re.fullmatch(r"DBL_(L[\d_]+X[\d_]+X[\d_]+)(?:X([\d_]+))?(LLBB|SLBB)?", raw)
+        name = "2" + _aisc_name(m.group(1), "L")
+        return name + (f"X{_fraction_name(m.group(2))}" if m.group(2) else "") + (m.group(3) or "")
     if family in ("HSS", "L", "PIPE"):
         if family == "PIPE":
             m = re.fullmatch(r"Pipe([\d_]+)(STD|XS|XXS)", raw)
@@ -120,15 +133,27 @@ def _aisc_entries():
             put("r_ts", "rts", IN)
             put("h_o", "ho", IN)
             put("mass", "weight", LB_FT)
-            if model in ("I", "I-tapered", "C-tapered", "C", "T"):
+            if model in ("I", "I-tapered", "C-tapered", "C", "T", "T-tapered"):
                 put("d", "d", IN)
                 put("b_f", "bf", IN)
                 put("t_f", "tf", IN)
                 put("t_w", "tw", IN)
                 put("k", "k", IN)
                 dims.update(h=g["d"] * IN, b=g["bf"] * IN, t_f=g["tf"] * IN, t_w=g["tw"] * IN)
-                if g.get("k") is not None:
+                if model.endswith("tapered"):
+                    # k_des reaches the fillet's toe on the web: past the flange's root thickness (the taper adds
+                    # slope·outstand/2 to t_f there) by the fillet's tangent length
+                    o = (g["bf"] - g["tw"]) / (1 if model == "C-tapered" else 2)
+                    dims.update(slope=AISC_FLANGE_SLOPE)
+                    dims["r"] = _root_radius(g["k"] * IN, (g["tf"] + AISC_FLANGE_SLOPE * o / 2) * IN,
+                                             AISC_FLANGE_SLOPE)
+                elif g.get("k") is not None:
                     dims["r"] = max(g["k"] - g["tf"], 0.0) * IN  # k_des = t_f + r
+            elif model == "2L":
+                put("d", "d", IN)
+                put("b_f", "b", IN)
+                put("t", "t", IN)
+                dims.update(h=g["d"] * IN, b=g["b"] * IN, t=g["t"] * IN, gap=_gap(raw) * IN, single=_single(raw))
             elif model == "L":
                 # the file's 'b' column is the leg along y (I_x = 69.7 in⁴ of L8X4X1 belongs to its 8 in leg
                 # upright), its 'd' column the leg along x
@@ -147,6 +172,53 @@ def _aisc_entries():
                 put("t", "tdes", IN)
                 dims.update(d=g["OD"] * IN, t=g["tdes"] * IN)
             out.append(e)
+    singles = {e.raw["shape"]: e for e in out if e.family == "L"}
+    for e in out:
+        if e.family == "2L":  # the root radius of the single angle's row (the double-angle table has no k)
+            L = singles[e.dims.pop("single")]
+            e.dims["r"] = L.dims["r"]
+    return out
+
+
+def _root_radius(k, t_root, slope):
+    from .fillets import root_radius_from_k
+
+    return root_radius_from_k(k, t_root, slope)
+
+
+def _gap(raw: str) -> float:
+    """The back-to-back spacing of a double angle, in inches, from its name (DBL_L6X4X1_2X3_8LLBB: 3/8)."""
+    parts = re.sub(r"(LLBB|SLBB)$", "", raw).split("X")
+    if len(parts) < 4:
+        return 0.0
+    nums = [float(n) for n in parts[3].split("_")]
+    return nums[0] / nums[1] if len(nums) == 2 else nums[0] + nums[1] / nums[2] if len(nums) == 3 else nums[0]
+
+
+def _single(raw: str) -> str:
+    return "X".join(re.sub(r"(LLBB|SLBB)$", "", raw)[4:].split("X")[:3])
+
+
+def _upn_entries():
+    out = []
+    path = HERE / "en_upn.csv"
+    for row in _rows(path):
+        g = {k: float(v) for k, v in row.items() if k != "section"}
+        name = "UPN " + row["section"][3:]
+        e = Entry(name, "UPN", "C-tapered", UPN_SOURCE, path.name, raw=dict(row))
+        slope, at = next((s, a) for hmax, s, a in UPN_SLOPES if g["h"] <= hmax)
+        u = g["b"] / 2 if at == "half" else (g["b"] - g["t_w"]) / 2
+        e.dims.update(h=g["h"], b=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"], r_toe=g["r2"], slope=slope, u=u)
+        e.values.update(d=g["h"], b_f=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"])
+        # the nominal mass, so a UPN can be ranked by weight (--from UPN): ρ·A of the model's own parts table
+        from .fillets import tapered_channel
+        from .properties import tabular
+
+        d = e.dims
+        A = tabular(tapered_channel(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u).rows).A
+        e.values["mass"] = STEEL_DENSITY * A * 1e-6
+        e.derived["mass"] = "ρ·A of the geometric model, steel at 7850 kg/m³"
+        out.append(e)
     return out
 
 
@@ -200,13 +272,35 @@ def _en_entries():
 def entries() -> dict[str, Entry]:
     """Every catalogue row by its matching key (read once; the files are read-only package data)."""
     table: dict[str, Entry] = {}
-    for e in _aisc_entries() + _en_entries():
+    for e in _aisc_entries() + _en_entries() + _upn_entries():
         table.setdefault(key(e.designation), e)
     return table
 
 
+CF_SOURCE = ("EN 10219-2:2019 cold-formed hollow section of the designation's size; corner radii by the "
+             "standard's rule (no table shipped)")
+_CF = re.compile(r"CF(RHS|SHS)(\d+(?:_\d+)?)X(\d+(?:_\d+)?)X(\d+(?:_\d+)?)")
+
+
 def lookup(designation: str) -> Entry | None:
-    return entries().get(key(designation))
+    k = key(designation)
+    return entries().get(k) or _cold_formed(k)
+
+
+def _cold_formed(k: str) -> Entry | None:
+    """A cold-formed hollow section (EN 10219-2) of any size named ``CFRHS HxBxT`` or ``CFSHS BxBxT``: the
+    product standard's corner rule makes the model; there is no table to compare with."""
+    m = _CF.fullmatch(k)
+    if not m:
+        return None
+    h, b, t = (float(g.replace("_", ".")) for g in m.group(2, 3, 4))
+    if m.group(1) == "SHS" and h != b:
+        return None
+    name = f"CF{m.group(1)} {h:g}x{b:g}x{t:g}"
+    e = Entry(name, "CF" + m.group(1), "box-cf", CF_SOURCE, "corner_radii.toml")
+    e.dims.update(h=h, b=b, t=t)
+    e.values.update(d=h, b_f=b, t=t)
+    return e
 
 
 def nearest(designation: str, n: int = 5) -> list[str]:

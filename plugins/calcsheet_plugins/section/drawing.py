@@ -22,11 +22,12 @@ def _fmt(v: float) -> str:
     return f"{v:.4g}"
 
 
-def draw(shape, vals: dict) -> str:
+def draw(shape, vals: dict, box: tuple[float, float] = (BOX_W, BOX_H)) -> str:
+    """Legend swatches sit top-right; the x-axis label clears the y_c dimension at two levels out. ``box`` is the
+    largest size (px) of the section itself, margins apart (text keeps its size)."""
     x0, x1, y0, y1 = vals["x_min"], vals["x_max"], vals["y_min"], vals["y_max"]
-    """Legend swatches sit top-right; the x-axis label clears the y_c dimension at two levels out."""
     W, H = max(x1 - x0, 1e-9), max(y1 - y0, 1e-9)
-    s = min(BOX_W / W, BOX_H / H)
+    s = min(box[0] / W, box[1] / H)
     width = MARGIN_L + W * s + MARGIN_R
     height = MARGIN_T + H * s + MARGIN_B
     svg = Svg(width, height, title=shape.label.split(" #")[0], css_class="figure section-figure")

@@ -103,34 +103,69 @@ def _dj(h, b, t_f, t_w, r):
     return 2 / 3 * b * t_f**3 + (h - 2 * t_f) * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
 
 
-def ishape(h: float, b: float, t_f: float, t_w: float, r: float) -> Shape:
-    """Doubly symmetric rolled I (parallel flanges) with four root fillets of radius r."""
-    _positive(h=h, b=b, t_f=t_f, t_w=t_w, r=r)
-    if 2 * t_f >= h:
-        raise ShapeError(f"flanges (2 × {_fmt(t_f)} mm) leave no web in the depth h = {_fmt(h)} mm", "t_f")
-    warnings = _web_checks(t_w, b, t_f)
-    if t_w + 2 * r > b or 2 * t_f + 2 * r > h:
+DJ_UNEQUAL_METHOD = ("rolled I with unequal flanges and root fillets: each flange b·t³/3 − 0.21·t⁴, the web "
+                     "(h − t_f − t_fb)·t_w³/3, and one El Darwish & Johnston (1965) junction term α·D⁴ per flange "
+                     "(with equal flanges this is their I-section formula)")
+DJ_UNEQUAL_STEPS = [
+    Step("alpha_t", "-0.042 + 0.2204*t_w/t_f + 0.1355*r/t_f - 0.0865*r*t_w/t_f^2 - 0.0725*t_w^2/t_f^2", "",
+         "fillet coefficient α, top junction (El Darwish & Johnston)"),
+    Step("D_t", "((t_f + r)^2 + (r + t_w/4)*t_w)/(2*r + t_f)", "mm", "inscribed circle, top junction"),
+    Step("alpha_b", "-0.042 + 0.2204*t_w/t_fb + 0.1355*r/t_fb - 0.0865*r*t_w/t_fb^2 - 0.0725*t_w^2/t_fb^2", "",
+         "fillet coefficient α, bottom junction"),
+    Step("D_b", "((t_fb + r)^2 + (r + t_w/4)*t_w)/(2*r + t_fb)", "mm", "inscribed circle, bottom junction"),
+    Step("J", "b*t_f^3/3 - 0.21*t_f^4 + b_bot*t_fb^3/3 - 0.21*t_fb^4 + (h - t_f - t_fb)*t_w^3/3 + alpha_t*D_t^4 "
+              "+ alpha_b*D_b^4", "mm^4", "torsion constant, rolled I with unequal flanges and fillets"),
+]
+
+
+def ishape(h: float, b: float, t_f: float, t_w: float, r: float, b_bot: float | None = None,
+           t_fb: float | None = None) -> Shape:
+    """Rolled I (parallel flanges) with four root fillets of radius r; equal flanges, or a bottom flange b_bot ×
+    t_fb of its own (monosymmetric)."""
+    _positive(h=h, b=b, t_f=t_f, t_w=t_w, r=r, b_bot=b_bot, t_fb=t_fb)
+    unequal = b_bot is not None or t_fb is not None
+    bb = b_bot if b_bot is not None else b
+    tb = t_fb if t_fb is not None else t_f
+    if t_f + tb >= h:
+        raise ShapeError(f"flanges ({_fmt(t_f)} + {_fmt(tb)} mm) leave no web in the depth h = {_fmt(h)} mm", "t_f")
+    warnings = _web_checks(t_w, min(b, bb), min(t_f, tb))
+    if t_w + 2 * r > min(b, bb) or t_f + tb + 2 * r > h:
         raise ShapeError(f"root radius r = {_fmt(r)} mm does not fit between the flanges and the web", "r")
-    xc = b / 2
-    hw = h - 2 * t_f
+    W = max(b, bb)
+    xc = W / 2
+    hw = h - t_f - tb
     xl, xr = xc - t_w / 2, xc + t_w / 2
-    rows = [_rect_row("top flange", 0, h - t_f, b, t_f), _rect_row("web", xl, t_f, t_w, hw),
-            _rect_row("bottom flange", 0, 0, b, t_f),
+    rows = [_rect_row("top flange", xc - b / 2, h - t_f, b, t_f), _rect_row("web", xl, tb, t_w, hw),
+            _rect_row("bottom flange", xc - bb / 2, 0, bb, tb),
             spandrel_row("fillet, top right", xr, h - t_f, r, 1, -1),
             spandrel_row("fillet, top left", xl, h - t_f, r, -1, -1),
-            spandrel_row("fillet, bottom right", xr, t_f, r, 1, 1),
-            spandrel_row("fillet, bottom left", xl, t_f, r, -1, 1)]
-    pts = [(0, 0), (b, 0), (b, t_f), (xr, t_f), (xr, h - t_f), (b, h - t_f), (b, h), (0, h), (0, h - t_f),
-           (xl, h - t_f), (xl, t_f), (0, t_f)]
+            spandrel_row("fillet, bottom right", xr, tb, r, 1, 1),
+            spandrel_row("fillet, bottom left", xl, tb, r, -1, 1)]
+    pts = [(xc - bb / 2, 0), (xc + bb / 2, 0), (xc + bb / 2, tb), (xr, tb), (xr, h - t_f), (xc + b / 2, h - t_f),
+           (xc + b / 2, h), (xc - b / 2, h), (xc - b / 2, h - t_f), (xl, h - t_f), (xl, tb), (xc - bb / 2, tb)]
     radii = [0, 0, 0, r, r, 0, 0, 0, 0, r, r, 0]
-    alpha, D = dj_alpha_D(t_f, t_w, r)
-    J = 2 / 3 * b * t_f**3 + hw * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
+    dims = [Dimension(xc - b / 2, h, xc + b / 2, h, _fmt(b), 1), Dimension(xc - W / 2, h, xc - W / 2, 0, _fmt(h), -1),
+            Dimension(xc + b / 2, h - t_f, xc + b / 2, h, _fmt(t_f), -1)]
+    label = f"rolled I h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+    if not unequal:
+        alpha, D = dj_alpha_D(t_f, t_w, r)
+        J = 2 / 3 * b * t_f**3 + hw * t_w**3 / 3 + 2 * alpha * D**4 - 0.420 * t_f**4
+        return Shape(
+            "ishape", label + " mm", rows, [_ring(pts, radii)], J=J, J_method=DJ_METHOD, J_steps=list(DJ_STEPS),
+            dims=dims, has_arcs=True, warnings=warnings, warping=WP.doubly_symmetric_I(), symmetry="double",
+        )
+    (at, Dt), (ab, Db) = dj_alpha_D(t_f, t_w, r), dj_alpha_D(tb, t_w, r)
+    J = b * t_f**3 / 3 - 0.21 * t_f**4 + bb * tb**3 / 3 - 0.21 * tb**4 + hw * t_w**3 / 3 + at * Dt**4 + ab * Db**4
+    pre = []
+    if b_bot is None:
+        pre.append(Step("b_bot", "b", "mm", "bottom flange width (as the top)"))
+    if t_fb is None:
+        pre.append(Step("t_fb", "t_f", "mm", "bottom flange thickness (as the top)"))
     return Shape(
-        "ishape", f"rolled I h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm", rows,
-        [_ring(pts, radii)], J=J, J_method=DJ_METHOD, J_steps=list(DJ_STEPS),
-        dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1),
-              Dimension(b, h - t_f, b, h, _fmt(t_f), -1)],
-        has_arcs=True, warnings=warnings, warping=WP.doubly_symmetric_I(), symmetry="double",
+        "ishape", label + f" b_bot={_fmt(bb)} t_fb={_fmt(tb)} mm", rows, [_ring(pts, radii)], J=J,
+        J_method=DJ_UNEQUAL_METHOD, J_steps=list(DJ_UNEQUAL_STEPS), pre_steps=pre,
+        dims=dims + [Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1)], has_arcs=True, warnings=warnings,
+        warping=WP.unequal_I(), symmetry="vertical",
     )
 
 
@@ -314,29 +349,56 @@ def corner_rows(name, p, prev, nxt, r, sign=1) -> list[Row]:
             sector_row(f"{name} (sector)", c, r, a1 + d / 2, abs(d), -sign)]
 
 
-def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: float) -> Shape:
-    """Rolled I with tapered flanges (inner faces at ``slope``, t_f the mean thickness, reached at the middle of
-    the outstand) and root fillets r; toe radii not modelled."""
+def _taper(t_f, o, slope, u):
+    """(toe, root) thickness of a flange of outstand o whose inner face slopes at ``slope``, t_f measured at u
+    from the toe."""
+    return t_f - slope * u, t_f + slope * (o - u)
+
+
+def root_radius_from_k(k: float, t_root: float, slope: float) -> float:
+    """The root radius r whose fillet, tangent to the web and to a flange face sloping at ``slope``, meets the web
+    at k from the outer face of the flange, the flange being t_root thick at the web face.
+
+    The fillet's tangent length along the web is L = r·tan((π/2 − atan s)/2) (half the supplement of the corner's
+    angle π/2 + atan s), so r = (k − t_root)/tan(π/4 − atan(s)/2)."""
+    return max(k - t_root, 0.0) / math.tan(math.pi / 4 - math.atan(slope) / 2)
+
+
+def _toe_rows(name, pts, k, r, sign=-1):
+    n = len(pts)
+    return corner_rows(name, pts[k], pts[k - 1], pts[(k + 1) % n], r, sign)
+
+
+def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                   u: float | None = None) -> Shape:
+    """Rolled I with tapered flanges: inner faces at ``slope``, t_f measured at u from the toe (default the middle
+    of the outstand), root fillets r and toe radii r_toe (0: sharp toes)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = (b - t_w) / 2
-    t_toe, t_root = t_f - slope * o / 2, t_f + slope * o / 2
-    if t_toe <= 0 or 2 * t_root >= h:
+    u = o / 2 if u is None else u
+    t_toe, t_root = _taper(t_f, o, slope, u)
+    if t_toe <= 0 or 2 * t_root >= h or not 0 <= u <= o:
         raise ShapeError("the tapered flanges do not fit these dimensions", "t_f")
+    if r_toe < 0 or r_toe >= t_toe:
+        raise ShapeError(f"toe radius {_fmt(r_toe)} mm does not fit the flange toe ({_fmt(t_toe)} mm)", "r_toe")
     xl, xr = (b - t_w) / 2, (b + t_w) / 2
     pts = [(0, 0), (b, 0), (b, t_toe), (xr, t_root), (xr, h - t_root), (b, h - t_toe), (b, h), (0, h), (0, h - t_toe),
            (xl, h - t_root), (xl, t_root), (0, t_toe)]
-    radii = [0, 0, 0, r, r, 0, 0, 0, 0, r, r, 0]
+    radii = [0, 0, r_toe, r, r, r_toe, 0, 0, r_toe, r, r, r_toe]
     rows = [_rect_row("bottom flange, toe thickness", 0, 0, b, t_toe), _rect_row("top flange, toe thickness", 0, h - t_toe, b, t_toe),
             _rect_row("web", xl, t_toe, t_w, h - 2 * t_toe)]
     for side, (x0, x1) in (("right", (xr, b)), ("left", (xl, 0))):
         rows.append(triangle_row(f"bottom taper, {side}", (x0, t_toe), (x1, t_toe), (x0, t_root)))
         rows.append(triangle_row(f"top taper, {side}", (x0, h - t_toe), (x1, h - t_toe), (x0, h - t_root)))
-    n = len(pts)
     if r > 0:
         for k in (3, 4, 9, 10):
-            rows += corner_rows(f"fillet {k}", pts[k], pts[k - 1], pts[(k + 1) % n], r)
+            rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+    if r_toe > 0:
+        for k in (2, 5, 8, 11):
+            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
     return Shape(
-        "ishape", f"rolled I, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm",
+        "ishape", f"rolled I, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+                  + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm",
         rows, [make_ring(rounded_any(pts, radii))], J=_dj(h, b, t_f, t_w, r),
         J_method=DJ_METHOD + ", with the flanges at their mean thickness t_f", J_steps=list(DJ_STEPS),
         dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1)],
@@ -344,25 +406,33 @@ def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: 
     )
 
 
-def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float) -> Shape:
-    """Channel with tapered flanges (t_f the mean thickness, at the middle of the outstand b − t_w), web on the
-    left, root fillets r; toe radii not modelled."""
+def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                    u: float | None = None) -> Shape:
+    """Channel with tapered flanges, web on the left: inner faces at ``slope``, t_f measured at u from the toe
+    (default the middle of the outstand b − t_w), root fillets r and toe radii r_toe (0: sharp toes)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = b - t_w
-    t_toe, t_root = t_f - slope * o / 2, t_f + slope * o / 2
-    if t_toe <= 0 or 2 * t_root >= h:
+    u = o / 2 if u is None else u
+    t_toe, t_root = _taper(t_f, o, slope, u)
+    if t_toe <= 0 or 2 * t_root >= h or not 0 <= u <= b:
         raise ShapeError("the tapered flanges do not fit these dimensions", "t_f")
+    if r_toe < 0 or r_toe >= t_toe:
+        raise ShapeError(f"toe radius {_fmt(r_toe)} mm does not fit the flange toe ({_fmt(t_toe)} mm)", "r_toe")
     pts = [(0, 0), (b, 0), (b, t_toe), (t_w, t_root), (t_w, h - t_root), (b, h - t_toe), (b, h), (0, h)]
-    radii = [0, 0, 0, r, r, 0, 0, 0]
+    radii = [0, 0, r_toe, r, r, r_toe, 0, 0]
     rows = [_rect_row("web", 0, 0, t_w, h), _rect_row("bottom flange, toe thickness", t_w, 0, o, t_toe),
             _rect_row("top flange, toe thickness", t_w, h - t_toe, o, t_toe),
             triangle_row("bottom taper", (t_w, t_toe), (b, t_toe), (t_w, t_root)),
             triangle_row("top taper", (t_w, h - t_toe), (b, h - t_toe), (t_w, h - t_root))]
     if r > 0:
         for k in (3, 4):
-            rows += corner_rows(f"fillet {k}", pts[k], pts[k - 1], pts[(k + 1) % len(pts)], r)
+            rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+    if r_toe > 0:
+        for k in (2, 5):
+            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
     return Shape(
-        "channel", f"channel, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm",
+        "channel", f"channel, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+                   + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm",
         rows, [make_ring(rounded_any(pts, radii))], J=(2 * b * t_f**3 + (h - 2 * t_f) * t_w**3) / 3,
         J_method=THIN_OPEN_TAPER, J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4",
                                                 "torsion constant (thin-walled, mean flange thickness)")],
@@ -373,3 +443,69 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
 
 THIN_OPEN_TAPER = ("Saint-Venant's thin-walled open-section sum J = Σ b·t³/3 with the flanges at their mean "
                    "thickness (taper and fillets ignored in J)")
+
+
+def tapered_tee(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, u: float | None = None) -> Shape:
+    """Tee cut from a tapered-flange I (flange on top): inner flange faces at ``slope``, t_f measured at u from the
+    toe (default the middle of the outstand), two root fillets r; toe radii not modelled."""
+    _positive(h=h, b=b, t_f=t_f, t_w=t_w)
+    o = (b - t_w) / 2
+    u = o / 2 if u is None else u
+    t_toe, t_root = _taper(t_f, o, slope, u)
+    if t_toe <= 0 or t_root >= h or not 0 <= u <= o:
+        raise ShapeError("the tapered flange does not fit these dimensions", "t_f")
+    xl, xr = (b - t_w) / 2, (b + t_w) / 2
+    pts = [(xl, 0), (xr, 0), (xr, h - t_root), (b, h - t_toe), (b, h), (0, h), (0, h - t_toe), (xl, h - t_root)]
+    radii = [0, 0, r, 0, 0, 0, 0, r]
+    rows = [_rect_row("stem", xl, 0, t_w, h - t_toe), _rect_row("flange, toe thickness", 0, h - t_toe, b, t_toe),
+            triangle_row("taper, right", (xr, h - t_toe), (b, h - t_toe), (xr, h - t_root)),
+            triangle_row("taper, left", (xl, h - t_toe), (0, h - t_toe), (xl, h - t_root))]
+    if r > 0:
+        for k in (2, 7):
+            rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+    hs = h - t_f
+    alpha, D = dj_alpha_D(t_f, t_w, r)
+    J = b * t_f**3 / 3 - 0.21 * t_f**4 + hs * t_w**3 / 3 - 0.105 * t_w**4 + alpha * D**4
+    return Shape(
+        "tee", f"tee, tapered flange h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm", rows,
+        [make_ring(rounded_any(pts, radii))], J=J,
+        J_method="one flange-stem junction of a rolled I (El Darwish & Johnston 1965), the flange at its mean "
+                 "thickness t_f",
+        J_steps=[DJ_STEPS[0], DJ_STEPS[1],
+                 Step("J", "b*t_f^3/3 - 0.21*t_f^4 + (h - t_f)*t_w^3/3 - 0.105*t_w^4 + alpha_J*D_J^4", "mm^4",
+                      "torsion constant, tee with fillets")],
+        dims=[Dimension(0, h, b, h, _fmt(b), 1), Dimension(0, h, 0, 0, _fmt(h), -1)],
+        has_arcs=True, warping=WP.tee(), symmetry="vertical",
+    )
+
+
+def double_angle(h: float, b: float, t: float, r: float, gap: float) -> Shape:
+    """Two angles back to back, vertical legs h toward each other a ``gap`` apart, horizontal legs b outward at the
+    bottom, each with its root fillet r (toe radii not modelled)."""
+    _positive(h=h, b=b, t=t, r=r)
+    if gap < 0 or not math.isfinite(gap):
+        raise ShapeError(f"the gap between the angles must be zero or more (got {_fmt(gap)} mm)", "gap")
+    if t >= min(h, b):
+        raise ShapeError(f"leg thickness t = {_fmt(t)} mm is not less than the shorter leg {_fmt(min(h, b))} mm", "t")
+    if t + r > min(h, b):
+        raise ShapeError(f"root radius r = {_fmt(r)} mm does not fit on the legs", "r")
+    x0 = b + gap  # heel of the right angle; the left angle's heel is at x = b
+    rows = [_rect_row("right angle, vertical leg", x0, 0, t, h), _rect_row("right angle, horizontal leg", x0 + t, 0, b - t, t),
+            spandrel_row("right angle, root fillet", x0 + t, t, r, 1, 1),
+            _rect_row("left angle, vertical leg", b - t, 0, t, h), _rect_row("left angle, horizontal leg", 0, 0, b - t, t),
+            spandrel_row("left angle, root fillet", b - t, t, r, -1, 1)]
+    right = [(x0, 0), (x0 + b, 0), (x0 + b, t), (x0 + t, t), (x0 + t, h), (x0, h)]
+    left = [(0, 0), (b, 0), (b, h), (b - t, h), (b - t, t), (0, t)]
+    rings = [_ring(right, [0, 0, 0, r, 0, 0]), _ring(left, [0, 0, 0, 0, r, 0])]
+    return Shape(
+        "double angle", f"two angles {_fmt(h)}×{_fmt(b)}×{_fmt(t)} mm back to back, gap {_fmt(gap)} mm, r={_fmt(r)} mm",
+        rows, rings, J=2 * (h + b - t) * t**3 / 3,
+        J_method="Saint-Venant's thin-walled open-section sum over the four legs, J = 2·(h + b − t)·t³/3 "
+                 "(fillets ignored)",
+        J_steps=[Step("J", "2*(h + b - t)*t^3/3", "mm^4", "torsion constant (thin-walled open)")],
+        dims=[Dimension(0, 0, 2 * b + gap, 0, _fmt(2 * b + gap), -1), Dimension(0, h, 0, 0, _fmt(h), -1)],
+        has_arcs=True, symmetry="vertical",
+        warping=[Step("x_s", "b + gap/2", "mm", "shear centre, x (on the axis of symmetry)"),
+                 Step("y_s", "t/2", "mm", "shear centre, y: where the horizontal legs' mid-line meets the axis "
+                                        "of symmetry (as for a tee)")],
+    )

@@ -26,6 +26,7 @@ import numpy as np
 from dataclasses import replace
 
 from calcsheet.plugin import Field, Namespace, Param, Record
+from calcsheet.trace import Figure, Note
 from calcsheet import units as U
 
 from . import builtup as B
@@ -35,6 +36,8 @@ from .fields import ALIASES, OPT_UNITS, UNITS
 from . import shapes as S
 from .fields import section_fields
 from .report import _q, report, unit
+from . import drawing
+from .properties import properties
 
 namespace = Namespace(
     "section", version="0.1.0",
@@ -174,12 +177,11 @@ R = Param("r", L, "root radius of the fillets (rolled sections); none: sharp cor
                       Param("t_f", L, "top flange thickness"), Param("t_w", L, "web thickness"),
                       Param("b_bot", L, "bottom flange width (default b)", default=None),
                       Param("t_fb", L, "bottom flange thickness (default t_f)", default=None), R],
-           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r (equal flanges).")
+           "I-shape with equal flanges, or unequal ones via b_bot and t_fb; root fillets r.")
 def ishape(work, h, b, t_f, t_w, b_bot=None, t_fb=None, r=None, **common):
     if r is not None:
-        if b_bot is not None or t_fb is not None:
-            work.fail("root fillets are modelled on equal flanges only", param="r")
-        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r))), **common)
+        return _section(work, _build(work, lambda: FL.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(r), _mm(b_bot),
+                                                             _mm(t_fb))), **common)
     return _section(work, _build(work, lambda: S.ishape(_mm(h), _mm(b), _mm(t_f), _mm(t_w), _mm(b_bot), _mm(t_fb))),
                     **common)
 
@@ -345,21 +347,42 @@ def built_up(work, parts, E_ref=None, x_ref=None, y_ref=None, detail="full"):
 COMPARED = (("A", "mm^2", 0.01), ("I_x", "mm^4", 0.01), ("I_y", "mm^4", 0.01), ("S_x", "mm^3", 0.01),
             ("S_y", "mm^3", 0.01), ("Z_x", "mm^3", 0.01), ("Z_y", "mm^3", 0.01), ("r_x", "mm", 0.01),
             ("r_y", "mm", 0.01), ("J", "mm^4", 0.02), ("C_w", "mm^6", 0.02), ("r_o", "mm", 0.02))
-_MODEL_NOTE = {
-    "I": "rolled I with parallel flanges and four root fillets of radius r",
-    "I-tapered": "I with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, and "
-                 "four root fillets r (toe radii not modelled)",
-    "C-tapered": "channel with tapered flanges, inner faces at 2 in 12 (16-2/3 %) and t_f their mean thickness, "
-                 "and two root fillets r (toe radii not modelled)",
-    "C": "channel with parallel flanges of the tabulated t_f and two root fillets r (an MC's own flange slope, "
-         "which varies by size, is not modelled)",
-    "T": "tee cut from a rolled I, two root fillets of radius r",
-    "L": "angle with a root fillet of radius r (toe radii not modelled)",
-    "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
-                "(AISC Manual, Part 1)",
-    "box-en": "hot-finished hollow section, corner radii 1.5·t outside and 1.0·t inside (EN 10210-2:2019)",
-    "tube": "circular tube of the (design) wall t",
-}
+# properties the model gives where the table gives dimensions only (UPN)
+MODEL_ONLY = ("A", "I_x", "I_y", "S_x", "S_y", "Z_x", "Z_y", "r_x", "r_y", "J", "C_w", "x_c", "A_m")
+STEEL_DENSITY = C.STEEL_DENSITY
+
+
+def _slope_text(g):
+    return f"{100 * g['slope']:.4g} %"
+
+
+def _model_note(entry) -> str:
+    m, g = entry.model, entry.dims
+    if m == "I":
+        return "rolled I with parallel flanges and four root fillets of radius r"
+    if m in ("I-tapered", "C-tapered", "T-tapered"):
+        what = {"I-tapered": "I with tapered flanges", "C-tapered": "channel with tapered flanges",
+                "T-tapered": "tee cut from a tapered-flange I"}[m]
+        where = ("t_f measured b/2 from the back of the web" if entry.family == "UPN" and g["u"] == g["b"] / 2
+                 else "t_f their mean thickness, at the middle of the outstand")
+        toes = "toe radii r_toe" if g.get("r_toe") else "toe radii not modelled (not tabulated)"
+        root = "root fillets r" + (" from k_des (k_des − root thickness of the flange = the fillet's tangent "
+                                   "length on the web)" if entry.source == C.AISC_SOURCE else "")
+        return f"{what}, inner faces sloping {_slope_text(g)}, {where}; {root}; {toes}"
+    return {
+        "C": "channel with parallel flanges of the tabulated t_f and two root fillets r (an MC's own flange slope, "
+             "which varies by size and is not tabulated, is not modelled)",
+        "T": "tee cut from a rolled I, two root fillets of radius r",
+        "L": "angle with a root fillet of radius r (toe radii not modelled)",
+        "2L": "two angles back to back at the designation's spacing, each with its root fillet r from the single "
+              "angle's k_des (toe radii not modelled)",
+        "box-aisc": "rectangular HSS of the design wall t = t_des, corner radii 2·t outside and t inside "
+                    "(AISC Manual, Part 1)",
+        "box-en": "hot-finished hollow section, corner radii 1.5·t outside and 1.0·t inside (EN 10210-2:2019)",
+        "box-cf": "cold-formed hollow section, corner radii by the wall: outside 2·t, 2.5·t or 3·t for t ≤ 6 mm, "
+                  "6 < t ≤ 10 mm and t > 10 mm, inside one t less (EN 10219-2:2019)",
+        "tube": "circular tube of the (design) wall t",
+    }[m]
 
 
 _TABLE_UNITS = {"mm": ("in", "mm"), "mm^2": ("in^2", "cm^2"), "mm^3": ("in^3", "cm^3"), "mm^4": ("in^4", "cm^4"),
@@ -370,7 +393,7 @@ def _table_unit(entry, name):
     """The unit the table prints ``name`` in: inches and lb/ft (AISC); mm, cm², cm⁴… and radii of gyration in cm
     (European tables)."""
     aisc = entry.source == C.AISC_SOURCE
-    if not aisc and name in ("r_x", "r_y", "r_min"):
+    if not aisc and name in ("r_x", "r_y", "r_min", "x_c"):
         return "cm"
     return _TABLE_UNITS[OPT_UNITS.get(name) or UNITS[name]][0 if aisc else 1]
 
@@ -393,9 +416,9 @@ def _model(work, entry):
     g = entry.dims
     dims = []
 
-    def let(n, v, d):  # the model's dimensions, from the row: one table, bound for the formulas below
+    def let(n, v, d, shown=None):  # the model's dimensions, from the row: one table, bound for the formulas below
         work.scope[n] = _q(v, "mm")
-        dims.append((n, _published(entry, n if n not in ("h", "b") else {"h": "d", "b": "b_f"}[n], v), d))
+        dims.append((n, shown or _published(entry, {"h": "d", "b": "b_f", "r_toe": "r", "gap": "t"}.get(n, n), v), d))
 
     shape = _model_shape(work, entry, g, let, dims)
     cells = [c for n, v, d in dims for c in (n, v, d)]
@@ -407,28 +430,45 @@ def _model(work, entry):
 
 def _model_shape(work, entry, g, let, dims):
     m = entry.model
-    if m in ("I", "I-tapered", "C-tapered", "C", "T"):
-        for n, d in (("h", "overall depth"), ("b", "flange width"), ("t_f", "flange thickness"),
+    aisc = entry.source == C.AISC_SOURCE
+    if m in ("I", "I-tapered", "C-tapered", "C", "T", "T-tapered"):
+        for n, d in (("h", "overall depth"), ("b", "flange width"),
+                     ("t_f", "flange thickness" + ((" (mean)" if aisc else " (at its reference point)")
+                                                   if m.endswith("tapered") else "")),
                      ("t_w", "web thickness")):
             let(n, g[n], d)
-        let("r", g.get("r", 0.0), "root radius" + (" (k_des − t_f)" if entry.source == C.AISC_SOURCE else ""))
+        derived = aisc and m.endswith("tapered")  # r computed here: shown to four digits, not as if tabulated
+        let("r", g.get("r", 0.0), "root radius" + ((" (from k_des and the taper)" if m.endswith("tapered")
+                                                    else " (k_des − t_f)") if aisc else ""),
+            shown=_model_cell(entry, "r", g.get("r", 0.0), 4) if derived else None)
+        if m.endswith("tapered"):
+            work.scope["slope"] = U.registry().Quantity(g["slope"], "")
+            dims.append(("slope", _slope_text(g), "slope of the inner flange faces"))
+            if g.get("r_toe"):
+                let("r_toe", g["r_toe"], "toe radius")
         if m == "T":
             return FL.tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
+        if m == "T-tapered":
+            return FL.tapered_tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"])
         if m == "C-tapered":
-            return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+            return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"], g.get("r_toe", 0.0),
+                                      g.get("u"))
         if m == "C":
             return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
         if m == "I-tapered":
-            return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+            return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"])
         return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
-    if m == "L":
-        let("h", g["h"], "vertical leg d")
-        let("b", g["b"], "horizontal leg b")
+    if m in ("L", "2L"):
+        let("h", g["h"], "vertical leg" + (" d" if m == "L" else "s (back to back)"))
+        let("b", g["b"], "horizontal leg" + (" b" if m == "L" else "s"))
         let("t", g["t"], "leg thickness")
-        let("r", g["r"], "root radius (k_des − t)")
-        return FL.angle(g["h"], g["b"], g["t"], g["r"])
-    if m in ("box-aisc", "box-en"):
-        std = "AISC" if m == "box-aisc" else "EN 10210-2"
+        let("r", g["r"], "root radius (k_des − t" + (" of the single angle)" if m == "2L" else ")"))
+        if m == "L":
+            return FL.angle(g["h"], g["b"], g["t"], g["r"])
+        let("gap", g["gap"], "spacing between the backs of the angles")
+        return FL.double_angle(g["h"], g["b"], g["t"], g["r"], g["gap"])
+    if m in ("box-aisc", "box-en", "box-cf"):
+        std = {"box-aisc": "AISC", "box-en": "EN 10210-2", "box-cf": "EN 10219-2"}[m]
         ro, ri = C.hollow_radii(std, g["t"])
         let("h", g["h"], "outside depth")
         let("b", g["b"], "outside width")
@@ -439,20 +479,53 @@ def _model_shape(work, entry, g, let, dims):
         return FL.box(g["b"], g["h"], g["t"], ro, ri)
     if m == "tube":
         let("d", g["d"], "outside diameter")
-        let("t", g["t"], "wall" + (" (design wall t_des)" if entry.source == C.AISC_SOURCE else ""))
+        let("t", g["t"], "wall" + (" (design wall t_des)" if aisc else ""))
         return S.tube(g["d"], g["t"])
     raise AssertionError(m)  # pragma: no cover
 
 
+COMPACT_FIGURE = (190.0, 150.0)  # px: the drawing of a catalogue section in the compact working
+
+
+def _silent_report(work, shape):
+    """The model's properties by the same traced working as detail="full", kept out of the package (the values
+    are identical). Returns them and what stays: a smaller drawing, any warning, and the one-line agreement of
+    the two methods, to be placed after the comparison with the table."""
+    start = len(work.working.items)
+    out = report(work, shape, detail="brief", compact=True)
+    kept = []
+    for it in work.working.items[start:]:
+        if isinstance(it, Figure):
+            kept.append(Figure(drawing.draw(shape, properties(shape), box=COMPACT_FIGURE), it.caption))
+        elif isinstance(it, Note) and it.kind in ("warning", "agreement"):
+            kept.append(it)
+    del work.working.items[start:]
+    return out, kept
+
+
+def _model_cell(entry, name, value, digits: int = 5) -> str:
+    """A model value in the table's unit, one significant digit more than tables print (5)."""
+    u = _table_unit(entry, name)
+    v = _q(value, OPT_UNITS.get(name) or UNITS.get(name)).m_as(unit(u))
+    text = f"{v:.{digits}g}"
+    if "e" in text:
+        mant, exp = text.split("e")
+        text = f"{mant}×10{str(int(exp)).translate(_SUPER)}"
+    return f"{text} {u.replace('^2', '²').replace('^3', '³').replace('^4', '⁴').replace('^6', '⁶')}"
+
+
 @namespace.function("rolled", params=[
-    Param("designation", kind="text", doc='catalogue designation: "W18X50", "IPE 300", "HE 300 B", "HSS8X8X1/2", '
-                                          '"RHS 150x100x6.3" …'),
+    Param("designation", kind="text", doc='catalogue designation: "W18X50", "IPE 300", "HE 300 B", "UPN 200", '
+                                          '"HSS8X8X1/2", "RHS 150x100x6.3", "2L4X4X1/2X3/8" …'),
     Param("x_ref", L, "a vertical axis x = x_ref for I_y_ref", default=None),
-    Param("y_ref", L, "a horizontal axis y = y_ref (0 mm is the base) for I_x_ref", default=None)],
+    Param("y_ref", L, "a horizontal axis y = y_ref (0 mm is the base) for I_x_ref", default=None),
+    Param("detail", kind="text", doc='"compact": the table row, the model\'s dimensions and the comparison; '
+                                     '"full": also the model\'s whole parallel-axis working', default="compact",
+          choices=("compact", "full"))],
     fields=FIELDS, returns="section",
     doc="A rolled or hollow section from a published table: the table's values, beside the section's own "
-        "geometric model (fillets, corner radii) and their deviation.")
-def rolled(work, designation, x_ref=None, y_ref=None):
+        "geometric model (fillets, corner radii, tapered flanges) and their deviation.")
+def rolled(work, designation, x_ref=None, y_ref=None, detail="compact"):
     if len(designation) > 40:
         work.fail(f"a designation is a short name such as W18X50 or IPE 300 (this one has {len(designation)} "
                   "characters)", param="designation")
@@ -461,52 +534,73 @@ def rolled(work, designation, x_ref=None, y_ref=None):
         near = C.nearest(designation)
         work.fail(f"no section '{designation}' in the catalogue", param="designation",
                   hint=("nearest: " + ", ".join(near)) if near else
-                  "families: W, M, S, HP, C, MC, L, WT, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, CHS, SHS, RHS")
+                  "families: W, M, S, HP, C, MC, L, 2L, WT, MT, ST, HSS, Pipe (AISC v16.0); IPE, HE…A/B/M, UPN, CHS, "
+                  "SHS, RHS; cold-formed CFRHS/CFSHS HxBxT of any size")
     work.note(f"{entry.designation}: {entry.source}; data file catalogue/{entry.file}. Geometric model: "
-              + _MODEL_NOTE[entry.model] + ". The record's fields take the table's values where the table gives "
+              + _model_note(entry) + ". The record's fields take the table's values where the table gives "
               "them, the model's otherwise.", kind="method")
     compared = {name for name, _, _ in COMPARED}
     others = [(n, v) for n, v in entry.values.items() if n not in compared and n not in entry.dims
-              and not (n in ("d", "b_f", "t") and entry.model != "tube")]
+              and n not in entry.derived and not (n in ("d", "b_f", "t") and entry.model != "tube")]
     if others:
         cells = [c for n, v in others for c in (n, _published(entry, n, v))]
         cells += [""] * (-len(cells) % 6)
         work.table(f"Further values of the table row {entry.designation}", ["Property", "Table"] * 3,
                    [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6)
     shape = _build(work, lambda: _model(work, entry))
-    out = report(work, shape, x_ref=x_ref, y_ref=y_ref, detail="brief", compact=True)
+    if detail == "full":
+        out, after = report(work, shape, detail="brief", compact=True), []
+    else:
+        out, after = _silent_report(work, shape)
     rows, worst = [], []
     for name, u, tol in COMPARED:
         if name not in entry.values or name not in out:
             continue
         tv, mv = entry.values[name], out[name].m_as(unit(u))
         dev = (mv - tv) / tv if tv else 0.0
-        rows.append([name, _published(entry, name, tv), _q(mv, u).to(unit(_table_unit(entry, name))),
-                     f"{100 * dev:+.2f} %", f"{100 * tol:.0f} %"])
+        rows.append([name, _published(entry, name, tv), _model_cell(entry, name, mv), f"{100 * dev:+.2f} %",
+                     f"{100 * tol:.0f} %"])
         if abs(dev) > tol:
             worst.append(f"{name} {100 * dev:+.1f} %")
-    work.table(f"Table row {entry.designation} ({entry.source}) against the geometric model",
-               ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
-               note="Table values as published, in the table's units; deviation = (model − table)/table.")
+    if rows:
+        work.table(f"Table row {entry.designation} ({entry.source}) against the geometric model",
+                   ["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,
+                   note="Table values as published, in the table's units; deviation = (model − table)/table.")
+    else:
+        if entry.model == "C-tapered":
+            work.note("C_w and the shear centre of this channel are the thin-walled closed forms (AISC Design Guide 9) "
+                      "with the flanges at t_f; for stubby tapered channels they overstate both: a finite-element "
+                      "warping analysis of the same outline gives C_w 8 to 15 % lower (UPN 100 to 400) and the shear "
+                      "centre 3 to 5 mm nearer the web.", kind="method")
+        cells = [c for n in MODEL_ONLY if n in out
+                 for c in (n, _model_cell(entry, n, out[n].m_as(unit(OPT_UNITS.get(n) or UNITS[n]))))]
+        cells += [""] * (-len(cells) % 6)
+        work.table(f"Properties of {entry.designation} from its geometric model (the table gives dimensions only)",
+                   ["Property", "Model"] * 3, [cells[k:k + 6] for k in range(0, len(cells), 6)], units=[None] * 6,
+                   note="x_c: centroid from the back of the web." if entry.model == "C-tapered" else None)
     if worst:
         work.warn(f"the geometric model of {entry.designation} deviates from the table beyond tolerance: "
                   + ", ".join(worst), param="designation")
-    else:
+    elif rows:
         work.note(f"The geometric model agrees with the table within tolerance for all {len(rows)} compared "
-                  "properties.", kind="agreement")
+                  "properties.", kind="method")
+    work.working.items.extend(after)
     for name, v in entry.values.items():
-        u = UNITS.get(name) or OPT_UNITS.get(name)
-        out[name] = _q(v, u)
+        if name not in entry.derived:
+            out[name] = _q(v, UNITS.get(name) or OPT_UNITS.get(name))
+    if "mass" not in entry.values or "mass" in entry.derived:
+        work.scope["rho_s"] = U.registry().Quantity(STEEL_DENSITY, unit("kg/m^3"))
+        work.calc("mass", "rho_s*A", unit="kg/m", desc="nominal mass per length, steel at ρ = 7850 kg/m³")
+        out["mass"] = work["mass"].to(unit("kg/m"))
     for name, base, dist in (("S_x_top", "I_x", "y_top"), ("S_x_bot", "I_x", "y_bot"), ("S_y_left", "I_y", "x_left"),
                              ("S_y_right", "I_y", "x_right")):
         out[name] = (out[base] / out[dist]).to(unit("mm^3"))
     if "I_2" not in entry.values and abs(out["I_xy"].m_as(unit("mm^4"))) <= 1e-9 * out["I_x"].m_as(unit("mm^4")):
         out["I_1"], out["I_2"] = max(out["I_x"], out["I_y"]), min(out["I_x"], out["I_y"])  # principal axes x, y
         out["r_min"] = min(out["r_x"], out["r_y"])  # the table's own radius (its I/A is rounded differently)
-    if y_ref is None:
-        out["I_x_ref"] = out["I_x"]
-    if x_ref is None:
-        out["I_y_ref"] = out["I_y"]
+    # reference-axis moments from the record's own (table) I and A, with the model's centroid: mixing the
+    # model's I with the table's A would break the parallel-axis theorem by the model's deviation
+    _reference_moments(work, out, x_ref, y_ref)
     for alias, base in ALIASES.items():
         if base in out:
             out[alias] = out[base].to(unit(OPT_UNITS[alias]))
@@ -514,6 +608,21 @@ def rolled(work, designation, x_ref=None, y_ref=None):
     out["source"] = entry.source
     out["shape"] = f"{entry.designation} ({entry.source.split(' (')[0]})"
     return _record(work, out, shape)
+
+
+def _reference_moments(work, out, x_ref, y_ref):
+    """I_x_ref and I_y_ref by the parallel-axis theorem, from the record's I and A (the table's where it gives
+    them) and the centroid of the geometric model (the tables give no centroid for most families)."""
+    for ref, base, c, name, axis in ((y_ref, "I_x", "y_c", "I_x_ref", "y"), (x_ref, "I_y", "x_c", "I_y_ref", "x")):
+        if ref is None:
+            out[name] = out[base]
+            continue
+        work.scope[f"{base}_rec"] = out[base]
+        work.scope["A_rec"] = out["A"]
+        work.calc(name, f"{base}_rec + A_rec*({c} - {axis}_ref)^2", unit="mm^4",
+                  desc=f"second moment about the axis {axis} = {axis}_ref, from the record's {base} and A "
+                       "(parallel-axis theorem)")
+        out[name] = work[name].to(unit("mm^4"))
 
 
 # ---------------------------------------------------------------- first moment at any level

@@ -20,6 +20,16 @@ def warnings(result):
     return [d for d in result.diagnostics if d.severity == "warning"]
 
 
+def model_value(cell: str, unit: str) -> float:
+    """A model cell of the comparison table ("1.6883×10⁶ cm⁶") as a number in its printed unit."""
+    number, printed = cell.rsplit(" ", 1)
+    assert printed == unit
+    if "×10" in number:
+        mant, exp = number.split("×10")
+        return float(mant) * 10 ** int(exp.translate(str.maketrans("⁰¹²³⁴⁵⁶⁷⁸⁹⁻", "0123456789-")))
+    return float(number)
+
+
 def rolled(run, designation):
     r = run(f's = section.rolled(designation="{designation}")\n')
     assert not errors(r), r.diagnostics
@@ -49,7 +59,7 @@ def test_the_designations_of_the_brief_build_with_table_and_model_side_by_side(r
         assert warned in msg
         assert rec.fields["C_w"].m_as("cm^6") == pytest.approx(1651e3)
         (row,) = [row for row in cmp.rows if row[0] == "C_w"]
-        assert row[2].m_as("cm^6") == pytest.approx(1688e3, rel=3e-3)
+        assert model_value(row[2], "cm⁶") == pytest.approx(1688e3, rel=3e-3)
 
 
 # ---------------------------------------------------------------- spot rows against the published tables
@@ -149,8 +159,10 @@ def _model(e):
 # family -> (largest deviation of A, I_x, I_y allowed, share of rows within 1 %): the parallel-flange and hollow
 # families reproduce their tables to the tables' own rounding; angles lack their toe radii; AISC Pipe areas
 # are not all consistent with the tabulated OD and t_des (Pipe10STD: −3.3 %); S and C have tapered flanges
-# and toe radii (only the taper is modelled); an MC's flange slope is not modelled at all (I_y up to 25 % off).
-FAMILIES = {"S": (0.05, 0.0), "C": (0.05, 0.0), "MC": (0.3, 0.0), "W": (0.02, 0.85), "HP": (0.035, 0.75), "WT": (0.02, 0.8), "HSS": (0.01, 1.0), "HSS_R": (0.02, 0.9),
+# and toe radii (the taper is modelled, with the root radius from k_des and the flange's thickness at the web; the
+# toe radii are not tabulated); an MC's flange slope is not modelled at all (I_y up to 25 % off); some M shapes
+# (M8X6.5: I_x +7 %) have fillets from k_des larger than their areas allow.
+FAMILIES = {"S": (0.045, 0.0), "C": (0.04, 0.0), "MC": (0.3, 0.0), "M": (0.075, 0.25), "W": (0.02, 0.85), "HP": (0.035, 0.75), "WT": (0.02, 0.8), "HSS": (0.01, 1.0), "HSS_R": (0.02, 0.9),
             "PIPE": (0.035, 0.7), "L": (0.035, 0.5), "IPE": (0.01, 1.0), "HEA": (0.01, 1.0), "HEB": (0.01, 1.0),
             "HEM": (0.01, 1.0), "RHS": (0.01, 1.0), "SHS": (0.01, 1.0), "CHS": (0.01, 1.0)}
 
