@@ -1,9 +1,11 @@
-"""AISC 360-16 member checks: B4 classification, E3/E4/E7, F2/F3/F6/F7/F8, G2.1/G4/G5, H1-1.
+"""AISC 360-16 member checks: B4 classification, E3/E4/E7, F2–F10 (F4/F5 in aisc_f4f5, F9/F10 and the general E4
+in aisc_open), G2.1/G3/G4/G5, H1-1.
 
 Every formula is a traced step (``work.calc``) labelled with its clause and
 equation number; which branch of a clause applies is decided here from the
-traced values and stated in words. φ, Ω and the B4.1 limits are data
-(aisc360_16.toml).
+traced values and stated in words. φ, Ω, the B4.1 limits and the constants that
+decide a branch are data (aisc360_16.toml). LRFD or ASD is chosen once per sheet
+(front matter ``design_method:``) or per call.
 """
 from __future__ import annotations
 

@@ -272,7 +272,6 @@ def f10(ctx, L_b, C_b, toe, restraint):
         w.calc("S_c", f"{red:g}*S_x", unit=u["i3"],
                desc="elastic modulus to the toe in compression" + (" (0.80S_x without lateral-torsional restraint, "
                                                                    f"{STD} F10.3)" if red != 1.0 else ""))
-        fl = ctx.classes["class_flange_flexure"]
         w.calc("lambda_leg", "d/t", unit="1", desc="b/t of the leg whose toe is in compression")
         lam = num(sc["lambda_leg"])
         lp, lr = num(sc["lambda_p_f"]), num(sc["lambda_r_f"])
@@ -287,7 +286,6 @@ def f10(ctx, L_b, C_b, toe, restraint):
             w.calc("F_cr_LLB", "0.71*E/lambda_leg^2", unit=u["st"], desc=f"{STD} Eq. F10-8")
             w.calc("M_n_LLB", "F_cr_LLB*S_c", unit=u["mo"], desc=f"leg local buckling, slender leg, {STD} Eq. F10-7")
             states["leg local buckling, slender (F10-7)"] = "M_n_LLB"
-        del fl
     else:
         w.note(f"The toe is in tension: leg local buckling does not apply ({STD} F10.3).", kind="method")
     return states

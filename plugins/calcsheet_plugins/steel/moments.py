@@ -9,6 +9,8 @@ from __future__ import annotations
 
 import numpy as np
 
+from .common import units
+
 
 def segment_max(M, pieces, a: float, b: float) -> tuple[float, float]:
     """(largest |M|, where) over a ≤ x ≤ b, exactly from the pieces' polynomials."""
@@ -47,16 +49,18 @@ def from_beam(work, beam, combo, start, end, unit):
         work.fail(f"the unbraced segment must lie on the beam with its start before its end (0 ≤ x_start < x_end ≤ "
                   f"{L:g} m); got {a:g} m to {b:g} m", param="x_start" if start is not None else "x_end")
     b = min(b, L)
+    lu = units(work)["L"]
+    at = lambda x: f"{work.q(x, 'm').m_as(lu):.4g} {lu}"  # noqa: E731
     m_max, x_max = segment_max(M, pieces, a, b)
     if m_max <= 0:
         work.fail(f"the moment of combination {name!r} is zero over the segment {a:g}–{b:g} m: nothing to take "
                   f"C_b from", param="beam")
     q = lambda v: work.q(v, "N*m").to(unit)  # noqa: E731
-    src = f"beam.solve, combination {name}, segment x = {a:g} m to {b:g} m"
+    src = f"beam.solve, combination {name}, segment x = {at(a)} to {at(b)}"
     work.let("M_max", q(m_max), unit=unit, desc="largest |M| in the unbraced segment",
-             note=f"{src}: exact, from the piecewise polynomials, at x = {x_max:.4g} m")
+             note=f"{src}: exact, from the piecewise polynomials, at x = {at(x_max)}")
     for nm, frac, where in (("M_A", 0.25, "quarter point"), ("M_B", 0.5, "centreline"),
                             ("M_C", 0.75, "three-quarter point")):
         x = a + frac * (b - a)
-        work.let(nm, q(abs(M(x))), unit=unit, desc=f"|M| at the {where} of the segment", note=f"{src}, at x = {x:.4g} m")
+        work.let(nm, q(abs(M(x))), unit=unit, desc=f"|M| at the {where} of the segment", note=f"{src}, at x = {at(x)}")
     return name
