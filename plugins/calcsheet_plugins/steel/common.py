@@ -49,7 +49,7 @@ def field(rec, name):
 
 
 FORMS = ("I", "C", "T", "L", "RHS", "CHS")
-_WORDS = {"I-shape": "I", "channel": "C", "tee": "T", "angle": "L"}
+_WORDS = {"I-shape": "I", "channel": "C", "tee": "T", "angle": "L", "box": "RHS", "tube": "CHS"}
 _PREFIX = (("MC", "C"), ("WT", "T"), ("MT", "T"), ("ST", "T"), ("HSS", None), ("HP", "I"), ("W", "I"), ("M", "I"),
            ("S", "I"), ("C", "C"), ("L", "L"), ("IPE", "I"), ("HE", "I"))
 

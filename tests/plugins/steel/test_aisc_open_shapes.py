@@ -280,3 +280,16 @@ def test_minor_axis_moment_on_a_tee_is_a_located_error():
     errs = errors('s = section.rolled(designation="WT7X34")\n'
                   'b = steel_design.aisc_beam(section=s, F_y=50 ksi, L_b=0 ft, M_ry=1 kip*ft)')
     assert errs and "M_ry" in errs[0].message and errs[0].span is not None
+
+
+@pytest.mark.parametrize("call_text, form", [
+    ("section.channel(h=300 mm, b=90 mm, t_f=12 mm, t_w=8 mm)", "C"),
+    ("section.tee(h=200 mm, b=150 mm, t_f=12 mm, t_w=8 mm)", "T"),
+    ("section.angle(h=100 mm, b=75 mm, t=8 mm)", "L"),
+    ("section.ishape(h=300 mm, b=150 mm, t_f=10 mm, t_w=7 mm)", "I"),
+    ("section.box(h=200 mm, b=100 mm, t=8 mm)", "RHS"),
+    ("section.tube(d=200 mm, t=8 mm)", "CHS"),
+])
+def test_the_form_comes_from_the_section_functions_own_words(call_text, form):
+    r = run(f"s = {call_text}\nc = steel_design.aisc_classify(section=s, F_y=345 MPa)", units="SI")
+    assert r.values["c"].fields["form"] == form

@@ -111,3 +111,15 @@ def test_an_unknown_sheet_method_is_an_error_naming_it():
 def test_without_the_key_a_call_may_choose_and_LRFD_is_the_default():
     out = call(W18X50, "aisc_beam", "F_y=50 ksi, L_b=0 ft")
     assert out["method"] == "LRFD"
+
+
+def test_an_incremental_rebuild_keeps_the_sheet_method():
+    from calcsheet.incremental import rebuild
+
+    src = (f"---\nproject: t\nunits: US\ndesign_method: ASD\n---\ns = steel_design.shape({W18X50})\n"
+           "L_b = 0 ft\nb = steel_design.aisc_beam(section=s, F_y=50 ksi, L_b=L_b)\n")
+    first = calcsheet.run(src)
+    again = rebuild(first, src.replace("L_b = 0 ft", "L_b = 1 ft"))
+    assert not again.full, again.reason                          # the fast path, which builds its own evaluator
+    assert again.result.values["b"].fields["method"] == "ASD"
+    assert f(again.result.values["b"].fields["M_cx"], "kip*ft") == pytest.approx(252, abs=0.5)  # M_p/Ω_b, F.1-1A
