@@ -888,14 +888,19 @@ def aisc_classify(work, section, material=None, F_y=None, E=None, G=None, form=N
     return {**ctx.classify(), "form": ctx.form}
 
 
-@namespace.function("aisc_Cb", params=[Param("M_max", "[force]*[length]", "largest moment in the unbraced segment"),
-                                       Param("M_A", "[force]*[length]", "moment at the quarter point"),
-                                       Param("M_B", "[force]*[length]", "moment at the centreline"),
-                                       Param("M_C", "[force]*[length]", "moment at the three-quarter point")],
-                    fields=[Field("C_b", doc="LTB modification factor, Eq. F1-1")], returns="steel_Cb")
-def aisc_Cb(work, M_max, M_A, M_B, M_C):
-    """C_b from the moments of an unbraced segment, AISC 360-16 Eq. F1-1 (absolute values)."""
-    return {"C_b": work.q(num(cb_formula(work)), "")}
+@namespace.function("aisc_Cb", params=[
+    Param("M_max", "[force]*[length]", "largest moment in the unbraced segment", default=None),
+    Param("M_A", "[force]*[length]", "moment at the quarter point", default=None),
+    Param("M_B", "[force]*[length]", "moment at the centreline", default=None),
+    Param("M_C", "[force]*[length]", "moment at the three-quarter point", default=None),
+    *[p for p in BENDING if p.name in ("beam", "combo", "x_start", "x_end")]],
+    fields=[Field("C_b", doc="LTB modification factor, Eq. F1-1")], returns="steel_Cb")
+def aisc_Cb(work, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None):
+    """C_b of an unbraced segment, AISC 360-16 Eq. F1-1 (absolute values): from the four moments, or read from a
+    beam.solve result over x_start … x_end."""
+    if beam is None and any(m is None for m in (M_max, M_A, M_B, M_C)):
+        work.fail("give the four moments M_max, M_A, M_B, M_C, or beam=… (a beam.solve result)", param="M_max")
+    return {"C_b": work.q(num(_cb(work, None, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end)), "")}
 
 
 @namespace.function("aisc_interaction",

@@ -123,3 +123,10 @@ def test_an_incremental_rebuild_keeps_the_sheet_method():
     assert not again.full, again.reason                          # the fast path, which builds its own evaluator
     assert again.result.values["b"].fields["method"] == "ASD"
     assert f(again.result.values["b"].fields["M_cx"], "kip*ft") == pytest.approx(252, abs=0.5)  # M_p/Ω_b, F.1-1A
+
+
+def test_aisc_Cb_alone_reads_the_beam_too():
+    r = run(f"{SPAN}c = steel_design.aisc_Cb(beam=b, x_start=0 ft, x_end=17.5 ft)\n"
+            "m = steel_design.aisc_Cb(M_max=1 kip*ft, M_A=0.438 kip*ft, M_B=0.75 kip*ft, M_C=0.938 kip*ft)\n")
+    assert f(r.values["c"].fields["C_b"]) == pytest.approx(f(r.values["m"].fields["C_b"]), abs=2e-3)  # F.1-3B: 1.30
+    assert errors("c = steel_design.aisc_Cb(M_max=1 kip*ft)")
