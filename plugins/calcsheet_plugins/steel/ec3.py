@@ -342,8 +342,9 @@ class _Ctx:
             w.calc("chi_LT_0", "min(1, 1/lambda_LT^2, 1/(Phi_LT + sqrt(Phi_LT^2 - beta_LT*lambda_LT^2)))", unit="1",
                    desc=f"reduction factor, {STD} 6.3.2.3 Eq. 6.57 (χ_LT ≤ 1, ≤ 1/λ̄_LT²)")
             if beam is not None:
-                w.let("k_c", w.q(1.0, ""), desc=f"correction factor k_c = 1 (f = 1): a moment diagram read from a "
-                                                f"beam has no row in {STD} Table 6.6 (conservative)")
+                w.let("k_c", w.q(mf["beam_diagram"]["k_c"], ""), desc=f"correction factor k_c (f = 1): a moment "
+                      f"diagram read from a beam has no row in {STD} Table 6.6 (conservative)",
+                      note=mf["beam_diagram"]["text"])
             elif shape in ("udl", "point_mid") and C_1 is None:
                 w.let("k_c", w.q(mf[shape]["k_c"], ""), desc=f"correction factor, {mf[shape]['text']}", note=mf["source"]["k_c"])
             else:
@@ -380,8 +381,8 @@ class _Ctx:
     def interaction(self, shape, psi, psi_z, ltb_possible):
         w, sc, mf = self.work, self.sc, moment_factors()
         if getattr(self, "diagram", False):
-            w.let("C_my", w.q(1.0, ""), desc=f"C_my = 1.0 for a moment diagram read from a beam: the upper bound of "
-                                             f"{STD} Annex B Table B.3 (conservative)")
+            w.let("C_my", w.q(mf["beam_diagram"]["C_m"], ""), desc=f"C_my for a moment diagram read from a beam: the "
+                  f"upper bound of {STD} Annex B Table B.3 (conservative)", note=mf["beam_diagram"]["text"])
         elif shape in ("udl", "point_mid"):
             w.let("C_my", w.q(mf[shape]["C_m"], ""), desc=f"equivalent uniform moment factor, {mf[shape]['text']}",
                   note=mf["source"]["C_m"])

@@ -130,3 +130,15 @@ def test_aisc_Cb_alone_reads_the_beam_too():
             "m = steel_design.aisc_Cb(M_max=1 kip*ft, M_A=0.438 kip*ft, M_B=0.75 kip*ft, M_C=0.938 kip*ft)\n")
     assert f(r.values["c"].fields["C_b"]) == pytest.approx(f(r.values["m"].fields["C_b"]), abs=2e-3)  # F.1-3B: 1.30
     assert errors("c = steel_design.aisc_Cb(M_max=1 kip*ft)")
+
+
+def test_ec3_beam_column_with_a_diagram_takes_C_my_1_in_annex_B():
+    r = run('s = section.rolled(designation="HE 200 B")\n'
+            'b = beam.solve(spans=[6 m], supports="pinned, roller", loads=[beam.udl(w=10 kN/m)])\n'
+            "x = steel_design.ec3_beam_column(section=s, f_y=235 MPa, L=6 m, L_LT=6 m, beam=b, N_Ed=200 kN, "
+            "M_y_Ed=45 kN*m)\n", units="SI")
+    out, sec = r.values["x"].fields, r.values["s"].fields
+    n_y = 200e3 / (f(out["chi_y"]) * f(sec["A"], "mm^2") * 235)            # Annex B, γ_M1 = 1
+    lam = f(out["lambda_y"])
+    # EN 1993-1-1 Annex B Table B.1/B.2, class 1: k_yy = C_my·min(1 + (λ̄_y − 0.2)n_y, 1 + 0.8n_y), C_my = 1
+    assert f(out["k_yy"]) == pytest.approx(min(1 + (lam - 0.2) * n_y, 1 + 0.8 * n_y), rel=1e-9)
