@@ -178,12 +178,18 @@ def plain_number(x: float, sigfigs: int = 3) -> str:
 # ------------------------------------------------------------------ units
 
 
-@lru_cache(maxsize=2048)
 def unit_factors(unit: pint.Unit) -> tuple[tuple[tuple[str, float], ...], tuple[tuple[str, float], ...]]:
     """Numerator and denominator (symbol, exponent) pairs, as a reviewer writes them."""
+    # cached on the ordered factors: lbf·ft and ft·lbf are equal pint Units with one hash, so a cache keyed on
+    # the Unit would print whichever order it met first
+    return _unit_factors(tuple(unit._units.items()))
+
+
+@lru_cache(maxsize=2048)
+def _unit_factors(items: tuple) -> tuple[tuple[tuple[str, float], ...], tuple[tuple[str, float], ...]]:
     reg = U.registry()
     num, den = [], []
-    for name, exp in unit._units.items():
+    for name, exp in items:
         sym = _SYMBOLS.get(name) or reg.get_symbol(name)
         (num if exp > 0 else den).append((sym, abs(exp)))
     return tuple(num), tuple(den)

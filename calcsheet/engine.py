@@ -229,7 +229,7 @@ def _check_override_dim(name, expr, checker: Checker, result: Result):
 
 
 def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, overrides: dict) -> None:
-    ev = Evaluator(result.policy, plugins)
+    ev = Evaluator(result.policy, plugins, front_matter=result.meta)
     env: dict[str, Any] = {}
     display: dict[str, Any] = {}
     check_no = 0

@@ -59,8 +59,11 @@ class SheetFunction:
 class Evaluator:
     """Walks expressions; one instance per sheet run (it holds the display policy and the plugin host)."""
 
-    def __init__(self, policy: DisplayPolicy | None = None, plugins: PluginRegistry | None = None):
+    def __init__(self, policy: DisplayPolicy | None = None, plugins: PluginRegistry | None = None,
+                 front_matter: dict | None = None):
         self.policy = policy or DisplayPolicy()
+        # the sheet's front matter, which plugins read as Work.settings["front_matter"] (e.g. design_method)
+        self.front_matter = dict(front_matter or {})
         self.plugins = plugins or default_registry()
         self.reg = U.registry()
         self._dimensionless = self.reg.Unit("")

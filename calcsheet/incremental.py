@@ -180,7 +180,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     order = list(res.statements)
     dirty_order = sorted(dirty, key=order.index)
 
-    ev = Evaluator(prev.policy, plugins or _registry())
+    ev = Evaluator(prev.policy, plugins or _registry(), front_matter=prev.meta)
     env: dict[str, Any] = dict(prev.values)
     env.update({name: SheetFunction(fd) for name, fd in res.functions.items()})  # the sheet's own functions
     display: dict[str, Any] = {n: s.display_unit for n, s in prev.steps.items()}

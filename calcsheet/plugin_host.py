@@ -149,7 +149,8 @@ class PluginHost:
         for p in pf.params:
             args[p.name] = self.coerce_argument(pf, p, given[p.name], spans[p.name]) if p.name in given else p.default
         policy = self.evaluator.policy
-        work = Work(pf, args, {"system": policy.system, "sigfigs": policy.sigfigs}, self)
+        work = Work(pf, args, {"system": policy.system, "sigfigs": policy.sigfigs,
+                               "front_matter": getattr(self.evaluator, "front_matter", {})}, self)
         try:
             out = pf.func(work, **args)
         except PluginInputError as exc:

@@ -32,3 +32,12 @@ def test_preferred_units(value, unit, system, expect):
 def test_unit_typesetting():
     assert unit_text(U.build_unit(split_unit("N/mm^2"))) == "N/mm²"
     assert unit_text(U.build_unit(split_unit("kN/m/s"))) == "kN/(m·s)"
+
+
+def test_a_unit_prints_in_its_own_order_whatever_equal_unit_was_printed_first():
+    # lbf·ft and ft·lbf are equal pint Units with one hash: the printed order must not depend on which came first
+    from calcsheet import display, units as U
+
+    reg = U.registry()
+    assert display.unit_factors(reg.Unit("foot*force_pound"))[0] == (("ft", 1), ("lbf", 1))
+    assert display.unit_factors(reg.Unit("force_pound*foot"))[0] == (("lbf", 1), ("ft", 1))

@@ -235,3 +235,19 @@ def result(work, member, combo=None):
 
 def tie(a: float, b: float) -> bool:
     return abs(a - b) <= TIE * max(abs(a), abs(b), 1e-300)
+
+
+def moment_diagram(work, member, combo=None):
+    """The bending moment of one combination of a solved beam, for other plugins (steel_design reads C_b and C_1
+    from it): ``(M, L, name, pieces)`` with ``M(x)`` in N·m at x in m (sagging positive), the length in m, the
+    combination's name and the pieces' ``(start, length, coefficients)`` (ascending powers of the local x)."""
+    setup, res = _solved(work, member)
+    cr = _combo(work, res, combo)
+    L = setup.model.length
+    p = cr.sol.pieces
+
+    def M(x: float) -> float:
+        x = min(max(float(x), 0.0), L)
+        return float(cr.sol.at("M", x, side="right" if x < L else "left")[0])
+
+    return M, L, cr.combo.name, (np.asarray(p.start, float), np.asarray(p.length, float), np.asarray(p.M, float))

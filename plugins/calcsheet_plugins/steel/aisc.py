@@ -1,16 +1,19 @@
-"""AISC 360-16 member checks: B4 classification, E3/E4/E7, F2/F3/F6/F7/F8, G2.1/G4/G5, H1-1.
+"""AISC 360-16 member checks: B4 classification, E3/E4/E7, F2–F10 (F4/F5 in aisc_f4f5, F9/F10 and the general E4
+in aisc_open), G2.1/G3/G4/G5, H1-1.
 
 Every formula is a traced step (``work.calc``) labelled with its clause and
 equation number; which branch of a clause applies is decided here from the
-traced values and stated in words. φ, Ω and the B4.1 limits are data
-(aisc360_16.toml).
+traced values and stated in words. φ, Ω, the B4.1 limits and the constants that
+decide a branch are data (aisc360_16.toml). LRFD or ASD is chosen once per sheet
+(front matter ``design_method:``) or per call.
 """
 from __future__ import annotations
 
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import aisc, field, form_of, num, positive, tidy, units
+from . import aisc_f4f5, aisc_open
+from .common import FORMS, aisc, field, form_of, num, positive, tidy, units
 
 STD = "AISC 360-16"
 METHODS = ("LRFD", "ASD")
@@ -25,8 +28,11 @@ class _Ctx:
         if section is None:
             work.fail("give section=… (a section record: steel_design.shape(…), section.rolled(…))", param="section")
         self.form = form_of(section, form)
-        if self.form not in ("I", "RHS", "CHS"):
-            work.fail("cannot tell the section's form; give form=\"I\", \"RHS\" or \"CHS\"", param="form")
+        if self.form not in FORMS:
+            work.fail("cannot tell the section's form; give form=" + ", ".join(f'"{f}"' for f in FORMS), param="form")
+        top, bot = field(section, "S_x_top"), field(section, "S_x_bot")
+        self.singly = (self.form == "I" and top is not None and bot is not None
+                       and abs(top.m_as("mm^3") / bot.m_as("mm^3") - 1) > 0.005)
         self.fabrication = fabrication or str(section.fields.get("fabrication", "rolled"))
         self.material(material, F_y, E, G)
         self.rows = []
@@ -96,6 +102,8 @@ class _Ctx:
                 self.show_inputs("Section properties used")
                 w.calc(r, f"sqrt(I_{r[-1]}/A)", unit=u["ln"], desc=f"radius of gyration about {r[-1]}")
         self.show_inputs("Section properties used")
+        if self.form == "T":
+            return
         hw = field(self.section, "h_w")
         if hw is not None:
             self.sc["h"] = hw
@@ -140,7 +148,8 @@ class _Ctx:
                                                                          self.sc["S_x"], self.sc["Z_x"])
 
     def geometry(self):
-        {"I": self.i_shape, "RHS": self.hss_rect, "CHS": self.hss_round}[self.form]()
+        {"I": self.i_shape, "C": self.i_shape, "T": self.i_shape, "L": lambda: aisc_open.angle_geometry(self),
+         "RHS": self.hss_rect, "CHS": self.hss_round}[self.form]()
 
     # ---------------------------------------------------------------- B4 classification
     def classify(self):
@@ -161,6 +170,19 @@ class _Ctx:
             w.calc("lambda_f", "b_f/(2*t_f)", unit="1", desc="flange slenderness b/t = b_f/(2t_f) (B4.1a case 1, B4.1b case 10)")
             w.calc("lambda_w", "h/t_w", unit="1", desc="web slenderness h/t_w (B4.1a case 5, B4.1b case 15)")
             specs = [("flange", "lambda_f", "I_flange", "I_flange"), ("web", "lambda_w", "I_web", "I_web")]
+        elif self.form == "C":
+            w.calc("lambda_f", "b_f/t_f", unit="1", desc="flange slenderness b/t = b_f/t_f (channel: the full flange "
+                                                          "width; B4.1a case 1, B4.1b case 10)")
+            w.calc("lambda_w", "h/t_w", unit="1", desc="web slenderness h/t_w (B4.1a case 5, B4.1b case 15)")
+            specs = [("flange", "lambda_f", "C_flange", "C_flange"), ("web", "lambda_w", "I_web", "I_web")]
+        elif self.form == "T":
+            w.calc("lambda_f", "b_f/(2*t_f)", unit="1", desc="flange slenderness b/t = b_f/(2t_f) (B4.1a case 1, B4.1b case 10)")
+            w.calc("lambda_w", "d/t_w", unit="1", desc="stem slenderness d/t_w (B4.1a case 4, B4.1b case 14)")
+            specs = [("flange", "lambda_f", "T_flange", "T_flange"), ("web", "lambda_w", "T_stem", "T_stem")]
+        elif self.form == "L":
+            w.calc("lambda_f", "max(d, b_f)/t", unit="1", desc="leg slenderness b/t of the longer leg (B4.1a case 3, "
+                                                              "B4.1b case 12)")
+            specs = [("leg", "lambda_f", "L_leg", "L_leg")]
         elif self.form == "RHS":
             w.calc("lambda_f", "b/t", unit="1", desc="flange wall slenderness b/t (B4.1a case 6, B4.1b case 17)")
             w.calc("lambda_w", "h/t", unit="1", desc="web wall slenderness h/t (B4.1a case 6, B4.1b case 19)")
@@ -176,7 +198,7 @@ class _Ctx:
             w.calc("F_L", "0.7*F_y", unit=self.u["st"], desc=f"F_L = 0.7F_y, doubly symmetric ({STD} Table B4.1b note)")
         for elem, lam_name, ca, fb in specs:
             lam = num(self.sc[lam_name])
-            sfx = elem[0] if elem != "wall" else "f"
+            sfx = elem[0] if elem not in ("wall", "leg") else "f"
             a, b = t["B4_1a"][ca], t["B4_1b"][fb]
             if built_up and elem == "flange":
                 a2, b2 = t["B4_1a"]["I_flange_built_up"], t["B4_1b"]["I_flange_built_up"]
@@ -197,8 +219,9 @@ class _Ctx:
                 lr = e_over_fy(f"lambda_r_{sfx}", b["lambda_r_E_over_Fy"], "B4.1b", f"{elem}, flexure: noncompact limit λ_r")
             comp = "nonslender" if lam <= lr_c else "slender"
             flex = "compact" if lam <= lp else ("noncompact" if lam <= lr else "slender")
-            out[f"class_{elem if elem != 'wall' else 'flange'}_compression"] = comp
-            out[f"class_{elem if elem != 'wall' else 'flange'}_flexure"] = flex
+            key = elem if elem not in ("wall", "leg") else "flange"
+            out[f"class_{key}_compression"] = comp
+            out[f"class_{key}_flexure"] = flex
             rows.append([elem, f"{lam:.3g}", f"{lr_c:.3g}", comp, f"{lp:.3g}", f"{lr:.3g}", flex])
         w.table(f"{STD} B4.1 classification", ["Element", "λ", "λ_r (compression)", "compression", "λ_p (flexure)",
                                                "λ_r (flexure)", "flexure"], rows,
@@ -225,7 +248,11 @@ class _Ctx:
             w.warn(f"L_c/r = {slender:.0f} exceeds 200, the limit {STD} E2 (User Note) recommends for members "
                    f"designed for compression", param="L")
         candidates = ["F_ex", "F_ey"]
-        if self.form == "I" and L_z is not None and L_z.m_as("m") > sc["L_cy"].m_as("m"):
+        if self.form in ("C", "T", "L") or self.singly:
+            if L_z is not None:
+                sc["L_cz"] = L_z
+            candidates = aisc_open.e4(self, candidates)
+        elif self.form == "I" and L_z is not None and L_z.m_as("m") > sc["L_cy"].m_as("m"):
             sc["L_cz"] = L_z
             w.note(f"E4 applies: the torsional unbraced length L_cz exceeds L_cy ({STD} E4, doubly symmetric member).",
                    kind="method")
@@ -240,7 +267,9 @@ class _Ctx:
                    kind="method")
         w.calc("F_e", f"min({', '.join(candidates)})", unit=u["st"], desc="governing elastic buckling stress")
         mode = {"F_ex": "flexural buckling about x", "F_ey": "flexural buckling about y",
-                "F_ez": "torsional buckling"}[min(candidates, key=lambda n: sc[n].m_as("Pa"))]
+                "F_ez": "torsional buckling", "F_e_FT": "flexural-torsional buckling",
+                "F_ezz": "flexural buckling about the minor principal axis z"}[
+            min(candidates, key=lambda n: sc[n].m_as("Pa"))]
         ratio = sc["F_y"].m_as("Pa") / sc["F_e"].m_as("Pa")
         if ratio <= 2.25:
             w.note(f"F_y/F_e = {ratio:.3f} ≤ 2.25: inelastic buckling, {STD} Eq. E3-2.", kind="method")
@@ -251,11 +280,11 @@ class _Ctx:
         slender = [k for k, v in self.classes.items() if k.endswith("compression") and v == "slender"]
         if not slender:
             w.calc("P_n", "F_cr*A", unit=u["fo"], desc=f"nominal compressive strength, {STD} Eq. E3-1")
-            clause = "E3" if mode != "torsional buckling" else "E4"
+            clause = "E4" if "torsional" in mode else "E3"
         else:
             self.effective_area()
             w.calc("P_n", "F_cr*A_e", unit=u["fo"], desc=f"nominal compressive strength, slender elements, {STD} Eq. E7-1")
-            clause = "E7"
+            clause = ("E4" if "torsional" in mode else "E3") + ", E7"
         w.note(f"{mode.capitalize()} governs the compressive strength ({STD} {clause}"
                f"{', with slender-element effective area' if slender else ''}).", kind="method")
         return f"{mode} ({clause})"
@@ -274,19 +303,31 @@ class _Ctx:
         if self.form == "I":
             elems = [("f", "b_f/2", "t_f", 4, "unstiffened", "lambda_f", "lambda_r_cf"),
                      ("w", "h", "t_w", 1, "stiffened", "lambda_w", "lambda_r_cw")]
+        elif self.form == "C":
+            elems = [("f", "b_f", "t_f", 2, "unstiffened", "lambda_f", "lambda_r_cf"),
+                     ("w", "h", "t_w", 1, "stiffened", "lambda_w", "lambda_r_cw")]
+        elif self.form == "T":
+            elems = [("f", "b_f/2", "t_f", 2, "unstiffened", "lambda_f", "lambda_r_cf"),
+                     ("w", "d", "t_w", 1, "unstiffened", "lambda_w", "lambda_r_cw")]
+        elif self.form == "L":
+            w.calc("lambda_a", "d/t", unit="1", desc="b/t of the vertical leg")
+            w.calc("lambda_b", "b_f/t", unit="1", desc="b/t of the horizontal leg")
+            elems = [("a", "d", "t", 1, "unstiffened", "lambda_a", "lambda_r_cf"),
+                     ("b", "b_f", "t", 1, "unstiffened", "lambda_b", "lambda_r_cf")]
         else:
             elems = [("f", "b", "t", 2, "HSS_wall", "lambda_f", "lambda_r_cf"),
                      ("w", "h", "t", 2, "HSS_wall", "lambda_w", "lambda_r_cw")]
         for sfx, width, thick, count, case, lam, lam_r in elems:
             c = t[case]
-            w.calc(f"b_{sfx}", width, unit=u["ln"], desc=f"element width b ({'flange outstand' if sfx == 'f' else 'web'})")
+            w.calc(f"b_{sfx}", width, unit=u["ln"],
+                   desc=f"element width b ({ {'f': 'flange outstand', 'w': 'web or stem', 'a': 'vertical leg', 'b': 'horizontal leg'}[sfx]})")
             limit = num(sc[lam_r]) * (sc["F_y"].m_as("Pa") / sc["F_cr"].m_as("Pa")) ** 0.5
             if num(sc[lam]) <= limit:
-                w.note(f"{'Flange' if sfx == 'f' else 'Web'}: λ = {num(sc[lam]):.3g} ≤ λ_r√(F_y/F_cr) = {limit:.3g}: "
+                w.note(f"{ {'f': 'Flange', 'w': 'Web', 'a': 'Vertical leg', 'b': 'Horizontal leg'}[sfx]}: λ = {num(sc[lam]):.3g} ≤ λ_r√(F_y/F_cr) = {limit:.3g}: "
                        f"fully effective, b_e = b ({STD} Eq. E7-2).", kind="method")
                 continue
             sc[f"c_1{sfx}"], sc[f"c_2{sfx}"] = w.q(c["c1"], ""), w.q(c["c2"], "")
-            w.note(f"{'Flange' if sfx == 'f' else 'Web'}: λ = {num(sc[lam]):.3g} > λ_r√(F_y/F_cr) = {limit:.3g}: "
+            w.note(f"{ {'f': 'Flange', 'w': 'Web', 'a': 'Vertical leg', 'b': 'Horizontal leg'}[sfx]}: λ = {num(sc[lam]):.3g} > λ_r√(F_y/F_cr) = {limit:.3g}: "
                    f"effective width by {STD} Eq. E7-3 with c_1 = {c['c1']}, c_2 = {c['c2']} (Table E7.1 {c['case']}).",
                    kind="method")
             w.calc(f"F_el{sfx}", f"(c_2{sfx}*{lam_r}/{lam})^2*F_y", unit=u["st"],
@@ -300,14 +341,19 @@ class _Ctx:
             w.calc("A_e", "A", unit=u["ar"], desc=f"effective area (all elements fully effective), {STD} E7.1")
 
     # ---------------------------------------------------------------- Chapter F
-    def flexure_major(self, L_b, C_b):
+    def flexure_major(self, L_b, C_b, stem="tension", toe="compression", restraint="none"):
         w, sc, u = self.work, self.sc, self.u
         cls = self.classes
-        if self.form == "I":
-            if cls["class_web_flexure"] != "compact":
-                w.fail(f"the web is {cls['class_web_flexure']} in flexure (h/t_w = {num(sc['lambda_w']):.1f} > λ_p = "
-                       f"{num(sc['lambda_p_w']):.1f}): {STD} F4/F5 are not implemented",
-                       param="section")
+        if self.form == "I" and (self.singly or cls["class_web_flexure"] != "compact"):
+            states = aisc_f4f5.f4f5(self, L_b, C_b)
+        elif self.form == "T":
+            states = aisc_open.f9(self, L_b, stem)
+        elif self.form == "L":
+            states = aisc_open.f10(self, L_b, C_b, toe, restraint)
+        elif self.form in ("I", "C"):
+            if self.form == "C" and (cls["class_web_flexure"] != "compact" or cls["class_flange_flexure"] != "compact"):
+                w.fail(f"this channel's {'web' if cls['class_web_flexure'] != 'compact' else 'flange'} is not compact in "
+                       f"flexure: {STD} F2 covers compact channels only, and F3–F5 do not cover channels", param="section")
             sc["L_b"], sc["C_b"] = L_b, C_b
             w.calc("M_p", "F_y*Z_x", unit=u["mo"], desc=f"plastic moment, {STD} Eq. F2-1")
             w.calc("L_p", "1.76*r_y*sqrt(E/F_y)", unit=u["L"], desc=f"limiting unbraced length, yielding, {STD} Eq. F2-5")
@@ -316,7 +362,12 @@ class _Ctx:
                 w.let("r_ts", sc["r_ts"], unit=u["ln"], desc="effective radius of gyration r_ts", note="from the section")
             else:
                 w.calc("r_ts", "sqrt(sqrt(I_y*C_w)/S_x)", unit=u["ln"], desc=f"effective radius of gyration, {STD} Eq. F2-7")
-            w.let("c", w.q(1.0, ""), desc=f"c = 1 for a doubly symmetric I-shape, {STD} Eq. F2-8a")
+            if self.form == "C":
+                w.note(f"Compact channel bent about its major axis: {STD} F2 applies, with c from Eq. F2-8b.",
+                       kind="method")
+                aisc_open.channel_c(self)
+            else:
+                w.let("c", w.q(1.0, ""), desc=f"c = 1 for a doubly symmetric I-shape, {STD} Eq. F2-8a")
             w.calc("L_r", "1.95*r_ts*E/(0.7*F_y)*sqrt(J*c/(S_x*h_o) + sqrt((J*c/(S_x*h_o))^2 + 6.76*(0.7*F_y/E)^2))",
                    unit=u["L"], desc=f"limiting unbraced length, inelastic LTB, {STD} Eq. F2-6")
             lb, lp, lr = (sc[n].m_as("m") for n in ("L_b", "L_p", "L_r"))
@@ -447,7 +498,9 @@ class _Ctx:
 
     def flexure_minor(self):
         w, sc, u = self.work, self.sc, self.u
-        if self.form == "I":
+        if self.form in ("T", "L"):
+            return None
+        if self.form in ("I", "C"):
             w.calc("M_py", "min(F_y*Z_y, 1.6*F_y*S_y)", unit=u["mo"], desc=f"plastic moment about y, {STD} Eq. F6-1")
             states = {"yielding (F6-1)": "M_py"}
             fl = self.classes["class_flange_flexure"]
@@ -468,11 +521,13 @@ class _Ctx:
     # ---------------------------------------------------------------- Chapter G
     def shear(self, L_v):
         w, sc, u = self.work, self.sc, self.u
-        if self.form == "I":
+        if self.form in ("T", "L"):
+            return aisc_open.g3(self)
+        if self.form in ("I", "C"):
             w.calc("A_w", "d*t_w", unit=u["ar"], desc=f"web area A_w = d·t_w, {STD} G2.1")
             w.calc("lambda_v", "h/t_w", unit="1", desc="web slenderness for shear h/t_w")
             w.calc("lambda_v_a", "2.24*sqrt(E/F_y)", unit="1", desc=f"limit of {STD} G2.1(a)")
-            if self.fabrication == "rolled" and num(sc["lambda_v"]) <= num(sc["lambda_v_a"]):
+            if self.form == "I" and self.fabrication == "rolled" and num(sc["lambda_v"]) <= num(sc["lambda_v_a"]):
                 w.note(f"Rolled I-shape with h/t_w ≤ 2.24√(E/F_y): C_v1 = 1.0 with φ_v = 1.00, Ω_v = 1.50 "
                        f"({STD} G2.1(a)).", kind="method")
                 w.let("C_v1", w.q(1.0, ""), desc=f"web shear strength coefficient, {STD} G2.1(a)")
@@ -487,7 +542,7 @@ class _Ctx:
                     w.calc("C_v1", "1.10*sqrt(k_v*E/F_y)/lambda_v", unit="1", desc=f"{STD} Eq. G2-4")
                 kind = "shear"
             w.calc("V_n", "0.6*F_y*A_w*C_v1", unit=u["fo"], desc=f"nominal shear strength, {STD} Eq. G2-1")
-            return kind, "shear yielding/buckling of the web (G2.1)"
+            return kind, "shear yielding/buckling of the web (G2.1)" + (" — channel: G2.1(b)" if self.form == "C" else "")
         if self.form == "RHS":
             w.calc("A_w", "2*h*t", unit=u["ar"], desc=f"shear area A_w = 2ht, {STD} G4")
             w.let("k_v", w.q(5.0, ""), desc=f"{STD} G4, k_v = 5")
@@ -516,9 +571,34 @@ class _Ctx:
 
 # ================================================================ public functions
 
-def _cb(work, C_b, M_max, M_A, M_B, M_C):
+def resolve_method(work, method):
+    """LRFD or ASD: chosen once per sheet by the front matter's ``design_method:``, or per call; a call that
+    contradicts the sheet's choice is an error at its ``method``."""
+    sheet = work.settings.get("front_matter", {}).get("design_method")
+    if sheet is not None:
+        sheet = str(sheet).strip().upper()
+        if sheet not in METHODS:
+            work.fail(f"the front matter's design_method: {sheet!r} is neither LRFD nor ASD", param="method")
+        if method is not None and method != sheet:
+            work.fail(f"method=\"{method}\" contradicts the sheet's design_method: {sheet} (front matter); a sheet "
+                      f"uses one method throughout ({STD} B3)", param="method")
+        return sheet
+    return method or "LRFD"
+
+
+def _cb(work, C_b, M_max, M_A, M_B, M_C, beam=None, combo=None, x_start=None, x_end=None):
     w = work
     moments = (M_max, M_A, M_B, M_C)
+    if beam is not None:
+        if C_b is not None or any(m is not None for m in moments):
+            w.fail("give C_b, the four moments, or beam=…, only one of them", param="beam")
+        from .moments import from_beam
+
+        from_beam(w, beam, combo, x_start, x_end, units(w)["mo"])
+        return cb_formula(w)
+    for nm, q in (("combo", combo), ("x_start", x_start), ("x_end", x_end)):
+        if q is not None:
+            w.fail(f"{nm} applies only with beam=… (the moments of a beam.solve result)", param=nm)
     if C_b is not None:
         if any(m is not None for m in moments):
             w.fail("give C_b or the four moments M_max, M_A, M_B, M_C, not both", param="C_b")
@@ -545,11 +625,12 @@ def cb_formula(w):
 COMMON = [
     Param("section", kind="record", record="section", doc="the section (steel_design.shape, section.rolled)"),
     Param("material", kind="record", record="material", doc="material record (f_y, E, G)", default=None),
-    Param("method", kind="text", choices=METHODS, doc="LRFD (φ) or ASD (Ω)", default="LRFD"),
+    Param("method", kind="text", choices=METHODS,
+          doc="LRFD (φ) or ASD (Ω); default: the front matter's design_method:, else LRFD", default=None),
     Param("F_y", "[pressure]", "yield stress (default material.f_y)", default=None),
     Param("E", "[pressure]", "modulus of elasticity (default material.E, else 29,000 ksi)", default=None),
     Param("G", "[pressure]", "shear modulus (default material.G, else 11,200 ksi)", default=None),
-    Param("form", kind="text", choices=("I", "RHS", "CHS"), doc="section form (default: from the record)", default=None),
+    Param("form", kind="text", choices=FORMS, doc="section form (default: from the record)", default=None),
 ]
 LENGTHS = [
     Param("L", "[length]", "member length (buckling about x; about y unless L_y)"),
@@ -560,15 +641,28 @@ LENGTHS = [
 ]
 BENDING = [
     Param("L_b", "[length]", "laterally unbraced length of the compression flange"),
-    Param("C_b", doc="LTB modification factor (or give M_max, M_A, M_B, M_C)", default=None),
+    Param("C_b", doc="LTB modification factor (or give M_max, M_A, M_B, M_C, or beam=…)", default=None),
     Param("M_max", "[force]*[length]", "largest moment in the unbraced segment (F1-1)", default=None),
     Param("M_A", "[force]*[length]", "moment at the quarter point (F1-1)", default=None),
     Param("M_B", "[force]*[length]", "moment at the centreline (F1-1)", default=None),
     Param("M_C", "[force]*[length]", "moment at the three-quarter point (F1-1)", default=None),
+    Param("beam", kind="record", record="beam", doc="a beam.solve result: C_b from its moment diagram (F1-1)",
+          default=None),
+    Param("combo", kind="text", doc="the beam's combination (may be left out when it has one)", default=None),
+    Param("x_start", "[length]", "start of the unbraced segment on the beam (default 0)", default=None),
+    Param("x_end", "[length]", "end of the unbraced segment on the beam (default: the beam's end)", default=None),
+    Param("stem", kind="text", choices=("tension", "compression"),
+          doc="tees (F9): the stem tip in tension (flange in compression) or in compression", default="tension"),
+    Param("toe", kind="text", choices=("compression", "tension"),
+          doc="single angles (F10): the toe of the vertical leg in compression or tension", default="compression"),
+    Param("restraint", kind="text", choices=("none", "at_max_moment"),
+          doc="single angles (F10.2): lateral-torsional restraint only at the ends, or also at the point of "
+              "maximum moment", default="none"),
 ]
+BEND_NAMES = [p.name for p in BENDING]
 CLASS_FIELDS = [
-    Field("class_flange_compression", kind="text", doc="B4.1a: nonslender or slender"),
-    Field("class_web_compression", kind="text", doc="B4.1a: nonslender or slender", optional=True),
+    Field("class_flange_compression", kind="text", doc="B4.1a: nonslender or slender (angles: the legs)"),
+    Field("class_web_compression", kind="text", doc="B4.1a: nonslender or slender (tees: the stem)", optional=True),
     Field("class_flange_flexure", kind="text", doc="B4.1b: compact, noncompact or slender"),
     Field("class_web_flexure", kind="text", doc="B4.1b: compact, noncompact or slender", optional=True),
 ]
@@ -577,7 +671,10 @@ F_COMP = [Field("P_n", "[force]", "nominal compressive strength"),
           Field("F_cr", "[pressure]", "critical stress"), Field("F_e", "[pressure]", "elastic buckling stress"),
           Field("F_ex", "[pressure]", "flexural buckling stress about x, E3-4"),
           Field("F_ey", "[pressure]", "flexural buckling stress about y, E3-4"),
-          Field("F_ez", "[pressure]", "torsional buckling stress, E4-2 (when L_z > L_y)", optional=True),
+          Field("F_ez", "[pressure]", "torsional buckling stress, E4-2 or E4-7", optional=True),
+          Field("F_e_FT", "[pressure]", "flexural-torsional buckling stress, E4-3 or E4-4", optional=True),
+          Field("H", doc="flexural constant, E4-8", optional=True),
+          Field("r_o", "[length]", "polar radius of gyration about the shear centre, E4-9", optional=True),
           Field("governing_compression", kind="text", doc="the buckling mode and clause")]
 F_FLEX = [Field("M_nx", "[force]*[length]", "nominal flexural strength, major axis"),
           Field("M_cx", "[force]*[length]", "available flexural strength φ_bM_n or M_n/Ω_b, major axis"),
@@ -585,20 +682,25 @@ F_FLEX = [Field("M_nx", "[force]*[length]", "nominal flexural strength, major ax
           Field("L_p", "[length]", "limiting unbraced length L_p", optional=True),
           Field("L_r", "[length]", "limiting unbraced length L_r", optional=True),
           Field("C_b", doc="LTB modification factor used", optional=True),
+          Field("M_cr", "[force]*[length]", "elastic lateral-torsional buckling moment (F9-10, F10-5)", optional=True),
+          Field("R_pc", doc="web plastification factor (F4-9)", optional=True),
+          Field("R_pg", doc="bending strength reduction factor (F5-6)", optional=True),
           Field("governing_flexure", kind="text", doc="the limit state governing M_nx")]
-F_FLEXY = [Field("M_ny", "[force]*[length]", "nominal flexural strength, minor axis"),
-           Field("M_cy", "[force]*[length]", "available flexural strength, minor axis"),
-           Field("governing_flexure_y", kind="text", doc="the limit state governing M_ny")]
+F_FLEXY = [Field("M_ny", "[force]*[length]", "nominal flexural strength, minor axis (I-shapes, channels, HSS)",
+                 optional=True),
+           Field("M_cy", "[force]*[length]", "available flexural strength, minor axis", optional=True),
+           Field("governing_flexure_y", kind="text", doc="the limit state governing M_ny", optional=True)]
 F_SHEAR = [Field("V_n", "[force]", "nominal shear strength"), Field("V_c", "[force]", "available shear strength"),
            Field("governing_shear", kind="text", doc="clause")]
 F_UTIL = [Field("util_axial", doc="P_r/P_c", optional=True), Field("util_flexure", doc="M_rx/M_cx", optional=True),
           Field("util_flexure_y", doc="M_ry/M_cy", optional=True), Field("util_shear", doc="V_r/V_c", optional=True),
           Field("util_interaction", doc="H1-1a or H1-1b", optional=True),
           Field("util", doc="largest utilisation"), Field("governing", kind="text", doc="the check with the largest utilisation"),
-          Field("method", kind="text", doc="LRFD or ASD"), Field("form", kind="text", doc="I, RHS or CHS")]
+          Field("method", kind="text", doc="LRFD or ASD"), Field("form", kind="text", doc="I, C, T, L, RHS or CHS")]
 
 
 def _start(work, section, material, method, F_y, E, G, form):
+    method = resolve_method(work, method)
     ctx = _Ctx(work, section, material, form, method, F_y, E, G)
     work.note(f"{STD}, {method}: {'design strength φR_n ≥ R_u' if method == 'LRFD' else 'allowable strength R_n/Ω ≥ R_a'} "
               f"({STD} B3.1/B3.2); required strengths P_r, M_r, V_r are for the {method} combinations.", kind="method")
@@ -630,7 +732,8 @@ def _util(w, name, req, cap, desc):
 
 
 def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, K_y=None, L_y=None, L_z=None,
-         L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, L_v=None,
+         L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None,
+         x_end=None, stem="tension", toe="compression", restraint="none", L_v=None,
          P_r=None, M_rx=None, M_ry=None, V_r=None, want=("compression", "flexure", "flexure_y", "shear")):
     ctx = _start(work, section, material, method, F_y, E, G, form)
     w, sc, u = work, work.scope, ctx.u
@@ -641,6 +744,10 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     for nm, q in (("P_r", P_r), ("M_rx", M_rx), ("M_ry", M_ry), ("V_r", V_r)):
         if q is not None and q.magnitude < 0:
             w.fail(f"{nm} is a required strength: give its magnitude (≥ 0)", param=nm)
+    if ctx.form in ("T", "L") and M_ry is not None:
+        w.fail(f"minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not built ({STD} "
+               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis'}); "
+               f"M_ry is out of scope", param="M_ry")
     ctx.classify()
     out, utils = {}, {}
     if "compression" in want:
@@ -648,19 +755,23 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         ctx.available("P_c", "P_n", "compression")
         out.update(P_n=sc["P_n"], P_c=sc["P_c"], F_cr=sc["F_cr"], F_e=sc["F_e"], F_ex=sc["F_ex"], F_ey=sc["F_ey"],
                    governing_compression=gov)
-        if "F_ez" in sc:
-            out["F_ez"] = sc["F_ez"]
+        for k in ("F_ez", "F_e_FT", "r_o"):
+            if k in sc:
+                out[k] = sc[k]
+        if "H" in sc and "F_e_FT" in sc:
+            out["H"] = w.q(num(sc["H"]), "")
         if P_r is not None:
             _util(w, "util_axial", "P_r", "P_c", f"axial compression, {STD} E1")
             utils["util_axial"] = "util_axial"
+    biaxial = False
     if "flexure" in want:
-        cb = _cb(w, C_b, M_max, M_A, M_B, M_C) if (ctx.form != "CHS") else None
-        gov = ctx.flexure_major(L_b, cb)
+        cb = _cb(w, C_b, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end) if ctx.form != "CHS" else None
+        gov = ctx.flexure_major(L_b, cb, stem, toe, restraint)
         ctx.available("M_cx", "M_nx", "flexure")
         out.update(M_nx=sc["M_nx"], M_cx=sc["M_cx"], governing_flexure=gov)
-        for k in ("M_p", "L_p", "L_r", "C_b"):
+        for k in ("M_p", "L_p", "L_r", "C_b", "M_cr", "R_pc", "R_pg"):
             if k in sc and sc[k] is not None and not isinstance(sc[k], str):
-                out[k] = sc[k] if k != "C_b" else w.q(num(sc[k]), "")
+                out[k] = sc[k] if k not in ("C_b", "R_pc", "R_pg") else w.q(num(sc[k]), "")
         if "M_p" not in out and "M_px" in sc:
             out["M_p"] = sc["M_px"]
         if M_rx is not None:
@@ -668,11 +779,16 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
             utils["util_flexure"] = "util_flexure"
     if "flexure_y" in want:
         gov = ctx.flexure_minor()
-        ctx.available("M_cy", "M_ny", "flexure")
-        out.update(M_ny=sc["M_ny"], M_cy=sc["M_cy"], governing_flexure_y=gov)
-        if M_ry is not None:
-            _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about y, {STD} F1")
-            utils["util_flexure_y"] = "util_flexure_y"
+        if gov is None:
+            w.note(f"Minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not checked (no M_ry; "
+                   f"out of the scope built).", kind="method")
+        else:
+            biaxial = True
+            ctx.available("M_cy", "M_ny", "flexure")
+            out.update(M_ny=sc["M_ny"], M_cy=sc["M_cy"], governing_flexure_y=gov)
+            if M_ry is not None:
+                _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about y, {STD} F1")
+                utils["util_flexure_y"] = "util_flexure_y"
     if "shear" in want:
         kind, gov = ctx.shear(L_v)
         ctx.available("V_c", "V_n", kind)
@@ -684,21 +800,22 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         for nm in ("M_rx", "M_ry"):
             if sc.get(nm) is None:
                 sc[nm] = w.q(0.0, u["mo"])
-        interaction(w, u)
+        interaction(w, u, biaxial=biaxial)
         utils["util_interaction"] = "util_interaction"
     return _collect(ctx, out, utils)
 
 
-def interaction(w, u):
+def interaction(w, u, biaxial=True):
     sc = w.scope
     ratio = sc["P_r"].m_as("N") / sc["P_c"].m_as("N")
+    moments = "M_rx/M_cx + M_ry/M_cy" if biaxial else "M_rx/M_cx"
     if ratio >= 0.2:
         w.note(f"P_r/P_c = {ratio:.3f} ≥ 0.2: {STD} Eq. H1-1a applies.", kind="method")
-        w.calc("util_interaction", "P_r/P_c + 8/9*(M_rx/M_cx + M_ry/M_cy)", unit="1",
+        w.calc("util_interaction", f"P_r/P_c + 8/9*({moments})", unit="1",
                desc=f"combined flexure and compression, {STD} Eq. H1-1a")
     else:
         w.note(f"P_r/P_c = {ratio:.3f} < 0.2: {STD} Eq. H1-1b applies.", kind="method")
-        w.calc("util_interaction", "P_r/(2*P_c) + (M_rx/M_cx + M_ry/M_cy)", unit="1",
+        w.calc("util_interaction", f"P_r/(2*P_c) + ({moments})", unit="1",
                desc=f"combined flexure and compression, {STD} Eq. H1-1b")
     w.check("util_interaction <= 1", desc=f"interaction, {STD} H1.1")
 
@@ -713,17 +830,19 @@ REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or 
 @namespace.function("aisc_beam", params=COMMON + BENDING + REQ_BEAM,
                     fields=CLASS_FIELDS + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check.aisc_beam",
                     family="steel_check")
-def aisc_beam(work, section, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
-              M_max=None, M_A=None, M_B=None, M_C=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
+def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
+              M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
+              stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None):
     """A beam to AISC 360-16: B4 classification, Chapter F about both axes, Chapter G shear."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
-                M_C=M_C, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, want=("flexure", "flexure_y", "shear"))
+                M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
+                restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, want=("flexure", "flexure_y", "shear"))
 
 
 @namespace.function("aisc_column", params=COMMON + LENGTHS + REQ_COL,
                     fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check.aisc_column",
                     family="steel_check")
-def aisc_column(work, section, L, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, K_x=None,
+def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, G=None, form=None, K_x=None,
                 K_y=None, L_y=None, L_z=None, P_r=None):
     """A column to AISC 360-16: B4 classification, Chapter E (E3, E4 where it applies, E7)."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, P_r=P_r,
@@ -731,52 +850,62 @@ def aisc_column(work, section, L, material=None, method="LRFD", F_y=None, E=None
 
 
 @namespace.function("aisc_beam_column", params=COMMON + LENGTHS + BENDING + REQ_COL + REQ_BEAM,
-                    fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check.aisc_beam_column",
-                    family="steel_check")
-def aisc_beam_column(work, section, L, L_b, material=None, method="LRFD", F_y=None, E=None, G=None, form=None,
+                    fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL,
+                    returns="steel_check.aisc_beam_column", family="steel_check")
+def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
                      K_x=None, K_y=None, L_y=None, L_z=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
-                     P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
+                     beam=None, combo=None, x_start=None, x_end=None, stem="tension", toe="compression",
+                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
     """A beam-column to AISC 360-16: Chapters B4, E, F, G and the H1-1 interaction."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, L_b=L_b,
-                C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry, V_r=V_r)
+                C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, beam=beam, combo=combo, x_start=x_start,
+                x_end=x_end, stem=stem, toe=toe, restraint=restraint, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry,
+                V_r=V_r)
 
 
 @namespace.function("aisc_shear", params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
                     fields=CLASS_FIELDS + F_SHEAR + F_UTIL, returns="steel_check.aisc_shear",
                     family="steel_check")
-def aisc_shear(work, section, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, V_r=None, L_v=None):
-    """Shear alone: AISC 360-16 G2.1 (I-shapes, major axis), G4 (rectangular HSS), G5 (round HSS)."""
+def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, V_r=None, L_v=None):
+    """Shear alone: AISC 360-16 G2.1 (I-shapes and channels), G3 (tees, angles), G4 (rectangular HSS), G5 (round)."""
     return _run(work, section, material, method, F_y, E, G, form, V_r=V_r, L_v=L_v, want=("shear",))
 
 
 @namespace.function("aisc_flexure", params=COMMON + BENDING + REQ_BEAM[:1],
                     fields=CLASS_FIELDS + F_FLEX + F_UTIL, returns="steel_check.aisc_flexure",
                     family="steel_check")
-def aisc_flexure(work, section, L_b, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, C_b=None,
-                 M_max=None, M_A=None, M_B=None, M_C=None, M_rx=None):
-    """Major-axis flexure alone: AISC 360-16 F2/F3 (I), F7 (rectangular HSS), F8 (round HSS)."""
+def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None, C_b=None,
+                 M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
+                 stem="tension", toe="compression", restraint="none", M_rx=None):
+    """Major-axis flexure alone: AISC 360-16 F2–F5 (I, channels), F7/F8 (HSS), F9 (tees), F10 (single angles)."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
-                M_C=M_C, M_rx=M_rx, want=("flexure",))
+                M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
+                restraint=restraint, M_rx=M_rx, want=("flexure",))
 
 
 @namespace.function("aisc_classify", params=COMMON[:1] + COMMON[1:2] + COMMON[3:],
-                    fields=CLASS_FIELDS + [Field("form", kind="text", doc="I, RHS or CHS")], returns="steel_class.aisc",
-                    family="steel_class")
+                    fields=CLASS_FIELDS + [Field("form", kind="text", doc="I, C, T, L, RHS or CHS")],
+                    returns="steel_class.aisc", family="steel_class")
 def aisc_classify(work, section, material=None, F_y=None, E=None, G=None, form=None):
-    """AISC 360-16 B4.1 classification of the flanges and web, for compression and flexure."""
+    """AISC 360-16 B4.1 classification of the flanges and web (legs, stem), for compression and flexure."""
     ctx = _Ctx(work, section, material, form, "LRFD", F_y, E, G)
     ctx.geometry()
     return {**ctx.classify(), "form": ctx.form}
 
 
-@namespace.function("aisc_Cb", params=[Param("M_max", "[force]*[length]", "largest moment in the unbraced segment"),
-                                       Param("M_A", "[force]*[length]", "moment at the quarter point"),
-                                       Param("M_B", "[force]*[length]", "moment at the centreline"),
-                                       Param("M_C", "[force]*[length]", "moment at the three-quarter point")],
-                    fields=[Field("C_b", doc="LTB modification factor, Eq. F1-1")], returns="steel_Cb")
-def aisc_Cb(work, M_max, M_A, M_B, M_C):
-    """C_b from the moments of an unbraced segment, AISC 360-16 Eq. F1-1 (absolute values)."""
-    return {"C_b": work.q(num(cb_formula(work)), "")}
+@namespace.function("aisc_Cb", params=[
+    Param("M_max", "[force]*[length]", "largest moment in the unbraced segment", default=None),
+    Param("M_A", "[force]*[length]", "moment at the quarter point", default=None),
+    Param("M_B", "[force]*[length]", "moment at the centreline", default=None),
+    Param("M_C", "[force]*[length]", "moment at the three-quarter point", default=None),
+    *[p for p in BENDING if p.name in ("beam", "combo", "x_start", "x_end")]],
+    fields=[Field("C_b", doc="LTB modification factor, Eq. F1-1")], returns="steel_Cb")
+def aisc_Cb(work, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None):
+    """C_b of an unbraced segment, AISC 360-16 Eq. F1-1 (absolute values): from the four moments, or read from a
+    beam.solve result over x_start … x_end."""
+    if beam is None and any(m is None for m in (M_max, M_A, M_B, M_C)):
+        work.fail("give the four moments M_max, M_A, M_B, M_C, or beam=… (a beam.solve result)", param="M_max")
+    return {"C_b": work.q(num(_cb(work, None, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end)), "")}
 
 
 @namespace.function("aisc_interaction",

@@ -16,6 +16,7 @@ ALIASES = {
     "S_y": ("S_y", "W_el_z"), "Z_y": ("Z_y", "W_pl_z"), "r_x": ("r_x", "i_y"), "r_y": ("r_y", "i_z"),
     "J": ("J", "I_t"), "C_w": ("C_w", "I_w"), "h_o": ("h_o",), "r_ts": ("r_ts",),
     "B": ("B", "b", "width"), "H": ("H", "h", "d", "depth"), "t": ("t", "t_des"), "D": ("D", "d", "depth"),
+    "x_0": ("x_0",), "y_0": ("y_0",), "I_1": ("I_1",), "I_2": ("I_2",), "theta_p": ("theta_p",),
 }
 
 
@@ -47,22 +48,51 @@ def field(rec, name):
     return None
 
 
+FORMS = ("I", "C", "T", "L", "RHS", "CHS")
+_WORDS = {"I-shape": "I", "channel": "C", "tee": "T", "angle": "L", "box": "RHS", "tube": "CHS"}
+_PREFIX = (("MC", "C"), ("WT", "T"), ("MT", "T"), ("ST", "T"), ("HSS", None), ("HP", "I"), ("W", "I"), ("M", "I"),
+           ("S", "I"), ("C", "C"), ("L", "L"), ("IPE", "I"), ("HE", "I"))
+
+
+def _small(rec, name, scale):
+    v = rec.fields.get(name)
+    return v is None or abs(v.m_as("mm")) <= 1e-6 * max(scale, 1.0)
+
+
 def form_of(rec, given: str | None) -> str:
-    """'I', 'RHS' or 'CHS': given, else the record's own form word (steel_design.shape), else its fields."""
+    """'I', 'C', 'T', 'L', 'RHS' or 'CHS': given, else the record's own form word (steel_design.shape, the section
+    functions' description, a catalogue designation), else its fields and shear centre."""
     if given:
         return given
     if rec is None:
         return ""
     shape = str(rec.fields.get("shape", ""))
-    if shape in ("I", "RHS", "CHS"):
+    if shape in FORMS:
         return shape
+    first = shape.split(" ")[0] if shape else ""
+    if first in _WORDS:
+        return _WORDS[first]
     f = rec.fields
+    desig = str(f.get("designation", "")).upper()
+    if desig:
+        for prefix, form in _PREFIX:
+            if desig.startswith(prefix) and prefix != "HSS" and (len(desig) == len(prefix) or
+                                                                  not desig[len(prefix)].isalpha()):
+                return form
     if "t_f" in f and "t_w" in f:
+        depth = f["d"].m_as("mm") if "d" in f else 1.0
+        if not _small(rec, "x_0", depth):
+            return "C"
         return "I"
-    if "t" in f and ("b_f" in f or "B" in f or "b" in f):
+    if "t" in f and ("b_f" in f or "B" in f or "b" in f) and not (f.get("I_xy") is not None and
+                                                                  abs(f["I_xy"].magnitude) > 0):
+        if "t" in f and not _small(rec, "x_0", 1.0) and not _small(rec, "y_0", 1.0):
+            return "L"
         return "RHS"
     if "t" in f and ("D" in f or "d" in f):
         return "CHS"
+    if "t" in f and ("h" in f or "b" in f):
+        return "L"
     return ""
 
 

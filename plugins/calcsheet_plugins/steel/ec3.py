@@ -270,8 +270,17 @@ class _Ctx:
         return {}
 
     # ------------------------------------------------------------ 6.3.2 LTB
-    def ltb(self, L_LT, shape, psi, z_g, C_1, method, M_y_Ed):
+    def ltb(self, L_LT, shape, psi, z_g, C_1, method, M_y_Ed, beam=None, combo=None, x_start=None, x_end=None):
         w, sc, d, mf = self.work, self.sc, ec3(), moment_factors()
+        self.diagram = beam is not None
+        if beam is not None:
+            if C_1 is not None or psi is not None or shape != "uniform":
+                w.fail("give the moment shape (moment_shape, psi, C_1) or beam=…, not both", param="beam")
+            if z_g is not None and z_g.magnitude != 0:
+                w.fail("C_2 (the load-height term) cannot be read from a moment diagram: with z_g give "
+                       "moment_shape=\"udl\" or \"point_mid\" instead of beam=…", param="z_g")
+        elif any(q is not None for q in (combo, x_start, x_end)):
+            w.fail("combo, x_start and x_end apply only with beam=… (a beam.solve result)", param="combo")
         if L_LT is None:
             w.note(f"No lateral-torsional buckling length given: the compression flange is taken as continuously "
                    f"restrained, so LTB does not apply ({STD} 6.3.2.1, 6.3.2.2(4)).", kind="method")
@@ -279,7 +288,18 @@ class _Ctx:
             return {}
         sc["L_LT"] = L_LT
         sc["z_g"] = z_g if z_g is not None else w.q(0.0, "mm")
-        if C_1 is not None:
+        if beam is not None:
+            from .moments import from_beam
+
+            if x_start is None and x_end is None:
+                w.note("beam=… without x_start/x_end: the segment between lateral restraints is taken as the whole "
+                       "beam.", kind="method")
+            from_beam(w, beam, combo, x_start, x_end, "kN*m")
+            w.calc("C_1", "sqrt(35*M_max^2/(M_max^2 + 9*M_A^2 + 16*M_B^2 + 9*M_C^2))", unit="1",
+                   desc="C_1 from the quarter-point moments of the segment's diagram, k = 1")
+            self.work.working.items[-1].note = mf["source"]["C1_linear"]
+            w.let("C_2", w.q(0.0, ""), desc="C_2 = 0: the load height is not read from a diagram (z_g = 0)")
+        elif C_1 is not None:
             w.let("C_1", C_1, desc="equivalent moment factor C_1", note="given")
             w.let("C_2", w.q(0.0, ""), desc="C_2", note="C_1 given: load-height term not used")
         elif shape in ("uniform", "end_moments"):
@@ -321,7 +341,11 @@ class _Ctx:
                    desc=f"{STD} 6.3.2.3(1)")
             w.calc("chi_LT_0", "min(1, 1/lambda_LT^2, 1/(Phi_LT + sqrt(Phi_LT^2 - beta_LT*lambda_LT^2)))", unit="1",
                    desc=f"reduction factor, {STD} 6.3.2.3 Eq. 6.57 (χ_LT ≤ 1, ≤ 1/λ̄_LT²)")
-            if shape in ("udl", "point_mid") and C_1 is None:
+            if beam is not None:
+                w.let("k_c", w.q(mf["beam_diagram"]["k_c"], ""), desc=f"correction factor k_c (f = 1): a moment "
+                      f"diagram read from a beam has no row in {STD} Table 6.6 (conservative)",
+                      note=mf["beam_diagram"]["text"])
+            elif shape in ("udl", "point_mid") and C_1 is None:
                 w.let("k_c", w.q(mf[shape]["k_c"], ""), desc=f"correction factor, {mf[shape]['text']}", note=mf["source"]["k_c"])
             else:
                 p = 1.0 if shape == "uniform" or psi is None else num(psi)
@@ -356,7 +380,10 @@ class _Ctx:
     # ------------------------------------------------------------ 6.3.3 interaction, Annex B
     def interaction(self, shape, psi, psi_z, ltb_possible):
         w, sc, mf = self.work, self.sc, moment_factors()
-        if shape in ("udl", "point_mid"):
+        if getattr(self, "diagram", False):
+            w.let("C_my", w.q(mf["beam_diagram"]["C_m"], ""), desc=f"C_my for a moment diagram read from a beam: the "
+                  f"upper bound of {STD} Annex B Table B.3 (conservative)", note=mf["beam_diagram"]["text"])
+        elif shape in ("udl", "point_mid"):
             w.let("C_my", w.q(mf[shape]["C_m"], ""), desc=f"equivalent uniform moment factor, {mf[shape]['text']}",
                   note=mf["source"]["C_m"])
         else:
@@ -422,7 +449,11 @@ LTB = [Param("L_LT", "[length]", "length between lateral restraints for LTB (omi
        Param("z_g", "[length]", "load height above the shear centre (positive: destabilising)", default=None),
        Param("C_1", doc="C_1 given directly (overrides the moment shape)", default=None),
        Param("ltb_method", kind="text", choices=("rolled", "general"),
-             doc="6.3.2.3 (rolled or equivalent welded) or 6.3.2.2 (general)", default="rolled")]
+             doc="6.3.2.3 (rolled or equivalent welded) or 6.3.2.2 (general)", default="rolled"),
+       Param("beam", kind="record", record="beam", doc="a beam.solve result: C_1 from its moment diagram", default=None),
+       Param("combo", kind="text", doc="the beam's combination (may be left out when it has one)", default=None),
+       Param("x_start", "[length]", "start of the segment between lateral restraints on the beam", default=None),
+       Param("x_end", "[length]", "end of the segment between lateral restraints on the beam", default=None)]
 FORCES = [Param("N_Ed", "[force]", "design axial compression", default=None),
           Param("M_y_Ed", "[force]*[length]", "design moment about y–y (major)", default=None),
           Param("M_z_Ed", "[force]*[length]", "design moment about z–z (minor)", default=None),
@@ -450,7 +481,7 @@ FIELDS = [
 
 def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=None, L_LT=None, moment_shape="uniform",
          psi=None, z_g=None, C_1=None, ltb_method="rolled", N_Ed=None, M_y_Ed=None, M_z_Ed=None, V_Ed=None, psi_z=None,
-         want=()):
+         beam=None, combo=None, x_start=None, x_end=None, want=()):
     w = work
     for nm, q in (("L", L), ("L_z", L_z), ("L_LT", L_LT)):
         positive(w, nm, q)
@@ -467,7 +498,7 @@ def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=Non
     if "buckling" in want:
         utils.update(ctx.flexural_buckling(L, L_z, N_Ed))
     if "ltb" in want:
-        utils.update(ctx.ltb(L_LT, moment_shape, psi, z_g, C_1, ltb_method, M_y_Ed))
+        utils.update(ctx.ltb(L_LT, moment_shape, psi, z_g, C_1, ltb_method, M_y_Ed, beam, combo, x_start, x_end))
     if "buckling" in want and "ltb" in want and N_Ed is not None and N_Ed.m_as("N") > 0:
         utils.update(ctx.interaction(moment_shape, psi, psi_z, L_LT is not None))
     out = {"section_class": w.q(float(ctx.klass), "")}
@@ -489,12 +520,12 @@ def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=Non
 @namespace.function("ec3_beam", params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
                     family="steel_check")
 def ec3_beam(work, section, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None, L_LT=None,
-             moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled", N_Ed=None, M_y_Ed=None,
-             M_z_Ed=None, V_Ed=None, psi_z=None):
+             moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled", beam=None, combo=None,
+             x_start=None, x_end=None, N_Ed=None, M_y_Ed=None, M_z_Ed=None, V_Ed=None, psi_z=None):
     """A beam to EN 1993-1-1: 5.5 classification, 6.2 resistances (bending, shear, bending with shear), 6.3.2 LTB."""
     return _run(work, section, material, f_y, E, G, na, fabrication, L_LT=L_LT, moment_shape=moment_shape, psi=psi,
                 z_g=z_g, C_1=C_1, ltb_method=ltb_method, N_Ed=N_Ed, M_y_Ed=M_y_Ed, M_z_Ed=M_z_Ed, V_Ed=V_Ed,
-                want=("ltb",))
+                beam=beam, combo=combo, x_start=x_start, x_end=x_end, want=("ltb",))
 
 
 @namespace.function("ec3_column", params=COMMON + BUCKLING + FORCES[:1], fields=FIELDS, returns="steel_check.ec3",
@@ -509,11 +540,12 @@ def ec3_column(work, section, L, material=None, f_y=None, E=None, G=None, na="re
                     family="steel_check")
 def ec3_beam_column(work, section, L, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None,
                     L_z=None, L_LT=None, moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled",
-                    N_Ed=None, M_y_Ed=None, M_z_Ed=None, V_Ed=None, psi_z=None):
+                    beam=None, combo=None, x_start=None, x_end=None, N_Ed=None, M_y_Ed=None, M_z_Ed=None, V_Ed=None,
+                    psi_z=None):
     """A beam-column to EN 1993-1-1: 5.5, 6.2 (incl. 6.2.9.1), 6.3.1, 6.3.2 and 6.3.3 with Annex B factors."""
     return _run(work, section, material, f_y, E, G, na, fabrication, L=L, L_z=L_z, L_LT=L_LT, moment_shape=moment_shape,
                 psi=psi, z_g=z_g, C_1=C_1, ltb_method=ltb_method, N_Ed=N_Ed, M_y_Ed=M_y_Ed, M_z_Ed=M_z_Ed, V_Ed=V_Ed,
-                psi_z=psi_z, want=("buckling", "ltb"))
+                psi_z=psi_z, beam=beam, combo=combo, x_start=x_start, x_end=x_end, want=("buckling", "ltb"))
 
 
 @namespace.function("ec3_chi", params=[Param("lambda_bar", doc="non-dimensional slenderness λ̄"),

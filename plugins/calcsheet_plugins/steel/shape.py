@@ -9,8 +9,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-
-FORMS = ("I", "RHS", "CHS")
+from .common import FORMS
 
 _PROPS = [
     ("A", "[length]**2", "gross area"),
@@ -37,14 +36,22 @@ _PROPS = [
     ("B", "[length]", "HSS overall width"),
     ("t", "[length]", "HSS design wall thickness"),
     ("D", "[length]", "round HSS / pipe outside diameter"),
+    ("x_0", "[length]", "shear centre from the centroid along x (channels: behind the web, negative)"),
+    ("y_0", "[length]", "shear centre from the centroid along y (tees: towards the flange)"),
+    ("y_bar", "[length]", "tees: the outer face of the flange to the centroid (AISC ȳ)"),
+    ("I_1", "[length]**4", "angles: major principal second moment (AISC I_w)"),
+    ("I_2", "[length]**4", "angles: minor principal second moment (AISC I_z)"),
+    ("theta_p", "[angle]", "angles: angle from the x axis to the major principal axis"),
 ]
 
 PARAMS = [Param("name", kind="text", doc="designation, as printed (e.g. \"W18X50\")"),
-          Param("form", kind="text", choices=FORMS, doc="I (I/H, W), RHS (rectangular/square HSS), CHS (round)"),
+          Param("form", kind="text", choices=FORMS, doc="I (I/H, W), C (channel), T (tee), L (single angle), RHS (rectangular/square HSS), "
+                    "CHS (round)"),
           Param("fabrication", kind="text", choices=("rolled", "welded", "hot-finished", "cold-formed"),
                 doc="how the section is made (buckling curves, G2.1(a))", default="rolled")]
 PARAMS += [Param(n, dim, doc, default=None) for n, dim, doc in _PROPS]
-FIELDS = [Field("name", kind="text", doc="designation"), Field("shape", kind="text", doc="form: I, RHS or CHS"),
+FIELDS = [Field("name", kind="text", doc="designation"),
+          Field("shape", kind="text", doc="form: I, C, T, L, RHS or CHS"),
           Field("fabrication", kind="text", doc="rolled, welded, hot-finished or cold-formed")]
 FIELDS += [Field(n, dim, doc, optional=True) for n, dim, doc in _PROPS]
 
@@ -55,7 +62,7 @@ def shape(work, name, form, fabrication="rolled", **props):
     if not given:
         work.fail("give the section's published properties (A=…, I_x=…, …)")
     for k, v in given.items():
-        if v.magnitude <= 0:
+        if v.magnitude <= 0 and k not in ("x_0", "y_0", "theta_p"):
             work.fail(f"{k} must be greater than zero", param=k)
     rows = [[k, dict((n, d) for n, _, d in _PROPS)[k], v] for k, v in given.items()]
     work.table(f"{name}: published properties ({form}, {fabrication})", ["Symbol", "Property", "Value"], rows)

@@ -89,3 +89,21 @@ def test_very_slender_aisc_column_warns_at_L():
                       f"c = steel_design.aisc_column(section=s, F_y=50 ksi, L=40 ft)\n")
     warns = [d for d in r.diagnostics if d.severity == "warning" and "200" in d.message]
     assert warns and warns[0].span is not None   # L_c/r_y = 480/1.65 = 291 > 200 (E2 User Note)
+
+
+@pytest.mark.parametrize("body, words", [
+    # an angle without its principal axes, a channel without its shear centre (E4 needs them)
+    ('s = steel_design.shape(name="L", form="L", A=1.94 in^2, d=4 in, b_f=4 in, t=0.25 in, I_x=3.0 in^4, '
+     'I_y=3.0 in^4, S_x=1.03 in^3, S_y=1.03 in^3, J=0.0438 in^4)\nc = steel_design.aisc_column(section=s, F_y=36 ksi, '
+     'L=6 ft)', "I_1"),
+    ('s = steel_design.shape(name="C", form="C", A=9.96 in^2, d=15 in, b_f=3.4 in, t_f=0.65 in, t_w=0.4 in, '
+     'I_x=315 in^4, I_y=8.07 in^4, S_x=42 in^3, Z_x=50.8 in^3, S_y=3.09 in^3, Z_y=6.19 in^3, J=1.01 in^4, '
+     'C_w=358 in^6)\nc = steel_design.aisc_column(section=s, F_y=50 ksi, L=10 ft)', "shear centre"),
+    # beam= on EN 1993 with a load height (C_2 cannot come from a diagram)
+    (f's = steel_design.shape({IPE300})\nb = beam.solve(spans=[6 m], supports="pinned, roller", '
+     f'loads=[beam.udl(w=10 kN/m)])\nx = steel_design.ec3_beam(section=s, f_y=235 MPa, L_LT=6 m, beam=b, z_g=150 mm)',
+     "C_2"),
+])
+def test_open_shapes_and_diagrams_missing_what_they_need_are_located_errors(body, words):
+    errs = errors(body, units="US")
+    assert errs and words in errs[0].message and errs[0].span is not None, [e.message for e in errs]
