@@ -124,7 +124,7 @@ def _tasks(sheet: SheetInfo, rows: Iterable[Row], out_dir: Path, formats: list[s
             continue
         yield row, Task(index=index, sheet=sheet.path, source=sheet.source, member=row.member, cells=tuple(cells),
                         formats=tuple(formats), paper=paper, content_hash=h, label=label, where=row.where,
-                        subject_suffix=f"member {row.member}")
+                        subject_suffix=f"member {row.member}", write_to=str(out_dir))
 
 
 def _unchanged_files(out_dir: Path, member: str, formats: list[str], h: str) -> bool:
@@ -186,7 +186,8 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
                     bar.log(w)
             for e in outcome.errors:
                 bar.log(e)
-            if outcome.ok and not outcome.skipped:
+            summary.files += outcome.written  # written by the worker (serial runs and the pool)
+            if outcome.ok and not outcome.skipped and outcome.files:  # returned as bytes (a cluster's workers)
                 try:
                     summary.files += len(write_member(out_dir, outcome))
                 except OSError as exc:
