@@ -136,7 +136,7 @@ def main() -> int:
     ap.add_argument("--rows", type=int, default=200)
     ap.add_argument("--pdf", type=int, default=0, help="also time N rows with PDFs (0: skip)")
     ap.add_argument("--large", type=int, default=10000)
-    ap.add_argument("--large-formats", default="html,json")
+    ap.add_argument("--large-formats", default="json")
     ap.add_argument("--skip-cluster", action="store_true")
     ap.add_argument("--skip-memory", action="store_true")
     ap.add_argument("--only-memory", action="store_true")

@@ -10,7 +10,6 @@ includes, values, plugin versions) is unchanged is not rebuilt.
 """
 from __future__ import annotations
 
-import hashlib
 import sys
 from dataclasses import dataclass, field
 from pathlib import Path
@@ -166,7 +165,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
         total = sum(1 for _ in schedule.rows())
     bar = Progress(total, Path(table).name, enabled=bar_on)
     info = {"sheet": sheet.path, "table": str(table), "sheet_sha256": sheet.fingerprint["sheet"],
-            "table_sha256": _file_sha(table), "plugins": sheet.fingerprint["plugins"], "meta": sheet.meta,
+            "table_sha256": schedule.sha256, "plugins": sheet.fingerprint["plugins"], "meta": sheet.meta,
             "paper": paper, "columns": schedule.columns}
     writer = ScheduleWriter(out_dir, formats, info)
     summary = Summary()
@@ -213,14 +212,6 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
     out(f"{table}: {summary.members} members: {summary.ok} OK, {summary.ng} NG, {summary.errors} not built; "
         f"{summary.built} built, {summary.unchanged} unchanged -> {out_dir / 'schedule.html' if 'html' in formats else out_dir / 'schedule.json'}")
     return (1 if summary.errors else 0), summary
-
-
-def _file_sha(path: Path) -> str:
-    h = hashlib.sha256()
-    with open(path, "rb") as fh:
-        for chunk in iter(lambda: fh.read(1 << 16), b""):
-            h.update(chunk)
-    return h.hexdigest()
 
 
 def cli_build(args, formats: list[str], overrides: dict[str, str]) -> int:

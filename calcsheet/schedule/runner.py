@@ -14,7 +14,7 @@ from typing import Callable, Iterable, Iterator
 
 from .work import Outcome, Task, build_task, init_worker
 
-CHUNK = 4  # rows per round trip to a pool worker
+CHUNK = 2  # rows per round trip to a pool worker (small: the last round trips leave a worker idle)
 RETRIES = 2  # a row whose worker process died is run again this many times before it is reported as failed
 
 
