@@ -190,6 +190,7 @@ class ScheduleWriter:
         from ..package import ASSETS
 
         info = self.info
+        checks = RS.with_codes(checks)  # short names in the table, the full ones in a legend above it
         css = (ASSETS / "package.css").read_text(encoding="utf-8")
         meta = info["meta"]
         title = f"Member schedule — {Path(info['table']).name}"
@@ -210,6 +211,8 @@ class ScheduleWriter:
         fh.write("<h2 class='front-h'>Members</h2>")
         if not for_pdf:
             fh.write("<p class='screen-only'>Click a column heading to sort by it.</p>")
+        if checks:
+            fh.write(RS.check_legend(checks))
         fh.write(RS.table_head(checks, info["columns"]))
         for rec in self._records():
             if not for_pdf and "html" in self.formats:
