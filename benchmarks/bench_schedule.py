@@ -130,8 +130,8 @@ t = time.perf_counter()
 status, s = build_schedule(Path({sheet!r}), Path({table!r}), Path({out!r}), {formats!r}, jobs={jobs}, force=True,
                            progress=False, out=lambda m: None)
 assert status == 0 and s.built == s.members == {rows}, (status, s)
-print(resource.getrusage(resource.RUSAGE_SELF).ru_maxrss, resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss,
-      time.perf_counter() - t)
+me, kids = resource.getrusage(resource.RUSAGE_SELF), resource.getrusage(resource.RUSAGE_CHILDREN)
+print(me.ru_maxrss, kids.ru_maxrss, me.ru_utime + me.ru_stime, kids.ru_utime + kids.ru_stime, time.perf_counter() - t)
 """
 
 
@@ -148,11 +148,15 @@ def bench_memory(tmp: Path, sizes, formats, jobs: int) -> bool:
         if res.returncode:
             print(res.stderr[-2000:])
             return False
-        main_kib, child_kib, secs = res.stdout.split()[-3:]
+        main_kib, child_kib, own_cpu, workers_cpu, secs = res.stdout.split()[-5:]
         peaks.append(int(main_kib))
         print(f"  {n:>6,} rows: peak RSS {int(main_kib) / 1024:7.1f} MiB (building process), "
               f"{int(child_kib) / 1024:7.1f} MiB (largest worker); {float(secs):7.1f} s "
               f"({float(secs) / n * 1000:.1f} ms/row; {load()})")
+        # CPU per row does not depend on how busy the machine is: what the wall time would be on free cores
+        report(f"schedule of {n:,} rows ({'+'.join(formats)}): CPU per row, building process + workers",
+               (float(own_cpu) + float(workers_cpu)) / n * 1000, 30.0, unit=" ms",
+               note=f"building process {float(own_cpu) / n * 1000:.2f} ms/row")
         report(f"schedule of {n:,} rows ({'+'.join(formats)}, -j {jobs}): wall time", float(secs),
                300.0 if n >= 10_000 else 30.0, unit=" s", note=load())
         shutil.rmtree(out, ignore_errors=True)
