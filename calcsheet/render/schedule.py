@@ -30,6 +30,12 @@ table.members td.u.gov { font-weight: bold; text-decoration: underline; }
 table.members tr { page-break-inside: avoid; }
 table.members tr.err td { color: #555; font-style: italic; }
 table.members td.st { font-weight: bold; text-align: center; }
+table.members th.u, table.members td.gv { text-align: right; white-space: nowrap; }
+table.check-legend { border-collapse: collapse; font-size: 7.4pt; margin: 1mm 0 2mm; }
+table.check-legend caption { text-align: left; font-weight: bold; font-size: 7.8pt; }
+table.check-legend th { text-align: left; padding: 0.3mm 2mm 0.3mm 0; white-space: nowrap; vertical-align: top; }
+table.check-legend td { padding: 0.3mm 3mm 0.3mm 0; vertical-align: top; }
+table.check-legend td.as-written { font-family: "DejaVu Sans Mono", monospace; color: #444; }
 table.members tr.ok td.st { color: #14532d; }
 table.members tr.ng td.st { color: #fff; background: #a11d1d; }
 th.sortable { cursor: pointer; }
@@ -132,11 +138,45 @@ def overall(totals: dict) -> Html:
     return Html('<div class="overall {}">{}</div>').format(cls, text)
 
 
+def check_code(check: dict, position: int) -> str:
+    """The short name of a check in tables and legends: C and its number in the sheet (``check-3`` -> C3, the
+    anchor of that check in each member's package), else its position among the schedule's checks."""
+    key = str(check.get("key", ""))
+    number = key[len("check-"):] if key.startswith("check-") else ""
+    return f"C{number}" if number.isdigit() else f"C{position}"
+
+
+def with_codes(checks: list[dict]) -> list[dict]:
+    """The checks, each with its short ``code`` (unique: a clash falls back to the position)."""
+    out, seen = [], set()
+    for i, c in enumerate(checks, 1):
+        code = check_code(c, i)
+        if code in seen:
+            code = f"C{i}"
+            while code in seen:
+                code += "'"
+        seen.add(code)
+        out.append({**c, "code": code})
+    return out
+
+
+def check_legend(checks: list[dict]) -> Html:
+    """What each short check name stands for: the check's description and the check as the sheet writes it."""
+    rows = Html("").join(
+        Html('<tr><th scope="row">{}</th><td>{}</td><td class="as-written">{}</td></tr>').format(
+            c["code"], c["label"], c["text"] if c["text"] != c["label"] else "") for c in checks)
+    return Html('<table class="check-legend"><caption>Checks</caption><tbody>{}</tbody></table>').format(rows)
+
+
 def table_head(checks: list[dict], columns: list[str]) -> Html:
+    """The members table's head; each check is headed by its short name (``with_codes``), its full name in the
+    legend above the table and in the heading's tooltip."""
     cols = Html("").join(Html("<th>{}</th>").format(c) for c in columns)
-    utils = Html("").join(Html('<th data-num="1" title="{}">{}</th>').format(c["text"], c["label"]) for c in checks)
+    utils = Html("").join(Html('<th class="u" data-num="1" title="{}">{}</th>').format(c["label"], c["code"])
+                          for c in checks)
     return Html('<table class="members" id="members"><thead><tr><th data-num="1">Row</th><th>Member</th>'
-                '{}{}<th>Governing</th><th data-num="1">Utilisation</th><th>Status</th></tr></thead><tbody>'
+                '{}{}<th title="the check with the highest utilisation">Governing</th>'
+                '<th class="u" data-num="1">Utilisation</th><th>Status</th></tr></thead><tbody>'
                 ).format(cols, utils)
 
 
@@ -154,9 +194,10 @@ def table_row(rec: dict, checks: list[dict], columns: list[str]) -> Html:
         r = util.get(c["key"])
         klass = "u" + (" ng" if c["key"] in rec.get("ng", []) else "") + (" gov" if c["key"] == gov else "")
         cells.append(Html('<td class="{}" data-v="{}">{}</td>').format(klass, _num(r), ratio_text(r)))
+    code = next((c["code"] for c in checks if c["key"] == gov), "")
     label = next((c["label"] for c in checks if c["key"] == gov), "")
     g = rec.get("governing_ratio")
-    cells.append(Html('<td data-v="{0}">{0}</td>').format(label))
+    cells.append(Html('<td class="gv" data-v="{0}" title="{1}">{0}</td>').format(code, label))
     cells.append(Html('<td class="u" data-v="{}">{}</td>').format(_num(g), ratio_text(g)))
     cells.append(Html('<td class="st" data-v="{0}">{0}</td>').format(status))
     return Html('<tr class="{}" data-i="{}">{}</tr>\n').format(cls, rec["row"], Html("").join(cells))
@@ -175,7 +216,7 @@ def table_end() -> Html:
 
 def ranked(top: list[dict], checks: list[dict], total: int) -> Html:
     """The PDF's sorted view: members by governing utilisation, highest first."""
-    labels = {c["key"]: c["label"] for c in checks}
+    labels = {c["key"]: f"{c['code']} {c['label']}" if c.get("code") else c["label"] for c in checks}
     rows = Html("").join(
         Html('<tr class="{}"><td>{}</td><td>{}</td><td>{}</td><td class="u">{}</td><td class="st">{}</td></tr>').format(
             {"OK": "ok", "NG": "ng"}.get(r["status"], "err"), i, r["member"], labels.get(r.get("governing"), ""),
@@ -253,27 +294,97 @@ def _u_max(values) -> float:
     return max(1.2, math.ceil(top * 10 + 1e-9) / 10)
 
 
+# The widest glyph of DejaVu Sans in each class of character, as a share of the font size (from memory,
+# rounded up): a label laid out with these widths is never cut, whatever its letters.
+_WIDE = {**dict.fromkeys("mwMW%…—≥≤×", 1.0), " ": 0.34}
+LEGEND_FONT = 8.5
+
+
+def _char_w(ch: str) -> float:
+    if ch in _WIDE:
+        return _WIDE[ch]
+    if ch.isupper():
+        return 0.8
+    if ch.isdigit():
+        return 0.66
+    return 0.65 if ch.isascii() else 0.85
+
+
+def text_width(text: str, font_size: float) -> float:
+    """An upper bound of the width ``text`` takes at ``font_size``."""
+    return sum(_char_w(ch) for ch in text) * font_size
+
+
+def wrap_text(text: str, width: float, font_size: float) -> list[str]:
+    """``text`` in lines no wider than ``width`` (by ``text_width``), broken at spaces; a word longer than a
+    line is broken inside it."""
+    lines: list[str] = []
+    line = ""
+    for word in text.split():
+        while text_width(word, font_size) > width and len(word) > 1:
+            if line:
+                lines.append(line)
+                line = ""
+            cut = 1
+            while cut < len(word) and text_width(word[:cut + 1], font_size) <= width:
+                cut += 1
+            lines.append(word[:cut])
+            word = word[cut:]
+        if not line:
+            line = word
+        elif text_width(f"{line} {word}", font_size) <= width:
+            line += " " + word
+        else:
+            lines.append(line)
+            line = word
+    if line or not lines:
+        lines.append(line)
+    return lines
+
+
+def legend(svg: Svg, items: list[tuple[str, object]], x0: float, y0: float, width: float) -> float:
+    """Legend entries laid out left to right and wrapped onto new rows within ``width``; a label too long
+    for one row is itself wrapped. ``items`` are (label, draw) where ``draw(svg, x, y)`` draws a 14-unit key
+    centred on y. Returns the height used."""
+    key_w, gap, line_h = 18.0, 14.0, LEGEND_FONT * 1.35
+    x, y, row_h = x0, y0, 0.0
+    for label, draw in items:
+        lines = wrap_text(label, width - key_w, LEGEND_FONT)
+        w = key_w + max(text_width(t, LEGEND_FONT) for t in lines)
+        if x > x0 and x + w > x0 + width:
+            x, y, row_h = x0, y + row_h, 0.0
+        draw(svg, x + 7, y + LEGEND_FONT * 0.45)
+        for i, t in enumerate(lines):
+            svg.text(x + key_w, y + LEGEND_FONT * 0.8 + i * line_h, t, font_size=LEGEND_FONT, fill=AXIS)
+        row_h = max(row_h, len(lines) * line_h + 3)
+        x += w + gap
+    return y + row_h - y0
+
+
+def _legend_label(c: dict) -> str:
+    return f"{c['code']} {c['label']}" if c.get("code") else c["label"]
+
+
 def member_chart(records: list[dict], checks: list[dict]) -> str:
     """One line per member: a bar to the governing utilisation, a marker for each check, a line at 1.0."""
-    left, right, top, row_h = 110, 20, 34, 14
-    width = 640
-    height = top + row_h * len(records) + 30
+    right, row_h = 20, 14
+    longest = max((text_width(r["member"], 8.5) for r in records), default=0)
+    left = max(60.0, longest + 14)  # member names (at most 64 characters) whole: a long one widens the chart
+    width = max(640.0, left + 300 + right)
     span = width - left - right
     u_max = _u_max([r.get("utilisation", {}).get(c["key"]) for r in records for c in checks])
-    svg = Svg(width, height, title="Utilisation of each check, per member", css_class="figure chart")
+    svg = Svg(width, 0, title="Utilisation of each check, per member", css_class="figure chart")
 
     def x(u):
         return left + span * min(max(u, 0.0), u_max) / u_max
 
-    for k, c in enumerate(checks):  # legend
-        lx = left + (k % 4) * (span / 4)
-        ly = 10 + (k // 4) * 12
-        _marker(svg, MARKERS[k % len(MARKERS)], lx + 4, ly, PALETTE[k % len(PALETTE)])
-        svg.text(lx + 11, ly + 3.5, c["label"][:28], font_size=8.5, fill=AXIS)
-    top += 12 * ((len(checks) - 1) // 4)
-    height += 12 * ((len(checks) - 1) // 4)
-    svg.height = height
+    def key(k):
+        return lambda s, kx, ky: _marker(s, MARKERS[k % len(MARKERS)], kx, ky, PALETTE[k % len(PALETTE)])
+
+    used = legend(svg, [(_legend_label(c), key(k)) for k, c in enumerate(checks)], 8, 6, width - 16)
+    top = 6 + used + 10
     base = top + row_h * len(records)
+    svg.height = base + 30
     tick = 0.0
     while tick <= u_max + 1e-9:
         svg.line(x(tick), top - 4, x(tick), base, stroke="#ddd", stroke_width=0.6)
@@ -281,7 +392,7 @@ def member_chart(records: list[dict], checks: list[dict]) -> str:
         tick = round(tick + (0.2 if u_max <= 2.0 else 0.5), 6)
     for i, r in enumerate(records):
         y = top + i * row_h + row_h / 2
-        svg.text(left - 6, y + 3, r["member"][:18], font_size=8.5, text_anchor="end", fill=AXIS)
+        svg.text(left - 6, y + 3, r["member"], font_size=8.5, text_anchor="end", fill=AXIS)
         g = r.get("governing_ratio")
         if r["status"] == "ERROR":
             svg.text(left + 4, y + 3, "not built (error)", font_size=8.5, fill=ERR_COLOUR)
@@ -294,7 +405,10 @@ def member_chart(records: list[dict], checks: list[dict]) -> str:
             if u is not None:
                 _marker(svg, MARKERS[k % len(MARKERS)], x(u), y, PALETTE[k % len(PALETTE)])
     svg.line(x(1.0), top - 6, x(1.0), base, stroke=NG_COLOUR, stroke_width=1.2, stroke_dasharray="4 2")
-    svg.text(x(1.0) + 3, base + 24, "utilisation 1.0", font_size=8.5, fill=NG_COLOUR)
+    label = "utilisation 1.0"
+    fits = x(1.0) + 3 + text_width(label, 8.5) <= width - 2
+    svg.text(x(1.0) + 3 if fits else x(1.0) - 3, base + 24, label, font_size=8.5, fill=NG_COLOUR,
+             text_anchor=None if fits else "end")
     svg.line(left, base, width - right, base, stroke=AXIS, stroke_width=0.8)
     return svg.render()
 
@@ -331,13 +445,22 @@ def histogram_chart(counts_ok: list[int], counts_ng: list[int], bin_width: float
 def sweep_chart(name: str, unit: str, xs: list[float], checks: list[dict], series: dict[str, list],
                 flips: list[dict]) -> str:
     """Each check's utilisation against the swept input; a dashed line at 1.0; a tick where a check turns NG."""
-    width, height, left, right, top, bottom = 640, 300, 52, 20, 40, 42
-    pw, ph = width - left - right, height - top - bottom
+    width, left, right, bottom, ph = 640, 52, 28, 42, 218
+    pw = width - left - right
     u_max = _u_max([v for s in series.values() for v in s])
     lo, hi = min(xs), max(xs)
     if hi == lo:
         hi = lo + 1.0
-    svg = Svg(width, height, title=f"Utilisation against {name}", css_class="figure chart")
+    svg = Svg(width, 0, title=f"Utilisation against {name}", css_class="figure chart")
+
+    def key(k):
+        return lambda s, kx, ky: s.line(kx - 7, ky, kx + 7, ky, stroke=PALETTE[k % len(PALETTE)], stroke_width=2)
+
+    top = 6 + legend(svg, [(_legend_label(c), key(k)) for k, c in enumerate(checks)], 8, 6, width - 16) + 8
+    flip_rows = min(3, len(checks)) if flips else 0
+    top += 10 * flip_rows  # the flips' labels sit above the plot, one row per check (up to three)
+    height = top + ph + bottom
+    svg.height = height
 
     def px(v):
         return left + pw * (v - lo) / (hi - lo)
@@ -345,10 +468,6 @@ def sweep_chart(name: str, unit: str, xs: list[float], checks: list[dict], serie
     def py(u):
         return top + ph * (1 - min(max(u, 0.0), u_max) / u_max)
 
-    for k, c in enumerate(checks):
-        lx, ly = left + (k % 4) * (pw / 4), 10 + (k // 4) * 12
-        svg.line(lx, ly, lx + 14, ly, stroke=PALETTE[k % len(PALETTE)], stroke_width=2)
-        svg.text(lx + 18, ly + 3.5, c["label"][:26], font_size=8.5, fill=AXIS)
     tick = 0.0
     while tick <= u_max + 1e-9:
         svg.line(left, py(tick), width - right, py(tick), stroke="#e5e7eb", stroke_width=0.6)
@@ -374,10 +493,12 @@ def sweep_chart(name: str, unit: str, xs: list[float], checks: list[dict], serie
         k = next(i for i, c in enumerate(checks) if c["key"] == f["check"])
         colour = PALETTE[k % len(PALETTE)]
         fx = px(f["at"])
-        svg.line(fx, top, fx, top + ph, stroke=colour, stroke_width=0.9, stroke_dasharray="2 2")
+        svg.line(fx, top - 10 * flip_rows, fx, top + ph, stroke=colour, stroke_width=0.9, stroke_dasharray="2 2")
         _marker(svg, "diamond", fx, py(1.0), colour, r=3.5)
-        svg.text(fx + 3, top + 9 + 10 * (k % 3), f"{'NG' if f['to'] == 'NG' else 'OK'} at {f['at']:.4g}",
-                 font_size=8, fill=colour)
+        label = f"{'NG' if f['to'] == 'NG' else 'OK'} at {f['at']:.4g}"
+        fits = fx + 3 + text_width(label, 8) <= width - 2
+        svg.text(fx + 3 if fits else fx - 3, top - 2 - 10 * (k % 3), label, font_size=8, fill=colour,
+                 text_anchor=None if fits else "end")
     svg.line(left, top + ph, width - right, top + ph, stroke=AXIS, stroke_width=0.8)
     svg.line(left, top, left, top + ph, stroke=AXIS, stroke_width=0.8)
     svg.text(left + pw / 2, height - 8, f"{name}" + (f" [{unit}]" if unit else ""), font_size=9,

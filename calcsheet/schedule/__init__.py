@@ -10,7 +10,6 @@ includes, values, plugin versions) is unchanged is not rebuilt.
 """
 from __future__ import annotations
 
-import hashlib
 import sys
 from dataclasses import dataclass, field
 from pathlib import Path
@@ -124,7 +123,7 @@ def _tasks(sheet: SheetInfo, rows: Iterable[Row], out_dir: Path, formats: list[s
             continue
         yield row, Task(index=index, sheet=sheet.path, source=sheet.source, member=row.member, cells=tuple(cells),
                         formats=tuple(formats), paper=paper, content_hash=h, label=label, where=row.where,
-                        subject_suffix=f"member {row.member}")
+                        subject_suffix=f"member {row.member}", write_to=str(out_dir))
 
 
 def _unchanged_files(out_dir: Path, member: str, formats: list[str], h: str) -> bool:
@@ -166,7 +165,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
         total = sum(1 for _ in schedule.rows())
     bar = Progress(total, Path(table).name, enabled=bar_on)
     info = {"sheet": sheet.path, "table": str(table), "sheet_sha256": sheet.fingerprint["sheet"],
-            "table_sha256": _file_sha(table), "plugins": sheet.fingerprint["plugins"], "meta": sheet.meta,
+            "table_sha256": schedule.sha256, "plugins": sheet.fingerprint["plugins"], "meta": sheet.meta,
             "paper": paper, "columns": schedule.columns}
     writer = ScheduleWriter(out_dir, formats, info)
     summary = Summary()
@@ -186,7 +185,8 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
                     bar.log(w)
             for e in outcome.errors:
                 bar.log(e)
-            if outcome.ok and not outcome.skipped:
+            summary.files += outcome.written  # written by the worker (serial runs and the pool)
+            if outcome.ok and not outcome.skipped and outcome.files:  # returned as bytes (a cluster's workers)
                 try:
                     summary.files += len(write_member(out_dir, outcome))
                 except OSError as exc:
@@ -212,14 +212,6 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
     out(f"{table}: {summary.members} members: {summary.ok} OK, {summary.ng} NG, {summary.errors} not built; "
         f"{summary.built} built, {summary.unchanged} unchanged -> {out_dir / 'schedule.html' if 'html' in formats else out_dir / 'schedule.json'}")
     return (1 if summary.errors else 0), summary
-
-
-def _file_sha(path: Path) -> str:
-    h = hashlib.sha256()
-    with open(path, "rb") as fh:
-        for chunk in iter(lambda: fh.read(1 << 16), b""):
-            h.update(chunk)
-    return h.hexdigest()
 
 
 def cli_build(args, formats: list[str], overrides: dict[str, str]) -> int:

@@ -15,6 +15,7 @@ the client (``RETRIES``) and then reported as not built.
 from __future__ import annotations
 
 import uuid
+from dataclasses import replace
 from collections import deque
 from typing import Callable, Iterable, Iterator
 
@@ -92,6 +93,7 @@ def run_cluster(items: Iterable, address: str | None = None, *, pdf: bool = Fals
         exhausted = False
 
         def submit(tasks, attempt):
+            tasks = [replace(t, write_to="") if t.write_to else t for t in tasks]  # workers write nothing
             return client.submit(run_chunk, task_fn, tasks, key=f"calcsheet-{run_id}-{tasks[0].index}-{attempt}",
                                  pure=False)
 

@@ -27,18 +27,10 @@ MAX_ERRORS_LISTED = 50
 
 
 def write_member(out_dir: Path, outcome: Outcome) -> list[Path]:
-    """Write a member's rendered files (each atomically); only names under ``out_dir`` are ever written."""
-    written = []
-    for fmt in ("html", "pdf", "json"):
-        data = outcome.files.get(fmt)
-        if data is None:
-            continue
-        path = out_dir / f"{outcome.member}.{fmt}"
-        if path.resolve().parent != out_dir.resolve():  # member names are validated; this is a second lock
-            raise OSError(f"refusing to write outside the output folder: {path}")
-        write_atomic(path, data)
-        written.append(path)
-    return written
+    """Write the rendered files an outcome carries (a cluster's, or sizing's), each atomically."""
+    from .work import write_member as write
+
+    return write(out_dir, outcome.member, outcome.files)
 
 
 def record_of(outcome: Outcome, row: int, where: str, formats: list[str]) -> dict:
@@ -198,6 +190,7 @@ class ScheduleWriter:
         from ..package import ASSETS
 
         info = self.info
+        checks = RS.with_codes(checks)  # short names in the table, the full ones in a legend above it
         css = (ASSETS / "package.css").read_text(encoding="utf-8")
         meta = info["meta"]
         title = f"Member schedule — {Path(info['table']).name}"
@@ -218,6 +211,8 @@ class ScheduleWriter:
         fh.write("<h2 class='front-h'>Members</h2>")
         if not for_pdf:
             fh.write("<p class='screen-only'>Click a column heading to sort by it.</p>")
+        if checks:
+            fh.write(RS.check_legend(checks))
         fh.write(RS.table_head(checks, info["columns"]))
         for rec in self._records():
             if not for_pdf and "html" in self.formats:

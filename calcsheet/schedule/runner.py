@@ -14,6 +14,7 @@ from typing import Callable, Iterable, Iterator
 
 from .work import Outcome, Task, build_task, init_worker
 
+CHUNK = 2  # rows per round trip to a pool worker (small: the last round trips leave a worker idle)
 RETRIES = 2  # a row whose worker process died is run again this many times before it is reported as failed
 
 
@@ -43,66 +44,97 @@ def run_serial(items: Iterable, *, pdf: bool = False, log: Callable[[str], None]
         yield item if isinstance(item, Outcome) else build_task(item)
 
 
+def run_chunk(tasks: list) -> list[Outcome]:
+    """Runs in a pool worker: several consecutive rows for one round trip (``build_task`` looked up here, at
+    call time)."""
+    return [build_task(t) for t in tasks]
+
+
 def run_pool(items: Iterable, jobs: int, *, pdf: bool = False, log: Callable[[str], None] = lambda m: None,
-             window: int | None = None) -> Iterator[Outcome]:
-    """A process pool whose workers import pint, lark and (for PDFs) WeasyPrint once, before the first row."""
-    import multiprocessing as mp
+             window: int | None = None, chunk: int = CHUNK) -> Iterator[Outcome]:
+    """A process pool whose workers import pint, lark and (for PDFs) WeasyPrint once, before the first row.
+
+    Consecutive rows go to a worker ``chunk`` at a time (one round trip, one result message for several rows);
+    at most ``window`` chunks are in flight. When a worker dies, the pool is restarted and each unfinished row
+    is run again on its own (so a row that kills its worker takes no other row with it), up to ``RETRIES``
+    times.
+    """
     from concurrent.futures import ProcessPoolExecutor
     from concurrent.futures.process import BrokenProcessPool
 
-    window = window or max(4, 4 * jobs)
+    window = window or 2 * jobs + 2
+    chunk = max(1, chunk)
     ctx = pool_context()
 
     def new_pool():
         return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx, initializer=init_worker, initargs=(pdf,))
 
     pool = new_pool()
-    pending: deque = deque()  # [item, future|None, attempts]
+    pending: deque = deque()  # [Outcome] (known already) or [tasks, future, attempts]
     it = iter(items)
     exhausted = False
+
+    def fill():
+        nonlocal exhausted
+        batch: list = []
+        while not exhausted and len(pending) < window:
+            try:
+                item = next(it)
+            except StopIteration:
+                exhausted = True
+                break
+            if isinstance(item, Outcome):
+                if batch:
+                    pending.append([batch, pool.submit(run_chunk, batch), 1])
+                    batch = []
+                pending.append([item])
+                continue
+            batch.append(item)
+            if len(batch) >= chunk:
+                pending.append([batch, pool.submit(run_chunk, batch), 1])
+                batch = []
+        if batch:
+            pending.append([batch, pool.submit(run_chunk, batch), 1])
+
     try:
         while True:
-            while not exhausted and len(pending) < window:
-                try:
-                    item = next(it)
-                except StopIteration:
-                    exhausted = True
-                    break
-                fut = None if isinstance(item, Outcome) else pool.submit(build_task, item)
-                pending.append([item, fut, 1])
+            fill()
             if not pending:
                 return
-            item, fut, attempts = pending[0]
-            if fut is None:
+            head = pending[0]
+            if len(head) == 1:
                 pending.popleft()
-                yield item
+                yield head[0]
                 continue
+            tasks, fut, attempts = head
             try:
-                out = fut.result()
+                outs = fut.result()
             except BrokenProcessPool:
                 # a worker died (killed, out of memory): restart the pool and run the unfinished rows again
                 pool.shutdown(wait=False, cancel_futures=True)
                 pool = new_pool()
-                for entry in pending:
-                    if entry[1] is None:
+                entries = list(pending)
+                pending.clear()
+                for entry in entries:
+                    if len(entry) == 1 or (entry[1].done() and not entry[1].cancelled()
+                                           and entry[1].exception() is None):
+                        pending.append(entry)
                         continue
-                    if entry[1].done() and entry[1].exception() is None:
-                        continue
-                    entry[2] += 1
-                    t = entry[0]
-                    if entry[2] > RETRIES + 1:
-                        entry[1] = None
-                        entry[0] = _died(t, entry[2] - 1)
-                    else:
-                        log(f"{t.where}: {t.label}: a worker process died; running the row again "
-                            f"(attempt {entry[2]})")
-                        entry[1] = pool.submit(build_task, t)
+                    for t in entry[0]:
+                        n = entry[2] + 1
+                        if n > RETRIES + 1:
+                            pending.append([_died(t, n - 1)])
+                        else:
+                            log(f"{t.where}: {t.label}: a worker process died; running the row again "
+                                f"(attempt {n})")
+                            pending.append([[t], pool.submit(run_chunk, [t]), n])
                 continue
             pending.popleft()
-            if attempts > 1:
-                out.warnings.append(f"{item.where}: {item.label}: built on attempt {attempts} after a worker "
-                                    "process died")
-            yield out
+            for t, out in zip(tasks, outs):
+                if attempts > 1:
+                    out.warnings.append(f"{t.where}: {t.label}: built on attempt {attempts} after a worker "
+                                        "process died")
+                yield out
     finally:
         pool.shutdown(wait=True, cancel_futures=True)
 

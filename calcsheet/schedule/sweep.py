@@ -161,6 +161,7 @@ def build_sweep(sheet_path: Path, spec_text: str, out_dir: Path, formats: list[s
     write_atomic(path, (json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n").encode("utf-8"))
     written.append(path)
     if "html" in formats or "pdf" in formats:
+        check_list = RS.with_codes(check_list)  # short names in the chart and table, the full ones in a legend
         title = f"Sweep of {spec.name}"
         span = f"{points[0]['text']} to {points[-1]['text']}" if points else ""
         parts = [RS.page_start(sheet.meta, title, Path(sheet.path).name, paper,
@@ -185,8 +186,8 @@ def build_sweep(sheet_path: Path, spec_text: str, out_dir: Path, formats: list[s
             rows.append([p["text"], *[RS.ratio_text(p["utilisation"].get(c["key"])) for c in check_list], status])
             row_cls.append({"OK": "ok", "NG": "ng"}.get(status, "err"))
             cell_cls.append(["v", *["u" + ("" if p["ok"].get(c["key"], True) else " ng") for c in check_list], "st"])
-        parts.append(RS.section("Points", RS.simple_table([spec.name, *[c["label"] for c in check_list], "Status"],
-                                                          rows, row_cls, cell_cls)))
+        parts.append(RS.section("Points", RS.check_legend(check_list) + RS.simple_table(
+            [spec.name, *[c["code"] for c in check_list], "Status"], rows, row_cls, cell_cls)))
         parts += [RS.caution_box(caution()), RS.Html("</main>"), RS.page_end(script=False)]
         html = str(RS.Html("").join(parts))
         if "html" in formats:

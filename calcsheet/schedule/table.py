@@ -1,17 +1,23 @@
 """Reading a member schedule: a CSV or TOML table whose columns are a sheet's inputs.
 
-Rows are read lazily (a schedule of ten thousand members is never held in
-memory), each with the place it came from, so a bad value is reported as
+The file is read once through ``calcsheet.reading`` (at most the ``SCHEDULE_BYTES``
+cap, strict UTF-8: a bad byte or a NUL is an error at its line and column);
+rows are then made lazily (a row object per member is never held for the
+whole table), each with the place it came from, so a bad value is reported as
 ``file:row:column`` and the other rows still build.
 """
 from __future__ import annotations
 
 import csv
+import hashlib
+import io
 import re
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Iterator
 
+from .. import reading
+from ..errors import CalcError
 from ..suggest import did_you_mean
 
 MEMBER = "member"
@@ -76,20 +82,38 @@ class Schedule:
     path: Path
     columns: list[str]
     _rows: object = field(repr=False, default=None)
+    sha256: str = ""  # of the bytes read
 
     def rows(self) -> Iterator[Row]:
         return self._rows()
+
+
+CAP = "SCHEDULE_BYTES"
+
+
+def read_schedule(path: Path) -> tuple[str, str]:
+    """The schedule's text (bounded, strict UTF-8, a leading BOM dropped) and the sha256 of its bytes; a
+    failure is a ScheduleError at ``file:line:col`` (line 1, column 1 when the fault is the whole file)."""
+    try:
+        data = reading.read_bytes(path, CAP, "the schedule")
+        text = reading.decode_utf8(data, "the schedule")
+    except CalcError as exc:
+        span = exc.span
+        where = f"{path}:{span.line}:{span.col}" if span is not None else str(path)
+        raise ScheduleError(where, exc.message + (f" ({exc.hint})" if exc.hint else "")) from None
+    return text, hashlib.sha256(data).hexdigest()
 
 
 def open_schedule(path: Path, inputs: list[str], defined: list[str] | None = None) -> Schedule:
     """Validate the columns of ``path`` against the sheet's ``inputs`` and return a lazy row reader."""
     path = Path(path)
     suffix = path.suffix.lower()
-    if suffix == ".csv":
-        return _open_csv(path, inputs, defined or [])
-    if suffix == ".toml":
-        return _open_toml(path, inputs, defined or [])
-    raise ScheduleError(str(path), "a schedule is a .csv or .toml file")
+    if suffix not in (".csv", ".toml"):
+        raise ScheduleError(str(path), "a schedule is a .csv or .toml file")
+    text, sha = read_schedule(path)
+    opened = (_open_csv if suffix == ".csv" else _open_toml)(path, text, inputs, defined or [])
+    opened.sha256 = sha
+    return opened
 
 
 def _check_columns(path: Path, columns: list[tuple[str, str]], inputs: list[str], defined: list[str]) -> None:
@@ -131,14 +155,9 @@ class _Members:
 # ------------------------------------------------------------ CSV
 
 
-def _open_csv(path: Path, inputs, defined) -> Schedule:
+def _open_csv(path: Path, text: str, inputs, defined) -> Schedule:
     try:
-        with path.open(newline="", encoding="utf-8-sig") as fh:
-            header = next(csv.reader(fh), None)
-    except OSError as exc:
-        raise ScheduleError(str(path), f"cannot read the schedule: {exc.strerror or exc}") from None
-    except UnicodeDecodeError:
-        raise ScheduleError(str(path), "the schedule is not UTF-8 text") from None
+        header = next(csv.reader(io.StringIO(text, newline="")), None)
     except csv.Error as exc:
         raise ScheduleError(f"{path}:1", f"not a valid CSV header ({exc})") from None
     if not header:
@@ -155,7 +174,7 @@ def _open_csv(path: Path, inputs, defined) -> Schedule:
         members = _Members()
         m_col = names.index(MEMBER)
         number = 0
-        with path.open(newline="", encoding="utf-8-sig") as fh:
+        with io.StringIO(text, newline="") as fh:
             reader = csv.reader(fh)
             next(reader)
             line = reader.line_num + 1
@@ -195,19 +214,20 @@ def _open_csv(path: Path, inputs, defined) -> Schedule:
 _TOML_HEAD = re.compile(r"^\s*\[\[\s*members\s*\]\]\s*(?:#.*)?$")
 
 
-def _open_toml(path: Path, inputs, defined) -> Schedule:
+def _open_toml(path: Path, text: str, inputs, defined) -> Schedule:
     """``[[members]]`` tables: ``member = "J-1"`` and one key per input (``L = "3.6 m"``, or a bare number)."""
     import tomllib
 
     try:
-        text = path.read_text(encoding="utf-8")
         data = tomllib.loads(text)
-    except OSError as exc:
-        raise ScheduleError(str(path), f"cannot read the schedule: {exc.strerror or exc}") from None
-    except UnicodeDecodeError:
-        raise ScheduleError(str(path), "the schedule is not UTF-8 text") from None
     except tomllib.TOMLDecodeError as exc:
-        raise ScheduleError(str(path), f"not valid TOML ({exc})") from None
+        m = re.search(r"\(at line (\d+), column (\d+)\)", str(exc))
+        where = f"{path}:{m.group(1)}:{m.group(2)}" if m else f"{path}:1:1"
+        what = re.sub(r"\s*\(at .*\)$", "", str(exc))
+        raise ScheduleError(where, f"not valid TOML: {what}") from None
+    except RecursionError:
+        raise ScheduleError(f"{path}:1:1", "nested too deeply to read; a schedule is a list of [[members]] "
+                                           "tables of NAME = \"QUANTITY\"") from None
     members = data.get("members")
     if not isinstance(members, list) or not all(isinstance(m, dict) for m in members):
         raise ScheduleError(str(path), "a TOML schedule is a list of [[members]] tables")

@@ -32,6 +32,7 @@ class Task:
     subject_suffix: str = ""  # appended to the package's subject (the member's name)
     extra_front: str = ""  # an escaped HTML page put after the summary (auto-sizing's selection page)
     extra_json: tuple = ()  # (key, JSON-able value) pairs added to the package's JSON
+    write_to: str = ""  # when set, the worker writes the member's files into this folder and returns none
 
 
 @dataclass
@@ -56,6 +57,7 @@ class Outcome:
     skipped: bool = False  # unchanged since the last build: nothing rendered
     content_hash: str = ""
     worker: str = ""  # which worker built it (cluster runs)
+    written: int = 0  # files the worker wrote itself (Task.write_to)
 
     @property
     def all_ok(self) -> bool:
@@ -149,15 +151,74 @@ def _strip_set(message: str, name: str, text: str) -> str:
     return message
 
 
-def build_task(task: Task) -> Outcome:
-    """Run one row and render its package; never raises for a problem in the sheet or the row."""
+# The sheet run once with its own values, per process: a row re-evaluates only what its values reach
+# (incremental.recompute, which falls back to a full run whenever it cannot vouch for the result), and the
+# JSON of every value the row leaves unchanged (the very same object as in that run) is written once.
+_BASE: dict = {}
+
+
+class _Base:
+    def __init__(self, result):
+        from ..plugin import Record
+
+        self.result = result
+        objects = list(result.values.values())
+        objects += [f for v in result.values.values() if isinstance(v, Record) for f in v.fields.values()]
+        objects += [q for c in result.checks for q in (c.demand, c.capacity)]
+        self.ids = {id(o) for o in objects}  # the run is kept alive, so these ids stay its objects' own
+        self.json: dict = {}  # (id, display unit) -> (object, its JSON entry)
+
+
+def _base_for(task: Task) -> _Base:
     from ..engine import run
 
+    key = (task.sheet, task.source)
+    base = _BASE.get(key)
+    if base is None:
+        base = _Base(run(task.source, path=task.sheet))
+        _BASE.clear()  # one sheet at a time: a long-lived worker does not collect sheets
+        _BASE[key] = base
+    return base
+
+
+def run_row(task: Task, overrides: dict[str, str]):
+    """The sheet run with one row's values: the same Result a full ``engine.run`` gives, found by
+    re-evaluating, from this process's run of the sheet with its own values, only what the row's values reach.
+    """
+    from ..incremental import recompute
+
+    return recompute(_base_for(task).result, overrides).result
+
+
+def member_json(result, task: Task) -> dict:
+    """``result.to_json()``, reusing the entries of values the row did not change (same bytes, less work)."""
+    from ..render.json import JsonPrinter
+
+    base = _BASE.get((task.sheet, task.source))
+    if base is None:
+        return result.to_json()
+
+    class Reusing(JsonPrinter):
+        def value(self, value, unit=None):
+            key = (id(value), unit)
+            hit = base.json.get(key)
+            if hit is not None and hit[0] is value:
+                return dict(hit[1])  # the caller adds keys to the entry it gets: give it a copy
+            entry = super().value(value, unit)
+            if key[0] in base.ids:
+                base.json[key] = (value, dict(entry))
+            return entry
+
+    return Reusing().result(result)
+
+
+def build_task(task: Task) -> Outcome:
+    """Run one row and render its package; never raises for a problem in the sheet or the row."""
     out = Outcome(task.index, task.member, ok=False, content_hash=task.content_hash)
     overrides = {c: t for c, t, _ in task.cells}
     out.values = dict(overrides)
     try:
-        result = run(task.source, overrides=overrides, path=task.sheet)
+        result = run_row(task, overrides)
     except Exception as exc:  # an engine fault must not take the other rows down
         out.errors.append(f"{task.where}: error: {task.label}: internal error while running the sheet: "
                           f"{type(exc).__name__}: {exc}")
@@ -192,8 +253,33 @@ def build_task(task: Task) -> Outcome:
             out.errors.append(f"{task.where}: error: {task.label}: the package could not be rendered: "
                               f"{type(exc).__name__}: {exc}")
             return out
+    if task.write_to:
+        try:
+            out.written = len(write_member(Path(task.write_to), task.member, out.files))
+        except OSError as exc:
+            out.errors.append(f"{task.where}: error: cannot write the package of {task.member}: {exc}")
+            return out
+        finally:
+            out.files = {}  # written here, or not at all: nothing large goes back to the caller
     out.ok = True
     return out
+
+
+def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Path]:
+    """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written."""
+    from ..atomic import write_atomic
+
+    written = []
+    for fmt in ("html", "pdf", "json"):
+        data = files.get(fmt)
+        if data is None:
+            continue
+        path = out_dir / f"{member}.{fmt}"
+        if path.resolve().parent != out_dir.resolve():  # member names are validated; this is a second lock
+            raise OSError(f"refusing to write outside the output folder: {path}")
+        write_atomic(path, data)
+        written.append(path)
+    return written
 
 
 def render_member(result, task: Task) -> dict[str, bytes]:
@@ -222,7 +308,7 @@ def render_member(result, task: Task) -> dict[str, bytes]:
     if "pdf" in task.formats:
         files["pdf"] = pdf_bytes(html)
     if "json" in task.formats:
-        data = result.to_json()
+        data = member_json(result, task)
         data["build"] = {"member": task.member, "content_hash": task.content_hash}
         for k, v in task.extra_json:
             data[k] = v
