@@ -157,12 +157,13 @@ def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, 
 
     working.write(work, setup, res, lit)
     _result_tables(work, setup, res, lit)
-    out = _envelope(work, setup, res, lit, lim, deflection)
+    defl_check: list = []
+    out = _envelope(work, setup, res, lit, lim, deflection, defl_check)
     if not setup.stiff:
         for name in list(out):
             if name in NEEDS_STIFFNESS or name.startswith("delta_max_"):
                 del out[name]
-    for svg, caption in diagrams.figures(setup, res, lit):
+    for svg, caption in diagrams.figures(setup, res, lit, defl_check[0] if defl_check else None):
         work.figure(svg, caption=caption)
     return out
 
@@ -235,7 +236,7 @@ def _indeterminate_path(setup) -> bool:
     return not (simple or cant)
 
 
-def _envelope(work, setup, res, lit, lim, deflection):
+def _envelope(work, setup, res, lit, lim, deflection, defl_check):
     model = setup.model
     X = model.nodes
     u = setup.units
@@ -322,6 +323,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
         out["EI"] = lit.q(model.EI[0], "EI")
         return out
     ratio, k, e, c = best
+    defl_check.append((pool, c, e.x, e.value))
     span_name = f"{Ls[k]}–{Ls[k + 1]}"
     if cantilever[k]:
         out["L_gov"] = work.calc("L_gov", f"2*{lit(model.spans[k], 'length')}", unit=u["length"],
