@@ -75,7 +75,8 @@ def aluminium(work, alloy):
     return _from_library(work, "aluminium", alloy)
 
 
-@namespace.function("timber", params=[Param("grade", kind="text", choices=library.grades("timber"),
+@namespace.function("timber", standards=("EN 338:2009 (strength classes)", "EN 14080:2013 (glulam strength classes)"),
+                    params=[Param("grade", kind="text", choices=library.grades("timber"),
                                             doc="strength class (softwood or glulam)")], fields=FIELDS,
                     returns="material")
 def timber(work, grade):
@@ -87,7 +88,7 @@ RULES = ("EN 1992-1-1", "ACI 318")
 
 
 @namespace.function(
-    "concrete",
+    "concrete", standards=("EN 1992-1-1:2004 Table 3.1 or ACI 318-19 19.2, as the call's rule names",),
     params=[Param("f_c", "[pressure]", "characteristic cylinder strength (f_ck, or f'c)"),
             Param("rule", kind="text", choices=RULES, doc="rule for E from strength", default="EN 1992-1-1")],
     fields=FIELDS,
@@ -123,7 +124,7 @@ def concrete(work, f_c, rule="EN 1992-1-1"):
 
 
 @namespace.function(
-    "custom",
+    "custom", standards=(),
     params=[Param("name", kind="text", doc="what it is"),
             Param("E", "[pressure]", "modulus of elasticity"),
             Param("f_y", "[pressure]", "yield or characteristic strength"),

@@ -75,4 +75,4 @@ def _signature():
 
 
 shape.__signature__ = _signature()
-namespace.function("shape", params=PARAMS, fields=FIELDS, returns="section")(shape)
+namespace.function("shape", params=PARAMS, fields=FIELDS, returns="section", standards=())(shape)
