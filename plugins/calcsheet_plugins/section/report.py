@@ -201,13 +201,13 @@ class _Brief:
         return self.work[name]
 
     def flush(self):
-        rows = []
-        for k in range(0, len(self.values), 3):
+        rows, per = [], 4  # four name–value pairs a row keeps the table short (about a dozen rows)
+        for k in range(0, len(self.values), per):
             row = []
-            for name, value in self.values[k:k + 3]:
+            for name, value in self.values[k:k + per]:
                 row += [name, value]
-            rows.append(row + [""] * (6 - len(row)))
-        self.work.table("Further properties", ["Property", "Value"] * 3, rows, units=[None] * 6)
+            rows.append(row + [""] * (2 * per - len(row)))
+        self.work.table("Further properties", ["Property", "Value"] * per, rows, units=[None] * (2 * per))
         self.work.note("Formulas: " + "; ".join(self.formulas) + ".", kind="method")
         self.work.note("Found from the outline by Green's theorem (methods as in a full working): "
                        + ", ".join(self.methods) + ".", kind="method")
@@ -236,7 +236,7 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
             work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
                      note="the section is symmetric about a centroidal axis")
     else:
-        if compact and not transformed:
+        if (compact or detail == "brief") and not transformed:  # brief: one parts table, sums as its footer
             _compact_table_steps(work, shape)
         else:
             _table_steps(work, shape, transformed)
