@@ -13,7 +13,7 @@ from calcsheet.render.page import functions_called, standards_used
 def _declare(standards):
     ns = Namespace("t_std", standards=("EN 1990:2002",))
 
-    @ns.function("f", fields=[Field("x")], standards=standards)
+    @ns.function("f", fields=[Field("x")], returns="t_std", standards=standards)
     def f(work):
         return {"x": work.q(1.0, "")}
 
