@@ -217,5 +217,5 @@ def cross_check(work, setup, cr, lit, many: bool):
         solver = solver_value(cr, check["solver"], values, supports)
         s_name = f"{check['name'].replace('_hb', '_sol')}{tag}"
         work.let(s_name, lit.q(solver, what), unit=lit.units[what], desc="the same value from the stiffness solution",
-                 note="found above")
+                 note="the stiffness solution's result, tabulated above")
         work.check(f"abs({n} - {s_name}) <= 1e-4*abs({n})", desc=f"the stiffness solution agrees with {text}")

@@ -60,9 +60,10 @@ def steel(work, grade, t=None):
     j = 0 if mm < bands["fu_t_max"][0] else next(k for k, lim in enumerate(bands["fu_t_max"]) if k and mm <= lim)
     out["f_y"] = work.let("f_y", work.q(bands["f_y"][i], "MPa"), unit="MPa",
                           desc=f"yield strength R_eH for {lo} < t ≤ {bands['t_max'][i]} mm (t = {mm:g} mm)",
-                          note=bands["source"])
+                          note=bands.get("source_f_y", bands["source"]))
     out["f_u"] = work.let("f_u", work.q(bands["f_u"][j], "MPa"), unit="MPa",
-                          desc=f"tensile strength R_m at t = {mm:g} mm", note=bands["source"])
+                          desc=f"tensile strength R_m at t = {mm:g} mm",
+                          note=bands.get("source_f_u", bands["source"]))
     work.note(f"f_y and f_u taken from the product standard's thickness bands (EN 1993-1-1 3.2.1(1) a)); "
               f"a National Annex may instead require Table 3.1 (3.2.1(1) b)).", kind="method")
     out["name"] = f"{entry['name']}, t = {mm:g} mm"
