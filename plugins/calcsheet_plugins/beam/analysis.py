@@ -187,36 +187,11 @@ def _input_tables(work, setup, lit):
         work.note(f"{len(rows)} loads were given; the table is left out for length.")
     if len(setup.combos) > 1 or not setup.default_combo:
         if any(c.clause for c in setup.combos):
-            _combinations_table(work, setup.combos)
+            work.table("Combinations", ["Name", "Factors", "Leading", "Duration", "Source"],
+                       [[c.name, c.text, c.leading or "–", c.duration or "–", c.clause or "the sheet"]
+                        for c in setup.combos])
         else:
             work.table("Combinations", ["Name", "Factors"], [[c.name, c.text] for c in setup.combos])
-
-
-def _combinations_table(work, combos):
-    """The combinations solved, compactly: a column whose every entry is the same is said once in the note, and
-    the sources are named once for each run of combinations sharing one (not repeated on every row)."""
-    cols = {"Leading": [c.leading or "–" for c in combos], "Duration": [c.duration or "–" for c in combos]}
-    sources = [c.clause or "the sheet" for c in combos]
-    keep = [k for k, v in cols.items() if len(set(v)) > 1]
-    same = [f"{k.lower()} {v[0]}" for k, v in cols.items() if len(set(v)) == 1 and v[0] != "–"]
-    runs: list[list] = []
-    for c, src in zip(combos, sources):
-        if runs and runs[-1][2] == src:
-            runs[-1][1] = c.name
-        else:
-            runs.append([c.name, c.name, src])
-    note = "Sources: " + "; ".join(f"{a}{'–' + b if b != a else ''}: {src}" for a, b, src in runs) + "."
-    if same:
-        note += " Every combination: " + ", ".join(same) + "."
-    head = ["Name", "Factors"] + keep
-    rows = [[c.name, c.text] + [cols[k][n] for k in keep] for n, c in enumerate(combos)]
-    if len(rows) > 12 and len(head) <= 3:
-        # many short rows: two side by side, read down the left half, then the right
-        half = (len(rows) + 1) // 2
-        left, right = rows[:half], rows[half:] + [[""] * len(head)] * (2 * half - len(rows))
-        head, rows = head + head, [a + b for a, b in zip(left, right)]
-        note = "Read down the left half, then the right. " + note
-    work.table("Combinations", head, rows, note=note)
 
 
 def _support_text(setup, i, kind):

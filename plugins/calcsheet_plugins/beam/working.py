@@ -207,9 +207,8 @@ def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
                   f"solved by the direct stiffness method with the hinges as rotation releases; equilibrium is "
                   f"checked below.", kind="method")
     many = len(res.combos) > 1
-    shown = governing_combos(setup, res) if len(res.combos) > MANY_COMBOS else list(res.combos)
     rows = []
-    for cr in shown:
+    for cr in res.combos:
         sM = max(abs(cr.M_max.value), abs(cr.M_min.value), 1e-300)
         sV = max(abs(cr.V_max.value), 1e-300)
         for k, (fe, ends) in enumerate(zip(cr.sol.fixed_end, cr.sol.end_actions)):
@@ -228,23 +227,7 @@ def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
                         "solved beam. Moments sagging positive; V is the shear just inside each end.")
     else:
         work.note(f"The end-action table ({len(rows)} rows) is left out for length.")
-    if len(shown) < len(res.combos):
-        work.note(f"End actions are tabulated for the {len(shown)} combinations that govern a result ("
-                  + ", ".join(c.combo.name for c in shown) + f"); the other {len(res.combos) - len(shown)} are "
-                  "found the same way, and their reactions, equilibrium and maxima are tabulated below.")
     reactions_table(work, setup, res, lit)
-
-
-def governing_combos(setup, res) -> list:
-    """The combinations that govern a reported result: the largest sagging and hogging moment, shear and
-    deflection, and the largest and smallest reaction at each support (in the order solved, no repeats)."""
-    keys = [lambda c: c.M_max.value, lambda c: -c.M_min.value, lambda c: abs(c.V_max.value),
-            lambda c: abs(c.d_max.value)]
-    for i, k in enumerate(setup.kinds):
-        if k in ("pinned", "roller", "fixed", "spring"):
-            keys += [lambda c, i=i: c.sol.reactions[i], lambda c, i=i: -c.sol.reactions[i]]
-    chosen = {id(max(res.combos, key=key)) for key in keys}
-    return [c for c in res.combos if id(c) in chosen]
 
 
 def reactions_table(work, setup, res, lit):
@@ -254,29 +237,11 @@ def reactions_table(work, setup, res, lit):
     sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
     if len(sup) > 40:
         return
-    def R(c, i):
-        return lit.q(_tiny(c.sol.reactions[i], max(abs(c.sol.reactions).max(), 1e-300)), "force")
-
-    if len(res.combos) > MANY_COMBOS and len(sup) <= 12:
-        # many combinations: one row each (a column each would be too narrow to read), with the equilibrium
-        # sums beside the reactions when equilibrium is tabulated (see equilibrium_check)
-        eq = _equilibrium_rows(setup, res, lit) if not _simple_path(setup) else None
-        A = Ls[_moment_ref(setup)]
-        work.table(f"Equilibrium by combination: reactions (upward positive), ΣR against the factored loads ΣW, "
-                   f"moments about {A} (clockwise positive)" if eq else "Reactions (upward positive)",
-                   ["Combination"] + [f"R_{Ls[i]}" for i in sup] + (["ΣR", "ΣW", "ΣR·a + couples", "ΣW·a"]
-                                                                   if eq else []),
-                   [[c.combo.name] + [R(c, i) for i in sup] + (eq[k] if eq else []) for k, c in enumerate(res.combos)],
-                   units=[None] + [u["force"]] * len(sup) + ([u["force"], u["force"], u["moment"], u["moment"]]
-                                                             if eq else []),
-                   note="Supports at x = " + ", ".join(f"{Ls[i]}: {num(lit.value(X[i], 'length'))} {u['length']}"
-                                                       for i in sup) + "." + (
-                       " ΣW: total factored load, ΣW·a its moment (from the loads table)." if eq else ""))
-    else:
-        cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
-        rows = [[Ls[i], lit.q(X[i], "length")] + [R(c, i) for c in res.combos] for i in sup]
-        work.table("Reactions (upward positive)", cols, rows,
-                   units=[None, u["length"]] + [u["force"]] * len(res.combos))
+    cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
+    rows = [[Ls[i], lit.q(X[i], "length")] +
+            [lit.q(_tiny(c.sol.reactions[i], max(abs(c.sol.reactions).max(), 1e-300)), "force") for c in res.combos]
+            for i in sup]
+    work.table("Reactions (upward positive)", cols, rows, units=[None, u["length"]] + [u["force"]] * len(res.combos))
     fixed = [i for i in sup if setup.kinds[i] in ("fixed", "guided")]
     if fixed:
         work.table("Support moments (bending moment in the member at the support, sagging positive)",
@@ -316,58 +281,23 @@ def equilibrium_check(work, setup, res, lit: Lit):
                    desc=f"ΣM about {A} = 0{label}")
 
 
-def _moment_ref(setup) -> int:
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed")]
-    return sup[0] if sup else 0
-
-
-def _simple_path(setup) -> bool:
-    """Whether write() takes a statically determinate path without the equilibrium check."""
-    kinds = setup.kinds
-    if setup.model.springs or setup.model.settlement:
-        return False
-    vert = [i for i, k in enumerate(kinds) if k in ("pinned", "roller", "fixed")]
-    rot = [i for i, k in enumerate(kinds) if k in ("fixed", "guided")]
-    hinges = sum(1 for k in kinds if k == "hinge")
-    return hinges == 0 and ((not rot and len(vert) == 2) or (len(vert) == 1 and rot == vert
-                                                              and vert[0] in (0, len(kinds) - 1)))
-
-
-def _equilibrium_sums(setup, cr, X, iA):
-    case_loads = setup.case_loads()
-    W = sum(f * ld.force() for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
-    MW = sum(f * ld.moment_about(X[iA]) for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
-    R = float(cr.sol.reactions.sum())
-    MR = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
-    return W, R, MW, MR
-
-
-def _equilibrium_rows(setup, res, lit: Lit):
-    X, iA = setup.model.nodes, _moment_ref(setup)
-    out = []
-    for cr in res.combos:
-        W, R, MW, MR = _equilibrium_sums(setup, cr, X, iA)
-        out.append([lit.q(R, "force"), lit.q(W, "force"), lit.q(MR, "moment"), lit.q(MW, "moment")])
-    return out
-
-
 def _equilibrium_table(work, setup, res, lit: Lit, X, iA: int, A: str):
-    """Many combinations: ΣF_y and ΣM for each tabulated beside the reactions (reactions_table), and the
-    largest residual checked in the working."""
+    """Many combinations: ΣF_y and ΣM for each in one table, and the largest residual checked in the working."""
     fu, mu = lit.units["force"], lit.units["moment"]
-    worst = None
+    case_loads = setup.case_loads()
+    rows, worst = [], None
     for cr in res.combos:
-        W, R, MW, MR = _equilibrium_sums(setup, cr, X, iA)
+        W = sum(f * ld.force() for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        MW = sum(f * ld.moment_about(X[iA]) for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
+        R = float(cr.sol.reactions.sum())
+        MR = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
+        rows.append([cr.combo.name, lit.q(W, "force"), lit.q(R, "force"), lit.q(MW, "moment"), lit.q(MR, "moment")])
         rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))
         if worst is None or rel > worst[0]:
             worst = (rel, cr, W, R, MW, MR)
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
-    if len(sup) > 12:  # the reactions table was not drawn with the sums: give them their own table
-        work.table(f"Equilibrium by combination (factored loads from the loads table; moments about {A}, "
-                   f"clockwise positive)", ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"],
-                   [[cr.combo.name] + [row[1], row[0], row[3], row[2]]
-                    for cr, row in zip(res.combos, _equilibrium_rows(setup, res, lit))],
-                   units=[None, fu, fu, mu, mu])
+    work.table(f"Equilibrium by combination (factored loads from the loads table; moments about {A}, "
+               f"clockwise positive)", ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"], rows,
+               units=[None, fu, fu, mu, mu])
     _, cr, W, R, MW, MR = worst
     work.let("W_tot", lit.q(W, "force"), unit=fu, desc=f"total factored load ({cr.combo.name}, the largest "
                                                           f"residual in the table)", note="Σ factor × load")

@@ -316,8 +316,8 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
         rec.let("mass", _q(vals["mass"], "kg/m"), unit="kg/m", desc="mass per length",
                  note=mass_note or "Σ ρ_i·A_i over the parts (actual areas, holes negative)")
     else:
-        # no density (no material): no "mass = 0" in the working; the field reads 0 kg/m as documented
-        work.scope["mass"] = _q(0.0, "kg/m")
+        rec.let("mass", _q(0.0, "kg/m"), unit="kg/m", desc="mass per length: no material given",
+                 note="no material (density) given, so no mass is computed; the field reads 0 kg/m")
 
     if y_ref is not None:
         rec.calc("I_x_ref", "I_x + A*(y_c - y_ref)^2", unit="mm^4", desc="second moment about the axis y = y_ref")
