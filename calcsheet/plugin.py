@@ -129,6 +129,8 @@ class PluginFunction:
     returns: str  # record type of the result
     version: str
     family: str | None = None  # the family of record types its record belongs to (e.g. every beam load kind)
+    # the published standards (with edition) this function relies on; None: the namespace's list
+    standards: tuple[str, ...] | None = None
 
     @property
     def qualname(self) -> str:
@@ -191,7 +193,11 @@ class Namespace:
         doc: str | None = None,
         shared: bool = False,
         family: str | None = None,
+        standards: tuple[str, ...] | list[str] | None = None,
     ):
+        """Register a function. ``standards``: the published standards (with edition) this function relies on,
+        when not all of the namespace's (``()``: none); the package's design basis lists, for each function a
+        sheet calls, its own list or else the namespace's."""
         def register(func: Callable) -> Callable:
             fname = name or func.__name__
             _declares_its_record_type(self.name, fname, returns, family)
@@ -205,6 +211,7 @@ class Namespace:
                 returns=returns,
                 version=self.version,
                 family=family,
+                standards=_standards(standards, f"plugin {self.name}.{name or func.__name__}"),
             )
             validate(pf, collective={p.name for p in self.shared} if shared else set())
             same_record_type(self._record_types, pf)
@@ -212,6 +219,26 @@ class Namespace:
             return func
 
         return register
+
+
+def _standards(value, where: str) -> tuple[str, ...] | None:
+    """A function's ``standards=``: None, or a list of distinct, non-empty names that each carry an edition
+    (a year or number, e.g. "AISC 360-16", "EN 1993-1-1:2005")."""
+    if value is None:
+        return None
+    if isinstance(value, str) or not isinstance(value, (list, tuple)):
+        raise PluginDefinitionError(f"{where}: standards must be a list of names with editions, "
+                                    f"e.g. (\"AISC 360-16\",), not {type(value).__name__}")
+    out = []
+    for std in value:
+        if not isinstance(std, str) or not std.strip():
+            raise PluginDefinitionError(f"{where}: a standard must be a non-empty name, got {std!r}")
+        if not any(ch.isdigit() for ch in std):
+            raise PluginDefinitionError(f"{where}: standard {std!r} names no edition (add its year or number)")
+        if std.strip() in out:
+            raise PluginDefinitionError(f"{where}: standard {std!r} is listed twice")
+        out.append(std.strip())
+    return tuple(out)
 
 
 def _validate_param(p: Param, where: str) -> None:

@@ -9,6 +9,25 @@ import html
 
 _NUM = "{:.3f}"
 
+# A text box's size estimated from its font size and character count, so labels can be placed without a
+# font: 0.62 em per character over-estimates an ordinary sans-serif label (about 0.5–0.55 em per character
+# with digits; common practice for label layout); 0.8 em above the baseline and 0.2 em below it.
+CHAR_EM, ASCENT_EM, DESCENT_EM = 0.62, 0.8, 0.2
+
+
+def text_box(x: float, y: float, content: str, size: float, anchor: str = "start",
+             middle: bool = False) -> tuple[float, float, float, float]:
+    """The estimated box (x0, y0, x1, y1) of an unrotated text at (x, y), SVG pixels (y down)."""
+    w = CHAR_EM * size * len(str(content))
+    x0 = x - (w if anchor == "end" else w / 2 if anchor == "middle" else 0.0)
+    if middle:
+        return x0, y - size / 2, x0 + w, y + size / 2
+    return x0, y - ASCENT_EM * size, x0 + w, y + DESCENT_EM * size
+
+
+def boxes_overlap(a, b, pad: float = 0.0) -> bool:
+    return min(a[2], b[2]) - max(a[0], b[0]) > -pad and min(a[3], b[3]) - max(a[1], b[1]) > -pad
+
 
 def esc(text) -> str:
     return html.escape(str(text), quote=True)
@@ -28,6 +47,7 @@ class Svg:
         self.title = title
         self.css_class = css_class
         self.parts: list[str] = []
+        self.boxes: list[tuple[float, float, float, float]] = []  # estimated boxes of the texts written
 
     def _attrs(self, attrs: dict) -> str:
         out = []
@@ -58,7 +78,38 @@ class Svg:
         self.parts.append(f'<rect x="{_n(x)}" y="{_n(y)}" width="{_n(w)}" height="{_n(h)}" {self._attrs(attrs)}/>')
 
     def text(self, x, y, content, **attrs):
+        if not attrs.get("transform"):
+            self.boxes.append(text_box(x, y, content, float(attrs.get("font_size") or 16),
+                                       attrs.get("text_anchor") or "start",
+                                       attrs.get("dominant_baseline") in ("middle", "central")))
         self.parts.append(f'<text x="{_n(x)}" y="{_n(y)}" {self._attrs(attrs)}>{esc(content)}</text>')
+
+    def reserve(self, box) -> None:
+        """Keep labels off an area (e.g. a legend's line sample) as if a text were there."""
+        self.boxes.append(tuple(box))
+
+    def fits(self, box, pad: float = 1.0) -> bool:
+        """Whether a text box lies inside the figure and clear of every text written so far."""
+        x0, y0, x1, y1 = box
+        if x0 < 0 or y0 < 0 or x1 > self.width or y1 > self.height:
+            return False
+        return not any(boxes_overlap(box, b, pad) for b in self.boxes)
+
+    def label(self, candidates, content, size: float, **attrs) -> bool:
+        """Write ``content`` at the first candidate (x, y, anchor) where it fits; a candidate running off the
+        figure's side is first slid back inside. Returns False (and writes nothing) when none fits, so the
+        caller can drop or shorten the label rather than print it over another."""
+        for x, y, anchor in candidates:
+            box = text_box(x, y, content, size, anchor)
+            if box[0] < 1:
+                x += 1 - box[0]
+            elif box[2] > self.width - 1:
+                x -= box[2] - (self.width - 1)
+            box = text_box(x, y, content, size, anchor)
+            if self.fits(box):
+                self.text(x, y, content, font_size=size, text_anchor=anchor, **attrs)
+                return True
+        return False
 
     def raw_group(self, inner: "Svg", transform: str):
         """Nest another builder's elements under a transform we compute (numbers only)."""

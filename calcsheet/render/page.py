@@ -69,8 +69,36 @@ def latest_revision(meta: dict) -> tuple[str, str] | None:
     return cells[0], cells[1]
 
 
+def functions_called(result) -> dict[str, list[str]]:
+    """Namespace -> the plugin functions a run called (in order of first call), read from the records in
+    its trace (values of steps, lists of records, and calls inside a plugin's own working)."""
+    from ..plugin import Record
+
+    out: dict[str, list[str]] = {}
+
+    def note(value, depth=0):
+        if isinstance(value, Record) and value.source and "." in value.source:
+            ns, fn = value.source.split(".", 1)
+            if fn not in out.setdefault(ns, []):
+                out[ns].append(fn)
+        elif isinstance(value, (list, tuple)) and depth < 3:
+            for v in value:
+                note(v, depth + 1)
+
+    def walk(items):
+        for item in items:
+            note(getattr(item, "value", None))
+            working = getattr(item, "working", None)
+            if working is not None:
+                walk(working.items)
+
+    walk(result.items)
+    return out
+
+
 def standards_used(result, registry=None) -> list[tuple[str, str]]:
-    """(standard with edition, who relies on it): the sheet's own ``standards:`` and every plugin it called."""
+    """(standard with edition, who relies on it): the sheet's own ``standards:`` and, for every plugin function
+    the sheet called, that function's ``standards`` (else its namespace's)."""
     out: list[tuple[str, str]] = []
     own = result.meta.get("standards")
     for entry in (own if isinstance(own, list) else [own] if own else []):
@@ -79,10 +107,23 @@ def standards_used(result, registry=None) -> list[tuple[str, str]]:
         from ..plugin import default_registry
 
         registry = registry or default_registry()
+        called = functions_called(result)
         for name in sorted(result.plugin_versions):
             ns = registry.namespace(name)
-            for std in getattr(ns, "standards", ()) or ():
-                out.append((str(std), f"plugin {name} {result.plugin_versions[name]}"))
+            table = getattr(ns, "functions", None)
+            who = f"plugin {name} {result.plugin_versions[name]}"
+            if not table or not called.get(name):
+                for std in getattr(ns, "standards", ()) or ():
+                    out.append((str(std), who))
+                continue
+            per: dict[str, list[str]] = {}
+            for fn in called[name]:
+                pf = table.get(fn)
+                stds = pf.standards if pf is not None and pf.standards is not None else ns.standards
+                for std in stds or ():
+                    per.setdefault(str(std), []).append(f"{name}.{fn}")
+            for std, fns in per.items():
+                out.append((std, f"{who}: {', '.join(fns)}"))
     return out
 
 

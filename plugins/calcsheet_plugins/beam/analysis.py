@@ -157,12 +157,13 @@ def solve(work, spans, supports, loads, combos=None, combinations=None, E=None, 
 
     working.write(work, setup, res, lit)
     _result_tables(work, setup, res, lit)
-    out = _envelope(work, setup, res, lit, lim, deflection)
+    defl_check: list = []
+    out = _envelope(work, setup, res, lit, lim, deflection, defl_check)
     if not setup.stiff:
         for name in list(out):
             if name in NEEDS_STIFFNESS or name.startswith("delta_max_"):
                 del out[name]
-    for svg, caption in diagrams.figures(setup, res, lit):
+    for svg, caption in diagrams.figures(setup, res, lit, defl_check[0] if defl_check else None):
         work.figure(svg, caption=caption)
     return out
 
@@ -235,7 +236,7 @@ def _indeterminate_path(setup) -> bool:
     return not (simple or cant)
 
 
-def _envelope(work, setup, res, lit, lim, deflection):
+def _envelope(work, setup, res, lit, lim, deflection, defl_check):
     model = setup.model
     X = model.nodes
     u = setup.units
@@ -322,6 +323,7 @@ def _envelope(work, setup, res, lit, lim, deflection):
         out["EI"] = lit.q(model.EI[0], "EI")
         return out
     ratio, k, e, c = best
+    defl_check.append((pool, c, e.x, e.value))
     span_name = f"{Ls[k]}–{Ls[k + 1]}"
     if cantilever[k]:
         out["L_gov"] = work.calc("L_gov", f"2*{lit(model.spans[k], 'length')}", unit=u["length"],
@@ -414,13 +416,47 @@ def _x(lit, x):
 # ---------------------------------------------------------------- stresses
 
 STRESS_FIELDS = [
-    Field("sigma_top", "[pressure]", "largest bending stress at the top fibre, M·y_top/I"),
-    Field("sigma_bot", "[pressure]", "largest bending stress at the bottom fibre, M·y_bot/I"),
+    Field("sigma_top", "[pressure]", "largest bending stress at the top fibre, M·y_top/I (times n of the material "
+                                     "there, for a transformed section)"),
+    Field("sigma_bot", "[pressure]", "largest bending stress at the bottom fibre, M·y_bot/I (times n of the "
+                                     "material there, for a transformed section)"),
     Field("sigma_max", "[pressure]", "the larger of the two"),
-    Field("tau_max", "[pressure]", "largest shear stress at the neutral axis, V·Q/(I·t)"),
+    Field("tau_max", "[pressure]", "largest shear stress at the neutral axis, V·Q/(I·t) (in reference-material "
+                                   "units for a transformed section)"),
     Field("M", MOM, "moment used"),
     Field("V", FORCE, "shear used"),
+    Field("n_materials", doc="number of materials of the section (1 unless it is transformed)"),
+    Field("n_{i}", doc="modular ratio E_i/E_ref of material i (transformed sections)", optional=True),
+    Field("sigma_{i}", "[pressure]", "largest bending stress in material i, n_i·M·y_i/I_tr at its outermost fibre "
+                                     "(transformed sections)", optional=True),
+    Field("sigma_top_{i}", "[pressure]", "bending stress at the top fibre of material i (transformed sections)",
+          optional=True),
+    Field("sigma_bot_{i}", "[pressure]", "bending stress at the bottom fibre of material i (transformed sections)",
+          optional=True),
 ]
+
+
+def _materials(section):
+    """The materials of a transformed section, as (n, parts, top of its material, bottom of it) in mm of the
+    built-up frame, ordered by n; None for a section of one material (or one without its outline)."""
+    geom = getattr(section, "payload", None)
+    rings = getattr(geom, "rings", None)
+    if "E_ref" not in section.fields or not rings:
+        return None
+    extent: dict[float, list[float]] = {}
+    for r in rings:
+        if r.sign <= 0 or len(r.y) == 0:
+            continue
+        n = round(float(r.n), 12)
+        lo, hi = extent.setdefault(n, [np.inf, -np.inf])
+        extent[n] = [min(lo, float(np.min(r.y))), max(hi, float(np.max(r.y)))]
+    if len(extent) < 2:
+        return None
+    names = {}
+    for row in getattr(geom, "rows", []):
+        if row.sign > 0:
+            names.setdefault(round(float(row.n), 12), []).append(row.name)
+    return [(n, names.get(n, []), hi, lo) for n, (lo, hi) in sorted(extent.items())]
 
 
 @namespace.function(
@@ -431,25 +467,77 @@ STRESS_FIELDS = [
     returns="stresses",
 )
 def stresses(work, member, section):
-    """Bending stress σ = M·c/I at both fibres and shear stress τ = V·Q/(I·t), from the member's envelope."""
+    """Bending stress σ = M·c/I at both fibres and shear stress τ = V·Q/(I·t), from the member's envelope; on a
+    transformed (several-material) section, σ_i = n_i·M·y_i/I_tr at each material's own outermost fibres."""
     for name in ("I_x", "y_top", "y_bot", "Q_x", "t_x"):
         if name not in section.fields:
             work.fail(f"the section record has no {name}; stresses need I_x, y_top, y_bot, Q_x and t_x",
                       param="section")
     system = str(work.settings.get("system", "SI")).upper()
-    st, mo, fo = ("ksi", "kip*ft", "kip") if system == "US" else ("MPa", "kN*m", "kN")
+    st, mo, fo, le = ("ksi", "kip*ft", "kip", "in") if system == "US" else ("MPa", "kN*m", "kN", "mm")
     work.calc("M", "member.M_abs", unit=mo, desc="largest moment in magnitude (envelope)")
     work.calc("V", "member.V_max", unit=fo, desc="largest shear in magnitude (envelope)")
-    top = work.calc("sigma_top", "M*section.y_top/section.I_x", unit=st, desc="bending stress, top fibre: σ = M·c/I")
-    bot = work.calc("sigma_bot", "M*section.y_bot/section.I_x", unit=st,
-                    desc="bending stress, bottom fibre: σ = M·c/I")
+    mats = _materials(section)
+    out = {"n_materials": work.q(1 if mats is None else len(mats), "")}
+    if mats is None:
+        top = work.calc("sigma_top", "M*section.y_top/section.I_x", unit=st,
+                        desc="bending stress, top fibre: σ = M·c/I")
+        bot = work.calc("sigma_bot", "M*section.y_bot/section.I_x", unit=st,
+                        desc="bending stress, bottom fibre: σ = M·c/I")
+    else:
+        top, bot = _transformed_stresses(work, section, mats, st, le, out)
     work.calc("sigma_max", "max(sigma_top, sigma_bot)", unit=st, desc="largest bending stress")
     tau = work.calc("tau_max", "V*section.Q_x/(section.I_x*section.t_x)", unit=st,
                     desc="shear stress at the neutral axis: τ = V·Q/(I·t)")
     work.note("Sagging compresses the top fibre and hogging the bottom; the magnitudes here are the larger of "
               "the two for each fibre, with M = max(|M_max|, |M_min|).")
-    return {"sigma_top": top.to(st), "sigma_bot": bot.to(st), "sigma_max": work["sigma_max"].to(st),
-            "tau_max": tau.to(st), "M": work["M"].to(mo), "V": work["V"].to(fo)}
+    if mats is not None:
+        work.note("τ is in reference-material units (Q and t of the transformed section); the shear stress in "
+                  "material i at the same level is n_i·τ.")
+    out.update({"sigma_top": top.to(st), "sigma_bot": bot.to(st), "sigma_max": work["sigma_max"].to(st),
+                "tau_max": tau.to(st), "M": work["M"].to(mo), "V": work["V"].to(fo)})
+    return out
+
+
+def _transformed_stresses(work, section, mats, st, le, out):
+    """σ_i = n_i·M·y/I_tr at the top and bottom fibre of each material (the transformed-section method: the
+    transformed section's strain is the real one, so a fibre of material i carries n_i times the stress the
+    reference material would at the same place)."""
+    y_c = float(section.fields["y_c"].m_as("mm"))
+    E_ref = section.fields["E_ref"]
+    work.note(f"Transformed section of {len(mats)} materials, E_ref = {working.num(float(E_ref.m_as('MPa')))} MPa. "
+              "I_x is of the transformed section (I_tr), so M·y/I_tr is the stress the reference material would "
+              "carry; at a fibre of material i it is multiplied by that material's modular ratio: "
+              "σ_i = n_i·M·y/I_tr.", kind="method")
+    y_sec_top = max(hi for _, _, hi, _ in mats)
+    y_sec_bot = min(lo for _, _, _, lo in mats)
+    per_top, per_bot = {}, {}
+    for i, (n, parts, hi, lo) in enumerate(mats, start=1):
+        what = (", ".join(parts[:3]) + (" …" if len(parts) > 3 else "")) if parts else f"material {i}"
+        out[f"n_{i}"] = work.let(f"n_{i}", work.q(n, ""), desc=f"modular ratio E_i/E_ref of material {i} ({what})")
+        work.let(f"y_top_{i}", work.q(hi - y_c, "mm").to(le), unit=le,
+                 desc=f"neutral axis to the top fibre of material {i}")
+        work.let(f"y_bot_{i}", work.q(y_c - lo, "mm").to(le), unit=le,
+                 desc=f"neutral axis to the bottom fibre of material {i}")
+        t = work.calc(f"sigma_top_{i}", f"n_{i}*M*abs(y_top_{i})/section.I_x", unit=st,
+                      desc=f"bending stress, top fibre of material {i}: σ_i = n_i·M·y/I_tr")
+        b = work.calc(f"sigma_bot_{i}", f"n_{i}*M*abs(y_bot_{i})/section.I_x", unit=st,
+                      desc=f"bending stress, bottom fibre of material {i}: σ_i = n_i·M·y/I_tr")
+        out[f"sigma_top_{i}"], out[f"sigma_bot_{i}"] = t.to(st), b.to(st)
+        out[f"sigma_{i}"] = work.calc(f"sigma_{i}", f"max(sigma_top_{i}, sigma_bot_{i})", unit=st,
+                                      desc=f"largest bending stress in material {i}; check it against that "
+                                           f"material's own strength").to(st)
+        if abs(hi - y_sec_top) <= 1e-9 * max(1.0, abs(y_sec_top)):
+            per_top[i] = t
+        if abs(lo - y_sec_bot) <= 1e-9 * max(1.0, abs(y_sec_bot)):
+            per_bot[i] = b
+    i_top = max(per_top, key=lambda k: per_top[k])
+    i_bot = max(per_bot, key=lambda k: per_bot[k])
+    top = work.calc("sigma_top", f"sigma_top_{i_top}", unit=st,
+                    desc=f"bending stress at the section's top fibre (material {i_top})")
+    bot = work.calc("sigma_bot", f"sigma_bot_{i_bot}", unit=st,
+                    desc=f"bending stress at the section's bottom fibre (material {i_bot})")
+    return top, bot
 
 
 def extreme_label(kind: str, value: float) -> str:

@@ -60,9 +60,10 @@ def steel(work, grade, t=None):
     j = 0 if mm < bands["fu_t_max"][0] else next(k for k, lim in enumerate(bands["fu_t_max"]) if k and mm <= lim)
     out["f_y"] = work.let("f_y", work.q(bands["f_y"][i], "MPa"), unit="MPa",
                           desc=f"yield strength R_eH for {lo} < t ≤ {bands['t_max'][i]} mm (t = {mm:g} mm)",
-                          note=bands["source"])
+                          note=bands.get("source_f_y", bands["source"]))
     out["f_u"] = work.let("f_u", work.q(bands["f_u"][j], "MPa"), unit="MPa",
-                          desc=f"tensile strength R_m at t = {mm:g} mm", note=bands["source"])
+                          desc=f"tensile strength R_m at t = {mm:g} mm",
+                          note=bands.get("source_f_u", bands["source"]))
     work.note(f"f_y and f_u taken from the product standard's thickness bands (EN 1993-1-1 3.2.1(1) a)); "
               f"a National Annex may instead require Table 3.1 (3.2.1(1) b)).", kind="method")
     out["name"] = f"{entry['name']}, t = {mm:g} mm"
@@ -76,7 +77,8 @@ def aluminium(work, alloy):
     return _from_library(work, "aluminium", alloy)
 
 
-@namespace.function("timber", params=[Param("grade", kind="text", choices=library.grades("timber"),
+@namespace.function("timber", standards=("EN 338:2009 (strength classes)", "EN 14080:2013 (glulam strength classes)"),
+                    params=[Param("grade", kind="text", choices=library.grades("timber"),
                                             doc="strength class (softwood or glulam)")], fields=FIELDS,
                     returns="material")
 def timber(work, grade):
@@ -88,7 +90,7 @@ RULES = ("EN 1992-1-1", "ACI 318")
 
 
 @namespace.function(
-    "concrete",
+    "concrete", standards=("EN 1992-1-1:2004 Table 3.1 or ACI 318-19 19.2, as the call's rule names",),
     params=[Param("f_c", "[pressure]", "characteristic cylinder strength (f_ck, or f'c)"),
             Param("rule", kind="text", choices=RULES, doc="rule for E from strength", default="EN 1992-1-1")],
     fields=FIELDS,
@@ -124,7 +126,7 @@ def concrete(work, f_c, rule="EN 1992-1-1"):
 
 
 @namespace.function(
-    "custom",
+    "custom", standards=(),
     params=[Param("name", kind="text", doc="what it is"),
             Param("E", "[pressure]", "modulus of elasticity"),
             Param("f_y", "[pressure]", "yield or characteristic strength"),

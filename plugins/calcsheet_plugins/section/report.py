@@ -201,13 +201,13 @@ class _Brief:
         return self.work[name]
 
     def flush(self):
-        rows = []
-        for k in range(0, len(self.values), 3):
+        rows, per = [], 4  # four name–value pairs a row keeps the table short (about a dozen rows)
+        for k in range(0, len(self.values), per):
             row = []
-            for name, value in self.values[k:k + 3]:
+            for name, value in self.values[k:k + per]:
                 row += [name, value]
-            rows.append(row + [""] * (6 - len(row)))
-        self.work.table("Further properties", ["Property", "Value"] * 3, rows, units=[None] * 6)
+            rows.append(row + [""] * (2 * per - len(row)))
+        self.work.table("Further properties", ["Property", "Value"] * per, rows, units=[None] * (2 * per))
         self.work.note("Formulas: " + "; ".join(self.formulas) + ".", kind="method")
         self.work.note("Found from the outline by Green's theorem (methods as in a full working): "
                        + ", ".join(self.methods) + ".", kind="method")
@@ -236,7 +236,7 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
             work.let("I_xy", _q(0.0, "mm^4"), unit="mm^4", desc="product of area about the centroidal axes",
                      note="the section is symmetric about a centroidal axis")
     else:
-        if compact and not transformed:
+        if (compact or detail == "brief") and not transformed:  # brief: one parts table, sums as its footer
             _compact_table_steps(work, shape)
         else:
             _table_steps(work, shape, transformed)
@@ -316,7 +316,8 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
         rec.let("mass", _q(vals["mass"], "kg/m"), unit="kg/m", desc="mass per length",
                  note=mass_note or "Σ ρ_i·A_i over the parts (actual areas, holes negative)")
     else:
-        rec.let("mass", _q(0.0, "kg/m"), unit="kg/m", desc="mass per length", note="no density given")
+        rec.let("mass", _q(0.0, "kg/m"), unit="kg/m", desc="mass per length: no material given",
+                 note="no material (density) given, so no mass is computed; the field reads 0 kg/m")
 
     if y_ref is not None:
         rec.calc("I_x_ref", "I_x + A*(y_c - y_ref)^2", unit="mm^4", desc="second moment about the axis y = y_ref")
@@ -332,10 +333,52 @@ def report(work, shape, *, rho=None, x_ref=None, y_ref=None, transformed=False, 
     if detail == "brief":
         rec.flush()
     _agreement(work, shape, engine, table=detail != "brief")
+    _snap_noise(work, max(vals["y_max"] - vals["y_min"], vals["x_max"] - vals["x_min"]))
     out = {name: work[name].to(unit(UNITS[name])) if name != "theta_p" else work[name] for name in NAMES}
     out["shape"] = shape.label
     out.update(optional_fields(work, shape))
     return out
+
+
+NOISE = 1e-9  # relative to the section's size: round-off dust, far below any dimension a drawing states
+
+
+def _noise_free(value, size: float):
+    """A length-power quantity (mm, mm², mm³, mm⁴, mm⁶…) smaller than NOISE·D^k, D the section's larger overall
+    dimension in mm and k the power of length, is floating-point round-off (x_s − x_c of a symmetric section
+    gives 1.4e-14 mm): it is 0. Other quantities (angles, masses, ratios) are returned as they are."""
+    if not hasattr(value, "dimensionality") or size <= 0:
+        return value
+    dims = dict(value.dimensionality)
+    if set(dims) != {"[length]"}:
+        return value
+    k = dims["[length]"]
+    try:
+        v = float(value.to(unit("mm") ** k).magnitude)
+    except Exception:  # an array or an unconvertible unit: leave it
+        return value
+    if v != 0.0 and abs(v) < NOISE * size ** k:
+        return value * 0.0
+    return value
+
+
+def _snap_noise(work, size: float) -> None:
+    """Print round-off dust as 0 everywhere in this working (steps, tables) and in the values it returns."""
+    from calcsheet.trace import Step, Table
+
+    for item in work.working.items:
+        if isinstance(item, Step):
+            clean = _noise_free(item.value, size)
+            if clean is not item.value:
+                item.value = clean
+                if work.scope.get(item.name) is not None:
+                    work.scope[item.name] = _noise_free(work.scope[item.name], size)
+        elif isinstance(item, Table):
+            for row in list(item.rows) + list(item.footer or []):
+                for k, cell in enumerate(row):
+                    row[k] = _noise_free(cell, size)
+    for name, value in list(work.scope.items()):
+        work.scope[name] = _noise_free(value, size)
 
 
 _DIMENSIONED = {name: dim for name, dim, _, _ in OPTIONAL}

@@ -15,6 +15,9 @@ from . import namespace
 from . import aisc_f4f5, aisc_open
 from .common import FORMS, aisc, field, form_of, num, positive, tidy, units
 
+# what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
+AISC_STANDARDS = ("AISC 360-16",)
+
 STD = "AISC 360-16"
 METHODS = ("LRFD", "ASD")
 SUB = {"compression": "c", "flexure": "b", "shear": "v", "shear_rolled_I": "v", "tension_yielding": "t"}
@@ -827,7 +830,7 @@ REQ_BEAM = [Param("M_rx", "[force]*[length]", "required flexural strength about 
 REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or P_a)", default=None)]
 
 
-@namespace.function("aisc_beam", params=COMMON + BENDING + REQ_BEAM,
+@namespace.function("aisc_beam", standards=AISC_STANDARDS, params=COMMON + BENDING + REQ_BEAM,
                     fields=CLASS_FIELDS + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check.aisc_beam",
                     family="steel_check")
 def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
@@ -839,7 +842,7 @@ def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=Non
                 restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, want=("flexure", "flexure_y", "shear"))
 
 
-@namespace.function("aisc_column", params=COMMON + LENGTHS + REQ_COL,
+@namespace.function("aisc_column", standards=AISC_STANDARDS, params=COMMON + LENGTHS + REQ_COL,
                     fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check.aisc_column",
                     family="steel_check")
 def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, G=None, form=None, K_x=None,
@@ -849,7 +852,8 @@ def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, 
                 want=("compression",))
 
 
-@namespace.function("aisc_beam_column", params=COMMON + LENGTHS + BENDING + REQ_COL + REQ_BEAM,
+@namespace.function("aisc_beam_column", standards=AISC_STANDARDS,
+                    params=COMMON + LENGTHS + BENDING + REQ_COL + REQ_BEAM,
                     fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL,
                     returns="steel_check.aisc_beam_column", family="steel_check")
 def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
@@ -863,7 +867,7 @@ def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None
                 V_r=V_r)
 
 
-@namespace.function("aisc_shear", params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
+@namespace.function("aisc_shear", standards=AISC_STANDARDS, params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
                     fields=CLASS_FIELDS + F_SHEAR + F_UTIL, returns="steel_check.aisc_shear",
                     family="steel_check")
 def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, V_r=None, L_v=None):
@@ -871,7 +875,7 @@ def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=No
     return _run(work, section, material, method, F_y, E, G, form, V_r=V_r, L_v=L_v, want=("shear",))
 
 
-@namespace.function("aisc_flexure", params=COMMON + BENDING + REQ_BEAM[:1],
+@namespace.function("aisc_flexure", standards=AISC_STANDARDS, params=COMMON + BENDING + REQ_BEAM[:1],
                     fields=CLASS_FIELDS + F_FLEX + F_UTIL, returns="steel_check.aisc_flexure",
                     family="steel_check")
 def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None, C_b=None,
@@ -883,7 +887,8 @@ def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=Non
                 restraint=restraint, M_rx=M_rx, want=("flexure",))
 
 
-@namespace.function("aisc_classify", params=COMMON[:1] + COMMON[1:2] + COMMON[3:],
+@namespace.function("aisc_classify", standards=AISC_STANDARDS,
+                    params=COMMON[:1] + COMMON[1:2] + COMMON[3:],
                     fields=CLASS_FIELDS + [Field("form", kind="text", doc="I, C, T, L, RHS or CHS")],
                     returns="steel_class.aisc", family="steel_class")
 def aisc_classify(work, section, material=None, F_y=None, E=None, G=None, form=None):
@@ -893,7 +898,8 @@ def aisc_classify(work, section, material=None, F_y=None, E=None, G=None, form=N
     return {**ctx.classify(), "form": ctx.form}
 
 
-@namespace.function("aisc_Cb", params=[
+@namespace.function("aisc_Cb", standards=AISC_STANDARDS,
+                    params=[
     Param("M_max", "[force]*[length]", "largest moment in the unbraced segment", default=None),
     Param("M_A", "[force]*[length]", "moment at the quarter point", default=None),
     Param("M_B", "[force]*[length]", "moment at the centreline", default=None),
@@ -908,7 +914,7 @@ def aisc_Cb(work, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=Non
     return {"C_b": work.q(num(_cb(work, None, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end)), "")}
 
 
-@namespace.function("aisc_interaction",
+@namespace.function("aisc_interaction", standards=AISC_STANDARDS,
                     params=[Param("P_r", "[force]", "required axial strength"), Param("P_c", "[force]", "available axial strength"),
                             Param("M_rx", "[force]*[length]", "required flexural strength, x", default=None),
                             Param("M_cx", "[force]*[length]", "available flexural strength, x", default=None),

@@ -12,6 +12,9 @@ from calcsheet.plugin import Field, Param
 from . import namespace
 from .common import ec3, field, form_of, moment_factors, num, positive, tidy
 
+# what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
+EC3_STANDARDS = ("EN 1993-1-1:2005+AC:2009",)
+
 STD = "EN 1993-1-1"
 SHAPES = ("uniform", "end_moments", "udl", "point_mid")
 CLASS_RANK = {1: 1, 2: 2, 3: 3, 4: 4}
@@ -517,7 +520,7 @@ def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=Non
     return tidy(out, ctx.u)
 
 
-@namespace.function("ec3_beam", params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
+@namespace.function("ec3_beam", standards=EC3_STANDARDS, params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
                     family="steel_check")
 def ec3_beam(work, section, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None, L_LT=None,
              moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled", beam=None, combo=None,
@@ -528,7 +531,7 @@ def ec3_beam(work, section, material=None, f_y=None, E=None, G=None, na="recomme
                 beam=beam, combo=combo, x_start=x_start, x_end=x_end, want=("ltb",))
 
 
-@namespace.function("ec3_column", params=COMMON + BUCKLING + FORCES[:1], fields=FIELDS, returns="steel_check.ec3",
+@namespace.function("ec3_column", standards=EC3_STANDARDS, params=COMMON + BUCKLING + FORCES[:1], fields=FIELDS, returns="steel_check.ec3",
                     family="steel_check")
 def ec3_column(work, section, L, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None, L_z=None,
                N_Ed=None):
@@ -536,7 +539,7 @@ def ec3_column(work, section, L, material=None, f_y=None, E=None, G=None, na="re
     return _run(work, section, material, f_y, E, G, na, fabrication, L=L, L_z=L_z, N_Ed=N_Ed, want=("buckling",))
 
 
-@namespace.function("ec3_beam_column", params=COMMON + BUCKLING + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
+@namespace.function("ec3_beam_column", standards=EC3_STANDARDS, params=COMMON + BUCKLING + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
                     family="steel_check")
 def ec3_beam_column(work, section, L, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None,
                     L_z=None, L_LT=None, moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled",
@@ -548,7 +551,7 @@ def ec3_beam_column(work, section, L, material=None, f_y=None, E=None, G=None, n
                 psi_z=psi_z, beam=beam, combo=combo, x_start=x_start, x_end=x_end, want=("buckling", "ltb"))
 
 
-@namespace.function("ec3_chi", params=[Param("lambda_bar", doc="non-dimensional slenderness λ̄"),
+@namespace.function("ec3_chi", standards=EC3_STANDARDS, params=[Param("lambda_bar", doc="non-dimensional slenderness λ̄"),
                                        Param("curve", kind="text", choices=("a0", "a", "b", "c", "d"), doc="buckling curve")],
                     fields=[Field("chi", doc="reduction factor χ, Eq. 6.49"), Field("Phi", doc="Φ, 6.3.1.2(1)"),
                             Field("alpha", doc="imperfection factor, Table 6.1")], returns="steel_chi")
@@ -562,7 +565,7 @@ def ec3_chi(work, lambda_bar, curve):
     return {k: work.q(num(work.scope[k]), "") for k in ("chi", "Phi", "alpha")}
 
 
-@namespace.function("ec3_classify",
+@namespace.function("ec3_classify", standards=EC3_STANDARDS,
                     params=COMMON + [Param("N_Ed", "[force]", "design axial compression (web in compression or "
                                                                "bending and compression)", default=None),
                                      Param("bending", kind="text", choices=("yes", "no"),

@@ -83,4 +83,5 @@ def _signature():
 
 shape.__signature__ = _signature()
 # a section of its own fields (name, form, the given properties): a record type of the section family
-namespace.function("shape", params=PARAMS, fields=FIELDS, returns="steel_design.shape", family="section")(shape)
+namespace.function("shape", params=PARAMS, fields=FIELDS, returns="steel_design.shape", family="section",
+                   standards=())(shape)

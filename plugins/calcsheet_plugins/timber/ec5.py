@@ -12,6 +12,10 @@ from . import data as D
 from . import equations as EQ
 from . import namespace
 
+# what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
+EC5_STANDARDS = ("EN 1995-1-1:2004+AC:2006+A1:2008", "EN 338:2009 (strength classes)",
+                 "EN 14080:2013 (glulam strength classes)")
+
 STD = "EN 1995-1-1"
 
 
@@ -138,7 +142,7 @@ GRADE_FIELDS = [Field(k, "[pressure]", doc) for k, doc in (
     Field("edition", kind="text", doc="the product standard and edition the values come from")]
 
 
-@namespace.function("ec5_grade", params=[GRADE], fields=GRADE_FIELDS, returns="timber_design.grade")
+@namespace.function("ec5_grade", standards=EC5_STANDARDS, params=[GRADE], fields=GRADE_FIELDS, returns="timber_design.grade")
 def ec5_grade(work, grade):
     """Characteristic values of a strength class (EN 338:2009 Table 1, EN 14080:2013 Tables 4 and 5)."""
     g = _grade(work, grade)
@@ -155,7 +159,7 @@ def ec5_grade(work, grade):
 
 # ================================================================== timber_design.ec5_strengths
 @namespace.function(
-    "ec5_strengths",
+    "ec5_strengths", standards=EC5_STANDARDS,
     params=[GRADE, Param("h", "[length]", "depth for k_h (bending about the major axis)", default=None),
             Param("b", "[length]", "width for k_h (bending about the minor axis)", default=None), *PARAMS_COMMON],
     fields=[Field("k_mod", doc="Table 3.1"), Field("gamma_M", doc="Table 2.3"), Field("k_h", doc="3.2 / 3.3, depth h"),
@@ -418,7 +422,7 @@ def _finish(work, out, names: dict[str, str]):
     work.note(f"Governing check: {names[key]} (utilisation {u:.3f}).", kind="method")
 
 
-@namespace.function("ec5_beam", params=BEAM_PARAMS, fields=BEAM_FIELDS, returns="timber_design.beam")
+@namespace.function("ec5_beam", standards=EC5_STANDARDS, params=BEAM_PARAMS, fields=BEAM_FIELDS, returns="timber_design.beam")
 def ec5_beam(work, grade, b, h, L, M_d, V_d, service_class=1, duration="medium-term", annex="recommended",
              k_sys="no", braced="no", load_case="simply-supported-uniform-load", load_position="compression-edge",
              l_ef=None, F_c_90_d=None, l_b=None, b_b=None, a_end=None, support="discrete", w_G=None, w_Q=None,
@@ -533,7 +537,7 @@ def _buckling(work, g, product, L, l_ef_y, l_ef_z, chain: Chain):
     return lam_y, lam_z
 
 
-@namespace.function("ec5_column", params=COLUMN_PARAMS, fields=COLUMN_FIELDS, returns="timber_design.column")
+@namespace.function("ec5_column", standards=EC5_STANDARDS, params=COLUMN_PARAMS, fields=COLUMN_FIELDS, returns="timber_design.column")
 def ec5_column(work, grade, b, h, L, N_d, M_y_d=None, M_z_d=None, l_ef_y=None, l_ef_z=None, service_class=1,
                duration="medium-term", annex="recommended", k_sys="no", braced="no",
                load_case="simply-supported-constant-moment", load_position="centroid"):
@@ -607,7 +611,7 @@ _RECT = [GRADE, Param("b", "[length]", "breadth"), Param("h", "[length]", "depth
 
 
 @namespace.function(
-    "ec5_k_c",
+    "ec5_k_c", standards=EC5_STANDARDS,
     params=[*_RECT, Param("l_ef_y", "[length]", "buckling length about y"),
             Param("l_ef_z", "[length]", "buckling length about z (default l_ef_y)", default=None)],
     fields=[Field("lambda_rel_y"), Field("lambda_rel_z"), Field("k_c_y"), Field("k_c_z")],
@@ -625,7 +629,7 @@ def ec5_k_c(work, grade, b, h, l_ef_y, l_ef_z=None):
 
 
 @namespace.function(
-    "ec5_k_crit",
+    "ec5_k_crit", standards=EC5_STANDARDS,
     params=[*_RECT, Param("L", "[length]", "span"),
             Param("load_case", kind="text", choices=D.l_ef_cases(), doc="Table 6.1 case",
                   default="simply-supported-uniform-load"),
@@ -647,7 +651,7 @@ def ec5_k_crit(work, grade, b, h, L, load_case="simply-supported-uniform-load", 
 
 
 @namespace.function(
-    "ec5_bearing",
+    "ec5_bearing", standards=EC5_STANDARDS,
     params=[*_RECT, Param("L", "[length]", "span (for the clear distance l_1 to the next bearing)"),
             Param("F_c_90_d", "[force]", "design support reaction"), Param("l_b", "[length]", "bearing length"),
             Param("b_b", "[length]", "bearing width (default b)", default=None),
@@ -670,7 +674,7 @@ def ec5_bearing(work, grade, b, h, L, F_c_90_d, l_b, b_b=None, a_end=None, suppo
 
 
 @namespace.function(
-    "ec5_deflection",
+    "ec5_deflection", standards=EC5_STANDARDS,
     params=[*_RECT, Param("L", "[length]", "span"),
             Param("w_G", "[force]/[length]", "characteristic permanent line load", default=None),
             Param("w_Q", "[force]/[length]", "characteristic variable line load", default=None),

@@ -13,6 +13,9 @@ from . import equations as EQ
 from . import namespace
 from .ec5 import Chain, _finish, _positive
 
+# what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
+NDS_STANDARDS = ("ANSI/AWC NDS-2018 (ASD) and NDS Supplement 2018",)
+
 STD = "NDS 2018"
 TEMPS = ("normal", "100F-125F", "125F-150F")
 PROPS = ("b", "t", "v", "c", "cp", "E")  # F_b, F_t, F_v, F_c, F_c⊥, E and E_min
@@ -214,7 +217,7 @@ ADJ = [
 
 # ================================================================== timber_design.nds_beam
 @namespace.function(
-    "nds_beam",
+    "nds_beam", standards=NDS_STANDARDS,
     params=[*COMMON, Param("M", "[force]*[length]", "bending moment (ASD)"), Param("V", "[force]", "shear (ASD)"),
             *ADJ,
             Param("repetitive", kind="flag", doc="repetitive member (4.3.9)", default="no"),
@@ -327,7 +330,7 @@ def nds_beam(work, species, grade, L, M, V, size=None, b=None, d=None, load_dura
 
 # ================================================================== timber_design.nds_column
 @namespace.function(
-    "nds_column",
+    "nds_column", standards=NDS_STANDARDS,
     params=[*COMMON, Param("P", "[force]", "axial compression (ASD)"),
             Param("M_x", "[force]*[length]", "moment about the strong axis (edgewise, on d)", default=None),
             Param("M_y", "[force]*[length]", "moment about the weak axis (flatwise, on b)", default=None),
@@ -450,7 +453,7 @@ def nds_column(work, species, grade, L, P, size=None, b=None, d=None, M_x=None, 
 
 # ================================================================== timber_design.nds_adjusted
 @namespace.function(
-    "nds_adjusted",
+    "nds_adjusted", standards=NDS_STANDARDS,
     params=[*COMMON[:5], *ADJ,
             Param("repetitive", kind="flag", doc="repetitive member (4.3.9)", default="no"),
             Param("flat_use", kind="flag", doc="bent about the weak axis, load on the wide face", default="no")],
