@@ -230,6 +230,7 @@ def _check_override_dim(name, expr, checker: Checker, result: Result):
 
 def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, overrides: dict) -> None:
     ev = Evaluator(result.policy, plugins)
+    ev.sheet_functions = False  # the environment starts empty; binding a sheet function sets it
     env: dict[str, Any] = {}
     display: dict[str, Any] = {}
     check_no = 0

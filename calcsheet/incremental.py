@@ -182,6 +182,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     ev = Evaluator(prev.policy, plugins or _registry())
     env: dict[str, Any] = dict(prev.values)
     env.update({name: SheetFunction(fd) for name, fd in res.functions.items()})  # the sheet's own functions
+    ev.sheet_functions = bool(res.functions)
     display: dict[str, Any] = {n: s.display_unit for n, s in prev.steps.items()}
     new_steps: dict[str, Step] = {}
     new_checks: dict[str, CheckResult] = {}

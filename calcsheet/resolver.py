@@ -124,8 +124,11 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                 errors.append(RedefinitionError(f"'{stmt.name}' is the name of a plugin", stmt.name_span,
                                                 hint="choose another name"))
         reads: list[str] = []
+        calls_plugin = False
         for expr in exprs:
             for node in N.walk(expr):
+                if isinstance(node, N.PluginCall):
+                    calls_plugin = True
                 if isinstance(node, N.Name) and node.id in params:
                     continue  # a parameter of the function being defined
                 err = _check_node(node, res, all_defs, plugins, key, all_functions)
@@ -148,7 +151,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         if isinstance(stmt, N.Definition):
             res.defined_at.setdefault(stmt.name, stmt.span.line)
             res.def_spans.setdefault(stmt.name, stmt.span)
-            if not reads and not any(isinstance(n, N.PluginCall) for n in N.walk(stmt.expr)):
+            if not reads and not calls_plugin:
                 res.inputs.append(stmt.name)
         if errors:
             res.broken.add(key)

@@ -24,6 +24,7 @@ _CMP = {"≤": "<=", "≥": ">="}
 _MAX_NESTING = 60  # deeper text goes through the grammar (it also enforces the depth limit)
 _CACHE_LIMIT = 4096
 
+_WS_CHARS = " \t\f\r\n"  # the first characters the grammar's WS can match (checked in enable)
 _BINOPS = {"+": N.Add, "-": N.Sub, "*": N.Mul, "·": N.Mul, "×": N.Mul, "/": N.Div}
 
 
@@ -51,6 +52,7 @@ class _Patterns:
         # terminals this reader does not know: plain strings are fine (it never makes them, so text holding
         # them bails); a new pattern terminal could read known text differently, so the reader stays off
         self.usable = _KNOWN_TERMINALS <= set(terms) and all(
+            bool(self.ws.match(c)) == (c in _WS_CHARS) for c in map(chr, range(0x3000))) and all(
             type(terms[name].pattern).__name__ == "PatternStr" for name in extra)
 
 
@@ -131,13 +133,15 @@ class _Reader:
         return Span(self.line0 + k, col, self.line0 + j, last + 1)
 
     def skip(self):
-        m = self.p.ws.match(self.text, self.pos)
-        if m:
-            self.pos = m.end()
+        pos = self.pos
+        if pos < self.n and self.text[pos] in _WS_CHARS:
+            self.pos = self.p.ws.match(self.text, pos).end()
 
     def peek(self) -> str:
-        self.skip()
-        return self.text[self.pos] if self.pos < self.n else ""
+        pos = self.pos
+        if pos < self.n and self.text[pos] in _WS_CHARS:
+            pos = self.pos = self.p.ws.match(self.text, pos).end()
+        return self.text[pos] if pos < self.n else ""
 
     def expect(self, ch: str) -> int:
         if self.peek() != ch:
