@@ -59,14 +59,14 @@ def _value_key(v):
     return None
 
 
-def _names(*exprs) -> list[str]:
+def _names(*exprs) -> set[str]:
     from . import nodes as N
 
     out = set()
     for e in exprs:
         if e is not None:
             out.update(n.id for n in N.walk(e) if isinstance(n, N.Name))
-    return sorted(out)
+    return out
 
 
 class PartsMemo:
@@ -82,9 +82,23 @@ class PartsMemo:
     def __init__(self):
         self.previous: dict = {}
         self.current: dict = {}
+        self._names: dict = {}  # id(expr) -> (expr, the names it reads): kept with the expr, so ids stay true
 
     def next_page(self) -> None:
         self.previous, self.current = self.current, {}
+        if len(self._names) > 4 * len(self.previous) + 1000:
+            self._names = {}
+
+    def names(self, *exprs) -> set[str]:
+        out: set[str] = set()
+        for e in exprs:
+            if e is None:
+                continue
+            hit = self._names.get(id(e))
+            if hit is None or hit[0] is not e:
+                hit = self._names[id(e)] = (e, _names(e))
+            out |= hit[1]
+        return out
 
     def get(self, key, make):
         if key is None:
@@ -109,6 +123,16 @@ class _MemoPrinter:
     def __getattr__(self, name):
         return getattr(self._printer, name)
 
+    def value(self, value, unit=None, sigfigs=None):
+        vk = _value_key(value)
+        key = None if vk is None else ("value", vk, unit, sigfigs, self._settings)
+        return self._memo.get(key, lambda: self._printer.value(value, unit, sigfigs))
+
+    def expr(self, node, values=None, link=None, **kw):
+        if values is None and link is None and not kw:  # a literal as written (the inputs list)
+            return self._memo.get(("expr", node, self._settings), lambda: self._printer.expr(node))
+        return self._printer.expr(node, values, link, **kw)
+
     def _context(self, names, used, link, exact):
         used_key = []
         for k in sorted(used):
@@ -117,40 +141,84 @@ class _MemoPrinter:
             if vk is None:
                 return None
             used_key.append((k, vk, unit))
-        names = sorted(set(names) | set(used))
+        names = sorted(names.union(used))
         return (self._settings, tuple(used_key),
                 None if link is None else tuple(link(n) for n in names),
                 None if exact is None else tuple((n, exact.get(n)) for n in names))
 
-    def step_parts(self, step, link=None, exact=None):
+    def step_key(self, step, link=None, exact=None):
+        """What a step's formula parts print from, or None when they cannot be vouched for."""
         from .trace import FunctionStep
 
-        key = None
-        if type(step) is not FunctionStep and step.working is None:
-            vk, ok = _value_key(step.value), _value_key(step.overridden)
-            if vk is not None and ok is not None:
-                ctx = self._context(_names(step.expr, step.shown_expr), step.used, link, exact)
-                if ctx is not None:
-                    key = ("step", step.name, step.expr, step.shown_expr, vk, step.display_unit, ok, ctx)
-        return self._memo.get(key, lambda: self._printer.step_parts(step, link, exact))
+        if type(step) is FunctionStep or step.working is not None:
+            return None
+        vk, ok = _value_key(step.value), _value_key(step.overridden)
+        if vk is None or ok is None:
+            return None
+        ctx = self._context(self._memo.names(step.expr, step.shown_expr), step.used, link, exact)
+        if ctx is None:
+            return None
+        return ("step", step.name, step.expr, step.shown_expr, vk, step.display_unit, ok, ctx)
+
+    def check_key(self, check, link=None, exact=None):
+        ctx = self._context(self._memo.names(check.left, check.right, check.shown_left, check.shown_right),
+                            check.used, link, exact)
+        if ctx is None:
+            return None
+        return ("check", check.op, check.left, check.right, check.shown_left, check.shown_right, ctx)
+
+    def step_parts(self, step, link=None, exact=None):
+        return self._memo.get(self.step_key(step, link, exact), lambda: self._printer.step_parts(step, link, exact))
 
     def check_parts(self, check, link=None, exact=None):
-        key = None
-        ctx = self._context(_names(check.left, check.right, check.shown_left, check.shown_right), check.used,
-                            link, exact)
-        if ctx is not None:
-            key = ("check", check.op, check.left, check.right, check.shown_left, check.shown_right, ctx)
-        return self._memo.get(key, lambda: self._printer.check_parts(check, link, exact))
+        return self._memo.get(self.check_key(check, link, exact),
+                              lambda: self._printer.check_parts(check, link, exact))
+
+
+def _document_class():
+    from .render.page import PackageDocument
+    from .trace import Step
+
+    class PreviewDocument(PackageDocument):
+        """The package document, reusing a step's or check's whole printed block when nothing it shows
+        changed (its parts, number, anchor, description, marks and verdict)."""
+
+        memo: PartsMemo
+
+        def _print_Step(self, step, inner: bool = False):
+            pk = None if inner or type(step) is not Step else self.printer.step_key(step, self.link, self.exact)
+            if pk is None:
+                return super()._print_Step(step, inner)
+            key = ("step-block", pk, step.number, step.anchor, step.is_input, step.description, step.note,
+                   step.name in self.changed)
+            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_Step(step, inner))
+
+        def _print_CheckResult(self, c, inner: bool = False):
+            ck = None if inner else self.printer.check_key(c, self.link, self.exact)
+            if ck is None:
+                return super()._print_CheckResult(c, inner)
+            key = ("check-block", ck, c.number, c.anchor, c.ok, c.ratio, c.description)
+            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_CheckResult(c, inner))
+
+    return PreviewDocument
 
 
 def preview_document(result, memo: PartsMemo | None = None, **options):
     """The package document of ``result``; with ``memo``, unchanged steps reuse their printed formulas."""
     from .render.page import PackageDocument
 
-    doc = PackageDocument(result, **options)
-    if memo is not None:
-        doc.printer = _MemoPrinter(doc.printer, memo)
+    if memo is None:
+        return PackageDocument(result, **options)
+    global _PreviewDocument
+    if _PreviewDocument is None:
+        _PreviewDocument = _document_class()
+    doc = _PreviewDocument(result, **options)
+    doc.memo = memo
+    doc.printer = _MemoPrinter(doc.printer, memo)
     return doc
+
+
+_PreviewDocument = None
 
 
 class Preview:
