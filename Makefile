@@ -26,8 +26,12 @@ test: $(STAMP)
 	bash .ci/system-deps --test
 	$(BIN)/python -m pytest -q
 
+# Every benchmark, then one table of every figure with its goal and PASS/MISS (benchmarks/summary.py).
 bench: $(STAMP)
-	for b in benchmarks/bench_*.py; do $(BIN)/python $$b || exit 1; done
+	@summary=$$(mktemp); \
+	for b in benchmarks/bench_*.py; do echo "== $$b"; \
+	  CALCSHEET_BENCH_SUMMARY=$$summary $(BIN)/python $$b || { rm -f $$summary; exit 1; }; done; \
+	echo; $(BIN)/python benchmarks/summary.py $$summary; rm -f $$summary
 
 # Mutation testing of the engineering modules (slow; not part of CI). Narrow it with
 #   make mutation MUTATION_ARGS="column material --limit 40"

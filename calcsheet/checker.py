@@ -130,6 +130,9 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
     return ANY
 
 
+_INFER: dict = {}  # (checker class, node class) -> its _infer_ method
+
+
 class Broken(Exception):
     """Raised inside inference when an operand is already known broken (stay quiet)."""
 
@@ -297,13 +300,15 @@ class Checker:
 
     # ------------------------------------------------------------ expressions
     def infer(self, node: N.Expr) -> T:
-        method = getattr(self, "_infer_" + type(node).__name__, None)
-        if method is None:
+        key = (type(self), type(node))
+        method = _INFER.get(key)
+        if method is None:  # the first node of its class: find its method up the MRO, once
             for cls in type(node).__mro__:
-                method = getattr(self, "_infer_" + cls.__name__, None)
+                method = getattr(type(self), "_infer_" + cls.__name__, None)
                 if method:
                     break
-        return method(node)
+            _INFER[key] = method
+        return method(self, node)
 
     def _quantity(self, t: T, node) -> T:
         if t.kind in ("q", "any"):

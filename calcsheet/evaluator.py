@@ -70,6 +70,9 @@ class Evaluator:
         self._constants = {name: c.quantity() for name, c in B.CONSTANTS.items()}
         self.host = PluginHost(self, self.plugins)
         self._branch_checker = None
+        # whether the environment can hold a sheet function: False lets a statement skip looking for calls
+        # of one; None (not known: an environment filled elsewhere) always looks
+        self.sheet_functions: bool | None = None
 
     @property
     def warnings(self) -> list[tuple[str, Any]]:
@@ -343,7 +346,7 @@ class Evaluator:
                 unit = value.units
             else:
                 unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
-        if unit is not None and isinstance(value, pint.Quantity) and value.units != unit:
+        if unit is not None and isinstance(value, pint.Quantity) and value._units != unit._units:
             value = value.to(unit)  # downstream substitutions read the value as shown
         step = Step(name=stmt.name, expr=stmt.expr, value=value, display_unit=unit,
                     used={k: (v, display.get(k) if k in display else self.policy.unit_for(v)
@@ -362,11 +365,10 @@ class Evaluator:
         self._finite(a, stmt.left.span, "the left side of the check")
         self._finite(b, stmt.right.span, "the right side of the check")
         am = float(a.magnitude)
-        bm = float(b.to(a.units).magnitude)
+        bm = float((b if b._units == a._units else b.to(a._units)).magnitude)  # one conversion, not three
         ok = B.COMPARISONS[stmt.op](am, bm)
         demand, capacity = (a, b) if stmt.op in ("<=", "<") else (b, a)
-        dm = float(demand.to(a.units).magnitude)
-        cm = float(capacity.to(a.units).magnitude)
+        dm, cm = (am, bm) if demand is a else (bm, am)  # both in a's unit
         if dm * cm < 0 or (dm < 0 and cm < 0):  # no utilisation exists: never OK
             raise _sign_error(stmt, demand, capacity)
         ratio = dm / cm if cm > 0 and dm >= 0 else None
@@ -378,13 +380,18 @@ class Evaluator:
         shown = unit_of(key, demand) if key != "value" else None
         shown = shown or self.policy.unit_for(demand)
         if shown is not None:
-            demand, capacity = demand.to(shown), capacity.to(shown)
+            demand, capacity = _to(demand, shown), _to(capacity, shown)
         return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
                            ok=ok, ratio=ratio, text="", used={k: (v, unit_of(k, v)) for k, v in used.items()},
                            description=stmt.description, span=stmt.span)
 
 
 _DISPATCH: dict = {}
+
+
+def _to(q: pint.Quantity, unit) -> pint.Quantity:
+    """``q.to(unit)``, skipping pint's conversion machinery when ``q`` is already in that unit."""
+    return q if q._units == getattr(unit, "_units", None) else q.to(unit)
 
 
 def _sign_error(stmt: N.Check, demand, capacity) -> CheckSignError:
@@ -414,7 +421,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
     ev.user_calls = 0  # the budget of sheet-function calls is per statement
     if isinstance(stmt, N.Check):
         check = ev.evaluate_check(stmt, env, unit_of)
-        if _calls_sheet_function(stmt.left, env) or _calls_sheet_function(stmt.right, env):
+        if _calls_sheet_function(stmt.left, env, ev) or _calls_sheet_function(stmt.right, env, ev):
             check.shown_left, check.shown_right = inline_calls(stmt.left, env), inline_calls(stmt.right, env)
         return check
     if isinstance(stmt, N.FunctionDef):
@@ -423,6 +430,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
                             span=stmt.span, params=tuple((p.name, p.unit_text) for p in stmt.params),
                             unit_text=stmt.unit_text, anchor="f-" + stmt.name)
         env[stmt.name] = SheetFunction(stmt)
+        ev.sheet_functions = True
         return step
     overrides = overrides or {}
     if stmt.name in overrides:
@@ -440,14 +448,16 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
         step = ev.evaluate_definition(stmt, env, display)
     step.is_input = stmt.name in inputs
     step.anchor = "v-" + stmt.name
-    if _calls_sheet_function(step.expr, env):
+    if _calls_sheet_function(step.expr, env, ev):
         step.shown_expr = inline_calls(step.expr, env)
     env[stmt.name] = step.value
     display[stmt.name] = step.display_unit
     return step
 
 
-def _calls_sheet_function(expr, env) -> bool:
+def _calls_sheet_function(expr, env, ev: "Evaluator | None" = None) -> bool:
+    if ev is not None and ev.sheet_functions is False:
+        return False  # the run has bound no sheet function (None: not known, so look)
     return expr is not None and any(isinstance(n, N.Call) and isinstance(env.get(n.func), SheetFunction)
                                     for n in N.walk(expr))
 

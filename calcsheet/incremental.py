@@ -177,18 +177,19 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     dirty: set[str] = set(roots)
     for name in roots:
         dirty.update(res.downstream(name))
-    order = list(res.statements)
-    dirty_order = sorted(dirty, key=order.index)
+    dirty_order = res.in_order(dirty)
 
     ev = Evaluator(prev.policy, plugins or _registry(), front_matter=prev.meta)
     env: dict[str, Any] = dict(prev.values)
     env.update({name: SheetFunction(fd) for name, fd in res.functions.items()})  # the sheet's own functions
+    ev.sheet_functions = bool(res.functions)
     display: dict[str, Any] = {n: s.display_unit for n, s in prev.steps.items()}
     new_steps: dict[str, Step] = {}
     new_checks: dict[str, CheckResult] = {}
     new_overrides = {k: v for k, v in prev.overrides.items() if k not in roots}
     warnings: list[Diagnostic] = []
-    inputs = frozenset(res.inputs)
+    inputs = res.input_set()
+    source_lines = source.split("\n")
 
     def unit_of(k, v):
         if k in display:
@@ -206,7 +207,7 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
                     raise _FullRun(f"{key} changed dimension")
                 new_steps[key] = record
             else:
-                record.text = _check_text(stmt, source.split("\n"))
+                record.text = _check_text(stmt, source_lines)
                 new_checks[key] = record
         except CalcError:
             raise _FullRun(f"{key} now raises an error") from None

@@ -237,7 +237,7 @@ def _fold_from_inputs(node, checker: "Checker"):
     they are few and short.)
     """
     res = checker.res
-    inputs = set(res.inputs) if res else set()
+    inputs = res.input_set() if res else frozenset()
     if any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
         return None
     return checker.consts.of(node)

@@ -58,14 +58,14 @@ def pdf_bytes(html: str) -> bytes:
     return rendered.write_pdf()
 
 
-def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None,
+def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None, *, html=None,
                   **doc_options) -> list[Path]:
     """Render every format first, then publish them together (``atomic.publish_package``): a reader sees
-    the whole old package or the whole new one; a failure anywhere leaves the old one byte-identical."""
+    the whole old package or the whole new one; a failure anywhere leaves the old one byte-identical.
+    ``html``: the page already rendered (the live preview renders it once per save)."""
     stem = stem or Path(result.path).stem or "sheet"
     rendered: dict[str, bytes] = {}
-    html = None
-    if "html" in formats or "pdf" in formats:
+    if html is None and ("html" in formats or "pdf" in formats):
         html = PackageDocument(result, **doc_options).html()
     if "html" in formats:
         rendered["html"] = html.encode("utf-8")

@@ -53,8 +53,28 @@ class Resolution:
                 if key not in seen:
                     seen.add(key)
                     stack.append(key)
-        order = list(self.statements)
-        return sorted(seen, key=order.index)
+        return self.in_order(seen)
+
+    def in_order(self, keys) -> list[str]:
+        """``keys`` in sheet order (one position lookup each: no ``list.index`` scans)."""
+        pos = self.positions()
+        return sorted(keys, key=pos.__getitem__)
+
+    def positions(self) -> dict[str, int]:
+        """Each statement key's place in the sheet, built once per set of statements."""
+        cached = self.__dict__.get("_positions")
+        if cached is None or cached[0] is not self.statements or cached[1] != len(self.statements):
+            cached = (self.statements, len(self.statements), {k: i for i, k in enumerate(self.statements)})
+            self.__dict__["_positions"] = cached
+        return cached[2]
+
+    def input_set(self) -> frozenset[str]:
+        """The inputs as a set, for membership tests (built once per length of ``inputs``)."""
+        cached = self.__dict__.get("_input_set")
+        if cached is None or cached[0] is not self.inputs or cached[1] != len(self.inputs):
+            cached = (self.inputs, len(self.inputs), frozenset(self.inputs))
+            self.__dict__["_input_set"] = cached
+        return cached[2]
 
 
 def _reads(expr: N.Expr) -> list[N.Name]:
@@ -104,8 +124,11 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                 errors.append(RedefinitionError(f"'{stmt.name}' is the name of a plugin", stmt.name_span,
                                                 hint="choose another name"))
         reads: list[str] = []
+        calls_plugin = False
         for expr in exprs:
             for node in N.walk(expr):
+                if isinstance(node, N.PluginCall):
+                    calls_plugin = True
                 if isinstance(node, N.Name) and node.id in params:
                     continue  # a parameter of the function being defined
                 err = _check_node(node, res, all_defs, plugins, key, all_functions)
@@ -128,7 +151,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         if isinstance(stmt, N.Definition):
             res.defined_at.setdefault(stmt.name, stmt.span.line)
             res.def_spans.setdefault(stmt.name, stmt.span)
-            if not reads and not any(isinstance(n, N.PluginCall) for n in N.walk(stmt.expr)):
+            if not reads and not calls_plugin:
                 res.inputs.append(stmt.name)
         if errors:
             res.broken.add(key)

@@ -35,6 +35,192 @@ def is_loopback(address: str) -> bool:
     return ip.is_loopback
 
 
+_PAGE_END = "\n</body></html>"
+
+
+def with_script(page: str, script: str) -> str:
+    """The package page with the preview's refresh script where ``PackageDocument`` puts its
+    ``watch_script``: the same page, byte for byte, as rendering it a second time with the script."""
+    page = str(page)  # plain text from here: the page and the script are both finished markup
+    if not page.endswith(_PAGE_END):
+        raise ValueError("not a package page")
+    return page[:-len(_PAGE_END)] + str(script) + _PAGE_END
+
+
+def _value_key(v):
+    """A hashable stand-in for a value a formula prints, or None when it cannot be vouched for."""
+    import pint
+
+    if isinstance(v, pint.Quantity):
+        m = v.magnitude
+        return ("q", repr(m), v._units) if isinstance(m, (int, float)) else None
+    if isinstance(v, (str, int, float)) or v is None:
+        return ("v", type(v).__name__, v)
+    return None
+
+
+def _names(*exprs) -> set[str]:
+    from . import nodes as N
+
+    out = set()
+    for e in exprs:
+        if e is not None:
+            out.update(n.id for n in N.walk(e) if isinstance(n, N.Name))
+    return out
+
+
+class PartsMemo:
+    """The formula parts of each step and check, remembered from one save to the next.
+
+    The math of a step is most of what a package page costs to render, and after an edit most steps print
+    exactly as before. A part is reused only when everything it prints from is equal: the record's formula,
+    values, units and substituted values, the literals the substitution shows for inputs, the links of the
+    names it shows, and the printer's settings. Records with a plugin's working, or with values other
+    than scalars and text, are always printed afresh. Only the parts used by the latest page are kept.
+    """
+
+    def __init__(self):
+        self.previous: dict = {}
+        self.current: dict = {}
+        self._names: dict = {}  # id(expr) -> (expr, the names it reads): kept with the expr, so ids stay true
+
+    def next_page(self) -> None:
+        self.previous, self.current = self.current, {}
+        if len(self._names) > 4 * len(self.previous) + 1000:
+            self._names = {}
+
+    def names(self, *exprs) -> set[str]:
+        out: set[str] = set()
+        for e in exprs:
+            if e is None:
+                continue
+            hit = self._names.get(id(e))
+            if hit is None or hit[0] is not e:
+                hit = self._names[id(e)] = (e, _names(e))
+            out |= hit[1]
+        return out
+
+    def get(self, key, make):
+        if key is None:
+            return make()
+        hit = self.current.get(key)
+        if hit is None:
+            hit = self.previous.get(key)
+            if hit is None:
+                hit = make()
+            self.current[key] = hit
+        return hit
+
+
+class _MemoPrinter:
+    """The HTML math printer of a preview page, asking the memo before printing a step's or check's parts."""
+
+    def __init__(self, printer, memo: PartsMemo):
+        self._printer = printer
+        self._memo = memo
+        self._settings = tuple(sorted(printer.settings.items()))
+
+    def __getattr__(self, name):
+        return getattr(self._printer, name)
+
+    def value(self, value, unit=None, sigfigs=None):
+        vk = _value_key(value)
+        key = None if vk is None else ("value", vk, unit, sigfigs, self._settings)
+        return self._memo.get(key, lambda: self._printer.value(value, unit, sigfigs))
+
+    def expr(self, node, values=None, link=None, **kw):
+        if values is None and link is None and not kw:  # a literal as written (the inputs list)
+            return self._memo.get(("expr", node, self._settings), lambda: self._printer.expr(node))
+        return self._printer.expr(node, values, link, **kw)
+
+    def _context(self, names, used, link, exact):
+        used_key = []
+        for k in sorted(used):
+            v, unit = used[k]
+            vk = _value_key(v)
+            if vk is None:
+                return None
+            used_key.append((k, vk, unit))
+        names = sorted(names.union(used))
+        return (self._settings, tuple(used_key),
+                None if link is None else tuple(link(n) for n in names),
+                None if exact is None else tuple((n, exact.get(n)) for n in names))
+
+    def step_key(self, step, link=None, exact=None):
+        """What a step's formula parts print from, or None when they cannot be vouched for."""
+        from .trace import FunctionStep
+
+        if type(step) is FunctionStep or step.working is not None:
+            return None
+        vk, ok = _value_key(step.value), _value_key(step.overridden)
+        if vk is None or ok is None:
+            return None
+        ctx = self._context(self._memo.names(step.expr, step.shown_expr), step.used, link, exact)
+        if ctx is None:
+            return None
+        return ("step", step.name, step.expr, step.shown_expr, vk, step.display_unit, ok, ctx)
+
+    def check_key(self, check, link=None, exact=None):
+        ctx = self._context(self._memo.names(check.left, check.right, check.shown_left, check.shown_right),
+                            check.used, link, exact)
+        if ctx is None:
+            return None
+        return ("check", check.op, check.left, check.right, check.shown_left, check.shown_right, ctx)
+
+    def step_parts(self, step, link=None, exact=None):
+        return self._memo.get(self.step_key(step, link, exact), lambda: self._printer.step_parts(step, link, exact))
+
+    def check_parts(self, check, link=None, exact=None):
+        return self._memo.get(self.check_key(check, link, exact),
+                              lambda: self._printer.check_parts(check, link, exact))
+
+
+def _document_class():
+    from .render.page import PackageDocument
+    from .trace import Step
+
+    class PreviewDocument(PackageDocument):
+        """The package document, reusing a step's or check's whole printed block when nothing it shows
+        changed (its parts, number, anchor, description, marks and verdict)."""
+
+        memo: PartsMemo
+
+        def _print_Step(self, step, inner: bool = False):
+            pk = None if inner or type(step) is not Step else self.printer.step_key(step, self.link, self.exact)
+            if pk is None:
+                return super()._print_Step(step, inner)
+            key = ("step-block", pk, step.number, step.anchor, step.is_input, step.description, step.note,
+                   step.name in self.changed)
+            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_Step(step, inner))
+
+        def _print_CheckResult(self, c, inner: bool = False):
+            ck = None if inner else self.printer.check_key(c, self.link, self.exact)
+            if ck is None:
+                return super()._print_CheckResult(c, inner)
+            key = ("check-block", ck, c.number, c.anchor, c.ok, c.ratio, c.description)
+            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_CheckResult(c, inner))
+
+    return PreviewDocument
+
+
+def preview_document(result, memo: PartsMemo | None = None, **options):
+    """The package document of ``result``; with ``memo``, unchanged steps reuse their printed formulas."""
+    from .render.page import PackageDocument
+
+    if memo is None:
+        return PackageDocument(result, **options)
+    global _PreviewDocument
+    if _PreviewDocument is None:
+        _PreviewDocument = _document_class()
+    doc = _PreviewDocument(result, **options)
+    doc.memo = memo
+    doc.printer = _MemoPrinter(doc.printer, memo)
+    return doc
+
+
+_PreviewDocument = None
+
+
 class Preview:
     """The state the server shows: the latest page and its version number."""
 
@@ -51,6 +237,7 @@ class Preview:
         self.last_status = ""
         self.lock = threading.Lock()
         self._seen = None
+        self.memo = PartsMemo()  # formula parts of the last page, reused for the steps an edit left alone
 
     def _signature(self):
         """Modification stamps of the sheet and of every file it included last time."""
@@ -78,7 +265,6 @@ class Preview:
         """Rebuild from the sheet on disk; returns a one-line status."""
         from .incremental import rebuild
         from .package import write_package
-        from .render.page import PackageDocument
 
         from . import reading
         from .errors import CalcError
@@ -98,11 +284,12 @@ class Preview:
             result = rebuild(previous, source, overrides=self.overrides).result
         version = self.version + 1
         if result.ok:
-            written = write_package(result, self.out_dir, ["html"], paper=self.paper)
+            self.memo.next_page()
+            page = preview_document(result, self.memo, paper=self.paper).html()  # rendered once per save
+            written = write_package(result, self.out_dir, ["html"], html=page)
             self.last_good = result
             self.last_good_path = written[0]
-            html = PackageDocument(result, paper=self.paper,
-                                   watch_script=refresh_script(version, self.nonce)).html()
+            html = with_script(page, refresh_script(version, self.nonce))
             n_ng = sum(1 for c in result.checks if not c.ok)
             status = f"built {written[0]} ({len(result.checks)} checks, {n_ng} NG)"
         else:

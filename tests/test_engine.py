@@ -284,3 +284,21 @@ def test_if_picks_the_branch_its_condition_selects(run):
 def test_if_errors(run, sheet, code, col):
     r = run(sheet)
     assert (r.errors[0].code, r.errors[0].span.line, r.errors[0].span.col) == (code, 2, col), r.format_diagnostics()
+
+
+def test_a_run_puts_the_garbage_collector_back_as_it_found_it():
+    import gc
+
+    from calcsheet import engine
+
+    before = gc.get_threshold()
+    inside = []
+    with engine.fewer_collections():
+        inside.append(gc.get_threshold())
+        with engine.fewer_collections():  # nested or concurrent runs: restored once, by the last
+            pass
+        inside.append(gc.get_threshold())
+    calcsheet_result = engine.run("x = 1 m\ncheck x <= 2 m\n")
+    assert calcsheet_result.ok
+    assert gc.get_threshold() == before and gc.isenabled()
+    assert inside[0][0] >= max(before[0], 1) and inside[0] == inside[1]

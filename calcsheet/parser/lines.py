@@ -48,6 +48,8 @@ def strip_trailing(line: str) -> tuple[str, str | None, str | None]:
 
 
 def bracket_delta(code: str) -> int:
+    if '"' not in code:  # no text in quotes: count the brackets directly
+        return code.count("(") + code.count("[") - code.count(")") - code.count("]")
     depth = 0
     in_str = False
     for ch in code:

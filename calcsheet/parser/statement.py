@@ -27,7 +27,8 @@ def parse_statement(text: str, line_offset: int = 0) -> N.Statement:
         raise TooComplexError(f"statement is longer than {MAX_STATEMENT_CHARS} characters",
                               Span(line_offset + 1, 1, line_offset + 1, 2))
     node = grammar.parse(text, line_offset)
-    if _depth(node) > MAX_DEPTH:
+    # every node of a nesting chain takes at least one character of its own, so a short text is shallow
+    if len(text) > MAX_DEPTH and _depth(node) > MAX_DEPTH:
         raise TooComplexError(f"expression is nested more than {MAX_DEPTH} levels deep", node.span,
                               hint="split it into named intermediate values")
     return node
