@@ -26,6 +26,7 @@ from dataclasses import dataclass
 from functools import lru_cache
 from typing import Callable, NamedTuple, Sequence
 
+import numpy as np
 import pint
 
 from . import nodes as N
@@ -39,6 +40,7 @@ from .errors import (
     DivisionByZeroError,
     NumericError,
     OffsetTemperatureError,
+    PluginArgumentError,
     TooComplexError,
     TypeMismatchError,
 )
@@ -188,6 +190,14 @@ def unit_arg(unit: pint.Unit) -> Arg:
 
 def _pow_impl(a, b, node: N.BinOp, p: float):
     if arg_of(a).dim == U.DIMENSIONLESS:
+        if is_list(a):  # elementwise, one numpy operation
+            base = a.m_as(_unit(""))
+            if not p.is_integer() and np.any(base < 0):
+                raise NumericError("a negative number to a fractional power is not real", node.span)
+            if p < 0 and np.any(base == 0):
+                raise DivisionByZeroError("zero to a negative power", node.span)
+            with np.errstate(over="ignore"):
+                return _q(base**p)
         base = float(a.m_as(_unit("")))
         if base < 0 and not p.is_integer():
             raise NumericError("a negative number to a fractional power is not real", node.span)
@@ -197,15 +207,15 @@ def _pow_impl(a, b, node: N.BinOp, p: float):
             return _q(base**p)
         except OverflowError:
             raise NumericError("the power overflows", node.span) from None
-    if a.magnitude < 0 and not p.is_integer():
+    if np.any(a.magnitude < 0) and not p.is_integer():
         raise NumericError("a negative quantity to a fractional power is not real", node.span)
-    if a.magnitude == 0 and p < 0:
+    if np.any(a.magnitude == 0) and p < 0:
         raise DivisionByZeroError("zero to a negative power", node.span)
     return a**p
 
 
 def _div_impl(a, b, node: N.BinOp):
-    if b.magnitude == 0:
+    if np.any(b.magnitude == 0):
         raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
     return a / b
 
@@ -294,8 +304,11 @@ def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
     if node.op == "^":
         p = written_power(node.right) if arg_of(a).dim != U.DIMENSIONLESS else None
         rule_pow(arg_of(a), arg_of(b), node, p)
+        rule_scalar(is_list(b), node.right, "an exponent")
         return _pow_impl(a, b, node, float(b.m_as(_unit(""))))
     op.rule(node.op, arg_of(a), arg_of(b), node)
+    if is_list(a) and is_list(b):
+        rule_lengths([len(a.magnitude), len(b.magnitude)], [node.left, node.right], node)
     return op.impl(a, b, node)
 
 
@@ -330,6 +343,19 @@ def _rule_same(name):
                 f"{name}() of a temperature on the °C/°F scale and one that is not", arg.span,
                 hint="write every value on one scale: all in °C (or °F), or all in K")
         return _same_dims(name, args, nodes)
+    return rule
+
+
+def _rule_sum(args, nodes, node):
+    """sum(list): the elements' dimension (not °C/°F: a sum of temperatures on such a scale means nothing)."""
+    _no_offset("sum", args, nodes)
+    return args[0]
+
+
+def _rule_position(name):
+    """argmax, argmin, count: any list in, a plain number (a position, a count) out."""
+    def rule(args, nodes, node):
+        return NUMBER
     return rule
 
 
@@ -418,8 +444,15 @@ def rule_if(x, y, node: N.Call):
 # ---- implementations (arguments already passed their rule)
 
 
-def _plain(x) -> float:
-    return float(x.m_as(_unit("")))
+def _plain(x):
+    """A plain number's value: a float, or an array of them for a list (the caller keeps it elementwise)."""
+    m = x.m_as(_unit(""))
+    return m if isinstance(m, np.ndarray) else float(m)
+
+
+def _vec(scalar, array):
+    """One function on a float (math: exact errors), or on an array (numpy: one vectorised call)."""
+    return lambda v: array(v) if isinstance(v, np.ndarray) else scalar(v)
 
 
 @lru_cache(maxsize=None)
@@ -434,45 +467,82 @@ def _q(value: float, unit: str = ""):
 
 def _impl_sqrt(args, node):
     x = args[0]
-    if x.magnitude < 0:
+    if np.any(x.magnitude < 0):
         raise NumericError("square root of a negative value", node.args[0].span)
     return x**0.5
 
 
-def _impl_minmax(pick):
+def _impl_minmax(pick, reduce, pairwise):
+    """min/max: of one list, its least/greatest element; of several values, the least/greatest (element by
+    element where some are lists)."""
     def impl(args, node):
         x = args[0]
+        if len(args) == 1:
+            return _Q(reduce(x.magnitude), x.units) if is_list(x) else x
+        if any(is_list(a) for a in args):
+            mags = [a.to(x.units).magnitude for a in args]
+            rule_lengths([len(m) if isinstance(m, np.ndarray) else None for m in mags], node.args, node)
+            return _Q(pairwise.reduce(np.broadcast_arrays(*mags)), x.units)
         return pick(args, key=lambda q: q.to(x.units).magnitude)
     return impl
 
 
+def _impl_sum(args, node):
+    x = args[0]
+    return _Q(float(np.sum(x.magnitude)), x.units) if is_list(x) else x
+
+
+def _impl_argpick(f):
+    def impl(args, node):  # the element's position counts from 1, as the package numbers them
+        x = args[0]
+        return _q(float(f(x.magnitude)) + 1.0 if is_list(x) else 1.0)
+    return impl
+
+
+def _impl_count(args, node):
+    x = args[0]
+    return _q(float(len(x.magnitude)) if is_list(x) else 1.0)
+
+
+def _Q(magnitude, unit):
+    """A quantity in ``unit`` (also a °C/°F unit, which multiplication would refuse)."""
+    return U.registry().Quantity(magnitude, unit)
+
+
 def _impl_trig(f):
     def impl(args, node):
-        return _q(f(args[0].m_as(_unit("radian"))))
+        m = args[0].m_as(_unit("radian"))
+        return _q(f(m) if isinstance(m, np.ndarray) else float(f(m)))
     return impl
 
 
 def _impl_inverse_trig(name, f):
     def impl(args, node):
         v = _plain(args[0])
-        if name != "atan" and not -1 <= v <= 1:
-            raise NumericError(f"{name}() of {v:g} is outside -1…1", node.args[0].span)
-        return _q(math.degrees(f(v)), "degree")
+        if name != "atan" and np.any(np.abs(v) > 1):
+            bad = float(v[np.argmax(np.abs(v))]) if isinstance(v, np.ndarray) else v
+            raise NumericError(f"{name}() of {bad:g} is outside -1…1", node.args[0].span)
+        return _q(np.degrees(f(v)) if isinstance(v, np.ndarray) else math.degrees(f(v)), "degree")
     return impl
 
 
 def _impl_atan2(args, node):
     y, x = args
-    return _q(math.degrees(math.atan2(y.magnitude, x.to(y.units).magnitude)), "degree")
+    ym, xm = y.magnitude, x.to(y.units).magnitude
+    if isinstance(ym, np.ndarray) or isinstance(xm, np.ndarray):
+        rule_lengths([len(m) if isinstance(m, np.ndarray) else None for m in (ym, xm)], node.args, node)
+        return _q(np.degrees(np.arctan2(ym, xm)), "degree")
+    return _q(math.degrees(math.atan2(ym, xm)), "degree")
 
 
 def _impl_transcendental(name, f):
     def impl(args, node):
         v = _plain(args[0])
-        if name != "exp" and v <= 0:
+        if name != "exp" and np.any(v <= 0):
             raise NumericError(f"{name}() of a value that is not positive", node.args[0].span)
         try:
-            return _q(f(v))
+            with np.errstate(over="ignore"):  # an overflow is infinite, refused by the finiteness rule
+                return _q(f(v))
         except OverflowError:
             raise NumericError(f"{name}() overflows", node.span) from None
     return impl
@@ -480,7 +550,8 @@ def _impl_transcendental(name, f):
 
 def _impl_round(f):
     def impl(args, node):
-        return _q(float(f(_plain(args[0]))))
+        v = _plain(args[0])
+        return _q(f(v) if isinstance(v, np.ndarray) else float(f(v)))
     return impl
 
 
@@ -501,6 +572,7 @@ class Function:
     doc: str
     print_form: str = "call"
     lazy: bool = False
+    shape: str = "elementwise"  # of lists: 'elementwise', 'reduce' (a list in, one value out), 'min-max'
 
     def arity_text(self) -> str:
         if self.min_args == self.max_args:
@@ -518,20 +590,32 @@ def _fn(name, n, rule, impl, doc, **kw):
 FUNCTIONS: dict[str, Function] = {f.name: f for f in [
     _fn("sqrt", 1, _rule_sqrt, _impl_sqrt, "square root; the dimension's exponents halve", print_form="sqrt"),
     _fn("abs", 1, _rule_same("abs"), lambda args, node: abs(args[0]), "magnitude", print_form="abs"),
-    _fn("min", (1, None), _rule_same("min"), _impl_minmax(min), "least of values of one dimension"),
-    _fn("max", (1, None), _rule_same("max"), _impl_minmax(max), "greatest of values of one dimension"),
-    _fn("sin", 1, _rule_trig("sin"), _impl_trig(math.sin), "sine of an angle"),
-    _fn("cos", 1, _rule_trig("cos"), _impl_trig(math.cos), "cosine of an angle"),
-    _fn("tan", 1, _rule_trig("tan"), _impl_trig(math.tan), "tangent of an angle"),
-    _fn("asin", 1, _rule_inverse_trig("asin"), _impl_inverse_trig("asin", math.asin), "angle of a sine"),
-    _fn("acos", 1, _rule_inverse_trig("acos"), _impl_inverse_trig("acos", math.acos), "angle of a cosine"),
-    _fn("atan", 1, _rule_inverse_trig("atan"), _impl_inverse_trig("atan", math.atan), "angle of a tangent"),
+    _fn("min", (1, None), _rule_same("min"), _impl_minmax(min, np.min, np.minimum),
+        "least of values of one dimension; of one list, its least element", shape="min-max"),
+    _fn("max", (1, None), _rule_same("max"), _impl_minmax(max, np.max, np.maximum),
+        "greatest of values of one dimension; of one list, its greatest element", shape="min-max"),
+    _fn("sum", 1, _rule_sum, _impl_sum, "sum of the elements of a list", shape="reduce"),
+    _fn("argmax", 1, _rule_position("argmax"), _impl_argpick(np.argmax),
+        "position (from 1) of a list's greatest element", shape="reduce"),
+    _fn("argmin", 1, _rule_position("argmin"), _impl_argpick(np.argmin),
+        "position (from 1) of a list's least element", shape="reduce"),
+    _fn("count", 1, _rule_position("count"), _impl_count, "number of elements of a list", shape="reduce"),
+    _fn("sin", 1, _rule_trig("sin"), _impl_trig(_vec(math.sin, np.sin)), "sine of an angle"),
+    _fn("cos", 1, _rule_trig("cos"), _impl_trig(_vec(math.cos, np.cos)), "cosine of an angle"),
+    _fn("tan", 1, _rule_trig("tan"), _impl_trig(_vec(math.tan, np.tan)), "tangent of an angle"),
+    _fn("asin", 1, _rule_inverse_trig("asin"), _impl_inverse_trig("asin", _vec(math.asin, np.arcsin)),
+        "angle of a sine"),
+    _fn("acos", 1, _rule_inverse_trig("acos"), _impl_inverse_trig("acos", _vec(math.acos, np.arccos)),
+        "angle of a cosine"),
+    _fn("atan", 1, _rule_inverse_trig("atan"), _impl_inverse_trig("atan", _vec(math.atan, np.arctan)),
+        "angle of a tangent"),
     _fn("atan2", 2, _rule_atan2, _impl_atan2, "angle of the point (x, y): atan2(y, x)"),
-    _fn("exp", 1, _rule_plain("exp"), _impl_transcendental("exp", math.exp), "e to a plain number"),
-    _fn("ln", 1, _rule_plain("ln"), _impl_transcendental("ln", math.log), "natural logarithm"),
-    _fn("log10", 1, _rule_plain("log10"), _impl_transcendental("log10", math.log10), "common logarithm"),
-    _fn("ceil", 1, _rule_plain("ceil"), _impl_round(math.ceil), "round a plain number up"),
-    _fn("floor", 1, _rule_plain("floor"), _impl_round(math.floor), "round a plain number down"),
+    _fn("exp", 1, _rule_plain("exp"), _impl_transcendental("exp", _vec(math.exp, np.exp)), "e to a plain number"),
+    _fn("ln", 1, _rule_plain("ln"), _impl_transcendental("ln", _vec(math.log, np.log)), "natural logarithm"),
+    _fn("log10", 1, _rule_plain("log10"), _impl_transcendental("log10", _vec(math.log10, np.log10)),
+        "common logarithm"),
+    _fn("ceil", 1, _rule_plain("ceil"), _impl_round(_vec(math.ceil, np.ceil)), "round a plain number up"),
+    _fn("floor", 1, _rule_plain("floor"), _impl_round(_vec(math.floor, np.floor)), "round a plain number down"),
     _fn("if", 3, None, None, "if(a <= b, value, otherwise): one of two values of one dimension",
         print_form="cases", lazy=True),
 ]}
@@ -659,3 +743,93 @@ def at_call(exc: CalcError, fd: N.FunctionDef, node: N.Call) -> CalcError:
     exc.args = (exc.message,)
     exc.span = node.span
     return exc
+
+
+# ------------------------------------------------------------ lists
+# ``L = [3.6 m, 4.2 m, 4.8 m]`` is one quantity over a numpy array: every operator and elementwise built-in
+# computes on the whole array at once. What a list may be is decided here, for both walkers: the checker
+# knows whether an operand is a list (its type's ``many``), the evaluator sees it (``is_list``).
+
+MAX_LIST_ITEMS = 1_000_000
+
+
+def is_list(q) -> bool:
+    """A quantity holding a list (an array of magnitudes)."""
+    return isinstance(getattr(q, "_magnitude", None), np.ndarray)
+
+
+def rule_scalar(many: bool, node: N.Expr, what: str) -> None:
+    """Where one value belongs (an exponent, a condition, a lookup key, a plugin's quantity), not a list."""
+    if many:
+        raise TypeMismatchError(f"{what} must be one value, not a list", node.span,
+                                hint=f"pick one element first: max({operand(node, 'the list')}), "
+                                     f"min(…) or sum(…)")
+
+
+def rule_lengths(lengths: Sequence[int | None], nodes: Sequence[N.Expr], node: N.Expr) -> None:
+    """Lists combined element by element have one length (a single value goes with every element)."""
+    known = [(n, x) for n, x in zip(lengths, nodes) if n is not None]
+    for n, x in known[1:]:
+        if n != known[0][0]:
+            raise TypeMismatchError(f"lists of different lengths: {known[0][0]} and {n} elements", node.span,
+                                    hint=f"{operand(known[0][1], 'the first')} has {known[0][0]}, "
+                                         f"{operand(x, 'the other')} has {n}; element-by-element arithmetic "
+                                         "pairs the elements in order")
+
+
+def shape_of_call(fn: Function, many: Sequence[bool]) -> bool:
+    """Whether a built-in's result is a list, from whether its arguments are."""
+    if fn.shape == "reduce" or (fn.shape == "min-max" and len(many) == 1):
+        return False
+    return any(many)
+
+
+def rule_list_items(args: Sequence[Arg | None], many: Sequence[bool], node: N.ListExpr) -> Arg | None:
+    """``[a, b, c]``: single values (no list inside a list) of the first element's dimension, all on a °C/°F
+    scale or none. The list takes the first element's dimension (and unit)."""
+    for m, item in zip(many, node.items):
+        rule_scalar(m, item, "an element of a list")
+    if len(node.items) > MAX_LIST_ITEMS:
+        raise TooComplexError(f"a list of more than {MAX_LIST_ITEMS:,} elements", node.span)
+    first = next(((i, a) for i, a in enumerate(args) if a is not None), None)
+    if first is None:
+        return None
+    k, x = first
+    for i, (a, item) in enumerate(zip(args, node.items)):
+        if a is None or i == k:
+            continue
+        if a.dim != x.dim:
+            exc = DimensionError(
+                f"element {i + 1} of the list is {_d(a)}, but element {k + 1} is {_d(x)}", item.span,
+                hint=f"{operand(item, 'this element')} is {_d(a)}; every element of a list has one dimension "
+                     "(units may differ: they are converted to the first element's)")
+            specialise(exc, x.dim, a.dim, operand(item, "this element"))
+            raise exc
+        if a.offset != x.offset:
+            raise OffsetTemperatureError(
+                f"element {i + 1} of the list is {'' if a.offset else 'not '}a temperature on the °C/°F scale, "
+                f"element {k + 1} is {'' if x.offset else 'not'}".rstrip(), item.span,
+                hint="write every element on one scale: all in °C (or °F), or all in K")
+    return x
+
+
+def make_list(values: Sequence[pint.Quantity], node: N.ListExpr) -> pint.Quantity:
+    """The rule, then one quantity over an array, in the first element's unit."""
+    rule_list_items([arg_of(v) for v in values], [is_list(v) for v in values], node)
+    unit = values[0].units
+    mags = np.fromiter((v.m_as(unit) if v.units != unit else v.magnitude for v in values), float, len(values))
+    return _Q(mags, unit)
+
+
+def rule_if_shape(x_many: bool, y_many: bool, node: N.Call) -> None:
+    """Both outcomes of ``if`` are lists, or neither (the shape must not depend on the values)."""
+    if x_many != y_many:
+        raise TypeMismatchError("one value of if() is a list, the other is not", node.span,
+                                hint="give both outcomes as lists, or both as single values")
+
+
+def rule_plugin_scalar(where: str, many: bool, node: N.Expr) -> None:
+    """A plugin parameter takes a list only if the plugin declares one (``kind="list"``)."""
+    if many:
+        raise PluginArgumentError(f"{where} takes one value, not a list", node.span,
+                                  hint="call the plugin once per value, or pick one: max(…), min(…)")

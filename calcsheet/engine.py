@@ -269,6 +269,8 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
                 record.text = _check_text(stmt, lines)
                 result.checks.append(record)
             result.items.append(record)
+            if getattr(record, "table", None) is not None:  # a check over a list, a sheet's table: shown once
+                result.items.append(record.table)
         except CalcError as exc:
             res.broken.add(key)
             result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))

@@ -42,7 +42,7 @@ from .errors import (
 from .names import did_you_mean, dotted, strip_sign
 from .plugin import PluginRegistry, Record, default_registry
 from .plugin_host import PluginHost, kind_of, show
-from .trace import CheckResult, FunctionStep, Step
+from .trace import CheckResult, FunctionStep, SheetTable, Step
 
 
 @dataclasses.dataclass(frozen=True)
@@ -177,7 +177,12 @@ class Evaluator:
         return value
 
     def _eval_ListExpr(self, node, env, used):
-        return tuple(self.eval(i, env, used) for i in node.items)
+        values = tuple(self.eval(i, env, used) for i in node.items)
+        if values and all(isinstance(v, pint.Quantity) for v in values):  # a list of quantities: one array
+            for v, item in zip(values, node.items):
+                self._finite(v, item.span, "the element")
+            return B.make_list(values, node)
+        return values
 
     def _eval_TupleExpr(self, node, env, used):
         return tuple(self.eval(i, env, used) for i in node.items)
@@ -273,6 +278,8 @@ class Evaluator:
         a = self._need_quantity(self.eval(cond.left, env, used), cond.left.span)
         b = self._need_quantity(self.eval(cond.right, env, used), cond.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), cond, cond.left, cond.right, where="the condition")
+        B.rule_scalar(B.is_list(a), cond.left, "a side of the condition of if()")
+        B.rule_scalar(B.is_list(b), cond.right, "a side of the condition of if()")
         self._finite(a, cond.left.span, "the left side of the condition")
         self._finite(b, cond.right.span, "the right side of the condition")
         am, bm = float(a.magnitude), float(b.to(a.units).magnitude)
@@ -284,17 +291,20 @@ class Evaluator:
                     used.setdefault(n.id, env[n.id])
         # the branch not taken is not evaluated (it may well be the one that cannot be: sqrt of a negative),
         # but its dimension must still be the taken one's: the checker's inference gives it from the values
-        taken, other = _word(value), self._static_word(skipped, env)
+        other_type = self._static_type(skipped, env)
+        taken, other = _word(value), other_type.word()
         B.rule_if(taken, other, node) if chosen is then else B.rule_if(other, taken, node)
+        if other is not None:
+            B.rule_if_shape(B.is_list(value), other_type.many, node)
         return value
 
-    def _static_word(self, node: N.Expr, env: dict):
+    def _static_type(self, node: N.Expr, env: dict):
         from .checker import Checker, ValueTypes
 
         if self._branch_checker is None:
             self._branch_checker = Checker(self.plugins)
         self._branch_checker.types = ValueTypes(env, self.plugins)
-        return self._branch_checker.infer(node).word()
+        return self._branch_checker.infer(node)
 
     def _eval_Compare(self, node, env, used):
         raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span)
@@ -310,8 +320,18 @@ class Evaluator:
         for kw in node.kwargs:
             if kw.name in given:
                 raise PluginArgumentError(f"'{kw.name}' is given twice", kw.span)
-            given[kw.name] = self.eval(kw.value, env, used)
+            given[kw.name] = self._plugin_value(pf, kw, self.eval(kw.value, env, used))
         return self.host.call(pf, node, given, spans)
+
+    @staticmethod
+    def _plugin_value(pf, kw: N.Keyword, value):
+        """A list of quantities goes to a plugin only where it declares a list (as a tuple of single values)."""
+        if not B.is_list(value):
+            return value
+        p = pf.param(kw.name)
+        if p is None or p.kind_ not in ("quantity", "number"):
+            return tuple(value[i] for i in range(len(value.magnitude)))
+        B.rule_plugin_scalar(f"{pf.qualname}: '{p.name}'", True, kw.value)
 
     # ---------------------------------------------------------------- statements
     def evaluate_definition(self, stmt: N.Definition, env: dict, display: dict) -> Step:
@@ -355,6 +375,8 @@ class Evaluator:
         a = self._need_quantity(self.eval(stmt.left, env, used), stmt.left.span)
         b = self._need_quantity(self.eval(stmt.right, env, used), stmt.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), stmt, stmt.left, stmt.right)
+        if B.is_list(a) or B.is_list(b):
+            return self._evaluate_list_check(stmt, a, b, used, unit_of)
         # a check is judged only between finite sides, with a finite ratio when one is formed
         self._finite(a, stmt.left.span, "the left side of the check")
         self._finite(b, stmt.right.span, "the right side of the check")
@@ -380,15 +402,70 @@ class Evaluator:
                            ok=ok, ratio=ratio, text="", used={k: (v, unit_of(k, v)) for k, v in used.items()},
                            description=stmt.description, span=stmt.span)
 
+    def _evaluate_list_check(self, stmt: N.Check, a, b, used: dict, unit_of) -> CheckResult:
+        """A check over a list passes only if every element passes; the element with the greatest
+        utilisation governs (an element that fails governs before any that passes). The check's demand,
+        capacity and substitution are the governing element's; ``table`` lists every element."""
+        import numpy as np
+
+        self._finite(a, stmt.left.span, "the left side of the check")
+        self._finite(b, stmt.right.span, "the right side of the check")
+        am = np.atleast_1d(np.asarray(a.magnitude, float))
+        bm = np.atleast_1d(np.asarray(b.to(a.units).magnitude, float))
+        B.rule_lengths([len(am) if B.is_list(a) else None, len(bm) if B.is_list(b) else None],
+                       [stmt.left, stmt.right], stmt)
+        am, bm = np.broadcast_arrays(am, bm)
+        oks = np.asarray(B.COMPARISONS[stmt.op](am, bm), bool)
+        dm, cm = (am, bm) if stmt.op in ("<=", "<") else (bm, am)
+        bad = (dm * cm < 0) | ((dm < 0) & (cm < 0))
+        ratios = np.full(len(dm), np.nan)
+        formed = (cm > 0) & (dm >= 0)
+        ratios[formed] = dm[formed] / cm[formed]
+        if np.any(np.isinf(ratios)):
+            raise NumericError("the check's ratio (demand / capacity) overflows", stmt.span,
+                               hint="the capacity is vanishingly small next to the demand")
+        rank = np.where(np.isnan(ratios), -np.inf, ratios) + np.where(oks, 0.0, np.inf)
+        g = int(np.argmax(np.where(bad, np.inf, rank)))
+        demand_q, capacity_q = (a, b) if stmt.op in ("<=", "<") else (b, a)
+
+        def at(q, i):
+            return q[i] if B.is_list(q) else q
+
+        if bad[g]:
+            raise _sign_error(stmt, at(demand_q, g), at(capacity_q, g).to(at(demand_q, g).units),
+                              element=g + 1)
+        unit_of = unit_of or (lambda k, v: self.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
+        key = dotted(stmt.left if stmt.op in ("<=", "<") else stmt.right) or "value"
+        shown = (unit_of(key, demand_q) if key != "value" else None) or self.policy.unit_for(demand_q)
+        demand, capacity = at(demand_q, g), at(capacity_q, g)
+        if shown is not None:
+            demand, capacity = demand.to(shown), capacity.to(shown)
+        ratio = None if np.isnan(ratios[g]) else float(ratios[g])
+        # the substitution shows the governing element's values; the table shows them all
+        lists = {k: v for k, v in used.items() if B.is_list(v) and k != key}
+        used_g = {k: (at(v, g) if k in lists else v, unit_of(k, v)) for k, v in used.items()}
+        columns = ["element", *lists, "demand", "capacity", "ratio", "result"]
+        units = [None, *(unit_of(k, v) for k, v in lists.items()), shown, shown, None, None]
+        rows = []
+        for i in range(len(dm)):
+            rows.append([str(i + 1), *(v[i] for v in lists.values()),
+                         at(demand_q, i).to(shown) if shown is not None else at(demand_q, i),
+                         at(capacity_q, i).to(shown) if shown is not None else at(capacity_q, i),
+                         "–" if np.isnan(ratios[i]) else f"{ratios[i]:.2f}", "OK" if oks[i] else "NG"])
+        table = SheetTable(f"each element of the check (element {g + 1} governs)", columns, rows, units)
+        return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
+                           ok=bool(np.all(oks)), ratio=ratio, text="", used=used_g, description=stmt.description,
+                           span=stmt.span, governing=g + 1, table=table)
+
 
 _DISPATCH: dict = {}
 
 
-def _sign_error(stmt: N.Check, demand, capacity) -> CheckSignError:
+def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:
     side = stmt.left if stmt.op in ("<=", "<") else stmt.right
     name = dotted(side) or "the demand"
     return CheckSignError(
-        f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
+        ("" if element is None else f"element {element}: ") + f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
         "negative, so the check has no utilisation and cannot pass", stmt.span,
         hint=f"compare magnitudes with check abs({name}) {stmt.op} ..., or write a compression check "
              f"with the compressive value positive (check -{name} {stmt.op} ...)")
@@ -478,6 +555,8 @@ def inline_calls(expr: N.Expr, env) -> N.Expr:
 def literal_unit(expr: N.Expr):
     """An input written as a single literal keeps the unit it was written in."""
     expr = strip_sign(expr)
+    if isinstance(expr, N.ListExpr) and expr.items:  # a list of literals keeps its first element's unit
+        expr = strip_sign(expr.items[0])
     if isinstance(expr, N.Number) and expr.unit:
         return U.build_unit(expr.unit)
     return None

@@ -63,6 +63,8 @@ class CheckResult:
     anchor: str = ""
     shown_left: Any = None  # each side with the sheet's own functions written out (for the substitution)
     shown_right: Any = None
+    governing: int | None = None  # a check over a list: the position (from 1) of the element that governs
+    table: "SheetTable | None" = None  # a check over a list: every element, printed after the check
 
 
 @dataclass
@@ -75,6 +77,13 @@ class Table:
     units: list[Any] | None = None  # per-column display unit (pint Unit) or None
     footer: list[list[Any]] | None = None  # totals rows
     note: str | None = None
+
+
+@dataclass
+class SheetTable(Table):
+    """A table the sheet itself shows in full: one of its own tables, or every element of a check over a list."""
+
+    anchor: str = ""
 
 
 @dataclass

@@ -60,7 +60,7 @@ class MathPrinter(Printer):
             try:
                 mag = float(mag)
             except TypeError:
-                return self.m_text(f"array of {len(mag)} values")
+                return self.list_value(value, sigfigs)
             text, exp = split_number(mag, self.settings["sigfigs"])
             if sigfigs and sigfigs > self.settings["sigfigs"]:  # extra figures, but no trailing zeros
                 more = split_number(mag, sigfigs)
@@ -80,6 +80,16 @@ class MathPrinter(Printer):
         if isinstance(value, tuple):
             return self.m_list([self.value(v) for v in value])
         return self.m_text(str(value))
+
+    def list_value(self, value: pint.Quantity, sigfigs: int | None = None, most: int = 8):
+        """A list of quantities: '[3.60, 4.20, 4.80] m'; a long one shows its first and last elements."""
+        mags = [float(m) for m in value.magnitude]
+        digits = max(sigfigs or 0, self.settings["sigfigs"])
+        shown_mags = mags if len(mags) <= most else mags[:most - 2] + [None] + mags[-1:]
+        items = [self.m_text("…") if m is None else self.m_number(*split_number(m, digits)) for m in shown_mags]
+        unit_markup = self.m_unit(value.units) if not _is_dimensionless(value.units) else ""
+        out = self.m_quantity(self.m_list(items), unit_markup)
+        return out if len(mags) <= most else out + self.m_text(f" ({len(mags)} values)")
 
     # ------------------------------------------------------------ nodes
     def _wrap(self, child, ctx: int, strict: bool = False) -> str:
