@@ -442,8 +442,8 @@ class Evaluator:
             demand, capacity = demand.to(shown), capacity.to(shown)
         ratio = None if np.isnan(ratios[g]) else float(ratios[g])
         # the substitution shows the governing element's values; the table shows them all
+        used_g = {k: (at(v, g), unit_of(k, v)) for k, v in used.items()}
         lists = {k: v for k, v in used.items() if B.is_list(v) and k != key}
-        used_g = {k: (at(v, g) if k in lists else v, unit_of(k, v)) for k, v in used.items()}
         columns = ["element", *lists, "demand", "capacity", "ratio", "result"]
         units = [None, *(unit_of(k, v) for k, v in lists.items()), shown, shown, None, None]
         rows = []
@@ -455,7 +455,7 @@ class Evaluator:
         table = SheetTable(f"each element of the check (element {g + 1} governs)", columns, rows, units)
         return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
                            ok=bool(np.all(oks)), ratio=ratio, text="", used=used_g, description=stmt.description,
-                           span=stmt.span, governing=g + 1, table=table)
+                           span=stmt.span, governing=g + 1, after=[table])
 
 
 _DISPATCH: dict = {}

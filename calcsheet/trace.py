@@ -31,6 +31,7 @@ class Step:
     anchor: str = ""  # html id of the definition
     namespace: str = ""  # "" for the sheet, or the plugin call's anchor prefix
     shown_expr: Any = None  # the formula with the sheet's own functions written out (for the substitution)
+    after: list = field(default_factory=list)  # records printed right after this one (a table, a lookup's working)
 
 
 @dataclass
@@ -64,7 +65,7 @@ class CheckResult:
     shown_left: Any = None  # each side with the sheet's own functions written out (for the substitution)
     shown_right: Any = None
     governing: int | None = None  # a check over a list: the position (from 1) of the element that governs
-    table: "SheetTable | None" = None  # a check over a list: every element, printed after the check
+    after: list = field(default_factory=list)  # records printed right after it (a check over a list: every element)
 
 
 @dataclass

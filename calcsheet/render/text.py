@@ -87,10 +87,17 @@ class TextDocument(DocumentPrinter):
         line = indent + self.step(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
         if item.working is not None:
             line += "\n" + self.items(item.working.items, indent=indent + "    ")
-        return line
+        return line + self._after(item, indent)
+
+    def _after(self, item, indent=""):
+        """The records a step or check carries to be printed right after it (tables, a lookup's working)."""
+        if not getattr(item, "after", None):
+            return ""
+        return "\n" + self.items(item.after, indent=indent + "    ")
 
     def _print_CheckResult(self, item: CheckResult, indent=""):
-        return indent + self.check(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
+        return (indent + self.check(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
+                + self._after(item, indent))
 
     def _print_Table(self, item: Table, indent=""):
         return indent + f"[table: {item.title}, {len(item.rows)} rows]"
