@@ -40,9 +40,11 @@ from .errors import (
     DivisionByZeroError,
     NumericError,
     OffsetTemperatureError,
+    OutOfRangeError,
     PluginArgumentError,
     TooComplexError,
     TypeMismatchError,
+    UnknownFieldError,
 )
 from .names import operand
 from .slips import specialise
@@ -833,3 +835,191 @@ def rule_plugin_scalar(where: str, many: bool, node: N.Expr) -> None:
     if many:
         raise PluginArgumentError(f"{where} takes one value, not a list", node.span,
                                   hint="call the plugin once per value, or pick one: max(…), min(…)")
+
+
+# ------------------------------------------------------------ tables and lookup
+# A sheet's table (``nodes.TableDef``) becomes a ``TableInfo`` (its columns' dimensions: what the checker
+# needs) and, evaluated, a ``TableValue`` (the numbers). ``tab.k`` reads a column as a list; ``lookup``
+# interpolates linearly between the two rows that bracket the key (two-way: between four values), and
+# refuses a key outside the table unless ``clamp`` is written. Both walkers apply ``rule_lookup``.
+
+
+@dataclass(frozen=True)
+class TableInfo:
+    """A table's shape: the key names and every column's ``Arg`` (two-way: the values' ``Arg``)."""
+
+    name: str
+    columns: tuple[tuple[str, Arg], ...]  # one-way: every column, the key first; two-way: row key, column key
+    two_way: bool
+    value: Arg | None = None  # two-way: what the table holds
+
+    @property
+    def keys(self) -> tuple[str, ...]:
+        return tuple(c for c, _ in self.columns[:2 if self.two_way else 1])
+
+    def column(self, name: str) -> Arg | None:
+        return dict(self.columns).get(name)
+
+
+def _table_units(td: N.TableDef) -> list[pint.Unit]:
+    """Each column's unit (two-way: row key, column key, values), located at its cell if it is unknown."""
+    texts = list(td.units)
+    spans = list(td.cell_spans[1]) if len(td.cell_spans) > 1 else [td.span] * len(texts)
+    if td.two_way:
+        texts = [t.strip() for t in texts[0].split("\\")] + [texts[1]]
+        spans = [spans[0], spans[0], spans[1]]
+    out = []
+    for text, sp in zip(texts, spans):
+        try:
+            factors = U.parse_unit_text(text, sp)
+            out.append(U.build_unit(factors) if factors else _unit(""))
+        except CalcError as exc:
+            raise exc.with_span(sp)
+    return out
+
+
+def table_info(td: N.TableDef) -> TableInfo:
+    units = _table_units(td)
+    if td.two_way:
+        keys = [k.strip() for k in td.header[0].split("\\")]
+        return TableInfo(td.name, ((keys[0], _arg_of_unit(units[0])), (keys[1], _arg_of_unit(units[1]))), True,
+                         _arg_of_unit(units[2]))
+    return TableInfo(td.name, tuple((c, _arg_of_unit(u)) for c, u in zip(td.header, units)), False)
+
+
+@dataclass(frozen=True, eq=False)
+class TableValue:
+    """An evaluated table: its shape, each column's unit, and its numbers (rows × columns; two-way: the
+    grid, with the row keys and the column keys apart)."""
+
+    info: TableInfo
+    units: tuple
+    data: np.ndarray
+    col_keys: np.ndarray | None = None
+    node: N.TableDef | None = None
+
+    def column(self, name: str) -> pint.Quantity:
+        if self.info.two_way:
+            k = self.info.keys.index(name)
+            mags = self.data[:, 0] if k == 0 else self.col_keys
+            return _Q(np.array(mags, float), self.units[k])
+        k = [c for c, _ in self.info.columns].index(name)
+        return _Q(np.array(self.data[:, k], float), self.units[k])
+
+    @property
+    def n_rows(self) -> int:
+        return len(self.data)
+
+    def __eq__(self, other):
+        return (isinstance(other, TableValue) and self.info == other.info and self.units == other.units
+                and np.array_equal(self.data, other.data))
+
+    __hash__ = None
+
+    def __str__(self):
+        return f"table of {self.n_rows} rows"
+
+
+def make_table(td: N.TableDef) -> TableValue:
+    info = table_info(td)
+    units = tuple(_table_units(td))
+    data = np.array(td.values, float)
+    col_keys = np.array([float(h) for h in td.header[1:]]) if td.two_way else None
+    return TableValue(info, units, data, col_keys, td)
+
+
+def check_lookup_shape(node: N.Call) -> tuple[N.Expr, str | None, bool]:
+    """``lookup(tab.k, key=value, …[, clamp])``: (the table's name node, the column or None, clamp)."""
+    args = list(node.args)
+    clamp = False
+    if len(args) == 2 and isinstance(args[1], N.Flag):
+        clamp = True
+        args = args[:1]
+    for a in args[1:]:
+        raise TypeMismatchError("lookup() takes the column, the keys by name, and optionally clamp", a.span,
+                                hint="write lookup(tab.k, h=120 mm) or lookup(tab.k, h=120 mm, clamp)")
+    if not args:
+        raise ArityError("lookup() needs a table's column: lookup(tab.k, h=120 mm)", node.span)
+    first = args[0]
+    if isinstance(first, N.FieldAccess) and isinstance(first.obj, N.Name):
+        table, column = first.obj, first.field_name
+    elif isinstance(first, N.Name):
+        table, column = first, None
+    else:
+        raise TypeMismatchError("lookup() reads a table of the sheet: lookup(tab.k, h=…), or lookup(tab, h=…, b=…) "
+                                "for a two-way table", first.span)
+    seen = set()
+    for kw in node.kwargs:
+        if kw.name in seen:
+            raise TypeMismatchError(f"'{kw.name}' is given twice", kw.span)
+        seen.add(kw.name)
+    return table, column, clamp
+
+
+def rule_lookup(info: TableInfo | None, column: str | None, first: N.Expr,
+                keys: Sequence[tuple[N.Keyword, Arg | None, bool]], node: N.Call) -> Arg | None:
+    """The keys named as the table names them, each of its key's dimension and a single value; the result
+    has the read column's dimension (two-way: the table's values')."""
+    if info is None:
+        return None
+    if info.two_way and column is not None:
+        raise TypeMismatchError(f"{info.name} is a two-way table: look it up whole, "
+                                f"lookup({info.name}, {info.keys[0]}=…, {info.keys[1]}=…)", first.span)
+    if not info.two_way:
+        if column is None:
+            names = [c for c, _ in info.columns[1:]]
+            raise TypeMismatchError(f"name the column of {info.name} to read: lookup({info.name}.{names[0]}, "
+                                    f"{info.keys[0]}=…)", first.span)
+        if info.column(column) is None:
+            names = [c for c, _ in info.columns]
+            raise UnknownFieldError(f"table {info.name} has no column '{column}'", first.span,
+                                    hint="columns: " + ", ".join(names))
+        if column == info.keys[0]:
+            raise TypeMismatchError(f"'{column}' is the key of table {info.name}; read another column", first.span)
+    given = {kw.name for kw, _, _ in keys}
+    for kw, a, many in keys:
+        want = info.column(kw.name) if kw.name in info.keys else None
+        if want is None:
+            raise TypeMismatchError(f"table {info.name} is looked up by {' and '.join(info.keys)}, not '{kw.name}'",
+                                    kw.span)
+        rule_scalar(many, kw.value, f"the key {kw.name} of a lookup")
+        if a is not None and a.dim != want.dim:
+            raise DimensionError(f"the key {kw.name} of table {info.name} is {_d(want)}, but the value given is "
+                                 f"{_d(a)}", kw.value.span, hint=f"{operand(kw.value)} is {_d(a)}")
+    missing = [k for k in info.keys if k not in given]
+    if missing:
+        raise ArityError(f"lookup in {info.name} needs {', '.join(k + '=…' for k in missing)}", node.span)
+    return info.value if info.two_way else info.column(column)
+
+
+class Bracket(NamedTuple):
+    """Where a key falls in a table: between rows ``i`` and ``i + 1``, at fraction ``t``; ``clamped`` if it
+    was outside and the end value is taken."""
+
+    i: int
+    t: float
+    clamped: bool
+
+
+def bracket(xs: np.ndarray, x: float, clamp: bool, key: str, info: TableInfo, shown, node: N.Expr) -> Bracket:
+    """The two rows around ``x`` (never extrapolating: outside the keys, an error unless ``clamp``)."""
+    lo, hi = float(xs[0]), float(xs[-1])
+    if not lo <= x <= hi:
+        if not clamp:
+            raise OutOfRangeError(
+                f"{key} = {shown(x)} is outside table {info.name}, which runs from {shown(lo)} to {shown(hi)}",
+                node.span, hint="a table is never extrapolated: extend it, or write clamp to take the end value "
+                                f"(lookup(…, {key}=…, clamp))")
+        return Bracket(0, 0.0, True) if x < lo else Bracket(len(xs) - 2, 1.0, True)
+    i = min(int(np.searchsorted(xs, x, side="right")) - 1, len(xs) - 2)
+    return Bracket(i, (x - float(xs[i])) / (float(xs[i + 1]) - float(xs[i])), False)
+
+
+def interpolate(y1: float, y2: float, t: float) -> float:
+    """y₁ + (y₂ − y₁)·t: the formula the package prints, with t = (x − x₁)/(x₂ − x₁)."""
+    return y1 + (y2 - y1) * t
+
+
+FUNCTIONS["lookup"] = Function(
+    "lookup", 1, 2, None, None, "lookup(tab.k, h=value[, clamp]): the column k at h, interpolated linearly between "
+    "the two rows around it; lookup(tab, h=…, b=…) in a two-way table", lazy=True)

@@ -131,6 +131,8 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
         return T("record", record=pf, record_type=value.type)
     if isinstance(value, tuple):
         return T("list", item=type_of_value(value[0], plugins) if value else ANY)
+    if isinstance(value, B.TableValue):
+        return T("table", table=value.info)
     return ANY
 
 
@@ -159,6 +161,9 @@ class Checker:
         for stmt in sheet.body:
             if isinstance(stmt, N.FunctionDef):
                 diags.extend(self._function_statement(stmt, res))
+                continue
+            if isinstance(stmt, N.TableDef):
+                diags.extend(self._table_statement(stmt, res))
                 continue
             if isinstance(stmt, N.Definition):
                 key = stmt.name
@@ -235,6 +240,36 @@ class Checker:
             return [self._with_shadow_note(exc).diagnostic(self.path)]
         self.functions[stmt.name] = stmt
         return list(self._pending)
+
+    def _table_statement(self, stmt: N.TableDef, res: Resolution) -> list[Diagnostic]:
+        """A table: its units row read (an unknown unit is an error at its cell)."""
+        if stmt.name in res.broken:
+            self.types.setdefault(stmt.name, ANY)
+            return []
+        try:
+            self.types[stmt.name] = T("table", table=B.table_info(stmt))
+        except CalcError as exc:
+            res.broken.add(stmt.name)
+            self.types[stmt.name] = ANY
+            return [exc.diagnostic(self.path)]
+        return []
+
+    def _infer_lookup(self, node: N.Call) -> T:
+        """``lookup(tab.k, h=…[, clamp])``: the table's own rule (``builtins.rule_lookup``)."""
+        table, column, _ = B.check_lookup_shape(node)
+        t = self.infer(table)
+        if t.kind != "table":
+            raise TypeMismatchError(f"lookup() reads a table of the sheet; {_operand(table)} is a {t.describe()}",
+                                    table.span)
+        keys = []
+        for kw in node.kwargs:
+            kt = self._quantity(self.infer(kw.value), kw.value)
+            keys.append((kw, kt.arg, kt.many))
+        return T.of(B.rule_lookup(t.table, column, node.args[0], keys, node))
+
+    def _infer_Flag(self, node: N.Flag) -> T:
+        raise TypeMismatchError(f"'{node.name}' stands alone only at the end of a lookup: lookup(tab.k, h=…, "
+                                f"{node.name})", node.span)
 
     def _infer_user_call(self, fd: N.FunctionDef, node: N.Call) -> T:
         """A call of a sheet function: each argument against its parameter, then the body with the
@@ -375,6 +410,14 @@ class Checker:
         obj = self.infer(node.obj)
         if obj.kind == "any":
             return ANY
+        if obj.kind == "table":  # a column of a table: a list
+            arg = obj.table.column(node.field_name)
+            if arg is None:
+                names = [c for c, _ in obj.table.columns]
+                raise UnknownFieldError(f"table {obj.table.name} has no column '{node.field_name}'",
+                                        node.field_span or node.span,
+                                        hint=did_you_mean(node.field_name, names) or "columns: " + ", ".join(names))
+            return T.of(arg, many=True)
         if obj.kind != "record":
             raise TypeMismatchError(f"a {obj.describe()} has no fields", node.obj.span)
         if obj.record is None:
@@ -453,6 +496,8 @@ class Checker:
         if fn is None:  # reported by the resolver; here only for expressions checked on their own
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))
+        if fn.name == "lookup":
+            return self._infer_lookup(node)
         B.check_call_shape(fn, node)
         if fn.lazy:
             return self._infer_if(node)

@@ -247,7 +247,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         if isinstance(stmt, N.Prose):
             result.items.append(TR.Prose(stmt.text))
             continue
-        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef)) else check_key(stmt)
+        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) else check_key(stmt)
         if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
             res.broken.add(key)
             continue

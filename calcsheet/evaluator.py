@@ -42,7 +42,7 @@ from .errors import (
 from .names import did_you_mean, dotted, strip_sign
 from .plugin import PluginRegistry, Record, default_registry
 from .plugin_host import PluginHost, kind_of, show
-from .trace import CheckResult, FunctionStep, SheetTable, Step
+from .trace import CheckResult, FunctionStep, Note, SheetTable, Step, Working
 
 
 @dataclasses.dataclass(frozen=True)
@@ -60,6 +60,7 @@ class Evaluator:
     """Walks expressions; one instance per sheet run (it holds the display policy and the plugin host)."""
 
     def __init__(self, policy: DisplayPolicy | None = None, plugins: PluginRegistry | None = None):
+        self.lookups: list = []  # the working of the current statement's table lookups
         self.policy = policy or DisplayPolicy()
         self.plugins = plugins or default_registry()
         self.reg = U.registry()
@@ -165,6 +166,16 @@ class Evaluator:
 
     def _eval_FieldAccess(self, node: N.FieldAccess, env, used):
         obj = self.eval(node.obj, env, None)
+        if isinstance(obj, B.TableValue):  # a column of a table: a list
+            if obj.info.column(node.field_name) is None:
+                names = [c for c, _ in obj.info.columns]
+                raise UnknownFieldError(f"table {obj.info.name} has no column '{node.field_name}'",
+                                        node.field_span or node.span,
+                                        hint=did_you_mean(node.field_name, names) or "columns: " + ", ".join(names))
+            value = obj.column(node.field_name)
+            if used is not None:
+                used[dotted(node) or "value"] = value
+            return value
         if not isinstance(obj, Record):
             raise TypeMismatchError(f"'{dotted(node.obj) or 'value'}' is a {kind_of(obj)}, it has no fields",
                                     node.obj.span)
@@ -194,6 +205,8 @@ class Evaluator:
         if fn is None:
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))
+        if fn.name == "lookup":
+            return self._eval_lookup(node, env, used)
         B.check_call_shape(fn, node)
         if fn.lazy:
             return self._eval_if(node, env, used)
@@ -305,6 +318,30 @@ class Evaluator:
             self._branch_checker = Checker(self.plugins)
         self._branch_checker.types = ValueTypes(env, self.plugins)
         return self._branch_checker.infer(node)
+
+    def _eval_Flag(self, node, env, used):
+        raise TypeMismatchError(f"'{node.name}' stands alone only at the end of a lookup: lookup(tab.k, h=…, "
+                                f"{node.name})", node.span)
+
+    def _eval_lookup(self, node: N.Call, env, used):
+        """``lookup``: the rule (``builtins.rule_lookup``), then linear interpolation between the rows around
+        the key; the bracketing rows and the formula with its substitution are kept for the package."""
+        table_node, column, clamp = B.check_lookup_shape(node)
+        tv = self.eval(table_node, env, None)
+        if not isinstance(tv, B.TableValue):
+            raise TypeMismatchError(f"lookup() reads a table of the sheet; {table_node.id} is a {kind_of(tv)}",
+                                    table_node.span)
+        given, keys = {}, []
+        for kw in node.kwargs:
+            v = self._finite(self._need_quantity(self.eval(kw.value, env, used), kw.value.span), kw.value.span,
+                             "the key")
+            given[kw.name] = (v, kw)
+            keys.append((kw, B.arg_of(v), B.is_list(v)))
+        want = B.rule_lookup(tv.info, column, node.args[0], keys, node)
+        value, working = lookup_working(tv, column, given, clamp)
+        self.lookups.append(working)
+        return self._finite(value.to(tv.units[-1] if tv.info.two_way else tv.column(column).units)
+                            if B.arg_of(value).dim == want.dim else value, node.span)
 
     def _eval_Compare(self, node, env, used):
         raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span)
@@ -486,8 +523,16 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
     bound in ``env`` and ``display``. A check's demand is shown in ``unit_of(key, value)``.
     """
     ev.user_calls = 0  # the budget of sheet-function calls is per statement
+    ev.lookups = []  # the working of each table lookup in the statement, shown after it
+    if isinstance(stmt, N.TableDef):
+        tv = B.make_table(stmt)
+        step = Step(name=stmt.name, expr=None, value=tv, description=stmt.description, span=stmt.span,
+                    anchor="v-" + stmt.name, after=[table_record(tv)])
+        env[stmt.name] = tv
+        return step
     if isinstance(stmt, N.Check):
         check = ev.evaluate_check(stmt, env, unit_of)
+        check.after = [*ev.lookups, *check.after]
         if _calls_sheet_function(stmt.left, env) or _calls_sheet_function(stmt.right, env):
             check.shown_left, check.shown_right = inline_calls(stmt.left, env), inline_calls(stmt.right, env)
         return check
@@ -514,6 +559,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
         step = ev.evaluate_definition(stmt, env, display)
     step.is_input = stmt.name in inputs
     step.anchor = "v-" + stmt.name
+    step.after = list(ev.lookups)
     if _calls_sheet_function(step.expr, env):
         step.shown_expr = inline_calls(step.expr, env)
     env[stmt.name] = step.value
@@ -560,3 +606,122 @@ def literal_unit(expr: N.Expr):
     if isinstance(expr, N.Number) and expr.unit:
         return U.build_unit(expr.unit)
     return None
+
+
+# ---------------------------------------------------------------- tables
+
+
+def table_record(tv: B.TableValue, rows=None, title: str | None = None) -> SheetTable:
+    """A table (or some of its rows) as the package prints it."""
+    reg = U.registry()
+    rows = range(tv.n_rows) if rows is None else rows
+    if tv.info.two_way:
+        rk, ck = tv.info.keys
+        cols = [f"{rk} \\ {ck}", *(_num(k) + _unit_suffix(tv.units[1]) for k in tv.col_keys)]
+        units = [tv.units[0], *([tv.units[2]] * len(tv.col_keys))]
+        body = [[reg.Quantity(float(tv.data[i, 0]), tv.units[0]),
+                 *(reg.Quantity(float(x), tv.units[2]) for x in tv.data[i, 1:])] for i in rows]
+    else:
+        cols = [c for c, _ in tv.info.columns]
+        units = list(tv.units)
+        body = [[reg.Quantity(float(x), u) for x, u in zip(tv.data[i], tv.units)] for i in rows]
+    where = f" (read from {tv.node.source})" if tv.node is not None and tv.node.source else ""
+    return SheetTable(title or f"table {tv.info.name}{where}", cols, body, units, anchor="t-" + tv.info.name)
+
+
+def _fmt(v) -> str:
+    """A key or value in a lookup's working: '120 mm', '0.925'."""
+    return f"{float(v.magnitude):.4g}{_unit_suffix(v.units)}"
+
+
+def _num(x: float) -> str:
+    return f"{x:g}"
+
+
+def _unit_suffix(unit) -> str:
+    text = str(unit)
+    return "" if text in ("", "dimensionless") else " " + f"{unit:~}"
+
+
+def _interp_step(name: str, key: str, y1, y2, x, x1, x2, value, unit, key_unit) -> Step:
+    """``y = y_1 + (y_2 − y_1)·(x − x_1)/(x_2 − x_1)`` with its values: the line a checker recomputes."""
+    n = lambda s: N.Name(id=s)  # noqa: E731
+    formula = N.Add(n(f"{name}_1"), N.Div(
+        N.Mul(N.Paren(N.Sub(n(f"{name}_2"), n(f"{name}_1"))), N.Paren(N.Sub(n(key), n(f"{key}_1")))),
+        N.Paren(N.Sub(n(f"{key}_2"), n(f"{key}_1")))))
+    used = {f"{name}_1": (y1, unit), f"{name}_2": (y2, unit), key: (x, key_unit), f"{key}_1": (x1, key_unit),
+            f"{key}_2": (x2, key_unit)}
+    return Step(name=name, expr=formula, value=value, display_unit=unit, used=used)
+
+
+def lookup_working(tv: B.TableValue, column: str | None, given: dict, clamp: bool):
+    """The value at the keys, and its working: the rows around the key and the interpolation formula with
+    its substitution (two-way: along the rows at both bracketing columns, then between them)."""
+    reg = U.registry()
+    info = tv.info
+
+    def q(m, unit):
+        return reg.Quantity(float(m), unit)
+
+    def shown_in(unit):
+        return lambda m: _fmt(q(m, unit))
+
+    show = _fmt
+
+    rk = info.keys[0]
+    xq, kw = given[rk]
+    x = float(xq.m_as(tv.units[0]))
+    xs = tv.data[:, 0]
+    b = B.bracket(xs, x, clamp, rk, info, shown_in(tv.units[0]), kw.value)
+    items: list = []
+    if not info.two_way:
+        k = [c for c, _ in info.columns].index(column)
+        ys, unit = tv.data[:, k], tv.units[k]
+        y = B.interpolate(float(ys[b.i]), float(ys[b.i + 1]), b.t)
+        items.append(table_record(tv, [b.i, b.i + 1], f"rows of {info.name} around {rk} = {show(xq)}"))
+        if b.clamped:
+            items.append(Note(f"{rk} = {show(xq)} is outside the table ({shown_in(tv.units[0])(xs[0])} to "
+                              f"{shown_in(tv.units[0])(xs[-1])}): clamp takes the end value, {show(q(y, unit))}",
+                              kind="warning"))
+        else:
+            items.append(_interp_step(column, rk, q(ys[b.i], unit), q(ys[b.i + 1], unit), q(x, tv.units[0]),
+                                      q(xs[b.i], tv.units[0]), q(xs[b.i + 1], tv.units[0]), q(y, unit), unit,
+                                      tv.units[0]))
+        return q(y, unit), Working(f"lookup of {column} in {info.name}", items)
+    ck = info.keys[1]
+    zq, kw2 = given[ck]
+    z = float(zq.m_as(tv.units[1]))
+    c = B.bracket(tv.col_keys, z, clamp, ck, info, shown_in(tv.units[1]), kw2.value)
+    grid, unit = tv.data[:, 1:], tv.units[2]
+    name = info.name
+    ya = B.interpolate(float(grid[b.i, c.i]), float(grid[b.i + 1, c.i]), b.t)
+    yb = B.interpolate(float(grid[b.i, c.i + 1]), float(grid[b.i + 1, c.i + 1]), b.t)
+    y = B.interpolate(ya, yb, c.t)
+    corner = SheetTable(f"values of {name} around {rk} = {show(xq)}, {ck} = {show(zq)}",
+                        [f"{rk} \\ {ck}", _num(tv.col_keys[c.i]) + _unit_suffix(tv.units[1]),
+                         _num(tv.col_keys[c.i + 1]) + _unit_suffix(tv.units[1])],
+                        [[q(xs[r], tv.units[0]), q(grid[r, c.i], unit), q(grid[r, c.i + 1], unit)]
+                         for r in (b.i, b.i + 1)], [tv.units[0], unit, unit])
+    items.append(corner)
+    if b.clamped or c.clamped:
+        items.append(Note(f"the keys fall outside the table: clamp takes the end values ({rk} = {show(xq)}, "
+                          f"{ck} = {show(zq)})", kind="warning"))
+    xq1, xq2 = q(xs[b.i], tv.units[0]), q(xs[b.i + 1], tv.units[0])
+    xv = q(x, tv.units[0]) if not b.clamped else (xq1 if b.t == 0 else xq2)
+    for j, (label, yy) in enumerate(((f"{name}_a", ya), (f"{name}_b", yb))):
+        step = _interp_step(label, rk, q(grid[b.i, c.i + j], unit), q(grid[b.i + 1, c.i + j], unit), xv, xq1, xq2,
+                            q(yy, unit), unit, tv.units[0])
+        step.description = f"along {rk}, at {ck} = {_num(tv.col_keys[c.i + j])}{_unit_suffix(tv.units[1])}"
+        items.append(step)
+    zq1, zq2 = q(tv.col_keys[c.i], tv.units[1]), q(tv.col_keys[c.i + 1], tv.units[1])
+    zv = q(z, tv.units[1]) if not c.clamped else (zq1 if c.t == 0 else zq2)
+    last = _interp_step(name, ck, q(ya, unit), q(yb, unit), zv, zq1, zq2, q(y, unit), unit, tv.units[1])
+    last.expr = N.Add(N.Name(id=f"{name}_a"), N.Div(
+        N.Mul(N.Paren(N.Sub(N.Name(id=f"{name}_b"), N.Name(id=f"{name}_a"))),
+              N.Paren(N.Sub(N.Name(id=ck), N.Name(id=f"{ck}_1")))),
+        N.Paren(N.Sub(N.Name(id=f"{ck}_2"), N.Name(id=f"{ck}_1")))))
+    last.used = {f"{name}_a": (q(ya, unit), unit), f"{name}_b": (q(yb, unit), unit), ck: (zv, tv.units[1]),
+                 f"{ck}_1": (zq1, tv.units[1]), f"{ck}_2": (zq2, tv.units[1])}
+    last.description = f"between the two, along {ck}"
+    items.append(last)
+    return q(y, unit), Working(f"lookup in {name}", items)

@@ -172,7 +172,10 @@ class MathPrinter(Printer):
 
     def _print_Call(self, node: N.Call, ctx):
         form = print_form(node)  # the built-ins table says how each function is shown
-        args = [self._print(unparen(a), 0) for a in node.args]
+        args = [self._print(unparen(a), 0) for a in node.args if not isinstance(a, N.Flag)]
+        if node.kwargs or len(args) < len(node.args):  # lookup(tab.k, h=…, clamp): keys, then flags
+            args += [self.m_keyword(kw.name, self._print(kw.value, 0)) for kw in node.kwargs]
+            args += [self.m_text(a.name) for a in node.args if isinstance(a, N.Flag)]
         if form == "cases":
             cond, then, otherwise = args
             return self.m_cases(then, cond, otherwise)
