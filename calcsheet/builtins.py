@@ -932,6 +932,10 @@ def check_lookup_shape(node: N.Call) -> tuple[N.Expr, str | None, bool]:
     """``lookup(tab.k, key=value, …[, clamp])``: (the table's name node, the column or None, clamp)."""
     args = list(node.args)
     clamp = False
+    if len(args) > 2:
+        raise ArityError(f"lookup() takes the column, the keys by name and optionally clamp; got {len(args)} "
+                         "arguments in order", node.span, hint="write lookup(tab.k, h=120 mm) or "
+                                                               "lookup(tab.k, h=120 mm, clamp)")
     if len(args) == 2 and isinstance(args[1], N.Flag):
         clamp = True
         args = args[:1]
