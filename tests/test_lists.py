@@ -182,6 +182,7 @@ def test_json_carries_the_list():
     assert data["values"]["L"]["value"] == [3.6, 4.2, 4.8]
     assert data["values"]["M"]["unit"] == "kN * m"
     assert data["checks"][0]["ok"] is False
+    assert data["checks"][0]["governing"] == 3
 
 
 # ---------------------------------------------------------------- plugins and functions
