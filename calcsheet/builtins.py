@@ -209,9 +209,9 @@ def _pow_impl(a, b, node: N.BinOp, p: float):
             return _q(base**p)
         except OverflowError:
             raise NumericError("the power overflows", node.span) from None
-    if np.any(a.magnitude < 0) and not p.is_integer():
+    if not p.is_integer() and np.any(a.magnitude < 0):
         raise NumericError("a negative quantity to a fractional power is not real", node.span)
-    if np.any(a.magnitude == 0) and p < 0:
+    if p < 0 and np.any(a.magnitude == 0):
         raise DivisionByZeroError("zero to a negative power", node.span)
     return a**p
 

@@ -451,24 +451,36 @@ class Evaluator:
         bm = np.atleast_1d(np.asarray(b.to(a.units).magnitude, float))
         B.rule_lengths([len(am) if B.is_list(a) else None, len(bm) if B.is_list(b) else None],
                        [stmt.left, stmt.right], stmt)
-        am, bm = np.broadcast_arrays(am, bm)
+        if am.shape != bm.shape:
+            am, bm = np.broadcast_to(am, (max(len(am), len(bm)),)), np.broadcast_to(bm, (max(len(am), len(bm)),))
         oks = np.asarray(B.COMPARISONS[stmt.op](am, bm), bool)
         dm, cm = (am, bm) if stmt.op in ("<=", "<") else (bm, am)
-        bad = (dm * cm < 0) | ((dm < 0) & (cm < 0))
-        ratios = np.full(len(dm), np.nan)
+        # no utilisation where the two are of opposite sign or both negative (as for one value)
+        if dm.min() < 0 or cm.min() < 0:
+            bad = ((dm < 0) & (cm != 0)) | ((cm < 0) & (dm != 0))
+        else:
+            bad = None
         formed = (cm > 0) & (dm >= 0)
-        ratios[formed] = dm[formed] / cm[formed]
-        if np.any(np.isinf(ratios)):
+        with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
+            ratios = dm / cm if formed.all() else np.where(formed, dm / np.where(formed, cm, 1.0), np.nan)
+        if np.isinf(ratios).any():
             raise NumericError("the check's ratio (demand / capacity) overflows", stmt.span,
                                hint="the capacity is vanishingly small next to the demand")
-        rank = np.where(np.isnan(ratios), -np.inf, ratios) + np.where(oks, 0.0, np.inf)
-        g = int(np.argmax(np.where(bad, np.inf, rank)))
+        # which element governs: one with no utilisation at all, else the failing one with the highest ratio,
+        # else the highest ratio (no ratio counts below any)
+        score = np.where(np.isnan(ratios), -1.0, ratios) if not formed.all() else ratios
+        ng = ~oks
+        if ng.any():
+            score = score + np.where(ng, score.max() + 2.0, 0.0)
+        if bad is not None and bad.any():
+            score = np.where(bad, np.inf, score)
+        g = int(np.argmax(score))
         demand_q, capacity_q = (a, b) if stmt.op in ("<=", "<") else (b, a)
 
         def at(q, i):
             return q[i] if B.is_list(q) else q
 
-        if bad[g]:
+        if bad is not None and bad[g]:
             raise _sign_error(stmt, at(demand_q, g), at(capacity_q, g).to(at(demand_q, g).units),
                               element=g + 1)
         unit_of = unit_of or (lambda k, v: self.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
@@ -483,19 +495,34 @@ class Evaluator:
         lists = {k: v for k, v in used.items() if B.is_list(v) and k != key}
         columns = ["element", *lists, "demand", "capacity", "ratio", "result"]
         units = [None, *(unit_of(k, v) for k, v in lists.items()), shown, shown, None, None]
+        unit = shown if shown is not None else demand_q.units
+        # magnitudes once, as arrays: the rows are made without arithmetic on quantities
+        cols = [np.broadcast_to(np.asarray(v.m_as(unit_of(k, v) or v.units), float), dm.shape)
+                for k, v in lists.items()]
+        col_units = [unit_of(k, v) or v.units for k, v in lists.items()]
+        d_mag = np.broadcast_to(np.asarray(demand_q.m_as(unit), float), dm.shape)
+        c_mag = np.broadcast_to(np.asarray(capacity_q.m_as(unit), float), dm.shape)
+        reg = U.registry()
+        shown_rows = range(len(dm))
+        note = None
+        if len(dm) > MAX_CHECK_ROWS:  # a long list: the elements with the highest utilisation, in order
+            top = np.argpartition(-score, MAX_CHECK_ROWS)[:MAX_CHECK_ROWS]
+            shown_rows = sorted(int(i) for i in top)
+            note = (f"{len(dm):,} elements; the {MAX_CHECK_ROWS} with the highest utilisation are shown "
+                    f"({int(np.sum(ng)):,} NG in all)")
         rows = []
-        for i in range(len(dm)):
-            rows.append([str(i + 1), *(v[i] for v in lists.values()),
-                         at(demand_q, i).to(shown) if shown is not None else at(demand_q, i),
-                         at(capacity_q, i).to(shown) if shown is not None else at(capacity_q, i),
+        for i in shown_rows:
+            rows.append([str(i + 1), *(reg.Quantity(float(c[i]), u) for c, u in zip(cols, col_units)),
+                         reg.Quantity(float(d_mag[i]), unit), reg.Quantity(float(c_mag[i]), unit),
                          "–" if np.isnan(ratios[i]) else f"{ratios[i]:.2f}", "OK" if oks[i] else "NG"])
-        table = SheetTable(f"each element of the check (element {g + 1} governs)", columns, rows, units)
+        table = SheetTable(f"each element of the check (element {g + 1} governs)", columns, rows, units, note=note)
         return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
                            ok=bool(np.all(oks)), ratio=ratio, text="", used=used_g, description=stmt.description,
                            span=stmt.span, governing=g + 1, after=[table])
 
 
 _DISPATCH: dict = {}
+MAX_CHECK_ROWS = 50  # a check over a longer list shows this many elements (those with the highest utilisation)
 
 
 def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:
