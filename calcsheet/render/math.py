@@ -227,8 +227,11 @@ def _is_dimensionless(unit) -> bool:
 
 
 def is_literal(node) -> bool:
-    """A value written directly (``6.0 m``, ``-2 kN``): its formula is its result."""
-    return isinstance(strip_sign(node), (N.Number, N.Text))
+    """A value written directly (``6.0 m``, ``-2 kN``, ``[3.6 m, 4.2 m]``): its formula is its result."""
+    node = strip_sign(node)
+    if isinstance(node, N.ListExpr) and node.items:
+        return all(isinstance(strip_sign(i), N.Number) for i in node.items)
+    return isinstance(node, (N.Number, N.Text))
 
 
 # ------------------------------------------------------------------ reproducible substitution
