@@ -216,3 +216,13 @@ def test_a_list_prints_back_as_sheet_syntax_and_parses_to_the_same_tree(items):
     again, _ = parse_sheet(printed + "\n")
     assert again.body[0] == sheet.body[0]
     assert isinstance(again.body[0].expr, N.ListExpr)
+
+
+def test_an_edited_list_input_rebuilds_incrementally_to_what_a_full_run_gives():
+    from calcsheet.incremental import rebuild
+
+    r = calcsheet.run(SPANS)
+    edited = SPANS.replace("4.8 m]", "5.1 m]")
+    rb = rebuild(r, edited)
+    assert not rb.full
+    assert TextDocument().items(rb.result.items) == TextDocument().items(calcsheet.run(edited).items)
