@@ -54,11 +54,10 @@ def pipe_table(lines: list[str], i: int, path: str) -> tuple[int, N.TableDef]:
     rows: list[list[tuple[str, Span]]] = []
     j = i + 1
     while j < len(lines) and lines[j].lstrip().startswith("|"):
-        row_code, _, _ = strip_trailing(lines[j])
         if len(rows) >= MAX_TABLE_ROWS + 2:
             raise SheetSyntaxError(f"a table of more than {MAX_TABLE_ROWS:,} rows", Span(j + 1, 1, j + 1, 2))
-        if not _RULE.fullmatch(row_code):
-            rows.append(_cells(row_code, j + 1))
+        if not _RULE.fullmatch(lines[j].split("//")[0].strip()):  # a Markdown rule row (| --- |) is skipped
+            rows.append(_cells(strip_trailing(lines[j])[0], j + 1))
         j += 1
     end = Span(j, 1, j, len(lines[j - 1]) + 1)
     span = Span(lineno, name_span.col, end.end_line, end.end_col)
