@@ -307,6 +307,16 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
     "F(u [m], v) = u + v\nx = F(a, c)",     # an untyped parameter: the body is checked at each call
     "F(u [m], v [m]) [kN] = u + v",         # never called: a typed body is still checked
     "F(u [deg], v) = u*2 + 1\nx = F(r, a)",  # a plain number for an angle parameter takes the angle
+    "x = if(a < b, La, a)",                 # one outcome a list, the other not
+    "x = if(La < b, a, a)",                 # a list in the condition
+    "x = r^(La/a)",                         # a list as an exponent
+    "x = [a, La]",                          # a list inside a list
+    "x = [a, f]",                           # two dimensions in one list
+    "x = agr.span(L=La, w=w, n=1)",         # a list where the plugin takes one value
+    "x = lookup(k_t.k, h=La, clamp)",       # a list as a lookup key
+    "x = lookup(k_t.k, h=f, clamp)",        # a key of the wrong dimension
+    "x = lookup(c_t, h=a, clamp)",          # a two-way table with one key
+    "x = sum(t_1)",                         # a sum of °C temperatures
 ])
 def test_known_disagreements_stay_agreed(body):
     text = PREAMBLE + body + "\n"
