@@ -950,8 +950,8 @@ def check_lookup_shape(node: N.Call) -> tuple[N.Expr, str | None, bool]:
     elif isinstance(first, N.Name):
         table, column = first, None
     else:
-        raise TypeMismatchError("lookup() reads a table of the sheet: lookup(tab.k, h=…), or lookup(tab, h=…, b=…) "
-                                "for a two-way table", first.span)
+        raise TypeMismatchError("lookup() reads a table of the sheet: lookup(tab.k, h=…), or "
+                                "lookup(tab, h=…, b=…) for a two-way table", first.span)
     seen = set()
     for kw in node.kwargs:
         if kw.name in seen:

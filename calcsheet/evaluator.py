@@ -337,11 +337,10 @@ class Evaluator:
                              "the key")
             given[kw.name] = (v, kw)
             keys.append((kw, B.arg_of(v), B.is_list(v)))
-        want = B.rule_lookup(tv.info, column, node.args[0], keys, node)
-        value, working = lookup_working(tv, column, given, clamp)
+        B.rule_lookup(tv.info, column, node.args[0], keys, node)
+        value, working = lookup_working(tv, column, given, clamp)  # in the read column's unit
         self.lookups.append(working)
-        return self._finite(value.to(tv.units[-1] if tv.info.two_way else tv.column(column).units)
-                            if B.arg_of(value).dim == want.dim else value, node.span)
+        return self._finite(value, node.span)
 
     def _eval_Compare(self, node, env, used):
         raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span)
@@ -529,7 +528,8 @@ def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> 
     side = stmt.left if stmt.op in ("<=", "<") else stmt.right
     name = dotted(side) or "the demand"
     return CheckSignError(
-        ("" if element is None else f"element {element}: ") + f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
+        ("" if element is None else f"element {element}: ")
+        + f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
         "negative, so the check has no utilisation and cannot pass", stmt.span,
         hint=f"compare magnitudes with check abs({name}) {stmt.op} ..., or write a compression check "
              f"with the compressive value positive (check -{name} {stmt.op} ...)")
@@ -693,8 +693,6 @@ def lookup_working(tv: B.TableValue, column: str | None, given: dict, clamp: boo
     def shown_in(unit):
         return lambda m: _fmt(q(m, unit))
 
-    show = _fmt
-
     rk = info.keys[0]
     xq, kw = given[rk]
     x = float(xq.m_as(tv.units[0]))
@@ -705,10 +703,10 @@ def lookup_working(tv: B.TableValue, column: str | None, given: dict, clamp: boo
         k = [c for c, _ in info.columns].index(column)
         ys, unit = tv.data[:, k], tv.units[k]
         y = B.interpolate(float(ys[b.i]), float(ys[b.i + 1]), b.t)
-        items.append(table_record(tv, [b.i, b.i + 1], f"rows of {info.name} around {rk} = {show(xq)}"))
+        items.append(table_record(tv, [b.i, b.i + 1], f"rows of {info.name} around {rk} = {_fmt(xq)}"))
         if b.clamped:
-            items.append(Note(f"{rk} = {show(xq)} is outside the table ({shown_in(tv.units[0])(xs[0])} to "
-                              f"{shown_in(tv.units[0])(xs[-1])}): clamp takes the end value, {show(q(y, unit))}",
+            items.append(Note(f"{rk} = {_fmt(xq)} is outside the table ({shown_in(tv.units[0])(xs[0])} to "
+                              f"{shown_in(tv.units[0])(xs[-1])}): clamp takes the end value, {_fmt(q(y, unit))}",
                               kind="warning"))
         else:
             items.append(_interp_step(column, rk, q(ys[b.i], unit), q(ys[b.i + 1], unit), q(x, tv.units[0]),
@@ -724,15 +722,15 @@ def lookup_working(tv: B.TableValue, column: str | None, given: dict, clamp: boo
     ya = B.interpolate(float(grid[b.i, c.i]), float(grid[b.i + 1, c.i]), b.t)
     yb = B.interpolate(float(grid[b.i, c.i + 1]), float(grid[b.i + 1, c.i + 1]), b.t)
     y = B.interpolate(ya, yb, c.t)
-    corner = SheetTable(f"values of {name} around {rk} = {show(xq)}, {ck} = {show(zq)}",
+    corner = SheetTable(f"values of {name} around {rk} = {_fmt(xq)}, {ck} = {_fmt(zq)}",
                         [f"{rk} \\ {ck}", _num(tv.col_keys[c.i]) + _unit_suffix(tv.units[1]),
                          _num(tv.col_keys[c.i + 1]) + _unit_suffix(tv.units[1])],
                         [[q(xs[r], tv.units[0]), q(grid[r, c.i], unit), q(grid[r, c.i + 1], unit)]
                          for r in (b.i, b.i + 1)], [tv.units[0], unit, unit])
     items.append(corner)
     if b.clamped or c.clamped:
-        items.append(Note(f"the keys fall outside the table: clamp takes the end values ({rk} = {show(xq)}, "
-                          f"{ck} = {show(zq)})", kind="warning"))
+        items.append(Note(f"the keys fall outside the table: clamp takes the end values ({rk} = {_fmt(xq)}, "
+                          f"{ck} = {_fmt(zq)})", kind="warning"))
     xq1, xq2 = q(xs[b.i], tv.units[0]), q(xs[b.i + 1], tv.units[0])
     xv = q(x, tv.units[0]) if not b.clamped else (xq1 if b.t == 0 else xq2)
     for j, (label, yy) in enumerate(((f"{name}_a", ya), (f"{name}_b", yb))):

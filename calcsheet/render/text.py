@@ -96,8 +96,8 @@ class TextDocument(DocumentPrinter):
         return "\n" + self.items(item.after, indent=indent + "    ")
 
     def _print_CheckResult(self, item: CheckResult, indent=""):
-        return (indent + self.check(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
-                + self._after(item, indent))
+        desc = f"   -- {item.description}" if item.description else ""
+        return indent + self.check(item, nested=bool(indent)) + desc + self._after(item, indent)
 
     def _print_Table(self, item: Table, indent=""):
         return indent + f"[table: {item.title}, {len(item.rows)} rows]"
