@@ -26,6 +26,7 @@ from dataclasses import dataclass
 from functools import lru_cache
 from typing import Callable, NamedTuple, Sequence
 
+import numpy as np
 import pint
 
 from . import nodes as N
@@ -39,8 +40,11 @@ from .errors import (
     DivisionByZeroError,
     NumericError,
     OffsetTemperatureError,
+    OutOfRangeError,
+    PluginArgumentError,
     TooComplexError,
     TypeMismatchError,
+    UnknownFieldError,
 )
 from .names import operand
 from .slips import specialise
@@ -188,6 +192,14 @@ def unit_arg(unit: pint.Unit) -> Arg:
 
 def _pow_impl(a, b, node: N.BinOp, p: float):
     if arg_of(a).dim == U.DIMENSIONLESS:
+        if is_list(a):  # elementwise, one numpy operation
+            base = a.m_as(_unit(""))
+            if not p.is_integer() and np.any(base < 0):
+                raise NumericError("a negative number to a fractional power is not real", node.span)
+            if p < 0 and np.any(base == 0):
+                raise DivisionByZeroError("zero to a negative power", node.span)
+            with np.errstate(over="ignore"):
+                return _q(base**p)
         base = float(a.m_as(_unit("")))
         if base < 0 and not p.is_integer():
             raise NumericError("a negative number to a fractional power is not real", node.span)
@@ -197,15 +209,15 @@ def _pow_impl(a, b, node: N.BinOp, p: float):
             return _q(base**p)
         except OverflowError:
             raise NumericError("the power overflows", node.span) from None
-    if a.magnitude < 0 and not p.is_integer():
+    if not p.is_integer() and np.any(a.magnitude < 0):
         raise NumericError("a negative quantity to a fractional power is not real", node.span)
-    if a.magnitude == 0 and p < 0:
+    if p < 0 and np.any(a.magnitude == 0):
         raise DivisionByZeroError("zero to a negative power", node.span)
     return a**p
 
 
 def _div_impl(a, b, node: N.BinOp):
-    if b.magnitude == 0:
+    if np.any(b.magnitude == 0):
         raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
     return a / b
 
@@ -294,8 +306,11 @@ def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
     if node.op == "^":
         p = written_power(node.right) if arg_of(a).dim != U.DIMENSIONLESS else None
         rule_pow(arg_of(a), arg_of(b), node, p)
+        rule_scalar(is_list(b), node.right, "an exponent")
         return _pow_impl(a, b, node, float(b.m_as(_unit(""))))
     op.rule(node.op, arg_of(a), arg_of(b), node)
+    if is_list(a) and is_list(b):
+        rule_lengths([len(a.magnitude), len(b.magnitude)], [node.left, node.right], node)
     return op.impl(a, b, node)
 
 
@@ -330,6 +345,19 @@ def _rule_same(name):
                 f"{name}() of a temperature on the °C/°F scale and one that is not", arg.span,
                 hint="write every value on one scale: all in °C (or °F), or all in K")
         return _same_dims(name, args, nodes)
+    return rule
+
+
+def _rule_sum(args, nodes, node):
+    """sum(list): the elements' dimension (not °C/°F: a sum of temperatures on such a scale means nothing)."""
+    _no_offset("sum", args, nodes)
+    return args[0]
+
+
+def _rule_position(name):
+    """argmax, argmin, count: any list in, a plain number (a position, a count) out."""
+    def rule(args, nodes, node):
+        return NUMBER
     return rule
 
 
@@ -418,8 +446,15 @@ def rule_if(x, y, node: N.Call):
 # ---- implementations (arguments already passed their rule)
 
 
-def _plain(x) -> float:
-    return float(x.m_as(_unit("")))
+def _plain(x):
+    """A plain number's value: a float, or an array of them for a list (the caller keeps it elementwise)."""
+    m = x.m_as(_unit(""))
+    return m if isinstance(m, np.ndarray) else float(m)
+
+
+def _vec(scalar, array):
+    """One function on a float (math: exact errors), or on an array (numpy: one vectorised call)."""
+    return lambda v: array(v) if isinstance(v, np.ndarray) else scalar(v)
 
 
 @lru_cache(maxsize=None)
@@ -434,45 +469,82 @@ def _q(value: float, unit: str = ""):
 
 def _impl_sqrt(args, node):
     x = args[0]
-    if x.magnitude < 0:
+    if np.any(x.magnitude < 0):
         raise NumericError("square root of a negative value", node.args[0].span)
     return x**0.5
 
 
-def _impl_minmax(pick):
+def _impl_minmax(pick, reduce, pairwise):
+    """min/max: of one list, its least/greatest element; of several values, the least/greatest (element by
+    element where some are lists)."""
     def impl(args, node):
         x = args[0]
+        if len(args) == 1:
+            return _Q(reduce(x.magnitude), x.units) if is_list(x) else x
+        if any(is_list(a) for a in args):
+            mags = [a.to(x.units).magnitude for a in args]
+            rule_lengths([len(m) if isinstance(m, np.ndarray) else None for m in mags], node.args, node)
+            return _Q(pairwise.reduce(np.broadcast_arrays(*mags)), x.units)
         return pick(args, key=lambda q: q.to(x.units).magnitude)
     return impl
 
 
+def _impl_sum(args, node):
+    x = args[0]
+    return _Q(float(np.sum(x.magnitude)), x.units) if is_list(x) else x
+
+
+def _impl_argpick(f):
+    def impl(args, node):  # the element's position counts from 1, as the package numbers them
+        x = args[0]
+        return _q(float(f(x.magnitude)) + 1.0 if is_list(x) else 1.0)
+    return impl
+
+
+def _impl_count(args, node):
+    x = args[0]
+    return _q(float(len(x.magnitude)) if is_list(x) else 1.0)
+
+
+def _Q(magnitude, unit):
+    """A quantity in ``unit`` (also a °C/°F unit, which multiplication would refuse)."""
+    return U.registry().Quantity(magnitude, unit)
+
+
 def _impl_trig(f):
     def impl(args, node):
-        return _q(f(args[0].m_as(_unit("radian"))))
+        m = args[0].m_as(_unit("radian"))
+        return _q(f(m) if isinstance(m, np.ndarray) else float(f(m)))
     return impl
 
 
 def _impl_inverse_trig(name, f):
     def impl(args, node):
         v = _plain(args[0])
-        if name != "atan" and not -1 <= v <= 1:
-            raise NumericError(f"{name}() of {v:g} is outside -1…1", node.args[0].span)
-        return _q(math.degrees(f(v)), "degree")
+        if name != "atan" and np.any(np.abs(v) > 1):
+            bad = float(v[np.argmax(np.abs(v))]) if isinstance(v, np.ndarray) else v
+            raise NumericError(f"{name}() of {bad:g} is outside -1…1", node.args[0].span)
+        return _q(np.degrees(f(v)) if isinstance(v, np.ndarray) else math.degrees(f(v)), "degree")
     return impl
 
 
 def _impl_atan2(args, node):
     y, x = args
-    return _q(math.degrees(math.atan2(y.magnitude, x.to(y.units).magnitude)), "degree")
+    ym, xm = y.magnitude, x.to(y.units).magnitude
+    if isinstance(ym, np.ndarray) or isinstance(xm, np.ndarray):
+        rule_lengths([len(m) if isinstance(m, np.ndarray) else None for m in (ym, xm)], node.args, node)
+        return _q(np.degrees(np.arctan2(ym, xm)), "degree")
+    return _q(math.degrees(math.atan2(ym, xm)), "degree")
 
 
 def _impl_transcendental(name, f):
     def impl(args, node):
         v = _plain(args[0])
-        if name != "exp" and v <= 0:
+        if name != "exp" and np.any(v <= 0):
             raise NumericError(f"{name}() of a value that is not positive", node.args[0].span)
         try:
-            return _q(f(v))
+            with np.errstate(over="ignore"):  # an overflow is infinite, refused by the finiteness rule
+                return _q(f(v))
         except OverflowError:
             raise NumericError(f"{name}() overflows", node.span) from None
     return impl
@@ -480,7 +552,8 @@ def _impl_transcendental(name, f):
 
 def _impl_round(f):
     def impl(args, node):
-        return _q(float(f(_plain(args[0]))))
+        v = _plain(args[0])
+        return _q(f(v) if isinstance(v, np.ndarray) else float(f(v)))
     return impl
 
 
@@ -501,6 +574,7 @@ class Function:
     doc: str
     print_form: str = "call"
     lazy: bool = False
+    shape: str = "elementwise"  # of lists: 'elementwise', 'reduce' (a list in, one value out), 'min-max'
 
     def arity_text(self) -> str:
         if self.min_args == self.max_args:
@@ -518,20 +592,32 @@ def _fn(name, n, rule, impl, doc, **kw):
 FUNCTIONS: dict[str, Function] = {f.name: f for f in [
     _fn("sqrt", 1, _rule_sqrt, _impl_sqrt, "square root; the dimension's exponents halve", print_form="sqrt"),
     _fn("abs", 1, _rule_same("abs"), lambda args, node: abs(args[0]), "magnitude", print_form="abs"),
-    _fn("min", (1, None), _rule_same("min"), _impl_minmax(min), "least of values of one dimension"),
-    _fn("max", (1, None), _rule_same("max"), _impl_minmax(max), "greatest of values of one dimension"),
-    _fn("sin", 1, _rule_trig("sin"), _impl_trig(math.sin), "sine of an angle"),
-    _fn("cos", 1, _rule_trig("cos"), _impl_trig(math.cos), "cosine of an angle"),
-    _fn("tan", 1, _rule_trig("tan"), _impl_trig(math.tan), "tangent of an angle"),
-    _fn("asin", 1, _rule_inverse_trig("asin"), _impl_inverse_trig("asin", math.asin), "angle of a sine"),
-    _fn("acos", 1, _rule_inverse_trig("acos"), _impl_inverse_trig("acos", math.acos), "angle of a cosine"),
-    _fn("atan", 1, _rule_inverse_trig("atan"), _impl_inverse_trig("atan", math.atan), "angle of a tangent"),
+    _fn("min", (1, None), _rule_same("min"), _impl_minmax(min, np.min, np.minimum),
+        "least of values of one dimension; of one list, its least element", shape="min-max"),
+    _fn("max", (1, None), _rule_same("max"), _impl_minmax(max, np.max, np.maximum),
+        "greatest of values of one dimension; of one list, its greatest element", shape="min-max"),
+    _fn("sum", 1, _rule_sum, _impl_sum, "sum of the elements of a list", shape="reduce"),
+    _fn("argmax", 1, _rule_position("argmax"), _impl_argpick(np.argmax),
+        "position (from 1) of a list's greatest element", shape="reduce"),
+    _fn("argmin", 1, _rule_position("argmin"), _impl_argpick(np.argmin),
+        "position (from 1) of a list's least element", shape="reduce"),
+    _fn("count", 1, _rule_position("count"), _impl_count, "number of elements of a list", shape="reduce"),
+    _fn("sin", 1, _rule_trig("sin"), _impl_trig(_vec(math.sin, np.sin)), "sine of an angle"),
+    _fn("cos", 1, _rule_trig("cos"), _impl_trig(_vec(math.cos, np.cos)), "cosine of an angle"),
+    _fn("tan", 1, _rule_trig("tan"), _impl_trig(_vec(math.tan, np.tan)), "tangent of an angle"),
+    _fn("asin", 1, _rule_inverse_trig("asin"), _impl_inverse_trig("asin", _vec(math.asin, np.arcsin)),
+        "angle of a sine"),
+    _fn("acos", 1, _rule_inverse_trig("acos"), _impl_inverse_trig("acos", _vec(math.acos, np.arccos)),
+        "angle of a cosine"),
+    _fn("atan", 1, _rule_inverse_trig("atan"), _impl_inverse_trig("atan", _vec(math.atan, np.arctan)),
+        "angle of a tangent"),
     _fn("atan2", 2, _rule_atan2, _impl_atan2, "angle of the point (x, y): atan2(y, x)"),
-    _fn("exp", 1, _rule_plain("exp"), _impl_transcendental("exp", math.exp), "e to a plain number"),
-    _fn("ln", 1, _rule_plain("ln"), _impl_transcendental("ln", math.log), "natural logarithm"),
-    _fn("log10", 1, _rule_plain("log10"), _impl_transcendental("log10", math.log10), "common logarithm"),
-    _fn("ceil", 1, _rule_plain("ceil"), _impl_round(math.ceil), "round a plain number up"),
-    _fn("floor", 1, _rule_plain("floor"), _impl_round(math.floor), "round a plain number down"),
+    _fn("exp", 1, _rule_plain("exp"), _impl_transcendental("exp", _vec(math.exp, np.exp)), "e to a plain number"),
+    _fn("ln", 1, _rule_plain("ln"), _impl_transcendental("ln", _vec(math.log, np.log)), "natural logarithm"),
+    _fn("log10", 1, _rule_plain("log10"), _impl_transcendental("log10", _vec(math.log10, np.log10)),
+        "common logarithm"),
+    _fn("ceil", 1, _rule_plain("ceil"), _impl_round(_vec(math.ceil, np.ceil)), "round a plain number up"),
+    _fn("floor", 1, _rule_plain("floor"), _impl_round(_vec(math.floor, np.floor)), "round a plain number down"),
     _fn("if", 3, None, None, "if(a <= b, value, otherwise): one of two values of one dimension",
         print_form="cases", lazy=True),
 ]}
@@ -659,3 +745,285 @@ def at_call(exc: CalcError, fd: N.FunctionDef, node: N.Call) -> CalcError:
     exc.args = (exc.message,)
     exc.span = node.span
     return exc
+
+
+# ------------------------------------------------------------ lists
+# ``L = [3.6 m, 4.2 m, 4.8 m]`` is one quantity over a numpy array: every operator and elementwise built-in
+# computes on the whole array at once. What a list may be is decided here, for both walkers: the checker
+# knows whether an operand is a list (its type's ``many``), the evaluator sees it (``is_list``).
+
+MAX_LIST_ITEMS = 1_000_000
+
+
+def is_list(q) -> bool:
+    """A quantity holding a list (an array of magnitudes)."""
+    return isinstance(getattr(q, "_magnitude", None), np.ndarray)
+
+
+def rule_scalar(many: bool, node: N.Expr, what: str) -> None:
+    """Where one value belongs (an exponent, a condition, a lookup key, a plugin's quantity), not a list."""
+    if many:
+        raise TypeMismatchError(f"{what} must be one value, not a list", node.span,
+                                hint=f"pick one element first: max({operand(node, 'the list')}), "
+                                     f"min(…) or sum(…)")
+
+
+def rule_lengths(lengths: Sequence[int | None], nodes: Sequence[N.Expr], node: N.Expr) -> None:
+    """Lists combined element by element have one length (a single value goes with every element)."""
+    known = [(n, x) for n, x in zip(lengths, nodes) if n is not None]
+    for n, x in known[1:]:
+        if n != known[0][0]:
+            raise TypeMismatchError(f"lists of different lengths: {known[0][0]} and {n} elements", node.span,
+                                    hint=f"{operand(known[0][1], 'the first')} has {known[0][0]}, "
+                                         f"{operand(x, 'the other')} has {n}; element-by-element arithmetic "
+                                         "pairs the elements in order")
+
+
+def shape_of_call(fn: Function, many: Sequence[bool]) -> bool:
+    """Whether a built-in's result is a list, from whether its arguments are."""
+    if fn.shape == "reduce" or (fn.shape == "min-max" and len(many) == 1):
+        return False
+    return any(many)
+
+
+def rule_list_items(args: Sequence[Arg | None], many: Sequence[bool], node: N.ListExpr) -> Arg | None:
+    """``[a, b, c]``: single values (no list inside a list) of the first element's dimension, all on a °C/°F
+    scale or none. The list takes the first element's dimension (and unit)."""
+    for m, item in zip(many, node.items):
+        rule_scalar(m, item, "an element of a list")
+    if len(node.items) > MAX_LIST_ITEMS:
+        raise TooComplexError(f"a list of more than {MAX_LIST_ITEMS:,} elements", node.span)
+    first = next(((i, a) for i, a in enumerate(args) if a is not None), None)
+    if first is None:
+        return None
+    k, x = first
+    for i, (a, item) in enumerate(zip(args, node.items)):
+        if a is None or i == k:
+            continue
+        if a.dim != x.dim:
+            exc = DimensionError(
+                f"element {i + 1} of the list is {_d(a)}, but element {k + 1} is {_d(x)}", item.span,
+                hint=f"{operand(item, 'this element')} is {_d(a)}; every element of a list has one dimension "
+                     "(units may differ: they are converted to the first element's)")
+            specialise(exc, x.dim, a.dim, operand(item, "this element"))
+            raise exc
+        if a.offset != x.offset:
+            raise OffsetTemperatureError(
+                f"element {i + 1} of the list is {'' if a.offset else 'not '}a temperature on the °C/°F scale, "
+                f"element {k + 1} is {'' if x.offset else 'not'}".rstrip(), item.span,
+                hint="write every element on one scale: all in °C (or °F), or all in K")
+    return x
+
+
+def make_list(values: Sequence[pint.Quantity], node: N.ListExpr) -> pint.Quantity:
+    """The rule, then one quantity over an array, in the first element's unit."""
+    rule_list_items([arg_of(v) for v in values], [is_list(v) for v in values], node)
+    unit = values[0].units
+    mags = np.fromiter((v.m_as(unit) if v.units != unit else v.magnitude for v in values), float, len(values))
+    return _Q(mags, unit)
+
+
+def rule_if_shape(x_many: bool, y_many: bool, node: N.Call) -> None:
+    """Both outcomes of ``if`` are lists, or neither (the shape must not depend on the values)."""
+    if x_many != y_many:
+        raise TypeMismatchError("one value of if() is a list, the other is not", node.span,
+                                hint="give both outcomes as lists, or both as single values")
+
+
+def rule_plugin_scalar(where: str, many: bool, node: N.Expr) -> None:
+    """A plugin parameter takes a list only if the plugin declares one (``kind="list"``)."""
+    if many:
+        raise PluginArgumentError(f"{where} takes one value, not a list", node.span,
+                                  hint="call the plugin once per value, or pick one: max(…), min(…)")
+
+
+# ------------------------------------------------------------ tables and lookup
+# A sheet's table (``nodes.TableDef``) becomes a ``TableInfo`` (its columns' dimensions: what the checker
+# needs) and, evaluated, a ``TableValue`` (the numbers). ``tab.k`` reads a column as a list; ``lookup``
+# interpolates linearly between the two rows that bracket the key (two-way: between four values), and
+# refuses a key outside the table unless ``clamp`` is written. Both walkers apply ``rule_lookup``.
+
+
+@dataclass(frozen=True)
+class TableInfo:
+    """A table's shape: the key names and every column's ``Arg`` (two-way: the values' ``Arg``)."""
+
+    name: str
+    columns: tuple[tuple[str, Arg], ...]  # one-way: every column, the key first; two-way: row key, column key
+    two_way: bool
+    value: Arg | None = None  # two-way: what the table holds
+
+    @property
+    def keys(self) -> tuple[str, ...]:
+        return tuple(c for c, _ in self.columns[:2 if self.two_way else 1])
+
+    def column(self, name: str) -> Arg | None:
+        return dict(self.columns).get(name)
+
+
+def _table_units(td: N.TableDef) -> list[pint.Unit]:
+    """Each column's unit (two-way: row key, column key, values), located at its cell if it is unknown."""
+    texts = list(td.units)
+    spans = list(td.cell_spans[1]) if len(td.cell_spans) > 1 else [td.span] * len(texts)
+    if td.two_way:
+        texts = [t.strip() for t in texts[0].split("\\")] + [texts[1]]
+        spans = [spans[0], spans[0], spans[1]]
+    out = []
+    for text, sp in zip(texts, spans):
+        try:
+            factors = U.parse_unit_text(text, sp)
+            out.append(U.build_unit(factors) if factors else _unit(""))
+        except CalcError as exc:
+            raise exc.with_span(sp)
+    return out
+
+
+def table_info(td: N.TableDef) -> TableInfo:
+    units = _table_units(td)
+    if td.two_way:
+        keys = [k.strip() for k in td.header[0].split("\\")]
+        return TableInfo(td.name, ((keys[0], _arg_of_unit(units[0])), (keys[1], _arg_of_unit(units[1]))), True,
+                         _arg_of_unit(units[2]))
+    return TableInfo(td.name, tuple((c, _arg_of_unit(u)) for c, u in zip(td.header, units)), False)
+
+
+@dataclass(frozen=True, eq=False)
+class TableValue:
+    """An evaluated table: its shape, each column's unit, and its numbers (rows × columns; two-way: the
+    grid, with the row keys and the column keys apart)."""
+
+    info: TableInfo
+    units: tuple
+    data: np.ndarray
+    col_keys: np.ndarray | None = None
+    node: N.TableDef | None = None
+
+    def column(self, name: str) -> pint.Quantity:
+        if self.info.two_way:
+            k = self.info.keys.index(name)
+            mags = self.data[:, 0] if k == 0 else self.col_keys
+            return _Q(np.array(mags, float), self.units[k])
+        k = [c for c, _ in self.info.columns].index(name)
+        return _Q(np.array(self.data[:, k], float), self.units[k])
+
+    @property
+    def n_rows(self) -> int:
+        return len(self.data)
+
+    def __eq__(self, other):
+        return (isinstance(other, TableValue) and self.info == other.info and self.units == other.units
+                and np.array_equal(self.data, other.data))
+
+    __hash__ = None
+
+    def __str__(self):
+        return f"table of {self.n_rows} rows"
+
+
+def make_table(td: N.TableDef) -> TableValue:
+    info = table_info(td)
+    units = tuple(_table_units(td))
+    data = np.array(td.values, float)
+    col_keys = np.array([float(h) for h in td.header[1:]]) if td.two_way else None
+    return TableValue(info, units, data, col_keys, td)
+
+
+def check_lookup_shape(node: N.Call) -> tuple[N.Expr, str | None, bool]:
+    """``lookup(tab.k, key=value, …[, clamp])``: (the table's name node, the column or None, clamp)."""
+    args = list(node.args)
+    clamp = False
+    if len(args) > 2:
+        raise ArityError(f"lookup() takes the column, the keys by name and optionally clamp; got {len(args)} "
+                         "arguments in order", node.span, hint="write lookup(tab.k, h=120 mm) or "
+                                                               "lookup(tab.k, h=120 mm, clamp)")
+    if len(args) == 2 and isinstance(args[1], N.Flag):
+        clamp = True
+        args = args[:1]
+    for a in args[1:]:
+        raise TypeMismatchError("lookup() takes the column, the keys by name, and optionally clamp", a.span,
+                                hint="write lookup(tab.k, h=120 mm) or lookup(tab.k, h=120 mm, clamp)")
+    if not args:
+        raise ArityError("lookup() needs a table's column: lookup(tab.k, h=120 mm)", node.span)
+    first = args[0]
+    if isinstance(first, N.FieldAccess) and isinstance(first.obj, N.Name):
+        table, column = first.obj, first.field_name
+    elif isinstance(first, N.Name):
+        table, column = first, None
+    else:
+        raise TypeMismatchError("lookup() reads a table of the sheet: lookup(tab.k, h=…), or "
+                                "lookup(tab, h=…, b=…) for a two-way table", first.span)
+    seen = set()
+    for kw in node.kwargs:
+        if kw.name in seen:
+            raise TypeMismatchError(f"'{kw.name}' is given twice", kw.span)
+        seen.add(kw.name)
+    return table, column, clamp
+
+
+def rule_lookup(info: TableInfo | None, column: str | None, first: N.Expr,
+                keys: Sequence[tuple[N.Keyword, Arg | None, bool]], node: N.Call) -> Arg | None:
+    """The keys named as the table names them, each of its key's dimension and a single value; the result
+    has the read column's dimension (two-way: the table's values')."""
+    if info is None:
+        return None
+    if info.two_way and column is not None:
+        raise TypeMismatchError(f"{info.name} is a two-way table: look it up whole, "
+                                f"lookup({info.name}, {info.keys[0]}=…, {info.keys[1]}=…)", first.span)
+    if not info.two_way:
+        if column is None:
+            names = [c for c, _ in info.columns[1:]]
+            raise TypeMismatchError(f"name the column of {info.name} to read: lookup({info.name}.{names[0]}, "
+                                    f"{info.keys[0]}=…)", first.span)
+        if info.column(column) is None:
+            names = [c for c, _ in info.columns]
+            raise UnknownFieldError(f"table {info.name} has no column '{column}'", first.span,
+                                    hint="columns: " + ", ".join(names))
+        if column == info.keys[0]:
+            raise TypeMismatchError(f"'{column}' is the key of table {info.name}; read another column", first.span)
+    given = {kw.name for kw, _, _ in keys}
+    for kw, a, many in keys:
+        want = info.column(kw.name) if kw.name in info.keys else None
+        if want is None:
+            raise TypeMismatchError(f"table {info.name} is looked up by {' and '.join(info.keys)}, not '{kw.name}'",
+                                    kw.span)
+        rule_scalar(many, kw.value, f"the key {kw.name} of a lookup")
+        if a is not None and a.dim != want.dim:
+            raise DimensionError(f"the key {kw.name} of table {info.name} is {_d(want)}, but the value given is "
+                                 f"{_d(a)}", kw.value.span, hint=f"{operand(kw.value)} is {_d(a)}")
+    missing = [k for k in info.keys if k not in given]
+    if missing:
+        raise ArityError(f"lookup in {info.name} needs {', '.join(k + '=…' for k in missing)}", node.span)
+    return info.value if info.two_way else info.column(column)
+
+
+class Bracket(NamedTuple):
+    """Where a key falls in a table: between rows ``i`` and ``i + 1``, at fraction ``t``; ``clamped`` if it
+    was outside and the end value is taken."""
+
+    i: int
+    t: float
+    clamped: bool
+
+
+def bracket(xs: np.ndarray, x: float, clamp: bool, key: str, info: TableInfo, shown, node: N.Expr) -> Bracket:
+    """The two rows around ``x`` (never extrapolating: outside the keys, an error unless ``clamp``)."""
+    lo, hi = float(xs[0]), float(xs[-1])
+    if not lo <= x <= hi:
+        if not clamp:
+            raise OutOfRangeError(
+                f"{key} = {shown(x)} is outside table {info.name}, which runs from {shown(lo)} to {shown(hi)}",
+                node.span, hint="a table is never extrapolated: extend it, or write clamp to take the end value "
+                                f"(lookup(…, {key}=…, clamp))")
+        return Bracket(0, 0.0, True) if x < lo else Bracket(len(xs) - 2, 1.0, True)
+    i = min(int(np.searchsorted(xs, x, side="right")) - 1, len(xs) - 2)
+    return Bracket(i, (x - float(xs[i])) / (float(xs[i + 1]) - float(xs[i])), False)
+
+
+def interpolate(y1: float, y2: float, t: float) -> float:
+    """y₁ + (y₂ − y₁)·t: the formula the package prints, with t = (x − x₁)/(x₂ − x₁)."""
+    return y1 + (y2 - y1) * t
+
+
+FUNCTIONS["lookup"] = Function(
+    "lookup", 1, 2, None, None, "lookup(tab.k, h=value[, clamp]): the column k at h, interpolated linearly between "
+    "the two rows around it; lookup(tab, h=…, b=…) in a two-way table", lazy=True)

@@ -13,6 +13,7 @@ from __future__ import annotations
 from collections.abc import Mapping
 from dataclasses import dataclass
 from functools import cached_property
+from typing import Any
 
 import pint
 
@@ -53,6 +54,8 @@ class T:
     record: PluginFunction | None = None  # the function that made this record
     record_type: str | None = None
     offset: bool = False
+    many: bool = False  # a list of quantities (one quantity over an array)
+    table: Any = None  # for kind 'table': the sheet's table (its columns and their dimensions)
 
     @cached_property
     def arg(self) -> B.Arg | None:
@@ -60,13 +63,13 @@ class T:
         return B.Arg(self.dim, self.offset) if self.kind == "q" else None
 
     @staticmethod
-    def of(arg: B.Arg | None) -> "T":
+    def of(arg: B.Arg | None, many: bool = False) -> "T":
         """The quantity type of a rule's result (one shared instance per result)."""
         if arg is None:
             return ANY
-        t = _OF.get(arg)
+        t = _OF.get((arg, many))
         if t is None:
-            t = _OF[arg] = T("q", arg.dim, offset=arg.offset)
+            t = _OF[(arg, many)] = T("q", arg.dim, offset=arg.offset, many=many)
         return t
 
     def word(self):
@@ -77,7 +80,8 @@ class T:
 
     def describe(self) -> str:
         if self.kind == "q":
-            return U.describe_dim(self.dim) + (" on an offset scale (°C/°F)" if self.offset else "")
+            return (("list of " if self.many else "") + U.describe_dim(self.dim)
+                    + (" on an offset scale (°C/°F)" if self.offset else ""))
         if self.kind == "record":
             return f"{self.record_type} record"
         return self.kind
@@ -114,7 +118,7 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
     """The static type an evaluated value has."""
     if isinstance(value, pint.Quantity):
         arg = B.arg_of(value)
-        return T("q", arg.dim, offset=arg.offset)
+        return T("q", arg.dim, offset=arg.offset, many=B.is_list(value))
     if isinstance(value, str):
         return TEXT
     if isinstance(value, Record):
@@ -127,6 +131,8 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
         return T("record", record=pf, record_type=value.type)
     if isinstance(value, tuple):
         return T("list", item=type_of_value(value[0], plugins) if value else ANY)
+    if isinstance(value, B.TableValue):
+        return T("table", table=value.info)
     return ANY
 
 
@@ -158,6 +164,9 @@ class Checker:
         for stmt in sheet.body:
             if isinstance(stmt, N.FunctionDef):
                 diags.extend(self._function_statement(stmt, res))
+                continue
+            if isinstance(stmt, N.TableDef):
+                diags.extend(self._table_statement(stmt, res))
                 continue
             if isinstance(stmt, N.Definition):
                 key = stmt.name
@@ -235,6 +244,36 @@ class Checker:
         self.functions[stmt.name] = stmt
         return list(self._pending)
 
+    def _table_statement(self, stmt: N.TableDef, res: Resolution) -> list[Diagnostic]:
+        """A table: its units row read (an unknown unit is an error at its cell)."""
+        if stmt.name in res.broken:
+            self.types.setdefault(stmt.name, ANY)
+            return []
+        try:
+            self.types[stmt.name] = T("table", table=B.table_info(stmt))
+        except CalcError as exc:
+            res.broken.add(stmt.name)
+            self.types[stmt.name] = ANY
+            return [exc.diagnostic(self.path)]
+        return []
+
+    def _infer_lookup(self, node: N.Call) -> T:
+        """``lookup(tab.k, h=…[, clamp])``: the table's own rule (``builtins.rule_lookup``)."""
+        table, column, _ = B.check_lookup_shape(node)
+        t = self.infer(table)
+        if t.kind != "table":
+            raise TypeMismatchError(f"lookup() reads a table of the sheet; {_operand(table)} is a {t.describe()}",
+                                    table.span)
+        keys = []
+        for kw in node.kwargs:
+            kt = self._quantity(self.infer(kw.value), kw.value)
+            keys.append((kw, kt.arg, kt.many))
+        return T.of(B.rule_lookup(t.table, column, node.args[0], keys, node))
+
+    def _infer_Flag(self, node: N.Flag) -> T:
+        raise TypeMismatchError(f"'{node.name}' stands alone only at the end of a lookup: lookup(tab.k, h=…, "
+                                f"{node.name})", node.span)
+
     def _infer_user_call(self, fd: N.FunctionDef, node: N.Call) -> T:
         """A call of a sheet function: each argument against its parameter, then the body with the
         arguments' types (an error inside the body is reported at this call)."""
@@ -244,7 +283,7 @@ class Checker:
         for p, a in zip(fd.params, node.args):
             t = self.infer(a)
             if p.unit is not None:
-                t = T.of(B.rule_user_param(fd, p, self._quantity(t, a).arg, a))
+                t = T.of(B.rule_user_param(fd, p, self._quantity(t, a).arg, a), many=t.many)
             elif t.kind == "any":
                 raise Broken()
             local[p.name] = t
@@ -256,7 +295,7 @@ class Checker:
             raise B.at_call(exc, fd, node)
         finally:
             self.types = saved
-        return T.of(B.rule_user_result(fd, body.arg, node))
+        return T.of(B.rule_user_result(fd, body.arg, node), many=body.many)
 
     def _with_shadow_note(self, exc: CalcError) -> CalcError:
         """An error in a statement with ``2 L`` (L a variable) most likely comes from that literal."""
@@ -291,7 +330,7 @@ class Checker:
             specialise(exc, want.dim, t.dim, _operand(stmt.expr, "the expression"))
             return exc
 
-        return T.of(B.rule_declared(t.arg, want, stmt, mismatch))
+        return T.of(B.rule_declared(t.arg, want, stmt, mismatch), many=t.many)
 
     def check(self, stmt: N.Check) -> None:
         a = self._quantity(self.infer(stmt.left), stmt.left)
@@ -359,20 +398,31 @@ class Checker:
         return self.infer(node.inner)
 
     def _infer_Neg(self, node) -> T:
-        return T.of(B.rule_neg(self._quantity(self.infer(node.operand), node.operand).arg, node))
+        t = self._quantity(self.infer(node.operand), node.operand)
+        return T.of(B.rule_neg(t.arg, node), many=t.many)
 
     def _infer_BinOp(self, node: N.BinOp) -> T:
         a = self._quantity(self.infer(node.left), node.left)
         b = self._quantity(self.infer(node.right), node.right)
         if node.op == "^":  # the written power matters only for a base with units
             p = B.written_power(node.right) if a.kind == "q" and a.dim != U.DIMENSIONLESS else None
-            return T.of(B.rule_pow(a.arg, b.arg, node, p))
-        return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node))
+            t = T.of(B.rule_pow(a.arg, b.arg, node, p), many=a.many)
+            B.rule_scalar(b.many, node.right, "an exponent")
+            return t
+        return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node), many=a.many or b.many)
 
     def _infer_FieldAccess(self, node: N.FieldAccess) -> T:
         obj = self.infer(node.obj)
         if obj.kind == "any":
             return ANY
+        if obj.kind == "table":  # a column of a table: a list
+            arg = obj.table.column(node.field_name)
+            if arg is None:
+                names = [c for c, _ in obj.table.columns]
+                raise UnknownFieldError(f"table {obj.table.name} has no column '{node.field_name}'",
+                                        node.field_span or node.span,
+                                        hint=did_you_mean(node.field_name, names) or "columns: " + ", ".join(names))
+            return T.of(arg, many=True)
         if obj.kind != "record":
             raise TypeMismatchError(f"a {obj.describe()} has no fields", node.obj.span)
         if obj.record is None:
@@ -415,6 +465,8 @@ class Checker:
 
     def _infer_ListExpr(self, node) -> T:
         items = [self.infer(i) for i in node.items]
+        if any(t.kind == "q" for t in items) and all(t.kind in ("q", "any") for t in items):
+            return T.of(B.rule_list_items([t.arg for t in items], [t.many for t in items], node), many=True)
         return T("list", item=items[0] if items else ANY)
 
     def _infer_TupleExpr(self, node) -> T:
@@ -432,9 +484,12 @@ class Checker:
         a = self._quantity(self.infer(cond.left), cond.left)
         b = self._quantity(self.infer(cond.right), cond.right)
         B.rule_compare(a.arg, b.arg, cond, cond.left, cond.right, where="the condition")
+        B.rule_scalar(a.many, cond.left, "a side of the condition of if()")
+        B.rule_scalar(b.many, cond.right, "a side of the condition of if()")
         x, y = self.infer(then), self.infer(otherwise)
         if B.rule_if(x.word(), y.word(), node) is None:
             return ANY
+        B.rule_if_shape(x.many, y.many, node)
         return x if x.kind != "any" else y
 
     def _infer_Call(self, node: N.Call) -> T:
@@ -446,11 +501,13 @@ class Checker:
         if fn is None:  # reported by the resolver; here only for expressions checked on their own
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))
+        if fn.name == "lookup":
+            return self._infer_lookup(node)
         B.check_call_shape(fn, node)
         if fn.lazy:
             return self._infer_if(node)
-        args = [self._quantity(self.infer(a), a).arg for a in node.args]
-        return T.of(fn.rule(args, node.args, node))
+        types = [self._quantity(self.infer(a), a) for a in node.args]
+        return T.of(fn.rule([t.arg for t in types], node.args, node), many=B.shape_of_call(fn, [t.many for t in types]))
 
     def _infer_PluginCall(self, node: N.PluginCall) -> T:
         pf = self.plugins.function(node.namespace, node.func)
@@ -493,6 +550,7 @@ class Checker:
         if kind in ("quantity", "number"):
             want = p.wanted
             self._need(where, want, t, kw.value)
+            B.rule_plugin_scalar(where, t.many, kw.value)
             self._pending.extend(lint.argument_findings(p.name, kw.value, self, self.path))
         elif kind in ("text", "flag"):
             if t.kind != "text":

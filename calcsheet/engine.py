@@ -289,7 +289,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         if isinstance(stmt, N.Prose):
             result.items.append(TR.Prose(stmt.text))
             continue
-        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef)) else check_key(stmt)
+        key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) else check_key(stmt)
         if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
             res.broken.add(key)
             continue
@@ -311,6 +311,8 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
                 record.text = _check_text(stmt, lines)
                 result.checks.append(record)
             result.items.append(record)
+            if getattr(record, "table", None) is not None:  # a check over a list, a sheet's table: shown once
+                result.items.append(record.table)
         except CalcError as exc:
             res.broken.add(key)
             result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))

@@ -184,6 +184,11 @@ class NumericError(CalcError):
     code = "not-finite"
 
 
+class OutOfRangeError(CalcError):
+    """A table lookup outside the table's keys (never extrapolated; ``clamp`` takes the end value)."""
+    code = "out-of-range"
+
+
 class UnknownFunctionError(CalcError):
     """A function name is not known."""
     code = "unknown-function"

@@ -42,7 +42,7 @@ from .errors import (
 from .names import did_you_mean, dotted, strip_sign
 from .plugin import PluginRegistry, Record, default_registry
 from .plugin_host import PluginHost, kind_of, show
-from .trace import CheckResult, FunctionStep, Step
+from .trace import CheckResult, FunctionStep, Note, SheetTable, Step, Working
 
 
 @dataclasses.dataclass(frozen=True)
@@ -61,6 +61,7 @@ class Evaluator:
 
     def __init__(self, policy: DisplayPolicy | None = None, plugins: PluginRegistry | None = None,
                  front_matter: dict | None = None):
+        self.lookups: list = []  # the working of the current statement's table lookups
         self.policy = policy or DisplayPolicy()
         # the sheet's front matter, which plugins read as Work.settings["front_matter"] (e.g. design_method)
         self.front_matter = dict(front_matter or {})
@@ -171,6 +172,16 @@ class Evaluator:
 
     def _eval_FieldAccess(self, node: N.FieldAccess, env, used):
         obj = self.eval(node.obj, env, None)
+        if isinstance(obj, B.TableValue):  # a column of a table: a list
+            if obj.info.column(node.field_name) is None:
+                names = [c for c, _ in obj.info.columns]
+                raise UnknownFieldError(f"table {obj.info.name} has no column '{node.field_name}'",
+                                        node.field_span or node.span,
+                                        hint=did_you_mean(node.field_name, names) or "columns: " + ", ".join(names))
+            value = obj.column(node.field_name)
+            if used is not None:
+                used[dotted(node) or "value"] = value
+            return value
         if not isinstance(obj, Record):
             raise TypeMismatchError(f"'{dotted(node.obj) or 'value'}' is a {kind_of(obj)}, it has no fields",
                                     node.obj.span)
@@ -183,7 +194,12 @@ class Evaluator:
         return value
 
     def _eval_ListExpr(self, node, env, used):
-        return tuple(self.eval(i, env, used) for i in node.items)
+        values = tuple(self.eval(i, env, used) for i in node.items)
+        if values and all(isinstance(v, pint.Quantity) for v in values):  # a list of quantities: one array
+            for v, item in zip(values, node.items):
+                self._finite(v, item.span, "the element")
+            return B.make_list(values, node)
+        return values
 
     def _eval_TupleExpr(self, node, env, used):
         return tuple(self.eval(i, env, used) for i in node.items)
@@ -195,6 +211,8 @@ class Evaluator:
         if fn is None:
             raise UnknownFunctionError(f"unknown function '{node.func}'", node.func_span or node.span,
                                        hint=did_you_mean(node.func, B.FUNCTIONS))
+        if fn.name == "lookup":
+            return self._eval_lookup(node, env, used)
         B.check_call_shape(fn, node)
         if fn.lazy:
             return self._eval_if(node, env, used)
@@ -279,6 +297,8 @@ class Evaluator:
         a = self._need_quantity(self.eval(cond.left, env, used), cond.left.span)
         b = self._need_quantity(self.eval(cond.right, env, used), cond.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), cond, cond.left, cond.right, where="the condition")
+        B.rule_scalar(B.is_list(a), cond.left, "a side of the condition of if()")
+        B.rule_scalar(B.is_list(b), cond.right, "a side of the condition of if()")
         self._finite(a, cond.left.span, "the left side of the condition")
         self._finite(b, cond.right.span, "the right side of the condition")
         am, bm = float(a.magnitude), float(b.to(a.units).magnitude)
@@ -290,17 +310,43 @@ class Evaluator:
                     used.setdefault(n.id, env[n.id])
         # the branch not taken is not evaluated (it may well be the one that cannot be: sqrt of a negative),
         # but its dimension must still be the taken one's: the checker's inference gives it from the values
-        taken, other = _word(value), self._static_word(skipped, env)
+        other_type = self._static_type(skipped, env)
+        taken, other = _word(value), other_type.word()
         B.rule_if(taken, other, node) if chosen is then else B.rule_if(other, taken, node)
+        if other is not None:
+            B.rule_if_shape(B.is_list(value), other_type.many, node)
         return value
 
-    def _static_word(self, node: N.Expr, env: dict):
+    def _static_type(self, node: N.Expr, env: dict):
         from .checker import Checker, ValueTypes
 
         if self._branch_checker is None:
             self._branch_checker = Checker(self.plugins)
         self._branch_checker.types = ValueTypes(env, self.plugins)
-        return self._branch_checker.infer(node).word()
+        return self._branch_checker.infer(node)
+
+    def _eval_Flag(self, node, env, used):
+        raise TypeMismatchError(f"'{node.name}' stands alone only at the end of a lookup: lookup(tab.k, h=…, "
+                                f"{node.name})", node.span)
+
+    def _eval_lookup(self, node: N.Call, env, used):
+        """``lookup``: the rule (``builtins.rule_lookup``), then linear interpolation between the rows around
+        the key; the bracketing rows and the formula with its substitution are kept for the package."""
+        table_node, column, clamp = B.check_lookup_shape(node)
+        tv = self.eval(table_node, env, None)
+        if not isinstance(tv, B.TableValue):
+            raise TypeMismatchError(f"lookup() reads a table of the sheet; {table_node.id} is a {kind_of(tv)}",
+                                    table_node.span)
+        given, keys = {}, []
+        for kw in node.kwargs:
+            v = self._finite(self._need_quantity(self.eval(kw.value, env, used), kw.value.span), kw.value.span,
+                             "the key")
+            given[kw.name] = (v, kw)
+            keys.append((kw, B.arg_of(v), B.is_list(v)))
+        B.rule_lookup(tv.info, column, node.args[0], keys, node)
+        value, working = lookup_working(tv, column, given, clamp)  # in the read column's unit
+        self.lookups.append(working)
+        return self._finite(value, node.span)
 
     def _eval_Compare(self, node, env, used):
         raise TypeMismatchError("a comparison belongs in a check, or as the condition of if(…)", node.span)
@@ -316,8 +362,18 @@ class Evaluator:
         for kw in node.kwargs:
             if kw.name in given:
                 raise PluginArgumentError(f"'{kw.name}' is given twice", kw.span)
-            given[kw.name] = self.eval(kw.value, env, used)
+            given[kw.name] = self._plugin_value(pf, kw, self.eval(kw.value, env, used))
         return self.host.call(pf, node, given, spans)
+
+    @staticmethod
+    def _plugin_value(pf, kw: N.Keyword, value):
+        """A list of quantities goes to a plugin only where it declares a list (as a tuple of single values)."""
+        if not B.is_list(value):
+            return value
+        p = pf.param(kw.name)
+        if p is None or p.kind_ not in ("quantity", "number"):
+            return tuple(value[i] for i in range(len(value.magnitude)))
+        B.rule_plugin_scalar(f"{pf.qualname}: '{p.name}'", True, kw.value)
 
     # ---------------------------------------------------------------- statements
     def evaluate_definition(self, stmt: N.Definition, env: dict, display: dict) -> Step:
@@ -361,6 +417,8 @@ class Evaluator:
         a = self._need_quantity(self.eval(stmt.left, env, used), stmt.left.span)
         b = self._need_quantity(self.eval(stmt.right, env, used), stmt.right.span)
         B.rule_compare(B.arg_of(a), B.arg_of(b), stmt, stmt.left, stmt.right)
+        if B.is_list(a) or B.is_list(b):
+            return self._evaluate_list_check(stmt, a, b, used, unit_of)
         # a check is judged only between finite sides, with a finite ratio when one is formed
         self._finite(a, stmt.left.span, "the left side of the check")
         self._finite(b, stmt.right.span, "the right side of the check")
@@ -385,8 +443,90 @@ class Evaluator:
                            ok=ok, ratio=ratio, text="", used={k: (v, unit_of(k, v)) for k, v in used.items()},
                            description=stmt.description, span=stmt.span)
 
+    def _evaluate_list_check(self, stmt: N.Check, a, b, used: dict, unit_of) -> CheckResult:
+        """A check over a list passes only if every element passes; the element with the greatest
+        utilisation governs (an element that fails governs before any that passes). The check's demand,
+        capacity and substitution are the governing element's; ``table`` lists every element."""
+        import numpy as np
+
+        self._finite(a, stmt.left.span, "the left side of the check")
+        self._finite(b, stmt.right.span, "the right side of the check")
+        am = np.atleast_1d(np.asarray(a.magnitude, float))
+        bm = np.atleast_1d(np.asarray(b.to(a.units).magnitude, float))
+        B.rule_lengths([len(am) if B.is_list(a) else None, len(bm) if B.is_list(b) else None],
+                       [stmt.left, stmt.right], stmt)
+        if am.shape != bm.shape:
+            am, bm = np.broadcast_to(am, (max(len(am), len(bm)),)), np.broadcast_to(bm, (max(len(am), len(bm)),))
+        oks = np.asarray(B.COMPARISONS[stmt.op](am, bm), bool)
+        dm, cm = (am, bm) if stmt.op in ("<=", "<") else (bm, am)
+        # no utilisation where the two are of opposite sign or both negative (as for one value)
+        if dm.min() < 0 or cm.min() < 0:
+            bad = ((dm < 0) & (cm != 0)) | ((cm < 0) & (dm != 0))
+        else:
+            bad = None
+        formed = (cm > 0) & (dm >= 0)
+        with np.errstate(divide="ignore", invalid="ignore", over="ignore"):
+            ratios = dm / cm if formed.all() else np.where(formed, dm / np.where(formed, cm, 1.0), np.nan)
+        if np.isinf(ratios).any():
+            raise NumericError("the check's ratio (demand / capacity) overflows", stmt.span,
+                               hint="the capacity is vanishingly small next to the demand")
+        # which element governs: one with no utilisation at all, else the failing one with the highest ratio,
+        # else the highest ratio (no ratio counts below any)
+        score = np.where(np.isnan(ratios), -1.0, ratios) if not formed.all() else ratios
+        ng = ~oks
+        if ng.any():
+            score = score + np.where(ng, score.max() + 2.0, 0.0)
+        if bad is not None and bad.any():
+            score = np.where(bad, np.inf, score)
+        g = int(np.argmax(score))
+        demand_q, capacity_q = (a, b) if stmt.op in ("<=", "<") else (b, a)
+
+        def at(q, i):
+            return q[i] if B.is_list(q) else q
+
+        if bad is not None and bad[g]:
+            raise _sign_error(stmt, at(demand_q, g), at(capacity_q, g).to(at(demand_q, g).units),
+                              element=g + 1)
+        unit_of = unit_of or (lambda k, v: self.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
+        key = dotted(stmt.left if stmt.op in ("<=", "<") else stmt.right) or "value"
+        shown = (unit_of(key, demand_q) if key != "value" else None) or self.policy.unit_for(demand_q)
+        demand, capacity = at(demand_q, g), at(capacity_q, g)
+        if shown is not None:
+            demand, capacity = demand.to(shown), capacity.to(shown)
+        ratio = None if np.isnan(ratios[g]) else float(ratios[g])
+        # the substitution shows the governing element's values; the table shows them all
+        used_g = {k: (at(v, g), unit_of(k, v)) for k, v in used.items()}
+        lists = {k: v for k, v in used.items() if B.is_list(v) and k != key}
+        columns = ["element", *lists, "demand", "capacity", "ratio", "result"]
+        units = [None, *(unit_of(k, v) for k, v in lists.items()), shown, shown, None, None]
+        unit = shown if shown is not None else demand_q.units
+        # magnitudes once, as arrays: the rows are made without arithmetic on quantities
+        cols = [np.broadcast_to(np.asarray(v.m_as(unit_of(k, v) or v.units), float), dm.shape)
+                for k, v in lists.items()]
+        col_units = [unit_of(k, v) or v.units for k, v in lists.items()]
+        d_mag = np.broadcast_to(np.asarray(demand_q.m_as(unit), float), dm.shape)
+        c_mag = np.broadcast_to(np.asarray(capacity_q.m_as(unit), float), dm.shape)
+        reg = U.registry()
+        shown_rows = range(len(dm))
+        note = None
+        if len(dm) > MAX_CHECK_ROWS:  # a long list: the elements with the highest utilisation, in order
+            top = np.argpartition(-score, MAX_CHECK_ROWS)[:MAX_CHECK_ROWS]
+            shown_rows = sorted(int(i) for i in top)
+            note = (f"{len(dm):,} elements; the {MAX_CHECK_ROWS} with the highest utilisation are shown "
+                    f"({int(np.sum(ng)):,} NG in all)")
+        rows = []
+        for i in shown_rows:
+            rows.append([str(i + 1), *(reg.Quantity(float(c[i]), u) for c, u in zip(cols, col_units)),
+                         reg.Quantity(float(d_mag[i]), unit), reg.Quantity(float(c_mag[i]), unit),
+                         "–" if np.isnan(ratios[i]) else f"{ratios[i]:.2f}", "OK" if oks[i] else "NG"])
+        table = SheetTable(f"each element of the check (element {g + 1} governs)", columns, rows, units, note=note)
+        return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
+                           ok=bool(np.all(oks)), ratio=ratio, text="", used=used_g, description=stmt.description,
+                           span=stmt.span, governing=g + 1, after=[table])
+
 
 _DISPATCH: dict = {}
+MAX_CHECK_ROWS = 50  # a check over a longer list shows this many elements (those with the highest utilisation)
 
 
 def _to(q: pint.Quantity, unit) -> pint.Quantity:
@@ -394,11 +534,12 @@ def _to(q: pint.Quantity, unit) -> pint.Quantity:
     return q if q._units == getattr(unit, "_units", None) else q.to(unit)
 
 
-def _sign_error(stmt: N.Check, demand, capacity) -> CheckSignError:
+def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:
     side = stmt.left if stmt.op in ("<=", "<") else stmt.right
     name = dotted(side) or "the demand"
     return CheckSignError(
-        f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
+        ("" if element is None else f"element {element}: ")
+        + f"check: the demand {show(demand)} and the capacity {show(capacity)} are of opposite sign or both "
         "negative, so the check has no utilisation and cannot pass", stmt.span,
         hint=f"compare magnitudes with check abs({name}) {stmt.op} ..., or write a compression check "
              f"with the compressive value positive (check -{name} {stmt.op} ...)")
@@ -419,8 +560,16 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
     bound in ``env`` and ``display``. A check's demand is shown in ``unit_of(key, value)``.
     """
     ev.user_calls = 0  # the budget of sheet-function calls is per statement
+    ev.lookups = []  # the working of each table lookup in the statement, shown after it
+    if isinstance(stmt, N.TableDef):
+        tv = B.make_table(stmt)
+        step = Step(name=stmt.name, expr=None, value=tv, description=stmt.description, span=stmt.span,
+                    anchor="v-" + stmt.name, after=[table_record(tv)])
+        env[stmt.name] = tv
+        return step
     if isinstance(stmt, N.Check):
         check = ev.evaluate_check(stmt, env, unit_of)
+        check.after = [*ev.lookups, *check.after]
         if _calls_sheet_function(stmt.left, env, ev) or _calls_sheet_function(stmt.right, env, ev):
             check.shown_left, check.shown_right = inline_calls(stmt.left, env), inline_calls(stmt.right, env)
         return check
@@ -448,6 +597,7 @@ def evaluate_statement(ev: Evaluator, stmt: N.Statement, env: dict, display: dic
         step = ev.evaluate_definition(stmt, env, display)
     step.is_input = stmt.name in inputs
     step.anchor = "v-" + stmt.name
+    step.after = list(ev.lookups)
     if _calls_sheet_function(step.expr, env, ev):
         step.shown_expr = inline_calls(step.expr, env)
     env[stmt.name] = step.value
@@ -491,6 +641,125 @@ def inline_calls(expr: N.Expr, env) -> N.Expr:
 def literal_unit(expr: N.Expr):
     """An input written as a single literal keeps the unit it was written in."""
     expr = strip_sign(expr)
+    if isinstance(expr, N.ListExpr) and expr.items:  # a list of literals keeps its first element's unit
+        expr = strip_sign(expr.items[0])
     if isinstance(expr, N.Number) and expr.unit:
         return U.build_unit(expr.unit)
     return None
+
+
+# ---------------------------------------------------------------- tables
+
+
+def table_record(tv: B.TableValue, rows=None, title: str | None = None) -> SheetTable:
+    """A table (or some of its rows) as the package prints it."""
+    reg = U.registry()
+    rows = range(tv.n_rows) if rows is None else rows
+    if tv.info.two_way:
+        rk, ck = tv.info.keys
+        cols = [f"{rk} \\ {ck}", *(_num(k) + _unit_suffix(tv.units[1]) for k in tv.col_keys)]
+        units = [tv.units[0], *([tv.units[2]] * len(tv.col_keys))]
+        body = [[reg.Quantity(float(tv.data[i, 0]), tv.units[0]),
+                 *(reg.Quantity(float(x), tv.units[2]) for x in tv.data[i, 1:])] for i in rows]
+    else:
+        cols = [c for c, _ in tv.info.columns]
+        units = list(tv.units)
+        body = [[reg.Quantity(float(x), u) for x, u in zip(tv.data[i], tv.units)] for i in rows]
+    where = f" (read from {tv.node.source})" if tv.node is not None and tv.node.source else ""
+    return SheetTable(title or f"table {tv.info.name}{where}", cols, body, units, anchor="t-" + tv.info.name)
+
+
+def _fmt(v) -> str:
+    """A key or value in a lookup's working: '120 mm', '0.925'."""
+    return f"{float(v.magnitude):.4g}{_unit_suffix(v.units)}"
+
+
+def _num(x: float) -> str:
+    return f"{x:g}"
+
+
+def _unit_suffix(unit) -> str:
+    text = str(unit)
+    return "" if text in ("", "dimensionless") else " " + f"{unit:~}"
+
+
+def _interp_step(name: str, key: str, y1, y2, x, x1, x2, value, unit, key_unit) -> Step:
+    """``y = y_1 + (y_2 − y_1)·(x − x_1)/(x_2 − x_1)`` with its values: the line a checker recomputes."""
+    n = lambda s: N.Name(id=s)  # noqa: E731
+    formula = N.Add(n(f"{name}_1"), N.Div(
+        N.Mul(N.Paren(N.Sub(n(f"{name}_2"), n(f"{name}_1"))), N.Paren(N.Sub(n(key), n(f"{key}_1")))),
+        N.Paren(N.Sub(n(f"{key}_2"), n(f"{key}_1")))))
+    used = {f"{name}_1": (y1, unit), f"{name}_2": (y2, unit), key: (x, key_unit), f"{key}_1": (x1, key_unit),
+            f"{key}_2": (x2, key_unit)}
+    return Step(name=name, expr=formula, value=value, display_unit=unit, used=used)
+
+
+def lookup_working(tv: B.TableValue, column: str | None, given: dict, clamp: bool):
+    """The value at the keys, and its working: the rows around the key and the interpolation formula with
+    its substitution (two-way: along the rows at both bracketing columns, then between them)."""
+    reg = U.registry()
+    info = tv.info
+
+    def q(m, unit):
+        return reg.Quantity(float(m), unit)
+
+    def shown_in(unit):
+        return lambda m: _fmt(q(m, unit))
+
+    rk = info.keys[0]
+    xq, kw = given[rk]
+    x = float(xq.m_as(tv.units[0]))
+    xs = tv.data[:, 0]
+    b = B.bracket(xs, x, clamp, rk, info, shown_in(tv.units[0]), kw.value)
+    items: list = []
+    if not info.two_way:
+        k = [c for c, _ in info.columns].index(column)
+        ys, unit = tv.data[:, k], tv.units[k]
+        y = B.interpolate(float(ys[b.i]), float(ys[b.i + 1]), b.t)
+        items.append(table_record(tv, [b.i, b.i + 1], f"rows of {info.name} around {rk} = {_fmt(xq)}"))
+        if b.clamped:
+            items.append(Note(f"{rk} = {_fmt(xq)} is outside the table ({shown_in(tv.units[0])(xs[0])} to "
+                              f"{shown_in(tv.units[0])(xs[-1])}): clamp takes the end value, {_fmt(q(y, unit))}",
+                              kind="warning"))
+        else:
+            items.append(_interp_step(column, rk, q(ys[b.i], unit), q(ys[b.i + 1], unit), q(x, tv.units[0]),
+                                      q(xs[b.i], tv.units[0]), q(xs[b.i + 1], tv.units[0]), q(y, unit), unit,
+                                      tv.units[0]))
+        return q(y, unit), Working(f"lookup of {column} in {info.name}", items)
+    ck = info.keys[1]
+    zq, kw2 = given[ck]
+    z = float(zq.m_as(tv.units[1]))
+    c = B.bracket(tv.col_keys, z, clamp, ck, info, shown_in(tv.units[1]), kw2.value)
+    grid, unit = tv.data[:, 1:], tv.units[2]
+    name = info.name
+    ya = B.interpolate(float(grid[b.i, c.i]), float(grid[b.i + 1, c.i]), b.t)
+    yb = B.interpolate(float(grid[b.i, c.i + 1]), float(grid[b.i + 1, c.i + 1]), b.t)
+    y = B.interpolate(ya, yb, c.t)
+    corner = SheetTable(f"values of {name} around {rk} = {_fmt(xq)}, {ck} = {_fmt(zq)}",
+                        [f"{rk} \\ {ck}", _num(tv.col_keys[c.i]) + _unit_suffix(tv.units[1]),
+                         _num(tv.col_keys[c.i + 1]) + _unit_suffix(tv.units[1])],
+                        [[q(xs[r], tv.units[0]), q(grid[r, c.i], unit), q(grid[r, c.i + 1], unit)]
+                         for r in (b.i, b.i + 1)], [tv.units[0], unit, unit])
+    items.append(corner)
+    if b.clamped or c.clamped:
+        items.append(Note(f"the keys fall outside the table: clamp takes the end values ({rk} = {_fmt(xq)}, "
+                          f"{ck} = {_fmt(zq)})", kind="warning"))
+    xq1, xq2 = q(xs[b.i], tv.units[0]), q(xs[b.i + 1], tv.units[0])
+    xv = q(x, tv.units[0]) if not b.clamped else (xq1 if b.t == 0 else xq2)
+    for j, (label, yy) in enumerate(((f"{name}_a", ya), (f"{name}_b", yb))):
+        step = _interp_step(label, rk, q(grid[b.i, c.i + j], unit), q(grid[b.i + 1, c.i + j], unit), xv, xq1, xq2,
+                            q(yy, unit), unit, tv.units[0])
+        step.description = f"along {rk}, at {ck} = {_num(tv.col_keys[c.i + j])}{_unit_suffix(tv.units[1])}"
+        items.append(step)
+    zq1, zq2 = q(tv.col_keys[c.i], tv.units[1]), q(tv.col_keys[c.i + 1], tv.units[1])
+    zv = q(z, tv.units[1]) if not c.clamped else (zq1 if c.t == 0 else zq2)
+    last = _interp_step(name, ck, q(ya, unit), q(yb, unit), zv, zq1, zq2, q(y, unit), unit, tv.units[1])
+    last.expr = N.Add(N.Name(id=f"{name}_a"), N.Div(
+        N.Mul(N.Paren(N.Sub(N.Name(id=f"{name}_b"), N.Name(id=f"{name}_a"))),
+              N.Paren(N.Sub(N.Name(id=ck), N.Name(id=f"{ck}_1")))),
+        N.Paren(N.Sub(N.Name(id=f"{ck}_2"), N.Name(id=f"{ck}_1")))))
+    last.used = {f"{name}_a": (q(ya, unit), unit), f"{name}_b": (q(yb, unit), unit), ck: (zv, tv.units[1]),
+                 f"{ck}_1": (zq1, tv.units[1]), f"{ck}_2": (zq2, tv.units[1])}
+    last.description = f"between the two, along {ck}"
+    items.append(last)
+    return q(y, unit), Working(f"lookup in {name}", items)

@@ -169,6 +169,14 @@ class Paren(Expr):
     _children: tuple[str, ...] = field(default=("inner",), init=False, repr=False, compare=False)
 
 
+@dataclass(frozen=True)
+class Flag(Expr):
+    """A word standing alone among a call's arguments: ``clamp`` in ``lookup(t.k, h=120 mm, clamp)``."""
+
+    name: str
+    span: Span | None = field(default=None, compare=False)
+
+
 # ------------------------------------------------------------ statements
 
 
@@ -226,6 +234,32 @@ class FunctionDef(Statement):
     @property
     def param_names(self) -> tuple[str, ...]:
         return tuple(p.name for p in self.params)
+
+
+@dataclass(frozen=True)
+class TableDef(Statement):
+    """A table bound to a name: written in the sheet as pipe rows, or read with ``name = table "file.csv"``.
+
+    ``header`` names the columns (a two-way table: ``h \\ b`` then the column keys), ``units`` is the units
+    row, ``rows`` the data, all as written; ``values`` the data as numbers. ``source`` is the file's name
+    for a table read from a file; ``cell_spans`` locates each row's cells (header, units, then the rows).
+    """
+
+    name: str
+    header: tuple[str, ...]
+    units: tuple[str, ...]
+    rows: tuple[tuple[str, ...], ...]
+    values: tuple[tuple[float, ...], ...]
+    source: str | None = None
+    description: str | None = None
+    span: Span | None = field(default=None, compare=False)
+    name_span: Span | None = field(default=None, compare=False)
+    comment: str | None = None
+    cell_spans: tuple[tuple[Span, ...], ...] = field(default=(), compare=False, repr=False)
+
+    @property
+    def two_way(self) -> bool:
+        return "\\" in self.header[0]
 
 
 @dataclass(frozen=True)

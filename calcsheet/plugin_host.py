@@ -52,7 +52,11 @@ def show(q) -> str:
     if isinstance(q, pint.Quantity):
         from .display import plain_number, unit_text
 
-        return f"{plain_number(float(q.magnitude), 4)} {unit_text(q.units)}".strip()
+        mag = q.magnitude
+        if hasattr(mag, "__len__"):  # a list of quantities
+            more = ", …" if len(mag) > 5 else ""
+            return f"[{', '.join(plain_number(float(m), 4) for m in mag[:5])}{more}] {unit_text(q.units)}".strip()
+        return f"{plain_number(float(mag), 4)} {unit_text(q.units)}".strip()
     return kind_of(q)
 
 

@@ -86,6 +86,7 @@ LIMITS = {
     "SHEET_BYTES": (2_000_000, "size in bytes of a sheet or an included sheet"),
     "SET_FILE_BYTES": (1_000_000, "size in bytes of a --set-file table"),
     "SCHEDULE_BYTES": (20_000_000, "size in bytes of a --schedule table (CSV or TOML)"),
+    "TABLE_BYTES": (1_000_000, "size in bytes of a CSV file a sheet reads with table \"file.csv\""),
     "JSON_BYTES": (50_000_000, "size in bytes of a saved JSON result read by diff or --since"),
     "STATEMENTS": (20_000, "number of statements, headings and prose blocks in one sheet file"),
     "PROBLEMS": (1_000, "number of syntax problems reported before a sheet is given up on"),

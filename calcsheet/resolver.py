@@ -87,7 +87,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     all_defs: dict[str, int] = {}
     all_functions: set[str] = set()
     for stmt in sheet.body:
-        if isinstance(stmt, (N.Definition, N.FunctionDef)) and stmt.name not in all_defs:
+        if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) and stmt.name not in all_defs:
             all_defs[stmt.name] = stmt.span
             if isinstance(stmt, N.FunctionDef):
                 all_functions.add(stmt.name)
@@ -98,6 +98,9 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
             exprs = [stmt.expr]
             if isinstance(stmt, N.FunctionDef):
                 params = stmt.param_names
+        elif isinstance(stmt, N.TableDef):
+            key = stmt.name
+            exprs = []
         elif isinstance(stmt, N.Check):
             key = check_key(stmt)
             exprs = [stmt.left, stmt.right]
@@ -106,7 +109,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         errors: list[CalcError] = []
         if isinstance(stmt, N.FunctionDef):
             errors.extend(_param_errors(stmt, plugins))
-        if isinstance(stmt, (N.Definition, N.FunctionDef)):
+        if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)):
             if stmt.name in res.defined_at and (stmt.name in res.functions) != isinstance(stmt, N.FunctionDef):
                 was = "a function" if stmt.name in res.functions else "a value"
                 errors.append(RedefinitionError(
@@ -148,10 +151,10 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                 res.functions[stmt.name] = stmt
             res.defined_at.setdefault(stmt.name, stmt.span.line)
             res.def_spans.setdefault(stmt.name, stmt.span)
-        if isinstance(stmt, N.Definition):
+        if isinstance(stmt, (N.Definition, N.TableDef)):
             res.defined_at.setdefault(stmt.name, stmt.span.line)
             res.def_spans.setdefault(stmt.name, stmt.span)
-            if not reads and not calls_plugin:
+            if isinstance(stmt, N.Definition) and not reads and not calls_plugin:
                 res.inputs.append(stmt.name)
         if errors:
             res.broken.add(key)

@@ -31,6 +31,7 @@ class Step:
     anchor: str = ""  # html id of the definition
     namespace: str = ""  # "" for the sheet, or the plugin call's anchor prefix
     shown_expr: Any = None  # the formula with the sheet's own functions written out (for the substitution)
+    after: list = field(default_factory=list)  # records printed right after this one (a table, a lookup's working)
 
 
 @dataclass
@@ -63,6 +64,8 @@ class CheckResult:
     anchor: str = ""
     shown_left: Any = None  # each side with the sheet's own functions written out (for the substitution)
     shown_right: Any = None
+    governing: int | None = None  # a check over a list: the position (from 1) of the element that governs
+    after: list = field(default_factory=list)  # records printed right after it (a check over a list: every element)
 
 
 @dataclass
@@ -75,6 +78,13 @@ class Table:
     units: list[Any] | None = None  # per-column display unit (pint Unit) or None
     footer: list[list[Any]] | None = None  # totals rows
     note: str | None = None
+
+
+@dataclass
+class SheetTable(Table):
+    """A table the sheet itself shows in full: one of its own tables, or every element of a check over a list."""
+
+    anchor: str = ""
 
 
 @dataclass

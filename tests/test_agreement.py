@@ -67,8 +67,22 @@ w = 3 kN/m
 t_1 = 20 degC
 t_2 = 35 degC
 p = agr.span(L=6 m, w=5 kN/m, n=1)
+La = [2 m, 2500 mm, 4 m]
+Fa = [1 kN, 2 kN, 3 kN]
+k_t =
+| h   | k   | F  |
+| mm  | 1   | kN |
+| 100 | 1.0 | 3  |
+| 200 | 0.9 | 5  |
+| 300 | 0.7 | 6  |
+c_t =
+| h \\ b   | 1   | 2   |
+| mm \\ mm | kN  | kN  |
+| 100     | 1.0 | 2.0 |
+| 300     | 3.0 | 5.0 |
 """
-NAMES = ["a", "b", "c", "r", "g", "f", "w", "t_1", "t_2", "p.M", "p.R", "p.k", "pi"]
+# lists (all of three elements: lengths are values, not dimensions) and a table's columns stand among the names
+NAMES = ["a", "b", "c", "r", "g", "f", "w", "t_1", "t_2", "p.M", "p.R", "p.k", "pi", "La", "Fa", "k_t.k", "k_t.h"]
 LITERALS = ["2", "0.25", "3 m", "150 mm", "2 s", "45 deg", "1.5 rad", "4 kN", "10 kN/m", "12 MPa", "300 K"]
 EXPONENTS = ["2", "3", "0.5", "-1", "(1/2)", "13", "-13", "r", "2 m/1 m"]
 DECLARED = ["m", "mm", "kN", "kN*m", "deg", "", "s", "MPa", "m^2", "K", "degC"]
@@ -104,16 +118,28 @@ def expressions(depth: int = 3):
         st.tuples(sub, st.sampled_from(["+", "-", "*", "/"]), sub).map(binop),
         st.tuples(sub, st.sampled_from(EXPONENTS)).map(lambda t: f"({t[0]})^{t[1]}"),
         sub.map(lambda x: f"-{x}"),
-        st.tuples(st.sampled_from(sorted(n for n in B.FUNCTIONS if n != "if")), st.lists(sub, min_size=1, max_size=3),
-                  st.sampled_from([0, 0, 0, -1, 1])).map(call),
+        st.tuples(st.sampled_from(sorted(n for n in B.FUNCTIONS if n not in ("if", "lookup"))),
+                  st.lists(sub, min_size=1, max_size=3), st.sampled_from([0, 0, 0, -1, 1])).map(call),
         st.tuples(sub, st.sampled_from(["<=", "<", ">=", ">"]), sub, sub, sub).map(if_),
+        st.tuples(st.sampled_from(LOOKUPS), sub, sub).map(lambda t: t[0].format(x=t[1], y=t[2])),
     )
+
+
+# lookups: right and wrong tables, columns, key names, key dimensions and shapes (``clamp`` keeps most keys in range;
+# a key out of range is a numeric error, set aside like a division by zero)
+LOOKUPS = ["lookup(k_t.k, h={x}, clamp)", "lookup(k_t.F, h={x}, clamp)", "lookup(k_t.k, h={x})",
+           "lookup(k_t.k, b={x}, clamp)", "lookup(k_t.h, h={x}, clamp)", "lookup(k_t, h={x}, clamp)",
+           "lookup(c_t, h={x}, b={y}, clamp)", "lookup(c_t.h, h={x}, b={y}, clamp)", "lookup(c_t, h={x}, clamp)",
+           "lookup(a, h={x})", "lookup(k_t.k, h={x}, {y})"]
 
 
 # expressions right by construction, of a known kind: L length, N plain number, A angle, F force, W line load
 TYPED_LEAVES = {
-    "L": ["a", "b", "3 m", "150 mm"], "N": ["r", "2", "0.25", "p.k", "pi"], "A": ["g", "45 deg", "1.5 rad"],
-    "F": ["f", "4 kN", "p.R"], "W": ["w", "10 kN/m"],
+    "L": ["a", "b", "3 m", "150 mm", "La", "k_t.h", "max(La)"],
+    "N": ["r", "2", "0.25", "p.k", "pi", "lookup(k_t.k, h=b, clamp)", "lookup(k_t.k, h=150 mm)", "k_t.k", "count(Fa)"],
+    "A": ["g", "45 deg", "1.5 rad"],
+    "F": ["f", "4 kN", "p.R", "Fa", "lookup(k_t.F, h=250 mm)", "lookup(c_t, h=a, b=1.5 mm, clamp)", "sum(Fa)"],
+    "W": ["w", "10 kN/m"],
 }
 
 
@@ -219,7 +245,7 @@ def evaluate_alone(sheet: N.Sheet):
     ev = Evaluator(plugins=REGISTRY)
     env, display = {}, {}
     for stmt in sheet.body:
-        if isinstance(stmt, (N.Definition, N.Check, N.FunctionDef)):
+        if isinstance(stmt, (N.Definition, N.Check, N.FunctionDef, N.TableDef)):
             evaluate_statement(ev, stmt, env, display)
     return env
 
@@ -242,6 +268,9 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
         raise AssertionError(exc)  # pragma: no cover
     event("check found an error" if found else "check clean")
     event("plugin call evaluated" if "agr.span" in body and raised is None else "other")
+    event("lookup " + ("evaluated" if raised is None else "refused") if "lookup(" in body else "no lookup")
+    event("list " + ("evaluated" if raised is None else "refused") if any(n in body for n in ("La", "Fa", "k_t."))
+          else "no list")
     assert bool(found) == (raised is not None), (
         f"\n{body}\ncheck: {[d.one_line() for d in found]}\nevaluation: {raised!r}")
     if raised is None:
@@ -253,6 +282,9 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
             if isinstance(value, pint.Quantity):
                 assert t.kind == "q" and t.dim == U.dim_of(value), (body, name, t, value)
                 assert t.offset == B.arg_of(value).offset, (body, name, t, value)
+                assert t.many == B.is_list(value), (body, name, t, value)  # a list exactly where one is inferred
+            elif isinstance(value, B.TableValue):
+                assert t.kind == "table" and t.table == value.info
             elif isinstance(value, Record):
                 assert t.kind == "record" and t.record_type == value.type
 
@@ -275,6 +307,16 @@ def test_check_is_clean_exactly_when_evaluation_raises_no_dimension_or_arity_err
     "F(u [m], v) = u + v\nx = F(a, c)",     # an untyped parameter: the body is checked at each call
     "F(u [m], v [m]) [kN] = u + v",         # never called: a typed body is still checked
     "F(u [deg], v) = u*2 + 1\nx = F(r, a)",  # a plain number for an angle parameter takes the angle
+    "x = if(a < b, La, a)",                 # one outcome a list, the other not
+    "x = if(La < b, a, a)",                 # a list in the condition
+    "x = r^(La/a)",                         # a list as an exponent
+    "x = [a, La]",                          # a list inside a list
+    "x = [a, f]",                           # two dimensions in one list
+    "x = agr.span(L=La, w=w, n=1)",         # a list where the plugin takes one value
+    "x = lookup(k_t.k, h=La, clamp)",       # a list as a lookup key
+    "x = lookup(k_t.k, h=f, clamp)",        # a key of the wrong dimension
+    "x = lookup(c_t, h=a, clamp)",          # a two-way table with one key
+    "x = sum(t_1)",                         # a sum of °C temperatures
 ])
 def test_known_disagreements_stay_agreed(body):
     text = PREAMBLE + body + "\n"

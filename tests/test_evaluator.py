@@ -4,7 +4,7 @@ from __future__ import annotations
 import pytest
 
 from calcsheet import units as U
-from calcsheet.errors import PluginArgumentError, PluginInputError
+from calcsheet.errors import DimensionError, PluginArgumentError, PluginInputError
 from calcsheet.evaluator import Evaluator, evaluate_statement
 from calcsheet.parser import parse_expression, parse_statement
 from calcsheet.plugin import Field, Namespace, Param, PluginRegistry
@@ -70,7 +70,9 @@ def test_the_host_coerces_lists_and_points_and_checks_each_item():
     assert rec.get("n").magnitude == 5
     assert call("ev1.f(xs=1 m, pts=[(0 m, 0 m)])").get("n").magnitude == 2  # one item may stand for a list
     with pytest.raises(PluginArgumentError, match="'xs' needs length, got time"):
-        call("ev1.f(xs=[1 m, 2 s], pts=[(0 m, 0 m)])")
+        call("ev1.f(xs=[1 s, 2 s], pts=[(0 m, 0 m)])")
+    with pytest.raises(DimensionError, match="element 2 of the list is time, but element 1 is length"):
+        call("ev1.f(xs=[1 m, 2 s], pts=[(0 m, 0 m)])")  # a list has one dimension, whoever takes it
     with pytest.raises(PluginArgumentError, match="points written"):
         call("ev1.f(xs=[1 m], pts=[1 m])")
     with pytest.raises(PluginArgumentError, match='must be one of "a", "b"') as exc:

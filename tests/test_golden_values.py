@@ -304,3 +304,35 @@ def test_mezzanine_column_buckling(mezz):
     assert field(r, "c", "P_e_y", "kN") == pytest.approx(math.pi**2 * E * Iy / 1550**2 / 1e3, rel=1e-12)
     R2 = max(v[5] for v in (two_span(*c) for c in COMBOS.values()))
     assert val(r, "N_Ed", "kN") == pytest.approx(R2 + 1.35 * 0.35 * 3.1, rel=1e-9)
+
+
+def test_barn_purlins():
+    """sheets/barn_purlins.calc: a list of three spans, sheet functions, and a factor read from the sheet's own
+    (invented) table, each value recomputed here with numpy."""
+    r = run("barn_purlins.calc")
+    s, g_k, q_k = 1.2, 0.35, 0.60                       # m, kPa, kPa (the demo's inputs)
+    w = (1.35 * g_k + 1.5 * q_k) * s                    # kN/m, EN 1990 (6.10) partial factors 1.35 / 1.5
+    w_s = (g_k + q_k) * s                               # kN/m, characteristic combination
+    L = np.array([3.6, 4.2, 4.5])                       # m
+    b, h = 75.0, 200.0                                  # mm
+    A, W, I = b * h, b * h**2 / 6, b * h**3 / 12        # rectangle: bh, bh²/6, bh³/12 (Roark, Table A.1)
+    k_h = np.interp(h, [100, 150, 250], [1.15, 1.08, 1.00])  # linear interpolation in the demo's table
+    f_md = k_h * 0.8 * 14 / 1.3                         # MPa, k_h k_mod f_m / γ_M
+    M = w * L**2 / 8                                    # kN·m, simply supported, uniform load (common practice)
+    V = w * L / 2                                       # kN (common practice)
+    sigma = M * 1e6 / W                                 # MPa
+    tau = 1.5 * V * 1e3 / A                             # MPa, peak shear of a rectangle 3V/2A (common practice)
+    delta = 5 * w_s * (L * 1e3) ** 4 / (384 * 11000 * I)  # mm, 5wL⁴/384EI (common practice)
+    assert val(r, "w", "kN/m") == pytest.approx(w)
+    assert val(r, "k_h", "") == pytest.approx(k_h) == pytest.approx(1.04)
+    assert val(r, "f_md", "MPa") == pytest.approx(f_md)
+    np.testing.assert_allclose(val(r, "M", "kN*m"), M, rtol=1e-12)
+    np.testing.assert_allclose(val(r, "sigma_m", "MPa"), sigma, rtol=1e-12)
+    np.testing.assert_allclose(val(r, "tau", "MPa"), tau, rtol=1e-12)
+    np.testing.assert_allclose(val(r, "delta", "mm"), delta, rtol=1e-12)
+    bending, shear, deflection, trimmer = r.checks
+    assert bending.ok and bending.governing == int(np.argmax(sigma / f_md)) + 1 == 3
+    assert bending.ratio == pytest.approx(sigma[2] / f_md)
+    assert deflection.ratio == pytest.approx(max(delta / (L * 1e3 / 250)))
+    assert shear.ratio == pytest.approx(tau[2] / (0.8 * 2.2 / 1.3))
+    assert trimmer.ratio == pytest.approx(w * 2.4**2 / 8 * 1e6 / W / f_md)

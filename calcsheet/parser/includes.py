@@ -49,15 +49,10 @@ def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet
         return refuse("an include path is a file name of at most 255 characters, with no NUL")
     if not target.endswith(".calc"):
         return refuse(f"only .calc sheets can be included, not {target!r}")
-    if os.path.isabs(target) or target.startswith("~"):
-        return refuse("an include path is relative to the sheet's folder", hint="write include \"loads.calc\"")
-    here = Path(path).parent if state.stack and not path.startswith("<") else state.root
-    candidate = here / target
-    real = candidate.resolve()
-    if state.root != real.parent and state.root not in real.parents:
-        return refuse(f"'{target}' is outside the sheet's folder; a sheet may include only files in or below it")
-    if not real.is_file():
-        return refuse(f"no such sheet to include: '{target}'")
+    try:
+        real, shown = contained(target, span, path, state)
+    except IncludeError as exc:
+        return refuse(exc.message, exc.hint)
     if real in state.stack:
         return refuse(f"'{target}' includes itself (through {' -> '.join(p.name for p in state.stack)})")
     if len(state.stack) > MAX_INCLUDE_DEPTH or len(state.sources) >= MAX_INCLUDES:
@@ -66,7 +61,6 @@ def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet
         text = reading.read_text(real, "SHEET_BYTES", f"'{target}'")
     except CalcError as exc:
         return refuse(exc.message, exc.hint)
-    shown = os.path.normpath(str(candidate))
     state.sources.append((shown, text))
     state.stack.append(real)
     try:
@@ -77,6 +71,29 @@ def include(target: str, span: Span, path: str, state: IncludeState, parse_sheet
         sub_diags.append(Diagnostic("warning", "include", f"the front matter of '{target}' is ignored: the "
                                     "including sheet's title block applies", span, path=path))
     return [with_path(stmt, shown) for stmt in sub.body], sub_diags
+
+
+def contained(target: str, span: Span, path: str, state: IncludeState, what: str = "include") -> tuple[Path, str]:
+    """The real path of a file a sheet names (an included sheet, a table's CSV) and the path shown for it;
+    ``IncludeError`` unless it is a file in the main sheet's folder or below."""
+    if state.root is None:
+        raise IncludeError(f"{what} needs the sheet to be a file (its folder is where "
+                           f"{'includes are' if what == 'include' else 'it is'} looked for)", span)
+    if "\x00" in target or len(target) > 255:
+        raise IncludeError(f"an {what} path is a file name of at most 255 characters, with no NUL", span)
+    if os.path.isabs(target) or target.startswith("~"):
+        raise IncludeError(f"an {what} path is relative to the sheet's folder", span,
+                           hint="write include \"loads.calc\"" if what == "include" else
+                           "write table \"factors.csv\"")
+    here = Path(path).parent if state.stack and not path.startswith("<") else state.root
+    candidate = here / target
+    real = candidate.resolve()
+    if state.root != real.parent and state.root not in real.parents:
+        raise IncludeError(f"'{target}' is outside the sheet's folder; a sheet may "
+                           f"{'include' if what == 'include' else 'read'} only files in or below it", span)
+    if not real.is_file():
+        raise IncludeError(f"no such {'sheet to include' if what == 'include' else 'table file'}: '{target}'", span)
+    return real, os.path.normpath(str(candidate))
 
 
 def with_path(node, path: str):

@@ -8,6 +8,8 @@ from ..errors import CalcError, Diagnostic, SheetErrors, SheetSyntaxError, Span,
 from .includes import INCLUDE, IncludeState, include
 from .lines import HEADING, front_matter, statement_lines
 from .statement import parse_statement
+from .tables import FILE_TABLE, file_table, pipe_table, starts_table
+from .lines import strip_trailing
 from .. import reading
 
 MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]  # the default; reading.limit("SHEET_BYTES") is the cap
@@ -94,6 +96,23 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             diags.append(SheetSyntaxError("a heading needs a space after '#'", Span(lineno, 1, lineno, 2),
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
+            continue
+        if starts_table(lines, i) or FILE_TABLE.fullmatch(strip_trailing(raw)[0]):  # a table bound to a name
+            try:
+                if starts_table(lines, i):
+                    i, table = pipe_table(lines, i, path)
+                else:
+                    table = file_table(lines, i, path, state)
+                    i += 1
+            except CalcError as exc:
+                if not collect:
+                    raise SheetErrors([exc.diagnostic(path)], source) from None
+                diags.append(exc.diagnostic(path))
+                i += 1
+                while i < len(lines) and lines[i].lstrip().startswith("|"):
+                    i += 1
+                continue
+            body.append(table)
             continue
         # a statement, continuing over lines while brackets are open
         i, stmt_text, descs, comments = statement_lines(lines, i)

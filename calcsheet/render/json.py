@@ -9,6 +9,7 @@ import json
 
 import pint
 
+from ..builtins import TableValue
 from ..display import pint_unit_string, portable_unit_string, shown
 from ..plugin import Record
 from .base import Printer
@@ -46,7 +47,19 @@ class JsonPrinter(Printer):
                                                        if isinstance(v, (pint.Quantity, str))}}
         if isinstance(value, tuple):
             return {"list": [self.value(v) for v in value]}
+        if isinstance(value, TableValue):  # a sheet's table
+            return {"table": self.table(value)}
         return {"text": str(value)}
+
+    @staticmethod
+    def table(tv) -> dict:
+        """A sheet's table: its columns (a two-way table: row key, column key), each column's unit, its rows
+        (a two-way table: the row key then the values) and, for a two-way table, the column keys."""
+        out = {"columns": [c for c, _ in tv.info.columns], "units": [portable_unit_string(u) for u in tv.units],
+               "rows": [[float(x) for x in row] for row in tv.data]}
+        if tv.info.two_way:
+            out["column_keys"] = [float(x) for x in tv.col_keys]
+        return out
 
     def result(self, result) -> dict:
         values = {}
@@ -70,6 +83,7 @@ class JsonPrinter(Printer):
                 "demand": self.value(c.demand),
                 "capacity": self.value(c.capacity, c.demand.units if isinstance(c.demand, pint.Quantity) else None),
                 "description": c.description,
+                **({"governing": c.governing} if c.governing is not None else {}),  # a check over a list
             })
         return {
             "meta": {k: v for k, v in result.meta.items()},

@@ -60,7 +60,7 @@ class MathPrinter(Printer):
             try:
                 mag = float(mag)
             except TypeError:
-                return self.m_text(f"array of {len(mag)} values")
+                return self.list_value(value, sigfigs)
             text, exp = split_number(mag, self.settings["sigfigs"])
             if sigfigs and sigfigs > self.settings["sigfigs"]:  # extra figures, but no trailing zeros
                 more = split_number(mag, sigfigs)
@@ -80,6 +80,16 @@ class MathPrinter(Printer):
         if isinstance(value, tuple):
             return self.m_list([self.value(v) for v in value])
         return self.m_text(str(value))
+
+    def list_value(self, value: pint.Quantity, sigfigs: int | None = None, most: int = 8):
+        """A list of quantities: '[3.60, 4.20, 4.80] m'; a long one shows its first and last elements."""
+        mags = [float(m) for m in value.magnitude]
+        digits = max(sigfigs or 0, self.settings["sigfigs"])
+        shown_mags = mags if len(mags) <= most else mags[:most - 2] + [None] + mags[-1:]
+        items = [self.m_text("…") if m is None else self.m_number(*split_number(m, digits)) for m in shown_mags]
+        unit_markup = self.m_unit(value.units) if not _is_dimensionless(value.units) else ""
+        out = self.m_quantity(self.m_list(items), unit_markup)
+        return out if len(mags) <= most else out + self.m_text(f" ({len(mags)} values)")
 
     # ------------------------------------------------------------ nodes
     def _wrap(self, child, ctx: int, strict: bool = False) -> str:
@@ -162,7 +172,10 @@ class MathPrinter(Printer):
 
     def _print_Call(self, node: N.Call, ctx):
         form = print_form(node)  # the built-ins table says how each function is shown
-        args = [self._print(unparen(a), 0) for a in node.args]
+        args = [self._print(unparen(a), 0) for a in node.args if not isinstance(a, N.Flag)]
+        if node.kwargs or len(args) < len(node.args):  # lookup(tab.k, h=…, clamp): keys, then flags
+            args += [self.m_keyword(kw.name, self._print(kw.value, 0)) for kw in node.kwargs]
+            args += [self.m_text(a.name) for a in node.args if isinstance(a, N.Flag)]
         if form == "cases":
             cond, then, otherwise = args
             return self.m_cases(then, cond, otherwise)
@@ -214,8 +227,11 @@ def _is_dimensionless(unit) -> bool:
 
 
 def is_literal(node) -> bool:
-    """A value written directly (``6.0 m``, ``-2 kN``): its formula is its result."""
-    return isinstance(strip_sign(node), (N.Number, N.Text))
+    """A value written directly (``6.0 m``, ``-2 kN``, ``[3.6 m, 4.2 m]``): its formula is its result."""
+    node = strip_sign(node)
+    if isinstance(node, N.ListExpr) and node.items:
+        return all(isinstance(strip_sign(i), N.Number) for i in node.items)
+    return isinstance(node, (N.Number, N.Text))
 
 
 # ------------------------------------------------------------------ reproducible substitution

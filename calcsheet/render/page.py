@@ -357,7 +357,12 @@ class PackageDocument(DocumentPrinter):
             " input" if step.is_input else "", ident, number, desc, chain, note, Html("").join(marks))
         if step.working is not None:
             out += self._print_Working(step.working, owner=step.name)
-        return out
+        return out + self._after(step)
+
+    def _after(self, item) -> Html:
+        """What a step or check carries to print right after it (a sheet's table, a lookup's working, every
+        element of a check over a list)."""
+        return Html("").join(self.record(i, inner=True) for i in getattr(item, "after", ()) or ())
 
     def _print_CheckResult(self, c: CheckResult, inner: bool = False) -> Html:
         sym, sub = self.printer.check_parts(c, None if inner else self.link, None if inner else self.exact)
@@ -368,7 +373,7 @@ class PackageDocument(DocumentPrinter):
         return Html('<div class="step check {}"{}>{}<div class="stepbody">{}'
                     '<div class="math"><span class="kwd">check</span> {}<span class="eq">:</span>{}'
                     '<span class="verdict">{}</span><span class="ratio">{}</span></div></div></div>').format(
-            "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio)
+            "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio) + self._after(c)
 
     def _print_Table(self, t: Table, inner: bool = False) -> Html:
         def cell(v, unit=None):

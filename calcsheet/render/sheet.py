@@ -17,7 +17,11 @@ class SheetPrinter(Printer):
 
     def statement(self, stmt: N.Statement) -> str:
         """A definition, check or function definition as the sheet writes it (its description after ``--``)."""
-        return self._print(stmt) + (f"  -- {stmt.description}" if getattr(stmt, "description", None) else "")
+        desc = f"  -- {stmt.description}" if getattr(stmt, "description", None) else ""
+        if isinstance(stmt, N.TableDef) and stmt.source is None:  # the description goes on the name's line
+            head, _, rows = self._print(stmt).partition("\n")
+            return f"{head}{desc}\n{rows}"
+        return self._print(stmt) + desc
 
     @staticmethod
     def _decl(unit_text):
@@ -66,7 +70,21 @@ class SheetPrinter(Printer):
         return f"{node.name}={self._print(node.value)}"
 
     def _print_Call(self, node):
-        return f"{node.func}(" + ", ".join(self._print(a) for a in (*node.args, *node.kwargs)) + ")"
+        flags = [a for a in node.args if isinstance(a, N.Flag)]
+        args = [a for a in node.args if not isinstance(a, N.Flag)]
+        return f"{node.func}(" + ", ".join(self._print(a) for a in (*args, *node.kwargs, *flags)) + ")"
+
+    def _print_Flag(self, node: N.Flag):
+        return node.name
+
+    def _print_TableDef(self, node: N.TableDef):
+        """A table as pipe rows under ``name =`` (a table read from a file: ``name = table "file.csv"``)."""
+        if node.source is not None:
+            return f'{node.name} = table "{node.source}"'
+        rows = [node.header, node.units, *node.rows]
+        widths = [max(len(r[k]) for r in rows) for k in range(len(node.header))]
+        lines = ["| " + " | ".join(c.ljust(w) for c, w in zip(r, widths)) + " |" for r in rows]
+        return f"{node.name} =\n" + "\n".join(lines)
 
     def _print_PluginCall(self, node):
         return f"{node.namespace}.{node.func}(" + ", ".join(self._print(k) for k in node.kwargs) + ")"

@@ -2,8 +2,8 @@
 from __future__ import annotations
 
 
-from ..display import superscript, unit_text
-from ..trace import CheckResult, Figure, FunctionStep, Heading, Note, Prose, Step, Table, Working
+from ..display import split_number, superscript, unit_text
+from ..trace import CheckResult, Figure, FunctionStep, Heading, Note, Prose, SheetTable, Step, Table, Working
 from .base import split_name
 from .document import DocumentPrinter, exact_inputs
 from .math import MathPrinter, is_literal
@@ -87,13 +87,24 @@ class TextDocument(DocumentPrinter):
         line = indent + self.step(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
         if item.working is not None:
             line += "\n" + self.items(item.working.items, indent=indent + "    ")
-        return line
+        return line + self._after(item, indent)
+
+    def _after(self, item, indent=""):
+        """The records a step or check carries to be printed right after it (tables, a lookup's working)."""
+        if not getattr(item, "after", None):
+            return ""
+        return "\n" + self.items(item.after, indent=indent + "    ")
 
     def _print_CheckResult(self, item: CheckResult, indent=""):
-        return indent + self.check(item, nested=bool(indent)) + (f"   -- {item.description}" if item.description else "")
+        desc = f"   -- {item.description}" if item.description else ""
+        return indent + self.check(item, nested=bool(indent)) + desc + self._after(item, indent)
 
     def _print_Table(self, item: Table, indent=""):
         return indent + f"[table: {item.title}, {len(item.rows)} rows]"
+
+    def _print_SheetTable(self, item: SheetTable, indent=""):
+        """A table the sheet shows in full (its own tables, a check over a list): columns aligned."""
+        return text_table(item, self.math, indent)
 
     def _print_Note(self, item: Note, indent=""):
         return indent + ("warning: " if item.kind == "warning" else "") + item.text
@@ -145,4 +156,32 @@ class TextDocument(DocumentPrinter):
         lv = m.expr(check.shown_left or check.left, values=check.used, exact=exact)
         rv = m.expr(check.shown_right or check.right, values=check.used, exact=exact)
         cmp = {"<=": "≤", ">=": "≥"}.get(check.op, check.op)
-        return f"check {left} {cmp} {right}:  {lv} {cmp} {rv}  →  {status}{ratio}"
+        where = f"  (element {check.governing} governs)" if check.governing is not None else ""
+        return f"check {left} {cmp} {right}:  {lv} {cmp} {rv}  →  {status}{ratio}{where}"
+
+
+def text_table(item: Table, math: TextPrinter, indent: str = "") -> str:
+    """A table as aligned text: a header row (with each column's unit), a rule, the rows."""
+    units = list(item.units or []) + [None] * len(item.columns)
+    head = [c + (f" [{unit_text(u)}]" if u is not None and unit_text(u) else "") for c, u in zip(item.columns, units)]
+
+    def cell(v, u):
+        if hasattr(v, "magnitude"):
+            if u is not None:
+                try:
+                    return math.m_number(*split_number(float(v.to(u).magnitude), math.settings["sigfigs"]))
+                except Exception:  # a cell in another unit than its column's: shown with its own
+                    pass
+            return math.value(v)
+        if isinstance(v, float):
+            return math.m_number(*split_number(v, math.settings["sigfigs"]))
+        return str(v)
+
+    rows = [[cell(v, u) for v, u in zip(r, units)] for r in item.rows]
+    widths = [max(len(x) for x in col) for col in zip(head, *rows)]
+    line = lambda cells: indent + "  " + " | ".join(c.rjust(w) for c, w in zip(cells, widths))  # noqa: E731
+    out = [indent + item.title, line(head), indent + "  " + "-+-".join("-" * w for w in widths)]
+    out += [line(r) for r in rows]
+    if item.note:
+        out.append(indent + "  " + item.note)
+    return "\n".join(out)

@@ -48,8 +48,9 @@ def substitutions(text: str):
         sub, result = parts[2], parts[3]
         if not _RESULT.fullmatch(result):
             continue  # prose in a plugin's working, not a step
-        if any(s in sub for s in (" if ", "|", '"', "array", "[", "result")):
-            continue  # a condition, text or a record: nothing to recompute
+        if any(s in sub for s in (" if ", "|", '"', "array", "[", "result", "lookup(")):
+            continue  # a condition, text, a record or a table lookup (its interpolation line is checked): nothing
+            # to recompute
         yield line, sub, result
 
 
