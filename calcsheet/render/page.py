@@ -19,9 +19,9 @@ from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Work
 from .base import split_name
 from .document import DocumentPrinter, exact_inputs, number_items
 from .. import nodes as N
-from .html import HtmlMathPrinter
+from .html import EQ, HtmlMathPrinter
 from .math import is_literal
-from .markup import Html, anchor_id, esc
+from .markup import Html, anchor_id, esc, piece, wrap
 
 ASSETS = Path(__file__).resolve().parent.parent / "assets"
 
@@ -301,7 +301,7 @@ class PackageDocument(DocumentPrinter):
 
     def _print_Step(self, step: Step, inner: bool = False) -> Html:
         parts = self.printer.step_parts(step, None if inner else self.link, None if inner else self.exact)
-        chain = Html('<span class="eq">=</span>').join(Html('<span class="term">{}</span>').format(p) for p in parts)
+        chain = wrap(EQ.join(map(piece, parts)))  # one run of text: a long chain wraps after an "="
         marks = []
         if step.overridden is not None:
             marks.append(Html('<span class="mark override">set for this build; sheet value {}</span>').format(
@@ -312,7 +312,7 @@ class PackageDocument(DocumentPrinter):
         ident = Html(' id="{}"').format(anchor_id(step.anchor)) if step.anchor and not inner else Html()
         number = Html('<span class="stepno">{}</span>').format(step.number) if step.number else Html()
         desc = Html('<div class="desc">{}</div>').format(step.description) if step.description else Html()
-        out = Html('<div class="step{}"{}>{}<div class="stepbody">{}<div class="math">{}</div>{}{}</div></div>').format(
+        out = Html('<div class="step{}"{}>{}{}<div class="math">{}</div>{}{}</div>').format(
             " input" if step.is_input else "", ident, number, desc, chain, note, Html("").join(marks))
         if step.working is not None:
             out += self._print_Working(step.working, owner=step.name)
@@ -324,9 +324,9 @@ class PackageDocument(DocumentPrinter):
         ident = Html(' id="{}"').format(c.anchor) if c.anchor and not inner else Html()
         number = Html('<span class="stepno">{}</span>').format(c.number) if c.number else Html()
         desc = Html('<div class="desc">{}</div>').format(c.description) if c.description else Html()
-        return Html('<div class="step check {}"{}>{}<div class="stepbody">{}'
-                    '<div class="math"><span class="kwd">check</span> {}<span class="eq">:</span>{}'
-                    '<span class="verdict">{}</span><span class="ratio">{}</span></div></div></div>').format(
+        return Html('<div class="step check {}"{}>{}{}'
+                    '<div class="math"><span class="kwd">check</span> {}&#160;: {}'
+                    ' <span class="verdict">{}</span> <span class="ratio">{}</span></div></div>').format(
             "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio)
 
     def _print_Table(self, t: Table, inner: bool = False) -> Html:
