@@ -32,7 +32,7 @@ __all__ = ["HtmlMathPrinter", "Html", "anchor_id", "esc"]
 _CMP = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}
 NNBSP = "&#8239;"  # narrow no-break space: between a number and its unit, before an operator
 THIN = "&#8201;"   # thin space, a line may break after it: after an operator
-EQ = "&#160;= "    # the '=' between the terms of a step: a line may break after it, not before
+EQ = "&#8239;&#160;=&#8194;"  # the "=" between the terms of a step: a line may break after it (en space), not before
 COMMA = ", "       # between arguments: where a long call wraps
 _join = "".join    # str.join: joins markup and escaped text as they are (``+`` on Html would escape again)
 
