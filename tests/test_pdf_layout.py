@@ -116,3 +116,25 @@ def test_every_glyph_of_a_demo_package_lies_inside_the_text_block(demo_pages, st
 @pytest.mark.parametrize("stem", [s.stem for s in SHEETS])
 def test_no_page_of_a_demo_package_ends_with_a_heading(demo_pages, stem):
     assert headings_at_page_foot(demo_pages[stem]) == []
+
+
+def test_an_oversized_package_is_refused_before_any_layout(monkeypatch):
+    import weasyprint
+
+    from calcsheet import package
+
+    def no_layout(*args, **kwargs):
+        raise AssertionError("WeasyPrint was started")
+
+    monkeypatch.setattr(weasyprint, "HTML", no_layout)
+    monkeypatch.setenv("CALCSHEET_LIMIT_PDF_PAGES", "3")
+    r = calcsheet.run("".join(f"x_{i} = {i + 1} m\n" for i in range(400)))  # 400 steps: at least 10 pages
+    with pytest.raises(package.PackageTooLarge, match=r"at least \d+ pages.*CALCSHEET_LIMIT_PDF_PAGES"):
+        pdf_bytes(PackageDocument(r).html())
+
+
+def test_the_package_stylesheet_is_parsed_once_per_process():
+    from calcsheet import package
+
+    css = (ASSETS / "package.css").read_text(encoding="utf-8")
+    assert package._stylesheet(css) is package._stylesheet(css)
