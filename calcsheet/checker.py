@@ -32,7 +32,7 @@ from .errors import (
     UnknownUnitError,
 )
 from .names import did_you_mean, operand as _operand
-from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds
+from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds, takes_record
 from .resolver import Resolution, check_key
 from .slips import specialise
 
@@ -497,7 +497,7 @@ class Checker:
                 raise PluginArgumentError(f"{where} must be one of " + ", ".join(f'"{c}"' for c in choices),
                                           kw.value.span, hint=did_you_mean(kw.value.value, choices, quote='"'))
         elif kind == "record":
-            if t.kind != "record" or t.record_type != p.record:
+            if t.kind != "record" or not takes_record(p.record, t.record_type, t.record and t.record.family):
                 raise PluginArgumentError(f"{where} needs a {p.record} record, got a {t.describe()}", kw.value.span)
         elif kind in ("list", "points"):
             items = kw.value.items if isinstance(kw.value, N.ListExpr) else None
@@ -519,7 +519,8 @@ class Checker:
                         if ct.kind == "q":
                             self._need(f"{where} coordinate", p.wanted, ct, c)
                 elif p.record:
-                    if it.kind != "record" or it.record_type != p.record:
+                    family = it.record and it.record.family
+                    if it.kind != "record" or not takes_record(p.record, it.record_type, family):
                         raise PluginArgumentError(f"{where} needs {p.record} records, got a {it.describe()}",
                                                   item.span)
                 else:

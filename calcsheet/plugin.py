@@ -128,6 +128,7 @@ class PluginFunction:
     doc: str
     returns: str  # record type of the result
     version: str
+    family: str | None = None  # the family of record types its record belongs to (e.g. every beam load kind)
 
     @property
     def qualname(self) -> str:
@@ -167,7 +168,7 @@ class Namespace:
         self.standards = tuple(standards)
         self.functions: dict[str, PluginFunction] = {}
         self.shared: tuple[Param, ...] = ()
-        self._record_fields: dict[str, dict[str, tuple]] = {}  # record type -> its fields as declared so far
+        self._record_types: dict[str, RecordType] = {}  # record type -> its declaration, from its first maker
         if shared:
             self.share(*shared)
 
@@ -189,9 +190,11 @@ class Namespace:
         returns: str | None = None,
         doc: str | None = None,
         shared: bool = False,
+        family: str | None = None,
     ):
         def register(func: Callable) -> Callable:
             fname = name or func.__name__
+            _declares_its_record_type(self.name, fname, returns, family)
             pf = PluginFunction(
                 namespace=self.name,
                 name=fname,
@@ -199,11 +202,12 @@ class Namespace:
                 params=tuple(params) + (self.shared if shared else ()),
                 fields=tuple(fields),
                 doc=(doc or inspect.getdoc(func) or "").strip(),
-                returns=returns or self.name,
+                returns=returns,
                 version=self.version,
+                family=family,
             )
             validate(pf, collective={p.name for p in self.shared} if shared else set())
-            _same_fields(self._record_fields.setdefault(pf.returns, {}), pf)
+            same_record_type(self._record_types, pf)
             self.functions[fname] = pf
             return func
 
@@ -230,20 +234,78 @@ def _validate_param(p: Param, where: str) -> None:
             raise PluginDefinitionError(f"{where}: parameter {p.name} has a bad dimension {p.dim!r}: {exc}")
 
 
-def _same_fields(known: dict[str, tuple], pf: PluginFunction) -> None:
-    """Every function returning one record type declares its fields alike: a field of the same name has the
-    same kind, dimension and record type whichever function made the record (a reader of ``rec.x`` relies
-    on it). Variants of one record type may carry fields of their own (a point load has P, a couple M).
+# ---------------------------------------------------------------- record types
 
-    ``known``: field name -> (kind, dimension, record type, first declarer) for the record type so far;
-    ``pf``'s fields are checked against it and added."""
-    for f in pf.fields:
-        sig = (f.kind_, f.dimension, f.record)
-        seen = known.setdefault(f.name, (*sig, pf.qualname))
-        if seen[:3] != sig:
+
+@dataclass(frozen=True)
+class RecordType:
+    """A record type as its first maker declared it: the fields every function returning it must declare.
+
+    Record types are explicit: each plugin function names the type it returns (``returns=``), and every
+    function returning one type declares the same fields, each alike (kind, dimension, record type,
+    optional), so a reader of ``rec.x`` can rely on ``x`` whichever function made the record. Kinds of one
+    thing with different fields (a point load has P, a couple M) are different record types of one
+    *family* (``family="load"``); a parameter that names the family takes a record of any of its types."""
+
+    name: str
+    family: str | None
+    fields: dict[str, tuple]  # field name -> (kind, dimension, record type, optional)
+    maker: str  # the first function declaring it, for messages
+
+    @classmethod
+    def of(cls, pf: PluginFunction) -> "RecordType":
+        return cls(pf.returns, pf.family, {f.name: _field_signature(f) for f in pf.fields}, pf.qualname)
+
+
+def _field_signature(f: Field) -> tuple:
+    return (f.kind_, f.dimension, f.record, f.optional)
+
+
+def _describe_signature(sig: tuple) -> str:
+    kind, dim, record, optional = sig
+    what = U.describe_dim(dim) if kind == "quantity" else f"a {record} record" if kind == "record" else kind
+    return what + (", optional" if optional else "")
+
+
+def _declares_its_record_type(namespace: str, fname: str, returns: str | None, family: str | None) -> None:
+    where = f"plugin {namespace}.{fname}"
+    if not returns or not isinstance(returns, str):
+        raise PluginDefinitionError(f"{where}: declare the record type it returns, e.g. returns=\"{namespace}\" "
+                                    "(every function returning one type declares the same fields)")
+    if family is not None and (not isinstance(family, str) or not family):
+        raise PluginDefinitionError(f"{where}: family must name a family of record types, e.g. family=\"load\"")
+    if family == returns:
+        raise PluginDefinitionError(f"{where}: record type {returns} cannot be its own family")
+
+
+def same_record_type(known: dict[str, RecordType], pf: PluginFunction) -> None:
+    """Check ``pf`` against the record type it returns as declared so far in ``known`` (and add it): the same
+    fields, each declared alike, and the same family. A refusal names both functions and the difference."""
+    first = known.setdefault(pf.returns, RecordType.of(pf))
+    mine = RecordType.of(pf)
+    head = f"plugin {pf.qualname}: returns a {pf.returns} record like {first.maker} but"
+    missing = [n for n in first.fields if n not in mine.fields]
+    extra = [n for n in mine.fields if n not in first.fields]
+    if missing or extra:
+        parts = ([f"lacks field(s) {', '.join(missing)}"] if missing else []) + \
+            ([f"adds field(s) {', '.join(extra)}"] if extra else [])
+        raise PluginDefinitionError(
+            f"{head} {' and '.join(parts)}; every function returning one record type declares the same fields "
+            "(give a kind with fields of its own a record type of its own, in a family)")
+    for n, sig in mine.fields.items():
+        if first.fields[n] != sig:
             raise PluginDefinitionError(
-                f"plugin {pf.qualname}: returns a {pf.returns} record like {seen[3]} but declares field "
-                f"{f.name} differently; every function returning one record type declares each field alike")
+                f"{head} declares field {n} as {_describe_signature(sig)}, not "
+                f"{_describe_signature(first.fields[n])}; every function returning one record type declares "
+                "each field alike")
+    if mine.family != first.family:
+        raise PluginDefinitionError(f"{head} puts it in family {mine.family!r}, not {first.family!r}")
+
+
+def takes_record(wanted: str, record_type: str, family: str | None) -> bool:
+    """A parameter (or list item) naming ``wanted`` takes a record of ``record_type`` in ``family``: the type
+    itself, or any type of the family of that name."""
+    return record_type == wanted or (family is not None and family == wanted)
 
 
 FIELD_KINDS = ("quantity", "number", "text", "record")
@@ -298,6 +360,7 @@ class Record:
     fields: dict[str, Any]
     working: Working | None = None
     source: str = ""  # "section.rectangle"
+    family: str | None = None  # its record type's family ("load"), when it has one
     declared: dict[str, Field] = field(default_factory=dict)
     optional: dict[str, str] = field(default_factory=dict)  # absent optional field -> why
     # What the plugin needs to take this record back as an argument (a section's outline), kept
@@ -397,17 +460,18 @@ class PluginRegistry:
                 continue
             if ns is not None:
                 functions.extend(ns.functions.values())
-        makers: dict[str, dict[str, tuple]] = {}
+        makers: dict[str, RecordType] = {}
         for pf in functions:
             try:
-                _same_fields(makers.setdefault(pf.returns, {}), pf)
+                same_record_type(makers, pf)
             except PluginDefinitionError as exc:
                 problems.append(str(exc))
+        families = {t.family for t in makers.values() if t.family}
         for pf in functions:
             wanted = [(f"parameter {p.name}", p.record) for p in pf.params if p.record]
             wanted += [(f"field {f.name}", f.record) for f in pf.fields if f.record]
             for what, record in wanted:
-                if record not in makers:
+                if record not in makers and record not in families:
                     problems.append(f"plugin {pf.qualname}: {what} needs a {record} record, "
                                     "which no loaded plugin function returns")
         return problems

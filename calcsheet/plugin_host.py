@@ -20,7 +20,7 @@ from . import nodes as N
 from . import units as U
 from .errors import CalcError, PluginArgumentError, PluginInputError
 from .names import did_you_mean
-from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds
+from .plugin import PluginFunction, PluginRegistry, Record, check_argument_kinds, takes_record
 from .trace import CheckResult, Figure, Note, Step, Table, Working
 
 
@@ -180,14 +180,14 @@ class PluginHost:
                                           span, hint=did_you_mean(value, choices))
             return value
         if kind == "record":
-            if not isinstance(value, Record) or value.type != p.record:
+            if not isinstance(value, Record) or not takes_record(p.record, value.type, value.family):
                 raise PluginArgumentError(f"{where} needs a {p.record} record, got a {kind_of(value)}", span)
             return value
         if kind == "list":
             items = value if isinstance(value, tuple) else (value,)
             for item in items:
                 if p.record:
-                    if not isinstance(item, Record) or item.type != p.record:
+                    if not isinstance(item, Record) or not takes_record(p.record, item.type, item.family):
                         raise PluginArgumentError(f"{where} needs a list of {p.record} records, "
                                                   f"got a {kind_of(item)} in it", span)
                 elif not isinstance(item, pint.Quantity):
@@ -238,7 +238,7 @@ class PluginHost:
                     raise PluginInputError(f"{pf.qualname} did not return its field '{f.name}' (plugin bug)", span)
                 absent[f.name] = f.doc
         return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
-                      declared=declared, optional=absent)
+                      family=pf.family, declared=declared, optional=absent)
 
     # ---------------------------------------------------------------- the Work's host side
     def display_unit_for(self, value, unit_text: str | None = None):
@@ -252,9 +252,12 @@ class PluginHost:
         """``work.calc``: a formula in sheet syntax, evaluated in the call's scope and traced."""
         from .parser import parse_expression
 
-        expr = parse_expression(formula)
         used: dict = {}
-        value = self.evaluator.eval(expr, work.scope, used)
+        try:
+            expr = parse_expression(formula)
+            value = self.evaluator.eval(expr, work.scope, used)
+        except CalcError as exc:
+            raise at_the_call(exc, work, f"{name} = {formula}") from None
         display = self.display_unit_for(value, unit)
         if display is not None and isinstance(value, pint.Quantity):
             if U.without_angle(U.dim_of(value)) != U.without_angle(U.dim_of(display)):
@@ -273,7 +276,22 @@ class PluginHost:
         """``work.check``: a check in sheet syntax inside the working."""
         from .parser import parse_statement
 
-        stmt = parse_statement("check " + text)
-        result = self.evaluator.evaluate_check(stmt, work.scope, lambda k, v: self.unit_of_used(work, k, v))
+        try:
+            stmt = parse_statement("check " + text)
+            result = self.evaluator.evaluate_check(stmt, work.scope, lambda k, v: self.unit_of_used(work, k, v))
+        except CalcError as exc:
+            raise at_the_call(exc, work, f"check {text}") from None
         result.description = desc
         return result
+
+
+def at_the_call(exc: CalcError, work: Work, formula: str) -> CalcError:
+    """An error raised by one of a plugin's own formulas, made to point at the sheet's call.
+
+    The formula's text is the plugin's, not the sheet's: a span inside it (line 1, column 5 of "a + b") means
+    nothing in the sheet. The error keeps its class (its code) and hint, names the plugin and the formula in
+    its message, and loses that span, so ``PluginHost.call`` locates it at the call (file, line, column)."""
+    exc.message = f"{work.plugin.qualname}: in its formula {formula}: {exc.message}"
+    exc.args = (exc.message,)
+    exc.span = None
+    return exc

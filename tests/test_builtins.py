@@ -182,7 +182,7 @@ def test_a_plugin_formula_meets_the_same_rules(run):
 
     ns = Namespace("tb", version="1")
 
-    @ns.function("bad", params=[Param("a", "[angle]")], fields=[Field("y")])
+    @ns.function("bad", params=[Param("a", "[angle]")], fields=[Field("y")], returns="ns.bad")
     def bad(work, a):
         work.calc("y", "a + 1")
         return {"y": work["y"]}

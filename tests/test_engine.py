@@ -156,7 +156,7 @@ def _toy_registry():
 
     @ns.function("plate", params=[Param("b", "[length]"), Param("t", "[length]"),
                                  Param("kind", kind="text", choices=("steel", "alu"), default="steel")],
-                 fields=[Field("A", "[length]**2"), Field("kind", kind="text")])
+                 fields=[Field("A", "[length]**2"), Field("kind", kind="text")], returns="ns.plate")
     def plate(work, b, t, kind="steel"):
         if t.m_as("mm") <= 0:
             work.fail("the thickness must be positive", param="t")
@@ -227,7 +227,7 @@ def test_an_optional_field_may_be_absent_and_reading_it_says_why(run):
     ns = Namespace("opt")
 
     @ns.function("f", params=[Param("a", "[length]"), Param("b", "[length]", default=None)],
-                 fields=[Field("x", "[length]"), Field("y", "[length]", doc="give b to get y", optional=True)])
+                 fields=[Field("x", "[length]"), Field("y", "[length]", doc="give b to get y", optional=True)], returns="ns.f")
     def f(work, a, b=None):
         return {"x": a} if b is None else {"x": a, "y": b}
 
@@ -244,15 +244,15 @@ def test_plugin_contract_is_checked_when_a_function_registers():
 
     ns = Namespace("bad")
     with pytest.raises(PluginDefinitionError, match="plugin bad.f.*'zz'"):
-        @ns.function("f", params=[Param("a", "[length]"), Param("zz", "[length]")])
+        @ns.function("f", params=[Param("a", "[length]"), Param("zz", "[length]")], returns="ns.f")
         def f(work, a):
             return {}
     with pytest.raises(PluginDefinitionError, match="not declared"):
-        @ns.function("g", params=[])
+        @ns.function("g", params=[], returns="ns.g")
         def g(work, a):
             return {}
     with pytest.raises(PluginDefinitionError, match="bad dimension"):
-        @ns.function("h", params=[Param("a", "[lenght]")])
+        @ns.function("h", params=[Param("a", "[lenght]")], returns="ns.h")
         def h(work, a):
             return {}
 

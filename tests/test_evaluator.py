@@ -47,12 +47,12 @@ ns = Namespace("ev1")
 
 @ns.function("f", params=[Param("xs", "[length]", kind="list"), Param("pts", "[length]", kind="points"),
                           Param("mode", kind="text", choices=("a", "b"), default="a")],
-             fields=[Field("n")])
+             fields=[Field("n")], returns="ns.f")
 def f(work, xs, pts, mode="a"):
     return {"n": work.q(len(xs) + len(pts), "")}
 
 
-@ns.function("leaky", fields=[Field("n")])
+@ns.function("leaky", fields=[Field("n")], returns="ns.leaky")
 def leaky(work):
     return {"n": work.q(1, ""), "extra": work.q(2, "")}
 

@@ -23,7 +23,18 @@ golden would accept the bug, so a mutant must be killed by a test that names its
     python tools/mutation.py                          # every target (slow: hours on two cores)
     python tools/mutation.py column material          # some targets
     python tools/mutation.py section --limit 80       # an evenly spread sample of 80 mutants
+    python tools/mutation.py beam --sample 300        # a seeded random sample of 300 (--seed, default 19)
     python tools/mutation.py --list evaluator         # list the mutants without running them
+    python tools/mutation.py beam --survivors out/mutation.json --select all   # recheck survivors, every test
+
+Making a large target affordable (the beam: ~1,600 mutants, a minute of tests): with ``--select coverage``
+(the default for targets whose entry says ``"select": "coverage"``) the target's tests run once under a
+line tracer (tools/mutation_cover.py; the result is kept in out/ until a source or test file changes), and
+each mutant then runs only the tests that reach its statement, quickest first; a mutant on a line that runs
+at import (a table, a default argument) runs every test, and one on a line no test reaches survives without
+a run. The selection is exact for killing — a test that never runs the mutated statement cannot see it — so
+the score is the same as with every test. Each run is a fork of tools/mutation_server.py, which has imported
+numpy, pint, scipy and sympy once (``--no-fork`` starts a fresh pytest instead).
 
 Prints each result, the kill rate per target and overall, and the surviving mutants; writes them all to
 ``--report`` (JSON) as well.
@@ -36,13 +47,16 @@ import contextlib
 import copy
 import json
 import os
+import queue
 import re
 import shutil
 import signal
 import subprocess
 import sys
 import tempfile
+import threading
 import time
+from concurrent.futures import ThreadPoolExecutor
 from dataclasses import asdict, dataclass
 from pathlib import Path
 
@@ -59,9 +73,11 @@ TARGETS: dict[str, dict] = {
         "k": "not column_ and not material_ and not concrete and not custom",
     },
     "beam": {
-        "sources": [f"{P}/beam/{m}.py" for m in ("solver", "analysis", "handbook", "loads", "model", "combos",
-                                                  "results", "working")],
+        # diagrams.py (the SVG figures) is left out: its mutants move lines of a drawing, no value
+        "sources": [f"{P}/beam/{m}.py" for m in ("solver", "kinds", "analysis", "handbook", "loads", "model",
+                                                  "combos", "results", "query", "working")],
         "tests": ["tests/plugins/beam", "tests/test_golden_values.py"],
+        "select": "coverage",  # ~1,600 mutants × a minute of tests: each mutant runs only the tests that reach it
     },
     "column": {"sources": [f"{P}/column/buckling.py"],
                "tests": ["tests/plugins/column", "tests/plugins/test_traced_fields.py",
@@ -80,8 +96,10 @@ TARGETS: dict[str, dict] = {
                                        "evaluate_check"],
             "calcsheet/plugin_host.py": ["coerce_argument", "_check_dim", "make_record"],
         },
+        # builtins.py holds the rules the checker applies too, and the sheet functions' rules: their tests count
         "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator.py", "tests/test_builtins.py",
-                  "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py"],
+                  "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py",
+                  "tests/test_functions.py", "tests/test_checker.py", "tests/test_agreement.py"],
     },
     "units": {"sources": ["calcsheet/units.py"],
               "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
@@ -107,6 +125,60 @@ EQUIVALENT = {
     ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
+    # beam
+    ("if lo * hi < 0 or abs(lo) < 1e-9 * scale <= abs(hi) or abs(hi) < 1e-9 * scale <= abs(lo):", "<= → <"):
+        "differs only when a moment equals the round-off threshold 1e-9 × the largest moment exactly (a float tie)",
+    ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "2 → 3"):
+        "starts the search for the spans a load touches one span further left; _on_span gives nothing on a span "
+        "the load does not reach, so only time changes",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", "<= → <"):
+        "the pieces are cut at every load's ends, so a line load's start a equals a piece start ls exactly; "
+        "the two differ only when a = ls + tol to the last bit",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", ">= → >"):
+        "likewise at the piece end: b equals lt exactly, never lt − tol to the last bit",
+    ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", "<= → <"):
+        "a full-length load starts at x1 = 0 (< tol as well); they differ only for x1 = tol = 1e-9 L exactly "
+        "(the line's other <=, |w1 − w2| ≤ 1e-12·|w1|, holds strictly too: a uniform load's difference is 0)",
+    ("if ld.x1 <= tol and ld.x2 >= L - tol and abs(ld.w1 - ld.w2) <= 1e-12 * max(abs(ld.w1), 1e-300):", ">= → >"):
+        "a full-length load ends at x2 = L (> L − tol as well); they differ only for x2 = L − tol exactly",
+    ("others = sorted(x for x in a.others + [b.x] + b.others if abs(x - a.x) > tol)", "> → >="):
+        "two places of a tie exactly 1e-9 L apart, to the last bit: a tolerance's own boundary",
+    ("return 0.0 if abs(v) < 1e-9 * max(scale, 1e-300) else v", "< → <="):
+        "a value exactly equal to the round-off threshold 1e-9 × the largest value (a float tie) is kept or zeroed",
+    ("and kinds[2] == \"free\" and abs(points[0].x - model.length) <= 1e-9 * model.length):", "* → /"):
+        "the tolerance of 'the load is at the tip' becomes 1e-9/L instead of 1e-9·L: both accept a load at the tip "
+        "to round-off and nothing a sheet can place (the case's own cross-check compares it with the solver)",
+    ("and kinds[2] == \"free\" and abs(points[0].x - model.length) <= 1e-9 * model.length):", "<= → <"):
+        "differs only for a load exactly 1e-9·L from the tip (a float tie)",
+    ("lo = np.searchsorted(grid, x0 + 1e-12 * m.length, side=\"right\")", "* → /"):
+        "the grid holds the nodes exactly, so any offset between 0 and a fraction of the shortest piece (1e-12·L "
+        "or 1e-12/L) cuts the span at the same grid points",
+    ("ld.validate(L, 1e-9 * L, BeamInputError)", "* → /"):
+        "a second check of positions the model already placed within 1e-9·L of the beam (model._load): a "
+        "tolerance of 1e-9/L instead changes nothing a sheet can reach",
+    ("inside = x0 - tol <= self.x < x1 - tol or (last and abs(self.x - x1) <= tol)", "<= → <"):
+        "a load at a span's left support has x = x0 exactly, inside both ways; only x = x0 − tol to the last bit "
+        "differs (a float tie)",
+    ("merged = [x for i, x in enumerate(others) if i == 0 or x - others[i - 1] > tol]", "> → >="):
+        "two tied places exactly 1e-9·L apart to the last bit (a float tie)",
+    ("if kind == \"w\" and a <= ls + tol and b >= lt - tol and b > a:", "> → >="):
+        "a line-load part never has b = a: on_span and parts drop any part of length ≤ tol before it gets here",
+    ("rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))", "1000.0 → 2000.0"):
+        "the guard against dividing by a zero load (1 kN or 2 kN) only rescales round-off residuals of ~1e-12; "
+        "the equilibrium check holds either way",
+    ("if not (-tol <= self.x <= L + tol):", "<= → <"):
+        "a load at the very end has x = 0 or x = L exactly, inside both ways; only x = −tol or L + tol to the last "
+        "bit differs",
+    ("I_spans, I = None, Quantity(1.0, \"m^4\")", "1.0 → 2.0"):
+        "a placeholder I for a beam solved by statics alone: its forces do not depend on it and its deflection "
+        "and EI fields are absent, so no output can show it",
+    ("E = E if E is not None else Quantity(1.0, \"Pa\")  # any value: statics does not read it", "1.0 → 2.0"):
+        "likewise the placeholder E of a beam solved by statics alone",
+    ("while pos < len(text):", "< → <="):
+        "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
+    ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
+        "caps the first span searched one lower (with one span: index −1, the same last element, whose _on_span "
+        "gives nothing since a point's home span is never −1 and a line load's extent there is empty)",
 }
 
 QUIET = {"raise"}
@@ -134,6 +206,7 @@ class Mutant:
     line: int
     what: str  # e.g. "<= → <"
     source_line: str
+    lines: tuple[int, int] = (0, 0)  # the statement (or compound statement's header) holding the mutant
     status: str = ""  # killed | survived | timeout | error
     seconds: float = 0.0
     killed_by: str = ""
@@ -365,8 +438,29 @@ def find_mutants(target: str, path: Path, rel: str, functions: list[str] | None 
     lines = text.splitlines()
     walker = _Points(lines, functions)
     walker.visit(ast.parse(text))
-    return [Mutant(target, rel, k, line, what, lines[line - 1].strip() if 0 < line <= len(lines) else "")
+    spans = statement_spans(text)
+    return [Mutant(target, rel, k, line, what, lines[line - 1].strip() if 0 < line <= len(lines) else "",
+                   spans.get(line, (line, line)))
             for k, (line, what) in enumerate(walker.found)]
+
+
+def statement_spans(text: str) -> dict[int, tuple[int, int]]:
+    """Line -> (first, last) line of the innermost statement holding it; for a compound statement (if, for,
+    def, with …) only its header counts (its body's statements are their own). A mutant on a line is
+    reached by a test exactly when the test runs some line of that span."""
+    spans: dict[int, tuple[int, int]] = {}
+    for node in ast.walk(ast.parse(text)):
+        if not isinstance(node, ast.stmt):
+            continue
+        first, last = node.lineno, node.end_lineno or node.lineno
+        body = getattr(node, "body", None)
+        if isinstance(body, list) and body and isinstance(body[0], ast.stmt):
+            last = max(first, body[0].lineno - 1)
+        for line in range(first, last + 1):
+            old = spans.get(line)
+            if old is None or old[1] - old[0] > last - first:
+                spans[line] = (first, last)
+    return spans
 
 
 def mutated_source(text: str, index: int, functions: list[str] | None = None) -> str:
@@ -421,21 +515,51 @@ def _env(copy_root: Path) -> dict:
     return env
 
 
-def run_tests(copy_root: Path, tests: list[str], timeout: float, k: str | None = None) -> tuple[str, float, str]:
+class Server:
+    """tools/mutation_server.py in the scratch copy's environment: each run is a fork of a process that has
+    already imported the heavy libraries (numpy, pint, scipy, sympy …), several seconds saved per mutant."""
+
+    def __init__(self, copy_root: Path):
+        self.proc = subprocess.Popen([sys.executable, str(ROOT / "tools" / "mutation_server.py")], cwd=copy_root,
+                                     env=_env(copy_root), stdin=subprocess.PIPE, stdout=subprocess.PIPE, text=True)
+        if not json.loads(self.proc.stdout.readline() or "{}").get("ready"):
+            raise SystemExit("the mutation test server did not start")
+
+    def run(self, args: list[str], timeout: float) -> dict:
+        self.proc.stdin.write(json.dumps({"args": args, "timeout": timeout}) + "\n")
+        self.proc.stdin.flush()
+        return json.loads(self.proc.stdout.readline())
+
+    def close(self) -> None:
+        """Stop the server and a run it may be in (a stopped mutation run leaves no process behind)."""
+        with contextlib.suppress(Exception):
+            self.proc.terminate()
+            self.proc.wait(timeout=10)
+
+
+def run_tests(copy_root: Path, tests: list[str], timeout: float, k: str | None = None,
+              server: Server | None = None) -> tuple[str, float, str]:
     """('passed' | 'failed' | 'timeout', seconds, first failing test)."""
-    cmd = [sys.executable, "-m", "pytest", "-x", "-q", "--no-header", "-p", "no:cacheprovider",
-           "--hypothesis-seed=0", *(["-k", k] if k else []), *tests]
-    t0 = time.monotonic()
-    try:
-        proc = subprocess.run(cmd, cwd=copy_root, env=_env(copy_root), capture_output=True, text=True,
-                              timeout=timeout, start_new_session=True)
-    except subprocess.TimeoutExpired:
-        return "timeout", time.monotonic() - t0, ""
-    dt = time.monotonic() - t0
-    if proc.returncode == 0:
-        return "passed", dt, ""
-    failed = re.findall(r"^(?:FAILED|ERROR) (\S+)", proc.stdout, re.M)
-    return "failed", dt, failed[0] if failed else proc.stdout.strip().splitlines()[-1:][0] if proc.stdout else ""
+    args = ["-x", "-q", "--no-header", "-p", "no:cacheprovider", "--hypothesis-seed=0", *(["-k", k] if k else []),
+            *tests]
+    # no example saved by an earlier mutant's failure is replayed: every mutant meets the same examples
+    shutil.rmtree(copy_root / ".hypothesis", ignore_errors=True)
+    if server is not None:
+        answer = server.run(args, timeout)
+        status, dt, out = answer["status"], answer["seconds"], answer["output"]
+    else:
+        t0 = time.monotonic()
+        try:
+            proc = subprocess.run([sys.executable, "-m", "pytest", *args], cwd=copy_root, env=_env(copy_root),
+                                  capture_output=True, text=True, timeout=timeout, start_new_session=True)
+        except subprocess.TimeoutExpired:
+            return "timeout", time.monotonic() - t0, ""
+        dt, out = time.monotonic() - t0, proc.stdout
+        status = "passed" if proc.returncode == 0 else "failed"
+    if status != "failed":
+        return status, dt, ""
+    failed = re.findall(r"^(?:FAILED|ERROR) (\S+)", out, re.M)
+    return "failed", dt, failed[0] if failed else out.strip().splitlines()[-1:][0] if out.strip() else ""
 
 
 def _check_copy_is_used(copy_root: Path) -> None:
@@ -446,12 +570,86 @@ def _check_copy_is_used(copy_root: Path) -> None:
         raise SystemExit(f"the scratch copy is not the code under test: {out}")
 
 
+class Coverage:
+    """Which test reaches which line of a target's sources (one traced run of its tests, tools/mutation_cover.py)."""
+
+    def __init__(self, data: dict):
+        self.order: list[str] = data["order"]
+        self.seconds: dict[str, float] = data["seconds"]
+        self.imported = {tuple(x) for x in data["import"]}
+        self.by_line: dict[tuple[str, int], set[str]] = {}
+        for test, lines in data["tests"].items():
+            for path, line in lines:
+                self.by_line.setdefault((path, line), set()).add(test)
+        for module, lines in data["setup"].items():  # what a fixture made once, every test of its file uses
+            tests = {t for t in self.order if t.split("::", 1)[0] == module}
+            for path, line in lines:
+                self.by_line.setdefault((path, line), set()).update(tests)
+
+    @classmethod
+    def measure(cls, copy_root: Path, target: str, tests: list[str], k: str | None,
+                stale_ok: bool = False) -> "Coverage":
+        """Trace the target's tests once; kept in out/ and reused while no source or test file changes."""
+        import hashlib
+
+        digest = hashlib.sha256()
+        for folder in ("calcsheet", "plugins", "tests"):
+            for f in sorted((copy_root / folder).rglob("*.py")):
+                digest.update(str(f.relative_to(copy_root)).encode() + b"\0" + f.read_bytes())
+        digest.update(json.dumps([tests, k]).encode())
+        cache = ROOT / "out" / f"mutation-cover-{target}.json"
+        if cache.exists():
+            data = json.loads(cache.read_text())
+            if data.get("key") == digest.hexdigest() or stale_ok:
+                # stale: tests added since are not chosen for a mutant (never a false kill; rerun the survivors)
+                return cls(data)
+        out = copy_root / f".cover-{target}.json"
+        env = _env(copy_root)
+        env["PYTHONPATH"] += os.pathsep + str(ROOT / "tools")
+        env["CALCSHEET_COVER_FILES"] = json.dumps([str(copy_root / s) for s in TARGETS[target]["sources"]])
+        env["CALCSHEET_COVER_ROOT"] = str(copy_root)
+        env["CALCSHEET_COVER_OUT"] = str(out)
+        cmd = [sys.executable, "-m", "pytest", "-q", "--no-header", "-p", "no:cacheprovider", "-p", "mutation_cover",
+               "--hypothesis-seed=0", *(["-k", k] if k else []), *tests]
+        shutil.rmtree(copy_root / ".hypothesis", ignore_errors=True)
+        proc = subprocess.run(cmd, cwd=copy_root, env=env, capture_output=True, text=True)
+        if proc.returncode != 0 or not out.exists():
+            raise SystemExit(f"{target}: the traced run of its tests failed:\n{proc.stdout[-3000:]}{proc.stderr[-3000:]}")
+        data = json.loads(out.read_text())
+        data["key"] = digest.hexdigest()
+        cache.parent.mkdir(parents=True, exist_ok=True)
+        cache.write_text(json.dumps(data))
+        return cls(data)
+
+    def tests_for(self, m: Mutant) -> list[str] | None:
+        """The tests that reach mutant ``m``, quickest first (a mutant most tests kill dies in the first
+        seconds); None: every test (the line runs at import)."""
+        span = range(m.lines[0] or m.line, (m.lines[1] or m.line) + 1)
+        if any((m.path, line) in self.imported for line in span):
+            return None
+        reach = set().union(*(self.by_line.get((m.path, line), set()) for line in span))
+        return sorted((t for t in self.order if t in reach), key=lambda t: self.seconds.get(t, 0.0))
+
+    def time_of(self, tests: list[str] | None) -> float:
+        return sum(self.seconds.get(t, 0.0) for t in (self.order if tests is None else tests))
+
+
 def spread(items: list, limit: int | None) -> list:
     """An evenly spread, deterministic sample of ``limit`` items (all when None)."""
     if limit is None or limit >= len(items):
         return list(items)
     step = len(items) / limit
     return [items[int(k * step)] for k in range(limit)]
+
+
+def sample(items: list, size: int | None, seed: int) -> list:
+    """A seeded random sample of ``size`` items (all when None), in the sample's random order: a run stopped
+    early (a time limit) has still run a random sample, not the first files' mutants."""
+    if size is None:
+        return list(items)
+    import random
+
+    return random.Random(seed).sample(items, min(size, len(items)))
 
 
 def tests_for(target: str, copy_root: Path) -> list[str]:
@@ -468,8 +666,23 @@ def main(argv=None) -> int:
     ap.add_argument("--list", action="store_true", help="list the mutants, run nothing")
     ap.add_argument("--report", type=Path, default=ROOT / "out" / "mutation.json")
     ap.add_argument("--keep", action="store_true", help="keep the scratch copy")
+    ap.add_argument("--sample", type=int, default=None,
+                    help="a seeded random sample of this many mutants per target (see --seed)")
+    ap.add_argument("--seed", type=int, default=19, help="seed of --sample (default 19)")
     ap.add_argument("--survivors", type=Path, default=None,
                     help="run only the mutants a previous --report lists as survived (after adding tests)")
+    ap.add_argument("--select", choices=("coverage", "all"), default=None,
+                    help="coverage: each mutant runs only the tests that reach its line (default for targets "
+                         "that say so, e.g. beam); all: every test of the target")
+    ap.add_argument("--jobs", "-j", type=int, default=1,
+                    help="mutants run at a time, each in its own scratch copy (default 1)")
+    ap.add_argument("--resume", type=Path, default=None,
+                    help="a report of a stopped run of the same plan: its mutants are not run again")
+    ap.add_argument("--stale-cover", action="store_true",
+                    help="reuse the kept coverage map even if tests changed since (new tests are then not chosen; "
+                         "rerun the survivors with a fresh map)")
+    ap.add_argument("--no-fork", action="store_true",
+                    help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
     targets = args.targets or list(TARGETS)
     unknown = [t for t in targets if t not in TARGETS]
@@ -478,11 +691,12 @@ def main(argv=None) -> int:
 
     plan: dict[str, list[Mutant]] = {}
     for t in targets:
-        plan[t] = spread(find_all(t), args.limit)
+        plan[t] = sample(spread(find_all(t), args.limit), args.sample, args.seed)
     if args.survivors:
         earlier = json.loads(args.survivors.read_text())["mutants"]
-        keep = {(m["path"], m["index"], m["what"]) for m in earlier if m["status"] == "survived"}
-        plan = {t: [m for m in find_all(t) if (m.path, m.index, m.what) in keep]
+        # matched by file, line text and mutation, so lines moved by an edit since are still found
+        keep = {(m["path"], m["source_line"], m["what"]) for m in earlier if m["status"] == "survived"}
+        plan = {t: [m for m in find_all(t) if (m.path, m.source_line, m.what) in keep]
                 for t in plan}
     if args.list:
         for t, ms in plan.items():
@@ -491,33 +705,92 @@ def main(argv=None) -> int:
             print(f"{t}: {len(ms)} mutants")
         return 0
 
+    earlier: list[Mutant] = []
+    if args.resume and args.resume.exists():  # carry over what a stopped run of the same plan has done
+        done = {}
+        for d in json.loads(args.resume.read_text())["mutants"]:
+            d["lines"] = tuple(d.get("lines") or (0, 0))
+            done[(d["path"], d["line"], d["source_line"], d["what"])] = Mutant(**d)
+        for t in plan:
+            earlier += [done[key] for m in plan[t] if (key := (m.path, m.line, m.source_line, m.what)) in done]
+            plan[t] = [m for m in plan[t] if (m.path, m.line, m.source_line, m.what) not in done]
+        print(f"resuming: {len(earlier)} mutants done already, {sum(map(len, plan.values()))} to run", flush=True)
+
     # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
     work = Path(tempfile.mkdtemp(prefix="calcsheet-mutation-"))
-    copy_root = scratch_copy(work / "project")
-    results: list[Mutant] = []
+    results: list[Mutant] = list(earlier)
+    slots: queue.Queue = queue.Queue()  # (scratch copy, its server): one per job, each mutant takes one
+    servers: list[Server] = []
+    stop = threading.Event()
+    pool = None
     try:
-        _check_copy_is_used(copy_root)
+        for j in range(max(1, args.jobs)):
+            root = scratch_copy(work / f"project{j}")
+            _check_copy_is_used(root)
+            server = None if args.no_fork else Server(root)
+            servers += [server] if server else []
+            slots.put((root, server))
+        copy_root, server = slots.queue[0]
+        pool = ThreadPoolExecutor(max_workers=max(1, args.jobs))
         for t, ms in plan.items():
             tests = tests_for(t, copy_root)
             k = TARGETS[t].get("k")
-            status, base, first = run_tests(copy_root, tests, timeout=3600, k=k)
-            if status != "passed":
-                print(f"{t}: the unmutated tests do not pass ({first}); skipped", flush=True)
-                continue
+            cover = None
+            if (args.select or TARGETS[t].get("select")) == "coverage":
+                # the traced run is also the check that the unmutated tests pass (it refuses otherwise)
+                t0 = time.monotonic()
+                cover = Coverage.measure(copy_root, t, tests, k, stale_ok=args.stale_cover)
+                base = cover.time_of(None)
+                print(f"{t}: traced which of {len(cover.order)} tests reach which line "
+                      f"({time.monotonic() - t0:.0f} s)", flush=True)
+            else:
+                status, base, first = run_tests(copy_root, tests, timeout=3600, k=k, server=server)
+                if status != "passed":
+                    print(f"{t}: the unmutated tests do not pass ({first}); skipped", flush=True)
+                    continue
             timeout = args.timeout or max(60.0, 3 * base)
             print(f"== {t}: {len(ms)} mutants, tests {' '.join(tests)} ({base:.0f} s unmutated, "
-                  f"limit {timeout:.0f} s each)", flush=True)
-            for m in ms:
-                path = copy_root / m.path
-                with applied(path, m.index, functions_for(t, m.path)):
-                    outcome, dt, first = run_tests(copy_root, tests, timeout, k)
+                  f"limit {timeout:.0f} s each{', tests chosen by coverage' if cover else ''}, "
+                  f"{max(1, args.jobs)} at a time)", flush=True)
+
+            def one(m: Mutant, t=t, tests=tests, k=k, cover=cover, timeout=timeout) -> None:
+                if stop.is_set():
+                    return
+                chosen, limit = tests, timeout
+                if cover is not None:
+                    reach = cover.tests_for(m)
+                    if reach == []:  # no test runs this line: nothing to run, the mutant survives
+                        m.status, m.killed_by = "survived", "(no test reaches this line)"
+                        results.append(m)
+                        print(f"{'UNCOVERED':9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
+                        return
+                    if reach is not None:
+                        chosen, limit = reach, args.timeout or max(60.0, 30 + 3 * cover.time_of(reach))
+                root, srv = slots.get()
+                try:
+                    with applied(root / m.path, m.index, functions_for(t, m.path)):
+                        outcome, dt, first = run_tests(root, chosen, limit, k if chosen is tests else None,
+                                                       server=srv)
+                finally:
+                    slots.put((root, srv))
+                if stop.is_set():  # stopped mid-run: the outcome is not the mutant's
+                    return
                 m.seconds = round(dt, 1)
                 m.status = {"failed": "killed", "passed": "survived", "timeout": "timeout"}[outcome]
                 m.killed_by = first
                 results.append(m)
-                print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}", flush=True)
+                print(f"{m.status.upper():9s} {m.where:55s} {m.what}   | {m.source_line[:70]}"
+                      f"{f'   [{len(chosen)} tests, {dt:.0f} s]' if chosen is not tests else ''}", flush=True)
+
+            for f in [pool.submit(one, m) for m in ms]:
+                f.result()
     finally:
+        stop.set()
+        for srv in servers:
+            srv.close()
+        if pool is not None:
+            pool.shutdown(wait=True, cancel_futures=True)
         if not args.keep:
             shutil.rmtree(work, ignore_errors=True)
         summary = report(results)

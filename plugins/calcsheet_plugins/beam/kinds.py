@@ -23,18 +23,21 @@ from typing import Callable, ClassVar
 from calcsheet.plugin import Field, Param
 
 KINDS: dict[str, type["Load"]] = {}
+FAMILY = "load"  # the family of the kinds' record types: beam.solve's loads= takes a record of any kind
 
 
 def kind(cls):
-    """Register a load class under its sheet name (``beam.<name>``)."""
+    """Register a load class under its sheet name (``beam.<name>``); its record type is ``beam.<name>_load``,
+    one type per kind (each kind has fields of its own), all of the family ``load``."""
     KINDS[cls.name] = cls
+    cls.record_type = f"beam.{cls.name}_load"
     return cls
 
 
 CASE_PARAM = Param("case", kind="text", doc="load case name, e.g. \"D\" or \"L\"", default="")
 SPAN_PARAM = Param("span", doc="measure positions from the left support of this span (1, 2, …)", default=None)
 COMMON_FIELDS = [
-    Field("kind", kind="text", doc="point, moment, udl or varying"),
+    Field("kind", kind="text", doc="point, moment, udl, varying or axial"),
     Field("case", kind="text", doc="load case"),
     Field("span", doc="span the positions are measured in (0: from the left end of the beam)"),
 ]
@@ -113,6 +116,7 @@ class Load:
     """Base of every load kind (solver form). Subclasses set the class attributes and implement the methods."""
 
     name: ClassVar[str] = ""  # sheet function beam.<name>, and the record's kind
+    record_type: ClassVar[str] = ""  # set by @kind: beam.<name>_load, of the family FAMILY
     title: ClassVar[str] = ""  # one-line doc of the sheet function
     params: ClassVar[list] = []
     fields: ClassVar[list] = []

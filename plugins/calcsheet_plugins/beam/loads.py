@@ -9,10 +9,11 @@ from calcsheet.plugin import Field, Param
 
 from . import namespace
 from .combos import parse_factors
-from .kinds import KINDS
+from .kinds import FAMILY, KINDS
 
-for _cls in KINDS.values():
-    namespace.function(_cls.name, params=list(_cls.params), fields=list(_cls.fields), returns="load")(_cls.record)
+for _cls in KINDS.values():  # one record type per kind, all of one family (beam.solve's loads= takes any)
+    namespace.function(_cls.name, params=list(_cls.params), fields=list(_cls.fields), returns=_cls.record_type,
+                       family=FAMILY)(_cls.record)
 
 
 @namespace.function(

@@ -56,7 +56,8 @@ def steel(work, grade, t=None):
                   f"({bands['t_max'][-1]} mm)", param="t")
     i = next(k for k, lim in enumerate(bands["t_max"]) if mm <= lim)
     lo = 0 if i == 0 else bands["t_max"][i - 1]
-    j = 0 if mm < bands["fu_t_max"][0] else next(k for k, lim in enumerate(bands["fu_t_max"]) if mm <= lim)
+    # R_m bands: t < 3, 3 ≤ t ≤ 100, 100 < t ≤ 150 (EN 10025-2 Table 7): t = 3 mm belongs to the second
+    j = 0 if mm < bands["fu_t_max"][0] else next(k for k, lim in enumerate(bands["fu_t_max"]) if k and mm <= lim)
     out["f_y"] = work.let("f_y", work.q(bands["f_y"][i], "MPa"), unit="MPa",
                           desc=f"yield strength R_eH for {lo} < t ≤ {bands['t_max'][i]} mm (t = {mm:g} mm)",
                           note=bands["source"])

@@ -76,7 +76,7 @@ def _record(work, out: dict, geometry) -> Record:
             if not f.optional:
                 raise AssertionError(f"{pf.qualname} did not return its field '{f.name}'")
             absent[f.name] = f.doc
-    return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname,
+    return Record(type=pf.returns, fields=dict(out), working=work.working, source=pf.qualname, family=pf.family,
                   declared=declared, optional=absent, payload=geometry)
 
 

@@ -711,7 +711,8 @@ REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or 
 
 
 @namespace.function("aisc_beam", params=COMMON + BENDING + REQ_BEAM,
-                    fields=CLASS_FIELDS + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check")
+                    fields=CLASS_FIELDS + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check.aisc_beam",
+                    family="steel_check")
 def aisc_beam(work, section, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
               M_max=None, M_A=None, M_B=None, M_C=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
     """A beam to AISC 360-16: B4 classification, Chapter F about both axes, Chapter G shear."""
@@ -720,7 +721,8 @@ def aisc_beam(work, section, material=None, method="LRFD", F_y=None, E=None, G=N
 
 
 @namespace.function("aisc_column", params=COMMON + LENGTHS + REQ_COL,
-                    fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check")
+                    fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check.aisc_column",
+                    family="steel_check")
 def aisc_column(work, section, L, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, K_x=None,
                 K_y=None, L_y=None, L_z=None, P_r=None):
     """A column to AISC 360-16: B4 classification, Chapter E (E3, E4 where it applies, E7)."""
@@ -729,7 +731,8 @@ def aisc_column(work, section, L, material=None, method="LRFD", F_y=None, E=None
 
 
 @namespace.function("aisc_beam_column", params=COMMON + LENGTHS + BENDING + REQ_COL + REQ_BEAM,
-                    fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check")
+                    fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL, returns="steel_check.aisc_beam_column",
+                    family="steel_check")
 def aisc_beam_column(work, section, L, L_b, material=None, method="LRFD", F_y=None, E=None, G=None, form=None,
                      K_x=None, K_y=None, L_y=None, L_z=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
                      P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
@@ -739,14 +742,16 @@ def aisc_beam_column(work, section, L, L_b, material=None, method="LRFD", F_y=No
 
 
 @namespace.function("aisc_shear", params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
-                    fields=CLASS_FIELDS + F_SHEAR + F_UTIL, returns="steel_check")
+                    fields=CLASS_FIELDS + F_SHEAR + F_UTIL, returns="steel_check.aisc_shear",
+                    family="steel_check")
 def aisc_shear(work, section, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, V_r=None, L_v=None):
     """Shear alone: AISC 360-16 G2.1 (I-shapes, major axis), G4 (rectangular HSS), G5 (round HSS)."""
     return _run(work, section, material, method, F_y, E, G, form, V_r=V_r, L_v=L_v, want=("shear",))
 
 
 @namespace.function("aisc_flexure", params=COMMON + BENDING + REQ_BEAM[:1],
-                    fields=CLASS_FIELDS + F_FLEX + F_UTIL, returns="steel_check")
+                    fields=CLASS_FIELDS + F_FLEX + F_UTIL, returns="steel_check.aisc_flexure",
+                    family="steel_check")
 def aisc_flexure(work, section, L_b, material=None, method="LRFD", F_y=None, E=None, G=None, form=None, C_b=None,
                  M_max=None, M_A=None, M_B=None, M_C=None, M_rx=None):
     """Major-axis flexure alone: AISC 360-16 F2/F3 (I), F7 (rectangular HSS), F8 (round HSS)."""
@@ -755,7 +760,8 @@ def aisc_flexure(work, section, L_b, material=None, method="LRFD", F_y=None, E=N
 
 
 @namespace.function("aisc_classify", params=COMMON[:1] + COMMON[1:2] + COMMON[3:],
-                    fields=CLASS_FIELDS + [Field("form", kind="text", doc="I, RHS or CHS")], returns="steel_class")
+                    fields=CLASS_FIELDS + [Field("form", kind="text", doc="I, RHS or CHS")], returns="steel_class.aisc",
+                    family="steel_class")
 def aisc_classify(work, section, material=None, F_y=None, E=None, G=None, form=None):
     """AISC 360-16 B4.1 classification of the flanges and web, for compression and flexure."""
     ctx = _Ctx(work, section, material, form, "LRFD", F_y, E, G)

@@ -486,7 +486,8 @@ def _run(work, section, material, f_y, E, G, na, fabrication, *, L=None, L_z=Non
     return tidy(out, ctx.u)
 
 
-@namespace.function("ec3_beam", params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check")
+@namespace.function("ec3_beam", params=COMMON + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
+                    family="steel_check")
 def ec3_beam(work, section, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None, L_LT=None,
              moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled", N_Ed=None, M_y_Ed=None,
              M_z_Ed=None, V_Ed=None, psi_z=None):
@@ -496,14 +497,16 @@ def ec3_beam(work, section, material=None, f_y=None, E=None, G=None, na="recomme
                 want=("ltb",))
 
 
-@namespace.function("ec3_column", params=COMMON + BUCKLING + FORCES[:1], fields=FIELDS, returns="steel_check")
+@namespace.function("ec3_column", params=COMMON + BUCKLING + FORCES[:1], fields=FIELDS, returns="steel_check.ec3",
+                    family="steel_check")
 def ec3_column(work, section, L, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None, L_z=None,
                N_Ed=None):
     """A column to EN 1993-1-1: 5.5 classification, 6.2.4 compression, 6.3.1 flexural buckling (curves a0–d)."""
     return _run(work, section, material, f_y, E, G, na, fabrication, L=L, L_z=L_z, N_Ed=N_Ed, want=("buckling",))
 
 
-@namespace.function("ec3_beam_column", params=COMMON + BUCKLING + LTB + FORCES, fields=FIELDS, returns="steel_check")
+@namespace.function("ec3_beam_column", params=COMMON + BUCKLING + LTB + FORCES, fields=FIELDS, returns="steel_check.ec3",
+                    family="steel_check")
 def ec3_beam_column(work, section, L, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None,
                     L_z=None, L_LT=None, moment_shape="uniform", psi=None, z_g=None, C_1=None, ltb_method="rolled",
                     N_Ed=None, M_y_Ed=None, M_z_Ed=None, V_Ed=None, psi_z=None):
@@ -535,7 +538,7 @@ def ec3_chi(work, lambda_bar, curve):
                     fields=[Field("section_class", doc="cross-section class, 5.5.2(6)"),
                             Field("class_flange", doc="flange outstand class, Table 5.2"),
                             Field("class_web", doc="web class, Table 5.2")],
-                    returns="steel_class")
+                    returns="steel_class.ec3", family="steel_class")
 def ec3_classify(work, section, material=None, f_y=None, E=None, G=None, na="recommended", fabrication=None,
                  N_Ed=None, bending="yes"):
     """EN 1993-1-1 5.5 classification of an I/H section (Table 5.2); class 4 is refused (out of scope)."""

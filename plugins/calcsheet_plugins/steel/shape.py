@@ -75,4 +75,5 @@ def _signature():
 
 
 shape.__signature__ = _signature()
-namespace.function("shape", params=PARAMS, fields=FIELDS, returns="section")(shape)
+# a section of its own fields (name, form, the given properties): a record type of the section family
+namespace.function("shape", params=PARAMS, fields=FIELDS, returns="steel_design.shape", family="section")(shape)
