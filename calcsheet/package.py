@@ -46,15 +46,59 @@ def make_fetcher():
     return PackageFetcher()
 
 
+_STYLESHEET: dict = {}  # the package stylesheet's text -> its parsed weasyprint.CSS: parsed once per process
+
+
+def _stylesheet(text: str):
+    import weasyprint
+
+    css = _STYLESHEET.get(text)
+    if css is None:
+        _STYLESHEET.clear()  # only ever the one bundled stylesheet (it changes only under development)
+        css = _STYLESHEET[text] = weasyprint.CSS(string=text, base_url=str(ASSETS) + os.sep,
+                                                  url_fetcher=make_fetcher())
+    return css
+
+
+# What a page can hold at most (a page of steps, or of table rows, each at least this tall): the lower bound
+# on the page count that refuses an oversized package before layout. Measured on A4 at the package's sizes
+# (a step is ≥ 6 mm with its padding and line height; a table row ≥ 4 mm; a figure's box ≥ 30 mm).
+_PER_PAGE = {'class="step': 40, "<tr": 60, "<figure": 8}
+
+
+def estimated_pages(html: str) -> int:
+    """A lower bound of the pages the PDF of ``html`` will have, counted from its blocks without laying it
+    out (steps, table rows and figures, each no smaller than a typical one)."""
+    return int(sum(html.count(marker) / per_page for marker, per_page in _PER_PAGE.items()))
+
+
+def _too_many_pages(pages: int, what: str) -> "PackageTooLarge":
+    return PackageTooLarge(f"the PDF would have {what}{pages:,} pages; " + reading.how_to_raise("PDF_PAGES"))
+
+
 def pdf_bytes(html: str) -> bytes:
+    """The PDF of a package page. Refused before any layout when even the lower bound of its pages is over
+    the cap ``PDF_PAGES`` (WeasyPrint holds every page in memory, about 1–2 MB each, so the page cap bounds
+    the memory too), and again with the exact count before anything is written.
+
+    The bundled stylesheet, which the page carries inline so the HTML file stands alone, is taken out of the
+    page and given to WeasyPrint already parsed: it is parsed once per process, not once per PDF."""
     import weasyprint  # imported here: ~0.5 s, needed only when a PDF is written
 
-    doc = weasyprint.HTML(string=str(html), base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
-    rendered = doc.render()
-    pages = reading.limit("PDF_PAGES")
-    if len(rendered.pages) > pages:
-        raise PackageTooLarge(f"the PDF would have {len(rendered.pages):,} pages; "
-                              + reading.how_to_raise("PDF_PAGES"))
+    html = str(html)
+    cap = reading.limit("PDF_PAGES")
+    at_least = estimated_pages(html)
+    if at_least > cap:
+        raise _too_many_pages(at_least, "at least ")
+    css = (ASSETS / "package.css").read_text(encoding="utf-8")
+    stylesheets = []
+    if css in html:
+        html = html.replace(css, "", 1)
+        stylesheets.append(_stylesheet(css))
+    doc = weasyprint.HTML(string=html, base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
+    rendered = doc.render(stylesheets=stylesheets)
+    if len(rendered.pages) > cap:
+        raise _too_many_pages(len(rendered.pages), "")
     return rendered.write_pdf()
 
 

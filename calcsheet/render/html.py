@@ -1,9 +1,21 @@
 """HTML math printer: stacked fractions, superscripts, subscripts, Greek, radicals.
 
-Every hook returns ``Html`` (a typed markup string, see ``markup``): plain
-strings handed to it are escaped on the way in, so no sheet text reaches the
-page unescaped; nothing from a sheet lands in an attribute other than an
-``href="#..."`` built by ``anchor_id`` from a checked name.
+Every hook returns ``Html`` (a typed markup string, see ``markup``). Inside a
+hook the pieces are plain strings joined once: an argument that is not already
+``Html`` is escaped by ``_m`` on the way in (a hook's result is ``Html``, a
+name, number or operator from the sheet is text), so no sheet text reaches the
+page unescaped and nothing is escaped twice. Nothing from a sheet lands in an
+attribute other than an ``href="#..."`` built by ``anchor_id`` from a checked
+name.
+
+A formula is mostly text: numbers, units, operators and brackets are plain
+characters, so the typesetter sees a few long runs, not one box per token.
+Elements are kept only for structure: ``<var>`` (an italic symbol), ``<sub>``
+and ``<sup>``, links, fractions, radicals and cases. Spacing is by character:
+a no-break space before an operator or ``=`` and a breakable thin or ordinary
+space after it, ", " between arguments, so a long formula or plugin call wraps
+after an operator, an ``=`` or at an argument boundary, never inside a symbol
+or between a number and its unit.
 """
 from __future__ import annotations
 
@@ -12,123 +24,155 @@ import re
 from ..display import unit_factors
 from ..trace import CheckResult, FunctionStep, Step
 from .base import split_name
-from .markup import Html, anchor_id, esc
+from .markup import Html, anchor_id, esc, piece as _m, wrap as _wrap
 from .math import MathPrinter, is_literal
 
 __all__ = ["HtmlMathPrinter", "Html", "anchor_id", "esc"]
 
-_CMP = {"<=": Html("≤"), ">=": Html("≥"), "<": Html("&lt;"), ">": Html("&gt;")}
+_CMP = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}
+NNBSP = "&#8239;"  # narrow no-break space: between a number and its unit, before an operator
+THIN = "&#8201;"   # thin space, a line may break after it: after an operator
+EQ = "&#8239;&#160;=&#8194;"  # the "=" between the terms of a step: a line may break after it (en space), not before
+COMMA = ", "       # between arguments: where a long call wraps
+_join = "".join    # str.join: joins markup and escaped text as they are (``+`` on Html would escape again)
 
 
-def _symbol(head: str, subs: list[str]) -> Html:
-    return Html("<var>{}</var>").format(head) + (Html("<sub>{}</sub>").format(",".join(subs)) if subs else Html())
+def _cat(*parts) -> Html:
+    """Our own literals and pieces that went through ``_m``, as one ``Html``."""
+    return _wrap(_join(parts))
+
+
+def _symbol(head: str, subs: list[str]) -> str:
+    if subs:
+        return _join(("<var>", _m(head), "</var><sub>", _m(",".join(subs)), "</sub>"))
+    return _join(("<var>", _m(head), "</var>"))
+
+
+def _link(body: str, link) -> str:
+    return _join(('<a href="#', anchor_id(link), '">', body, "</a>"))
+
+
+def _op(op: str) -> str:
+    if op == "·":
+        return "·"
+    return _join((NNBSP, _m(op), THIN))
+
+
+def _args(items) -> str:
+    return COMMA.join([_m(i) for i in items])
 
 
 class HtmlMathPrinter(MathPrinter):
     default_settings = {"sigfigs": 3, "stacked_fractions": True}
 
+    def __init__(self, **settings):
+        super().__init__(**settings)
+        self._names: dict = {}  # (name, link) -> markup: a sheet names the same symbols again and again
+        self._units: dict = {}  # pint Unit -> markup
+
     def m_text(self, text):
         return esc(text)
 
     def m_string(self, text):
-        return Html('<span class="str">“{}”</span>').format(text)
+        return _cat("“", _m(text), "”")
 
     def m_name(self, name, link=None):
-        body = _symbol(*split_name(name))
-        if link:
-            return Html('<a class="sym" href="#{}">{}</a>').format(anchor_id(link), body)
-        return Html('<span class="sym">{}</span>').format(body)
+        key = (name, link)
+        done = self._names.get(key)
+        if done is None:
+            body = _symbol(*split_name(name))
+            done = self._names[key] = _wrap(_link(body, link) if link else body)
+        return done
 
     def m_field(self, obj, field, link=None):
-        inner = Html('<span class="owner">{}.</span>{}').format(obj, _symbol(*split_name(field)))
-        if link:
-            return Html('<a class="sym" href="#{}">{}</a>').format(anchor_id(link), inner)
-        return Html('<span class="sym">{}</span>').format(inner)
+        inner = _join(('<span class="owner">', _m(obj), ".</span>", _symbol(*split_name(field))))
+        return _wrap(_link(inner, link) if link else inner)
 
     def m_number(self, text, exp):
-        text = esc(text).replace("-", "−")
+        text = _m(text).replace("-", "−")
         if exp is None:
-            return Html('<span class="num">{}</span>').format(text)
-        return Html('<span class="num">{}×10<sup>{}</sup></span>').format(text, esc(str(exp)).replace("-", "−"))
+            return _wrap(text)
+        return _cat(text, "×10<sup>", _m(str(exp)).replace("-", "−"), "</sup>")
 
     def m_unit(self, unit):
-        num, den = unit_factors(unit)
+        done = self._units.get(unit)
+        if done is None:
+            num, den = unit_factors(unit)
 
-        def part(items):
-            return Html("·").join(esc(s) + (Html("<sup>{}</sup>").format(_exp(e)) if e != 1 else Html())
-                                  for s, e in items)
+            def part(items):
+                return "·".join([_join((_m(s), "<sup>", _m(_exp(e)), "</sup>")) if e != 1 else _m(s)
+                                 for s, e in items])
 
-        top = part(num) or (Html("1") if den else Html())
-        if den:
-            bottom = part(den)
-            text = Html("{}/({})").format(top, bottom) if len(den) > 1 else Html("{}/{}").format(top, bottom)
-        else:
-            text = top
-        return Html('<span class="unit">{}</span>').format(text)
+            top = part(num) or ("1" if den else "")
+            if den:
+                bottom = part(den)
+                text = _join((top, "/(", bottom, ")")) if len(den) > 1 else _join((top, "/", bottom))
+            else:
+                text = top
+            done = self._units[unit] = _wrap(text)
+        return done
 
     def m_quantity(self, number, unit):
         if not unit:
             return number
-        if ">°<" in unit:
-            return Html('<span class="qty">{}{}</span>').format(number, unit)
-        return Html('<span class="qty">{}&#8239;{}</span>').format(number, unit)
+        unit = _m(unit)
+        if unit.startswith("°"):
+            return _cat(_m(number), unit)
+        return _cat(_m(number), NNBSP, unit)
 
     def m_paren(self, inner):
-        return Html('<span class="paren">(</span>{}<span class="paren">)</span>').format(inner)
+        return _cat("(", _m(inner), ")")
 
     def m_neg(self, inner):
-        return Html("−{}").format(inner)
+        return _cat("−", _m(inner))
 
     def m_binary(self, left, op, right):
-        if op == "·":
-            return Html('{}<span class="op dot">·</span>{}').format(left, right)
-        return Html('{}<span class="op">{}</span>{}').format(left, op, right)
+        return _cat(_m(left), _op(op), _m(right))
 
     def m_frac(self, num, den):
-        return Html('<span class="frac"><span class="fn">{}</span><span class="fd">{}</span></span>').format(num, den)
+        return _cat('<span class="frac"><span class="fn">', _m(num), '</span><span class="fd">', _m(den),
+                    "</span></span>")
 
     def m_pow(self, base, exponent):
-        return Html("{}<sup>{}</sup>").format(base, exponent)
+        return _cat(_m(base), "<sup>", _m(exponent), "</sup>")
 
     def m_sqrt(self, inner):
-        return Html('<span class="sqrt"><span class="radic">√</span><span class="radicand">{}</span></span>'
-                    ).format(inner)
+        return _cat('<span class="sqrt">√<span class="radicand">', _m(inner), "</span></span>")
 
     def m_abs(self, inner):
-        return Html('<span class="abs">|</span>{}<span class="abs">|</span>').format(inner)
+        return _cat("|", _m(inner), "|")
 
     def m_call(self, func, args, plugin=False):
-        sep = Html('<span class="comma">, </span>')
-        return Html('<span class="{}">{}</span>{}').format("plugin" if plugin else "fn", func,
-                                                            self.m_paren(sep.join(args)))
+        if plugin:
+            return _cat('<span class="plugin">', _m(func), "</span>(", _args(args), ")")
+        return _cat(_m(func), "(", _args(args), ")")
 
     def m_keyword(self, name, value):
-        return Html('<span class="kw">{}&#8201;=&#8201;{}</span>').format(self.m_name(name), value)
+        return _cat(self.m_name(name), NNBSP, "=", NNBSP, _m(value))
 
     def m_list(self, items):
-        return Html("[{}]").format(Html(", ").join(items))
+        return _cat("[", _args(items), "]")
 
     def m_tuple(self, items):
-        return self.m_paren(Html(", ").join(items))
+        return _cat("(", _args(items), ")")
 
     def m_compare(self, left, op, right):
-        return Html('{}<span class="op">{}</span>{}').format(left, _CMP[op], right)
+        return _cat(_m(left), NNBSP, _CMP[op], THIN, _m(right))
 
     def m_cases(self, then, cond, otherwise):
-        return Html('<span class="cases"><span class="brace">{{</span><span class="rows">'
-                    '<span class="row">{}<span class="when">if</span>{}</span>'
-                    '<span class="row">{}<span class="when">otherwise</span></span></span></span>'
-                    ).format(then, cond, otherwise)
+        return _cat('<span class="cases"><span class="brace">{</span><span class="rows"><span class="row">',
+                    _m(then), '<span class="when">if</span>', _m(cond), '</span><span class="row">',
+                    _m(otherwise), '<span class="when">otherwise</span></span></span></span>')
 
     # ------------------------------------------------------------ trace records
     def step_parts(self, step: Step, link=None, exact: dict | None = None) -> list[Html]:
         """The chain symbol = formula = substitution = result, each already HTML."""
         if isinstance(step, FunctionStep):  # a sheet function: its definition, once
-            params = [self.m_name(p) + (Html('&#8201;<span class="unit">[{}]</span>').format(u) if u is not None
-                                        else Html()) for p, u in step.params]
+            params = [_cat(self.m_name(p), THIN, "[", _m(u), "]") if u is not None else self.m_name(p)
+                      for p, u in step.params]
             head = self.m_call(self.m_name(step.name), params)
             if step.unit_text:
-                head += Html('&#8201;<span class="unit">[{}]</span>').format(step.unit_text)
+                head = _cat(head, THIN, "[", _m(step.unit_text), "]")
             return [head, self.expr(step.expr, link=link)]
         lhs = self.m_name(step.name)
         result = self.value(step.value, step.display_unit)
@@ -150,15 +194,18 @@ class HtmlMathPrinter(MathPrinter):
         return parts
 
     def check_parts(self, check: CheckResult, link=None, exact: dict | None = None) -> tuple[Html, Html]:
-        cmp = Html('<span class="op">{}</span>').format(_CMP[check.op])
-        sym = self.expr(check.left, link=link) + cmp + self.expr(check.right, link=link)
-        sub = (self.expr(check.shown_left or check.left, values=check.used, exact=exact) + cmp
-               + self.expr(check.shown_right or check.right, values=check.used, exact=exact))
+        cmp = _join((NNBSP, _CMP[check.op], THIN))
+        sym = _cat(_m(self.expr(check.left, link=link)), cmp, _m(self.expr(check.right, link=link)))
+        sub = _cat(_m(self.expr(check.shown_left or check.left, values=check.used, exact=exact)), cmp,
+                   _m(self.expr(check.shown_right or check.right, values=check.used, exact=exact)))
         return sym, sub
 
 
+_TAG = re.compile(r"<[^>]+>")
+
+
 def _plain(markup: str) -> str:
-    return re.sub(r"<[^>]+>", "", str(markup)).replace("&#8239;", " ")
+    return _TAG.sub("", str(markup)).replace(NNBSP, " ").replace(THIN, " ")
 
 
 def _exp(e) -> str:

@@ -70,6 +70,20 @@ def _safe_str(value) -> str:
     return html.escape(str(value), quote=True)
 
 
+def piece(value) -> str:
+    """One piece of a page being joined by hand (a printer's hot path): markup as it is, anything else
+    escaped, as a plain ``str``. Join the pieces and make the whole ``Html`` once with ``wrap``."""
+    if isinstance(value, Markup):
+        return value
+    return _escape(str(value), True)
+
+
+def wrap(joined: str) -> Html:
+    """Pieces joined by hand (each one through ``piece``, or a literal of our own) as ``Html``, without
+    escaping them again."""
+    return _new(Html, joined)
+
+
 def esc(text) -> Html:
     """Text as HTML: escaped, unless it is already ``Html``."""
     return Html.escape(text)

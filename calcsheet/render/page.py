@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import datetime as _dt
 import hashlib
+import re
 from pathlib import Path
 
 import pint
@@ -19,9 +20,9 @@ from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Work
 from .base import split_name
 from .document import DocumentPrinter, exact_inputs, number_items
 from .. import nodes as N
-from .html import HtmlMathPrinter
+from .html import EQ, HtmlMathPrinter
 from .math import is_literal
-from .markup import Html, anchor_id, esc
+from .markup import Html, anchor_id, esc, piece, wrap
 
 ASSETS = Path(__file__).resolve().parent.parent / "assets"
 
@@ -342,7 +343,7 @@ class PackageDocument(DocumentPrinter):
 
     def _print_Step(self, step: Step, inner: bool = False) -> Html:
         parts = self.printer.step_parts(step, None if inner else self.link, None if inner else self.exact)
-        chain = Html('<span class="eq">=</span>').join(Html('<span class="term">{}</span>').format(p) for p in parts)
+        chain = wrap(EQ.join(map(piece, parts)))  # one run of text: a long chain wraps after an "="
         marks = []
         if step.overridden is not None:
             marks.append(Html('<span class="mark override">set for this build; sheet value {}</span>').format(
@@ -353,7 +354,7 @@ class PackageDocument(DocumentPrinter):
         ident = Html(' id="{}"').format(anchor_id(step.anchor)) if step.anchor and not inner else Html()
         number = Html('<span class="stepno">{}</span>').format(step.number) if step.number else Html()
         desc = Html('<div class="desc">{}</div>').format(step.description) if step.description else Html()
-        out = Html('<div class="step{}"{}>{}<div class="stepbody">{}<div class="math">{}</div>{}{}</div></div>').format(
+        out = Html('<div class="step{}"{}>{}{}<div class="math">{}</div>{}{}</div>').format(
             " input" if step.is_input else "", ident, number, desc, chain, note, Html("").join(marks))
         if step.working is not None:
             out += self._print_Working(step.working, owner=step.name)
@@ -370,9 +371,9 @@ class PackageDocument(DocumentPrinter):
         ident = Html(' id="{}"').format(c.anchor) if c.anchor and not inner else Html()
         number = Html('<span class="stepno">{}</span>').format(c.number) if c.number else Html()
         desc = Html('<div class="desc">{}</div>').format(c.description) if c.description else Html()
-        return Html('<div class="step check {}"{}>{}<div class="stepbody">{}'
-                    '<div class="math"><span class="kwd">check</span> {}<span class="eq">:</span>{}'
-                    '<span class="verdict">{}</span><span class="ratio">{}</span></div></div></div>').format(
+        return Html('<div class="step check {}"{}>{}{}'
+                    '<div class="math"><span class="kwd">check</span> {}&#160;: {}'
+                    ' <span class="verdict">{}</span> <span class="ratio">{}</span></div></div>').format(
             "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio) + self._after(c)
 
     def _print_Table(self, t: Table, inner: bool = False) -> Html:
@@ -389,20 +390,26 @@ class PackageDocument(DocumentPrinter):
                 return esc(f"{v:.4g}")
             return esc(v)
 
-        def row(r):
-            return Html("<tr>{}</tr>").format(Html("").join(
-                Html("<td>{}</td>").format(cell(v, u)) for v, u in zip(r, units + [None] * len(r))))
-
-        units = t.units or [None] * len(t.columns)
-        head = Html("").join(
-            Html("<th>{}{}</th>").format(_header(c), Html("<br><span class=unit-h>{}</span>").format(unit_text(u))
-                                         if u is not None else "")
-            for c, u in zip(t.columns, units + [None] * (len(t.columns) - len(units))))
-        rows = Html("").join(row(r) for r in t.rows)
-        foot = Html("").join(row(r) for r in (t.footer or []))
+        units = list(t.units or [None] * len(t.columns))
+        units += [None] * (len(t.columns) - len(units))
+        heads = [Html("<th>{}{}</th>").format(_header(c), Html("<br><span class=unit-h>{}</span>").format(unit_text(u))
+                                              if u is not None else "")
+                 for c, u in zip(t.columns, units)]
+        body = [[Html("<td>{}</td>").format(cell(v, u)) for v, u in zip(r, units + [None] * len(r))] for r in t.rows]
+        foot = [[Html("<td>{}</td>").format(cell(v, u)) for v, u in zip(r, units + [None] * len(r))]
+                for r in (t.footer or [])]
         note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
-        return Html("<table class='parts'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>{}</table>{}"
-                    ).format(t.title, head, rows, Html("<tfoot>{}</tfoot>").format(foot) if foot else "", note)
+        groups = column_groups([heads, *body, *foot], TABLE_WIDTH_PT)
+        tables = []
+        for n, cols in enumerate(groups):
+            def rows(rs):
+                return Html("").join(Html("<tr>{}</tr>").format(Html("").join(r[i] for i in cols if i < len(r)))
+                                     for r in rs)
+            title = t.title if n == 0 else Html("{} (continued, {} of {})").format(t.title, n + 1, len(groups))
+            tables.append(Html("<table class='parts'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>"
+                               "{}</table>").format(title, Html("").join(heads[i] for i in cols), rows(body),
+                                                    Html("<tfoot>{}</tfoot>").format(rows(foot)) if foot else ""))
+        return Html("").join(tables) + note
 
     # ------------------------------------------------------------ back matter
     def inputs_list(self) -> Html:
@@ -451,6 +458,40 @@ class PackageDocument(DocumentPrinter):
                 Html(" — {}").format(d.hint) if d.hint else "")
             for d in diags)
         return Html("<section class='diagnostics'><h2 class='sec' id='diagnostics'>Diagnostics</h2><ul>{}</ul></section>").format(items)
+
+
+# The width a plugin's table may take: the text block of the narrower paper (A4: 210 mm less 30 mm of margins)
+# less the indent of a working (about 17 mm), in points.
+TABLE_WIDTH_PT = (210 - 30 - 17) * 72 / 25.4
+_CHAR_PT = 4.9  # the widest typical advance of a digit or letter at the tables' 7.8 pt (DejaVu Sans: 0.63 em)
+_CELL_PT = 8.5  # a cell's padding (1.4 mm each side) and rule
+_TAGS = re.compile(r"<[^>]+>|&#?\w+;")
+
+
+def _min_width(cell: str) -> float:
+    """The narrowest a cell can be, in points: its longest unbreakable run of characters (text wraps at its
+    spaces; a number and its unit are joined by a no-break space)."""
+    text = _TAGS.sub(lambda m: "" if m.group(0).startswith("<") else "x", str(cell).replace("<br>", " "))
+    longest = max((len(w) for w in text.split()), default=0)
+    return longest * _CHAR_PT + _CELL_PT
+
+
+def column_groups(rows: list[list[str]], width: float) -> list[list[int]]:
+    """Columns of a table split into groups that each fit ``width`` points, the first column (the row's
+    label) repeated in every group; one group when the whole table fits."""
+    n = max((len(r) for r in rows), default=0)
+    widths = [max((_min_width(r[i]) for r in rows if i < len(r)), default=0.0) for i in range(n)]
+    if sum(widths) <= width or n < 3:
+        return [list(range(n))]
+    groups, current, used = [], [0], widths[0]
+    for i in range(1, n):
+        if used + widths[i] > width and len(current) > 1:
+            groups.append(current)
+            current, used = [0], widths[0]
+        current.append(i)
+        used += widths[i]
+    groups.append(current)
+    return groups
 
 
 def _split_cross_checks(items: list) -> tuple[list, list]:

@@ -31,3 +31,29 @@ def test_symbols_link_to_their_definitions():
 def test_a_conditional_is_a_brace_with_its_cases():
     h = HtmlMathPrinter().expr(parse_expression("if(h <= 150 mm, 1, 2)"))
     assert '<span class="cases">' in h and h.count('<span class="row">') == 2 and "otherwise" in h
+
+
+def test_a_formula_is_mostly_text_with_elements_only_for_structure():
+    # numbers, units, operators and brackets are characters; symbols, sub/superscripts and fractions are elements
+    h = str(HtmlMathPrinter().expr(parse_expression("(w_d + 1.5 kN/m)*L^2/8")))
+    tags = __import__("re").findall(r"<([a-z]+)", h)
+    assert sorted(set(tags)) == ["span", "sub", "sup", "var"]
+    assert h.count("<span") == 3  # the fraction: its box, numerator and denominator
+    assert "1.5&#8239;kN/m" in h  # a number and its unit never part
+
+
+def test_sheet_text_reaching_a_hook_is_escaped_once():
+    p = HtmlMathPrinter()
+    assert p.m_string('<b> & "q"') == "“&lt;b&gt; &amp; &quot;q&quot;”"
+    assert p.m_call("ns.<x>", ["1"], plugin=True) == '<span class="plugin">ns.&lt;x&gt;</span>(1)'
+    inner = p.m_string("a<b")
+    assert p.m_paren(inner) == "(“a&lt;b”)"  # markup from a hook is kept, not escaped again
+
+
+def test_a_long_call_can_wrap_only_at_its_argument_boundaries():
+    h = str(HtmlMathPrinter().expr(parse_expression(
+        'beam.solve(spans=[6.0 m, 4.8 m], supports="pinned, pinned, roller", limit=360)')))
+    text = __import__("re").sub(r"<[^>]+>", "", h)
+    # the only ordinary spaces (where a line may break) follow a comma; "=" and units are held by no-break spaces
+    assert all(piece.endswith(",") for piece in text.split(" ")[:-1])
+    assert "spans&#8239;=&#8239;[6.0&#8239;m, 4.8&#8239;m]" in text
