@@ -19,6 +19,7 @@ import re
 from .. import nodes as N
 from ..errors import Span
 from ..units import parse_unit_text, split_unit
+from .tree import flags_of
 
 _CMP = {"≤": "<=", "≥": ">="}
 _MAX_NESTING = 60  # deeper text goes through the grammar (it also enforces the depth limit)
@@ -305,7 +306,7 @@ class _Reader:
         self.pos += 1
         span = _join(callee.span, self.span(close, close + 1))
         if isinstance(callee, N.Name):
-            return N.Call(func=callee.id, args=tuple(positional), kwargs=tuple(keywords), span=span,
+            return N.Call(func=callee.id, args=flags_of(callee.id, positional), kwargs=tuple(keywords), span=span,
                           func_span=callee.span)
         if isinstance(callee, N.FieldAccess) and isinstance(callee.obj, N.Name):
             return N.PluginCall(namespace=callee.obj.id, func=callee.field_name, kwargs=tuple(keywords),

@@ -184,11 +184,18 @@ class ToNodes(Transformer):
         keywords = tuple(a for a in args if isinstance(a, N.Keyword))
         span = _span_of(callee, rpar)
         if isinstance(callee, N.Name):
-            if callee.id == "lookup":  # lookup(tab.k, h=…, clamp): the word clamp is a flag, not a name
-                positional = tuple(N.Flag(name=a.id, span=a.span) if isinstance(a, N.Name) and a.id == "clamp"
-                                   and i > 0 else a for i, a in enumerate(positional))
+            positional = flags_of(callee.id, positional)
             return N.Call(func=callee.id, args=positional, kwargs=keywords, span=span, func_span=callee.span)
         if isinstance(callee, N.FieldAccess) and isinstance(callee.obj, N.Name):
             return N.PluginCall(namespace=callee.obj.id, func=callee.field_name, kwargs=keywords, args=positional,
                                 span=span, func_span=callee.span)
         raise SheetSyntaxError("only a function name or plugin.function can be called", span)
+
+
+def flags_of(func: str, positional: tuple) -> tuple:
+    """The words a built-in reads as flags, not names: ``lookup(tab.k, h=…, clamp)``. Both readers (the LALR
+    tree builder and ``parser.fast``) call this, so they build the same nodes."""
+    if func != "lookup":
+        return tuple(positional)
+    return tuple(N.Flag(name=a.id, span=a.span) if isinstance(a, N.Name) and a.id == "clamp" and i > 0 else a
+                 for i, a in enumerate(positional))

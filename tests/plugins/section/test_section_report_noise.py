@@ -14,7 +14,7 @@ def _items(r, name):
 @pytest.fixture(scope="module")
 def run():
     r = calcsheet.run('g = section.ishape(h=16 in, b=7 in, t_f=0.5 in, t_w=0.3 in, detail="brief")\n'
-                      'f = section.rolled(designation="W21X50")\n'
+                      'f = section.rolled(designation="W21X50", detail="full")\n'  # the full working: the compact default shows the table row
                       'm = section.rectangle(b=100 mm, h=200 mm, rho=7850 kg/m^3)\n')
     assert not r.errors, [d.message for d in r.errors]
     return r
