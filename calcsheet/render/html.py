@@ -107,6 +107,8 @@ class HtmlMathPrinter(MathPrinter):
             if den:
                 bottom = part(den)
                 text = _join((top, "/(", bottom, ")")) if len(den) > 1 else _join((top, "/", bottom))
+                # a line may break after "/"; a unit is one word: kip/ft never ends a line at "kip/"
+                text = _join(('<span class="nb">', text, "</span>"))
             else:
                 text = top
             done = self._units[unit] = _wrap(text)

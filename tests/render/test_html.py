@@ -38,8 +38,9 @@ def test_a_formula_is_mostly_text_with_elements_only_for_structure():
     h = str(HtmlMathPrinter().expr(parse_expression("(w_d + 1.5 kN/m)*L^2/8")))
     tags = __import__("re").findall(r"<([a-z]+)", h)
     assert sorted(set(tags)) == ["span", "sub", "sup", "var"]
-    assert h.count("<span") == 3  # the fraction: its box, numerator and denominator
-    assert "1.5&#8239;kN/m" in h  # a number and its unit never part
+    # the fraction (its box, numerator and denominator), and a unit with "/" held as one word (no line ends "kN/")
+    assert h.count("<span") == 4
+    assert '1.5&#8239;<span class="nb">kN/m</span>' in h  # a number and its unit never part
 
 
 def test_sheet_text_reaching_a_hook_is_escaped_once():
