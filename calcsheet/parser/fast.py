@@ -243,23 +243,17 @@ class _Reader:
 
     def unary(self) -> N.Expr:
         ch = self.peek()
-        if ch == "-":
+        if ch == "-" or ch == "+":
             self.pos += 1
             self.depth += 1
             if self.depth > _MAX_NESTING:
                 raise _Bail
             operand = self.unary()
             self.depth -= 1
+            if ch == "+":
+                return operand
             sp = operand.span
             return N.Neg(operand=operand, span=Span(sp.line, sp.col - 1, sp.end_line, sp.end_col))
-        if ch == "+":
-            self.pos += 1
-            self.depth += 1
-            if self.depth > _MAX_NESTING:
-                raise _Bail
-            operand = self.unary()
-            self.depth -= 1
-            return operand
         base = self.postfix()
         if self.peek() == "^":
             self.pos += 1
