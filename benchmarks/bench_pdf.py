@@ -254,7 +254,8 @@ def _plain_printer_class():
             top = part(num) or ("1" if den else "")
             if not den:
                 return top
-            return top + ("/(" + part(den) + ")" if len(den) > 1 else "/" + part(den))
+            return ('<span class="nb">' + top + ("/(" + part(den) + ")" if len(den) > 1 else "/" + part(den))
+                    + "</span>")
 
         def m_quantity(self, number, unit):
             return number if not unit else number + (unit if unit.startswith("°") else H.NNBSP + unit)
