@@ -69,7 +69,7 @@ def case_sums(work, setup, x_ref: float, ref_letter: str, lit: Lit, with_moment:
             continue
         tag = _sanitize_case(case)
         label = f"case {case}" if case else "the loads"
-        W_name, M_name = f"W{tag}", f"M_{ref_letter}{tag}"
+        W_name, M_name = f"W{tag}", f"M_{ref_letter}_loads{tag}"
         if len(loads) > MAX_TERMS:
             W, Mo = _resultants(loads, x_ref)
             work.let(W_name, lit.q(W, "force"), unit=lit.units["force"], desc=f"total downward load of {label}",

@@ -286,10 +286,8 @@ def test_every_traced_step_named_like_a_field_agrees_with_the_field(supports, lo
             assert steps[f"R_{c}"].value.m_as("N") == pytest.approx(rec.fields[f"R_{c}"].m_as("N"), rel=1e-12)
 
 
-@pytest.mark.xfail(strict=True, reason="bug (working.py, statics of a simple span): the moment of the loads about "
-                   "support A is traced under the name M_A, which is also the field 'bending moment in the member at "
-                   "support A' (0 at a pinned end); a checker reads M_A = 24 kN·m in the working and b.M_A = 0")
 def test_a_traced_step_never_reuses_a_fields_name_for_another_quantity():
+    # the moment of the loads about a support is M_A,loads; M_A is the member moment there (0 at a pin)
     r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", E=200 GPa, I=1e8 mm^4, '
                       "loads=[beam.point(P=12 kN, x=2 m)])\n")
     rec = r.values["b"]
