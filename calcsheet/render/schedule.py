@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import datetime as _dt
 import math
+import re
 from pathlib import Path
 
 from ..svg import Svg
@@ -104,12 +105,17 @@ _PAGE_START = Html("""<!DOCTYPE html>
 </table></header>""")
 
 
+def _breakable(name: str) -> Html:
+    """A file name that may wrap after "_" or "-" (in a narrow title-block cell), never inside a word."""
+    return Html("<wbr>").join(esc(part) for part in re.split(r"(?<=[_-])", str(name)))
+
+
 def page_start(meta: dict, title: str, subtitle: str, paper: str | None, css: str) -> Html:
     """Document head and the title block, from the sheet's front matter."""
     size = "letter" if str(paper or meta.get("paper", "A4")).lower() in ("letter", "us-letter") else "A4"
     date = meta.get("date") or _dt.date.today().isoformat()
     return _PAGE_START.format(title=title, size=size, css=Html(css), extra=Html(EXTRA_CSS),  # our own CSS
-                              subtitle=subtitle, date=date,
+                              subtitle=_breakable(subtitle), date=date,
                               **{k: meta.get(k, "") for k in ("project", "job", "by", "checked", "rev")})
 
 

@@ -52,3 +52,9 @@ def test_clicking_the_utilisation_heading_sorts_members_most_utilised_first(tmp_
     expected = sorted(spans, key=lambda m: -max(2 * spans[m] ** 2 / 8 / 5, 2 * spans[m] / 2 / 6))
     assert order == expected
     assert 'aria-sort="descending"' in dom
+
+
+def test_the_title_blocks_file_name_wraps_after_an_underscore_not_inside_a_word_and_stays_escaped():
+    from calcsheet.render.schedule import page_start
+    h = str(page_start({}, "t", "boardwalk_joist<x>.calc", None, ""))
+    assert "boardwalk_<wbr>joist&lt;x&gt;.calc" in h
