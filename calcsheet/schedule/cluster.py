@@ -19,7 +19,7 @@ from dataclasses import replace
 from collections import deque
 from typing import Callable, Iterable, Iterator
 
-from .runner import RETRIES, _died
+from .runner import RETRIES, _died, fill_window
 from .table import ScheduleError
 from .work import Outcome, build_task, init_worker
 
@@ -90,7 +90,6 @@ def run_cluster(items: Iterable, address: str | None = None, *, pdf: bool = Fals
         to_ask: list = []  # (future, tasks) finished, not yet asked about
         refused = []
         it = iter(items)
-        exhausted = False
 
         def submit(tasks, attempt):
             tasks = [replace(t, write_to="") if t.write_to else t for t in tasks]  # workers write nothing
@@ -115,30 +114,8 @@ def run_cluster(items: Iterable, address: str | None = None, *, pdf: bool = Fals
                         f"({n} time(s))")
             to_ask.clear()
 
-        def fill():
-            nonlocal exhausted
-            batch: list = []
-            while not exhausted and len(pending) < window:
-                try:
-                    item = next(it)
-                except StopIteration:
-                    exhausted = True
-                    break
-                if isinstance(item, Outcome):
-                    if batch:
-                        pending.append([batch, submit(batch, 1), 1])
-                        batch = []
-                    pending.append([item])
-                    continue
-                batch.append(item)
-                if len(batch) >= chunk:
-                    pending.append([batch, submit(batch, 1), 1])
-                    batch = []
-            if batch:
-                pending.append([batch, submit(batch, 1), 1])
-
         while True:
-            fill()
+            fill_window(pending, it, window, chunk, lambda batch: submit(batch, 1))
             if not pending:
                 break
             head = pending[0]

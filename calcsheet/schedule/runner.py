@@ -72,33 +72,10 @@ def run_pool(items: Iterable, jobs: int, *, pdf: bool = False, log: Callable[[st
     pool = new_pool()
     pending: deque = deque()  # [Outcome] (known already) or [tasks, future, attempts]
     it = iter(items)
-    exhausted = False
-
-    def fill():
-        nonlocal exhausted
-        batch: list = []
-        while not exhausted and len(pending) < window:
-            try:
-                item = next(it)
-            except StopIteration:
-                exhausted = True
-                break
-            if isinstance(item, Outcome):
-                if batch:
-                    pending.append([batch, pool.submit(run_chunk, batch), 1])
-                    batch = []
-                pending.append([item])
-                continue
-            batch.append(item)
-            if len(batch) >= chunk:
-                pending.append([batch, pool.submit(run_chunk, batch), 1])
-                batch = []
-        if batch:
-            pending.append([batch, pool.submit(run_chunk, batch), 1])
 
     try:
         while True:
-            fill()
+            fill_window(pending, it, window, chunk, lambda batch: pool.submit(run_chunk, batch))
             if not pending:
                 return
             head = pending[0]
@@ -143,3 +120,29 @@ def _died(task: Task, times: int) -> Outcome:
     return Outcome(task.index, task.member, ok=False, content_hash=task.content_hash,
                    errors=[f"{task.where}: error: {task.label}: the worker running this row died {times} time(s); "
                            "the row was not built"])
+
+
+def fill_window(pending: deque, rows: Iterator, window: int, chunk: int, submit: Callable) -> None:
+    """Top ``pending`` up to ``window`` entries from ``rows``, in order: rows go ``chunk`` at a time as
+    ``[batch, submit(batch), 1]`` (batch, future, attempt), an outcome already known as ``[outcome]``.
+    The process pool and the Dask cluster feed their windows alike through this."""
+    batch: list = []
+    while len(pending) < window:
+        item = next(rows, _END)
+        if item is _END:
+            break
+        if isinstance(item, Outcome):
+            if batch:
+                pending.append([batch, submit(batch), 1])
+                batch = []
+            pending.append([item])
+            continue
+        batch.append(item)
+        if len(batch) >= chunk:
+            pending.append([batch, submit(batch), 1])
+            batch = []
+    if batch:
+        pending.append([batch, submit(batch), 1])
+
+
+_END = object()  # the end of the rows (next's default)
