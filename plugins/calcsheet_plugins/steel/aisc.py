@@ -73,6 +73,14 @@ class _Ctx:
         for n, k, d in names:
             self.prop(n, k, d)
 
+    def radii(self):
+        """r_x and r_y from the section, or sqrt(I/A) where it gives none; then the properties used so far."""
+        for r in ("r_x", "r_y"):
+            if self.prop(r, "ln", f"radius of gyration about {r[-1]}", required=False) is None:
+                self.show_inputs("Section properties used")
+                self.work.calc(r, f"sqrt(I_{r[-1]}/A)", unit=self.u["ln"], desc=f"radius of gyration about {r[-1]}")
+        self.show_inputs("Section properties used")
+
     def show_inputs(self, title):
         if self.rows:
             self.work.table(title, ["Symbol", "Property", "Value"], self.rows,
@@ -100,11 +108,7 @@ class _Ctx:
                     ("I_x", "i4", "I about x"), ("I_y", "i4", "I about y"), ("S_x", "i3", "S about x"),
                     ("Z_x", "i3", "Z about x"), ("S_y", "i3", "S about y"), ("Z_y", "i3", "Z about y"),
                     ("J", "i4", "torsional constant"), ("C_w", "i6", "warping constant")])
-        for r in ("r_x", "r_y"):
-            if self.prop(r, "ln", f"radius of gyration about {r[-1]}", required=False) is None:
-                self.show_inputs("Section properties used")
-                w.calc(r, f"sqrt(I_{r[-1]}/A)", unit=u["ln"], desc=f"radius of gyration about {r[-1]}")
-        self.show_inputs("Section properties used")
+        self.radii()
         if self.form == "T":
             return
         hw = field(self.section, "h_w")
@@ -131,11 +135,7 @@ class _Ctx:
                     ("t", "ln", "design wall thickness"), ("I_x", "i4", "I about x"), ("I_y", "i4", "I about y"),
                     ("S_x", "i3", "S about x"), ("Z_x", "i3", "Z about x"), ("S_y", "i3", "S about y"),
                     ("Z_y", "i3", "Z about y"), ("J", "i4", "torsional constant")])
-        for r in ("r_x", "r_y"):
-            if self.prop(r, "ln", f"radius of gyration about {r[-1]}", required=False) is None:
-                self.show_inputs("Section properties used")
-                w.calc(r, f"sqrt(I_{r[-1]}/A)", unit=u["ln"], desc=f"radius of gyration about {r[-1]}")
-        self.show_inputs("Section properties used")
+        self.radii()
         w.calc("b", "B - 3*t", unit=u["ln"], desc="flat width of the flange walls b = B − 3t (B4.1b(d))")
         w.calc("h", "H - 3*t", unit=u["ln"], desc="flat depth of the web walls h = H − 3t (B4.1b(d))")
 

@@ -41,11 +41,7 @@ def angle_geometry(ctx):
     ctx.rows.append(["theta_p", "angle from x to the major principal axis", th])
     if ctx.prop("C_w", "i6", "warping constant", required=False) is None:
         w.let("C_w", w.q(0.0, u["i6"]), desc="warping constant of a single angle", note="taken as 0 (common practice)")
-    for r in ("r_x", "r_y"):
-        if ctx.prop(r, "ln", f"radius of gyration about {r[-1]}", required=False) is None:
-            ctx.show_inputs("Section properties used")
-            w.calc(r, f"sqrt(I_{r[-1]}/A)", unit=u["ln"], desc=f"radius of gyration about {r[-1]}")
-    ctx.show_inputs("Section properties used")
+    ctx.radii()
 
 
 def shear_centre(ctx):
