@@ -658,6 +658,9 @@ BENDING = [
           doc="tees (F9): the stem tip in tension (flange in compression) or in compression", default="tension"),
     Param("toe", kind="text", choices=("compression", "tension"),
           doc="single angles (F10): the toe of the vertical leg in compression or tension", default="compression"),
+    Param("compression_flange", kind="text", choices=("top", "bottom"),
+          doc="singly symmetric I-shapes (F4, F5): the flange in compression — top for a sagging moment, bottom for "
+              "a hogging one (default: from the sign of the beam's moment with beam=…, else top)", default=None),
     Param("restraint", kind="text", choices=("none", "at_max_moment"),
           doc="single angles (F10.2): lateral-torsional restraint only at the ends, or also at the point of "
               "maximum moment", default="none"),
@@ -737,7 +740,8 @@ def _util(w, name, req, cap, desc):
 def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, K_y=None, L_y=None, L_z=None,
          L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None,
          x_end=None, stem="tension", toe="compression", restraint="none", L_v=None,
-         P_r=None, M_rx=None, M_ry=None, V_r=None, want=("compression", "flexure", "flexure_y", "shear")):
+         P_r=None, M_rx=None, M_ry=None, V_r=None, compression_flange=None,
+         want=("compression", "flexure", "flexure_y", "shear")):
     ctx = _start(work, section, material, method, F_y, E, G, form)
     w, sc, u = work, work.scope, ctx.u
     for nm, q in (("L", L), ("L_y", L_y), ("L_z", L_z), ("L_v", L_v)):
@@ -769,6 +773,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     biaxial = False
     if "flexure" in want:
         cb = _cb(w, C_b, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end) if ctx.form != "CHS" else None
+        ctx.compression_flange = _compression_flange(ctx, compression_flange, beam, combo, x_start, x_end)
         gov = ctx.flexure_major(L_b, cb, stem, toe, restraint)
         ctx.available("M_cx", "M_nx", "flexure")
         out.update(M_nx=sc["M_nx"], M_cx=sc["M_cx"], governing_flexure=gov)
@@ -808,6 +813,25 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     return _collect(ctx, out, utils)
 
 
+def _compression_flange(ctx, given, beam, combo, x_start, x_end):
+    """Which flange of an I-shape is in compression: given, else the sign of the beam's moment where |M| is
+    largest in the segment (sagging positive: top), else the top flange."""
+    w = ctx.work
+    if given is not None:
+        if ctx.form != "I" or not ctx.singly:
+            w.note(f"compression_flange=\"{given}\" makes no difference for this "
+                   f"{'doubly symmetric I-shape' if ctx.form == 'I' else 'section'}.", kind="method")
+        return given
+    if beam is not None and ctx.form == "I" and ctx.singly:
+        from .moments import segment_sign
+
+        sign = segment_sign(w, beam, combo, x_start, x_end)
+        w.note(f"The beam's moment where |M| is largest in the segment is {'sagging' if sign >= 0 else 'hogging'}: "
+               f"the {'top' if sign >= 0 else 'bottom'} flange is in compression.", kind="method")
+        return "top" if sign >= 0 else "bottom"
+    return "top"
+
+
 def interaction(w, u, biaxial=True):
     sc = w.scope
     ratio = sc["P_r"].m_as("N") / sc["P_c"].m_as("N")
@@ -835,11 +859,13 @@ REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or 
                     family="steel_check")
 def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
               M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
-              stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None):
+              stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None,
+              compression_flange=None):
     """A beam to AISC 360-16: B4 classification, Chapter F about both axes, Chapter G shear."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
-                restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, want=("flexure", "flexure_y", "shear"))
+                restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, compression_flange=compression_flange,
+                want=("flexure", "flexure_y", "shear"))
 
 
 @namespace.function("aisc_column", standards=AISC_STANDARDS, params=COMMON + LENGTHS + REQ_COL,
@@ -859,12 +885,12 @@ def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, 
 def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
                      K_x=None, K_y=None, L_y=None, L_z=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
                      beam=None, combo=None, x_start=None, x_end=None, stem="tension", toe="compression",
-                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
+                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None, compression_flange=None):
     """A beam-column to AISC 360-16: Chapters B4, E, F, G and the H1-1 interaction."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, L_b=L_b,
                 C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, beam=beam, combo=combo, x_start=x_start,
                 x_end=x_end, stem=stem, toe=toe, restraint=restraint, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry,
-                V_r=V_r)
+                V_r=V_r, compression_flange=compression_flange)
 
 
 @namespace.function("aisc_shear", standards=AISC_STANDARDS, params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
@@ -880,11 +906,11 @@ def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=No
                     family="steel_check")
 def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None, C_b=None,
                  M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
-                 stem="tension", toe="compression", restraint="none", M_rx=None):
+                 stem="tension", toe="compression", restraint="none", M_rx=None, compression_flange=None):
     """Major-axis flexure alone: AISC 360-16 F2–F5 (I, channels), F7/F8 (HSS), F9 (tees), F10 (single angles)."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
-                restraint=restraint, M_rx=M_rx, want=("flexure",))
+                restraint=restraint, M_rx=M_rx, compression_flange=compression_flange, want=("flexure",))
 
 
 @namespace.function("aisc_classify", standards=AISC_STANDARDS,

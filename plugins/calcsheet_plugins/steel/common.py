@@ -16,6 +16,7 @@ ALIASES = {
     "S_y": ("S_y", "W_el_z"), "Z_y": ("Z_y", "W_pl_z"), "r_x": ("r_x", "i_y"), "r_y": ("r_y", "i_z"),
     "J": ("J", "I_t"), "C_w": ("C_w", "I_w"), "h_o": ("h_o",), "r_ts": ("r_ts",),
     "B": ("B", "b", "width"), "H": ("H", "h", "d", "depth"), "t": ("t", "t_des"), "D": ("D", "d", "depth"),
+    "b_f_bot": ("b_f_bot", "b_bot"), "t_f_bot": ("t_f_bot", "t_fb"),
     "x_0": ("x_0",), "y_0": ("y_0",), "I_1": ("I_1",), "I_2": ("I_2",), "theta_p": ("theta_p",),
 }
 
