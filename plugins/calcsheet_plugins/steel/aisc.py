@@ -13,7 +13,7 @@ from calcsheet.plugin import Field, Param
 
 from . import namespace
 from . import aisc_f4f5, aisc_open
-from .common import FORMS, aisc, field, form_of, num, positive, tidy, units
+from .common import FORMS, REFUSED_FORMS, aisc, field, form_of, num, positive, tidy, units
 
 # what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
 AISC_STANDARDS = ("AISC 360-16",)
@@ -31,6 +31,8 @@ class _Ctx:
         if section is None:
             work.fail("give section=… (a section record: steel_design.shape(…), section.rolled(…))", param="section")
         self.form = form_of(section, form)
+        if self.form in REFUSED_FORMS:
+            work.fail(REFUSED_FORMS[self.form], param="form" if form else "section")
         if self.form not in FORMS:
             work.fail("cannot tell the section's form; give form=" + ", ".join(f'"{f}"' for f in FORMS), param="form")
         top, bot = field(section, "S_x_top"), field(section, "S_x_bot")
@@ -633,7 +635,9 @@ COMMON = [
     Param("F_y", "[pressure]", "yield stress (default material.f_y)", default=None),
     Param("E", "[pressure]", "modulus of elasticity (default material.E, else 29,000 ksi)", default=None),
     Param("G", "[pressure]", "shear modulus (default material.G, else 11,200 ksi)", default=None),
-    Param("form", kind="text", choices=FORMS, doc="section form (default: from the record)", default=None),
+    Param("form", kind="text", choices=FORMS + tuple(REFUSED_FORMS),
+          doc="section form (default: from the record); 2L (double angles) is refused, naming the clauses",
+          default=None),
 ]
 LENGTHS = [
     Param("L", "[length]", "member length (buckling about x; about y unless L_y)"),

@@ -50,6 +50,12 @@ def field(rec, name):
 
 
 FORMS = ("I", "C", "T", "L", "RHS", "CHS")
+# forms a sheet may name but no check is built for: each refused with the clauses it would need
+REFUSED_FORMS = {
+    "2L": "double angles are not built: AISC 360-16 F9 (2L in flexure: F9.2(b) LTB with the web legs in "
+          "compression, F9.4(b) web-leg local buckling) and E4/E6 (2L in compression, with the modified "
+          "slenderness of E6.1 for the connectors) are outside what is implemented",
+}
 _WORDS = {"I-shape": "I", "channel": "C", "tee": "T", "angle": "L", "box": "RHS", "tube": "CHS"}
 _PREFIX = (("MC", "C"), ("WT", "T"), ("MT", "T"), ("ST", "T"), ("HSS", None), ("HP", "I"), ("W", "I"), ("M", "I"),
            ("S", "I"), ("C", "C"), ("L", "L"), ("IPE", "I"), ("HE", "I"))
@@ -68,13 +74,15 @@ def form_of(rec, given: str | None) -> str:
     if rec is None:
         return ""
     shape = str(rec.fields.get("shape", ""))
-    if shape in FORMS:
+    if shape in FORMS or shape in REFUSED_FORMS:
         return shape
     first = shape.split(" ")[0] if shape else ""
     if first in _WORDS:
         return _WORDS[first]
     f = rec.fields
     desig = str(f.get("designation", "")).upper()
+    if desig.startswith("2L") or str(f.get("name", "")).upper().startswith("2L"):
+        return "2L"
     if desig:
         for prefix, form in _PREFIX:
             if desig.startswith(prefix) and prefix != "HSS" and (len(desig) == len(prefix) or

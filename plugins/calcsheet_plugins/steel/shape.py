@@ -9,7 +9,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import FORMS
+from .common import FORMS, REFUSED_FORMS
 
 _PROPS = [
     ("A", "[length]**2", "gross area"),
@@ -52,7 +52,9 @@ _PROPS = [
 ]
 
 PARAMS = [Param("name", kind="text", doc="designation, as printed (e.g. \"W18X50\")"),
-          Param("form", kind="text", choices=FORMS, doc="I (I/H, W), C (channel), T (tee), L (single angle), RHS (rectangular/square HSS), "
+          Param("form", kind="text", choices=FORMS + tuple(REFUSED_FORMS),
+                doc="I (I/H, W), C (channel), T (tee), L (single angle), 2L (double angles: the checks refuse it), "
+                    "RHS (rectangular/square HSS), "
                     "CHS (round)"),
           Param("fabrication", kind="text", choices=("rolled", "welded", "hot-finished", "cold-formed"),
                 doc="how the section is made (buckling curves, G2.1(a))", default="rolled")]
