@@ -13,7 +13,7 @@ from calcsheet.plugin import Field, Param
 
 from . import namespace
 from . import aisc_f4f5, aisc_open
-from .common import FORMS, REFUSED_FORMS, aisc, field, form_of, num, positive, tidy, units
+from .common import FORMS, PARTIAL_FORMS, REFUSED_FORMS, aisc, field, form_of, num, positive, tidy, units
 
 # what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
 AISC_STANDARDS = ("AISC 360-16",)
@@ -33,7 +33,7 @@ class _Ctx:
         self.form = form_of(section, form)
         if self.form in REFUSED_FORMS:
             work.fail(REFUSED_FORMS[self.form], param="form" if form else "section")
-        if self.form not in FORMS:
+        if self.form not in FORMS and self.form not in PARTIAL_FORMS:
             work.fail("cannot tell the section's form; give form=" + ", ".join(f'"{f}"' for f in FORMS), param="form")
         top, bot = field(section, "S_x_top"), field(section, "S_x_bot")
         self.singly = (self.form == "I" and top is not None and bot is not None
@@ -154,6 +154,7 @@ class _Ctx:
 
     def geometry(self):
         {"I": self.i_shape, "C": self.i_shape, "T": self.i_shape, "L": lambda: aisc_open.angle_geometry(self),
+         "2L": lambda: aisc_open.double_angle_geometry(self),
          "RHS": self.hss_rect, "CHS": self.hss_round}[self.form]()
 
     # ---------------------------------------------------------------- B4 classification
@@ -184,9 +185,10 @@ class _Ctx:
             w.calc("lambda_f", "b_f/(2*t_f)", unit="1", desc="flange slenderness b/t = b_f/(2t_f) (B4.1a case 1, B4.1b case 10)")
             w.calc("lambda_w", "d/t_w", unit="1", desc="stem slenderness d/t_w (B4.1a case 4, B4.1b case 14)")
             specs = [("flange", "lambda_f", "T_flange", "T_flange"), ("web", "lambda_w", "T_stem", "T_stem")]
-        elif self.form == "L":
-            w.calc("lambda_f", "max(d, b_f)/t", unit="1", desc="leg slenderness b/t of the longer leg (B4.1a case 3, "
-                                                              "B4.1b case 12)")
+        elif self.form in ("L", "2L"):
+            w.calc("lambda_f", "max(d, b_f)/t", unit="1", desc="leg slenderness b/t of the longer leg (B4.1a case 3"
+                                                              + (", legs of double angles with separators)" if self.form == "2L" else
+                                                                 ", B4.1b case 12)"))
             specs = [("leg", "lambda_f", "L_leg", "L_leg")]
         elif self.form == "RHS":
             w.calc("lambda_f", "b/t", unit="1", desc="flange wall slenderness b/t (B4.1a case 6, B4.1b case 17)")
@@ -238,7 +240,7 @@ class _Ctx:
         return out
 
     # ---------------------------------------------------------------- Chapter E
-    def compression(self, L, K_x, K_y, L_y, L_z):
+    def compression(self, L, K_x, K_y, L_y, L_z, a=None, r_i=None, connectors=None):
         w, sc, u = self.work, self.sc, self.u
         sc["L_x"] = L
         sc["L_y"] = L_y if L_y is not None else L
@@ -247,13 +249,18 @@ class _Ctx:
         w.calc("L_cx", "K_x*L_x", unit=u["L"], desc="effective length about x, L_c = K·L (E2)")
         w.calc("L_cy", "K_y*L_y", unit=u["L"], desc="effective length about y, L_c = K·L (E2)")
         w.calc("F_ex", "pi^2*E/(L_cx/r_x)^2", unit=u["st"], desc=f"elastic buckling stress about x, {STD} Eq. E3-4")
-        w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")
+        if self.form == "2L":
+            aisc_open.e6(self, a, r_i, connectors)
+            w.calc("F_ey", "pi^2*E/Lc_r_m^2", unit=u["st"],
+                   desc=f"elastic buckling stress about y with the modified slenderness, {STD} Eq. E3-4, E6.1")
+        else:
+            w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")
         slender = max(sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"), sc["L_cy"].m_as("m") / sc["r_y"].m_as("m"))
         if slender > 200:
             w.warn(f"L_c/r = {slender:.0f} exceeds 200, the limit {STD} E2 (User Note) recommends for members "
                    f"designed for compression", param="L")
         candidates = ["F_ex", "F_ey"]
-        if self.form in ("C", "T", "L") or self.singly:
+        if self.form in ("C", "T", "L", "2L") or self.singly:
             if L_z is not None:
                 sc["L_cz"] = L_z
             candidates = aisc_open.e4(self, candidates)
@@ -314,11 +321,12 @@ class _Ctx:
         elif self.form == "T":
             elems = [("f", "b_f/2", "t_f", 2, "unstiffened", "lambda_f", "lambda_r_cf"),
                      ("w", "d", "t_w", 1, "unstiffened", "lambda_w", "lambda_r_cw")]
-        elif self.form == "L":
+        elif self.form in ("L", "2L"):
             w.calc("lambda_a", "d/t", unit="1", desc="b/t of the vertical leg")
             w.calc("lambda_b", "b_f/t", unit="1", desc="b/t of the horizontal leg")
-            elems = [("a", "d", "t", 1, "unstiffened", "lambda_a", "lambda_r_cf"),
-                     ("b", "b_f", "t", 1, "unstiffened", "lambda_b", "lambda_r_cf")]
+            n = 2 if self.form == "2L" else 1
+            elems = [("a", "d", "t", n, "unstiffened", "lambda_a", "lambda_r_cf"),
+                     ("b", "b_f", "t", n, "unstiffened", "lambda_b", "lambda_r_cf")]
         else:
             elems = [("f", "b", "t", 2, "HSS_wall", "lambda_f", "lambda_r_cf"),
                      ("w", "h", "t", 2, "HSS_wall", "lambda_w", "lambda_r_cw")]
@@ -635,8 +643,8 @@ COMMON = [
     Param("F_y", "[pressure]", "yield stress (default material.f_y)", default=None),
     Param("E", "[pressure]", "modulus of elasticity (default material.E, else 29,000 ksi)", default=None),
     Param("G", "[pressure]", "shear modulus (default material.G, else 11,200 ksi)", default=None),
-    Param("form", kind="text", choices=FORMS + tuple(REFUSED_FORMS),
-          doc="section form (default: from the record); 2L (double angles) is refused, naming the clauses",
+    Param("form", kind="text", choices=FORMS + tuple(PARTIAL_FORMS) + tuple(REFUSED_FORMS),
+          doc="section form (default: from the record); 2L (double angles) in compression only",
           default=None),
 ]
 LENGTHS = [
@@ -645,6 +653,11 @@ LENGTHS = [
     Param("K_y", doc="effective length factor about y (default 1)", default=None),
     Param("L_y", "[length]", "unbraced length for buckling about y (default L)", default=None),
     Param("L_z", "[length]", "torsional unbraced length L_cz (E4; default: L_y)", default=None),
+    Param("a", "[length]", "double angles (E6): distance between the intermediate connectors", default=None),
+    Param("r_i", "[length]", "double angles (E6): least radius of gyration of one angle (default: the record's r_i)",
+          default=None),
+    Param("connectors", kind="text", choices=("snug-tight", "welded", "pretensioned"),
+          doc="double angles (E6.1): how the intermediate connectors are made", default=None),
 ]
 BENDING = [
     Param("L_b", "[length]", "laterally unbraced length of the compression flange"),
@@ -744,10 +757,19 @@ def _util(w, name, req, cap, desc):
 def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, K_y=None, L_y=None, L_z=None,
          L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None,
          x_end=None, stem="tension", toe="compression", restraint="none", L_v=None,
-         P_r=None, M_rx=None, M_ry=None, V_r=None, compression_flange=None,
+         P_r=None, M_rx=None, M_ry=None, V_r=None, compression_flange=None, a=None, r_i=None, connectors=None,
          want=("compression", "flexure", "flexure_y", "shear")):
+    early = form_of(section, form) if section is not None else ""
+    if early in PARTIAL_FORMS and set(want) - {"compression"}:
+        work.fail(PARTIAL_FORMS[early], param="form" if form else "section")
     ctx = _start(work, section, material, method, F_y, E, G, form)
     w, sc, u = work, work.scope, ctx.u
+    if ctx.form != "2L":
+        for nm, q in (("a", a), ("r_i", r_i), ("connectors", connectors)):
+            if q is not None:
+                w.fail(f"{nm} applies to double angles (E6) only", param=nm)
+    positive(w, "a", a)
+    positive(w, "r_i", r_i)
     for nm, q in (("L", L), ("L_y", L_y), ("L_z", L_z), ("L_v", L_v)):
         positive(w, nm, q)
     if L_b is not None and L_b.magnitude < 0:
@@ -762,7 +784,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     ctx.classify()
     out, utils = {}, {}
     if "compression" in want:
-        gov = ctx.compression(L, K_x, K_y, L_y, L_z)
+        gov = ctx.compression(L, K_x, K_y, L_y, L_z, a, r_i, connectors)
         ctx.available("P_c", "P_n", "compression")
         out.update(P_n=sc["P_n"], P_c=sc["P_c"], F_cr=sc["F_cr"], F_e=sc["F_e"], F_ex=sc["F_ex"], F_ey=sc["F_ey"],
                    governing_compression=gov)
@@ -876,10 +898,10 @@ def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=Non
                     fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check.aisc_column",
                     family="steel_check")
 def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, G=None, form=None, K_x=None,
-                K_y=None, L_y=None, L_z=None, P_r=None):
+                K_y=None, L_y=None, L_z=None, a=None, r_i=None, connectors=None, P_r=None):
     """A column to AISC 360-16: B4 classification, Chapter E (E3, E4 where it applies, E7)."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, P_r=P_r,
-                want=("compression",))
+                a=a, r_i=r_i, connectors=connectors, want=("compression",))
 
 
 @namespace.function("aisc_beam_column", standards=AISC_STANDARDS,
@@ -887,14 +909,14 @@ def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, 
                     fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL,
                     returns="steel_check.aisc_beam_column", family="steel_check")
 def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
-                     K_x=None, K_y=None, L_y=None, L_z=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
+                     K_x=None, K_y=None, L_y=None, L_z=None, a=None, r_i=None, connectors=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
                      beam=None, combo=None, x_start=None, x_end=None, stem="tension", toe="compression",
                      restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None, compression_flange=None):
     """A beam-column to AISC 360-16: Chapters B4, E, F, G and the H1-1 interaction."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, L_b=L_b,
                 C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, beam=beam, combo=combo, x_start=x_start,
                 x_end=x_end, stem=stem, toe=toe, restraint=restraint, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry,
-                V_r=V_r, compression_flange=compression_flange)
+                V_r=V_r, compression_flange=compression_flange, a=a, r_i=r_i, connectors=connectors)
 
 
 @namespace.function("aisc_shear", standards=AISC_STANDARDS, params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],

@@ -44,19 +44,80 @@ def angle_geometry(ctx):
     ctx.radii()
 
 
+def double_angle_geometry(ctx):
+    """Two angles back to back (the y axis their axis of symmetry, between the vertical legs): properties of the
+    pair as given (A, I_x, I_y, J about the pair's centroid), legs d (vertical) and b_f (horizontal) and t of one
+    angle, ȳ (y_bar, the outer face of the horizontal legs to the centroid) or the shear centre y_0."""
+    w, u = ctx.work, ctx.u
+    ctx.props([("A", "ar", "gross area of the pair A_g"), ("d", "ln", "vertical leg of one angle (back to back)"),
+               ("b_f", "ln", "horizontal (outstanding) leg of one angle"), ("t", "ln", "leg thickness"),
+               ("I_x", "i4", "I of the pair about x"), ("I_y", "i4", "I of the pair about y (axis of symmetry)"),
+               ("J", "i4", "torsional constant of the pair")])
+    if ctx.prop("C_w", "i6", "warping constant", required=False) is None:
+        w.let("C_w", w.q(0.0, u["i6"]), desc="warping constant of a double angle", note="taken as 0 (common practice)")
+    ctx.radii()
+
+
+def e6(ctx, a, r_i, connectors):
+    """The modified slenderness of a double angle for buckling about y (E6.1), or the stated assumption."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    d = aisc()["E6"]
+    w.calc("Lc_r_o", "L_cy/r_y", unit="1", desc="slenderness of the built-up member acting as a unit about y, (L_c/r)_o")
+    if a is None:
+        w.note(f"No connector spacing a given: the two angles are taken to act as a unit, (L_c/r)_m = (L_c/r)_o — "
+               f"true only for connectors close enough (welded or pretensioned with a/r_i ≤ 40, {STD} E6-2a); give "
+               f"a=… and connectors=… for {STD} E6.1.", kind="method")
+        w.warn(f"double angle without a=…: the modified slenderness of {STD} E6.1 is not applied (assumed a/r_i ≤ 40 "
+               f"with welded or pretensioned connectors)", param="L")
+        w.calc("Lc_r_m", "Lc_r_o", unit="1", desc="(L_c/r)_m = (L_c/r)_o (assumed, see the note)")
+        return
+    if connectors is None:
+        w.fail(f"with a=… give connectors=\"snug-tight\", \"welded\" or \"pretensioned\" ({STD} E6.1)", param="connectors")
+    sc["a"] = a
+    if r_i is not None:
+        sc["r_i"] = r_i
+    elif field(ctx.section, "r_i") is not None:
+        w.let("r_i", field(ctx.section, "r_i"), unit=u["ln"], desc="least radius of gyration of one angle (r_z)",
+              note="from the section")
+    else:
+        w.fail(f"{STD} E6 needs r_i, the least radius of gyration of one angle (its r_z): give r_i=… or the "
+               f"record's r_i", param="r_i")
+    w.calc("a_r_i", "a/r_i", unit="1", desc="slenderness of one angle between connectors, a/r_i")
+    if connectors == "snug-tight":
+        w.calc("Lc_r_m", "sqrt(Lc_r_o^2 + a_r_i^2)", unit="1",
+               desc=f"modified slenderness, snug-tight bolted connectors, {STD} Eq. E6-1")
+    elif num(sc["a_r_i"]) <= d["a_over_ri_limit"]:
+        w.calc("Lc_r_m", "Lc_r_o", unit="1",
+               desc=f"a/r_i ≤ {d['a_over_ri_limit']:g}, {connectors} connectors: (L_c/r)_m = (L_c/r)_o, {STD} Eq. E6-2a")
+    else:
+        w.let("K_i", w.q(d["K_i_angles"], ""), desc=f"K_i for angles back to back, {STD} E6.1")
+        w.calc("Lc_r_m", "sqrt(Lc_r_o^2 + (K_i*a_r_i)^2)", unit="1",
+               desc=f"modified slenderness, {connectors} connectors, a/r_i > {d['a_over_ri_limit']:g}, {STD} Eq. E6-2b")
+    ki = d["K_i_angles"] if connectors != "snug-tight" else 1.0
+    gov = max(num(sc["Lc_r_m"]), sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"))
+    if ki * num(sc["a_r_i"]) > d["component_limit"] * gov:
+        w.warn(f"K_i·a/r_i = {ki * num(sc['a_r_i']):.1f} exceeds 3/4 of the member's governing slenderness "
+               f"{gov:.1f} ({STD} E6.2): add connectors", param="a")
+
+
 def shear_centre(ctx):
     """x_o, y_o from the section record (or, for a tee, from ȳ − t_f/2)."""
     w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
     x0, y0 = field(rec, "x_0"), field(rec, "y_0")
-    if ctx.form == "T" and y0 is None and field(rec, "y_bar") is not None:
+    if ctx.form in ("T", "2L") and y0 is None and field(rec, "y_bar") is not None:
         sc["y_bar"] = field(rec, "y_bar")
-        w.calc("y_o", "y_bar - t_f/2", unit=u["ln"], desc="shear centre of a tee: at the flange mid-thickness, "
-                                                        "y_o = ȳ − t_f/2 (common practice)")
+        if ctx.form == "T":
+            w.calc("y_o", "y_bar - t_f/2", unit=u["ln"], desc="shear centre of a tee: at the flange mid-thickness, "
+                                                            "y_o = ȳ − t_f/2 (common practice)")
+        else:
+            w.calc("y_o", "y_bar - t/2", unit=u["ln"], desc="shear centre of a double angle: on the axis of symmetry "
+                                                          "at the horizontal legs' mid-thickness, y_o = ȳ − t/2 "
+                                                          "(common practice)")
         w.let("x_o", w.q(0.0, u["ln"]), desc="x_o = 0 (on the axis of symmetry)")
         return
     if x0 is None or y0 is None:
         w.fail(f"{STD} E4 needs the shear centre (x_0, y_0 from the centroid) of this "
-               f"{ {'C': 'channel', 'T': 'tee', 'L': 'angle', 'I': 'singly symmetric I-shape'}[ctx.form]}; use a "
+               f"{ {'C': 'channel', 'T': 'tee', 'L': 'angle', '2L': 'double angle', 'I': 'singly symmetric I-shape'}[ctx.form]}; use a "
                f"section record that gives it (section.rolled, the section shape functions) or give x_0, y_0 in "
                f"steel_design.shape(…)", param="section")
     scale = max(field(rec, "d").m_as("mm") if field(rec, "d") is not None else 1.0, 1.0)
@@ -82,7 +143,7 @@ def e4(ctx, candidates):
         return _e4_cubic(ctx, candidates)
     axis = "x" if ctx.form == "C" else "y"
     other = "y" if axis == "x" else "x"
-    what = {"C": "channel", "T": "tee", "I": "singly symmetric I-shape"}[ctx.form]
+    what = {"C": "channel", "T": "tee", "2L": "double angle", "I": "singly symmetric I-shape"}[ctx.form]
     w.note(f"E4 applies: a {what} is singly symmetric about its {axis} axis; flexural buckling about {axis} couples "
            f"with twisting (flexural-torsional buckling, {STD} Eq. E4-3 with the {axis} axis the axis of symmetry); "
            f"flexural buckling about {other} stays uncoupled (E3).", kind="method")

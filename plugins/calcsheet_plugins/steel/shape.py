@@ -9,7 +9,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import FORMS, REFUSED_FORMS
+from .common import FORMS, PARTIAL_FORMS, REFUSED_FORMS
 
 _PROPS = [
     ("A", "[length]**2", "gross area"),
@@ -41,6 +41,7 @@ _PROPS = [
     ("y_top", "[length]", "singly symmetric I: the centroid to the top fibre"),
     ("y_c", "[length]", "singly symmetric I: the bottom fibre to the centroid"),
     ("y_p", "[length]", "singly symmetric I: the bottom fibre to the plastic neutral axis"),
+    ("r_i", "[length]", "double angles: least radius of gyration of one angle (its r_z), for E6"),
     ("b_f_bot", "[length]", "singly symmetric I: bottom flange width (b_f, t_f are the top flange's)"),
     ("t_f_bot", "[length]", "singly symmetric I: bottom flange thickness"),
     ("x_0", "[length]", "shear centre from the centroid along x (channels: behind the web, negative)"),
@@ -52,8 +53,9 @@ _PROPS = [
 ]
 
 PARAMS = [Param("name", kind="text", doc="designation, as printed (e.g. \"W18X50\")"),
-          Param("form", kind="text", choices=FORMS + tuple(REFUSED_FORMS),
-                doc="I (I/H, W), C (channel), T (tee), L (single angle), 2L (double angles: the checks refuse it), "
+          Param("form", kind="text", choices=FORMS + tuple(PARTIAL_FORMS) + tuple(REFUSED_FORMS),
+                doc="I (I/H, W), C (channel), T (tee), L (single angle), 2L (double angles, back to back: compression "
+                    "only), "
                     "RHS (rectangular/square HSS), "
                     "CHS (round)"),
           Param("fabrication", kind="text", choices=("rolled", "welded", "hot-finished", "cold-formed"),

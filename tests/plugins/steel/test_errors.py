@@ -117,13 +117,11 @@ UNEQUAL_L = ('name="L6X4X1/2", form="L", A=4.75 in^2, d=6 in, b_f=4 in, t=0.5 in
 
 
 @pytest.mark.parametrize("body, clauses", [
-    # double angles: a record of form 2L, and a call that says form="2L"
-    (f's = steel_design.shape({ANGLE_2L})\nc = steel_design.aisc_column(section=s, F_y=36 ksi, L=8 ft)',
-     ("F9", "E6")),
+    # double angles in flexure (compression is built: test_aisc_double_angle.py), by form and by the call's form=
     (f's = steel_design.shape({ANGLE_2L})\nb = steel_design.aisc_beam(section=s, F_y=36 ksi, L_b=6 ft)',
      ("F9.2(b)", "F9.4(b)")),
-    (f's = steel_design.shape({W18X50})\nc = steel_design.aisc_classify(section=s, F_y=50 ksi, form="2L")',
-     ("E4/E6",)),
+    (f's = steel_design.shape({W18X50})\nc = steel_design.aisc_flexure(section=s, F_y=50 ksi, L_b=6 ft, form="2L")',
+     ("F9",)),
     # single angles: LTB of an unequal-leg angle about a geometric axis (principal-axis bending, F10.2), and M_ry
     (f's = steel_design.shape({UNEQUAL_L})\nb = steel_design.aisc_beam(section=s, F_y=36 ksi, L_b=6 ft)',
      ("F10.2", "principal")),
