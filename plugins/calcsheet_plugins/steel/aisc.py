@@ -251,7 +251,7 @@ class _Ctx:
         w.calc("F_ex", "pi^2*E/(L_cx/r_x)^2", unit=u["st"], desc=f"elastic buckling stress about x, {STD} Eq. E3-4")
         if self.form == "2L":
             aisc_open.e6(self, a, r_i, connectors)
-            w.calc("F_ey", "pi^2*E/Lc_r_m^2", unit=u["st"],
+            w.calc("F_ey", "pi^2*E/lambda_m^2", unit=u["st"],
                    desc=f"elastic buckling stress about y with the modified slenderness, {STD} Eq. E3-4, E6.1")
         else:
             w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")

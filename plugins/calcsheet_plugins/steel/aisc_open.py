@@ -62,14 +62,14 @@ def e6(ctx, a, r_i, connectors):
     """The modified slenderness of a double angle for buckling about y (E6.1), or the stated assumption."""
     w, sc, u = ctx.work, ctx.sc, ctx.u
     d = aisc()["E6"]
-    w.calc("Lc_r_o", "L_cy/r_y", unit="1", desc="slenderness of the built-up member acting as a unit about y, (L_c/r)_o")
+    w.calc("lambda_o", "L_cy/r_y", unit="1", desc="slenderness of the built-up member acting as a unit about y, (L_c/r)_o")
     if a is None:
         w.note(f"No connector spacing a given: the two angles are taken to act as a unit, (L_c/r)_m = (L_c/r)_o — "
                f"true only for connectors close enough (welded or pretensioned with a/r_i ≤ 40, {STD} E6-2a); give "
                f"a=… and connectors=… for {STD} E6.1.", kind="method")
         w.warn(f"double angle without a=…: the modified slenderness of {STD} E6.1 is not applied (assumed a/r_i ≤ 40 "
                f"with welded or pretensioned connectors)", param="L")
-        w.calc("Lc_r_m", "Lc_r_o", unit="1", desc="(L_c/r)_m = (L_c/r)_o (assumed, see the note)")
+        w.calc("lambda_m", "lambda_o", unit="1", desc="(L_c/r)_m = (L_c/r)_o (assumed, see the note)")
         return
     if connectors is None:
         w.fail(f"with a=… give connectors=\"snug-tight\", \"welded\" or \"pretensioned\" ({STD} E6.1)", param="connectors")
@@ -82,21 +82,21 @@ def e6(ctx, a, r_i, connectors):
     else:
         w.fail(f"{STD} E6 needs r_i, the least radius of gyration of one angle (its r_z): give r_i=… or the "
                f"record's r_i", param="r_i")
-    w.calc("a_r_i", "a/r_i", unit="1", desc="slenderness of one angle between connectors, a/r_i")
+    w.calc("lambda_i", "a/r_i", unit="1", desc="slenderness of one angle between connectors, a/r_i")
     if connectors == "snug-tight":
-        w.calc("Lc_r_m", "sqrt(Lc_r_o^2 + a_r_i^2)", unit="1",
+        w.calc("lambda_m", "sqrt(lambda_o^2 + lambda_i^2)", unit="1",
                desc=f"modified slenderness, snug-tight bolted connectors, {STD} Eq. E6-1")
-    elif num(sc["a_r_i"]) <= d["a_over_ri_limit"]:
-        w.calc("Lc_r_m", "Lc_r_o", unit="1",
+    elif num(sc["lambda_i"]) <= d["a_over_ri_limit"]:
+        w.calc("lambda_m", "lambda_o", unit="1",
                desc=f"a/r_i ≤ {d['a_over_ri_limit']:g}, {connectors} connectors: (L_c/r)_m = (L_c/r)_o, {STD} Eq. E6-2a")
     else:
         w.let("K_i", w.q(d["K_i_angles"], ""), desc=f"K_i for angles back to back, {STD} E6.1")
-        w.calc("Lc_r_m", "sqrt(Lc_r_o^2 + (K_i*a_r_i)^2)", unit="1",
+        w.calc("lambda_m", "sqrt(lambda_o^2 + (K_i*lambda_i)^2)", unit="1",
                desc=f"modified slenderness, {connectors} connectors, a/r_i > {d['a_over_ri_limit']:g}, {STD} Eq. E6-2b")
     ki = d["K_i_angles"] if connectors != "snug-tight" else 1.0
-    gov = max(num(sc["Lc_r_m"]), sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"))
-    if ki * num(sc["a_r_i"]) > d["component_limit"] * gov:
-        w.warn(f"K_i·a/r_i = {ki * num(sc['a_r_i']):.1f} exceeds 3/4 of the member's governing slenderness "
+    gov = max(num(sc["lambda_m"]), sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"))
+    if ki * num(sc["lambda_i"]) > d["component_limit"] * gov:
+        w.warn(f"K_i·a/r_i = {ki * num(sc['lambda_i']):.1f} exceeds 3/4 of the member's governing slenderness "
                f"{gov:.1f} ({STD} E6.2): add connectors", param="a")
 
 
