@@ -361,6 +361,8 @@ class _Ctx:
             states = aisc_f4f5.f4f5(self, L_b, C_b)
         elif self.form == "T":
             states = aisc_open.f9(self, L_b, stem)
+        elif self.form == "L" and getattr(self, "axes", "geometric") == "principal":
+            states = aisc_open.f10_principal(self, L_b, C_b, toe)
         elif self.form == "L":
             states = aisc_open.f10(self, L_b, C_b, toe, restraint)
         elif self.form in ("I", "C"):
@@ -511,6 +513,10 @@ class _Ctx:
 
     def flexure_minor(self):
         w, sc, u = self.work, self.sc, self.u
+        if self.form == "L" and getattr(self, "axes", "geometric") == "principal":
+            if "S_z_toe" not in sc:
+                aisc_open._equal_leg_principal(self)
+            return self.governing_moment("M_ny", aisc_open.f10_minor(self))
         if self.form in ("T", "L"):
             return None
         if self.form in ("I", "C"):
@@ -678,6 +684,10 @@ BENDING = [
     Param("compression_flange", kind="text", choices=("top", "bottom"),
           doc="singly symmetric I-shapes (F4, F5): the flange in compression — top for a sagging moment, bottom for "
               "a hogging one (default: from the sign of the beam's moment with beam=…, else top)", default=None),
+    Param("axes", kind="text", choices=("geometric", "principal"),
+          doc="single angles (F10): bending about the geometric axes (M_rx, M_ry) or the principal axes (equal legs: "
+              "M_rx is then the moment about the major axis w, M_ry about the minor axis z; toe= the toes' side of w)",
+          default="geometric"),
     Param("restraint", kind="text", choices=("none", "at_max_moment"),
           doc="single angles (F10.2): lateral-torsional restraint only at the ends, or also at the point of "
               "maximum moment", default="none"),
@@ -758,7 +768,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
          L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None,
          x_end=None, stem="tension", toe="compression", restraint="none", L_v=None,
          P_r=None, M_rx=None, M_ry=None, V_r=None, compression_flange=None, a=None, r_i=None, connectors=None,
-         want=("compression", "flexure", "flexure_y", "shear")):
+         axes="geometric", want=("compression", "flexure", "flexure_y", "shear")):
     early = form_of(section, form) if section is not None else ""
     if early in PARTIAL_FORMS and set(want) - {"compression"}:
         work.fail(PARTIAL_FORMS[early], param="form" if form else "section")
@@ -777,7 +787,14 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     for nm, q in (("P_r", P_r), ("M_rx", M_rx), ("M_ry", M_ry), ("V_r", V_r)):
         if q is not None and q.magnitude < 0:
             w.fail(f"{nm} is a required strength: give its magnitude (≥ 0)", param=nm)
-    if ctx.form in ("T", "L") and M_ry is not None:
+    ctx.axes = axes
+    if axes == "principal":
+        if ctx.form != "L":
+            w.fail("axes=\"principal\" applies to single angles (F10) only", param="axes")
+        if P_r is not None and ("flexure" in want or "flexure_y" in want):
+            w.fail(f"combined force on a single angle bent about its principal axes needs {STD} H2 (unsymmetric "
+                   f"members), which is not built", param="axes")
+    if ctx.form in ("T", "L") and M_ry is not None and axes != "principal":
         w.fail(f"minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not built ({STD} "
                f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis'}); "
                f"M_ry is out of scope", param="M_ry")
@@ -886,12 +903,12 @@ REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or 
 def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
               M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
               stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None,
-              compression_flange=None):
+              compression_flange=None, axes="geometric"):
     """A beam to AISC 360-16: B4 classification, Chapter F about both axes, Chapter G shear."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
                 restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, compression_flange=compression_flange,
-                want=("flexure", "flexure_y", "shear"))
+                axes=axes, want=("flexure", "flexure_y", "shear"))
 
 
 @namespace.function("aisc_column", standards=AISC_STANDARDS, params=COMMON + LENGTHS + REQ_COL,
@@ -911,12 +928,13 @@ def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, 
 def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
                      K_x=None, K_y=None, L_y=None, L_z=None, a=None, r_i=None, connectors=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
                      beam=None, combo=None, x_start=None, x_end=None, stem="tension", toe="compression",
-                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None, compression_flange=None):
+                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None, compression_flange=None,
+                     axes="geometric"):
     """A beam-column to AISC 360-16: Chapters B4, E, F, G and the H1-1 interaction."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, L_b=L_b,
                 C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, beam=beam, combo=combo, x_start=x_start,
                 x_end=x_end, stem=stem, toe=toe, restraint=restraint, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry,
-                V_r=V_r, compression_flange=compression_flange, a=a, r_i=r_i, connectors=connectors)
+                V_r=V_r, compression_flange=compression_flange, a=a, r_i=r_i, connectors=connectors, axes=axes)
 
 
 @namespace.function("aisc_shear", standards=AISC_STANDARDS, params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
@@ -932,11 +950,12 @@ def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=No
                     family="steel_check")
 def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None, C_b=None,
                  M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
-                 stem="tension", toe="compression", restraint="none", M_rx=None, compression_flange=None):
+                 stem="tension", toe="compression", restraint="none", M_rx=None, compression_flange=None,
+                 axes="geometric"):
     """Major-axis flexure alone: AISC 360-16 F2–F5 (I, channels), F7/F8 (HSS), F9 (tees), F10 (single angles)."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
-                restraint=restraint, M_rx=M_rx, compression_flange=compression_flange, want=("flexure",))
+                restraint=restraint, M_rx=M_rx, compression_flange=compression_flange, axes=axes, want=("flexure",))
 
 
 @namespace.function("aisc_classify", standards=AISC_STANDARDS,

@@ -348,6 +348,96 @@ def f10(ctx, L_b, C_b, toe, restraint):
     return states
 
 
+def _equal_leg_principal(ctx):
+    """The principal-axis moduli of an equal-leg angle of flat legs b × t (fillets and toe roundings left out:
+    common practice): the centroid x̄ = ȳ from the heel, the distances of the heel and the toe corners from the
+    major principal axis w (at 45°) and of the toes from the minor axis z; I_w, I_z are the record's I_1, I_2."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    if abs(sc["d"].m_as("mm") - sc["b_f"].m_as("mm")) > 1e-6 * sc["d"].m_as("mm"):
+        w.fail(f"principal-axis bending of an unequal-leg angle is not built: {STD} F10-4 needs β_w, and leg local "
+               f"buckling the moduli to each toe; only equal-leg angles are built (β_w = 0)", param="axes")
+    w.calc("b_leg", "d", unit=u["ln"], desc="leg width b (equal legs)")
+    w.calc("x_bar", "(b_leg^2 + b_leg*t - t^2)/(2*(2*b_leg - t))", unit=u["ln"],
+           desc="centroid from the outer faces of the legs, x̄ = ȳ (flat legs, no fillets)")
+    w.calc("z_heel", "sqrt(2)*x_bar", unit=u["ln"], desc="heel corner to the major principal axis w")
+    w.calc("z_toe", "(b_leg + t - 2*x_bar)/sqrt(2)", unit=u["ln"], desc="toe corners to the major principal axis w")
+    w.calc("w_toe", "b_leg/sqrt(2)", unit=u["ln"], desc="toe tips to the minor principal axis z")
+    w.calc("S_w_heel", "I_1/z_heel", unit=u["i3"], desc="elastic modulus about w to the heel")
+    w.calc("S_w_toe", "I_1/z_toe", unit=u["i3"], desc="elastic modulus about w to the toes")
+    w.calc("S_z_toe", "I_2/w_toe", unit=u["i3"], desc="elastic modulus about z to the toes")
+
+
+def f10_principal(ctx, L_b, C_b, toe):
+    """F10 for an equal-leg single angle bent about its major principal axis w (β_w = 0)."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    d = aisc()["F10"]
+    _equal_leg_principal(ctx)
+    w.note(f"Single angle bent about its major principal axis w, the toes in {toe} (the heel in "
+           f"{'tension' if toe == 'compression' else 'compression'}): {STD} F10 (yielding, lateral-torsional "
+           f"buckling by F10-4 with β_w = 0 for equal legs, leg local buckling).", kind="method")
+    w.calc("M_y", "F_y*min(S_w_heel, S_w_toe)", unit=u["mo"], desc="yield moment about w (first yield)")
+    w.calc("M_n_Y", f"{d['yield_factor']:g}*M_y", unit=u["mo"], desc=f"yielding, {STD} Eq. F10-1")
+    states = {"yielding (F10-1)": "M_n_Y"}
+    if L_b is not None and L_b.magnitude > 0:
+        sc["L_b"], sc["C_b"] = L_b, C_b
+        w.calc("C_b_F10", f"min(C_b, {d['Cb_max']:g})", unit="1", desc=f"C_b ≤ {d['Cb_max']:g} ({STD} F10.2)")
+        w.calc("r_z", "sqrt(I_2/A)", unit=u["ln"], desc="radius of gyration about the minor principal axis z")
+        w.let("beta_w", w.q(0.0, u["ln"]), desc="β_w = 0 for an equal-leg angle (F10.2)")
+        w.calc("M_cr", "9*E*A*r_z*t*C_b_F10/(8*L_b)*(sqrt(1 + (4.4*beta_w*r_z/(L_b*t))^2) + 4.4*beta_w*r_z/(L_b*t))",
+               unit=u["mo"], desc=f"elastic LTB moment, major principal axis, {STD} Eq. F10-4")
+        ratio = sc["M_y"].m_as("N*m") / sc["M_cr"].m_as("N*m")
+        if ratio <= 1:
+            w.calc("M_n_LTB", "min((1.92 - 1.17*sqrt(M_y/M_cr))*M_y, 1.5*M_y)", unit=u["mo"],
+                   desc=f"M_y/M_cr = {ratio:.3f} ≤ 1: lateral-torsional buckling, {STD} Eq. F10-2")
+            states["lateral-torsional buckling (F10-2)"] = "M_n_LTB"
+        else:
+            w.calc("M_n_LTB", "(0.92 - 0.17*M_cr/M_y)*M_cr", unit=u["mo"],
+                   desc=f"M_y/M_cr = {ratio:.3f} > 1: lateral-torsional buckling, {STD} Eq. F10-3")
+            states["lateral-torsional buckling (F10-3)"] = "M_n_LTB"
+    else:
+        w.note(f"L_b = 0 (continuously restrained): lateral-torsional buckling does not apply ({STD} F10.2).",
+               kind="method")
+    if toe == "compression":
+        _leg_local(ctx, "S_w_toe", states, "w")
+    else:
+        w.note(f"The toes are in tension: leg local buckling does not apply ({STD} F10.3).", kind="method")
+    return states
+
+
+def f10_minor(ctx):
+    """F10 for an equal-leg single angle bent about its minor principal axis z: one toe is in compression."""
+    w = ctx.work
+    d = aisc()["F10"]
+    w.note(f"Single angle bent about its minor principal axis z: yielding and leg local buckling ({STD} F10.1, "
+           f"F10.3); no lateral-torsional buckling about the minor axis.", kind="method")
+    w.calc("M_y_z", "F_y*S_z_toe", unit=ctx.u["mo"], desc="yield moment about z (the toes are the extreme fibres)")
+    w.calc("M_n_Yz", f"{d['yield_factor']:g}*M_y_z", unit=ctx.u["mo"], desc=f"yielding about z, {STD} Eq. F10-1")
+    states = {"yielding (F10-1)": "M_n_Yz"}
+    _leg_local(ctx, "S_z_toe", states, "z")
+    return states
+
+
+def _leg_local(ctx, modulus, states, axis):
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    w.calc(f"S_c_{axis}", modulus, unit=u["i3"], desc=f"elastic modulus about {axis} to the toe in compression")
+    if "lambda_leg" not in sc:
+        w.calc("lambda_leg", "b_leg/t", unit="1", desc="b/t of the leg whose toe is in compression")
+    lam = num(sc["lambda_leg"])
+    lp, lr = num(sc["lambda_p_f"]), num(sc["lambda_r_f"])
+    if lam <= lp:
+        w.note(f"Compact leg (b/t = {lam:.2f} ≤ λ_p = {lp:.2f}): leg local buckling does not apply ({STD} F10.3(a)).",
+               kind="method")
+    elif lam <= lr:
+        w.calc(f"M_n_LLB{axis}", f"F_y*S_c_{axis}*(2.43 - 1.72*lambda_leg*sqrt(F_y/E))", unit=u["mo"],
+               desc=f"leg local buckling, noncompact leg, {STD} Eq. F10-6")
+        states["leg local buckling, noncompact (F10-6)"] = f"M_n_LLB{axis}"
+    else:
+        if "F_cr_LLB" not in sc:
+            w.calc("F_cr_LLB", "0.71*E/lambda_leg^2", unit=u["st"], desc=f"{STD} Eq. F10-8")
+        w.calc(f"M_n_LLB{axis}", f"F_cr_LLB*S_c_{axis}", unit=u["mo"], desc=f"leg local buckling, slender leg, {STD} Eq. F10-7")
+        states["leg local buckling, slender (F10-7)"] = f"M_n_LLB{axis}"
+
+
 # ---------------------------------------------------------------- Chapter G3
 def g3(ctx):
     w, sc, u = ctx.work, ctx.sc, ctx.u
