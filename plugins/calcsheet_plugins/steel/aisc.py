@@ -750,8 +750,10 @@ def _collect(ctx, out, utils):
     if utils:
         name = max(utils, key=lambda k: num(sc[utils[k]]))
         out["util"] = out[name]
-        out["governing"] = {"util_axial": "axial compression", "util_flexure": "flexure about x",
-                            "util_flexure_y": "flexure about y", "util_shear": "shear",
+        principal = getattr(ctx, "axes", "geometric") == "principal"
+        out["governing"] = {"util_axial": "axial compression",
+                            "util_flexure": "flexure about w (major principal axis)" if principal else "flexure about x",
+                            "util_flexure_y": "flexure about z (minor principal axis)" if principal else "flexure about y", "util_shear": "shear",
                             "util_interaction": "combined force (H1)"}[name]
         w.note(f"Largest utilisation: {out['governing']}, {num(out['util']):.3f}.", kind="method")
     else:
@@ -796,7 +798,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
                    f"members), which is not built", param="axes")
     if ctx.form in ("T", "L") and M_ry is not None and axes != "principal":
         w.fail(f"minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not built ({STD} "
-               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis'}); "
+               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis, and about both principal axes of an equal-leg angle with axes=\"principal\"'}); "
                f"M_ry is out of scope", param="M_ry")
     ctx.classify()
     out, utils = {}, {}
