@@ -798,7 +798,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
                    f"members), which is not built", param="axes")
     if ctx.form in ("T", "L") and M_ry is not None and axes != "principal":
         w.fail(f"minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not built ({STD} "
-               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis, and about both principal axes of an equal-leg angle with axes=\"principal\"'}); "
+               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else ANGLE_AXES}); "
                f"M_ry is out of scope", param="M_ry")
     ctx.classify()
     out, utils = {}, {}
@@ -856,6 +856,10 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         interaction(w, u, biaxial=biaxial)
         utils["util_interaction"] = "util_interaction"
     return _collect(ctx, out, utils)
+
+
+ANGLE_AXES = ('F10 is built for bending about the geometric x axis, and about both principal axes of an equal-leg '
+              'angle with axes="principal"')
 
 
 def _compression_flange(ctx, given, beam, combo, x_start, x_end):
