@@ -16,8 +16,9 @@ def flange_geometry(ctx):
     call (``ctx.compression_flange``: "top" for a sagging moment, "bottom" for a hogging one).
 
     A doubly symmetric section uses S_x and h for both; a singly symmetric one (a section record whose top and
-    bottom moduli differ) takes them from the record's fibre distances and plastic neutral axis (y_c and y_p
-    measured up from the bottom fibre, y_top from the centroid to the top fibre)."""
+    bottom moduli differ) takes them from the record's fibre distances and plastic neutral axis: y_top and y_bot
+    from the centroid to the top and bottom fibres (y_bot = d − y_top when not given), y_c and y_p the centroid and
+    the plastic neutral axis in one frame measured upwards (only their difference is used)."""
     w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
     top, bot = field(rec, "S_x_top"), field(rec, "S_x_bot")
     singly = top is not None and bot is not None and abs(top.m_as("mm^3") / bot.m_as("mm^3") - 1) > 0.005
@@ -48,12 +49,16 @@ def flange_geometry(ctx):
         return True
     w.note(f"Singly symmetric I-shape, hogging moment: the bottom flange is the compression flange; S_xc, h_c, h_p "
            f"and the flange's slenderness follow from it ({STD} F4, B4.1b cases 10/11 and 16).", kind="method")
+    if field(rec, "y_bot") is not None:
+        w.let("y_bot", field(rec, "y_bot"), unit=u["ln"], desc="centroid to the bottom fibre", note="from the section")
+    else:
+        w.calc("y_bot", "d - y_top", unit=u["ln"], desc="centroid to the bottom fibre")
     _bottom_flange(ctx)
     w.calc("S_xc", "S_x_bot", unit=u["i3"], desc="elastic modulus to the compression (bottom) flange")
     w.calc("S_xt", "S_x_top", unit=u["i3"], desc="elastic modulus to the tension (top) flange")
-    w.calc("h_c", "2*(y_c - t_fc)", unit=u["ln"],
+    w.calc("h_c", "2*(y_bot - t_fc)", unit=u["ln"],
            desc="h_c: twice the distance from the centroid to the inside face of the compression (bottom) flange")
-    w.calc("h_p", "2*(y_p - t_fc)", unit=u["ln"],
+    w.calc("h_p", "2*(y_p - (y_c - y_bot) - t_fc)", unit=u["ln"],
            desc="h_p: twice the distance from the plastic neutral axis to the inside face of the compression flange")
     # B4.1b case 10 (rolled) or 11 (built-up) for the flange that is in compression, against the limits already traced
     w.calc("lambda_fc", "b_fc/(2*t_fc)", unit="1", desc="compression (bottom) flange slenderness b/t = b_fc/(2t_fc)")
@@ -69,7 +74,7 @@ def flange_geometry(ctx):
 def _bottom_flange(ctx):
     """b_fc, t_fc of the bottom flange: from the record (b_f_bot, t_f_bot), else from the section's area and
     centroid for a section of flat plates (no fillets): with D = d − t_f and K = A − b_ft_f − t_wD, the first moment
-    about the bottom fibre, A·y_c = K·t/2 + t_wD²/2 + b_ft_f(d − t_f/2), is linear in the bottom flange's t."""
+    about the bottom fibre, A·y_bot = K·t/2 + t_wD²/2 + b_ft_f(d − t_f/2), is linear in the bottom flange's t."""
     w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
     b, t = field(rec, "b_f_bot"), field(rec, "t_f_bot")
     if b is not None and t is not None:
@@ -81,7 +86,7 @@ def _bottom_flange(ctx):
     if sc["K_bf"].magnitude <= 0:
         w.fail("the section record gives no bottom flange (b_f_bot, t_f_bot), and its area leaves none: give them "
                "in steel_design.shape(…)", param="section")
-    w.calc("t_fc", "2*(A*y_c - t_w*(d - t_f)^2/2 - b_f*t_f*(d - t_f/2))/K_bf", unit=u["ln"],
+    w.calc("t_fc", "2*(A*y_bot - t_w*(d - t_f)^2/2 - b_f*t_f*(d - t_f/2))/K_bf", unit=u["ln"],
            desc="bottom flange thickness from the first moment of area about the bottom fibre (plates, no fillets)")
     ok = 0 < sc["t_fc"].m_as("mm") < (sc["d"] - sc["t_f"]).m_as("mm")
     if ok:

@@ -125,3 +125,17 @@ def test_a_record_without_the_bottom_flange_or_its_centroid_is_a_located_error()
     errs = errors(f"s = steel_design.shape({shape})\nout = steel_design.aisc_beam(section=s, F_y=345 MPa, L_b=3 m, "
                   f"compression_flange=\"bottom\")\n", units="SI")
     assert errs and "y_c" in errs[0].message and errs[0].span is not None
+
+
+def test_only_the_difference_of_y_c_and_y_p_matters_and_the_bottom_flange_is_recovered_from_the_plates():
+    # y_c, y_p in a frame 100 mm below the bottom fibre; no b_f_bot, t_f_bot: the flange comes from A and y_bot
+    A, yc, Ix, Iy, St, Sb, yp = plates()
+    Zx = BT * TT * (D - TT / 2 - yp) + TW * (D - TT - yp) ** 2 / 2 + TW * (yp - TB) ** 2 / 2 + BB * TB * (yp - TB / 2)
+    shape = (f'name="girder", form="I", fabrication="welded", A={A} mm^2, d={D} mm, b_f={BT} mm, t_f={TT} mm, '
+             f't_w={TW} mm, I_x={Ix} mm^4, I_y={Iy} mm^4, S_x={Sb} mm^3, Z_x={Zx} mm^3, S_y={2 * Iy / BT} mm^3, '
+             f'Z_y=1e6 mm^3, J=1.2e6 mm^4, C_w=2.8e12 mm^6, h_o={D - TT / 2 - TB / 2} mm, S_x_top={St} mm^3, '
+             f'S_x_bot={Sb} mm^3, y_top={D - yc} mm, y_c={yc + 100} mm, y_p={yp + 100} mm')
+    r = run(f"s = steel_design.shape({shape})\nout = steel_design.aisc_beam(section=s, F_y=345 MPa, E=200000 MPa, "
+            f"L_b=3 m, compression_flange=\"bottom\")\n", units="SI")
+    Mn, _, _ = f4_bottom_in_compression(3000.0)
+    assert f(r.values["out"].fields["M_nx"], "N*mm") == pytest.approx(Mn, rel=1e-9)
