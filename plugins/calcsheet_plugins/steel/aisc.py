@@ -514,8 +514,7 @@ class _Ctx:
     def flexure_minor(self):
         w, sc, u = self.work, self.sc, self.u
         if self.form == "L" and getattr(self, "axes", "geometric") == "principal":
-            if "S_z_toe" not in sc:
-                aisc_open._equal_leg_principal(self)
+            aisc_open._principal_geometry(self, getattr(self, "toe", "compression"))
             return self.governing_moment("M_ny", aisc_open.f10_minor(self))
         if self.form in ("T", "L"):
             return None
@@ -685,8 +684,8 @@ BENDING = [
           doc="singly symmetric I-shapes (F4, F5): the flange in compression — top for a sagging moment, bottom for "
               "a hogging one (default: from the sign of the beam's moment with beam=…, else top)", default=None),
     Param("axes", kind="text", choices=("geometric", "principal"),
-          doc="single angles (F10): bending about the geometric axes (M_rx, M_ry) or the principal axes (equal legs: "
-              "M_rx is then the moment about the major axis w, M_ry about the minor axis z; toe= the toes' side of w)",
+          doc="single angles (F10): bending about the geometric axes (M_rx, M_ry) or the principal axes (M_rx is then "
+              "the moment about the major axis w, M_ry about the minor axis z; toe= the vertical leg's toe under M_rx)",
           default="geometric"),
     Param("restraint", kind="text", choices=("none", "at_max_moment"),
           doc="single angles (F10.2): lateral-torsional restraint only at the ends, or also at the point of "
@@ -717,6 +716,7 @@ F_FLEX = [Field("M_nx", "[force]*[length]", "nominal flexural strength, major ax
           Field("C_b", doc="LTB modification factor used", optional=True),
           Field("M_cr", "[force]*[length]", "elastic lateral-torsional buckling moment (F9-10, F10-5)", optional=True),
           Field("R_pc", doc="web plastification factor (F4-9)", optional=True),
+          Field("beta_w", "[length]", "single angles about their principal axes: β_w of F10-4", optional=True),
           Field("R_pg", doc="bending strength reduction factor (F5-6)", optional=True),
           Field("governing_flexure", kind="text", doc="the limit state governing M_nx")]
 F_FLEXY = [Field("M_ny", "[force]*[length]", "nominal flexural strength, minor axis (I-shapes, channels, HSS)",
@@ -789,7 +789,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     for nm, q in (("P_r", P_r), ("M_rx", M_rx), ("M_ry", M_ry), ("V_r", V_r)):
         if q is not None and q.magnitude < 0:
             w.fail(f"{nm} is a required strength: give its magnitude (≥ 0)", param=nm)
-    ctx.axes = axes
+    ctx.axes, ctx.toe = axes, toe
     if axes == "principal":
         if ctx.form != "L":
             w.fail("axes=\"principal\" applies to single angles (F10) only", param="axes")
@@ -822,7 +822,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         gov = ctx.flexure_major(L_b, cb, stem, toe, restraint)
         ctx.available("M_cx", "M_nx", "flexure")
         out.update(M_nx=sc["M_nx"], M_cx=sc["M_cx"], governing_flexure=gov)
-        for k in ("M_p", "L_p", "L_r", "C_b", "M_cr", "R_pc", "R_pg"):
+        for k in ("M_p", "L_p", "L_r", "C_b", "M_cr", "R_pc", "R_pg", "beta_w"):
             if k in sc and sc[k] is not None and not isinstance(sc[k], str):
                 out[k] = sc[k] if k not in ("C_b", "R_pc", "R_pg") else w.q(num(sc[k]), "")
         if "M_p" not in out and "M_px" in sc:

@@ -294,8 +294,8 @@ def f10(ctx, L_b, C_b, toe, restraint):
     if L_b is not None and L_b.magnitude > 0:
         if abs(sc["d"].m_as("mm") - sc["b_f"].m_as("mm")) > 1e-6 * sc["d"].m_as("mm"):
             w.fail(f"lateral-torsional buckling of an unequal-leg angle bent about a geometric axis is not built "
-                   f"({STD} F10.2 requires principal-axis bending for it); give L_b=0 for a continuously "
-                   f"restrained angle, or use an equal-leg angle", param="L_b")
+                   f"({STD} F10.2 requires principal-axis bending for it: give axes=\"principal\" with the principal-axis "
+                   f"moments); give L_b=0 for a continuously restrained angle, or use an equal-leg angle", param="L_b")
         sc["L_b"], sc["C_b"] = L_b, C_b
         sc["b_leg"] = sc["d"]
         if restraint == "none":
@@ -348,41 +348,97 @@ def f10(ctx, L_b, C_b, toe, restraint):
     return states
 
 
-def _equal_leg_principal(ctx):
-    """The principal-axis moduli of an equal-leg angle of flat legs b × t (fillets and toe roundings left out:
-    common practice): the centroid x̄ = ȳ from the heel, the distances of the heel and the toe corners from the
-    major principal axis w (at 45°) and of the toes from the minor axis z; I_w, I_z are the record's I_1, I_2."""
+def leg_geometry(d, b, t):
+    """Principal-axis geometry of an angle of flat legs (vertical leg d along +y, horizontal leg b along +x, heel
+    at the origin; fillets and toe roundings left out — common practice), by Gauss–Legendre integration over the
+    two leg rectangles (3 points a side: exact for the cubic integrands). Returns θ (x to the major axis w), the
+    corners' (w, z) coordinates keyed heel / v_toe (the vertical leg's toe corners) / h_toe, and |β_w| =
+    |(1/I_w)∫z(w² + z²)dA − 2z_0| (AISC 360-16 F10.2), z_0 the shear centre (the legs' midline intersection)."""
+    rects = [(0.0, t, 0.0, d), (t, b, 0.0, t)]
+    g, wg = np.polynomial.legendre.leggauss(3)
+
+    def integ(fn):
+        tot = 0.0
+        for x0, x1, y0, y1 in rects:
+            for gi, wi in zip(g, wg):
+                for gj, wj in zip(g, wg):
+                    x, y = (x0 + x1) / 2 + (x1 - x0) / 2 * gi, (y0 + y1) / 2 + (y1 - y0) / 2 * gj
+                    tot += wi * wj * (x1 - x0) * (y1 - y0) / 4 * fn(x, y)
+        return tot
+
+    A = integ(lambda x, y: 1.0)
+    xc, yc = integ(lambda x, y: x) / A, integ(lambda x, y: y) / A
+    Ix, Iy = integ(lambda x, y: (y - yc) ** 2), integ(lambda x, y: (x - xc) ** 2)
+    Ixy = integ(lambda x, y: (x - xc) * (y - yc))
+    th = 0.5 * math.atan2(-2 * Ixy, Ix - Iy)
+    c, s_ = math.cos(th), math.sin(th)
+    W = lambda x, y: (x - xc) * c + (y - yc) * s_  # noqa: E731
+    Z = lambda x, y: -(x - xc) * s_ + (y - yc) * c  # noqa: E731
+    Iw = integ(lambda x, y: Z(x, y) ** 2)
+    beta = integ(lambda x, y: Z(x, y) * (W(x, y) ** 2 + Z(x, y) ** 2)) / Iw - 2 * Z(t / 2, t / 2)
+    pts = {"heel": [(0.0, 0.0)], "v_toe": [(0.0, d), (t, d)], "h_toe": [(b, 0.0), (b, t)]}
+    return th, {k: [(W(x, y), Z(x, y)) for x, y in v] for k, v in pts.items()}, abs(beta), (xc, yc)
+
+
+def _principal_geometry(ctx, toe):
+    """Moduli about the principal axes to the heel and the toes, and β_w signed by the leg whose toe is in
+    compression under the major-axis moment ("toe" is the vertical leg's toe, as for the geometric axis)."""
     w, sc, u = ctx.work, ctx.sc, ctx.u
-    if abs(sc["d"].m_as("mm") - sc["b_f"].m_as("mm")) > 1e-6 * sc["d"].m_as("mm"):
-        w.fail(f"principal-axis bending of an unequal-leg angle is not built: {STD} F10-4 needs β_w, and leg local "
-               f"buckling the moduli to each toe; only equal-leg angles are built (β_w = 0)", param="axes")
-    w.calc("b_leg", "d", unit=u["ln"], desc="leg width b (equal legs)")
-    w.calc("x_bar", "(b_leg^2 + b_leg*t - t^2)/(2*(2*b_leg - t))", unit=u["ln"],
-           desc="centroid from the outer faces of the legs, x̄ = ȳ (flat legs, no fillets)")
-    w.calc("z_heel", "sqrt(2)*x_bar", unit=u["ln"], desc="heel corner to the major principal axis w")
-    w.calc("z_toe", "(b_leg + t - 2*x_bar)/sqrt(2)", unit=u["ln"], desc="toe corners to the major principal axis w")
-    w.calc("w_toe", "b_leg/sqrt(2)", unit=u["ln"], desc="toe tips to the minor principal axis z")
-    w.calc("S_w_heel", "I_1/z_heel", unit=u["i3"], desc="elastic modulus about w to the heel")
-    w.calc("S_w_toe", "I_1/z_toe", unit=u["i3"], desc="elastic modulus about w to the toes")
-    w.calc("S_z_toe", "I_2/w_toe", unit=u["i3"], desc="elastic modulus about z to the toes")
+    if "S_w_min" in sc:
+        return
+    d_, b_, t_ = (sc[n].m_as("mm") for n in ("d", "b_f", "t"))
+    th, pts, beta, (xc, yc) = leg_geometry(d_, b_, t_)
+    mm = lambda v: w.q(v, "mm").to(u["ln"])  # noqa: E731
+    src = "from the flat legs (fillets left out, common practice), integrated exactly"
+    w.let("x_bar", mm(xc), unit=u["ln"], desc="centroid from the back of the vertical leg", note=src)
+    w.let("y_bar", mm(yc), unit=u["ln"], desc="centroid from the back of the horizontal leg", note=src)
+    w.let("alpha_w", w.q(math.degrees(th), "deg"), desc="angle from x to the major principal axis w", note=src)
+    zmax = max(abs(z) for v in pts.values() for _w, z in v)
+    wmax = max(abs(w_) for v in pts.values() for w_, _z in v)
+    w.let("z_max", mm(zmax), unit=u["ln"], desc="the farthest corner from the major principal axis w", note=src)
+    w.let("w_max", mm(wmax), unit=u["ln"], desc="the farthest corner from the minor principal axis z", note=src)
+    w.calc("S_w_min", "I_1/z_max", unit=u["i3"], desc="least elastic modulus about w (first yield)")
+    w.calc("S_z_min", "I_2/w_max", unit=u["i3"], desc="least elastic modulus about z (first yield)")
+    # the side of w in compression: the vertical leg's toe side (toe="compression") or the other
+    zv = pts["v_toe"][0][1]
+    side = (1 if zv > 0 else -1) * (1 if toe == "compression" else -1)
+    ctx.toes_c = [k for k in ("v_toe", "h_toe") if any(z * side > 1e-9 * max(d_, b_) for _w, z in pts[k])]
+    for k in ctx.toes_c:
+        zc = max(abs(z) for _w, z in pts[k])
+        w.let(f"z_{k}", mm(zc), unit=u["ln"], desc=f"the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe "
+                                                  f"to w", note=src)
+        w.calc(f"S_w_{k}", f"I_1/z_{k}", unit=u["i3"], desc=f"elastic modulus about w to the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe (in compression)")
+    for k in ("v_toe", "h_toe"):
+        wc = max(abs(w_) for w_, _z in pts[k])
+        w.let(f"w_{k}", mm(wc), unit=u["ln"], desc=f"the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe to z",
+              note=src)
+        w.calc(f"S_z_{k}", f"I_2/w_{k}", unit=u["i3"], desc=f"elastic modulus about z to the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe")
+    equal = abs(d_ - b_) <= 1e-6 * d_
+    if equal:
+        w.let("beta_w", w.q(0.0, u["ln"]), desc=f"β_w = 0 for an equal-leg angle ({STD} F10.2)")
+        return
+    short_toe = "v_toe" if d_ < b_ else "h_toe"
+    short_c = short_toe in ctx.toes_c
+    w.let("beta_w", mm(beta if short_c else -beta), unit=u["ln"],
+          desc=f"β_w = (1/I_w)∫z(w² + z²)dA − 2z_0, {'positive: the short leg in compression' if short_c else 'negative: the long leg in compression'} ({STD} F10.2)",
+          note=src)
 
 
 def f10_principal(ctx, L_b, C_b, toe):
-    """F10 for an equal-leg single angle bent about its major principal axis w (β_w = 0)."""
+    """F10 for a single angle bent about its major principal axis w."""
     w, sc, u = ctx.work, ctx.sc, ctx.u
     d = aisc()["F10"]
-    _equal_leg_principal(ctx)
-    w.note(f"Single angle bent about its major principal axis w, the toes in {toe} (the heel in "
-           f"{'tension' if toe == 'compression' else 'compression'}): {STD} F10 (yielding, lateral-torsional "
-           f"buckling by F10-4 with β_w = 0 for equal legs, leg local buckling).", kind="method")
-    w.calc("M_y", "F_y*min(S_w_heel, S_w_toe)", unit=u["mo"], desc="yield moment about w (first yield)")
+    _principal_geometry(ctx, toe)
+    w.note(f"Single angle bent about its major principal axis w, the vertical leg's toe in {toe}: {STD} F10 "
+           f"(yielding, lateral-torsional buckling by F10-4, leg local buckling of a leg whose toe is in "
+           f"compression).", kind="method")
+    w.calc("M_y", "F_y*S_w_min", unit=u["mo"], desc="yield moment about w (first yield)")
     w.calc("M_n_Y", f"{d['yield_factor']:g}*M_y", unit=u["mo"], desc=f"yielding, {STD} Eq. F10-1")
     states = {"yielding (F10-1)": "M_n_Y"}
     if L_b is not None and L_b.magnitude > 0:
         sc["L_b"], sc["C_b"] = L_b, C_b
         w.calc("C_b_F10", f"min(C_b, {d['Cb_max']:g})", unit="1", desc=f"C_b ≤ {d['Cb_max']:g} ({STD} F10.2)")
         w.calc("r_z", "sqrt(I_2/A)", unit=u["ln"], desc="radius of gyration about the minor principal axis z")
-        w.let("beta_w", w.q(0.0, u["ln"]), desc="β_w = 0 for an equal-leg angle (F10.2)")
         w.calc("M_cr", "9*E*A*r_z*t*C_b_F10/(8*L_b)*(sqrt(1 + (4.4*beta_w*r_z/(L_b*t))^2) + 4.4*beta_w*r_z/(L_b*t))",
                unit=u["mo"], desc=f"elastic LTB moment, major principal axis, {STD} Eq. F10-4")
         ratio = sc["M_y"].m_as("N*m") / sc["M_cr"].m_as("N*m")
@@ -397,45 +453,51 @@ def f10_principal(ctx, L_b, C_b, toe):
     else:
         w.note(f"L_b = 0 (continuously restrained): lateral-torsional buckling does not apply ({STD} F10.2).",
                kind="method")
-    if toe == "compression":
-        _leg_local(ctx, "S_w_toe", states, "w")
-    else:
-        w.note(f"The toes are in tension: leg local buckling does not apply ({STD} F10.3).", kind="method")
+    if not ctx.toes_c:
+        w.note(f"No toe is in compression: leg local buckling does not apply ({STD} F10.3).", kind="method")
+    for k in ctx.toes_c:
+        _leg_local(ctx, f"S_w_{k}", states, "w", k)
     return states
 
 
 def f10_minor(ctx):
-    """F10 for an equal-leg single angle bent about its minor principal axis z: one toe is in compression."""
+    """F10 for a single angle bent about its minor principal axis z; the moment's sign is not asked, so the leg
+    local buckling of both toes is checked (the lesser governs, conservative for an unequal-leg angle)."""
     w = ctx.work
     d = aisc()["F10"]
-    w.note(f"Single angle bent about its minor principal axis z: yielding and leg local buckling ({STD} F10.1, "
-           f"F10.3); no lateral-torsional buckling about the minor axis.", kind="method")
-    w.calc("M_y_z", "F_y*S_z_toe", unit=ctx.u["mo"], desc="yield moment about z (the toes are the extreme fibres)")
+    w.note(f"Single angle bent about its minor principal axis z: yielding and leg local buckling of either toe "
+           f"({STD} F10.1, F10.3); no lateral-torsional buckling about the minor axis.", kind="method")
+    w.calc("M_y_z", "F_y*S_z_min", unit=ctx.u["mo"], desc="yield moment about z (first yield)")
     w.calc("M_n_Yz", f"{d['yield_factor']:g}*M_y_z", unit=ctx.u["mo"], desc=f"yielding about z, {STD} Eq. F10-1")
     states = {"yielding (F10-1)": "M_n_Yz"}
-    _leg_local(ctx, "S_z_toe", states, "z")
+    for k in ("v_toe", "h_toe"):
+        _leg_local(ctx, f"S_z_{k}", states, "z", k)
     return states
 
 
-def _leg_local(ctx, modulus, states, axis):
+def _leg_local(ctx, modulus, states, axis, toe):
     w, sc, u = ctx.work, ctx.sc, ctx.u
-    w.calc(f"S_c_{axis}", modulus, unit=u["i3"], desc=f"elastic modulus about {axis} to the toe in compression")
-    if "lambda_leg" not in sc:
-        w.calc("lambda_leg", "b_leg/t", unit="1", desc="b/t of the leg whose toe is in compression")
-    lam = num(sc["lambda_leg"])
+    leg = "d" if toe == "v_toe" else "b_f"
+    lam_name = f"lambda_{toe}"
+    if lam_name not in sc:
+        w.calc(lam_name, f"{leg}/t", unit="1", desc=f"b/t of the {'vertical' if leg == 'd' else 'horizontal'} leg")
+    lam = num(sc[lam_name])
     lp, lr = num(sc["lambda_p_f"]), num(sc["lambda_r_f"])
+    tag = f"{axis}_{toe}"
+    where = f"about {axis}, {'vertical' if leg == 'd' else 'horizontal'} leg"
     if lam <= lp:
-        w.note(f"Compact leg (b/t = {lam:.2f} ≤ λ_p = {lp:.2f}): leg local buckling does not apply ({STD} F10.3(a)).",
-               kind="method")
+        w.note(f"Compact leg ({where}: b/t = {lam:.2f} ≤ λ_p = {lp:.2f}): leg local buckling does not apply "
+               f"({STD} F10.3(a)).", kind="method")
     elif lam <= lr:
-        w.calc(f"M_n_LLB{axis}", f"F_y*S_c_{axis}*(2.43 - 1.72*lambda_leg*sqrt(F_y/E))", unit=u["mo"],
-               desc=f"leg local buckling, noncompact leg, {STD} Eq. F10-6")
-        states["leg local buckling, noncompact (F10-6)"] = f"M_n_LLB{axis}"
+        w.calc(f"M_n_LLB_{tag}", f"F_y*{modulus}*(2.43 - 1.72*{lam_name}*sqrt(F_y/E))", unit=u["mo"],
+               desc=f"leg local buckling, noncompact leg ({where}), {STD} Eq. F10-6")
+        states[f"leg local buckling, noncompact, {where} (F10-6)"] = f"M_n_LLB_{tag}"
     else:
-        if "F_cr_LLB" not in sc:
-            w.calc("F_cr_LLB", "0.71*E/lambda_leg^2", unit=u["st"], desc=f"{STD} Eq. F10-8")
-        w.calc(f"M_n_LLB{axis}", f"F_cr_LLB*S_c_{axis}", unit=u["mo"], desc=f"leg local buckling, slender leg, {STD} Eq. F10-7")
-        states["leg local buckling, slender (F10-7)"] = f"M_n_LLB{axis}"
+        if f"F_cr_LLB_{toe}" not in sc:
+            w.calc(f"F_cr_LLB_{toe}", f"0.71*E/{lam_name}^2", unit=u["st"], desc=f"{STD} Eq. F10-8")
+        w.calc(f"M_n_LLB_{tag}", f"F_cr_LLB_{toe}*{modulus}", unit=u["mo"],
+               desc=f"leg local buckling, slender leg ({where}), {STD} Eq. F10-7")
+        states[f"leg local buckling, slender, {where} (F10-7)"] = f"M_n_LLB_{tag}"
 
 
 # ---------------------------------------------------------------- Chapter G3
