@@ -426,7 +426,10 @@ class _Ctx:
         w.calc(name, f"min({', '.join(states.values())})" if len(states) > 1 else list(states.values())[0],
                unit=u["mo"], desc="nominal flexural strength: the least of the applicable limit states")
         gov = min(states, key=lambda k: sc[states[k]].m_as("N*m"))
-        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {name[-1]} ({STD} F1).", kind="method")
+        axis = name[-1]
+        if getattr(self, "axes", "geometric") == "principal":
+            axis = {"x": "w (major principal axis)", "y": "z (minor principal axis)"}[axis]
+        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {axis} ({STD} F1).", kind="method")
         return gov
 
     def f7(self, axis, L_b, C_b):
@@ -828,7 +831,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         if "M_p" not in out and "M_px" in sc:
             out["M_p"] = sc["M_px"]
         if M_rx is not None:
-            _util(w, "util_flexure", "M_rx", "M_cx", f"flexure about x, {STD} F1")
+            _util(w, "util_flexure", "M_rx", "M_cx", f"flexure about {'w' if axes == 'principal' else 'x'}, {STD} F1")
             utils["util_flexure"] = "util_flexure"
     if "flexure_y" in want:
         gov = ctx.flexure_minor()
@@ -840,7 +843,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
             ctx.available("M_cy", "M_ny", "flexure")
             out.update(M_ny=sc["M_ny"], M_cy=sc["M_cy"], governing_flexure_y=gov)
             if M_ry is not None:
-                _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about y, {STD} F1")
+                _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about {'z' if axes == 'principal' else 'y'}, {STD} F1")
                 utils["util_flexure_y"] = "util_flexure_y"
     if "shear" in want:
         kind, gov = ctx.shear(L_v)
