@@ -424,12 +424,17 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
             _rect_row("top flange, toe thickness", t_w, h - t_toe, o, t_toe),
             triangle_row("bottom taper", (t_w, t_toe), (b, t_toe), (t_w, t_root)),
             triangle_row("top taper", (t_w, h - t_toe), (b, h - t_toe), (t_w, h - t_root))]
+    corners = []
     if r > 0:
-        for k in (3, 4):
-            rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+        for k, where in ((3, "bottom"), (4, "top")):
+            rows += _toe_rows(f"root fillet, {where}", pts, k, r, 1)
+            corners.append(_lumped(f"root fillet, {where}", rows[-3:]))
     if r_toe > 0:
-        for k in (2, 5):
-            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
+        for k, where in ((2, "bottom"), (5, "top")):
+            rows += _toe_rows(f"toe radius, {where}", pts, k, r_toe)
+            corners.append(_lumped(f"toe radius, {where}", rows[-3:]))
+    walls, lumps = WP.tapered_channel_walls(h, b, t_f, t_w, slope, u, corners)
+    res = WP.sectorial(walls, lumps)
     return Shape(
         "channel", f"channel, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
                    + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm",
@@ -437,8 +442,16 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
         J_method=THIN_OPEN_TAPER, J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4",
                                                 "torsion constant (thin-walled, mean flange thickness)")],
         dims=[Dimension(0, 0, b, 0, _fmt(b), -1), Dimension(0, h, 0, 0, _fmt(h), -1)],
-        has_arcs=True, warping=WP.channel(), symmetry="horizontal",
+        has_arcs=True, symmetry="horizontal",
+        warping=[Step("h_o", "h - t_f", "mm", "distance between the flange centroids h' (mean thickness)")]
+        + WP.sectorial_steps(res, WP.SECTORIAL_METHOD), sectorial=(walls, lumps, res),
     )
+
+
+def _lumped(name, rows):
+    """(name, signed area, centroid) of a corner's rows (two triangles less a sector), for the centre-line model."""
+    A = sum(r.sign * r.A for r in rows)
+    return (name, A, sum(r.sign * r.A * r.x for r in rows) / A, sum(r.sign * r.A * r.y for r in rows) / A)
 
 
 THIN_OPEN_TAPER = ("Saint-Venant's thin-walled open-section sum J = Σ b·t³/3 with the flanges at their mean "
