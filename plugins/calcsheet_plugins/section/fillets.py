@@ -458,29 +458,36 @@ THIN_OPEN_TAPER = ("Saint-Venant's thin-walled open-section sum J = Σ b·t³/3 
                    "thickness (taper and fillets ignored in J)")
 
 
-def tapered_tee(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, u: float | None = None) -> Shape:
+def tapered_tee(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, u: float | None = None,
+                r_toe: float = 0.0) -> Shape:
     """Tee cut from a tapered-flange I (flange on top): inner flange faces at ``slope``, t_f measured at u from the
-    toe (default the middle of the outstand), two root fillets r; toe radii not modelled."""
+    toe (default the middle of the outstand), two root fillets r and toe radii r_toe (0: sharp toes)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = (b - t_w) / 2
     u = o / 2 if u is None else u
     t_toe, t_root = _taper(t_f, o, slope, u)
     if t_toe <= 0 or t_root >= h or not 0 <= u <= o:
         raise ShapeError("the tapered flange does not fit these dimensions", "t_f")
+    if r_toe < 0 or r_toe >= t_toe:
+        raise ShapeError(f"toe radius {_fmt(r_toe)} mm does not fit the flange toe ({_fmt(t_toe)} mm)", "r_toe")
     xl, xr = (b - t_w) / 2, (b + t_w) / 2
     pts = [(xl, 0), (xr, 0), (xr, h - t_root), (b, h - t_toe), (b, h), (0, h), (0, h - t_toe), (xl, h - t_root)]
-    radii = [0, 0, r, 0, 0, 0, 0, r]
+    radii = [0, 0, r, r_toe, 0, 0, r_toe, r]
     rows = [_rect_row("stem", xl, 0, t_w, h - t_toe), _rect_row("flange, toe thickness", 0, h - t_toe, b, t_toe),
             triangle_row("taper, right", (xr, h - t_toe), (b, h - t_toe), (xr, h - t_root)),
             triangle_row("taper, left", (xl, h - t_toe), (0, h - t_toe), (xl, h - t_root))]
     if r > 0:
         for k in (2, 7):
             rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+    if r_toe > 0:
+        for k in (3, 6):
+            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
     hs = h - t_f
     alpha, D = dj_alpha_D(t_f, t_w, r)
     J = b * t_f**3 / 3 - 0.21 * t_f**4 + hs * t_w**3 / 3 - 0.105 * t_w**4 + alpha * D**4
     return Shape(
-        "tee", f"tee, tapered flange h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm", rows,
+        "tee", f"tee, tapered flange h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+               + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm", rows,
         [make_ring(rounded_any(pts, radii))], J=J,
         J_method="one flange-stem junction of a rolled I (El Darwish & Johnston 1965), the flange at its mean "
                  "thickness t_f",
