@@ -244,11 +244,11 @@ def _upn_entries():
         e.dims.update(h=g["h"], b=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"], r_toe=g["r2"], slope=slope, u=u)
         e.values.update(d=g["h"], b_f=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"])
         # the nominal mass, so a UPN can be ranked by weight (--from UPN): ρ·A of the model's own parts table
-        from .fillets import tapered_channel
+        from .fillets import tapered_channel_rows
         from .properties import tabular
 
         d = e.dims
-        A = tabular(tapered_channel(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u).rows).A
+        A = tabular(tapered_channel_rows(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u)[0]).A
         e.values["mass"] = STEEL_DENSITY * A * 1e-6
         e.derived["mass"] = "ρ·A of the geometric model, steel at 7850 kg/m³"
         out.append(e)

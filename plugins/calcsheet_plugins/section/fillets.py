@@ -406,10 +406,10 @@ def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: 
     )
 
 
-def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
-                    u: float | None = None) -> Shape:
-    """Channel with tapered flanges, web on the left: inner faces at ``slope``, t_f measured at u from the toe
-    (default the middle of the outstand b − t_w), root fillets r and toe radii r_toe (0: sharp toes)."""
+def tapered_channel_rows(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                         u: float | None = None):
+    """The parts table of ``tapered_channel`` (no outline, no warping): (rows, outline corners and radii, lumped
+    corners, u)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = b - t_w
     u = o / 2 if u is None else u
@@ -433,6 +433,14 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
         for k, where in ((2, "bottom"), (5, "top")):
             rows += _toe_rows(f"toe radius, {where}", pts, k, r_toe)
             corners.append(_lumped(f"toe radius, {where}", rows[-3:]))
+    return rows, (pts, radii), corners, u
+
+
+def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                    u: float | None = None) -> Shape:
+    """Channel with tapered flanges, web on the left: inner faces at ``slope``, t_f measured at u from the toe
+    (default the middle of the outstand b − t_w), root fillets r and toe radii r_toe (0: sharp toes)."""
+    rows, (pts, radii), corners, u = tapered_channel_rows(h, b, t_f, t_w, r, slope, r_toe, u)
     walls, lumps = WP.tapered_channel_walls(h, b, t_f, t_w, slope, u, corners)
     res = WP.sectorial(walls, lumps)
     return Shape(
