@@ -178,6 +178,7 @@ class _Brief:
         self.values = []
         self.formulas = []
         self.methods = []
+        self.numerical = []  # (name, method): values of a numerical method other than Green's theorem
 
     def _take(self, name):
         step = self.work.working.items.pop()
@@ -211,6 +212,9 @@ class _Brief:
         self.work.note("Formulas: " + "; ".join(self.formulas) + ".", kind="method")
         self.work.note("Found from the outline by Green's theorem (methods as in a full working): "
                        + ", ".join(self.methods) + ".", kind="method")
+        if self.numerical:
+            self.work.note("By " + self.numerical[0][1] + " (the centre-line model above): "
+                           + ", ".join(n for n, _ in self.numerical) + ".", kind="method")
 
 
 def _engine_basic(work) -> Basic:
@@ -424,7 +428,11 @@ def _warping(work, rec, shape, vals) -> None:
         _sectorial_table(work, shape.sectorial)
     for st in shape.warping:
         if isinstance(st, Given):
-            rec.let(st.name, _q(st.value, st.unit), unit=st.unit, desc=st.desc, note=st.note)
+            if isinstance(rec, _Brief):
+                rec.let(st.name, _q(st.value, st.unit), unit=st.unit, desc=st.desc)
+                rec.numerical.append((st.name, st.note))
+            else:
+                rec.let(st.name, _q(st.value, st.unit), unit=st.unit, desc=st.desc, note=st.note)
         else:
             rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
     if "x_s" not in work.scope:
