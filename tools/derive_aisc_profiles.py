@@ -15,7 +15,6 @@ to a sixteenth of an inch, for detailing), which left A and I_x 1-7 % high.
 """
 from __future__ import annotations
 
-import math
 import sys
 
 import numpy as np
@@ -62,7 +61,10 @@ def derive(e):
             return np.full(len(targets), 1.0)
         return np.array([getattr(b, n) / t - 1 for n, t in targets])
 
-    r_k = max(v["k"] - g["t_f"], 0.0) if e.family == "M" else root_radius_from_k(v["k"], g["t_f"] + SLOPE * o / 2, SLOPE)
+    if e.family == "M":
+        r_k = max(v["k"] - g["t_f"], 0.0)
+    else:
+        r_k = root_radius_from_k(v["k"], g["t_f"] + SLOPE * o / 2, SLOPE)
     if e.family == "MC":
         smax = min(1.9 * g["t_f"] / o, 0.4)
         lo, hi = [0.0, 0.0], [smax, 2 * r_k + 1]

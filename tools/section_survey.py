@@ -50,7 +50,7 @@ def survey(families, show_rows=False):
     table = C.entries()
     by_family = defaultdict(list)
     for e in table.values():
-        if e.family in families and e.model not in ("tube",) or (e.family in families and e.model == "tube"):
+        if e.family in families:
             by_family[e.family].append(e)
     for fam in families:
         rows = by_family.get(fam, [])

@@ -27,7 +27,6 @@ Gauss–Legendre rule on each edge integrates the degree-4 line integrand exactl
 """
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 
 import numpy as np
@@ -150,13 +149,9 @@ class Sectorial:
 def _gauss(wall: Wall):
     p0, p1 = np.array(wall.p0, float), np.array(wall.p1, float)
     L = float(np.hypot(*(p1 - p0)))
-    pts = p0[None, :] + _GL3_T[:, None] * (p1 - p0)[None, :]
-    t = wall.t0 + _GL3_T * (wall.t1 - wall.t0)
-    return p0, p1, L, pts, t, _GL3_W * L
-
-
-_GL3_T = _GL_T
-_GL3_W = _GL_W
+    pts = p0[None, :] + _GL_T[:, None] * (p1 - p0)[None, :]
+    t = wall.t0 + _GL_T * (wall.t1 - wall.t0)
+    return p0, p1, L, pts, t, _GL_W * L
 
 
 def _sectorial_moments(walls, lumps, pole, x_c, y_c):
@@ -168,7 +163,7 @@ def _sectorial_moments(walls, lumps, pole, x_c, y_c):
     for w in walls:
         p0, p1, L, pts, t, wt = _gauss(w)
         r = (p0[0] - pole[0]) * (p1[1] - p0[1]) - (p0[1] - pole[1]) * (p1[0] - p0[0])  # 2 × swept area
-        o = om[w.start] + _GL3_T * r
+        o = om[w.start] + _GL_T * r
         om[w.end] = om[w.start] + r
         x, y = pts[:, 0] - x_c, pts[:, 1] - y_c
         acc += [wt @ (t * y * y), wt @ (t * x * x), wt @ (t * x * y), wt @ (t * o), wt @ (t * o * y),

@@ -6,14 +6,12 @@ the tabulated plastic axis x_p of channels, the tabulated J against a finite-ele
 derived outline, the tees cut from these shapes, and a published flange thickness of a C channel.
 """
 import importlib.util
-import math
 from pathlib import Path
 
 import numpy as np
 import pytest
 
 from calcsheet_plugins.section import catalogue as C
-from calcsheet_plugins.section import fillets as FL
 from calcsheet_plugins.section import functions as F
 from calcsheet_plugins.section.properties import properties, tabular
 
