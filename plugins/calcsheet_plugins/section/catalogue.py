@@ -31,8 +31,9 @@ AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": (
 
 
 # S shapes, ST tees and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness, at the
-# middle of the outstand (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size and are not
-# tabulated: modelled with parallel flanges.
+# middle of the outstand (AISC Manual, 16th ed., Part 1; # from memory; C12X20.7's 0.723/0.280 in at root/tip in the
+# 1923 Carnegie pocket companion agrees). MC slopes vary by size and are not tabulated: each MC row's slope is derived
+# from its own values (aisc_v16_derived.csv); an MC without a derived row would keep parallel flanges (model "C").
 AISC_FLANGE_SLOPE = 2 / 12
 # S, C and MC toe radii (not tabulated): half the root radius, the proportion of taper-flange channels to DIN 1026-1
 # (en_upn.csv: r2 = r1/2; # common practice); see tools/derive_aisc_profiles.py
