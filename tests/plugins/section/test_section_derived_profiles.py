@@ -119,3 +119,22 @@ def test_the_tabulated_torsion_constant_matches_an_fe_analysis_of_the_derived_ou
     s.calculate_geometric_properties()
     s.calculate_warping_properties()
     assert s.get_j() == pytest.approx(e.values["J"], rel=0.035)
+
+
+def test_a_tapered_tee_with_toe_radii_keeps_its_parts_table_and_outline_in_agreement():
+    # the toe radii of a tee are kites less sectors in the parts table and arcs on the outline: two methods
+    from calcsheet_plugins.section.properties import green
+
+    for name in ("ST12X53", "ST1.5X2.85"):
+        s = model(C.lookup(name))
+        a, b = tabular(s.rows), green(s.rings)
+        assert a.A == pytest.approx(b.A, rel=1e-6) and a.I_x == pytest.approx(b.I_x, rel=1e-6)
+        assert a.I_y == pytest.approx(b.I_y, rel=1e-6) and a.y_c == pytest.approx(b.y_c, rel=1e-6)
+        assert any(r.name.startswith("toe radius") for r in s.rows)
+
+
+def test_the_working_names_where_a_tees_radii_come_from(run):
+    r = run('t = section.rolled(designation="ST12X53")\n')
+    (note,) = [it for it in r.values["t"].working.items if getattr(it, "kind", None) == "method"
+               and "Geometric model" in it.text]
+    assert "S24X106" in note.text and "derived" in note.text
