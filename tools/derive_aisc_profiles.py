@@ -10,8 +10,8 @@ deviations; S, C and MC have toe radii of half the root radius (the proportion o
 en_upn.csv, r2 = r1/2; # common practice for taper-flange shapes, not tabulated by AISC). With 3 or 4 table values
 for 1 or 2 unknowns the fit is over-determined;
 every other property (S, Z, r, J, C_w, r_o, and the ST and MT tees cut from these shapes, which take their parent's
-radii) is an independent check. k_des alone gives a root radius 10-30 % larger than these fits (k_des is rounded up,
-to a sixteenth of an inch, for detailing), which left A and I_x 1-7 % high.
+radii) is an independent check. k_des alone gives a root radius up to twice these fits (for these shapes the
+tabulated k is in sixteenths of an inch, a rounded figure) and sharp toes, which left A and I_x 1-7 % high.
 """
 from __future__ import annotations
 

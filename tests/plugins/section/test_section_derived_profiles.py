@@ -54,7 +54,8 @@ def test_the_data_file_is_what_the_tool_derives(shape):
 
 
 def test_the_derived_fillets_are_at_most_what_k_des_alone_implies():
-    # k_des is rounded up for detailing; the table's own areas call for 45–110 % of the radius it implies
+    # the tabulated k (sixteenths of an inch for these shapes) is a rounded figure; the table's own areas call for
+    # 45–110 % of the radius it implies
     for fam in ("S", "C", "M"):
         for e in family(fam):
             fit = C.derived_profiles()[e.raw["shape"]]
