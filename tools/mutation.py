@@ -665,6 +665,14 @@ def sample(items: list, size: int | None, seed: int) -> list:
     return random.Random(seed).sample(items, min(size, len(items)))
 
 
+def _at(m: Mutant, where: str) -> bool:
+    """Whether mutant ``m`` is the one ``where`` names: FILE:LINE or FILE:LINE:WHAT (FILE: a path's tail)."""
+    path, _, rest = where.partition(":")
+    line, _, what = rest.partition(":")
+    return (m.path == path or m.path.endswith("/" + path)) and str(m.line) == line.strip() \
+        and (not what or m.what == what.strip())
+
+
 def tests_for(target: str, copy_root: Path) -> list[str]:
     return [p for p in TARGETS[target]["tests"] if (copy_root / p).exists()]
 
@@ -699,6 +707,9 @@ def main(argv=None) -> int:
                          "the tests written since the map was traced)")
     ap.add_argument("--skip-equivalent", action="store_true",
                     help="do not run mutants already explained in EQUIVALENT (they count as explained)")
+    ap.add_argument("--where", nargs="*", default=[], metavar="FILE:LINE[:WHAT]",
+                    help="run only the mutants on these lines (FILE may be the file's name alone; WHAT, e.g. "
+                         "'<= → <', narrows to that mutation): a rerun of named survivors when no report is kept")
     ap.add_argument("--no-fork", action="store_true",
                     help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
@@ -716,6 +727,8 @@ def main(argv=None) -> int:
         keep = {(m["path"], m["source_line"], m["what"]) for m in earlier if m["status"] == "survived"}
         plan = {t: [m for m in find_all(t) if (m.path, m.source_line, m.what) in keep]
                 for t in plan}
+    if args.where:
+        plan = {t: [m for m in find_all(t) if any(_at(m, w) for w in args.where)] for t in plan}
     if args.list:
         for t, ms in plan.items():
             for m in ms:

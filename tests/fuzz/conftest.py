@@ -8,4 +8,4 @@ def pytest_terminal_summary(terminalreporter):
     if COUNTS["cases"]:
         terminalreporter.write_line(
             f"calcsheet fuzz: {COUNTS['cases']} cases, {COUNTS['clean']} clean, {COUNTS['located']} located "
-            f"errors, {COUNTS['crash']} crashes, {COUNTS['hang']} hangs, {COUNTS['unlocated']} unlocated")
+            f"errors, {COUNTS['crash']} crashes, {COUNTS['hang']} hangs, {COUNTS['stalled']} stalled, {COUNTS['unlocated']} unlocated")
