@@ -103,10 +103,11 @@ TARGETS: dict[str, dict] = {
                   # tables (lookup, interpolation), lists, the size limits, finiteness and the plugin host's checks
                   # live in these modules too
                   "tests/test_tables.py", "tests/test_lists.py", "tests/test_limits.py", "tests/test_finiteness.py",
-                  "tests/test_plugin.py"],
+                  "tests/test_plugin.py", "tests/test_lint.py"],  # lint folds names through builtins.fold
     },
     "units": {"sources": ["calcsheet/units.py"],
-              "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
+              "tests": ["tests/test_units.py", "tests/test_units_words.py", "tests/test_evaluator_rules.py",
+                        "tests/test_engine.py"]},
 }
 # Each target's tests run in the order listed (the tests that mirror the module first), stopping at the first
 # failure; "k" narrows the cross-cutting files to the tests about that target (pytest -k, matched on test and
@@ -129,6 +130,20 @@ EQUIVALENT = {
     ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
+    # units
+    ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
+        "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
+        "and thirds, or round-off near 0",
+    ("return tuple(sorted((k, v * p) for k, v in a if abs(v * p) > 1e-12))", "> → >="):
+        "likewise for a power: only an exponent of exactly 1e-12 differs",
+    ('names = sorted((n for n in VOCABULARY if re.fullmatch(r"[^\\W\\d]\\w*", n)), key=len, reverse=True)',
+     "True → False"):
+        "the order of the unit names in the grammar's alternation; each name is followed by the lookahead "
+        "(?![\\w.(]), so a shorter name that is a prefix of the text (m in mm) fails there and the regex "
+        "backtracks to the longer one: the same tokens either way, only the matching is slower",
+    ('(("[length]", 1),): "length",', "1 → 2"):
+        "the mutated key (length², 'length') is overwritten by the next line's (length², 'area') in the same dict "
+        "literal, and length¹ is then described by the general rule, also as 'length'",
     # beam
     ("if lo * hi < 0 or abs(lo) < 1e-9 * scale <= abs(hi) or abs(hi) < 1e-9 * scale <= abs(lo):", "<= → <"):
         "differs only when a moment equals the round-off threshold 1e-9 × the largest moment exactly (a float tie)",
