@@ -169,3 +169,62 @@ def test_a_tables_shape_cannot_be_changed_once_read():
     assert [c for c, _ in info.columns] == ["x", "y"]
     with pytest.raises(dataclasses.FrozenInstanceError):
         info.name = "other"
+
+
+# ---------------------------------------------------------------- limits hold at exactly their size
+
+def _errors(text):
+    import calcsheet
+
+    r = calcsheet.run(text)
+    return [d.code for d in r.errors], r
+
+
+def test_a_statement_may_call_the_sheets_functions_exactly_the_limits_number_of_times(monkeypatch):
+    # "more than MAX_FUNCTION_CALLS times" is refused: the limit itself is allowed (checked and evaluated)
+    monkeypatch.setattr(B, "MAX_FUNCTION_CALLS", 5)
+    codes, r = _errors("f(x) = x\ny = f(1) + f(1) + f(1) + f(1) + f(1)\n")
+    assert codes == [] and r.values["y"].m_as("") == 5
+    codes, _ = _errors("f(x) = x\ny = f(1) + f(1) + f(1) + f(1) + f(1) + f(1)\n")
+    assert codes and set(codes) == {"too-complex"}, codes
+
+
+def test_a_list_may_hold_exactly_the_limits_number_of_elements(monkeypatch):
+    monkeypatch.setattr(B, "MAX_LIST_ITEMS", 3)
+    codes, r = _errors("L = [1 m, 2 m, 3 m]\n")
+    assert codes == [] and list(r.values["L"].m_as("m")) == [1, 2, 3]
+    codes, _ = _errors("L = [1 m, 2 m, 3 m, 4 m]\n")
+    assert codes and set(codes) == {"too-complex"}, codes
+
+
+# ---------------------------------------------------------------- an error inside a sheet function's body
+
+def _function_and_call():
+    from calcsheet import nodes as N
+    from calcsheet.parser import parse_sheet
+
+    sheet, diagnostics = parse_sheet("f(x) = sqrt(x)\ny = f(-1)\n")
+    assert not diagnostics
+    fd = next(s for s in sheet.body if isinstance(s, N.FunctionDef))
+    call = next(n for s in sheet.body if not isinstance(s, N.FunctionDef) for n in N.walk(s.expr)
+                if isinstance(n, N.Call))
+    return fd, call
+
+
+def test_an_error_inside_a_functions_body_is_reported_at_the_call_naming_the_function():
+    from calcsheet.errors import Span
+
+    fd, call = _function_and_call()
+    for span in (Span(1, 8, 1, 15), None):  # in the body (line 1), or nowhere yet
+        exc = B.at_call(NumericError("sqrt of a negative number", span), fd, call)
+        assert exc.message.startswith("in this call of f") and exc.message.endswith("sqrt of a negative number")
+        assert exc.span == call.span
+
+
+def test_an_error_already_located_outside_the_body_stays_where_it_is():
+    from calcsheet.errors import Span
+
+    fd, call = _function_and_call()
+    for span in (Span(5, 1, 5, 4), Span(1, 8, 1, 15, path="other.calc")):  # another line; another file
+        exc = B.at_call(NumericError("a table's unit is unknown", span), fd, call)
+        assert exc.message == "a table's unit is unknown" and exc.span == span
