@@ -97,7 +97,8 @@ TARGETS: dict[str, dict] = {
             "calcsheet/plugin_host.py": ["coerce_argument", "_check_dim", "make_record"],
         },
         # builtins.py holds the rules the checker applies too, and the sheet functions' rules: their tests count
-        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator.py", "tests/test_builtins.py",
+        "tests": ["tests/test_evaluator_rules.py", "tests/test_builtins_rules_direct.py",
+                  "tests/test_plugin_host_fields.py", "tests/test_evaluator.py", "tests/test_builtins.py",
                   "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py",
                   "tests/test_functions.py", "tests/test_checker.py", "tests/test_agreement.py",
                   # tables (lookup, interpolation), lists, the size limits, finiteness and the plugin host's checks
