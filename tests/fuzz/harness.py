@@ -31,6 +31,7 @@ CASE_SECONDS = float(os.environ.get("CALCSHEET_FUZZ_CASE_SECONDS", "20"))
 STALL_SECONDS = float(os.environ.get("CALCSHEET_FUZZ_STALL_SECONDS", "60"))
 STALL_CPU_SHARE = 0.01
 COUNTS: Counter = Counter()  # cases, located, clean, crashes, hangs, stalled, unlocated -- whole session
+SLOWEST: list[float] = [0.0]  # the most CPU seconds one case took this session: the budget's margin
 
 # a line that reports an error: "...: error: ..." or "...: error <code>: ..." (check --format line)
 ERROR_LINE = re.compile(r"(^|: )error( [a-z-]+)?: ")
@@ -100,6 +101,7 @@ def run_cli(argv: list[str]) -> Outcome:
     out, err = io.StringIO(), io.StringIO()
     status = None
     limits = _Limits()
+    cpu0 = _cpu()
     try:
         with limits.armed(), contextlib.redirect_stdout(out), contextlib.redirect_stderr(err):
             status = main([str(a) for a in argv])
@@ -114,6 +116,7 @@ def run_cli(argv: list[str]) -> Outcome:
 
         kind = "crash"
         err.write("".join(traceback.format_exception(exc)))
+    SLOWEST[0] = max(SLOWEST[0], _cpu() - cpu0)
     text = out.getvalue() + err.getvalue()
     if limits.fired:  # first: the CLI reports a Hang it caught as an internal error, which it is not
         kind = limits.fired
