@@ -131,6 +131,10 @@ EQUIVALENT = {
     ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
+    # section
+    ('["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,', "5 → 6"):
+        "cosmetic: a sixth 'no unit' for a column that does not exist; the renderers pair a table's units with its "
+        "columns (render/page.py zips them, render/text.py pads them), so the extra entry is never read",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
