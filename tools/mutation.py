@@ -753,9 +753,15 @@ def main(argv=None) -> int:
     ap.add_argument("--where", nargs="*", default=[], metavar="FILE:LINE[:WHAT]",
                     help="run only the mutants on these lines (FILE may be the file's name alone; WHAT, e.g. "
                          "'<= → <', narrows to that mutation): a rerun of named survivors when no report is kept")
+    ap.add_argument("--combine", nargs="+", type=Path, default=None, metavar="REPORT",
+                    help="run nothing: the mutants of the first report, each killed if any later report (a rerun of "
+                         "its survivors with new tests) killed it, scored as one run (the source files unchanged)")
     ap.add_argument("--no-fork", action="store_true",
                     help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
+    if args.combine:
+        combine(args.combine)
+        return 0
     targets = args.targets or list(TARGETS)
     unknown = [t for t in targets if t not in TARGETS]
     if unknown:
@@ -881,6 +887,31 @@ def main(argv=None) -> int:
         args.report.write_text(json.dumps({"summary": summary, "mutants": [asdict(m) for m in results]},
                                           indent=2, ensure_ascii=False) + "\n")
     return 0
+
+
+def _load(path: Path) -> list[Mutant]:
+    out = []
+    for d in json.loads(path.read_text())["mutants"]:
+        d["lines"] = tuple(d.get("lines") or (0, 0))
+        out.append(Mutant(**d))
+    return out
+
+
+def combine(paths: list[Path]) -> dict:
+    """The first report's mutants, with the outcome of any later rerun of them (matched by file, mutation
+    point and mutation: valid while the source files are unchanged)."""
+    base = _load(paths[0])
+    later = {}
+    for path in paths[1:]:
+        for m in _load(path):
+            if m.status in ("killed", "timeout"):
+                later[(m.path, m.index, m.what)] = m
+    for m in base:
+        k = later.get((m.path, m.index, m.what))
+        if m.status == "survived" and k is not None:
+            m.status, m.killed_by = k.status, k.killed_by
+    print(f"combined: {len(base)} mutants of {paths[0]}, outcomes of {len(paths) - 1} later run(s)")
+    return report(base)
 
 
 def report(results: list[Mutant]) -> dict:
