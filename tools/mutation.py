@@ -135,6 +135,9 @@ EQUIVALENT = {
     ('["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,', "5 → 6"):
         "cosmetic: a sixth 'no unit' for a column that does not exist; the renderers pair a table's units with its "
         "columns (render/page.py zips them, render/text.py pads them), so the extra entry is never read",
+    ("Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1),", "/ → *"):
+        "cosmetic: where the bottom flange's dimension line is drawn in the section's figure (its label is "
+        "_fmt(bb), unchanged)",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
