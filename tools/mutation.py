@@ -138,6 +138,11 @@ EQUIVALENT = {
     ("Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1),", "/ → *"):
         "cosmetic: where the bottom flange's dimension line is drawn in the section's figure (its label is "
         "_fmt(bb), unchanged)",
+    ("s = min(roots, key=lambda r: abs(r - np.clip(r, 0, 1)) + (0 if 0 <= r <= 1 else 1))", "<= → <"):
+        "only a root exactly at s = 0 or 1 changes its key (0 → 1); the area above a level falls monotonically "
+        "across the bracket, so the quadratic's other root lies outside [0, 1] with a key of its distance + 1 > 1 "
+        "and the same root is chosen",
+    ("for ra in (r for r in a.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
