@@ -131,6 +131,8 @@ def test_lists_combined_element_by_element_have_one_length():
     ("[0.25, 4]^0.5", [0.5, 2.0]),    # a fractional power of bases between 0 and 1
     ("[1, 4]^(-1)", [1.0, 0.25]),     # a negative power of 1 (not of zero)
     ("[0.5, 4]^(-1)", [2.0, 0.25]),
+    ("[0, 4]^0.5", [0.0, 2.0]),       # zero to a positive power, whole or not, is zero
+    ("[0, 4]^2", [0.0, 16.0]),
 ])
 def test_a_plain_list_to_a_power_is_each_element_to_that_power(text, expected):
     assert list(ev(text).m_as("")) == pytest.approx(expected)

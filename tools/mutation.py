@@ -143,6 +143,21 @@ EQUIVALENT = {
         "across the bracket, so the quadratic's other root lies outside [0, 1] with a key of its distance + 1 > 1 "
         "and the same root is chosen",
     ("for ra in (r for r in a.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
+    ("def _circle_points(cx, cy, r, start=0.0, stop=2 * math.pi, closed_arc=False):", "False → True"):
+        "the default is used only for full circles (0 to 2π): with it True the outline gets the first point again "
+        "at t = 2π (linspace with n + 1 points and the endpoint has the same spacing), an edge of zero length that "
+        "changes no integral and no line of the drawing",
+    ("if A2 < 0:", "< → <="):
+        "differs only for a ring of zero area (A2 = 0): a polygon of no area is refused before ('no area'), and "
+        "both versions divide by that zero area on the next lines anyway",
+    ("if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():",
+     "True → False"):
+        "this inner test asks again what the enclosing 'if' has just established for the same points (u's "
+        "outline samples and centroid strictly inside v); inclusive is a superset of strict, so it is true "
+        "whenever it is reached",
+    ("if abs(dev) > tol:", "> → >="):
+        "a catalogue row whose model deviates from the table by exactly the tolerance, to the last bit (a float "
+        "tie): it is then listed among the worst deviations or not; the table of deviations is the same",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "

@@ -40,6 +40,14 @@ def test_every_column_of_a_tees_parts_tables_is_its_parts_own_value():
         p = row[0]
         got = [c.m_as("mm^4") if i != 2 else c.m_as("mm") for i, c in enumerate(row[1:], 1)]
         assert got == pytest.approx([own_y[p], 0.0, 0.0, own_y[p]], rel=1e-6, abs=1e-6)  # both centred on x
+    # the footers: Σ of each column, and the totals are the section's I_x and I_y
+    for start, own, d in (("Parts table: second moments about the centroidal x axis", own_x, dy),
+                          ("Parts table: second moments about the centroidal y axis", own_y, {"flange": 0, "stem": 0})):
+        (foot,) = table(rec, start).footer
+        total_own, total_ad2 = sum(own.values()), sum(A[p] * d[p] ** 2 for p in A)
+        got = [foot[1].m_as("mm^4"), foot[3].m_as("mm^4"), foot[4].m_as("mm^4")]
+        assert got == pytest.approx([total_own, total_ad2, total_own + total_ad2], rel=1e-6, abs=1e-6)
+    assert rec.fields["I_y"].m_as("mm^4") == pytest.approx(sum(own_y.values()), rel=1e-9)
 
 
 def test_fibre_distances_are_measured_from_the_centroid_wherever_the_outline_lies():
@@ -69,3 +77,40 @@ def test_two_outlines_crossing_by_more_than_the_tolerance_cross_wherever_they_li
     # and two that only touch along an edge do not cross
     c = _square(offset + 10.0, offset, 10.0)
     assert not P.segments_cross(a, c, 0.01)
+
+
+def test_a_vertex_on_an_edge_close_to_a_corner_changes_nothing():
+    # a 100 × 50 mm rectangle with an extra vertex 0.005 mm above its bottom-right corner, on the right edge: the
+    # fan of triangles from the first vertex then holds a sliver of 0.25 mm², which is material like the rest
+    rec = record("section.polygon(points=[(0 mm, 0 mm), (100 mm, 0 mm), (100 mm, 0.005 mm), (100 mm, 50 mm), "
+                 "(0 mm, 50 mm)])")
+    f = rec.fields
+    assert f["A"].m_as("mm^2") == pytest.approx(100 * 50, rel=1e-12)
+    assert f["I_x"].m_as("mm^4") == pytest.approx(100 * 50**3 / 12, rel=1e-12)
+    assert f["I_y"].m_as("mm^4") == pytest.approx(50 * 100**3 / 12, rel=1e-12)
+
+
+def test_mirroring_a_part_up_down_keeps_its_second_moments_and_negates_their_product():
+    # reflection in a horizontal line: y → −y, so ∬y² dA and ∬x² dA are unchanged and ∬xy dA changes sign
+    # (common practice); the part then hangs below its placing point instead of standing on it
+    r = calcsheet.run('L1 = section.angle(h=100 mm, b=75 mm, t=10 mm, detail="brief")\n'
+                      'a = section.built_up(parts=[section.part(shape=L1, x=0 mm, y=0 mm)])\n'
+                      'b = section.built_up(parts=[section.part(shape=L1, x=0 mm, y=0 mm, mirror="up-down")])\n')
+    assert r.ok, r.diagnostics
+    a, b = r.values["a"].fields, r.values["b"].fields
+    for k in ("A", "I_x", "I_y", "x_c"):
+        assert b[k].magnitude == pytest.approx(a[k].magnitude, rel=1e-12)
+    assert b["I_xy"].m_as("mm^4") == pytest.approx(-a["I_xy"].m_as("mm^4"), rel=1e-12)
+    assert a["I_xy"].m_as("mm^4") != 0
+
+
+def test_parts_all_of_the_reference_material_make_no_transformed_section():
+    # E_ref given, but every part is of that material (n = 1 for each): the section is the plain one
+    r = calcsheet.run("w1 = section.part(shape=section.rectangle(b=100 mm, h=200 mm), x=0 mm, y=0 mm)\n"
+                      "w2 = section.part(shape=section.rectangle(b=100 mm, h=50 mm), x=0 mm, y=200 mm)\n"
+                      "c = section.built_up(parts=[w1, w2], E_ref=10 GPa)\n")
+    assert r.ok, r.diagnostics
+    rec = r.values["c"]
+    assert "n_max" not in rec.fields
+    assert not any("Transformed section" in str(getattr(i, "text", "")) for i in rec.working.items)
+    assert rec.fields["I_x"].m_as("mm^4") == pytest.approx(100 * 250**3 / 12, rel=1e-12)  # one 100 × 250 block
