@@ -163,6 +163,18 @@ EQUIVALENT = {
         "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
         "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
         "idempotent), so the groups are the same",
+    ("if r.sign < 0:", "0 → 1"): "a ring's sign is +1 (solid) or −1 (hole): < 0 and < 1 pick the same rings",
+    ("where = np.full(len(px), -1)", "1 → 2"):
+        "−1 or −2 both mean 'in no part yet': every use asks where < 0, and the values themselves are read only "
+        "when none is negative",
+    ("tol = 1e-6 * size", "* → /"):
+        "the overlap tolerance of a built-up section, 1e-6·D or 1e-6/D mm (D its size, 10–1000 mm): both far "
+        "above the round-off of placed coordinates (1e-13 mm) and far below any dimension a drawing states "
+        "(0.1 mm); they differ only for parts overlapping by less than a micrometre",
+    ('how = ("to rounding (every relative difference below 1e-14)" if worst < 1e-14 else', "< → <="):
+        "the wording of the agreement note at a difference of exactly 1e-14 (a float tie)",
+    ('shown=_model_cell(entry, "r", g.get("r", 0.0), 4) if derived else None)', "4 → 5"):
+        "cosmetic: the digits a derived root radius is shown with (four or five); its value is the same",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "

@@ -114,3 +114,41 @@ def test_parts_all_of_the_reference_material_make_no_transformed_section():
     assert "n_max" not in rec.fields
     assert not any("Transformed section" in str(getattr(i, "text", "")) for i in rec.working.items)
     assert rec.fields["I_x"].m_as("mm^4") == pytest.approx(100 * 250**3 / 12, rel=1e-12)  # one 100 × 250 block
+
+
+def test_the_least_radius_of_gyration_of_a_small_square_is_a_side_over_root_twelve():
+    # r = √(I/A) = √((a⁴/12)/a²) = a/√12 for a square of side a (common practice), here a = 1 mm: I₂ < 1 mm⁴
+    f = record("section.rectangle(b=1 mm, h=1 mm)").fields
+    assert f["r_min"].m_as("mm") == pytest.approx(1 / 12**0.5, rel=1e-12)
+
+
+def test_the_first_moment_above_the_centroid_of_a_triangle_with_a_unit_rise_edge():
+    # right triangle, base b = 10 mm on the x axis, apex 1 mm above the origin: the part above the centroid
+    # (y = h/3) is a similar triangle of height 2h/3 and base 2b/3, its centroid 2h/9 above the axis, so
+    # Q = (½·(2b/3)·(2h/3))·(2h/9) = 4bh²/81 (statics); its sloping edge rises exactly 1 mm
+    f = record("section.polygon(points=[(0 mm, 0 mm), (10 mm, 0 mm), (0 mm, 1 mm)])").fields
+    assert f["y_c"].m_as("mm") == pytest.approx(1 / 3, rel=1e-12)
+    assert f["Q_x"].m_as("mm^3") == pytest.approx(4 * 10 * 1**2 / 81, rel=1e-9)
+
+
+def test_the_eurocode_names_are_the_same_values_as_their_counterparts():
+    # EN 1993-1-1 notation (y major, z minor axis): I_t = J, I_w = C_w, i_y = r_x, W_el,y = S_x … (from memory)
+    from calcsheet_plugins.section.fields import ALIASES
+
+    for text in ("section.ishape(h=300 mm, b=150 mm, t_f=10.7 mm, t_w=7.1 mm)",
+                 "section.channel(h=200 mm, b=75 mm, t_f=11.5 mm, t_w=8.5 mm)"):
+        f = record(text).fields
+        for alias, base in ALIASES.items():
+            assert alias in f and base in f, (text, alias, base)
+            assert f[alias].m_as(f[base].units) == pytest.approx(f[base].magnitude, rel=1e-12), (alias, base)
+
+
+def test_parts_a_micrometre_apart_are_in_contact():
+    # a drawing states dimensions to 0.1 mm at best; a 0.001 mm gap between a flange and a web is contact, not
+    # two separate pieces (common practice)
+    r = calcsheet.run("a = section.part(shape=section.rectangle(b=100 mm, h=20 mm), x=0 mm, y=0 mm, "
+                      'anchor="bottom-centre")\n'
+                      "b = section.part(shape=section.rectangle(b=10 mm, h=200 mm), x=0 mm, y=20.001 mm, "
+                      'anchor="bottom-centre")\n'
+                      "g = section.built_up(parts=[a, b])\n")
+    assert r.ok and not [d for d in r.diagnostics if "not connected" in d.message], r.diagnostics
