@@ -92,7 +92,7 @@ def test_a_vertex_on_an_edge_close_to_a_corner_changes_nothing():
 
 def test_mirroring_a_part_up_down_keeps_its_second_moments_and_negates_their_product():
     # reflection in a horizontal line: y → −y, so ∬y² dA and ∬x² dA are unchanged and ∬xy dA changes sign
-    # (common practice); the part then hangs below its placing point instead of standing on it
+    # (common practice)
     r = calcsheet.run('L1 = section.angle(h=100 mm, b=75 mm, t=10 mm, detail="brief")\n'
                       'a = section.built_up(parts=[section.part(shape=L1, x=0 mm, y=0 mm)])\n'
                       'b = section.built_up(parts=[section.part(shape=L1, x=0 mm, y=0 mm, mirror="up-down")])\n')
@@ -102,6 +102,9 @@ def test_mirroring_a_part_up_down_keeps_its_second_moments_and_negates_their_pro
         assert b[k].magnitude == pytest.approx(a[k].magnitude, rel=1e-12)
     assert b["I_xy"].m_as("mm^4") == pytest.approx(-a["I_xy"].m_as("mm^4"), rel=1e-12)
     assert a["I_xy"].m_as("mm^4") != 0
+    # both stand on y = 0 (the default anchor): the mirrored centroid is as far below the 100 mm leg's top as the
+    # original's is above its bottom
+    assert b["y_c"].m_as("mm") == pytest.approx(100.0 - a["y_c"].m_as("mm"), rel=1e-12)
 
 
 def test_parts_all_of_the_reference_material_make_no_transformed_section():
