@@ -175,6 +175,10 @@ EQUIVALENT = {
         "the wording of the agreement note at a difference of exactly 1e-14 (a float tie)",
     ('shown=_model_cell(entry, "r", g.get("r", 0.0), 4) if derived else None)', "4 → 5"):
         "cosmetic: the digits a derived root radius is shown with (four or five); its value is the same",
+    ("if r.sign <= 0 or len(r.y) == 0:", "or → and"):
+        "the beam's materials of a transformed section: a hole's ring carries the n of the part it cuts and lies "
+        "inside that material (a hole not wholly in material is refused), so adding its y-range to the material's "
+        "extent changes nothing; and no ring has zero points",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "

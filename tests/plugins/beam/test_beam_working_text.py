@@ -306,3 +306,14 @@ def test_a_reaction_exactly_at_the_section_of_the_largest_moment_has_no_arm_and_
     assert r.values["b"].fields["x_M_max"].m_as("m") == pytest.approx(4.0)
     f = _formula(items, "M_0")
     assert "R_A" in f and "R_B" not in f, f
+
+
+def test_a_beam_solved_by_statics_alone_keeps_its_handbook_cross_check_of_forces_and_has_none_of_deflection():
+    # no E, no I: reactions and moments still follow from statics, R = wL/2 = 30 kN, M = wL²/8 = 45 kN·m (AISC
+    # Manual Table 3-23, simple beam, uniform load); a deflection needs EI, so its cross-check is left out
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", loads=[beam.udl(w=10 kN/m)])\n')
+    assert r.ok, r.diagnostics
+    steps = {s.name: s.value for s in r.values["b"].working.items if isinstance(s, Step)}
+    assert steps["R_hb"].m_as("kN") == pytest.approx(30.0) and steps["M_hb"].m_as("kN*m") == pytest.approx(45.0)
+    assert steps["R_sol"].m_as("kN") == pytest.approx(30.0) and steps["M_sol"].m_as("kN*m") == pytest.approx(45.0)
+    assert not any(name.startswith("delta_hb") or name.startswith("delta_sol") for name in steps)
