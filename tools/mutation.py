@@ -179,6 +179,9 @@ EQUIVALENT = {
         "the beam's materials of a transformed section: a hole's ring carries the n of the part it cuts and lies "
         "inside that material (a hole not wholly in material is refused), so adding its y-range to the material's "
         "extent changes nothing; and no ring has zero points",
+    ("if not (-1e-9 * L <= xs <= L * (1 + 1e-9)):", "* → /"):
+        "the tolerance for a queried place left of the beam, 1e-9·L or 1e-9/L m below 0: both take x = 0 and "
+        "refuse any negative place a sheet writes; they differ only for x a fraction of a nanometre below 0",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "

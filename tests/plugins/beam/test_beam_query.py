@@ -214,3 +214,17 @@ def test_the_slope_at_a_hinge_is_the_slope_just_to_its_right():
     # the last support has nothing to its right: its slope is the one just to its left, the simple span's
     # far-end slope plus the same rigid turn, θ_C = −w·b³/24EI − δ_B/b
     assert f(r, "rg", "theta_C", "rad") == pytest.approx(-w * b**3 / (24 * EI) - d_B / b, rel=1e-9)
+
+
+def test_an_overhang_beyond_a_loaded_span_lifts_by_the_supports_rotation_times_its_length():
+    # simple span L = 6 m under w = 10 kN/m, a 2 m overhang a unloaded: it turns rigidly with the span's end
+    # slope wL³/24EI, so its tip rises wL³a/24EI = 9 mm; the span sags 5wL⁴/384EI = 8.4375 mm at mid-span
+    # (AISC Manual Table 3-23, beam overhanging one support, uniform load between supports; from memory)
+    r = run(f"""
+        b = beam.solve(spans=[6 m, 2 m], supports="pinned, roller, free", {STIFF},
+                       loads=[beam.udl(w=10 kN/m, start=0 m, end=6 m)])
+    """)
+    w, L, a = 10e3, 6.0, 2.0
+    assert f(r, "b", "delta_up", "m") == pytest.approx(w * L**3 * a / (24 * EI), rel=1e-9)
+    assert f(r, "b", "x_delta_up", "m") == pytest.approx(8.0)
+    assert f(r, "b", "delta_down", "m") == pytest.approx(5 * w * L**4 / (384 * EI), rel=1e-9)

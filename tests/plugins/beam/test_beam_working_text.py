@@ -306,6 +306,9 @@ def test_a_reaction_exactly_at_the_section_of_the_largest_moment_has_no_arm_and_
     assert r.values["b"].fields["x_M_max"].m_as("m") == pytest.approx(4.0)
     f = _formula(items, "M_0")
     assert "R_A" in f and "R_B" not in f, f
+    # and the place was found where the shear changes sign across the support's reaction, not at a root of V
+    (x0,) = [s for s in items if isinstance(s, Step) and s.name == "x_0"]
+    assert "changes sign" in (x0.note or ""), x0.note
 
 
 def test_a_beam_solved_by_statics_alone_keeps_its_handbook_cross_check_of_forces_and_has_none_of_deflection():

@@ -155,3 +155,22 @@ def test_parts_a_micrometre_apart_are_in_contact():
                       'anchor="bottom-centre")\n'
                       "g = section.built_up(parts=[a, b])\n")
     assert r.ok and not [d for d in r.diagnostics if "not connected" in d.message], r.diagnostics
+
+
+def test_the_parts_tables_of_an_angle_add_up_to_its_second_moments():
+    # an angle's legs lie off both centroidal axes: each footer is the sum of its column, and the total is the
+    # section's own I (parallel-axis theorem, common practice)
+    rec = record("section.angle(h=100 mm, b=75 mm, t=10 mm)")
+    for start, field in (("Parts table: second moments about the centroidal x axis", "I_x"),
+                         ("Parts table: second moments about the centroidal y axis", "I_y")):
+        t = table(rec, start)
+        (foot,) = t.footer
+        for col in (1, 3, 4):
+            assert foot[col].m_as("mm^4") == pytest.approx(sum(row[col].m_as("mm^4") for row in t.rows), rel=1e-9)
+        assert foot[3].m_as("mm^4") > 0  # the legs' own offsets count
+        assert foot[4].m_as("mm^4") == pytest.approx(rec.fields[field].m_as("mm^4"), rel=1e-9)
+
+
+def test_a_section_of_one_material_says_nothing_of_a_transformed_section():
+    rec = record("section.rectangle(b=100 mm, h=200 mm)")
+    assert not any("transformed" in str(getattr(i, "text", "")).lower() for i in rec.working.items)
