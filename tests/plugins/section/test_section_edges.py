@@ -105,6 +105,10 @@ def test_mirroring_a_part_up_down_keeps_its_second_moments_and_negates_their_pro
     # both stand on y = 0 (the default anchor): the mirrored centroid is as far below the 100 mm leg's top as the
     # original's is above its bottom
     assert b["y_c"].m_as("mm") == pytest.approx(100.0 - a["y_c"].m_as("mm"), rel=1e-12)
+    # the parts table of the product of area says the same: its own-product column is the part's mirrored I_xy
+    for name, rec in (("a", a), ("b", b)):
+        (foot,) = table(r.values[name], "Parts table: product of area").footer
+        assert foot[1].m_as("mm^4") + foot[4].m_as("mm^4") == pytest.approx(rec["I_xy"].m_as("mm^4"), rel=1e-9)
 
 
 def test_parts_all_of_the_reference_material_make_no_transformed_section():
