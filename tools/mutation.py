@@ -182,6 +182,14 @@ EQUIVALENT = {
     ("if not (-1e-9 * L <= xs <= L * (1 + 1e-9)):", "* → /"):
         "the tolerance for a queried place left of the beam, 1e-9·L or 1e-9/L m below 0: both take x = 0 and "
         "refuse any negative place a sheet writes; they differ only for x a fraction of a nanometre below 0",
+    ('Field("n_{i}", doc="modular ratio E_i/E_ref of material i (transformed sections)", optional=True),',
+     "True → False"):
+        "a numbered field is never required: the plugin host skips names with {i} when it checks the returned "
+        "fields (plugin_host.make_record), so the flag only marks it optional in the plugins reference",
+    ("r_x=math.sqrt(b.I_x / b.A), r_y=math.sqrt(b.I_y / b.A), r_min=math.sqrt(max(I2, 0.0) / b.A),", "0.0 → 1.0"):
+        "properties() computes r_min, but no caller reads it: the record's r_min is traced in report.py as "
+        "sqrt(I_2/A) (tested in test_section_edges.py with I_2 < 1 mm⁴); a dead second copy of the field, left to "
+        "the section plugin's owner to remove",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
