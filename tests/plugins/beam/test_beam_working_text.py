@@ -294,3 +294,29 @@ def test_a_traced_step_never_reuses_a_fields_name_for_another_quantity():
     for s in rec.working.items:
         if isinstance(s, Step) and s.name in rec.fields and hasattr(rec.fields[s.name], "m_as"):
             assert s.value.m_as(rec.fields[s.name].units) == pytest.approx(rec.fields[s.name].magnitude, abs=1e-9)
+
+
+def test_a_reaction_exactly_at_the_section_of_the_largest_moment_has_no_arm_and_no_term():
+    # pinned A, roller B at 4 m, an upward 10 kN at the tip (6 m): M = R_A·x on A–B, largest (20 kN·m sagging)
+    # at B itself, x₀ = 4 m. The forces to the left of x₀ are R_A alone; R_B acts at x₀ (statics: no arm)
+    r = calcsheet.run('b = beam.solve(spans=[4 m, 2 m], supports="pinned, roller, free", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.point(P=-10 kN, x=6 m)])\n')
+    assert r.ok, r.diagnostics
+    items = r.values["b"].working.items
+    assert r.values["b"].fields["x_M_max"].m_as("m") == pytest.approx(4.0)
+    f = _formula(items, "M_0")
+    assert "R_A" in f and "R_B" not in f, f
+    # and the place was found where the shear changes sign across the support's reaction, not at a root of V
+    (x0,) = [s for s in items if isinstance(s, Step) and s.name == "x_0"]
+    assert "changes sign" in (x0.note or ""), x0.note
+
+
+def test_a_beam_solved_by_statics_alone_keeps_its_handbook_cross_check_of_forces_and_has_none_of_deflection():
+    # no E, no I: reactions and moments still follow from statics, R = wL/2 = 30 kN, M = wL²/8 = 45 kN·m (AISC
+    # Manual Table 3-23, simple beam, uniform load); a deflection needs EI, so its cross-check is left out
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", loads=[beam.udl(w=10 kN/m)])\n')
+    assert r.ok, r.diagnostics
+    steps = {s.name: s.value for s in r.values["b"].working.items if isinstance(s, Step)}
+    assert steps["R_hb"].m_as("kN") == pytest.approx(30.0) and steps["M_hb"].m_as("kN*m") == pytest.approx(45.0)
+    assert steps["R_sol"].m_as("kN") == pytest.approx(30.0) and steps["M_sol"].m_as("kN*m") == pytest.approx(45.0)
+    assert not any(name.startswith("delta_hb") or name.startswith("delta_sol") for name in steps)
