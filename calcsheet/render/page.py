@@ -400,14 +400,16 @@ class PackageDocument(DocumentPrinter):
                 for r in (t.footer or [])]
         note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
         groups = column_groups([heads, *body, *foot], TABLE_WIDTH_PT)
+        # a short table is kept on one page; a long one may flow on to the next (its head repeats there)
+        cls = "parts long" if len(body) + len(foot) > LONG_TABLE_ROWS else "parts"
         tables = []
         for n, cols in enumerate(groups):
             def rows(rs):
                 return Html("").join(Html("<tr>{}</tr>").format(Html("").join(r[i] for i in cols if i < len(r)))
                                      for r in rs)
             title = t.title if n == 0 else Html("{} (continued, {} of {})").format(t.title, n + 1, len(groups))
-            tables.append(Html("<table class='parts'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>"
-                               "{}</table>").format(title, Html("").join(heads[i] for i in cols), rows(body),
+            tables.append(Html("<table class='{}'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>"
+                               "{}</table>").format(cls, title, Html("").join(heads[i] for i in cols), rows(body),
                                                     Html("<tfoot>{}</tfoot>").format(rows(foot)) if foot else ""))
         return Html("").join(tables) + note
 
@@ -459,6 +461,9 @@ class PackageDocument(DocumentPrinter):
             for d in diags)
         return Html("<section class='diagnostics'><h2 class='sec' id='diagnostics'>Diagnostics</h2><ul>{}</ul></section>").format(items)
 
+
+# Beyond this many rows a table may break across pages rather than start on a fresh one.
+LONG_TABLE_ROWS = 12
 
 # The width a plugin's table may take: the text block of the narrower paper (A4: 210 mm less 30 mm of margins)
 # less the indent of a working (about 17 mm), in points.
