@@ -400,6 +400,20 @@ class PackageDocument(DocumentPrinter):
                 for r in (t.footer or [])]
         note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
         groups = column_groups([heads, *body, *foot], TABLE_WIDTH_PT)
+        k = repeat_width(t.columns)
+        if len(groups) > 1 and k and not foot and t.rows:  # name–value pairs side by side: fewer a row, never split apart
+            empty = Html("<td></td>")
+            cells = [r[i:i + k] for r, raw in zip(body, t.rows) for i in range(0, len(r), k)
+                     if any(v not in ("", None) for v in raw[i:i + k])]
+            for per in range(len(t.columns) // k - 1, 0, -1):
+                if not cells:
+                    break
+                heads = heads[:k * per]
+                body = [sum(cells[j:j + per], []) for j in range(0, len(cells), per)]
+                body[-1] += [empty] * (k * per - len(body[-1]))
+                groups = column_groups([heads, *body], TABLE_WIDTH_PT)
+                if len(groups) == 1:
+                    break
         # a short table is kept on one page; a long one may flow on to the next (its head repeats there)
         cls = "parts long" if len(body) + len(foot) > LONG_TABLE_ROWS else "parts"
         tables = []
@@ -497,6 +511,15 @@ def column_groups(rows: list[list[str]], width: float) -> list[list[int]]:
         used += widths[i]
     groups.append(current)
     return groups
+
+
+def repeat_width(columns: list[str]) -> int:
+    """k when a table's head is the same k columns repeated (name–value pairs side by side: k = 2), else 0."""
+    n = len(columns)
+    for k in range(2, n // 2 + 1):
+        if n % k == 0 and list(columns) == list(columns[:k]) * (n // k):
+            return k
+    return 0
 
 
 def _split_cross_checks(items: list) -> tuple[list, list]:
