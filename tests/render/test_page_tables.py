@@ -1,6 +1,9 @@
 """A plugin's table never runs off the page: one wider than the text block is split into column groups, or, when
 it is name–value pairs side by side, reflowed with fewer pairs a row; a long table may continue on the next page."""
+import io
 import re
+
+import pytest
 
 import calcsheet
 from calcsheet.package import ASSETS
@@ -81,3 +84,20 @@ def test_a_long_table_may_break_across_pages_a_short_one_stays_whole():
     assert re.search(r"table\.parts\s*\{[^}]*page-break-inside:\s*avoid", css)
     assert re.search(r"table\.parts\.long\s*\{[^}]*page-break-inside:\s*auto", css)
     assert re.search(r"table\.parts tr\s*\{[^}]*page-break-inside:\s*avoid", css)  # a row is never split
+
+
+def test_the_sums_of_a_long_table_print_once_after_its_last_row_not_on_every_page():
+    # a footer group repeats at the foot of every page a table spans (CSS 2.1 17.2); sums printed under the
+    # first page's rows would read as the total of those rows
+    pdfplumber = pytest.importorskip("pdfplumber")
+    pytest.importorskip("weasyprint")
+    from calcsheet.package import pdf_bytes
+
+    r = calcsheet.run("x = 1 m\n")
+    t = Table(title="Parts", columns=["Part", "A"], rows=[[f"p{i}", f"{i}"] for i in range(90)],
+              footer=[["TOTALSUM", "4005"]])
+    css = (ASSETS / "package.css").read_text(encoding="utf-8")
+    html = "<html><head><style>{}</style></head><body>{}</body></html>".format(css, PackageDocument(r).record(t))
+    with pdfplumber.open(io.BytesIO(pdf_bytes(html))) as pdf:
+        counts = [page.extract_text().count("TOTALSUM") for page in pdf.pages]
+    assert len(counts) > 1 and counts[-1] == 1 and sum(counts) == 1
