@@ -404,7 +404,7 @@ class PackageDocument(DocumentPrinter):
         if len(groups) > 1 and k and not foot and t.rows:  # name–value pairs side by side: fewer a row, never split apart
             empty = Html("<td></td>")
             cells = [r[i:i + k] for r, raw in zip(body, t.rows) for i in range(0, len(r), k)
-                     if any(v not in ("", None) for v in raw[i:i + k])]
+                     if any(v is not None and not (isinstance(v, str) and not v) for v in raw[i:i + k])]
             for per in range(len(t.columns) // k - 1, 0, -1):
                 if not cells:
                     break
