@@ -401,7 +401,8 @@ class PackageDocument(DocumentPrinter):
         note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
         groups = column_groups([heads, *body, *foot], TABLE_WIDTH_PT)
         k = repeat_width(t.columns)
-        if len(groups) > 1 and k and not foot and t.rows:  # name–value pairs side by side: fewer a row, never split apart
+        if len(groups) > 1 and k and not foot and t.rows:
+            # name–value pairs side by side: fewer of them a row, in reading order, never split into groups
             empty = Html("<td></td>")
             cells = [r[i:i + k] for r, raw in zip(body, t.rows) for i in range(0, len(r), k)
                      if any(v is not None and not (isinstance(v, str) and not v) for v in raw[i:i + k])]
