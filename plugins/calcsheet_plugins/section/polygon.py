@@ -147,50 +147,65 @@ def centroidal(m: Moments) -> CentroidalProps:
     )
 
 
+_CHUNK = 8000  # vertices per block: the work arrays stay in cache, and each dot product stays below _dot's limit
+
+
 def polygon_properties(x: np.ndarray, y: np.ndarray) -> CentroidalProps:
     """Area, centroid and centroidal second moments of one simple polygon (either orientation).
 
-    The fast path for large outlines: one set of vectorised passes about the first
-    vertex (centroidal values do not depend on the origin, and a local origin keeps
+    The fast path for large outlines: vectorised passes about the first vertex
+    (centroidal values do not depend on the origin, and a local origin keeps
     the products small), with the per-edge Green terms rewritten in sums
     sx = x0 + x1, sy = y0 + y1 so each moment is one or two dot products.
+    The vertices go through in blocks of ``_CHUNK``: six small work arrays,
+    reused, stay in the processor's cache, where whole-length temporaries
+    would go out to memory and back on every pass; the blocks' sums add up.
     """
     x = np.asarray(x, float)
     y = np.asarray(y, float)
-    ox, oy = x[0], y[0]
     n = len(x)
-    # five work arrays, reused (large temporaries cost more in page faults than in arithmetic)
-    x0 = np.subtract(x, ox)
-    y0 = np.subtract(y, oy)
-    x1 = np.empty(n)
-    x1[:-1] = x0[1:]
-    x1[-1] = x0[0]
-    y1 = np.empty(n)
-    y1[:-1] = y0[1:]
-    y1[-1] = y0[0]
-    c = np.multiply(x0, y1)
-    t = np.multiply(x1, y0)
-    c -= t
-    A2 = c.sum()  # 2A
-    # y0² + y0·y1 + y1² = sy² − y0·y1;  x likewise;  2x0y0 + x0y1 + x1y0 + 2x1y1 = sx·sy + x0y0 + x1y1
-    np.multiply(x0, x1, out=t)
-    Iyy12 = -_dot(t, c)
-    np.multiply(y0, y1, out=t)
-    Ixx12 = -_dot(t, c)
-    np.multiply(x0, y0, out=t)
-    Ixy24 = _dot(t, c)
-    np.multiply(x1, y1, out=t)
-    Ixy24 += _dot(t, c)
-    sx = np.add(x0, x1, out=x1)  # x1, y1 no longer needed
-    sy = np.add(y0, y1, out=y1)
-    Sy6 = _dot(sx, c)  # 6 ∬x dA
-    Sx6 = _dot(sy, c)
-    np.multiply(sx, sx, out=t)
-    Iyy12 += _dot(t, c)
-    np.multiply(sy, sy, out=t)
-    Ixx12 += _dot(t, c)
-    np.multiply(sx, sy, out=t)
-    Ixy24 += _dot(t, c)
+    ox, oy = x[0], y[0]
+    m = min(_CHUNK, n)
+    x0, y0, x1, y1, c, t = (np.empty(m) for _ in range(6))
+    dot = np.dot  # blocks are shorter than _dot's limit: BLAS's own, unthreaded at this length
+    A2 = Sy6 = Sx6 = Ixx12 = Iyy12 = Ixy24 = 0.0
+    for s in range(0, n, _CHUNK):
+        e = min(s + _CHUNK, n)
+        if e - s != m:  # the last, shorter block
+            m = e - s
+            x0, y0, x1, y1, c, t = (a[:m] for a in (x0, y0, x1, y1, c, t))
+        np.subtract(x[s:e], ox, out=x0)
+        np.subtract(y[s:e], oy, out=y0)
+        if e < n:  # the next vertex of each; the last vertex's next is the first, (0, 0) about itself
+            np.subtract(x[s + 1:e + 1], ox, out=x1)
+            np.subtract(y[s + 1:e + 1], oy, out=y1)
+        else:
+            np.subtract(x[s + 1:e], ox, out=x1[:-1])
+            np.subtract(y[s + 1:e], oy, out=y1[:-1])
+            x1[-1] = y1[-1] = 0.0
+        np.multiply(x0, y1, out=c)
+        np.multiply(x1, y0, out=t)
+        c -= t
+        A2 += c.sum()  # 2A
+        # y0² + y0·y1 + y1² = sy² − y0·y1;  x likewise;  2x0y0 + x0y1 + x1y0 + 2x1y1 = sx·sy + x0y0 + x1y1
+        np.multiply(x0, x1, out=t)
+        Iyy12 -= dot(t, c)
+        np.multiply(y0, y1, out=t)
+        Ixx12 -= dot(t, c)
+        np.multiply(x0, y0, out=t)
+        Ixy24 += dot(t, c)
+        np.multiply(x1, y1, out=t)
+        Ixy24 += dot(t, c)
+        sx = np.add(x0, x1, out=x1)  # x1, y1 no longer needed
+        sy = np.add(y0, y1, out=y1)
+        Sy6 += dot(sx, c)  # 6 ∬x dA
+        Sx6 += dot(sy, c)
+        np.multiply(sx, sx, out=t)
+        Iyy12 += dot(t, c)
+        np.multiply(sy, sy, out=t)
+        Ixx12 += dot(t, c)
+        np.multiply(sx, sy, out=t)
+        Ixy24 += dot(t, c)
     if A2 < 0:
         A2, Sy6, Sx6, Ixx12, Iyy12, Ixy24 = -A2, -Sy6, -Sx6, -Ixx12, -Iyy12, -Ixy24
     A = A2 / 2
