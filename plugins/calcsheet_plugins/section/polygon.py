@@ -121,11 +121,37 @@ def shift_moments(m: Moments, ox: float, oy: float) -> Moments:
 
 
 def region_moments(rings, weighted: bool = True) -> Moments:
-    total = ZERO
-    for r in rings:
-        w = r.weight if weighted else r.sign
-        total = total + ring_moments(r.x, r.y).scaled(w)
-    return total
+    """Σ weight · moments of each ring, each ring integrated about its own mean vertex (as ``ring_moments``).
+
+    Several rings (a built-up section, a shape with holes) go through together: one vectorised pass over
+    all their edges, summed per ring with ``np.add.reduceat``, then moved to the origin and weighted.
+    """
+    rings = list(rings)
+    if len(rings) <= 2:
+        total = ZERO
+        for r in rings:
+            w = r.weight if weighted else r.sign
+            total = total + ring_moments(r.x, r.y).scaled(w)
+        return total
+    counts = np.array([len(r.x) for r in rings])
+    starts = np.concatenate([[0], np.cumsum(counts)[:-1]])
+    ox = np.array([float(r.x.mean()) for r in rings])
+    oy = np.array([float(r.y.mean()) for r in rings])
+    w = np.array([float(r.weight if weighted else r.sign) for r in rings])
+    ex, ey = np.repeat(ox, counts), np.repeat(oy, counts)
+    x0 = np.concatenate([r.x for r in rings]) - ex
+    y0 = np.concatenate([r.y for r in rings]) - ey
+    x1 = np.concatenate([_next(r.x) for r in rings]) - ex
+    y1 = np.concatenate([_next(r.y) for r in rings]) - ey
+    c = x0 * y1 - x1 * y0
+    terms = np.stack([c / 2.0, (y0 + y1) * c / 6.0, (x0 + x1) * c / 6.0,
+                      (y0 * y0 + y0 * y1 + y1 * y1) * c / 12.0, (x0 * x0 + x0 * x1 + x1 * x1) * c / 12.0,
+                      (x0 * (2.0 * y0 + y1) + x1 * (y0 + 2.0 * y1)) * c / 24.0])
+    A, Sx, Sy, Ixx, Iyy, Ixy = np.add.reduceat(terms, starts, axis=1)  # per ring, about its own mean vertex
+    # shift_moments, ring by ring, then weighted
+    moved = (A, Sx + oy * A, Sy + ox * A, Ixx + 2 * oy * Sx + oy * oy * A, Iyy + 2 * ox * Sy + ox * ox * A,
+             Ixy + ox * Sx + oy * Sy + ox * oy * A)
+    return Moments(*(float(np.dot(w, m)) for m in moved))
 
 
 @dataclass(frozen=True)
