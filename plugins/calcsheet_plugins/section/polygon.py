@@ -120,6 +120,18 @@ def shift_moments(m: Moments, ox: float, oy: float) -> Moments:
     )
 
 
+def _flat(rings):
+    """All rings' vertices end to end: (x, y, index of each vertex's next one in its own ring, counts, starts)."""
+    counts = np.array([len(r.x) for r in rings])
+    ends = np.cumsum(counts)
+    starts = ends - counts
+    x = np.concatenate([r.x for r in rings])
+    y = np.concatenate([r.y for r in rings])
+    nxt = np.arange(1, len(x) + 1)
+    nxt[ends - 1] = starts  # the last vertex of a ring closes it to its first
+    return x, y, nxt, counts, starts
+
+
 def region_moments(rings, weighted: bool = True) -> Moments:
     """Σ weight · moments of each ring, each ring integrated about its own mean vertex (as ``ring_moments``).
 
@@ -133,16 +145,13 @@ def region_moments(rings, weighted: bool = True) -> Moments:
             w = r.weight if weighted else r.sign
             total = total + ring_moments(r.x, r.y).scaled(w)
         return total
-    counts = np.array([len(r.x) for r in rings])
-    starts = np.concatenate([[0], np.cumsum(counts)[:-1]])
-    ox = np.array([float(r.x.mean()) for r in rings])
-    oy = np.array([float(r.y.mean()) for r in rings])
+    x, y, nxt, counts, starts = _flat(rings)
+    ox = np.add.reduceat(x, starts) / counts
+    oy = np.add.reduceat(y, starts) / counts
     w = np.array([float(r.weight if weighted else r.sign) for r in rings])
     ex, ey = np.repeat(ox, counts), np.repeat(oy, counts)
-    x0 = np.concatenate([r.x for r in rings]) - ex
-    y0 = np.concatenate([r.y for r in rings]) - ey
-    x1 = np.concatenate([_next(r.x) for r in rings]) - ex
-    y1 = np.concatenate([_next(r.y) for r in rings]) - ey
+    x0, y0 = x - ex, y - ey
+    x1, y1 = x0[nxt], y0[nxt]
     c = x0 * y1 - x1 * y0
     terms = np.stack([c / 2.0, (y0 + y1) * c / 6.0, (x0 + x1) * c / 6.0,
                       (y0 * y0 + y0 * y1 + y1 * y1) * c / 12.0, (x0 * x0 + x0 * x1 + x1 * x1) * c / 12.0,
@@ -248,12 +257,9 @@ def _edges(rings, weighted: bool = True):
     if not rings:
         e = np.zeros(0)
         return e, e, e, e, e
-    x0 = np.concatenate([r.x for r in rings])
-    y0 = np.concatenate([r.y for r in rings])
-    x1 = np.concatenate([_next(r.x) for r in rings])
-    y1 = np.concatenate([_next(r.y) for r in rings])
-    w = np.concatenate([np.full(len(r.x), float(r.weight if weighted else r.sign)) for r in rings])
-    return x0, y0, x1, y1, w
+    x, y, nxt, counts, _ = _flat(rings)
+    w = np.repeat(np.array([float(r.weight if weighted else r.sign) for r in rings]), counts)
+    return x, y, x[nxt], y[nxt], w
 
 
 def _moments_above(rings, c: float, weighted: bool = True, edges=None) -> Moments:
@@ -356,23 +362,20 @@ def width_at(rings, c: float, weighted: bool = False) -> float:
     At a height where the width jumps (a flange-web junction) the smaller of the
     widths just above and just below is returned: the one that governs shear.
     """
+    x0, y0, x1, y1, w = _edges(list(rings), weighted)
+
     def one_side(upper: bool) -> float:
-        total = 0.0
-        for r in rings:
-            x0, y0 = r.x, r.y
-            x1, y1 = _next(x0), _next(y0)
-            if upper:
-                up = (y0 <= c) & (y1 > c)
-                down = (y1 <= c) & (y0 > c)
-            else:
-                up = (y0 < c) & (y1 >= c)
-                down = (y1 < c) & (y0 >= c)
-            cross = up | down
-            t = (c - y0[cross]) / (y1[cross] - y0[cross])
-            xc = x0[cross] + t * (x1[cross] - x0[cross])
-            s = np.where(up[cross], 1.0, -1.0)
-            total += (r.weight if weighted else r.sign) * float(_dot(s, xc))
-        return total
+        if upper:
+            up = (y0 <= c) & (y1 > c)
+            down = (y1 <= c) & (y0 > c)
+        else:
+            up = (y0 < c) & (y1 >= c)
+            down = (y1 < c) & (y0 >= c)
+        cross = up | down
+        t = (c - y0[cross]) / (y1[cross] - y0[cross])
+        xc = x0[cross] + t * (x1[cross] - x0[cross])
+        s = np.where(up[cross], 1.0, -1.0)
+        return float(_dot(s * w[cross], xc))
 
     return min(one_side(True), one_side(False))
 
