@@ -88,12 +88,8 @@ def _boundary_points(ring: P.Ring, per_edge: int = 8):
     return (x0[:, None] + t * (x1 - x0)[:, None]).ravel(), (y0[:, None] + t * (y1 - y0)[:, None]).ravel()
 
 
-def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
-    """Points inside the shape's material (strict: farther than tol from every boundary).
-
-    Distances to the boundary are measured only when they can change the answer: strict, when some point
-    is inside; otherwise, when some point is not.
-    """
+def _inside(px, py, shape: Shape) -> np.ndarray:
+    """Points inside the shape's material (points on a boundary may go either way)."""
     inside = np.zeros(len(px), bool)
     for r in shape.rings:
         if r.sign > 0:
@@ -101,12 +97,33 @@ def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
     for r in shape.rings:
         if r.sign < 0:
             inside &= ~P.point_in_ring(px, py, r)
-    if (not inside.any()) if strict else inside.all():
-        return inside
+    return inside
+
+
+def _near(px, py, shape: Shape, tol: float) -> np.ndarray:
+    """Points within tol of one of the shape's boundaries."""
     near = np.zeros(len(px), bool)
     for r in shape.rings:
         near |= P.distance_to_ring(px, py, _sample(r, 1024)) <= tol
+    return near
+
+
+def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
+    """Points inside the shape's material (strict: farther than tol from every boundary).
+
+    Distances to the boundary are measured only when they can change the answer: strict, when some point
+    is inside; otherwise, when some point is not.
+    """
+    inside = _inside(px, py, shape)
+    if (not inside.any()) if strict else inside.all():
+        return inside
+    near = _near(px, py, shape, tol)
     return inside & ~near if strict else inside | near
+
+
+def _inside_near(px, py, shape: Shape, tol: float) -> tuple[np.ndarray, np.ndarray]:
+    """For each point: inside the shape's material, and within tol of one of its boundaries."""
+    return _inside(px, py, shape), _near(px, py, shape, tol)
 
 
 def _rows_centroid(shape: Shape):
@@ -248,22 +265,24 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
         px = np.concatenate([e[0] for e in edge_points])
         py = np.concatenate([e[1] for e in edge_points])
         hb = hole_box[h_i]
-        where = np.full(len(px), -1)
-        for k, p in enumerate(solids):
-            if _apart(hb, box[k], touch_tol):  # no boundary point of the hole is in or near this part
-                continue
-            m = _in_material(px, py, p.shape, touch_tol, strict=False) & (where < 0)
-            where[m] = k
-        if (where < 0).any():
-            bad = int(np.argmax(where < 0))
-            raise ShapeError(f"hole '{h.name}' is not fully inside the material (its edge passes ({px[bad]:.4g}, "
-                             f"{py[bad]:.4g}) mm, outside every part)", "parts")
         # the material a hole cuts: parts holding its centroid or its boundary points strictly
         # (a boundary point on the line where two parts touch belongs to neither)
         cx, cy = _rows_centroid(h.shape)
         qx, qy = np.concatenate([px, cx]), np.concatenate([py, cy])
-        cut = [k for k, p in enumerate(solids)
-               if not _apart(hb, box[k], 0.0) and _in_material(qx, qy, p.shape, touch_tol, strict=True).any()]
+        where = np.full(len(px), -1)
+        cut = []
+        for k, p in enumerate(solids):
+            if _apart(hb, box[k], touch_tol):  # no point of the hole is in or near this part
+                continue
+            inside, near = _inside_near(qx, qy, p.shape, touch_tol)
+            m = (inside | near)[:len(px)] & (where < 0)  # the boundary points in the material, or on its edge
+            where[m] = k
+            if (inside & ~near).any():
+                cut.append(k)
+        if (where < 0).any():
+            bad = int(np.argmax(where < 0))
+            raise ShapeError(f"hole '{h.name}' is not fully inside the material (its edge passes ({px[bad]:.4g}, "
+                             f"{py[bad]:.4g}) mm, outside every part)", "parts")
         cut = cut or sorted(set(where.tolist()))
         ns = {n_of(solids[k]) for k in cut}
         if len(ns) > 1:
