@@ -253,12 +253,19 @@ def polygon_properties(x: np.ndarray, y: np.ndarray) -> CentroidalProps:
 
 
 def _edges(rings, weighted: bool = True):
-    """Every edge of the region as flat arrays (x0, y0, x1, y1, weight): one pass covers all the rings."""
+    """Every edge of the region as flat arrays (x0, y0, x1, y1, weight): one pass covers all the rings.
+
+    The weight is one float when every ring has the same (one outline; plates of one material).
+    """
     if not rings:
         e = np.zeros(0)
-        return e, e, e, e, e
+        return e, e, e, e, 1.0
+    ws = [float(r.weight if weighted else r.sign) for r in rings]
+    if len(rings) == 1:
+        r = rings[0]
+        return r.x, r.y, _next(r.x), _next(r.y), ws[0]
     x, y, nxt, counts, _ = _flat(rings)
-    w = np.repeat(np.array([float(r.weight if weighted else r.sign) for r in rings]), counts)
+    w = ws[0] if all(v == ws[0] for v in ws) else np.repeat(np.array(ws), counts)
     return x, y, x[nxt], y[nxt], w
 
 
@@ -285,6 +292,8 @@ def _moments_above(rings, c: float, weighted: bool = True, edges=None) -> Moment
     bx = np.where(in1, x1, xi)
     by = np.where(in1, y1, 0.0)
     keep = in0 | in1
+    if isinstance(w, float):
+        return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep]).scaled(w)
     return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep], w[keep])
 
 
@@ -375,7 +384,7 @@ def width_at(rings, c: float, weighted: bool = False) -> float:
         t = (c - y0[cross]) / (y1[cross] - y0[cross])
         xc = x0[cross] + t * (x1[cross] - x0[cross])
         s = np.where(up[cross], 1.0, -1.0)
-        return float(_dot(s * w[cross], xc))
+        return float(_dot(s * (w if isinstance(w, float) else w[cross]), xc))
 
     return min(one_side(True), one_side(False))
 
