@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import ipaddress
 import json
+import operator
 import secrets
 import threading
 import time
@@ -220,7 +221,7 @@ class _MemoPrinter:
         hit = memo.current.get(ident)
         if hit is None:
             hit = memo.previous.get(ident)
-        if hit is None or any(a is not b for a, b in zip(hit[0], objs)):
+        if hit is None or not all(map(operator.is_, hit[0], objs)):
             hit = (objs, self._make_content(used, exprs, values, unit))
         memo.current[ident] = hit
         return hit[1]
