@@ -351,19 +351,35 @@ def _noise_free(value, size: float):
     """A length-power quantity (mm, mm², mm³, mm⁴, mm⁶…) smaller than NOISE·D^k, D the section's larger overall
     dimension in mm and k the power of length, is floating-point round-off (x_s − x_c of a symmetric section
     gives 1.4e-14 mm): it is 0. Other quantities (angles, masses, ratios) are returned as they are."""
-    if not hasattr(value, "dimensionality") or size <= 0:
+    units = getattr(value, "_units", None)
+    if units is None or size <= 0:
         return value
-    dims = dict(value.dimensionality)
-    if set(dims) != {"[length]"}:
-        return value
-    k = dims["[length]"]
     try:
-        v = float(value.to(unit("mm") ** k).magnitude)
-    except Exception:  # an array or an unconvertible unit: leave it
+        power = _length_power(units)
+    except Exception:  # not a unit pint can convert: leave it
+        return value
+    if power is None:
+        return value
+    k, to_mm = power
+    try:
+        v = float(value.magnitude) * to_mm
+    except Exception:  # an array: leave it
         return value
     if v != 0.0 and abs(v) < NOISE * size ** k:
         return value * 0.0
     return value
+
+
+@lru_cache(maxsize=256)
+def _length_power(units):
+    """(k, factor to mm^k) for a unit of length to the power k; None for any other dimension (worked out once
+    per unit: a section's working snaps hundreds of values in a handful of units)."""
+    one = U.registry().Quantity(1.0, units)
+    dims = dict(one.dimensionality)
+    if set(dims) != {"[length]"}:
+        return None
+    k = dims["[length]"]
+    return k, float(one.to(unit("mm") ** k).magnitude)
 
 
 def _snap_noise(work, size: float) -> None:
