@@ -157,6 +157,20 @@ class Evaluator:
         return self._finite(-v, node.span)  # builtins.rule_neg: any quantity keeps its dimension
 
     def _eval_BinOp(self, node: N.BinOp, env, used):
+        op = node.op
+        if op == "*" or op == "/":
+            # a plain-number literal (``1.2*g``, ``w*L^2/8``) scales the other operand as a float: the same
+            # value and unit as multiplying by a dimensionless quantity, without making one
+            left, right = node.left, node.right
+            if type(right) is N.Number and not right.unit:
+                a = self._need_quantity(self.eval(left, env, used), left.span)
+                return self._finite(B.scale_binop(node, a, right.value, literal_right=True), node.span)
+            if type(left) is N.Number and not left.unit:
+                b = self._need_quantity(self.eval(right, env, used), right.span)
+                return self._finite(B.scale_binop(node, b, left.value, literal_right=False), node.span)
+        elif op == "^" and type(node.right) is N.Number and not node.right.unit:  # L^2: the power as written
+            a = self._need_quantity(self.eval(node.left, env, used), node.left.span)
+            return self._finite(B.power_binop(node, a, node.right.value), node.span)
         a = self._need_quantity(self.eval(node.left, env, used), node.left.span)
         b = self._need_quantity(self.eval(node.right, env, used), node.right.span)
         try:
