@@ -24,7 +24,6 @@ from . import units as U
 from .checker import Checker
 from .display import DisplayPolicy, pint_unit_string
 from .errors import CalcError, Diagnostic, OverrideError, SheetErrors, Span
-from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet, parse_statement
 from .plugin import PluginRegistry, Record, default_registry
 from .resolver import Resolution, check_key, resolve
@@ -270,6 +269,8 @@ def _check_override_dim(name, expr, checker: Checker, result: Result):
 
 
 def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, overrides: dict) -> None:
+    from .evaluator import Evaluator, evaluate_statement  # here: `check` never evaluates, nor imports it
+
     ev = Evaluator(result.policy, plugins, front_matter=result.meta)
     ev.sheet_functions = False  # the environment starts empty; binding a sheet function sets it
     env: dict[str, Any] = {}
