@@ -137,6 +137,7 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
 
 
 _INFER: dict = {}  # (checker class, node class) -> its _infer_ method
+_NUMBER_TYPES: dict = {}  # a literal's unit factors -> its type
 
 
 class Broken(Exception):
@@ -361,6 +362,9 @@ class Checker:
         if shadow is not None:
             self._shadows.append(node)
             self.shadowed.add(shadow[0])
+        known = _NUMBER_TYPES.get(node.unit)
+        if known is not None:
+            return known
         try:
             unit = U.build_unit(node.unit)
         except UnknownUnitError as exc:
@@ -379,7 +383,10 @@ class Checker:
             raise OffsetTemperatureError(
                 f"'{node.unit_text}' puts a temperature scale (°C/°F) inside a compound unit", _unit_span(node),
                 hint="a per-degree coefficient is per kelvin: write e.g. 1.2e-5 K^-1")
-        return T.of(B.Arg(U.dim_of(unit), offset))
+        t = T.of(B.Arg(U.dim_of(unit), offset))
+        if len(_NUMBER_TYPES) < 4096:
+            _NUMBER_TYPES[node.unit] = t  # the type of a literal's unit that reads (errors are never kept)
+        return t
 
     def _infer_Text(self, node) -> T:
         return TEXT

@@ -304,12 +304,23 @@ class Sheet(Node):
 
 
 def walk(node: Node):
-    """Every node below (and including) ``node``, iteratively (deep sums are fine)."""
+    """Every node below (and including) ``node``, iteratively (deep sums are fine), in source order."""
     stack = [node]
+    pop, push = stack.pop, stack.append
     while stack:
-        n = stack.pop()
+        n = pop()
         yield n
-        stack.extend(reversed(list(n.children())))
+        names = n._children
+        if not names:  # a leaf (a number, a name): most nodes
+            continue
+        for name in reversed(names):
+            value = getattr(n, name)
+            if isinstance(value, tuple):
+                for v in reversed(value):
+                    if isinstance(v, Node):
+                        push(v)
+            elif isinstance(value, Node):
+                push(value)
 
 
 def names_used(expr: Expr) -> list[Name]:

@@ -209,6 +209,7 @@ def dim_of(value) -> Dim:
     return DIMENSIONLESS
 
 
+@lru_cache(maxsize=4096)
 def dim_mul(a: Dim, b: Dim, sign: int = 1) -> Dim:
     out = dict(a)
     for k, v in b:
@@ -216,10 +217,12 @@ def dim_mul(a: Dim, b: Dim, sign: int = 1) -> Dim:
     return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))
 
 
+@lru_cache(maxsize=4096)
 def dim_pow(a: Dim, p: float) -> Dim:
     return tuple(sorted((k, v * p) for k, v in a if abs(v * p) > 1e-12))
 
 
+@lru_cache(maxsize=4096)
 def without_angle(a: Dim) -> Dim:
     return tuple((k, v) for k, v in a if k != "[angle]")
 
