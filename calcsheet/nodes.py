@@ -303,6 +303,17 @@ class Sheet(Node):
         return dict(self.meta)
 
 
+def _quick_inits() -> None:
+    from .errors import quick_init
+
+    for value in list(globals().values()):
+        if isinstance(value, type) and issubclass(value, Node):
+            quick_init(value)
+
+
+_quick_inits()
+
+
 def walk(node: Node):
     """Every node below (and including) ``node``, iteratively (deep sums are fine), in source order."""
     stack = [node]
