@@ -10,6 +10,7 @@ inputs, checks without a utilisation, unusual declared units.
 """
 from __future__ import annotations
 
+import weakref
 from collections.abc import Mapping
 from dataclasses import dataclass
 from functools import cached_property
@@ -154,7 +155,10 @@ class Checker:
         self._shadows: list[N.Number] = []  # literals in the current statement whose unit is a variable name
         self.shadowed: set[str] = set()  # variable names read as units somewhere (not also "unused")
         self._pending: list[Diagnostic] = []  # warnings of the current statement (dropped if it has an error)
-        self.consts = lint.Constants(self)
+        # the folder reads the checker back through a weak proxy: no reference cycle, so a finished check is
+        # freed at once by reference counting (a cycle left the sheet's whole tree for the cyclic collector,
+        # whose pass over it then landed on whatever ran next)
+        self.consts = lint.Constants(weakref.proxy(self))
         self.functions: dict[str, N.FunctionDef] = {}  # the sheet's own functions that check clean
 
     # ------------------------------------------------------------ statements

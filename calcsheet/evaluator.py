@@ -17,6 +17,7 @@ from __future__ import annotations
 import collections
 import dataclasses
 import math
+import weakref
 from typing import Any, Callable
 
 import pint
@@ -69,7 +70,7 @@ class Evaluator:
         self.reg = U.registry()
         self._dimensionless = self.reg.Unit("")
         self._constants = {name: c.quantity() for name, c in B.CONSTANTS.items()}
-        self.host = PluginHost(self, self.plugins)
+        self.host = PluginHost(weakref.proxy(self), self.plugins)  # weak: no cycle (see Checker.consts)
         self._branch_checker = None
         # whether the environment can hold a sheet function: False lets a statement skip looking for calls
         # of one; None (not known: an environment filled elsewhere) always looks
