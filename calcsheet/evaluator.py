@@ -418,7 +418,7 @@ class Evaluator:
             else:
                 unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
         if unit is not None and isinstance(value, pint.Quantity) and value._units != unit._units:
-            value = value.to(unit)  # downstream substitutions read the value as shown
+            value = U.convert(value, unit)  # downstream substitutions read the value as shown
         step = Step(name=stmt.name, expr=stmt.expr, value=value, display_unit=unit,
                     used={k: (v, display.get(k) if k in display else self.policy.unit_for(v)
                               if isinstance(v, pint.Quantity) else None) for k, v in used.items()},
@@ -438,7 +438,7 @@ class Evaluator:
         self._finite(a, stmt.left.span, "the left side of the check")
         self._finite(b, stmt.right.span, "the right side of the check")
         am = float(a.magnitude)
-        bm = float((b if b._units == a._units else b.to(a._units)).magnitude)  # one conversion, not three
+        bm = float(U.convert(b, a._units).magnitude)  # one conversion, not three
         ok = B.COMPARISONS[stmt.op](am, bm)
         demand, capacity = (a, b) if stmt.op in ("<=", "<") else (b, a)
         dm, cm = (am, bm) if demand is a else (bm, am)  # both in a's unit
@@ -546,7 +546,7 @@ MAX_CHECK_ROWS = 50  # a check over a longer list shows this many elements (thos
 
 def _to(q: pint.Quantity, unit) -> pint.Quantity:
     """``q.to(unit)``, skipping pint's conversion machinery when ``q`` is already in that unit."""
-    return q if q._units == getattr(unit, "_units", None) else q.to(unit)
+    return q if q._units == getattr(unit, "_units", None) else U.convert(q, unit)
 
 
 def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:
