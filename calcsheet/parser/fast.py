@@ -383,7 +383,7 @@ class _Reader:
             if len(num) > 40:
                 raise _Bail  # too long: the grammar's callback says so
             value = float(num)
-            if value == 0.0 or value != value or value in (float("inf"), float("-inf")):
+            if value == 0.0 or value != value or value == _INF or value == -_INF:
                 if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
                     raise _Bail  # overflow or underflow: the grammar's callback words it
             self.pos = m.end()
@@ -418,6 +418,9 @@ class _Reader:
             raise _Bail  # a list, or a character the grammar reports
         self.pos = m.end()
         return N.Name(id=self.plain(m.group()), span=self.span(start, m.end()))
+
+
+_INF = float("inf")
 
 
 def _join(a: Span, b: Span) -> Span:

@@ -74,7 +74,8 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             prose_buf.append(text[1:].strip())
             i += 1
             continue
-        flush_prose()
+        if prose_buf:
+            flush_prose()
         if not text or text.startswith("//"):
             i += 1
             continue
