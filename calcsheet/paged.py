@@ -1,9 +1,9 @@
 """A long package page laid out in chunks, so the memory of a PDF is bounded by a chunk, not the document.
 
 WeasyPrint keeps every laid-out page of a document until it has written the PDF (a few MB a page). A page
-longer than ``CHUNK_CHARS`` is therefore cut into its blocks (the children of ``<main>``, and of the
-calculation's ``<section class="calc">``), and laid out a chunk at a time: each chunk is written to PDF
-bytes and freed before the next is laid out. The chunks are joined with pypdf. What crosses chunks is put
+longer than two ``CHUNK_CHARS`` (a figure's SVG counted at a flat rate) is therefore cut into its blocks
+(the children of ``<main>``, and of the calculation's ``<section class="calc">``), and laid out a chunk at a
+time: each chunk is written to PDF bytes and freed before the next is laid out. The chunks are joined with pypdf. What crosses chunks is put
 back by this module, from WeasyPrint's own record of each page (``Page.anchors``, ``links``, ``bookmarks``):
 
 - **Pagination as one document.** A chunk's last page is not kept: the blocks on it (from the first block
@@ -19,6 +19,7 @@ back by this module, from WeasyPrint's own record of each page (``Page.anchors``
 - **Links and outline.** Internal links (to any chunk) and the outline of headings are made again on the
   joined PDF, at the positions WeasyPrint laid them out.
 
+The one difference from a single layout: what follows the contents (the inputs) starts on a new page.
 A page that is short, or not a package page (no ``<main>``), is laid out in one piece as before.
 """
 from __future__ import annotations
@@ -31,6 +32,7 @@ import re
 __all__ = ["CHUNK_CHARS", "blocks", "render_chunked"]
 
 # About 20 pages of a calculation: the chunk size that bounds the memory (a laid-out page holds 3–4 MB).
+# A page of less than two chunks is laid out in one piece.
 CHUNK_CHARS = 150_000
 
 _TAG = re.compile(r"<!--.*?-->|<(/?)([a-zA-Z][a-zA-Z0-9:-]*)\b(?:[^>\"']|\"[^\"]*\"|'[^']*')*?(/?)>", re.S)
@@ -88,11 +90,23 @@ def _children(text: str, start: int, end: int) -> list[tuple[int, int]]:
     return out
 
 
+_SVG = re.compile(r"<svg\b.*?</svg>", re.S)
+_SVG_WEIGHT = 4_000  # a figure's SVG counts as this many characters: its paths are long text but a small box
+
+
+def weight(html: str) -> int:
+    """What a piece of the page costs to lay out, in characters of text (a figure's SVG at a flat rate)."""
+    if "<svg" not in html:
+        return len(html)
+    return len(_SVG.sub("", html)) + _SVG_WEIGHT * html.count("<svg")
+
+
 class _Block:
-    __slots__ = ("html", "anchor", "calc")
+    __slots__ = ("html", "anchor", "calc", "weight")
 
     def __init__(self, html: str, anchor: str, calc: bool):
         self.html, self.anchor, self.calc = html, anchor, calc
+        self.weight = weight(html)
 
 
 def _block(fragment: str, n: int, calc: bool) -> _Block:
@@ -190,7 +204,7 @@ def render_chunked(page: str, render, stylesheet, cap: int, too_many) -> bytes |
 
     ``render(html, stylesheets)``: a laid-out WeasyPrint document; ``stylesheet(text)``: a parsed (cached)
     stylesheet; ``cap``: the most pages; ``too_many(pages)``: the exception when the PDF would have more."""
-    if len(page) < 2 * CHUNK_CHARS:
+    if weight(page) < 2 * CHUNK_CHARS:
         return None
     try:
         head, front, body, tail = blocks(page)
@@ -204,7 +218,7 @@ def render_chunked(page: str, render, stylesheet, cap: int, too_many) -> bytes |
     while start < len(body):
         end, size = start, 0
         while end < len(body) and (size < CHUNK_CHARS or end == start):
-            size += len(body[end].html)
+            size += body[end].weight
             end += 1
         chunk = body[start:end]
         doc = render(head + _join(chunk, top=start > 0 and chunk[0].calc) + tail, [chunk_css])
