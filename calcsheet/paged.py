@@ -370,6 +370,6 @@ def _draw_over(writer, page, over, n: int) -> None:
     before, after = DecodedStreamObject(), DecodedStreamObject()
     before.set_data(b"q\n")
     after.set_data(b"\nQ q " + str(name).encode("ascii") + b" Do Q\n")
-    old = page["/Contents"]
+    old = page.raw_get("/Contents")  # the reference as written: a stream in an array must stay indirect
     old_list = list(old.get_object()) if isinstance(old.get_object(), ArrayObject) else [old]
     page[NameObject("/Contents")] = ArrayObject([writer._add_object(before), *old_list, writer._add_object(after)])

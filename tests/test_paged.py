@@ -225,3 +225,13 @@ def test_a_chunk_that_fails_leaves_the_old_package(tmp_path, monkeypatch):
         package.write_package(calcsheet.run(src), tmp_path, ["html", "pdf"])
     after = {p.name: p.read_bytes() for p in tmp_path.rglob("joists.*") if p.suffix != ".calc"}
     assert after == before
+
+
+def test_a_strict_pdf_reader_reads_every_page_of_the_joined_pdf(pdfs):
+    # every content stream stays an indirect object (PDF 32000-1 7.3.8: a stream is always indirect); a
+    # stream written inline in a page's /Contents array is skipped by stricter readers (pdfminer read no page)
+    pdfplumber = pytest.importorskip("pdfplumber")
+    chunked, _ = pdfs
+    with pdfplumber.open(io.BytesIO(chunked.stream.getvalue())) as pdf:
+        assert len(pdf.pages) == len(chunked.pages)
+        assert all(page.chars for page in pdf.pages)
