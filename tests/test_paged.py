@@ -217,3 +217,19 @@ def test_a_chunk_that_fails_leaves_the_old_package(tmp_path, monkeypatch):
         package.write_package(calcsheet.run(src), tmp_path, ["html", "pdf"])
     after = {p.name: p.read_bytes() for p in tmp_path.rglob("joists.*") if p.suffix != ".calc"}
     assert after == before
+
+
+def test_a_working_cut_between_chunks_is_opened_again_in_the_next():
+    """A plugin's working can run to several pages: its records are blocks of their own, and a chunk that
+    starts inside it opens the working (and the calculation) again, so every tag is balanced."""
+    r = calcsheet.run("plate = section.rectangle(b=180 mm, h=12 mm)   -- flange plate\nx = 2 m\n", path="w.calc")
+    assert r.ok, r.format_diagnostics()
+    head, front, body, tail = paged.blocks(str(PackageDocument(r).html()))
+    inside = [k for k, b in enumerate(body) if any(tag == '<div class="working">' for _, tag in b.wrap)]
+    assert len(inside) >= 3 and body[inside[0] - 1].anchor == "v-plate"
+    later = body[inside[1]:]  # a chunk that starts at the working's second record
+    html = paged._join(later, top=True)
+    assert html.startswith('<section class="calc cs-top">\n<div class="working">')
+    assert html.count("<div") == html.count("</div>") and html.count("<section") == html.count("</section>")
+    # the whole body joined again is the page's calculation, block for block
+    assert paged._join(body, top=False).count('<div class="working">') == 1
