@@ -20,7 +20,8 @@ back by this module, from WeasyPrint's own record of each page (``Page.anchors``
   joined PDF, at the positions WeasyPrint laid them out.
 
 The one difference from a single layout: what follows the contents (the inputs) starts on a new page.
-A page that is short, or not a package page (no ``<main>``), is laid out in one piece as before.
+A page that is short, or not a calculation package (no ``<section class="calc">``: a schedule's or a sweep's
+page), is laid out in one piece as before.
 """
 from __future__ import annotations
 
@@ -160,8 +161,8 @@ def blocks(page: str) -> tuple[str, list[_Block], list[_Block], str]:
             front.append(_block(page[s:e], count[0]))
         else:
             expand(s, e, ())
-    if not body:
-        raise _Unsplittable("no body")
+    if not any(b.wrap for b in body):  # not a calculation package (a schedule's or a sweep's page)
+        raise _Unsplittable("no calculation")
     return page[:main_start], front, body, page[main_end:]
 
 

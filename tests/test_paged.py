@@ -233,3 +233,13 @@ def test_a_working_cut_between_chunks_is_opened_again_in_the_next():
     assert html.count("<div") == html.count("</div>") and html.count("<section") == html.count("</section>")
     # the whole body joined again is the page's calculation, block for block
     assert paged._join(body, top=False).count('<div class="working">') == 1
+
+
+def test_a_schedule_page_is_not_cut():
+    """Only a calculation package is cut: a schedule's page (one long table in its front section) keeps its
+    single layout."""
+    page = ("<html><head></head><body><main><section class='front'><table>"
+            + "<tr><td>member</td></tr>" * 30_000 + "</table></section></main></body></html>")
+    with pytest.raises(paged._Unsplittable):
+        paged.blocks(page)
+    assert paged.render_chunked(page, None, None, 10, ValueError) is None
