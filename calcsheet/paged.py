@@ -3,8 +3,9 @@
 WeasyPrint keeps every laid-out page of a document until it has written the PDF (a few MB a page). A page
 longer than two ``CHUNK_CHARS`` (a figure's SVG counted at a flat rate) is therefore cut into its blocks
 (the children of ``<main>``, and of the calculation's ``<section class="calc">``), and laid out a chunk at a
-time: each chunk is written to PDF bytes and freed before the next is laid out. The chunks are joined with pypdf. What crosses chunks is put
-back by this module, from WeasyPrint's own record of each page (``Page.anchors``, ``links``, ``bookmarks``):
+time: each chunk is written to PDF bytes and freed before the next is laid out. The chunks are joined with
+pypdf. What crosses chunks is put back by this module, from WeasyPrint's own record of each page
+(``Page.anchors``, ``links``, ``bookmarks``):
 
 - **Pagination as one document.** A chunk's last page is not kept: the blocks on it (from the first block
   that reaches it, found by its anchor) are laid out again at the start of the next chunk, so every page
