@@ -150,11 +150,6 @@ EQUIVALENT = {
     ("if A2 < 0:", "< → <="):
         "differs only for a ring of zero area (A2 = 0): a polygon of no area is refused before ('no area'), and "
         "both versions divide by that zero area on the next lines anyway",
-    ("if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():",
-     "True → False"):
-        "this inner test asks again what the enclosing 'if' has just established for the same points (u's "
-        "outline samples and centroid strictly inside v); inclusive is a superset of strict, so it is true "
-        "whenever it is reached",
     ("if abs(dev) > tol:", "> → >="):
         "a catalogue row whose model deviates from the table by exactly the tolerance, to the last bit (a float "
         "tie): it is then listed among the worst deviations or not; the table of deviations is the same",

@@ -116,13 +116,11 @@ def _overlap(a: Shape, b: Shape, tol: float) -> bool:
     for u, v in ((a, b), (b, a)):
         pts = [np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])]
         cx, cy = _rows_centroid(u)
-        px, py = np.concatenate([_sample(P.Ring(pts[0], pts[1]), 512).x, cx]), np.concatenate(
-            [_sample(P.Ring(pts[0], pts[1]), 512).y, cy])
-        if _in_material(px, py, v, tol, strict=True).any() and _in_material(cx, cy, u, tol, strict=True).any():
-            # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
-            vx, vy = _sample(P.Ring(pts[0], pts[1]), 512).x, _sample(P.Ring(pts[0], pts[1]), 512).y
-            if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():
-                return True
+        vx, vy = _sample(P.Ring(pts[0], pts[1]), 512).x, _sample(P.Ring(pts[0], pts[1]), 512).y
+        # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
+        if _in_material(vx, vy, v, tol, strict=True).any() or (
+                _in_material(cx, cy, u, tol, strict=True).any() and _in_material(cx, cy, v, tol, strict=True).any()):
+            return True
     return False
 
 
