@@ -230,3 +230,37 @@ def test_an_error_already_located_outside_the_body_stays_where_it_is():
     for span in (Span(5, 1, 5, 4), Span(1, 8, 1, 15, path="other.calc")):  # another line; another file
         exc = B.at_call(NumericError("a table's unit is unknown", span), fd, call)
         assert exc.message == "a table's unit is unknown" and exc.span == span
+
+
+# ---------------------------------------------------------------- words of an offset-temperature error
+
+@pytest.mark.parametrize("text, ending", [
+    ("20 degC * 2", "it cannot be multiplied"),
+    ("20 degC / 2", "it cannot be divided"),
+    ("20 degC ^ 2", "it cannot be raised to a power"),
+    ("20 degC + 5 K", "it cannot be added to another value"),
+])
+def test_an_offset_temperature_error_says_what_cannot_be_done_with_it(text, ending):
+    with pytest.raises(OffsetTemperatureError) as info:
+        ev(text)
+    assert str(info.value).endswith(ending), str(info.value)
+
+
+# ---------------------------------------------------------------- a table's value
+
+def test_two_tables_are_equal_when_their_shape_units_and_rows_are():
+    # what the incremental rebuild compares to know whether a table changed
+    from calcsheet import nodes as N
+    from calcsheet.parser import parse_sheet
+
+    def table(text):
+        sheet, diagnostics = parse_sheet(text)
+        assert not diagnostics
+        (td,) = [s for s in sheet.body if isinstance(s, N.TableDef)]
+        return B.make_table(td)
+
+    base = "t =\n| x | y |\n| m | kN |\n| 1 | 2 |\n| 2 | 3 |\n"
+    assert table(base) == table(base)
+    assert table(base) != table(base.replace("| 2 | 3 |", "| 2 | 4 |"))    # a row differs
+    assert table(base) != table(base.replace("| m | kN |", "| mm | kN |"))  # a unit differs
+    assert table(base) != table(base.replace("| x | y |", "| x | z |"))    # a column's name differs

@@ -185,6 +185,10 @@ EQUIVALENT = {
         "properties() computes r_min, but no caller reads it: the record's r_min is traced in report.py as "
         "sqrt(I_2/A) (tested in test_section_edges.py with I_2 < 1 mm⁴); a dead second copy of the field, left to "
         "the section plugin's owner to remove",
+    # evaluator
+    ("return Bracket(0, 0.0, True) if x < lo else Bracket(len(xs) - 2, 1.0, True)", "< → <="):
+        "this line is reached only for a key outside the table (not lo <= x <= hi), where x < lo and x <= lo are "
+        "the same",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
