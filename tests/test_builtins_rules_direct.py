@@ -264,3 +264,16 @@ def test_two_tables_are_equal_when_their_shape_units_and_rows_are():
     assert table(base) != table(base.replace("| 2 | 3 |", "| 2 | 4 |"))    # a row differs
     assert table(base) != table(base.replace("| m | kN |", "| mm | kN |"))  # a unit differs
     assert table(base) != table(base.replace("| x | y |", "| x | z |"))    # a column's name differs
+
+
+def test_a_definition_whose_value_is_not_of_its_declared_unit_is_refused_at_the_unit():
+    # the evaluator itself (no checker in front): M [kN*m] = 2 kN is a force where a moment is declared; the
+    # error points at the declared unit "[kN*m]", the place to change
+    from calcsheet.errors import CalcError
+    from calcsheet.parser import parse_statement
+
+    stmt = parse_statement("M [kN*m] = 2 kN")
+    with pytest.raises(CalcError) as info:
+        Evaluator().evaluate_definition(stmt, {}, {})
+    assert "declared [kN*m]" in str(info.value)
+    assert info.value.span == stmt.unit_span and stmt.unit_span != stmt.span
