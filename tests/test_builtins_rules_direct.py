@@ -277,3 +277,29 @@ def test_a_definition_whose_value_is_not_of_its_declared_unit_is_refused_at_the_
         Evaluator().evaluate_definition(stmt, {}, {})
     assert "declared [kN*m]" in str(info.value)
     assert info.value.span == stmt.unit_span and stmt.unit_span != stmt.span
+
+
+# ---------------------------------------------------------------- unknown operands in min/max and lists
+
+def test_min_and_max_take_the_dimension_of_their_known_arguments():
+    nodes = [parse_expression(t) for t in ("a", "b", "c")]
+    assert B._same_dims("min", [LENGTH, LENGTH, LENGTH], nodes) == LENGTH
+    assert B._same_dims("max", [None, LENGTH, None], nodes) == LENGTH
+    assert B._same_dims("max", [LENGTH, None], nodes[:2]) == LENGTH
+    assert B._same_dims("min", [None, None], nodes[:2]) is None
+    with pytest.raises(DimensionError):
+        B._same_dims("min", [LENGTH, TEMP], nodes[:2])
+
+
+def test_a_list_with_unknown_elements_takes_its_known_elements_dimension():
+    node = parse_expression("[a, b, c]")
+    assert B.rule_list_items([LENGTH, None, LENGTH], [False] * 3, node) == LENGTH
+    assert B.rule_list_items([None, LENGTH, None], [False] * 3, node) == LENGTH
+    with pytest.raises(DimensionError, match="element 3 of the list"):
+        B.rule_list_items([LENGTH, None, TEMP], [False] * 3, node)
+
+
+def test_zero_with_units_to_a_fractional_power_is_zero():
+    # √(0 m²) = 0 m: zero is not negative (common practice)
+    assert ev("(0 m^2)^0.5").m_as("m") == 0.0
+    assert list(ev("[0 m^2, 4 m^2]^0.5").m_as("m")) == [0.0, 2.0]
