@@ -153,7 +153,7 @@ EQUIVALENT = {
     ("if abs(dev) > tol:", "> → >="):
         "a catalogue row whose model deviates from the table by exactly the tolerance, to the last bit (a float "
         "tie): it is then listed among the worst deviations or not; the table of deviations is the same",
-    ("builtup.py:200", "for j in range(i + 1, len(solids)):", "+ → -"):
+    ("builtup.py:198", "for j in range(i + 1, len(solids)):", "+ → -"):
         "the overlap and connectivity loops then also pair a part with itself and with the one before it (j = i − 1, "
         "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
         "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
