@@ -158,6 +158,12 @@ EQUIVALENT = {
         "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
         "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
         "idempotent), so the groups are the same",
+    # the same loop on line 200 of the reports made before the overlap fix moved it to 198
+    ("builtup.py:200", "for j in range(i + 1, len(solids)):", "+ → -"):
+        "the overlap and connectivity loops then also pair a part with itself and with the one before it (j = i − 1, "
+        "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
+        "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
+        "idempotent), so the groups are the same",
     ("if r.sign < 0:", "0 → 1"): "a ring's sign is +1 (solid) or −1 (hole): < 0 and < 1 pick the same rings",
     ("where = np.full(len(px), -1)", "1 → 2"):
         "−1 or −2 both mean 'in no part yet': every use asks where < 0, and the values themselves are read only "
