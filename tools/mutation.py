@@ -195,6 +195,9 @@ EQUIVALENT = {
     ("return Bracket(0, 0.0, True) if x < lo else Bracket(len(xs) - 2, 1.0, True)", "< → <="):
         "this line is reached only for a key outside the table (not lo <= x <= hi), where x < lo and x <= lo are "
         "the same",
+    ("@dataclass(frozen=True, eq=False)", "False → True"):
+        "TableValue defines its own __eq__ and sets __hash__ = None in its body; dataclass(eq=True) does not "
+        "replace a class's own __eq__, so equality is the same either way",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
