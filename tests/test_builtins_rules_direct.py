@@ -303,3 +303,13 @@ def test_zero_with_units_to_a_fractional_power_is_zero():
     # √(0 m²) = 0 m: zero is not negative (common practice)
     assert ev("(0 m^2)^0.5").m_as("m") == 0.0
     assert list(ev("[0 m^2, 4 m^2]^0.5").m_as("m")) == [0.0, 2.0]
+
+
+def test_a_check_with_no_demand_holds_with_a_utilisation_of_zero():
+    # utilisation = demand / capacity = 0 / 10 kN = 0 (common practice): a zero demand is no sign error
+    from calcsheet.parser import parse_statement
+
+    env = {"V_Ed": U.Quantity(0.0, "kN"), "V_Rd": U.Quantity(10.0, "kN")}
+    for text in ("check V_Ed <= V_Rd", "check V_Rd >= V_Ed"):
+        c = Evaluator().evaluate_check(parse_statement(text), env)
+        assert c.ok and c.ratio == 0.0, (text, c)

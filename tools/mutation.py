@@ -198,6 +198,9 @@ EQUIVALENT = {
     ("@dataclass(frozen=True, eq=False)", "False → True"):
         "TableValue defines its own __eq__ and sets __hash__ = None in its body; dataclass(eq=True) does not "
         "replace a class's own __eq__, so equality is the same either way",
+    ("spans = list(td.cell_spans[1]) if len(td.cell_spans) > 1 else [td.span] * len(texts)", "1 → 2"):
+        "a table reaching this line has its header, its unit row and at least two rows of values (the parser "
+        "refuses fewer), so len(cell_spans) > 1 and > 2 are both true",
     # units
     ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
         "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
