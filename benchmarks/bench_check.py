@@ -7,13 +7,15 @@
    alternating order).
 2. Cold start: `calcsheet check` of a small sheet in a fresh process against `python -c "import pint;
    pint.UnitRegistry(cache_folder=':auto:')"` — the same pint disk cache our registry uses, warmed for both
-   by one untimed run each, then timed alternately the same number of times (goal ≤ 1.5×). Also lists which
+   by one untimed run each (which also fills one bytecode cache for both), then timed alternately the same
+   number of times (goal ≤ 1.5×). Also lists which
    heavy modules the check process imported (never weasyprint).
 
 Run: .venv/bin/python benchmarks/bench_check.py
 """
 from __future__ import annotations
 
+import os
 import statistics
 import subprocess
 import sys
@@ -35,10 +37,16 @@ def ratio(source, repeat: int) -> tuple[float, float, float]:
     return t_check / t_run, t_check, t_run
 
 
-def cold_pair(cmd_a: list[str], cmd_b: list[str], repeat: int = 7) -> tuple[float, float]:
+def cold_pair(cmd_a: list[str], cmd_b: list[str], bytecode: str, repeat: int = 7) -> tuple[float, float]:
+    """Both commands in fresh processes, with one bytecode cache folder for both (``bytecode``): pint's
+    modules come precompiled from site-packages, ours would be compiled from source on every start where the
+    environment forbids writing bytecode (PYTHONDONTWRITEBYTECODE), which is not the same state."""
+    env = {k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTECODE"}
+    env["PYTHONPYCACHEPREFIX"] = bytecode
+
     def go(cmd):
-        return lambda: subprocess.run(cmd, check=True, capture_output=True)
-    return paired(go(cmd_a), go(cmd_b), repeat=repeat)  # the warm-up run fills both disk caches
+        return lambda: subprocess.run(cmd, check=True, capture_output=True, env=env)
+    return paired(go(cmd_a), go(cmd_b), repeat=repeat)  # the warm-up run fills both disk and bytecode caches
 
 
 def main() -> None:
@@ -63,7 +71,7 @@ def main() -> None:
         out = subprocess.run([sys.executable, "-c", probe, str(sheet)], capture_output=True, text=True, check=True)
         cmd_check = [sys.executable, "-m", "calcsheet", "check", str(sheet)]
         cmd_pint = [sys.executable, "-c", "import pint; pint.UnitRegistry(cache_folder=':auto:')"]
-        t_check, t_pint = cold_pair(cmd_check, cmd_pint)
+        t_check, t_pint = cold_pair(cmd_check, cmd_pint, bytecode=str(Path(tmp) / "pycache"))
         report("cold start: calcsheet check ÷ import pint + UnitRegistry (both disk-cached)", t_check / t_pint, 1.5,
                note=f"{t_check:.3f} s vs {t_pint:.3f} s")
         heavy = out.stdout.strip().splitlines()[-1]

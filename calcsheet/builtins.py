@@ -209,15 +209,18 @@ def _pow_impl(a, b, node: N.BinOp, p: float):
             return _q(base**p)
         except OverflowError:
             raise NumericError("the power overflows", node.span) from None
-    if not p.is_integer() and np.any(a.magnitude < 0):
+    m = a._magnitude
+    scalar = type(m) is float
+    if not p.is_integer() and ((m < 0) if scalar else np.any(m < 0)):
         raise NumericError("a negative quantity to a fractional power is not real", node.span)
-    if p < 0 and np.any(a.magnitude == 0):
+    if p < 0 and ((m == 0) if scalar else np.any(m == 0)):
         raise DivisionByZeroError("zero to a negative power", node.span)
     return a**p
 
 
 def _div_impl(a, b, node: N.BinOp):
-    if np.any(b.magnitude == 0):
+    m = b._magnitude
+    if (m == 0) if type(m) is float else np.any(m == 0):
         raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
     return a / b
 
@@ -298,6 +301,31 @@ def fold(node: N.Expr, name_value: Callable[[str], pint.Quantity | None] | None 
             return None
         return apply_binop(node, a, b)
     return None
+
+
+def scale_binop(node: N.BinOp, q: pint.Quantity, x: float, literal_right: bool):
+    """``q * x``, ``q / x``, ``x * q`` or ``x / q`` where ``x`` is a plain-number literal of the sheet (the
+    right operand when ``literal_right``): the operator's rule with a dimensionless operand, then the
+    arithmetic with the float itself, which gives what multiplying by a dimensionless quantity gives."""
+    op = node.op
+    if literal_right:
+        OPERATORS[op].rule(op, arg_of(q), NUMBER, node)
+        if op == "*":
+            return q * x
+        if x == 0:
+            raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
+        return q / x
+    OPERATORS[op].rule(op, NUMBER, arg_of(q), node)
+    if op == "*":
+        return x * q
+    return _div_impl(x, q, node)
+
+
+def power_binop(node: N.BinOp, a: pint.Quantity, p: float):
+    """``a ^ p`` where ``p`` is a plain-number literal of the sheet: what ``apply_binop`` does with the
+    literal as a dimensionless quantity (its written power is its value), without making one."""
+    rule_pow(arg_of(a), NUMBER, node, p if arg_of(a).dim != U.DIMENSIONLESS else None)
+    return _pow_impl(a, None, node, float(p))
 
 
 def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):

@@ -10,6 +10,7 @@ inputs, checks without a utilisation, unusual declared units.
 """
 from __future__ import annotations
 
+import weakref
 from collections.abc import Mapping
 from dataclasses import dataclass
 from functools import cached_property
@@ -137,6 +138,7 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
 
 
 _INFER: dict = {}  # (checker class, node class) -> its _infer_ method
+_NUMBER_TYPES: dict = {}  # a literal's unit factors -> its type
 
 
 class Broken(Exception):
@@ -153,7 +155,10 @@ class Checker:
         self._shadows: list[N.Number] = []  # literals in the current statement whose unit is a variable name
         self.shadowed: set[str] = set()  # variable names read as units somewhere (not also "unused")
         self._pending: list[Diagnostic] = []  # warnings of the current statement (dropped if it has an error)
-        self.consts = lint.Constants(self)
+        # the folder reads the checker back through a weak proxy: no reference cycle, so a finished check is
+        # freed at once by reference counting (a cycle left the sheet's whole tree for the cyclic collector,
+        # whose pass over it then landed on whatever ran next)
+        self.consts = lint.Constants(weakref.proxy(self))
         self.functions: dict[str, N.FunctionDef] = {}  # the sheet's own functions that check clean
 
     # ------------------------------------------------------------ statements
@@ -361,6 +366,9 @@ class Checker:
         if shadow is not None:
             self._shadows.append(node)
             self.shadowed.add(shadow[0])
+        known = _NUMBER_TYPES.get(node.unit)
+        if known is not None:
+            return known
         try:
             unit = U.build_unit(node.unit)
         except UnknownUnitError as exc:
@@ -379,7 +387,10 @@ class Checker:
             raise OffsetTemperatureError(
                 f"'{node.unit_text}' puts a temperature scale (°C/°F) inside a compound unit", _unit_span(node),
                 hint="a per-degree coefficient is per kelvin: write e.g. 1.2e-5 K^-1")
-        return T.of(B.Arg(U.dim_of(unit), offset))
+        t = T.of(B.Arg(U.dim_of(unit), offset))
+        if len(_NUMBER_TYPES) < 4096:
+            _NUMBER_TYPES[node.unit] = t  # the type of a literal's unit that reads (errors are never kept)
+        return t
 
     def _infer_Text(self, node) -> T:
         return TEXT

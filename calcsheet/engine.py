@@ -24,7 +24,6 @@ from . import units as U
 from .checker import Checker
 from .display import DisplayPolicy, pint_unit_string
 from .errors import CalcError, Diagnostic, OverrideError, SheetErrors, Span
-from .evaluator import Evaluator, evaluate_statement
 from .parser import parse_sheet, parse_statement
 from .plugin import PluginRegistry, Record, default_registry
 from .resolver import Resolution, check_key, resolve
@@ -270,6 +269,8 @@ def _check_override_dim(name, expr, checker: Checker, result: Result):
 
 
 def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, overrides: dict) -> None:
+    from .evaluator import Evaluator, evaluate_statement  # here: `check` never evaluates, nor imports it
+
     ev = Evaluator(result.policy, plugins, front_matter=result.meta)
     ev.sheet_functions = False  # the environment starts empty; binding a sheet function sets it
     env: dict[str, Any] = {}
@@ -278,6 +279,7 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
     source_lines = result.source.split("\n")
     included_lines: dict[str, list[str]] = {}
     inputs = frozenset(res.inputs)
+    broken, precedents = res.broken, res.precedents
 
     def unit_of(k, v):
         return display.get(k) if k in display else (result.policy.unit_for(v) if isinstance(v, pint.Quantity) else None)
@@ -290,8 +292,15 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
             result.items.append(TR.Prose(stmt.text))
             continue
         key = stmt.name if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) else check_key(stmt)
-        if key in res.broken or any(p in res.broken or p not in env for p in res.precedents.get(key, ())):
-            res.broken.add(key)
+        if key in broken:
+            continue
+        upstream_broken = False
+        for p in precedents.get(key, ()):
+            if p in broken or p not in env:
+                upstream_broken = True
+                break
+        if upstream_broken:  # downstream of a broken statement: skipped, not reported again
+            broken.add(key)
             continue
         try:
             record = evaluate_statement(ev, stmt, env, display, overrides=overrides, applied=result.overrides,
@@ -316,7 +325,8 @@ def _evaluate(sheet: N.Sheet, res: Resolution, result: Result, plugins, override
         except CalcError as exc:
             res.broken.add(key)
             result.diagnostics.append(exc.with_span(stmt.span).diagnostic(result.path))
-        result.diagnostics.extend(ev.take_warnings(stmt.span, result.path))
+        if ev.host.warnings:
+            result.diagnostics.extend(ev.take_warnings(stmt.span, result.path))
     result.plugin_versions = dict(ev.plugin_versions)
 
 

@@ -45,6 +45,43 @@ class Span:
         return f"{self.path} line {self.line}" if self.path else f"line {self.line}"
 
 
+def quick_init(cls):
+    """Give a frozen dataclass an ``__init__`` that fills the instance dict directly.
+
+    The generated one of a frozen dataclass sets each field through ``object.__setattr__``, which costs
+    more than the rest of making the object; a parse makes several per token. Same signature, same
+    defaults, same instances (still frozen: assignment after construction still raises). A class with a
+    default factory, ``__post_init__``, slots or keyword-only fields keeps its generated ``__init__``."""
+    import dataclasses
+    import inspect
+
+    params = dataclasses.fields(cls)
+    if (not cls.__dataclass_params__.frozen or hasattr(cls, "__post_init__") or hasattr(cls, "__slots__")
+            or any(f.init and (f.default_factory is not dataclasses.MISSING or f.kw_only) for f in params)):
+        return cls
+    sig = inspect.signature(cls.__init__)
+    names = [p for p in sig.parameters if p != "self"]
+    if names != [f.name for f in params if f.init]:
+        return cls
+    defaults = {f"_d{i}": p.default for i, p in enumerate(sig.parameters.values())
+                if p.name != "self" and p.default is not inspect.Parameter.empty}
+    args, k = [], 0
+    for i, p in enumerate(sig.parameters.values()):
+        if p.name == "self":
+            continue
+        args.append(f"{p.name}=_d{i}" if f"_d{i}" in defaults else p.name)
+    body = "; ".join(f"d[{n!r}] = {n}" for n in names) or "pass"
+    src = f"def __init__(self, {', '.join(args)}):\n    d = self.__dict__; {body}\n"
+    ns: dict = {}
+    exec(src, defaults, ns)  # our own field names only: no sheet text reaches this
+    init = ns["__init__"]
+    init.__qualname__ = f"{cls.__qualname__}.__init__"
+    init.__doc__ = cls.__init__.__doc__
+    cls.__init__ = init
+    return cls
+
+
+quick_init(Span)
 NO_SPAN = Span(1, 1, 1, 2)
 
 

@@ -17,6 +17,7 @@ from __future__ import annotations
 import collections
 import dataclasses
 import math
+import weakref
 from typing import Any, Callable
 
 import pint
@@ -69,7 +70,7 @@ class Evaluator:
         self.reg = U.registry()
         self._dimensionless = self.reg.Unit("")
         self._constants = {name: c.quantity() for name, c in B.CONSTANTS.items()}
-        self.host = PluginHost(self, self.plugins)
+        self.host = PluginHost(weakref.proxy(self), self.plugins)  # weak: no cycle (see Checker.consts)
         self._branch_checker = None
         # whether the environment can hold a sheet function: False lets a statement skip looking for calls
         # of one; None (not known: an environment filled elsewhere) always looks
@@ -157,6 +158,20 @@ class Evaluator:
         return self._finite(-v, node.span)  # builtins.rule_neg: any quantity keeps its dimension
 
     def _eval_BinOp(self, node: N.BinOp, env, used):
+        op = node.op
+        if op == "*" or op == "/":
+            # a plain-number literal (``1.2*g``, ``w*L^2/8``) scales the other operand as a float: the same
+            # value and unit as multiplying by a dimensionless quantity, without making one
+            left, right = node.left, node.right
+            if type(right) is N.Number and not right.unit:
+                a = self._need_quantity(self.eval(left, env, used), left.span)
+                return self._finite(B.scale_binop(node, a, right.value, literal_right=True), node.span)
+            if type(left) is N.Number and not left.unit:
+                b = self._need_quantity(self.eval(right, env, used), right.span)
+                return self._finite(B.scale_binop(node, b, left.value, literal_right=False), node.span)
+        elif op == "^" and type(node.right) is N.Number and not node.right.unit:  # L^2: the power as written
+            a = self._need_quantity(self.eval(node.left, env, used), node.left.span)
+            return self._finite(B.power_binop(node, a, node.right.value), node.span)
         a = self._need_quantity(self.eval(node.left, env, used), node.left.span)
         b = self._need_quantity(self.eval(node.right, env, used), node.right.span)
         try:
@@ -403,7 +418,7 @@ class Evaluator:
             else:
                 unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
         if unit is not None and isinstance(value, pint.Quantity) and value._units != unit._units:
-            value = value.to(unit)  # downstream substitutions read the value as shown
+            value = U.convert(value, unit)  # downstream substitutions read the value as shown
         step = Step(name=stmt.name, expr=stmt.expr, value=value, display_unit=unit,
                     used={k: (v, display.get(k) if k in display else self.policy.unit_for(v)
                               if isinstance(v, pint.Quantity) else None) for k, v in used.items()},
@@ -423,7 +438,7 @@ class Evaluator:
         self._finite(a, stmt.left.span, "the left side of the check")
         self._finite(b, stmt.right.span, "the right side of the check")
         am = float(a.magnitude)
-        bm = float((b if b._units == a._units else b.to(a._units)).magnitude)  # one conversion, not three
+        bm = float(U.convert(b, a._units).magnitude)  # one conversion, not three
         ok = B.COMPARISONS[stmt.op](am, bm)
         demand, capacity = (a, b) if stmt.op in ("<=", "<") else (b, a)
         dm, cm = (am, bm) if demand is a else (bm, am)  # both in a's unit
@@ -531,7 +546,7 @@ MAX_CHECK_ROWS = 50  # a check over a longer list shows this many elements (thos
 
 def _to(q: pint.Quantity, unit) -> pint.Quantity:
     """``q.to(unit)``, skipping pint's conversion machinery when ``q`` is already in that unit."""
-    return q if q._units == getattr(unit, "_units", None) else q.to(unit)
+    return q if q._units == getattr(unit, "_units", None) else U.convert(q, unit)
 
 
 def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:

@@ -174,8 +174,8 @@ def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: st
     out: list[Diagnostic] = []
     if t.kind != "q":
         return out
+    kind = P.kind_of(stmt.name, t.dim)
     if stmt.unit:
-        kind = P.kind_of(stmt.name, t.dim)
         unit = U.build_unit(stmt.unit)
         if kind is not None and kind.usual_units and not P.is_usual_unit(kind, unit):
             out.append(UnusualUnitInfo(
@@ -183,7 +183,6 @@ def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: st
                 + ", ".join(kind.usual_units[:5]), stmt.unit_span or stmt.span,
                 hint="the unit is valid, but a reviewer may misread it; declare a usual one unless "
                      "there is a reason").diagnostic(path))
-    kind = P.kind_of(stmt.name, t.dim)
     if kind is not None and (kind.ranges or kind.slip):
         value = checker.consts.of_name(stmt.name)
         if value is not None:

@@ -303,13 +303,35 @@ class Sheet(Node):
         return dict(self.meta)
 
 
+def _quick_inits() -> None:
+    from .errors import quick_init
+
+    for value in list(globals().values()):
+        if isinstance(value, type) and issubclass(value, Node):
+            quick_init(value)
+
+
+_quick_inits()
+
+
 def walk(node: Node):
-    """Every node below (and including) ``node``, iteratively (deep sums are fine)."""
+    """Every node below (and including) ``node``, iteratively (deep sums are fine), in source order."""
     stack = [node]
+    pop, push = stack.pop, stack.append
     while stack:
-        n = stack.pop()
+        n = pop()
         yield n
-        stack.extend(reversed(list(n.children())))
+        names = n._children
+        if not names:  # a leaf (a number, a name): most nodes
+            continue
+        for name in reversed(names):
+            value = getattr(n, name)
+            if isinstance(value, tuple):
+                for v in reversed(value):
+                    if isinstance(v, Node):
+                        push(v)
+            elif isinstance(value, Node):
+                push(value)
 
 
 def names_used(expr: Expr) -> list[Name]:

@@ -137,10 +137,16 @@ _K = [
 KINDS: dict[str, Kind] = {k.key: k for k in _K}
 
 
+_BY_DIM: dict = {}
+
+
 def kind_of(name: str, dim) -> Kind | None:
     """The kind a name denotes, if its dimension agrees (names alone are ambiguous)."""
-    for k in _K:
-        if k.dim == dim and k.pattern.match(name):
+    kinds = _BY_DIM.get(dim)
+    if kinds is None:  # the kinds of one dimension, in their order in _K, found once
+        kinds = _BY_DIM[dim] = tuple(k for k in _K if k.dim == dim)
+    for k in kinds:
+        if k.pattern.match(name):
             if k.key == "modulus" and re.match(r"E_?90", name):
                 return None
             return k
@@ -191,7 +197,12 @@ def judge(name: str, value) -> tuple[Kind, Range, float] | None:
 
 
 def is_usual_unit(kind: Kind, unit) -> bool:
-    return not kind.usual_units or any(unit == _unit(u) for u in kind.usual_units)
+    return not kind.usual_units or _is_usual(kind.usual_units, unit)
+
+
+@lru_cache(maxsize=1024)
+def _is_usual(usual_units: tuple[str, ...], unit) -> bool:
+    return any(unit == _unit(u) for u in usual_units)
 
 
 # ------------------------------------------------------------ table-unit slips

@@ -128,8 +128,19 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
                                                 hint="choose another name"))
         reads: list[str] = []
         calls_plugin = False
+        defined_at, functions = res.defined_at, res.functions
         for expr in exprs:
             for node in N.walk(expr):
+                cls = type(node)
+                if cls is N.Number:
+                    continue  # a literal names nothing
+                if cls is N.Name:
+                    nid = node.id
+                    if nid in defined_at and nid != key and nid not in functions and nid not in CONSTANTS and \
+                            nid not in params:  # the everyday read of an earlier value
+                        if nid not in reads:
+                            reads.append(nid)
+                        continue
                 if isinstance(node, N.PluginCall):
                     calls_plugin = True
                 if isinstance(node, N.Name) and node.id in params:

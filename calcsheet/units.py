@@ -104,6 +104,37 @@ REFUSED: dict[str, str] = {
 ANGLE_UNITS = {"radian", "degree", "milliradian", "arcminute", "arcsecond", "turn"}
 OFFSET_UNITS = {"degree_Celsius", "degree_Fahrenheit"}
 
+_FACTORS: dict = {}  # (source, target units container) -> pint's own conversion factor, or None (not a factor)
+
+
+def convert(q: pint.Quantity, unit) -> pint.Quantity:
+    """``q.to(unit)`` (a pint Unit or units container), with the same result: pint converts a multiplicative
+    unit by ``magnitude * factor``; the factor of each pair of units is taken from pint once (as the conversion
+    of 1) and reused. A pair whose conversion is not a plain factor (°C, °F) always goes through pint."""
+    src, dst = q._units, getattr(unit, "_units", unit)
+    if src == dst:
+        return q
+    key = (src, dst)
+    f = _FACTORS.get(key, False)
+    if f is False:
+        f = _factor(src, dst)
+        if len(_FACTORS) < 4096:
+            _FACTORS[key] = f
+    if f is None:
+        return q.to(unit)
+    return registry().Quantity(q._magnitude * f, dst)
+
+
+def _factor(src, dst) -> float | None:
+    reg = registry()
+    if any(name in OFFSET_UNITS for name in (*src, *dst)):
+        return None
+    one = reg.Quantity(1.0, src).to(dst)._magnitude  # raises DimensionalityError for another dimension
+    if not isinstance(one, float) or reg.Quantity(0.0, src).to(dst)._magnitude != 0.0 or \
+            reg.Quantity(3.0, src).to(dst)._magnitude != 3.0 * one:
+        return None  # not a plain factor: leave every conversion to pint
+    return one
+
 
 @lru_cache(maxsize=None)
 def unit_named(symbol: str) -> pint.Unit:
@@ -209,6 +240,7 @@ def dim_of(value) -> Dim:
     return DIMENSIONLESS
 
 
+@lru_cache(maxsize=4096)
 def dim_mul(a: Dim, b: Dim, sign: int = 1) -> Dim:
     out = dict(a)
     for k, v in b:
@@ -216,10 +248,12 @@ def dim_mul(a: Dim, b: Dim, sign: int = 1) -> Dim:
     return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))
 
 
+@lru_cache(maxsize=4096)
 def dim_pow(a: Dim, p: float) -> Dim:
     return tuple(sorted((k, v * p) for k, v in a if abs(v * p) > 1e-12))
 
 
+@lru_cache(maxsize=4096)
 def without_angle(a: Dim) -> Dim:
     return tuple((k, v) for k, v in a if k != "[angle]")
 

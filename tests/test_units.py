@@ -1,4 +1,6 @@
 """Units: one registry, exact trade units, a curated vocabulary."""
+import numpy as np
+import pint
 import pytest
 
 from calcsheet import units as U
@@ -100,3 +102,27 @@ def test_declared_unit_text_is_read_here_and_bad_text_is_a_located_syntax_error(
     with pytest.raises(SheetSyntaxError) as exc:
         parse_unit_text("kN 2", span)
     assert exc.value.span == span and "not a unit" in exc.value.message
+
+
+@pytest.mark.parametrize("value, src, dst", [
+    (1.2, "kN/m", "N/mm"), (7.5, "kN*m", "N*mm"), (0.3, "m", "mm"), (12.0, "ft", "m"), (3.3, "kip*ft", "kN*m"),
+    (250.0, "MPa", "psi"), (1e-7, "mm^4", "m^4"), (2.0, "kPa*m", "kN/m"), (45.0, "deg", "rad"),
+    (5.0, "percent", ""), (1.0, "lbf/in^2", "ksi"), (9.81, "m/s^2", "ft/s^2"),
+])
+def test_convert_gives_exactly_what_pint_gives(value, src, dst):
+    reg = U.registry()
+    q = reg.Quantity(value, reg.Unit(src))
+    for _ in range(2):  # the first asks pint for the factor, the second reuses it
+        got, want = U.convert(q, reg.Unit(dst)), q.to(reg.Unit(dst))
+        assert got.magnitude == want.magnitude and got.units == want.units
+    arr = reg.Quantity(np.array([value, 2 * value]), reg.Unit(src))
+    assert np.array_equal(U.convert(arr, reg.Unit(dst)).magnitude, arr.to(reg.Unit(dst)).magnitude)
+
+
+def test_convert_leaves_temperatures_on_a_scale_to_pint_and_refuses_another_dimension():
+    reg = U.registry()
+    t = reg.Quantity(20.0, reg.Unit("degC"))
+    assert U.convert(t, reg.Unit("degF")).magnitude == pytest.approx(68.0)  # 20 °C = 68 °F (common practice)
+    assert U.convert(t, reg.Unit("K")).magnitude == pytest.approx(293.15)
+    with pytest.raises(pint.DimensionalityError):
+        U.convert(reg.Quantity(1.0, reg.Unit("m")), reg.Unit("s"))

@@ -19,7 +19,6 @@ import re
 from .. import nodes as N
 from ..errors import Span
 from ..units import parse_unit_text, split_unit
-from .tree import flags_of
 
 _CMP = {"≤": "<=", "≥": ">="}
 _MAX_NESTING = 60  # deeper text goes through the grammar (it also enforces the depth limit)
@@ -33,12 +32,21 @@ class _Bail(Exception):
     """This statement is not one the quick reader vouches for: the grammar reads it."""
 
 
+def terminal_table(lark_parser) -> dict:
+    """The terminals of a built grammar as plain data: name -> (kind of pattern, regexp, literal text).
+
+    What ``_Patterns`` reads; ``grammar`` keeps a copy on disk (``terminals.json``) so a process whose
+    statements the quick reader reads never has to build (or import) the LALR parser."""
+    return {t.name: [type(t.pattern).__name__, t.pattern.to_regexp(), t.pattern.value]
+            for t in lark_parser.terminals}
+
+
 class _Patterns:
     """The terminals of the built grammar, compiled once."""
 
-    def __init__(self, lark_parser):
-        terms = {t.name: t for t in lark_parser.terminals}
-        regex = {name: re.compile(t.pattern.to_regexp()) for name, t in terms.items()}
+    def __init__(self, table: dict):
+        terms = {name: _Terminal(*row) for name, row in table.items()}
+        regex = {name: re.compile(t.regexp) for name, t in terms.items()}
         self.ws = regex["WS"]
         self.number = regex["NUMBER"]
         self.unit = regex["UNIT"]
@@ -47,14 +55,14 @@ class _Patterns:
         self.compare = regex["COMPARE"]
         # a word the grammar spells out ("check", and any keyword a later grammar adds) is not a plain name
         # wherever the grammar may expect it; only "check" at the start is read here, any other means bail
-        self.keywords = frozenset(t.pattern.value for t in terms.values()
-                                  if type(t.pattern).__name__ == "PatternStr" and self.name.fullmatch(t.pattern.value))
+        self.keywords = frozenset(t.value for t in terms.values()
+                                  if t.kind == "PatternStr" and self.name.fullmatch(t.value))
         extra = set(terms) - _KNOWN_TERMINALS
         # terminals this reader does not know: plain strings are fine (it never makes them, so text holding
         # them bails); a new pattern terminal could read known text differently, so the reader stays off
         self.usable = _KNOWN_TERMINALS <= set(terms) and all(
             bool(self.ws.match(c)) == (c in _WS_CHARS) for c in map(chr, range(0x3000))) and all(
-            type(terms[name].pattern).__name__ == "PatternStr" for name in extra)
+            terms[name].kind == "PatternStr" for name in extra)
 
 
 _KNOWN_TERMINALS = frozenset({"WS", "LPAR", "RPAR", "LSQB", "RSQB", "COMPARE", "MULOP", "NUMBER", "UNIT", "NAME",
@@ -64,18 +72,50 @@ _split_cache: dict[str, tuple] = {}
 _decl_cache: dict[str, tuple] = {}
 
 
+class _Terminal:
+    __slots__ = ("kind", "regexp", "value")
+
+    def __init__(self, kind: str, regexp: str, value: str):
+        self.kind, self.regexp, self.value = kind, regexp, value
+
+
+_set = False  # whether enable/disable has decided (until then ``grammar`` supplies the patterns on first use)
+
+
 def enable(lark_parser) -> bool:
     """Take the terminal patterns from the built grammar; False (quick reader off) if it has unknown kinds."""
-    global _patterns
-    p = _Patterns(lark_parser)
+    return enable_table(terminal_table(lark_parser))
+
+
+def enable_table(table: dict) -> bool:
+    """Take the terminal patterns from ``terminal_table``'s data; False (quick reader off) if it has unknown
+    kinds."""
+    global _patterns, _set
+    p = _Patterns(table)
     _patterns = p if p.usable else None
+    _set = True
     return _patterns is not None
 
 
 def disable() -> None:
     """Every statement through the grammar (tests compare the two readers this way)."""
-    global _patterns
+    global _patterns, _set
     _patterns = None
+    _set = True
+
+
+def decided() -> bool:
+    """Whether the reader has been switched on or off (by ``enable``/``enable_table``/``disable``)."""
+    return _set
+
+
+def flags_of(func: str, positional) -> tuple:
+    """The words a built-in reads as flags, not names: ``lookup(tab.k, h=…, clamp)``. Both readers (the LALR
+    tree builder and this one) call this, so they build the same nodes."""
+    if func != "lookup":
+        return tuple(positional)
+    return tuple(N.Flag(name=a.id, span=a.span) if isinstance(a, N.Name) and a.id == "clamp" and i > 0 else a
+                 for i, a in enumerate(positional))
 
 
 def _split(text: str) -> tuple:
@@ -343,7 +383,7 @@ class _Reader:
             if len(num) > 40:
                 raise _Bail  # too long: the grammar's callback says so
             value = float(num)
-            if value == 0.0 or value != value or value in (float("inf"), float("-inf")):
+            if value == 0.0 or value != value or value == _INF or value == -_INF:
                 if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
                     raise _Bail  # overflow or underflow: the grammar's callback words it
             self.pos = m.end()
@@ -378,6 +418,9 @@ class _Reader:
             raise _Bail  # a list, or a character the grammar reports
         self.pos = m.end()
         return N.Name(id=self.plain(m.group()), span=self.span(start, m.end()))
+
+
+_INF = float("inf")
 
 
 def _join(a: Span, b: Span) -> Span:

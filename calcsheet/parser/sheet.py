@@ -74,11 +74,12 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             prose_buf.append(text[1:].strip())
             i += 1
             continue
-        flush_prose()
+        if prose_buf:
+            flush_prose()
         if not text or text.startswith("//"):
             i += 1
             continue
-        inc = INCLUDE.match(text)
+        inc = INCLUDE.match(text) if text.startswith("include") else None
         if inc:
             span = Span(lineno, 1, lineno, len(raw) + 1)
             stmts, sub_diags = include(inc.group(1), span, path, state, parse_sheet)
@@ -86,7 +87,7 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             diags.extend(sub_diags)
             i += 1
             continue
-        m = HEADING.match(text)
+        m = HEADING.match(text) if text.startswith("#") else None
         if m:
             body.append(N.Heading(level=len(m.group(1)), text=m.group(2).strip(),
                                   span=Span(lineno, 1, lineno, len(raw) + 1)))
@@ -97,7 +98,7 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
             continue
-        if starts_table(lines, i) or FILE_TABLE.fullmatch(strip_trailing(raw)[0]):  # a table bound to a name
+        if starts_table(lines, i) or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
             try:
                 if starts_table(lines, i):
                     i, table = pipe_table(lines, i, path)

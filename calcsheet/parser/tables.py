@@ -40,8 +40,10 @@ MAX_TABLE_COLUMNS = 100
 
 def starts_table(lines: list[str], i: int) -> bool:
     """``name =`` alone on its line, with a pipe row right under it."""
+    if not (i + 1 < len(lines) and lines[i + 1].lstrip().startswith("|")):
+        return False
     code, _, _ = strip_trailing(lines[i])
-    return bool(TABLE_START.fullmatch(code)) and i + 1 < len(lines) and lines[i + 1].lstrip().startswith("|")
+    return bool(TABLE_START.fullmatch(code))
 
 
 def pipe_table(lines: list[str], i: int, path: str) -> tuple[int, N.TableDef]:

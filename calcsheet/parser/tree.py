@@ -13,6 +13,7 @@ from lark import Token, Transformer
 from .. import nodes as N
 from ..errors import NumericError, SheetSyntaxError, Span, TooComplexError
 from ..units import parse_unit_text, split_unit
+from .fast import flags_of  # noqa: F401  (one builder of flags for both readers)
 
 MAX_NUMBER_CHARS = 40
 
@@ -190,12 +191,3 @@ class ToNodes(Transformer):
             return N.PluginCall(namespace=callee.obj.id, func=callee.field_name, kwargs=keywords, args=positional,
                                 span=span, func_span=callee.span)
         raise SheetSyntaxError("only a function name or plugin.function can be called", span)
-
-
-def flags_of(func: str, positional: tuple) -> tuple:
-    """The words a built-in reads as flags, not names: ``lookup(tab.k, h=…, clamp)``. Both readers (the LALR
-    tree builder and ``parser.fast``) call this, so they build the same nodes."""
-    if func != "lookup":
-        return tuple(positional)
-    return tuple(N.Flag(name=a.id, span=a.span) if isinstance(a, N.Name) and a.id == "clamp" and i > 0 else a
-                 for i, a in enumerate(positional))

@@ -153,3 +153,37 @@ def test_generated_statements_read_identically(text, offset):
     head = text.split("--")[0].split("//")[0]
     if head.strip() and not head.lstrip().startswith(("#", ">", "include", "---")):
         agree(head, offset)
+
+
+def test_the_stored_terminal_table_is_what_the_built_grammar_gives():
+    """``terminals.json`` (read so an everyday sheet needs no LALR parser) is the built parser's own table;
+    regenerate it with ``grammar.write_terminals()`` after changing the grammar or the unit names."""
+    import json
+    from importlib import resources
+
+    stored = json.loads(resources.files("calcsheet.parser").joinpath(grammar.TERMINALS_FILE).read_text("utf-8"))
+    assert stored["grammar_sha256"] == grammar.grammar_key()
+    assert stored["terminals"] == fast.terminal_table(grammar.lalr())
+    assert grammar.stored_terminals() == stored["terminals"]
+
+
+def test_a_stored_table_of_another_grammar_is_never_used(monkeypatch):
+    monkeypatch.setattr(grammar, "grammar_key", lambda: "0" * 64)
+    assert grammar.stored_terminals() is None
+
+
+def test_an_everyday_sheet_is_read_without_lark_and_a_bad_line_still_gets_the_grammars_error():
+    import subprocess
+    import sys
+
+    probe = ("import sys\n"
+             "from calcsheet.parser import parse_sheet\n"
+             "sheet, diags = parse_sheet('L = 3 m\\nw [kN/m] = 1.2*2 kPa * 0.6 m + 1.5 kN/m\\ncheck w <= 9 kN/m\\n')\n"
+             "assert not diags and len(sheet.body) == 3\n"
+             "print('lark' in sys.modules)\n"
+             "sheet, diags = parse_sheet('L = 3 m +\\n')\n"
+             "print('lark' in sys.modules, diags[0].code, diags[0].span.line)\n")
+    out = subprocess.run([sys.executable, "-c", probe], capture_output=True, text=True, check=True, cwd=REPO)
+    first, second = out.stdout.strip().splitlines()
+    assert first == "False"
+    assert second.startswith("True ") and second.endswith(" 1")

@@ -228,15 +228,22 @@ def test_with_many_combinations_equilibrium_is_tabulated_and_a_couple_adds_no_fo
                       'beam.axial(F=-7 kN, x=8 m, case="D"), '
                       f'beam.point(P=3 kN, x=6 m, case="L")], combos=[{combos}])\n')
     assert r.ok, r.diagnostics
-    t = _table(r.values["b"].working.items, "Equilibrium by combination")
+    items = r.values["b"].working.items
+    t = _table(items, "Equilibrium by combination")
     assert len(t.rows) == 9
+    # one row per combination: its reactions beside the sums, so there is no separate reactions table
+    assert t.columns == ["Combination", "R_A", "R_B", "R_C", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"]
+    assert not [i for i in items if isinstance(i, Table) and i.title.startswith("Reactions")]
     for k, row in enumerate(t.rows):
+        cell = dict(zip(t.columns, row))
         fD, fL = 1 + k / 10, k / 4
         W = fD * 2 * 8 + fL * 3  # kN: the uniform load over 8 m and the point load; the couple adds nothing
-        assert row[0] == f"C{k}"
-        assert row[1].m_as("kN") == pytest.approx(W, rel=1e-12) and row[2].m_as("kN") == pytest.approx(W, rel=1e-9)
+        assert cell["Combination"] == f"C{k}"
+        assert cell["ΣW"].m_as("kN") == pytest.approx(W, rel=1e-12)
+        assert cell["ΣR"].m_as("kN") == pytest.approx(W, rel=1e-9)
+        assert sum(cell[R].m_as("kN") for R in ("R_A", "R_B", "R_C")) == pytest.approx(W, rel=1e-9)
         # moments about A, clockwise positive: w·8·4 + the couple + P·6
-        assert row[3].m_as("kN*m") == pytest.approx(fD * (2 * 8 * 4 + 5) + fL * 3 * 6, rel=1e-12)
+        assert cell["ΣW·a"].m_as("kN*m") == pytest.approx(fD * (2 * 8 * 4 + 5) + fL * 3 * 6, rel=1e-12)
 
 
 def test_the_slopes_at_the_supports_of_a_simple_span():
