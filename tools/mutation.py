@@ -153,12 +153,12 @@ EQUIVALENT = {
     ("if abs(dev) > tol:", "> → >="):
         "a catalogue row whose model deviates from the table by exactly the tolerance, to the last bit (a float "
         "tie): it is then listed among the worst deviations or not; the table of deviations is the same",
-    ("builtup.py:198", "for j in range(i + 1, len(solids)):", "+ → -"):
+    ("builtup.py:241", "for j in range(i + 1, len(solids)):", "+ → -"):
         "the overlap and connectivity loops then also pair a part with itself and with the one before it (j = i − 1, "
         "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
         "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
         "idempotent), so the groups are the same",
-    # the same loop on line 200 of the reports made before the overlap fix moved it to 198
+    # the same loop on line 200 of the reports made before the overlap fix and the merge of main moved it
     ("builtup.py:200", "for j in range(i + 1, len(solids)):", "+ → -"):
         "the overlap and connectivity loops then also pair a part with itself and with the one before it (j = i − 1, "
         "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
