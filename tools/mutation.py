@@ -26,6 +26,8 @@ golden would accept the bug, so a mutant must be killed by a test that names its
     python tools/mutation.py beam --sample 300        # a seeded random sample of 300 (--seed, default 19)
     python tools/mutation.py --list evaluator         # list the mutants without running them
     python tools/mutation.py beam --survivors out/mutation.json --select all   # recheck survivors, every test
+    python tools/mutation.py beam --where query.py:113 "working.py:258:0 → 1"  # named mutants (no report kept)
+    python tools/mutation.py --combine out/first.json out/rerun.json           # a run scored with its reruns
 
 Making a large target affordable (the beam: ~1,600 mutants, a minute of tests): with ``--select coverage``
 (the default for targets whose entry says ``"select": "coverage"``) the target's tests run once under a
