@@ -625,7 +625,7 @@ def _drop_bytecode(path: Path) -> None:
 
 def scratch_copy(dest: Path) -> Path:
     """The project's sources and tests copied into ``dest`` (the working tree is never mutated)."""
-    for part in ("calcsheet", "plugins", "tests", "sheets", "docs"):
+    for part in ("calcsheet", "plugins", "tests", "sheets", "docs", "tools"):  # tools: tests run some of them
         src = ROOT / part
         if src.exists():
             shutil.copytree(src, dest / part, ignore=shutil.ignore_patterns("__pycache__", ".hypothesis",
