@@ -189,10 +189,6 @@ EQUIVALENT = {
      "True → False"):
         "a numbered field is never required: the plugin host skips names with {i} when it checks the returned "
         "fields (plugin_host.make_record), so the flag only marks it optional in the plugins reference",
-    ("r_x=math.sqrt(b.I_x / b.A), r_y=math.sqrt(b.I_y / b.A), r_min=math.sqrt(max(I2, 0.0) / b.A),", "0.0 → 1.0"):
-        "properties() computes r_min, but no caller reads it: the record's r_min is traced in report.py as "
-        "sqrt(I_2/A) (tested in test_section_edges.py with I_2 < 1 mm⁴); a dead second copy of the field, left to "
-        "the section plugin's owner to remove",
     # evaluator
     ("return Bracket(0, 0.0, True) if x < lo else Bracket(len(xs) - 2, 1.0, True)", "< → <="):
         "this line is reached only for a key outside the table (not lo <= x <= hi), where x < lo and x <= lo are "

@@ -127,6 +127,9 @@ def test_the_least_radius_of_gyration_of_a_small_square_is_a_side_over_root_twel
     # r = √(I/A) = √((a⁴/12)/a²) = a/√12 for a square of side a (common practice), here a = 1 mm: I₂ < 1 mm⁴
     f = record("section.rectangle(b=1 mm, h=1 mm)").fields
     assert f["r_min"].m_as("mm") == pytest.approx(1 / 12**0.5, rel=1e-12)
+    # and the plain-Python pass that drawings read (properties()) gives the same, not a clamped one
+    from calcsheet_plugins.section import properties as PR, shapes as S
+    assert PR.properties(S.rectangle(1.0, 1.0))["r_min"] == pytest.approx(1 / 12**0.5, rel=1e-12)
 
 
 def test_the_first_moment_above_the_centroid_of_a_triangle_with_a_unit_rise_edge():
