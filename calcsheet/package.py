@@ -11,7 +11,7 @@ from __future__ import annotations
 import os
 from pathlib import Path
 
-from . import reading
+from . import paged, reading
 from .atomic import publish_package
 from .render.json import JsonPrinter, dumps
 from .render.page import ASSETS, PackageDocument
@@ -46,7 +46,7 @@ def make_fetcher():
     return PackageFetcher()
 
 
-_STYLESHEET: dict = {}  # the package stylesheet's text -> its parsed weasyprint.CSS: parsed once per process
+_STYLESHEET: dict = {}  # a stylesheet's text -> its parsed weasyprint.CSS: parsed once per process
 
 
 def _stylesheet(text: str):
@@ -54,7 +54,8 @@ def _stylesheet(text: str):
 
     css = _STYLESHEET.get(text)
     if css is None:
-        _STYLESHEET.clear()  # only ever the one bundled stylesheet (it changes only under development)
+        if len(_STYLESHEET) > 8:
+            _STYLESHEET.clear()  # the bundled stylesheet and paged's few (they change only under development)
         css = _STYLESHEET[text] = weasyprint.CSS(string=text, base_url=str(ASSETS) + os.sep,
                                                   url_fetcher=make_fetcher())
     return css
@@ -95,8 +96,16 @@ def pdf_bytes(html: str) -> bytes:
     if css in html:
         html = html.replace(css, "", 1)
         stylesheets.append(_stylesheet(css))
-    doc = weasyprint.HTML(string=html, base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
-    rendered = doc.render(stylesheets=stylesheets)
+
+    def render(text, extra=()):
+        doc = weasyprint.HTML(string=text, base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
+        return doc.render(stylesheets=stylesheets + list(extra))
+
+    # a long page is laid out a chunk at a time: its memory is bounded by a chunk (calcsheet/paged.py)
+    chunked = paged.render_chunked(html, render, _stylesheet, cap, lambda n: _too_many_pages(n, "at least "))
+    if chunked is not None:
+        return chunked
+    rendered = render(html)
     if len(rendered.pages) > cap:
         raise _too_many_pages(len(rendered.pages), "")
     return rendered.write_pdf()

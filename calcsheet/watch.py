@@ -13,13 +13,16 @@ from __future__ import annotations
 
 import ipaddress
 import json
+import operator
 import secrets
 import threading
 import time
+import weakref
 from http.server import BaseHTTPRequestHandler, ThreadingHTTPServer
 from pathlib import Path
 
 from .render.preview import error_page, message_page, refresh_script
+from .trace import FunctionStep as _FunctionStep
 
 HOST = "127.0.0.1"
 POLL_SECONDS = 0.25
@@ -60,13 +63,88 @@ def _value_key(v):
 
 
 def _names(*exprs) -> set[str]:
+    """The names a formula prints, each possibly a link: its symbols and its fields (``sec.A``)."""
     from . import nodes as N
+    from .names import dotted
 
     out = set()
     for e in exprs:
         if e is not None:
-            out.update(n.id for n in N.walk(e) if isinstance(n, N.Name))
+            for n in N.walk(e):
+                if isinstance(n, N.Name):
+                    out.add(n.id)
+                elif isinstance(n, N.FieldAccess):
+                    key = dotted(n)
+                    if key:
+                        out.add(key)
     return out
+
+
+class _Expr:
+    """A formula as part of a memo key: equal when the formulas are equal, hashed once per formula object.
+
+    A frozen node hashes by walking its whole tree on every call; an unchanged step's formula is the same
+    object from one save to the next (the fast rebuild keeps the parsed sheet), so its hash and the names
+    it reads are worked out once and kept while a memo key holds them.
+    Equality stays structural, so a formula re-parsed by a full run still finds its printed parts.
+    """
+
+    __slots__ = ("expr", "names", "_hash", "__weakref__")
+
+    def __init__(self, expr):
+        self.expr = expr
+        self.names = tuple(sorted(_names(expr)))
+        self._hash = hash(expr)
+
+    def __hash__(self):
+        return self._hash
+
+    def __eq__(self, other):
+        return isinstance(other, _Expr) and (self.expr is other.expr or self.expr == other.expr)
+
+
+_KNOWN: dict[int, weakref.ref] = {}  # id(formula) -> its _Expr, while a memo key (or a caller) holds that
+
+
+def _known(expr) -> _Expr | None:
+    """The memo-key form of ``expr`` (None stays None), made once per formula object while it is in use.
+
+    The table holds the ``_Expr`` weakly: it lives as long as a memo's key holds it (and it holds its
+    formula, so the id cannot pass to another object meanwhile); then its entry goes.
+    """
+    if expr is None:
+        return None
+    k = id(expr)
+    ref = _KNOWN.get(k)
+    if ref is not None:
+        hit = ref()
+        if hit is not None and hit.expr is expr:
+            return hit
+    made = _Expr(expr)
+
+    def gone(ref, k=k, known=_KNOWN):  # the dict itself: at interpreter exit the global may be gone
+        if known.get(k) is ref:
+            del known[k]
+
+    _KNOWN[k] = weakref.ref(made, gone)
+    return made
+
+
+class _Token:
+    """A memo key's contents with their hash worked out once; ``names``: the names the record shows."""
+
+    __slots__ = ("key", "names", "_hash")
+
+    def __init__(self, key: tuple, names: tuple):
+        self.key = key
+        self.names = names
+        self._hash = hash(key)
+
+    def __hash__(self):
+        return self._hash
+
+    def __eq__(self, other):
+        return self is other or (isinstance(other, _Token) and self._hash == other._hash and self.key == other.key)
 
 
 class PartsMemo:
@@ -82,22 +160,16 @@ class PartsMemo:
     def __init__(self):
         self.previous: dict = {}
         self.current: dict = {}
-        self._names: dict = {}  # id(expr) -> (expr, the names it reads): kept with the expr, so ids stay true
 
     def next_page(self) -> None:
         self.previous, self.current = self.current, {}
-        if len(self._names) > 4 * len(self.previous) + 1000:
-            self._names = {}
 
-    def names(self, *exprs) -> set[str]:
+    @staticmethod
+    def names(*exprs) -> set[str]:
         out: set[str] = set()
         for e in exprs:
-            if e is None:
-                continue
-            hit = self._names.get(id(e))
-            if hit is None or hit[0] is not e:
-                hit = self._names[id(e)] = (e, _names(e))
-            out |= hit[1]
+            if e is not None:
+                out.update(_known(e).names)
         return out
 
     def get(self, key, make):
@@ -129,50 +201,80 @@ class _MemoPrinter:
         return self._memo.get(key, lambda: self._printer.value(value, unit, sigfigs))
 
     def expr(self, node, values=None, link=None, **kw):
-        if values is None and link is None and not kw:  # a literal as written (the inputs list)
-            return self._memo.get(("expr", node, self._settings), lambda: self._printer.expr(node))
+        if values is None and not kw and node is not None:  # a formula as written, no values substituted
+            k = _known(node)
+            links = None if link is None else tuple([link(n) for n in k.names])
+            return self._memo.get(("expr", k, links, self._settings), lambda: self._printer.expr(node, link=link))
         return self._printer.expr(node, values, link, **kw)
 
-    def _context(self, names, used, link, exact):
-        used_key = []
-        for k in sorted(used):
-            v, unit = used[k]
+    def _content(self, used, exprs, values, unit):
+        """The part of a record's key that its values make, as one token hashed once, or None.
+
+        Worked out from the values the first time a record's ``used`` dict, values and formulas are seen;
+        an unchanged record of the next save shares those very objects (a rebuild copies the record, not
+        its contents), so it finds its token by their identities. The entry holds the objects, so an id is
+        never that of a later object.
+        """
+        objs = (used, unit, *exprs, *values)
+        ident = ("content", self._settings, *map(id, objs))
+        memo = self._memo
+        hit = memo.current.get(ident)
+        if hit is None:
+            hit = memo.previous.get(ident)
+        if hit is None or not all(map(operator.is_, hit[0], objs)):
+            hit = (objs, self._make_content(used, exprs, values, unit))
+        memo.current[ident] = hit
+        return hit[1]
+
+    def _make_content(self, used, exprs, values, unit):
+        keys = []
+        for v in values:
             vk = _value_key(v)
             if vk is None:
                 return None
-            used_key.append((k, vk, unit))
-        names = sorted(names.union(used))
-        return (self._settings, tuple(used_key),
-                None if link is None else tuple(link(n) for n in names),
-                None if exact is None else tuple((n, exact.get(n)) for n in names))
+            keys.append(vk)
+        for k in sorted(used):
+            v, u = used[k]
+            vk = _value_key(v)
+            if vk is None:
+                return None
+            keys.append((k, vk, u))
+        names = tuple(sorted(self._memo.names(*exprs).union(used)))
+        return _Token((self._settings, unit, tuple(keys), tuple(_known(e) for e in exprs)), names)
+
+    @staticmethod
+    def _context(token, link, exact):
+        names = token.names
+        return (token,
+                None if link is None else tuple([link(n) for n in names]),
+                None if exact is None else tuple([_known(exact.get(n)) for n in names]))
 
     def step_key(self, step, link=None, exact=None):
         """What a step's formula parts print from, or None when they cannot be vouched for."""
-        from .trace import FunctionStep
-
-        if type(step) is FunctionStep or step.working is not None:
+        if type(step) is _FunctionStep or step.working is not None:
             return None
-        vk, ok = _value_key(step.value), _value_key(step.overridden)
-        if vk is None or ok is None:
+        token = self._content(step.used, (step.expr, step.shown_expr), (step.value, step.overridden),
+                              step.display_unit)
+        if token is None:
             return None
-        ctx = self._context(self._memo.names(step.expr, step.shown_expr), step.used, link, exact)
-        if ctx is None:
-            return None
-        return ("step", step.name, step.expr, step.shown_expr, vk, step.display_unit, ok, ctx)
+        return ("step", step.name, self._context(token, link, exact))
 
     def check_key(self, check, link=None, exact=None):
-        ctx = self._context(self._memo.names(check.left, check.right, check.shown_left, check.shown_right),
-                            check.used, link, exact)
-        if ctx is None:
+        token = self._content(check.used, (check.left, check.right, check.shown_left, check.shown_right), (),
+                              check.op)
+        if token is None:
             return None
-        return ("check", check.op, check.left, check.right, check.shown_left, check.shown_right, ctx)
+        return ("check", self._context(token, link, exact))
 
+    # On a miss the printer's own method runs with this memo as its ``self``, so the symbolic formula of a
+    # step whose values changed (the same formula, the same links) is not printed again either.
     def step_parts(self, step, link=None, exact=None):
-        return self._memo.get(self.step_key(step, link, exact), lambda: self._printer.step_parts(step, link, exact))
+        return self._memo.get(self.step_key(step, link, exact),
+                              lambda: type(self._printer).step_parts(self, step, link, exact))
 
     def check_parts(self, check, link=None, exact=None):
         return self._memo.get(self.check_key(check, link, exact),
-                              lambda: self._printer.check_parts(check, link, exact))
+                              lambda: type(self._printer).check_parts(self, check, link, exact))
 
 
 def _document_class():

@@ -298,3 +298,13 @@ def test_a_csv_table_is_read_through_the_size_cap_and_strict_utf8(tmp_path, monk
     sheet.write_text('k_h = table "big.csv"\n')
     (d,) = calcsheet.run(sheet).errors
     assert "TABLE_BYTES" in (d.hint or "")
+
+
+@pytest.mark.parametrize("units, col", [
+    ("| mx \\ mm | 1 | 1 |", 3),    # the row key's unit: its cell, the first of the row
+    ("| mm \\ mx | 1 | 1 |", 3),    # the column key's unit shares that cell
+    ("| mm \\ mm | kx | kx |", 13),  # the values' unit: the first value column's cell
+])
+def test_an_unknown_unit_of_a_two_way_table_is_located_at_its_own_cell(units, col):
+    text = "t =\n| h \\ b | 1 | 2 |\n" + units + "\n| 1 | 1 | 2 |\n| 2 | 3 | 4 |\n"
+    assert both(text) == ([("unknown-unit", 3, col)], [("unknown-unit", 3, col)])

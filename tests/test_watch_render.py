@@ -96,3 +96,25 @@ def test_the_preview_writes_the_page_it_serves(tmp_path):
     on_disk = preview.last_good_path.read_text(encoding="utf-8")
     assert page.decode("utf-8") == with_script(on_disk, refresh_script(version, preview.nonce))
     assert on_disk == PackageDocument(preview.last_good).html()
+
+
+def test_a_full_run_of_the_same_sheet_reuses_every_printed_block():
+    # a full run parses afresh: new formula and value objects, equal to the old ones
+    memo = PartsMemo()
+    preview_document(calcsheet.run(SHEET), memo).html()
+    memo.next_page()
+    again = calcsheet.run(SHEET)
+    assert preview_document(again, memo).html() == PackageDocument(again).html()
+    blocks = [k for k in memo.current if k[0] in ("step-block", "check-block")]
+    assert blocks and all(k in memo.previous for k in blocks)
+
+
+def test_saves_back_and_forth_always_give_the_fresh_page():
+    memo = PartsMemo()
+    result = calcsheet.run(SHEET)
+    preview_document(result, memo).html()
+    for text in [SHEET.replace("L_1 = 4 m", "L_1 = 3 m"), SHEET, SHEET.replace("gamma_G = 1.35 ", "gamma_G = 1.2 "),
+                 SHEET.replace("gamma_G = 1.35 ", "gamma_G = 1.2 ").replace("f = 12 MPa", "f = 3 MPa"), SHEET]:
+        memo.next_page()
+        result = rebuild(result, text).result
+        assert preview_document(result, memo).html() == PackageDocument(result).html()

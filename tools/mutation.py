@@ -97,12 +97,18 @@ TARGETS: dict[str, dict] = {
             "calcsheet/plugin_host.py": ["coerce_argument", "_check_dim", "make_record"],
         },
         # builtins.py holds the rules the checker applies too, and the sheet functions' rules: their tests count
-        "tests": ["tests/test_evaluator_rules.py", "tests/test_evaluator.py", "tests/test_builtins.py",
+        "tests": ["tests/test_evaluator_rules.py", "tests/test_builtins_rules_direct.py",
+                  "tests/test_plugin_host_fields.py", "tests/test_evaluator.py", "tests/test_builtins.py",
                   "tests/test_evaluator_oracle.py", "tests/test_engine.py", "tests/test_units.py",
-                  "tests/test_functions.py", "tests/test_checker.py", "tests/test_agreement.py"],
+                  "tests/test_functions.py", "tests/test_checker.py", "tests/test_agreement.py",
+                  # tables (lookup, interpolation), lists, the size limits, finiteness and the plugin host's checks
+                  # live in these modules too
+                  "tests/test_tables.py", "tests/test_lists.py", "tests/test_limits.py", "tests/test_finiteness.py",
+                  "tests/test_plugin.py", "tests/test_lint.py"],  # lint folds names through builtins.fold
     },
     "units": {"sources": ["calcsheet/units.py"],
-              "tests": ["tests/test_units.py", "tests/test_evaluator_rules.py", "tests/test_engine.py"]},
+              "tests": ["tests/test_units.py", "tests/test_units_words.py", "tests/test_evaluator_rules.py",
+                        "tests/test_engine.py"]},
 }
 # Each target's tests run in the order listed (the tests that mirror the module first), stopping at the first
 # failure; "k" narrows the cross-cutting files to the tests about that target (pytest -k, matched on test and
@@ -125,6 +131,79 @@ EQUIVALENT = {
     ("for rb in (r for r in b.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
     ("dims=[Dimension(x0, y0, x0 + W, y0, _fmt(W), -1), Dimension(x0, y0 + H, x0, y0, _fmt(H), -1)],", "1 → 2"):
         "cosmetic: the offset of a dimension line in the polygon's drawing",
+    # section
+    ('["Property", "Table", "Model", "Deviation", "Tolerance"], rows, units=[None] * 5,', "5 → 6"):
+        "cosmetic: a sixth 'no unit' for a column that does not exist; the renderers pair a table's units with its "
+        "columns (render/page.py zips them, render/text.py pads them), so the extra entry is never read",
+    ("Dimension(xc - bb / 2, 0, xc + bb / 2, 0, _fmt(bb), -1),", "/ → *"):
+        "cosmetic: where the bottom flange's dimension line is drawn in the section's figure (its label is "
+        "_fmt(bb), unchanged)",
+    ("s = min(roots, key=lambda r: abs(r - np.clip(r, 0, 1)) + (0 if 0 <= r <= 1 else 1))", "<= → <"):
+        "only a root exactly at s = 0 or 1 changes its key (0 → 1); the area above a level falls monotonically "
+        "across the bracket, so the quadratic's other root lies outside [0, 1] with a key of its distance + 1 > 1 "
+        "and the same root is chosen",
+    ("for ra in (r for r in a.rings if r.sign > 0):", "> → >="): "a ring's sign is +1 (solid) or −1 (hole), never 0",
+    ("def _circle_points(cx, cy, r, start=0.0, stop=2 * math.pi, closed_arc=False):", "False → True"):
+        "the default is used only for full circles (0 to 2π): with it True the outline gets the first point again "
+        "at t = 2π (linspace with n + 1 points and the endpoint has the same spacing), an edge of zero length that "
+        "changes no integral and no line of the drawing",
+    ("if A2 < 0:", "< → <="):
+        "differs only for a ring of zero area (A2 = 0): a polygon of no area is refused before ('no area'), and "
+        "both versions divide by that zero area on the next lines anyway",
+    ("if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():",
+     "True → False"):
+        "this inner test asks again what the enclosing 'if' has just established for the same points (u's "
+        "outline samples and centroid strictly inside v); inclusive is a superset of strict, so it is true "
+        "whenever it is reached",
+    ("if abs(dev) > tol:", "> → >="):
+        "a catalogue row whose model deviates from the table by exactly the tolerance, to the last bit (a float "
+        "tie): it is then listed among the worst deviations or not; the table of deviations is the same",
+    ("builtup.py:200", "for j in range(i + 1, len(solids)):", "+ → -"):
+        "the overlap and connectivity loops then also pair a part with itself and with the one before it (j = i − 1, "
+        "for i = 0 the last): pairs already seen the other way round, and a part 'touching' itself; the overlap "
+        "test of a part with itself is not reached for the connectivity loop (the union is symmetric and "
+        "idempotent), so the groups are the same",
+    ("if r.sign < 0:", "0 → 1"): "a ring's sign is +1 (solid) or −1 (hole): < 0 and < 1 pick the same rings",
+    ("where = np.full(len(px), -1)", "1 → 2"):
+        "−1 or −2 both mean 'in no part yet': every use asks where < 0, and the values themselves are read only "
+        "when none is negative",
+    ("tol = 1e-6 * size", "* → /"):
+        "the overlap tolerance of a built-up section, 1e-6·D or 1e-6/D mm (D its size, 10–1000 mm): both far "
+        "above the round-off of placed coordinates (1e-13 mm) and far below any dimension a drawing states "
+        "(0.1 mm); they differ only for parts overlapping by less than a micrometre",
+    ('how = ("to rounding (every relative difference below 1e-14)" if worst < 1e-14 else', "< → <="):
+        "the wording of the agreement note at a difference of exactly 1e-14 (a float tie)",
+    ('shown=_model_cell(entry, "r", g.get("r", 0.0), 4) if derived else None)', "4 → 5"):
+        "cosmetic: the digits a derived root radius is shown with (four or five); its value is the same",
+    ("if r.sign <= 0 or len(r.y) == 0:", "or → and"):
+        "the beam's materials of a transformed section: a hole's ring carries the n of the part it cuts and lies "
+        "inside that material (a hole not wholly in material is refused), so adding its y-range to the material's "
+        "extent changes nothing; and no ring has zero points",
+    ("if not (-1e-9 * L <= xs <= L * (1 + 1e-9)):", "* → /"):
+        "the tolerance for a queried place left of the beam, 1e-9·L or 1e-9/L m below 0: both take x = 0 and "
+        "refuse any negative place a sheet writes; they differ only for x a fraction of a nanometre below 0",
+    ('Field("n_{i}", doc="modular ratio E_i/E_ref of material i (transformed sections)", optional=True),',
+     "True → False"):
+        "a numbered field is never required: the plugin host skips names with {i} when it checks the returned "
+        "fields (plugin_host.make_record), so the flag only marks it optional in the plugins reference",
+    ("r_x=math.sqrt(b.I_x / b.A), r_y=math.sqrt(b.I_y / b.A), r_min=math.sqrt(max(I2, 0.0) / b.A),", "0.0 → 1.0"):
+        "properties() computes r_min, but no caller reads it: the record's r_min is traced in report.py as "
+        "sqrt(I_2/A) (tested in test_section_edges.py with I_2 < 1 mm⁴); a dead second copy of the field, left to "
+        "the section plugin's owner to remove",
+    # units
+    ("return tuple(sorted((k, v) for k, v in out.items() if abs(v) > 1e-12))", "> → >="):
+        "drops an exponent of exactly 1e-12 (a float tie); the exponents a sheet makes are whole numbers, halves "
+        "and thirds, or round-off near 0",
+    ("return tuple(sorted((k, v * p) for k, v in a if abs(v * p) > 1e-12))", "> → >="):
+        "likewise for a power: only an exponent of exactly 1e-12 differs",
+    ('names = sorted((n for n in VOCABULARY if re.fullmatch(r"[^\\W\\d]\\w*", n)), key=len, reverse=True)',
+     "True → False"):
+        "the order of the unit names in the grammar's alternation; each name is followed by the lookahead "
+        "(?![\\w.(]), so a shorter name that is a prefix of the text (m in mm) fails there and the regex "
+        "backtracks to the longer one: the same tokens either way, only the matching is slower",
+    ('(("[length]", 1),): "length",', "1 → 2"):
+        "the mutated key (length², 'length') is overwritten by the next line's (length², 'area') in the same dict "
+        "literal, and length¹ is then described by the general rule, also as 'length'",
     # beam
     ("if lo * hi < 0 or abs(lo) < 1e-9 * scale <= abs(hi) or abs(hi) < 1e-9 * scale <= abs(lo):", "<= → <"):
         "differs only when a moment equals the round-off threshold 1e-9 × the largest moment exactly (a float tie)",
@@ -189,10 +268,33 @@ EQUIVALENT = {
         "a line load ending at the beam's end has x2 = L exactly; only x2 = L + tol to the last bit differs",
     ("while pos < len(text):", "< → <="):
         "at pos = len(text) the loop's first line finds nothing left (text[pos:].strip() is empty) and breaks",
+    ("if -tol <= r <= h + tol:", "<= → <"):
+        "a root of a piece's moment at the piece's own end is r = 0 or r = h (inside both ways); only a root of "
+        "exactly −tol or h + tol (tol = 1e-9·L) to the last bit differs (a float tie)",
+    ('side = "left" if i == len(X) - 1 else "right"', "- → +"):
+        "no support is then read from the left, but the last support's 'right' is the last piece as well "
+        "(Solution.at clips the piece index; every piece starts before L), so θ there is the same value",
+    ("handbook.py", "tol = 1e-9 * L", "* → /"):
+        "which loads count as full-length for the handbook cross-check: 1e-9/L instead of 1e-9·L m, both far "
+        "above round-off and far below any length a sheet writes; they differ only for a load starting or ending "
+        "a fraction of a nanometre from the beam's end, which then prints or omits a cross-check — the solver's "
+        "values are the same either way",
     ("lo = min(max(bisect.bisect_right(Xl, min(bp)) - 2, 0), nspan - 1)", "1 → 2"):
         "caps the first span searched one lower (with one span: index −1, the same last element, whose _on_span "
         "gives nothing since a point's home span is never −1 and a line load's extent there is empty)",
 }
+
+
+
+def explained(m: "Mutant") -> str | None:
+    """The reason ``m`` is equivalent, if EQUIVALENT gives one: keyed by (line text, mutation), or by (file
+    name, line text, mutation) where the same text means something else in another file, or by ("file:line",
+    line text, mutation) where it does in the same file (an edit that moves the line makes the mutant open
+    again: the safe way to fail)."""
+    name = Path(m.path).name
+    return (EQUIVALENT.get((f"{name}:{m.line}", m.source_line, m.what))
+            or EQUIVALENT.get((name, m.source_line, m.what)) or EQUIVALENT.get((m.source_line, m.what)))
+
 
 QUIET = {"raise"}
 MESSAGE_CALLS = {"fail", "note", "warn", "figure", "caption", "get_close_matches", "format", "join"}
@@ -665,6 +767,14 @@ def sample(items: list, size: int | None, seed: int) -> list:
     return random.Random(seed).sample(items, min(size, len(items)))
 
 
+def _at(m: Mutant, where: str) -> bool:
+    """Whether mutant ``m`` is the one ``where`` names: FILE:LINE or FILE:LINE:WHAT (FILE: a path's tail)."""
+    path, _, rest = where.partition(":")
+    line, _, what = rest.partition(":")
+    return (m.path == path or m.path.endswith("/" + path)) and str(m.line) == line.strip() \
+        and (not what or m.what == what.strip())
+
+
 def tests_for(target: str, copy_root: Path) -> list[str]:
     return [p for p in TARGETS[target]["tests"] if (copy_root / p).exists()]
 
@@ -699,9 +809,18 @@ def main(argv=None) -> int:
                          "the tests written since the map was traced)")
     ap.add_argument("--skip-equivalent", action="store_true",
                     help="do not run mutants already explained in EQUIVALENT (they count as explained)")
+    ap.add_argument("--where", nargs="*", default=[], metavar="FILE:LINE[:WHAT]",
+                    help="run only the mutants on these lines (FILE may be the file's name alone; WHAT, e.g. "
+                         "'<= → <', narrows to that mutation): a rerun of named survivors when no report is kept")
+    ap.add_argument("--combine", nargs="+", type=Path, default=None, metavar="REPORT",
+                    help="run nothing: the mutants of the first report, each killed if any later report (a rerun of "
+                         "its survivors with new tests) killed it, scored as one run (the source files unchanged)")
     ap.add_argument("--no-fork", action="store_true",
                     help="start a fresh pytest per mutant instead of forking tools/mutation_server.py")
     args = ap.parse_args(argv)
+    if args.combine:
+        combine(args.combine)
+        return 0
     targets = args.targets or list(TARGETS)
     unknown = [t for t in targets if t not in TARGETS]
     if unknown:
@@ -716,6 +835,8 @@ def main(argv=None) -> int:
         keep = {(m["path"], m["source_line"], m["what"]) for m in earlier if m["status"] == "survived"}
         plan = {t: [m for m in find_all(t) if (m.path, m.source_line, m.what) in keep]
                 for t in plan}
+    if args.where:
+        plan = {t: [m for m in find_all(t) if any(_at(m, w) for w in args.where)] for t in plan}
     if args.list:
         for t, ms in plan.items():
             for m in ms:
@@ -736,10 +857,10 @@ def main(argv=None) -> int:
     if args.skip_equivalent:
         for t in plan:
             for m in plan[t]:
-                if (m.source_line, m.what) in EQUIVALENT:
+                if explained(m):
                     m.status, m.killed_by = "survived", "(explained in EQUIVALENT, not run)"
                     earlier.append(m)
-            plan[t] = [m for m in plan[t] if (m.source_line, m.what) not in EQUIVALENT]
+            plan[t] = [m for m in plan[t] if not explained(m)]
 
     # a time limit (timeout, make's SIGTERM) still restores, cleans up and reports what ran so far
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(143))
@@ -827,6 +948,31 @@ def main(argv=None) -> int:
     return 0
 
 
+def _load(path: Path) -> list[Mutant]:
+    out = []
+    for d in json.loads(path.read_text())["mutants"]:
+        d["lines"] = tuple(d.get("lines") or (0, 0))
+        out.append(Mutant(**d))
+    return out
+
+
+def combine(paths: list[Path]) -> dict:
+    """The first report's mutants, with the outcome of any later rerun of them (matched by file, mutation
+    point and mutation: valid while the source files are unchanged)."""
+    base = _load(paths[0])
+    later = {}
+    for path in paths[1:]:
+        for m in _load(path):
+            if m.status in ("killed", "timeout"):
+                later[(m.path, m.index, m.what)] = m
+    for m in base:
+        k = later.get((m.path, m.index, m.what))
+        if m.status == "survived" and k is not None:
+            m.status, m.killed_by = k.status, k.killed_by
+    print(f"combined: {len(base)} mutants of {paths[0]}, outcomes of {len(paths) - 1} later run(s)")
+    return report(base)
+
+
 def report(results: list[Mutant]) -> dict:
     summary = {}
     print("\n== kill rate")
@@ -843,17 +989,17 @@ def report(results: list[Mutant]) -> dict:
         print(f"{'all':10s} {killed:4d}/{total:<4d} {100 * killed / total:5.1f} %")
     summary["all"] = {"mutants": total, "killed": killed, "rate": round(killed / total, 4) if total else None}
     survivors = [m for m in results if m.status == "survived"]
-    explained = [m for m in survivors if (m.source_line, m.what) in EQUIVALENT]
+    equivalent = [m for m in survivors if explained(m)]
     if total:
-        adjusted = killed / (total - len(explained)) if total > len(explained) else 1.0
-        print(f"{'adjusted':10s} {killed:4d}/{total - len(explained):<4d} {100 * adjusted:5.1f} %"
-              f"  (leaving out {len(explained)} equivalent mutants)")
+        adjusted = killed / (total - len(equivalent)) if total > len(equivalent) else 1.0
+        print(f"{'adjusted':10s} {killed:4d}/{total - len(equivalent):<4d} {100 * adjusted:5.1f} %"
+              f"  (leaving out {len(equivalent)} equivalent mutants)")
         summary["all"]["adjusted_rate"] = round(adjusted, 4)
-    if explained:
+    if equivalent:
         print("\n== equivalent or cosmetic mutants (explained in tools/mutation.py EQUIVALENT)")
-        for m in explained:
-            print(f"{m.where:55s} {m.what}   | {EQUIVALENT[(m.source_line, m.what)]}")
-    unexplained = [m for m in survivors if m not in explained]
+        for m in equivalent:
+            print(f"{m.where:55s} {m.what}   | {explained(m)}")
+    unexplained = [m for m in survivors if m not in equivalent]
     if unexplained:
         print("\n== surviving mutants")
         for m in unexplained:

@@ -400,14 +400,31 @@ class PackageDocument(DocumentPrinter):
                 for r in (t.footer or [])]
         note = Html("<p class='note'>{}</p>").format(t.note) if t.note else Html()
         groups = column_groups([heads, *body, *foot], TABLE_WIDTH_PT)
+        k = repeat_width(t.columns)
+        if len(groups) > 1 and k and not foot and t.rows:
+            # name–value pairs side by side: fewer of them a row, in reading order, never split into groups
+            empty = Html("<td></td>")
+            cells = [r[i:i + k] for r, raw in zip(body, t.rows) for i in range(0, len(r), k)
+                     if any(v is not None and not (isinstance(v, str) and not v) for v in raw[i:i + k])]
+            for per in range(len(t.columns) // k - 1, 0, -1):
+                if not cells:
+                    break
+                heads = heads[:k * per]
+                body = [sum(cells[j:j + per], []) for j in range(0, len(cells), per)]
+                body[-1] += [empty] * (k * per - len(body[-1]))
+                groups = column_groups([heads, *body], TABLE_WIDTH_PT)
+                if len(groups) == 1:
+                    break
+        # a short table is kept on one page; a long one may flow on to the next (its head repeats there)
+        cls = "parts long" if len(body) + len(foot) > LONG_TABLE_ROWS else "parts"
         tables = []
         for n, cols in enumerate(groups):
             def rows(rs):
                 return Html("").join(Html("<tr>{}</tr>").format(Html("").join(r[i] for i in cols if i < len(r)))
                                      for r in rs)
             title = t.title if n == 0 else Html("{} (continued, {} of {})").format(t.title, n + 1, len(groups))
-            tables.append(Html("<table class='parts'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>"
-                               "{}</table>").format(title, Html("").join(heads[i] for i in cols), rows(body),
+            tables.append(Html("<table class='{}'><caption>{}</caption><thead><tr>{}</tr></thead><tbody>{}</tbody>"
+                               "{}</table>").format(cls, title, Html("").join(heads[i] for i in cols), rows(body),
                                                     Html("<tfoot>{}</tfoot>").format(rows(foot)) if foot else ""))
         return Html("").join(tables) + note
 
@@ -460,6 +477,9 @@ class PackageDocument(DocumentPrinter):
         return Html("<section class='diagnostics'><h2 class='sec' id='diagnostics'>Diagnostics</h2><ul>{}</ul></section>").format(items)
 
 
+# Beyond this many rows a table may break across pages rather than start on a fresh one.
+LONG_TABLE_ROWS = 12
+
 # The width a plugin's table may take: the text block of the narrower paper (A4: 210 mm less 30 mm of margins)
 # less the indent of a working (about 17 mm), in points.
 TABLE_WIDTH_PT = (210 - 30 - 17) * 72 / 25.4
@@ -492,6 +512,15 @@ def column_groups(rows: list[list[str]], width: float) -> list[list[int]]:
         used += widths[i]
     groups.append(current)
     return groups
+
+
+def repeat_width(columns: list[str]) -> int:
+    """k when a table's head is the same k columns repeated (name–value pairs side by side: k = 2), else 0."""
+    n = len(columns)
+    for k in range(2, n // 2 + 1):
+        if n % k == 0 and list(columns) == list(columns[:k]) * (n // k):
+            return k
+    return 0
 
 
 def _split_cross_checks(items: list) -> tuple[list, list]:

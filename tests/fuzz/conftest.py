@@ -3,9 +3,10 @@ from __future__ import annotations
 
 
 def pytest_terminal_summary(terminalreporter):
-    from .harness import COUNTS
+    from .harness import CASE_SECONDS, COUNTS, SLOWEST
 
     if COUNTS["cases"]:
         terminalreporter.write_line(
             f"calcsheet fuzz: {COUNTS['cases']} cases, {COUNTS['clean']} clean, {COUNTS['located']} located "
-            f"errors, {COUNTS['crash']} crashes, {COUNTS['hang']} hangs, {COUNTS['unlocated']} unlocated")
+            f"errors, {COUNTS['crash']} crashes, {COUNTS['hang']} hangs, {COUNTS['stalled']} stalled, "
+            f"{COUNTS['unlocated']} unlocated; slowest case {SLOWEST[0]:.2f} s of CPU (budget {CASE_SECONDS:g} s)")

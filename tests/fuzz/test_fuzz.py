@@ -2,7 +2,7 @@
 `build --format json` and `diff`, in-process via the CLI's main function (issue 16, part 6).
 
 The oracle (harness.expect_sound): no Python traceback or internal error, no case past the per-case
-limit (a signal alarm), and every error line located as file:line:col. Examples are derandomized so CI
+CPU budget (a signal timer), and every error line located as file:line:col. Examples are derandomized so CI
 is repeatable and no saved example database is used; CALCSHEET_FUZZ_SCALE=10 runs ten times as many
 (and CALCSHEET_FUZZ_RANDOM=1 draws fresh ones) for a longer fuzzing session.
 """
@@ -37,7 +37,7 @@ def work(tmp_path_factory):
     mp.undo()
     c = harness.COUNTS
     print(f"\nfuzz: {c['cases']} cases, {c['clean']} clean, {c['located']} located errors, "
-          f"{c['crash']} crashes, {c['hang']} hangs, {c['unlocated']} unlocated")
+          f"{c['crash']} crashes, {c['hang']} hangs, {c['stalled']} stalled, {c['unlocated']} unlocated")
 
 
 def write(path, data) -> str:

@@ -210,13 +210,51 @@ class Mechanism(Exception):
 def banded_cholesky_solve(band: np.ndarray, rhs: np.ndarray, diag_scale: np.ndarray) -> np.ndarray:
     """Solve K u = f with K symmetric positive definite, stored as band[i, d] = K[i, i-d].
 
-    Plain-float loops: with a half-bandwidth of 4 the inner sums have at most
-    four terms, where numpy calls would cost more than the arithmetic. Cost is
-    O(n·p²). A pivot that vanishes relative to its diagonal means the structure
-    can move without resistance: that dof is reported as a mechanism.
+    The factorisation works to the bandwidth the matrix actually has (the last
+    sub-diagonal that holds a non-zero), not the storage's: a beam whose nodes
+    keep their deflection leaves only the rotations free, and their system is
+    tridiagonal. That case runs a dedicated LDLᵀ (Thomas) sweep; wider bands a
+    general banded Cholesky. Both are plain-float loops: the inner sums have
+    at most a few terms, where numpy calls would cost more than the arithmetic.
+    Cost is O(n·p²). A pivot that vanishes relative to its diagonal means the
+    structure can move without resistance: that dof is reported as a mechanism.
     """
     n, p1 = band.shape
-    p = p1 - 1
+    used = np.flatnonzero(band[:, 1:].any(axis=0)) if p1 > 1 else ()
+    p = int(used[-1]) + 1 if len(used) else 0
+    if p <= 1:
+        return _tridiagonal_solve(band, rhs, diag_scale, n, p)
+    return _banded_cholesky(band[:, : p + 1], rhs, diag_scale, n, p)
+
+
+def _tridiagonal_solve(band, rhs, diag_scale, n: int, p: int) -> np.ndarray:
+    """K = L D Lᵀ with unit lower-bidiagonal L: the pivots D are the squares of Cholesky's."""
+    a = band[:, 0].tolist()
+    b = band[:, 1].tolist() if p else [0.0] * n
+    b[0] = 0.0  # K[0, -1] does not exist
+    tol = (np.asarray(diag_scale, dtype=float) * 1e-10).tolist()
+    f = np.asarray(rhs, dtype=float).tolist()
+    d, m, y = [], [], []
+    d_prev, y_prev = 1.0, 0.0
+    for ai, bi, fi, ti in zip(a, b, f, tol):
+        mi = bi / d_prev  # L[i, i-1]
+        d_prev = ai - mi * bi
+        if not (d_prev > ti):
+            raise Mechanism(len(d))
+        y_prev = fi - mi * y_prev  # forward substitution, L y = f
+        d.append(d_prev)
+        m.append(mi)
+        y.append(y_prev)
+    x, m_next = 0.0, 0.0
+    for i in range(n - 1, -1, -1):  # D Lᵀ x = y
+        x = y[i] / d[i] - m_next * x
+        m_next = m[i]
+        y[i] = x
+    return np.array(y)
+
+
+def _banded_cholesky(band, rhs, diag_scale, n: int, p: int) -> np.ndarray:
+    p1 = p + 1
     A = band.tolist()
     scale = [float(v) for v in diag_scale]
     L = [[0.0] * p1 for _ in range(n)]  # L[i][d] = L[i, i-d]

@@ -227,21 +227,45 @@ def indeterminate(work, setup, res, degree: int, lit: Lit, hinges: int):
                         "solved beam. Moments sagging positive; V is the shear just inside each end.")
     else:
         work.note(f"The end-action table ({len(rows)} rows) is left out for length.")
-    reactions_table(work, setup, res, lit)
+    if len(res.combos) <= MANY_COMBOS:  # many: the reactions go into the equilibrium table (_equilibrium_table)
+        reactions_table(work, setup, res, lit)
 
 
-def reactions_table(work, setup, res, lit):
+def _supports(setup) -> list[int]:
+    return [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
+
+
+def _reaction(c, i, lit):
+    return lit.q(_tiny(c.sol.reactions[i], max(abs(c.sol.reactions).max(), 1e-300)), "force")
+
+
+def reactions_table(work, setup, res, lit, sums: list | None = None, title: str = "Reactions (upward positive)"):
+    """The reactions of every combination. A few combinations: a row per support, a column per combination.
+    Many (more than MANY_COMBOS): a row per combination, a column per support, so that no column group is
+    split off; ``sums`` (ΣW, ΣR, ΣW·a, ΣR·a + couples of each combination) then stand beside the reactions."""
     X = setup.model.nodes
     Ls = letters(len(X))
     u = lit.units
-    sup = [i for i, k in enumerate(setup.kinds) if k in ("pinned", "roller", "fixed", "guided", "spring")]
+    sup = _supports(setup)
     if len(sup) > 40:
         return
-    cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
-    rows = [[Ls[i], lit.q(X[i], "length")] +
-            [lit.q(_tiny(c.sol.reactions[i], max(abs(c.sol.reactions).max(), 1e-300)), "force") for c in res.combos]
-            for i in sup]
-    work.table("Reactions (upward positive)", cols, rows, units=[None, u["length"]] + [u["force"]] * len(res.combos))
+    if len(res.combos) > MANY_COMBOS and len(sup) <= 12:
+        where = "Supports at x = " + ", ".join(f"{Ls[i]}: {num(lit.value(X[i], 'length'))} {u['length']}"
+                                               for i in sup) + "."
+        extra = ["ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"] if sums else []
+        work.table(title, ["Combination"] + [f"R_{Ls[i]}" for i in sup] + extra,
+                   [[c.combo.name] + [_reaction(c, i, lit) for i in sup] + (sums[k] if sums else [])
+                    for k, c in enumerate(res.combos)],
+                   units=[None] + [u["force"]] * len(sup) + ([u["force"], u["force"], u["moment"], u["moment"]]
+                                                            if sums else []),
+                   note=where + (" Reactions upward positive. ΣW: the total factored load, ΣW·a its moment "
+                                 "(from the loads table); ΣR·a + couples: the moment of the reactions." if sums
+                                 else ""))
+    else:
+        cols = ["Support", "x"] + [f"R, {c.combo.name}" for c in res.combos]
+        rows = [[Ls[i], lit.q(X[i], "length")] + [_reaction(c, i, lit) for c in res.combos] for i in sup]
+        work.table("Reactions (upward positive)", cols, rows,
+                   units=[None, u["length"]] + [u["force"]] * len(res.combos))
     fixed = [i for i in sup if setup.kinds[i] in ("fixed", "guided")]
     if fixed:
         work.table("Support moments (bending moment in the member at the support, sagging positive)",
@@ -282,22 +306,28 @@ def equilibrium_check(work, setup, res, lit: Lit):
 
 
 def _equilibrium_table(work, setup, res, lit: Lit, X, iA: int, A: str):
-    """Many combinations: ΣF_y and ΣM for each in one table, and the largest residual checked in the working."""
+    """Many combinations: the reactions, ΣF_y and ΣM of each in one table (a row per combination), and the
+    largest residual checked in the working."""
     fu, mu = lit.units["force"], lit.units["moment"]
     case_loads = setup.case_loads()
-    rows, worst = [], None
+    sums, worst = [], None
     for cr in res.combos:
         W = sum(f * ld.force() for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
         MW = sum(f * ld.moment_about(X[iA]) for c, f in cr.combo.factors.items() for ld in case_loads.get(c, []))
         R = float(cr.sol.reactions.sum())
         MR = float((cr.sol.reactions * (X - X[iA])).sum() + cr.sol.reaction_moments.sum())
-        rows.append([cr.combo.name, lit.q(W, "force"), lit.q(R, "force"), lit.q(MW, "moment"), lit.q(MR, "moment")])
+        sums.append([lit.q(W, "force"), lit.q(R, "force"), lit.q(MW, "moment"), lit.q(MR, "moment")])
         rel = max(abs(R - W) / (abs(W) + 1e3), abs(MR - MW) / (abs(MW) + 1e3))
         if worst is None or rel > worst[0]:
             worst = (rel, cr, W, R, MW, MR)
-    work.table(f"Equilibrium by combination (factored loads from the loads table; moments about {A}, "
-               f"clockwise positive)", ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"], rows,
-               units=[None, fu, fu, mu, mu])
+    title = (f"Equilibrium by combination: the reactions, and their sum against the factored loads (moments about "
+             f"{A}, clockwise positive)")
+    if len(_supports(setup)) <= 12:
+        reactions_table(work, setup, res, lit, sums=sums, title=title)
+    else:  # too many supports to stand beside the sums: the reactions in their own table
+        reactions_table(work, setup, res, lit)
+        work.table(title, ["Combination", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"],
+                   [[cr.combo.name] + row for cr, row in zip(res.combos, sums)], units=[None, fu, fu, mu, mu])
     _, cr, W, R, MW, MR = worst
     work.let("W_tot", lit.q(W, "force"), unit=fu, desc=f"total factored load ({cr.combo.name}, the largest "
                                                           f"residual in the table)", note="Σ factor × load")

@@ -83,13 +83,13 @@ def _boundary_points(ring: P.Ring, per_edge: int = 8):
     """Vertices and points along every edge (subsampled rings of arcs keep their density)."""
     r = _sample(ring, 512)
     x0, y0 = r.x, r.y
-    x1, y1 = np.roll(r.x, -1), np.roll(r.y, -1)
-    t = np.linspace(0, 1, per_edge, endpoint=False)[None, :]
+    x1, y1 = P._next(r.x), P._next(r.y)
+    t = (np.arange(per_edge) / per_edge)[None, :]
     return (x0[:, None] + t * (x1 - x0)[:, None]).ravel(), (y0[:, None] + t * (y1 - y0)[:, None]).ravel()
 
 
-def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
-    """Points inside the shape's material (strict: farther than tol from every boundary)."""
+def _inside(px, py, shape: Shape) -> np.ndarray:
+    """Points inside the shape's material (points on a boundary may go either way)."""
     inside = np.zeros(len(px), bool)
     for r in shape.rings:
         if r.sign > 0:
@@ -97,10 +97,33 @@ def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
     for r in shape.rings:
         if r.sign < 0:
             inside &= ~P.point_in_ring(px, py, r)
+    return inside
+
+
+def _near(px, py, shape: Shape, tol: float) -> np.ndarray:
+    """Points within tol of one of the shape's boundaries."""
     near = np.zeros(len(px), bool)
     for r in shape.rings:
         near |= P.distance_to_ring(px, py, _sample(r, 1024)) <= tol
+    return near
+
+
+def _in_material(px, py, shape: Shape, tol: float, strict: bool) -> np.ndarray:
+    """Points inside the shape's material (strict: farther than tol from every boundary).
+
+    Distances to the boundary are measured only when they can change the answer: strict, when some point
+    is inside; otherwise, when some point is not.
+    """
+    inside = _inside(px, py, shape)
+    if (not inside.any()) if strict else inside.all():
+        return inside
+    near = _near(px, py, shape, tol)
     return inside & ~near if strict else inside | near
+
+
+def _inside_near(px, py, shape: Shape, tol: float) -> tuple[np.ndarray, np.ndarray]:
+    """For each point: inside the shape's material, and within tol of one of its boundaries."""
+    return _inside(px, py, shape), _near(px, py, shape, tol)
 
 
 def _rows_centroid(shape: Shape):
@@ -114,14 +137,13 @@ def _overlap(a: Shape, b: Shape, tol: float) -> bool:
             if P.segments_cross(_sample(ra), _sample(rb), tol):
                 return True
     for u, v in ((a, b), (b, a)):
-        pts = [np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])]
+        vert = _sample(P.Ring(np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])), 512)
         cx, cy = _rows_centroid(u)
-        px, py = np.concatenate([_sample(P.Ring(pts[0], pts[1]), 512).x, cx]), np.concatenate(
-            [_sample(P.Ring(pts[0], pts[1]), 512).y, cy])
+        px, py = np.concatenate([vert.x, cx]), np.concatenate([vert.y, cy])
         if _in_material(px, py, v, tol, strict=True).any() and _in_material(cx, cy, u, tol, strict=True).any():
             # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
-            vx, vy = _sample(P.Ring(pts[0], pts[1]), 512).x, _sample(P.Ring(pts[0], pts[1]), 512).y
-            if _in_material(vx, vy, v, tol, strict=True).any() or _in_material(cx, cy, v, tol, strict=True).any():
+            if _in_material(vert.x, vert.y, v, tol, strict=True).any() or _in_material(cx, cy, v, tol,
+                                                                                     strict=True).any():
                 return True
     return False
 
@@ -136,6 +158,25 @@ def _gap(a: Shape, b: Shape) -> float:
             best = min(best, float(P.distance_to_ring(sa.x, sa.y, sb).min()),
                        float(P.distance_to_ring(sb.x, sb.y, sa).min()))
     return best
+
+
+def _box(rings) -> tuple[float, float, float, float]:
+    """(x_min, x_max, y_min, y_max) of the rings' vertices (of all of them: -inf..inf boxes for none)."""
+    rings = list(rings)
+    if not rings:
+        return (math.inf, -math.inf, math.inf, -math.inf)
+    return (min(float(r.x.min()) for r in rings), max(float(r.x.max()) for r in rings),
+            min(float(r.y.min()) for r in rings), max(float(r.y.max()) for r in rings))
+
+
+def _apart(a, b, d: float) -> bool:
+    """The boxes are more than ``d`` apart along x or along y: no point of one is within d of the other.
+
+    The pairwise tests below only look for material of one shape inside, across or within a distance of
+    another, all of which need the boxes to come that close; a pair whose boxes do not is skipped with
+    the same answer the full test gives, so a section of many parts costs little more than its neighbours.
+    """
+    return a[1] + d < b[0] or b[1] + d < a[0] or a[3] + d < b[2] or b[3] + d < a[2]
 
 
 def _collapse(name: str, shape: Shape, sign: int, n: float, rho) -> Row:
@@ -182,9 +223,10 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
         return p.E / E_ref
 
     warnings: list[tuple[str, str | None]] = []
+    box = [_box(p.shape.rings) for p in solids]  # a shape's material lies inside its outer rings' box
     for i in range(len(solids)):
         for j in range(i + 1, len(solids)):
-            if _overlap(solids[i].shape, solids[j].shape, tol + sag):
+            if not _apart(box[i], box[j], 0.0) and _overlap(solids[i].shape, solids[j].shape, tol + sag):
                 raise ShapeError(f"parts '{solids[i].name}' and '{solids[j].name}' overlap: material would count "
                                  "twice (cut a hole in one where the other sits)", "parts")
     # connectivity (union-find over touching parts)
@@ -196,9 +238,10 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
             k = parent[k]
         return k
 
+    outer = [_box(r for r in p.shape.rings if r.sign > 0) for p in solids]  # _gap measures between these
     for i in range(len(solids)):
         for j in range(i + 1, len(solids)):
-            if _gap(solids[i].shape, solids[j].shape) <= touch_tol:
+            if not _apart(outer[i], outer[j], touch_tol) and _gap(solids[i].shape, solids[j].shape) <= touch_tol:
                 parent[root(i)] = root(j)
     groups = {}
     for k in range(len(solids)):
@@ -215,35 +258,43 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
         rings += [P.Ring(r.x, r.y, r.sign, r.n * n) for r in p.shape.rings]
         n_rows.append(n)
         owner.append(k)
+    hole_box = [_box(h.shape.rings) for h in holes]
     for h_i, h in enumerate(holes):
         solid_rings = [r for r in h.shape.rings if r.sign > 0]
-        px = np.concatenate([_boundary_points(r)[0] for r in solid_rings])
-        py = np.concatenate([_boundary_points(r)[1] for r in solid_rings])
-        where = np.full(len(px), -1)
-        for k, p in enumerate(solids):
-            m = _in_material(px, py, p.shape, touch_tol, strict=False) & (where < 0)
-            where[m] = k
-        if (where < 0).any():
-            bad = int(np.argmax(where < 0))
-            raise ShapeError(f"hole '{h.name}' is not fully inside the material (its edge passes ({px[bad]:.4g}, "
-                             f"{py[bad]:.4g}) mm, outside every part)", "parts")
+        edge_points = [_boundary_points(r) for r in solid_rings]
+        px = np.concatenate([e[0] for e in edge_points])
+        py = np.concatenate([e[1] for e in edge_points])
+        hb = hole_box[h_i]
         # the material a hole cuts: parts holding its centroid or its boundary points strictly
         # (a boundary point on the line where two parts touch belongs to neither)
         cx, cy = _rows_centroid(h.shape)
         qx, qy = np.concatenate([px, cx]), np.concatenate([py, cy])
-        cut = [k for k, p in enumerate(solids) if _in_material(qx, qy, p.shape, touch_tol, strict=True).any()]
+        where = np.full(len(px), -1)
+        cut = []
+        for k, p in enumerate(solids):
+            if _apart(hb, box[k], touch_tol):  # no point of the hole is in or near this part
+                continue
+            inside, near = _inside_near(qx, qy, p.shape, touch_tol)
+            m = (inside | near)[:len(px)] & (where < 0)  # the boundary points in the material, or on its edge
+            where[m] = k
+            if (inside & ~near).any():
+                cut.append(k)
+        if (where < 0).any():
+            bad = int(np.argmax(where < 0))
+            raise ShapeError(f"hole '{h.name}' is not fully inside the material (its edge passes ({px[bad]:.4g}, "
+                             f"{py[bad]:.4g}) mm, outside every part)", "parts")
         cut = cut or sorted(set(where.tolist()))
         ns = {n_of(solids[k]) for k in cut}
         if len(ns) > 1:
             raise ShapeError(f"hole '{h.name}' crosses parts of different materials: split it into one hole per part",
                              "parts")
-        for other in holes[:h_i]:
-            if _overlap(h.shape, other.shape, tol + sag):
+        for o_i, other in enumerate(holes[:h_i]):
+            if not _apart(hb, hole_box[o_i], 0.0) and _overlap(h.shape, other.shape, tol + sag):
                 raise ShapeError(f"holes '{other.name}' and '{h.name}' overlap: material would be removed twice",
                                  "parts")
         for p in solids:
             for r in p.shape.rings:
-                if r.sign < 0:
+                if r.sign < 0 and not _apart(hb, _box([r]), 0.0):
                     void = replace(p.shape, rings=[P.Ring(r.x, r.y, 1, 1.0)])
                     if _overlap(h.shape, void, tol + sag):
                         raise ShapeError(f"hole '{h.name}' overlaps the open inside of part '{p.name}'", "parts")

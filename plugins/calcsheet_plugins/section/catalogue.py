@@ -31,9 +31,13 @@ AISC_FILES = {"W": ("W", "I"), "M": ("M", "I"), "S": ("S", "I-tapered"), "HP": (
 
 
 # S shapes, ST tees and C channels: inner flange faces slope 2 in 12 (16-2/3 %), t_f the average thickness, at the
-# middle of the outstand (AISC Manual, 16th ed., Part 1; # from memory). MC slopes vary by size and are not
-# tabulated: modelled with parallel flanges.
+# middle of the outstand (AISC Manual, 16th ed., Part 1; # from memory; C12X20.7's 0.723/0.280 in at root/tip in the
+# 1923 Carnegie pocket companion agrees). MC slopes vary by size and are not tabulated: each MC row's slope is derived
+# from its own values (aisc_v16_derived.csv); an MC without a derived row would keep parallel flanges (model "C").
 AISC_FLANGE_SLOPE = 2 / 12
+# S, C and MC toe radii (not tabulated): half the root radius, the proportion of taper-flange channels to DIN 1026-1
+# (en_upn.csv: r2 = r1/2; # common practice); see tools/derive_aisc_profiles.py
+AISC_TOE_RATIO = 0.5
 # UPN (DIN 1026-1): 8 % for h <= 300 mm, t_f at b/2 from the back of the web; 5 % above, t_f at the middle of the
 # outstand (# from memory; the same rule as structuralcodes 0.7.2 builds)
 UPN_SLOPES = ((300.0, 0.08, "half"), (float("inf"), 0.05, "outstand"))
@@ -52,6 +56,7 @@ class Entry:
     raw: dict[str, str] = field(default_factory=dict)  # the table row as printed, with its units
     units: dict[str, str] = field(default_factory=dict)
     derived: dict[str, str] = field(default_factory=dict)  # values not in the table, computed here: name -> how
+    derived_profile: dict | None = None  # radii (and slope) derived from the table's values (aisc_v16_derived.csv)
 
 
 def key(text: str) -> str:
@@ -149,6 +154,15 @@ def _aisc_entries():
                                              AISC_FLANGE_SLOPE)
                 elif g.get("k") is not None:
                     dims["r"] = max(g["k"] - g["tf"], 0.0) * IN  # k_des = t_f + r
+                fit = derived_profiles().get(raw)
+                if fit is not None:  # radii (and an MC's slope) derived from the table's own values
+                    dims.update(r=fit["r"] * IN, r_toe=fit["r_toe"] * IN)
+                    if family == "MC":  # S and C keep their exact 2-in-12 slope
+                        e.model = "C-tapered"
+                        dims["slope"] = fit["slope"]
+                    if family == "M":
+                        dims.pop("r_toe")
+                    e.derived_profile = fit
             elif model == "2L":
                 put("d", "d", IN)
                 put("b_f", "b", IN)
@@ -172,11 +186,31 @@ def _aisc_entries():
                 put("t", "tdes", IN)
                 dims.update(d=g["OD"] * IN, t=g["tdes"] * IN)
             out.append(e)
+    parents = {(e.family, e.raw["bf"], e.raw["tf"], e.raw["tw"], e.raw["k"]): e for e in out if e.family in ("S", "M")}
+    for e in out:
+        if e.family in ("ST", "MT"):  # a tee cut from an S or M shape takes its parent's derived radii
+            p = parents.get((e.family[0], e.raw["bf"], e.raw["tf"], e.raw["tw"], e.raw["k"]))
+            if p is not None and abs(float(p.raw["weight"]) - 2 * float(e.raw["weight"])) < 0.1:  # half of it (rounded)
+                e.dims["r"] = p.dims["r"]
+                if "r_toe" in p.dims:
+                    e.dims["r_toe"] = p.dims["r_toe"]
+                e.derived_profile = dict(p.derived_profile, parent=p.designation)
     singles = {e.raw["shape"]: e for e in out if e.family == "L"}
     for e in out:
         if e.family == "2L":  # the root radius of the single angle's row (the double-angle table has no k)
             L = singles[e.dims.pop("single")]
             e.dims["r"] = L.dims["r"]
+    return out
+
+
+@lru_cache(maxsize=1)
+def derived_profiles() -> dict[str, dict]:
+    """Root and toe radii (and the MC slopes) that the AISC table does not give, derived from its own A, I_x, I_y and
+    x̄ by tools/derive_aisc_profiles.py (method in that file and in the data file's header): shape -> values (in)."""
+    out = {}
+    for row in _rows(HERE / "aisc_v16_derived.csv"):
+        out[row["shape"]] = {"slope": float(row["slope"]), "r": float(row["r"]), "r_toe": float(row["r_toe"]),
+                             "r_k": float(row["r_k"]), "fitted": row["fitted"].split(), "fit": float(row["fit"])}
     return out
 
 
@@ -211,11 +245,11 @@ def _upn_entries():
         e.dims.update(h=g["h"], b=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"], r_toe=g["r2"], slope=slope, u=u)
         e.values.update(d=g["h"], b_f=g["b"], t_f=g["t_f"], t_w=g["t_w"], r=g["r1"])
         # the nominal mass, so a UPN can be ranked by weight (--from UPN): ρ·A of the model's own parts table
-        from .fillets import tapered_channel
+        from .fillets import tapered_channel_rows
         from .properties import tabular
 
         d = e.dims
-        A = tabular(tapered_channel(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u).rows).A
+        A = tabular(tapered_channel_rows(d["h"], d["b"], d["t_f"], d["t_w"], d["r"], slope, d["r_toe"], u)[0]).A
         e.values["mass"] = STEEL_DENSITY * A * 1e-6
         e.derived["mass"] = "ρ·A of the geometric model, steel at 7850 kg/m³"
         out.append(e)

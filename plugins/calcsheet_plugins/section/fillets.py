@@ -406,10 +406,10 @@ def tapered_ishape(h: float, b: float, t_f: float, t_w: float, r: float, slope: 
     )
 
 
-def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
-                    u: float | None = None) -> Shape:
-    """Channel with tapered flanges, web on the left: inner faces at ``slope``, t_f measured at u from the toe
-    (default the middle of the outstand b − t_w), root fillets r and toe radii r_toe (0: sharp toes)."""
+def tapered_channel_rows(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                         u: float | None = None):
+    """The parts table of ``tapered_channel`` (no outline, no warping): (rows, outline corners and radii, lumped
+    corners, u)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = b - t_w
     u = o / 2 if u is None else u
@@ -424,12 +424,25 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
             _rect_row("top flange, toe thickness", t_w, h - t_toe, o, t_toe),
             triangle_row("bottom taper", (t_w, t_toe), (b, t_toe), (t_w, t_root)),
             triangle_row("top taper", (t_w, h - t_toe), (b, h - t_toe), (t_w, h - t_root))]
+    corners = []
     if r > 0:
-        for k in (3, 4):
-            rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+        for k, where in ((3, "bottom"), (4, "top")):
+            rows += _toe_rows(f"root fillet, {where}", pts, k, r, 1)
+            corners.append(_lumped(f"root fillet, {where}", rows[-3:]))
     if r_toe > 0:
-        for k in (2, 5):
-            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
+        for k, where in ((2, "bottom"), (5, "top")):
+            rows += _toe_rows(f"toe radius, {where}", pts, k, r_toe)
+            corners.append(_lumped(f"toe radius, {where}", rows[-3:]))
+    return rows, (pts, radii), corners, u
+
+
+def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, r_toe: float = 0.0,
+                    u: float | None = None) -> Shape:
+    """Channel with tapered flanges, web on the left: inner faces at ``slope``, t_f measured at u from the toe
+    (default the middle of the outstand b − t_w), root fillets r and toe radii r_toe (0: sharp toes)."""
+    rows, (pts, radii), corners, u = tapered_channel_rows(h, b, t_f, t_w, r, slope, r_toe, u)
+    walls, lumps = WP.tapered_channel_walls(h, b, t_f, t_w, slope, u, corners)
+    res = WP.sectorial(walls, lumps)
     return Shape(
         "channel", f"channel, tapered flanges h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
                    + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm",
@@ -437,37 +450,52 @@ def tapered_channel(h: float, b: float, t_f: float, t_w: float, r: float, slope:
         J_method=THIN_OPEN_TAPER, J_steps=[Step("J", "(2*b*t_f^3 + (h - 2*t_f)*t_w^3)/3", "mm^4",
                                                 "torsion constant (thin-walled, mean flange thickness)")],
         dims=[Dimension(0, 0, b, 0, _fmt(b), -1), Dimension(0, h, 0, 0, _fmt(h), -1)],
-        has_arcs=True, warping=WP.channel(), symmetry="horizontal",
+        has_arcs=True, symmetry="horizontal",
+        warping=[Step("h_o", "h - t_f", "mm", "distance between the flange centroids h' (mean thickness)")]
+        + WP.sectorial_steps(res, WP.SECTORIAL_METHOD), sectorial=(walls, lumps, res),
     )
+
+
+def _lumped(name, rows):
+    """(name, signed area, centroid) of a corner's rows (two triangles less a sector), for the centre-line model."""
+    A = sum(r.sign * r.A for r in rows)
+    return (name, A, sum(r.sign * r.A * r.x for r in rows) / A, sum(r.sign * r.A * r.y for r in rows) / A)
 
 
 THIN_OPEN_TAPER = ("Saint-Venant's thin-walled open-section sum J = Σ b·t³/3 with the flanges at their mean "
                    "thickness (taper and fillets ignored in J)")
 
 
-def tapered_tee(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, u: float | None = None) -> Shape:
+def tapered_tee(h: float, b: float, t_f: float, t_w: float, r: float, slope: float, u: float | None = None,
+                r_toe: float = 0.0) -> Shape:
     """Tee cut from a tapered-flange I (flange on top): inner flange faces at ``slope``, t_f measured at u from the
-    toe (default the middle of the outstand), two root fillets r; toe radii not modelled."""
+    toe (default the middle of the outstand), two root fillets r and toe radii r_toe (0: sharp toes)."""
     _positive(h=h, b=b, t_f=t_f, t_w=t_w)
     o = (b - t_w) / 2
     u = o / 2 if u is None else u
     t_toe, t_root = _taper(t_f, o, slope, u)
     if t_toe <= 0 or t_root >= h or not 0 <= u <= o:
         raise ShapeError("the tapered flange does not fit these dimensions", "t_f")
+    if r_toe < 0 or r_toe >= t_toe:
+        raise ShapeError(f"toe radius {_fmt(r_toe)} mm does not fit the flange toe ({_fmt(t_toe)} mm)", "r_toe")
     xl, xr = (b - t_w) / 2, (b + t_w) / 2
     pts = [(xl, 0), (xr, 0), (xr, h - t_root), (b, h - t_toe), (b, h), (0, h), (0, h - t_toe), (xl, h - t_root)]
-    radii = [0, 0, r, 0, 0, 0, 0, r]
+    radii = [0, 0, r, r_toe, 0, 0, r_toe, r]
     rows = [_rect_row("stem", xl, 0, t_w, h - t_toe), _rect_row("flange, toe thickness", 0, h - t_toe, b, t_toe),
             triangle_row("taper, right", (xr, h - t_toe), (b, h - t_toe), (xr, h - t_root)),
             triangle_row("taper, left", (xl, h - t_toe), (0, h - t_toe), (xl, h - t_root))]
     if r > 0:
         for k in (2, 7):
             rows += _toe_rows(f"root fillet {k}", pts, k, r, 1)
+    if r_toe > 0:
+        for k in (3, 6):
+            rows += _toe_rows(f"toe radius {k}", pts, k, r_toe)
     hs = h - t_f
     alpha, D = dj_alpha_D(t_f, t_w, r)
     J = b * t_f**3 / 3 - 0.21 * t_f**4 + hs * t_w**3 / 3 - 0.105 * t_w**4 + alpha * D**4
     return Shape(
-        "tee", f"tee, tapered flange h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)} mm", rows,
+        "tee", f"tee, tapered flange h={_fmt(h)} b={_fmt(b)} t_f={_fmt(t_f)} t_w={_fmt(t_w)} r={_fmt(r)}"
+               + (f" r_toe={_fmt(r_toe)}" if r_toe else "") + " mm", rows,
         [make_ring(rounded_any(pts, radii))], J=J,
         J_method="one flange-stem junction of a rolled I (El Darwish & Johnston 1965), the flange at its mean "
                  "thickness t_f",

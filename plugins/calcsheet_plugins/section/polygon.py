@@ -85,9 +85,11 @@ class Moments:
 ZERO = Moments(0.0, 0.0, 0.0, 0.0, 0.0, 0.0)
 
 
-def _edge_moments(x0, y0, x1, y1) -> Moments:
-    """Sum of the exact per-edge Green terms for edges (x0,y0)->(x1,y1)."""
+def _edge_moments(x0, y0, x1, y1, w=None) -> Moments:
+    """Sum of the exact per-edge Green terms for edges (x0,y0)->(x1,y1), each times its ring's weight ``w``."""
     c = x0 * y1 - x1 * y0
+    if w is not None:
+        c *= w
     A = c.sum() / 2.0
     Sy = _dot(x0 + x1, c) / 6.0
     Sx = _dot(y0 + y1, c) / 6.0
@@ -118,12 +120,47 @@ def shift_moments(m: Moments, ox: float, oy: float) -> Moments:
     )
 
 
+def _flat(rings):
+    """All rings' vertices end to end: (x, y, index of each vertex's next one in its own ring, counts, starts)."""
+    counts = np.array([len(r.x) for r in rings])
+    ends = np.cumsum(counts)
+    starts = ends - counts
+    x = np.concatenate([r.x for r in rings])
+    y = np.concatenate([r.y for r in rings])
+    nxt = np.arange(1, len(x) + 1)
+    nxt[ends - 1] = starts  # the last vertex of a ring closes it to its first
+    return x, y, nxt, counts, starts
+
+
 def region_moments(rings, weighted: bool = True) -> Moments:
-    total = ZERO
-    for r in rings:
-        w = r.weight if weighted else r.sign
-        total = total + ring_moments(r.x, r.y).scaled(w)
-    return total
+    """Σ weight · moments of each ring, each ring integrated about its own mean vertex (as ``ring_moments``).
+
+    Several rings (a built-up section, a shape with holes) go through together: one vectorised pass over
+    all their edges, summed per ring with ``np.add.reduceat``, then moved to the origin and weighted.
+    """
+    rings = list(rings)
+    if len(rings) <= 2:
+        total = ZERO
+        for r in rings:
+            w = r.weight if weighted else r.sign
+            total = total + ring_moments(r.x, r.y).scaled(w)
+        return total
+    x, y, nxt, counts, starts = _flat(rings)
+    ox = np.add.reduceat(x, starts) / counts
+    oy = np.add.reduceat(y, starts) / counts
+    w = np.array([float(r.weight if weighted else r.sign) for r in rings])
+    ex, ey = np.repeat(ox, counts), np.repeat(oy, counts)
+    x0, y0 = x - ex, y - ey
+    x1, y1 = x0[nxt], y0[nxt]
+    c = x0 * y1 - x1 * y0
+    terms = np.stack([c / 2.0, (y0 + y1) * c / 6.0, (x0 + x1) * c / 6.0,
+                      (y0 * y0 + y0 * y1 + y1 * y1) * c / 12.0, (x0 * x0 + x0 * x1 + x1 * x1) * c / 12.0,
+                      (x0 * (2.0 * y0 + y1) + x1 * (y0 + 2.0 * y1)) * c / 24.0])
+    A, Sx, Sy, Ixx, Iyy, Ixy = np.add.reduceat(terms, starts, axis=1)  # per ring, about its own mean vertex
+    # shift_moments, ring by ring, then weighted
+    moved = (A, Sx + oy * A, Sy + ox * A, Ixx + 2 * oy * Sx + oy * oy * A, Iyy + 2 * ox * Sy + ox * ox * A,
+             Ixy + ox * Sx + oy * Sy + ox * oy * A)
+    return Moments(*(float(np.dot(w, m)) for m in moved))
 
 
 @dataclass(frozen=True)
@@ -145,50 +182,65 @@ def centroidal(m: Moments) -> CentroidalProps:
     )
 
 
+_CHUNK = 8000  # vertices per block: the work arrays stay in cache, and each dot product stays below _dot's limit
+
+
 def polygon_properties(x: np.ndarray, y: np.ndarray) -> CentroidalProps:
     """Area, centroid and centroidal second moments of one simple polygon (either orientation).
 
-    The fast path for large outlines: one set of vectorised passes about the first
-    vertex (centroidal values do not depend on the origin, and a local origin keeps
+    The fast path for large outlines: vectorised passes about the first vertex
+    (centroidal values do not depend on the origin, and a local origin keeps
     the products small), with the per-edge Green terms rewritten in sums
     sx = x0 + x1, sy = y0 + y1 so each moment is one or two dot products.
+    The vertices go through in blocks of ``_CHUNK``: six small work arrays,
+    reused, stay in the processor's cache, where whole-length temporaries
+    would go out to memory and back on every pass; the blocks' sums add up.
     """
     x = np.asarray(x, float)
     y = np.asarray(y, float)
-    ox, oy = x[0], y[0]
     n = len(x)
-    # five work arrays, reused (large temporaries cost more in page faults than in arithmetic)
-    x0 = np.subtract(x, ox)
-    y0 = np.subtract(y, oy)
-    x1 = np.empty(n)
-    x1[:-1] = x0[1:]
-    x1[-1] = x0[0]
-    y1 = np.empty(n)
-    y1[:-1] = y0[1:]
-    y1[-1] = y0[0]
-    c = np.multiply(x0, y1)
-    t = np.multiply(x1, y0)
-    c -= t
-    A2 = c.sum()  # 2A
-    # y0² + y0·y1 + y1² = sy² − y0·y1;  x likewise;  2x0y0 + x0y1 + x1y0 + 2x1y1 = sx·sy + x0y0 + x1y1
-    np.multiply(x0, x1, out=t)
-    Iyy12 = -_dot(t, c)
-    np.multiply(y0, y1, out=t)
-    Ixx12 = -_dot(t, c)
-    np.multiply(x0, y0, out=t)
-    Ixy24 = _dot(t, c)
-    np.multiply(x1, y1, out=t)
-    Ixy24 += _dot(t, c)
-    sx = np.add(x0, x1, out=x1)  # x1, y1 no longer needed
-    sy = np.add(y0, y1, out=y1)
-    Sy6 = _dot(sx, c)  # 6 ∬x dA
-    Sx6 = _dot(sy, c)
-    np.multiply(sx, sx, out=t)
-    Iyy12 += _dot(t, c)
-    np.multiply(sy, sy, out=t)
-    Ixx12 += _dot(t, c)
-    np.multiply(sx, sy, out=t)
-    Ixy24 += _dot(t, c)
+    ox, oy = x[0], y[0]
+    m = min(_CHUNK, n)
+    x0, y0, x1, y1, c, t = (np.empty(m) for _ in range(6))
+    dot = np.dot  # blocks are shorter than _dot's limit: BLAS's own, unthreaded at this length
+    A2 = Sy6 = Sx6 = Ixx12 = Iyy12 = Ixy24 = 0.0
+    for s in range(0, n, _CHUNK):
+        e = min(s + _CHUNK, n)
+        if e - s != m:  # the last, shorter block
+            m = e - s
+            x0, y0, x1, y1, c, t = (a[:m] for a in (x0, y0, x1, y1, c, t))
+        np.subtract(x[s:e], ox, out=x0)
+        np.subtract(y[s:e], oy, out=y0)
+        if e < n:  # the next vertex of each; the last vertex's next is the first, (0, 0) about itself
+            np.subtract(x[s + 1:e + 1], ox, out=x1)
+            np.subtract(y[s + 1:e + 1], oy, out=y1)
+        else:
+            np.subtract(x[s + 1:e], ox, out=x1[:-1])
+            np.subtract(y[s + 1:e], oy, out=y1[:-1])
+            x1[-1] = y1[-1] = 0.0
+        np.multiply(x0, y1, out=c)
+        np.multiply(x1, y0, out=t)
+        c -= t
+        A2 += c.sum()  # 2A
+        # y0² + y0·y1 + y1² = sy² − y0·y1;  x likewise;  2x0y0 + x0y1 + x1y0 + 2x1y1 = sx·sy + x0y0 + x1y1
+        np.multiply(x0, x1, out=t)
+        Iyy12 -= dot(t, c)
+        np.multiply(y0, y1, out=t)
+        Ixx12 -= dot(t, c)
+        np.multiply(x0, y0, out=t)
+        Ixy24 += dot(t, c)
+        np.multiply(x1, y1, out=t)
+        Ixy24 += dot(t, c)
+        sx = np.add(x0, x1, out=x1)  # x1, y1 no longer needed
+        sy = np.add(y0, y1, out=y1)
+        Sy6 += dot(sx, c)  # 6 ∬x dA
+        Sx6 += dot(sy, c)
+        np.multiply(sx, sx, out=t)
+        Iyy12 += dot(t, c)
+        np.multiply(sy, sy, out=t)
+        Ixx12 += dot(t, c)
+        np.multiply(sx, sy, out=t)
+        Ixy24 += dot(t, c)
     if A2 < 0:
         A2, Sy6, Sx6, Ixx12, Iyy12, Ixy24 = -A2, -Sy6, -Sx6, -Ixx12, -Iyy12, -Ixy24
     A = A2 / 2
@@ -200,32 +252,49 @@ def polygon_properties(x: np.ndarray, y: np.ndarray) -> CentroidalProps:
 # ---------------------------------------------------------------- cuts at a line
 
 
-def _moments_above(rings, c: float, weighted: bool = True) -> Moments:
+def _edges(rings, weighted: bool = True):
+    """Every edge of the region as flat arrays (x0, y0, x1, y1, weight): one pass covers all the rings.
+
+    The weight is one float when every ring has the same (one outline; plates of one material).
+    """
+    if not rings:
+        e = np.zeros(0)
+        return e, e, e, e, 1.0
+    ws = [float(r.weight if weighted else r.sign) for r in rings]
+    if len(rings) == 1:
+        r = rings[0]
+        return r.x, r.y, _next(r.x), _next(r.y), ws[0]
+    x, y, nxt, counts, _ = _flat(rings)
+    w = ws[0] if all(v == ws[0] for v in ws) else np.repeat(np.array(ws), counts)
+    return x, y, x[nxt], y[nxt], w
+
+
+def _moments_above(rings, c: float, weighted: bool = True, edges=None) -> Moments:
     """Moments, about the line y = c (and x = 0), of the part of the region with y >= c.
 
     In coordinates shifted so the cut is y' = 0, every Green edge term carries the
     factor x0*y1' - x1*y0', which vanishes for the closing segments along y' = 0;
     clipping each edge to y' >= 0 is therefore enough — no polygon reassembly.
+    All rings' edges are clipped in one vectorised pass (``edges``, from ``_edges``, when the caller
+    cuts the same region many times).
     """
-    total = ZERO
-    for r in rings:
-        x0 = r.x
-        y0 = r.y - c
-        x1, y1 = _next(x0), _next(y0)
-        in0, in1 = y0 >= 0, y1 >= 0
-        dy = y1 - y0
-        with np.errstate(divide="ignore", invalid="ignore"):
-            t = np.where(dy != 0, -y0 / dy, 0.0)
-        xi = x0 + t * (x1 - x0)
-        # clipped endpoints
-        ax = np.where(in0, x0, xi)
-        ay = np.where(in0, y0, 0.0)
-        bx = np.where(in1, x1, xi)
-        by = np.where(in1, y1, 0.0)
-        keep = in0 | in1
-        m = _edge_moments(ax[keep], ay[keep], bx[keep], by[keep])
-        total = total + m.scaled(r.weight if weighted else r.sign)
-    return total
+    x0, y0, x1, y1, w = _edges(rings, weighted) if edges is None else edges
+    y0 = y0 - c
+    y1 = y1 - c
+    in0, in1 = y0 >= 0, y1 >= 0
+    dy = y1 - y0
+    with np.errstate(divide="ignore", invalid="ignore"):
+        t = np.where(dy != 0, -y0 / dy, 0.0)
+    xi = x0 + t * (x1 - x0)
+    # clipped endpoints
+    ax = np.where(in0, x0, xi)
+    ay = np.where(in0, y0, 0.0)
+    bx = np.where(in1, x1, xi)
+    by = np.where(in1, y1, 0.0)
+    keep = in0 | in1
+    if isinstance(w, float):
+        return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep]).scaled(w)
+    return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep], w[keep])
 
 
 def _swap(rings):
@@ -233,8 +302,8 @@ def _swap(rings):
     return [Ring(r.y[::-1].copy(), r.x[::-1].copy(), r.sign, r.n) for r in rings]
 
 
-def area_above(rings, c: float, weighted: bool = True) -> float:
-    return _moments_above(rings, c, weighted).A
+def area_above(rings, c: float, weighted: bool = True, edges=None) -> float:
+    return _moments_above(rings, c, weighted, edges).A
 
 
 def first_moment_above(rings, c: float, weighted: bool = True) -> float:
@@ -251,18 +320,19 @@ def plastic_axis(rings, weighted: bool = True) -> float:
     """
     total = region_moments(rings, weighted).A
     half = total / 2.0
-    ys = np.unique(np.concatenate([r.y for r in rings]))
+    edges = _edges(rings, weighted)
+    ys = np.unique(edges[1])
     lo, hi = 0, len(ys) - 1  # area_above(ys[lo]) >= half >= area_above(ys[hi])
     while hi - lo > 1:
         mid = (lo + hi) // 2
-        if area_above(rings, ys[mid], weighted) >= half:
+        if area_above(rings, ys[mid], weighted, edges) >= half:
             lo = mid
         else:
             hi = mid
     a, b = ys[lo], ys[hi]
-    fa, fb = area_above(rings, a, weighted), area_above(rings, b, weighted)
+    fa, fb = area_above(rings, a, weighted, edges), area_above(rings, b, weighted, edges)
     m = 0.5 * (a + b)
-    fm = area_above(rings, m, weighted)
+    fm = area_above(rings, m, weighted, edges)
     # f(s) = fa + p s + q s^2 on s in [0, 1]
     p = 4 * fm - 3 * fa - fb
     q = 2 * fa + 2 * fb - 4 * fm
@@ -301,23 +371,20 @@ def width_at(rings, c: float, weighted: bool = False) -> float:
     At a height where the width jumps (a flange-web junction) the smaller of the
     widths just above and just below is returned: the one that governs shear.
     """
+    x0, y0, x1, y1, w = _edges(list(rings), weighted)
+
     def one_side(upper: bool) -> float:
-        total = 0.0
-        for r in rings:
-            x0, y0 = r.x, r.y
-            x1, y1 = _next(x0), _next(y0)
-            if upper:
-                up = (y0 <= c) & (y1 > c)
-                down = (y1 <= c) & (y0 > c)
-            else:
-                up = (y0 < c) & (y1 >= c)
-                down = (y1 < c) & (y0 >= c)
-            cross = up | down
-            t = (c - y0[cross]) / (y1[cross] - y0[cross])
-            xc = x0[cross] + t * (x1[cross] - x0[cross])
-            s = np.where(up[cross], 1.0, -1.0)
-            total += (r.weight if weighted else r.sign) * float(_dot(s, xc))
-        return total
+        if upper:
+            up = (y0 <= c) & (y1 > c)
+            down = (y1 <= c) & (y0 > c)
+        else:
+            up = (y0 < c) & (y1 >= c)
+            down = (y1 < c) & (y0 >= c)
+        cross = up | down
+        t = (c - y0[cross]) / (y1[cross] - y0[cross])
+        xc = x0[cross] + t * (x1[cross] - x0[cross])
+        s = np.where(up[cross], 1.0, -1.0)
+        return float(_dot(s * (w if isinstance(w, float) else w[cross]), xc))
 
     return min(one_side(True), one_side(False))
 
@@ -347,8 +414,8 @@ def distance_to_ring(px, py, ring: Ring) -> np.ndarray:
     x0, y0 = ring.x[None, :], ring.y[None, :]
     dx, dy = (_next(ring.x) - ring.x)[None, :], (_next(ring.y) - ring.y)[None, :]
     L2 = dx * dx + dy * dy
-    with np.errstate(divide="ignore", invalid="ignore"):
-        t = np.clip(np.where(L2 > 0, ((px - x0) * dx + (py - y0) * dy) / L2, 0.0), 0.0, 1.0)
+    inv = np.divide(1.0, L2, out=np.zeros_like(L2), where=L2 > 0)  # a zero-length edge: its start point
+    t = np.minimum(np.maximum(((px - x0) * dx + (py - y0) * dy) * inv, 0.0), 1.0)
     ex, ey = x0 + t * dx - px, y0 + t * dy - py
     return np.sqrt(ex * ex + ey * ey).min(axis=1)
 

@@ -30,18 +30,30 @@ class Basic:
 
 
 def tabular(rows) -> Basic:
-    """Σ n·A, ΣA·x/ΣA, Σ(I_o + A·d²) over the parts-table rows (holes negative)."""
-    w = np.array([r.sign * r.n for r in rows])
-    A = np.array([r.A for r in rows])
-    x = np.array([r.x for r in rows])
-    y = np.array([r.y for r in rows])
-    At = float(np.dot(w, A))
-    xc, yc = float(np.dot(w * A, x)) / At, float(np.dot(w * A, y)) / At
-    dx, dy = x - xc, y - yc
-    Ix = float(np.dot(w, [r.Iox for r in rows]) + np.dot(w * A, dy * dy))
-    Iy = float(np.dot(w, [r.Ioy for r in rows]) + np.dot(w * A, dx * dx))
-    Ixy = float(np.dot(w, [r.Ioxy for r in rows]) + np.dot(w * A, dx * dy))
-    return Basic(At, xc, yc, Ix, Iy, Ixy)
+    """Σ n·A, ΣA·x/ΣA, Σ(I_o + A·d²) over the parts-table rows (holes negative).
+
+    Plain float sums: a parts table has a handful of rows, where building arrays would cost more than
+    the arithmetic (a built-up section asks for many small tables while it checks its parts).
+    """
+    At = Sx = Sy = Io_x = Io_y = Io_xy = 0.0
+    for r in rows:
+        w = r.sign * r.n
+        wA = w * r.A
+        At += wA
+        Sy += wA * r.x
+        Sx += wA * r.y
+        Io_x += w * r.Iox
+        Io_y += w * r.Ioy
+        Io_xy += w * r.Ioxy
+    xc, yc = Sy / At, Sx / At
+    Ix, Iy, Ixy = Io_x, Io_y, Io_xy
+    for r in rows:
+        wA = r.sign * r.n * r.A
+        dx, dy = r.x - xc, r.y - yc
+        Ix += wA * dy * dy
+        Iy += wA * dx * dx
+        Ixy += wA * dx * dy
+    return Basic(float(At), float(xc), float(yc), float(Ix), float(Iy), float(Ixy))
 
 
 def green(rings) -> Basic:

@@ -17,7 +17,7 @@ from calcsheet import units as U
 
 from . import drawing
 from .fields import ALIASES, NAMES, OPT_UNITS, OPTIONAL, UNITS
-from .warping import cubic_moment
+from .warping import Given, cubic_moment
 from .shapes import ARC_SEGMENTS
 from .properties import Basic, disagreement, green, properties, tabular
 
@@ -178,6 +178,7 @@ class _Brief:
         self.values = []
         self.formulas = []
         self.methods = []
+        self.numerical = []  # (name, method): values of a numerical method other than Green's theorem
 
     def _take(self, name):
         step = self.work.working.items.pop()
@@ -211,6 +212,9 @@ class _Brief:
         self.work.note("Formulas: " + "; ".join(self.formulas) + ".", kind="method")
         self.work.note("Found from the outline by Green's theorem (methods as in a full working): "
                        + ", ".join(self.methods) + ".", kind="method")
+        if self.numerical:
+            self.work.note("By " + self.numerical[0][1] + " (the centre-line model above): "
+                           + ", ".join(n for n, _ in self.numerical) + ".", kind="method")
 
 
 def _engine_basic(work) -> Basic:
@@ -347,19 +351,35 @@ def _noise_free(value, size: float):
     """A length-power quantity (mm, mm², mm³, mm⁴, mm⁶…) smaller than NOISE·D^k, D the section's larger overall
     dimension in mm and k the power of length, is floating-point round-off (x_s − x_c of a symmetric section
     gives 1.4e-14 mm): it is 0. Other quantities (angles, masses, ratios) are returned as they are."""
-    if not hasattr(value, "dimensionality") or size <= 0:
+    units = getattr(value, "_units", None)
+    if units is None or size <= 0:
         return value
-    dims = dict(value.dimensionality)
-    if set(dims) != {"[length]"}:
-        return value
-    k = dims["[length]"]
     try:
-        v = float(value.to(unit("mm") ** k).magnitude)
-    except Exception:  # an array or an unconvertible unit: leave it
+        power = _length_power(units)
+    except Exception:  # not a unit pint can convert: leave it
+        return value
+    if power is None:
+        return value
+    k, to_mm = power
+    try:
+        v = float(value.magnitude) * to_mm
+    except Exception:  # an array: leave it
         return value
     if v != 0.0 and abs(v) < NOISE * size ** k:
         return value * 0.0
     return value
+
+
+@lru_cache(maxsize=256)
+def _length_power(units):
+    """(k, factor to mm^k) for a unit of length to the power k; None for any other dimension (worked out once
+    per unit: a section's working snaps hundreds of values in a handful of units)."""
+    one = U.registry().Quantity(1.0, units)
+    dims = dict(one.dimensionality)
+    if set(dims) != {"[length]"}:
+        return None
+    k = dims["[length]"]
+    return k, float(one.to(unit("mm") ** k).magnitude)
 
 
 def _snap_noise(work, size: float) -> None:
@@ -420,8 +440,17 @@ def _warping(work, rec, shape, vals) -> None:
     if shape.closed:
         work.note("Closed cell: under a torque T the wall carries the shear flow q = T/(2·A_m), the shear stress "
                   "τ = q/t; warping of a closed section is negligible and C_w is not given.", kind="method")
+    if shape.sectorial is not None:
+        _sectorial_table(work, shape.sectorial)
     for st in shape.warping:
-        rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
+        if isinstance(st, Given):
+            if isinstance(rec, _Brief):
+                rec.let(st.name, _q(st.value, st.unit), unit=st.unit, desc=st.desc)
+                rec.numerical.append((st.name, st.note))
+            else:
+                rec.let(st.name, _q(st.value, st.unit), unit=st.unit, desc=st.desc, note=st.note)
+        else:
+            rec.calc(st.name, st.formula, unit=st.unit, desc=st.desc)
     if "x_s" not in work.scope:
         return  # doubly symmetric solids and cells: the shear centre is the centroid (given as fields, untraced)
     rec.calc("x_0", "x_s - x_c", unit="mm", desc="shear centre relative to the centroid, x")
@@ -439,6 +468,18 @@ def _warping(work, rec, shape, vals) -> None:
     if "C_w" in work.scope and shape.kind in ("ishape", "channel"):
         rec.calc("r_ts", "sqrt(sqrt(I_y*C_w)/S_x)", unit="mm",
                  desc="effective radius of gyration for LTB (AISC 360-16 F2-7)")
+
+
+def _sectorial_table(work, model) -> None:
+    """The centre-line model of the numerical warping analysis: each wall with its thickness and the normalised
+    sectorial coordinate ω at its ends, each lumped corner area with its centroid."""
+    walls, lumps, res = model
+    rows = [[w.name, f"({w.p0[0]:.4g}, {w.p0[1]:.4g})", f"({w.p1[0]:.4g}, {w.p1[1]:.4g})",
+             f"{w.t0:.4g} → {w.t1:.4g}", f"{res.omega[w.start]:.5g} → {res.omega[w.end]:.5g}"] for w in walls]
+    rows += [[lp.name, f"({lp.x:.4g}, {lp.y:.4g})", "lumped", f"A = {lp.A:.4g} mm²", ""] for lp in lumps]
+    work.table("Centre-line model for the warping analysis (mm; ω about the shear centre, mm²)",
+               ["Wall or corner", "From", "To", "Thickness t", "ω (normalised)"], rows, units=[None] * 5,
+               note=f"Shear centre ({res.x_s:.5g}, {res.y_s:.5g}) mm; area of the model {res.A:.6g} mm².")
 
 
 def _agreement(work, shape, engine: Basic, table: bool = True) -> None:

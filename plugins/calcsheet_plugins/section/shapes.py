@@ -105,6 +105,9 @@ class Shape:
     warping: list[Step] = field(default_factory=list)
     symmetry: str = "none"  # "double", "vertical" (about a vertical axis), "horizontal", "none"
     closed: bool = False  # a closed cell (box, tube): Bredt's J, shear flow T/(2·A_m)
+    # the centre-line model of a numerical warping analysis (walls, lumps, result; see warping.sectorial), shown as
+    # a table in the working
+    sectorial: tuple | None = None
 
     @property
     def tolerance(self) -> float:

@@ -13,7 +13,7 @@ from calcsheet.plugin import Field, Param
 
 from . import namespace
 from . import aisc_f4f5, aisc_open
-from .common import FORMS, aisc, field, form_of, num, positive, tidy, units
+from .common import FORMS, PARTIAL_FORMS, REFUSED_FORMS, aisc, field, form_of, num, positive, tidy, units
 
 # what the design basis lists when a sheet calls one of these functions (the namespace lists both codes)
 AISC_STANDARDS = ("AISC 360-16",)
@@ -31,7 +31,9 @@ class _Ctx:
         if section is None:
             work.fail("give section=… (a section record: steel_design.shape(…), section.rolled(…))", param="section")
         self.form = form_of(section, form)
-        if self.form not in FORMS:
+        if self.form in REFUSED_FORMS:
+            work.fail(REFUSED_FORMS[self.form], param="form" if form else "section")
+        if self.form not in FORMS and self.form not in PARTIAL_FORMS:
             work.fail("cannot tell the section's form; give form=" + ", ".join(f'"{f}"' for f in FORMS), param="form")
         top, bot = field(section, "S_x_top"), field(section, "S_x_bot")
         self.singly = (self.form == "I" and top is not None and bot is not None
@@ -152,6 +154,7 @@ class _Ctx:
 
     def geometry(self):
         {"I": self.i_shape, "C": self.i_shape, "T": self.i_shape, "L": lambda: aisc_open.angle_geometry(self),
+         "2L": lambda: aisc_open.double_angle_geometry(self),
          "RHS": self.hss_rect, "CHS": self.hss_round}[self.form]()
 
     # ---------------------------------------------------------------- B4 classification
@@ -182,9 +185,10 @@ class _Ctx:
             w.calc("lambda_f", "b_f/(2*t_f)", unit="1", desc="flange slenderness b/t = b_f/(2t_f) (B4.1a case 1, B4.1b case 10)")
             w.calc("lambda_w", "d/t_w", unit="1", desc="stem slenderness d/t_w (B4.1a case 4, B4.1b case 14)")
             specs = [("flange", "lambda_f", "T_flange", "T_flange"), ("web", "lambda_w", "T_stem", "T_stem")]
-        elif self.form == "L":
-            w.calc("lambda_f", "max(d, b_f)/t", unit="1", desc="leg slenderness b/t of the longer leg (B4.1a case 3, "
-                                                              "B4.1b case 12)")
+        elif self.form in ("L", "2L"):
+            w.calc("lambda_f", "max(d, b_f)/t", unit="1", desc="leg slenderness b/t of the longer leg (B4.1a case 3"
+                                                              + (", legs of double angles with separators)" if self.form == "2L" else
+                                                                 ", B4.1b case 12)"))
             specs = [("leg", "lambda_f", "L_leg", "L_leg")]
         elif self.form == "RHS":
             w.calc("lambda_f", "b/t", unit="1", desc="flange wall slenderness b/t (B4.1a case 6, B4.1b case 17)")
@@ -236,7 +240,7 @@ class _Ctx:
         return out
 
     # ---------------------------------------------------------------- Chapter E
-    def compression(self, L, K_x, K_y, L_y, L_z):
+    def compression(self, L, K_x, K_y, L_y, L_z, a=None, r_i=None, connectors=None):
         w, sc, u = self.work, self.sc, self.u
         sc["L_x"] = L
         sc["L_y"] = L_y if L_y is not None else L
@@ -245,13 +249,18 @@ class _Ctx:
         w.calc("L_cx", "K_x*L_x", unit=u["L"], desc="effective length about x, L_c = K·L (E2)")
         w.calc("L_cy", "K_y*L_y", unit=u["L"], desc="effective length about y, L_c = K·L (E2)")
         w.calc("F_ex", "pi^2*E/(L_cx/r_x)^2", unit=u["st"], desc=f"elastic buckling stress about x, {STD} Eq. E3-4")
-        w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")
+        if self.form == "2L":
+            aisc_open.e6(self, a, r_i, connectors)
+            w.calc("F_ey", "pi^2*E/lambda_m^2", unit=u["st"],
+                   desc=f"elastic buckling stress about y with the modified slenderness, {STD} Eq. E3-4, E6.1")
+        else:
+            w.calc("F_ey", "pi^2*E/(L_cy/r_y)^2", unit=u["st"], desc=f"elastic buckling stress about y, {STD} Eq. E3-4")
         slender = max(sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"), sc["L_cy"].m_as("m") / sc["r_y"].m_as("m"))
         if slender > 200:
             w.warn(f"L_c/r = {slender:.0f} exceeds 200, the limit {STD} E2 (User Note) recommends for members "
                    f"designed for compression", param="L")
         candidates = ["F_ex", "F_ey"]
-        if self.form in ("C", "T", "L") or self.singly:
+        if self.form in ("C", "T", "L", "2L") or self.singly:
             if L_z is not None:
                 sc["L_cz"] = L_z
             candidates = aisc_open.e4(self, candidates)
@@ -312,11 +321,12 @@ class _Ctx:
         elif self.form == "T":
             elems = [("f", "b_f/2", "t_f", 2, "unstiffened", "lambda_f", "lambda_r_cf"),
                      ("w", "d", "t_w", 1, "unstiffened", "lambda_w", "lambda_r_cw")]
-        elif self.form == "L":
+        elif self.form in ("L", "2L"):
             w.calc("lambda_a", "d/t", unit="1", desc="b/t of the vertical leg")
             w.calc("lambda_b", "b_f/t", unit="1", desc="b/t of the horizontal leg")
-            elems = [("a", "d", "t", 1, "unstiffened", "lambda_a", "lambda_r_cf"),
-                     ("b", "b_f", "t", 1, "unstiffened", "lambda_b", "lambda_r_cf")]
+            n = 2 if self.form == "2L" else 1
+            elems = [("a", "d", "t", n, "unstiffened", "lambda_a", "lambda_r_cf"),
+                     ("b", "b_f", "t", n, "unstiffened", "lambda_b", "lambda_r_cf")]
         else:
             elems = [("f", "b", "t", 2, "HSS_wall", "lambda_f", "lambda_r_cf"),
                      ("w", "h", "t", 2, "HSS_wall", "lambda_w", "lambda_r_cw")]
@@ -351,6 +361,8 @@ class _Ctx:
             states = aisc_f4f5.f4f5(self, L_b, C_b)
         elif self.form == "T":
             states = aisc_open.f9(self, L_b, stem)
+        elif self.form == "L" and getattr(self, "axes", "geometric") == "principal":
+            states = aisc_open.f10_principal(self, L_b, C_b, toe)
         elif self.form == "L":
             states = aisc_open.f10(self, L_b, C_b, toe, restraint)
         elif self.form in ("I", "C"):
@@ -414,7 +426,10 @@ class _Ctx:
         w.calc(name, f"min({', '.join(states.values())})" if len(states) > 1 else list(states.values())[0],
                unit=u["mo"], desc="nominal flexural strength: the least of the applicable limit states")
         gov = min(states, key=lambda k: sc[states[k]].m_as("N*m"))
-        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {name[-1]} ({STD} F1).", kind="method")
+        axis = name[-1]
+        if getattr(self, "axes", "geometric") == "principal":
+            axis = {"x": "w (major principal axis)", "y": "z (minor principal axis)"}[axis]
+        w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {axis} ({STD} F1).", kind="method")
         return gov
 
     def f7(self, axis, L_b, C_b):
@@ -501,6 +516,9 @@ class _Ctx:
 
     def flexure_minor(self):
         w, sc, u = self.work, self.sc, self.u
+        if self.form == "L" and getattr(self, "axes", "geometric") == "principal":
+            aisc_open._principal_geometry(self, getattr(self, "toe", "compression"))
+            return self.governing_moment("M_ny", aisc_open.f10_minor(self))
         if self.form in ("T", "L"):
             return None
         if self.form in ("I", "C"):
@@ -633,7 +651,9 @@ COMMON = [
     Param("F_y", "[pressure]", "yield stress (default material.f_y)", default=None),
     Param("E", "[pressure]", "modulus of elasticity (default material.E, else 29,000 ksi)", default=None),
     Param("G", "[pressure]", "shear modulus (default material.G, else 11,200 ksi)", default=None),
-    Param("form", kind="text", choices=FORMS, doc="section form (default: from the record)", default=None),
+    Param("form", kind="text", choices=FORMS + tuple(PARTIAL_FORMS) + tuple(REFUSED_FORMS),
+          doc="section form (default: from the record); 2L (double angles) in compression only",
+          default=None),
 ]
 LENGTHS = [
     Param("L", "[length]", "member length (buckling about x; about y unless L_y)"),
@@ -641,6 +661,11 @@ LENGTHS = [
     Param("K_y", doc="effective length factor about y (default 1)", default=None),
     Param("L_y", "[length]", "unbraced length for buckling about y (default L)", default=None),
     Param("L_z", "[length]", "torsional unbraced length L_cz (E4; default: L_y)", default=None),
+    Param("a", "[length]", "double angles (E6): distance between the intermediate connectors", default=None),
+    Param("r_i", "[length]", "double angles (E6): least radius of gyration of one angle (default: the record's r_i)",
+          default=None),
+    Param("connectors", kind="text", choices=("snug-tight", "welded", "pretensioned"),
+          doc="double angles (E6.1): how the intermediate connectors are made", default=None),
 ]
 BENDING = [
     Param("L_b", "[length]", "laterally unbraced length of the compression flange"),
@@ -658,6 +683,13 @@ BENDING = [
           doc="tees (F9): the stem tip in tension (flange in compression) or in compression", default="tension"),
     Param("toe", kind="text", choices=("compression", "tension"),
           doc="single angles (F10): the toe of the vertical leg in compression or tension", default="compression"),
+    Param("compression_flange", kind="text", choices=("top", "bottom"),
+          doc="singly symmetric I-shapes (F4, F5): the flange in compression — top for a sagging moment, bottom for "
+              "a hogging one (default: from the sign of the beam's moment with beam=…, else top)", default=None),
+    Param("axes", kind="text", choices=("geometric", "principal"),
+          doc="single angles (F10): bending about the geometric axes (M_rx, M_ry) or the principal axes (M_rx is then "
+              "the moment about the major axis w, M_ry about the minor axis z; toe= the vertical leg's toe under M_rx)",
+          default="geometric"),
     Param("restraint", kind="text", choices=("none", "at_max_moment"),
           doc="single angles (F10.2): lateral-torsional restraint only at the ends, or also at the point of "
               "maximum moment", default="none"),
@@ -687,6 +719,7 @@ F_FLEX = [Field("M_nx", "[force]*[length]", "nominal flexural strength, major ax
           Field("C_b", doc="LTB modification factor used", optional=True),
           Field("M_cr", "[force]*[length]", "elastic lateral-torsional buckling moment (F9-10, F10-5)", optional=True),
           Field("R_pc", doc="web plastification factor (F4-9)", optional=True),
+          Field("beta_w", "[length]", "single angles about their principal axes: β_w of F10-4", optional=True),
           Field("R_pg", doc="bending strength reduction factor (F5-6)", optional=True),
           Field("governing_flexure", kind="text", doc="the limit state governing M_nx")]
 F_FLEXY = [Field("M_ny", "[force]*[length]", "nominal flexural strength, minor axis (I-shapes, channels, HSS)",
@@ -720,8 +753,10 @@ def _collect(ctx, out, utils):
     if utils:
         name = max(utils, key=lambda k: num(sc[utils[k]]))
         out["util"] = out[name]
-        out["governing"] = {"util_axial": "axial compression", "util_flexure": "flexure about x",
-                            "util_flexure_y": "flexure about y", "util_shear": "shear",
+        principal = getattr(ctx, "axes", "geometric") == "principal"
+        out["governing"] = {"util_axial": "axial compression",
+                            "util_flexure": "flexure about w (major principal axis)" if principal else "flexure about x",
+                            "util_flexure_y": "flexure about z (minor principal axis)" if principal else "flexure about y", "util_shear": "shear",
                             "util_interaction": "combined force (H1)"}[name]
         w.note(f"Largest utilisation: {out['governing']}, {num(out['util']):.3f}.", kind="method")
     else:
@@ -737,9 +772,19 @@ def _util(w, name, req, cap, desc):
 def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, K_y=None, L_y=None, L_z=None,
          L_b=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None,
          x_end=None, stem="tension", toe="compression", restraint="none", L_v=None,
-         P_r=None, M_rx=None, M_ry=None, V_r=None, want=("compression", "flexure", "flexure_y", "shear")):
+         P_r=None, M_rx=None, M_ry=None, V_r=None, compression_flange=None, a=None, r_i=None, connectors=None,
+         axes="geometric", want=("compression", "flexure", "flexure_y", "shear")):
+    early = form_of(section, form) if section is not None else ""
+    if early in PARTIAL_FORMS and set(want) - {"compression"}:
+        work.fail(PARTIAL_FORMS[early], param="form" if form else "section")
     ctx = _start(work, section, material, method, F_y, E, G, form)
     w, sc, u = work, work.scope, ctx.u
+    if ctx.form != "2L":
+        for nm, q in (("a", a), ("r_i", r_i), ("connectors", connectors)):
+            if q is not None:
+                w.fail(f"{nm} applies to double angles (E6) only", param=nm)
+    positive(w, "a", a)
+    positive(w, "r_i", r_i)
     for nm, q in (("L", L), ("L_y", L_y), ("L_z", L_z), ("L_v", L_v)):
         positive(w, nm, q)
     if L_b is not None and L_b.magnitude < 0:
@@ -747,14 +792,21 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     for nm, q in (("P_r", P_r), ("M_rx", M_rx), ("M_ry", M_ry), ("V_r", V_r)):
         if q is not None and q.magnitude < 0:
             w.fail(f"{nm} is a required strength: give its magnitude (≥ 0)", param=nm)
-    if ctx.form in ("T", "L") and M_ry is not None:
+    ctx.axes, ctx.toe = axes, toe
+    if axes == "principal":
+        if ctx.form != "L":
+            w.fail("axes=\"principal\" applies to single angles (F10) only", param="axes")
+        if P_r is not None and ("flexure" in want or "flexure_y" in want):
+            w.fail(f"combined force on a single angle bent about its principal axes needs {STD} H2 (unsymmetric "
+                   f"members), which is not built", param="axes")
+    if ctx.form in ("T", "L") and M_ry is not None and axes != "principal":
         w.fail(f"minor-axis flexure of a {'tee' if ctx.form == 'T' else 'single angle'} is not built ({STD} "
-               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else 'F10 is built for bending about the geometric x axis'}); "
+               f"{'F9 covers tees only in their plane of symmetry' if ctx.form == 'T' else ANGLE_AXES}); "
                f"M_ry is out of scope", param="M_ry")
     ctx.classify()
     out, utils = {}, {}
     if "compression" in want:
-        gov = ctx.compression(L, K_x, K_y, L_y, L_z)
+        gov = ctx.compression(L, K_x, K_y, L_y, L_z, a, r_i, connectors)
         ctx.available("P_c", "P_n", "compression")
         out.update(P_n=sc["P_n"], P_c=sc["P_c"], F_cr=sc["F_cr"], F_e=sc["F_e"], F_ex=sc["F_ex"], F_ey=sc["F_ey"],
                    governing_compression=gov)
@@ -769,16 +821,17 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
     biaxial = False
     if "flexure" in want:
         cb = _cb(w, C_b, M_max, M_A, M_B, M_C, beam, combo, x_start, x_end) if ctx.form != "CHS" else None
+        ctx.compression_flange = _compression_flange(ctx, compression_flange, beam, combo, x_start, x_end)
         gov = ctx.flexure_major(L_b, cb, stem, toe, restraint)
         ctx.available("M_cx", "M_nx", "flexure")
         out.update(M_nx=sc["M_nx"], M_cx=sc["M_cx"], governing_flexure=gov)
-        for k in ("M_p", "L_p", "L_r", "C_b", "M_cr", "R_pc", "R_pg"):
+        for k in ("M_p", "L_p", "L_r", "C_b", "M_cr", "R_pc", "R_pg", "beta_w"):
             if k in sc and sc[k] is not None and not isinstance(sc[k], str):
                 out[k] = sc[k] if k not in ("C_b", "R_pc", "R_pg") else w.q(num(sc[k]), "")
         if "M_p" not in out and "M_px" in sc:
             out["M_p"] = sc["M_px"]
         if M_rx is not None:
-            _util(w, "util_flexure", "M_rx", "M_cx", f"flexure about x, {STD} F1")
+            _util(w, "util_flexure", "M_rx", "M_cx", f"flexure about {'w' if axes == 'principal' else 'x'}, {STD} F1")
             utils["util_flexure"] = "util_flexure"
     if "flexure_y" in want:
         gov = ctx.flexure_minor()
@@ -790,7 +843,7 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
             ctx.available("M_cy", "M_ny", "flexure")
             out.update(M_ny=sc["M_ny"], M_cy=sc["M_cy"], governing_flexure_y=gov)
             if M_ry is not None:
-                _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about y, {STD} F1")
+                _util(w, "util_flexure_y", "M_ry", "M_cy", f"flexure about {'z' if axes == 'principal' else 'y'}, {STD} F1")
                 utils["util_flexure_y"] = "util_flexure_y"
     if "shear" in want:
         kind, gov = ctx.shear(L_v)
@@ -806,6 +859,29 @@ def _run(work, section, material, method, F_y, E, G, form, *, L=None, K_x=None, 
         interaction(w, u, biaxial=biaxial)
         utils["util_interaction"] = "util_interaction"
     return _collect(ctx, out, utils)
+
+
+ANGLE_AXES = ('F10 is built for bending about the geometric x axis, and about both principal axes of an equal-leg '
+              'angle with axes="principal"')
+
+
+def _compression_flange(ctx, given, beam, combo, x_start, x_end):
+    """Which flange of an I-shape is in compression: given, else the sign of the beam's moment where |M| is
+    largest in the segment (sagging positive: top), else the top flange."""
+    w = ctx.work
+    if given is not None:
+        if ctx.form != "I" or not ctx.singly:
+            w.note(f"compression_flange=\"{given}\" makes no difference for this "
+                   f"{'doubly symmetric I-shape' if ctx.form == 'I' else 'section'}.", kind="method")
+        return given
+    if beam is not None and ctx.form == "I" and ctx.singly:
+        from .moments import segment_sign
+
+        sign = segment_sign(w, beam, combo, x_start, x_end)
+        w.note(f"The beam's moment where |M| is largest in the segment is {'sagging' if sign >= 0 else 'hogging'}: "
+               f"the {'top' if sign >= 0 else 'bottom'} flange is in compression.", kind="method")
+        return "top" if sign >= 0 else "bottom"
+    return "top"
 
 
 def interaction(w, u, biaxial=True):
@@ -835,21 +911,23 @@ REQ_COL = [Param("P_r", "[force]", "required axial compressive strength (P_u or 
                     family="steel_check")
 def aisc_beam(work, section, material=None, method=None, F_y=None, E=None, G=None, form=None, L_b=None, C_b=None,
               M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
-              stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None):
+              stem="tension", toe="compression", restraint="none", M_rx=None, M_ry=None, V_r=None, L_v=None,
+              compression_flange=None, axes="geometric"):
     """A beam to AISC 360-16: B4 classification, Chapter F about both axes, Chapter G shear."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
-                restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, want=("flexure", "flexure_y", "shear"))
+                restraint=restraint, L_v=L_v, M_rx=M_rx, M_ry=M_ry, V_r=V_r, compression_flange=compression_flange,
+                axes=axes, want=("flexure", "flexure_y", "shear"))
 
 
 @namespace.function("aisc_column", standards=AISC_STANDARDS, params=COMMON + LENGTHS + REQ_COL,
                     fields=CLASS_FIELDS + F_COMP + F_UTIL, returns="steel_check.aisc_column",
                     family="steel_check")
 def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, G=None, form=None, K_x=None,
-                K_y=None, L_y=None, L_z=None, P_r=None):
+                K_y=None, L_y=None, L_z=None, a=None, r_i=None, connectors=None, P_r=None):
     """A column to AISC 360-16: B4 classification, Chapter E (E3, E4 where it applies, E7)."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, P_r=P_r,
-                want=("compression",))
+                a=a, r_i=r_i, connectors=connectors, want=("compression",))
 
 
 @namespace.function("aisc_beam_column", standards=AISC_STANDARDS,
@@ -857,14 +935,15 @@ def aisc_column(work, section, L, material=None, method=None, F_y=None, E=None, 
                     fields=CLASS_FIELDS + F_COMP + F_FLEX + F_FLEXY + F_SHEAR + F_UTIL,
                     returns="steel_check.aisc_beam_column", family="steel_check")
 def aisc_beam_column(work, section, L, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None,
-                     K_x=None, K_y=None, L_y=None, L_z=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
+                     K_x=None, K_y=None, L_y=None, L_z=None, a=None, r_i=None, connectors=None, C_b=None, M_max=None, M_A=None, M_B=None, M_C=None,
                      beam=None, combo=None, x_start=None, x_end=None, stem="tension", toe="compression",
-                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None):
+                     restraint="none", P_r=None, M_rx=None, M_ry=None, V_r=None, L_v=None, compression_flange=None,
+                     axes="geometric"):
     """A beam-column to AISC 360-16: Chapters B4, E, F, G and the H1-1 interaction."""
     return _run(work, section, material, method, F_y, E, G, form, L=L, K_x=K_x, K_y=K_y, L_y=L_y, L_z=L_z, L_b=L_b,
                 C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B, M_C=M_C, beam=beam, combo=combo, x_start=x_start,
                 x_end=x_end, stem=stem, toe=toe, restraint=restraint, L_v=L_v, P_r=P_r, M_rx=M_rx, M_ry=M_ry,
-                V_r=V_r)
+                V_r=V_r, compression_flange=compression_flange, a=a, r_i=r_i, connectors=connectors, axes=axes)
 
 
 @namespace.function("aisc_shear", standards=AISC_STANDARDS, params=COMMON + [REQ_BEAM[2], REQ_BEAM[3]],
@@ -880,11 +959,12 @@ def aisc_shear(work, section, material=None, method=None, F_y=None, E=None, G=No
                     family="steel_check")
 def aisc_flexure(work, section, L_b, material=None, method=None, F_y=None, E=None, G=None, form=None, C_b=None,
                  M_max=None, M_A=None, M_B=None, M_C=None, beam=None, combo=None, x_start=None, x_end=None,
-                 stem="tension", toe="compression", restraint="none", M_rx=None):
+                 stem="tension", toe="compression", restraint="none", M_rx=None, compression_flange=None,
+                 axes="geometric"):
     """Major-axis flexure alone: AISC 360-16 F2–F5 (I, channels), F7/F8 (HSS), F9 (tees), F10 (single angles)."""
     return _run(work, section, material, method, F_y, E, G, form, L_b=L_b, C_b=C_b, M_max=M_max, M_A=M_A, M_B=M_B,
                 M_C=M_C, beam=beam, combo=combo, x_start=x_start, x_end=x_end, stem=stem, toe=toe,
-                restraint=restraint, M_rx=M_rx, want=("flexure",))
+                restraint=restraint, M_rx=M_rx, compression_flange=compression_flange, axes=axes, want=("flexure",))
 
 
 @namespace.function("aisc_classify", standards=AISC_STANDARDS,

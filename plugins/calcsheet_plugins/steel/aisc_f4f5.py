@@ -12,14 +12,19 @@ STD = "AISC 360-16"
 
 
 def flange_geometry(ctx):
-    """S_xc, S_xt, h_c, h_p, b_fc, t_fc of an I-shape bent about x with the top flange in compression.
+    """S_xc, S_xt, h_c, h_p, b_fc, t_fc of an I-shape bent about x, with the compression flange decided by the
+    call (``ctx.compression_flange``: "top" for a sagging moment, "bottom" for a hogging one).
 
     A doubly symmetric section uses S_x and h for both; a singly symmetric one (a section record whose top and
-    bottom moduli differ) takes them from the record's fibre distances and plastic neutral axis."""
+    bottom moduli differ) takes them from the record's fibre distances and plastic neutral axis: y_top and y_bot
+    from the centroid to the top and bottom fibres (y_bot = d − y_top when not given), y_c and y_p the centroid and
+    the plastic neutral axis in one frame measured upwards (only their difference is used)."""
     w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
     top, bot = field(rec, "S_x_top"), field(rec, "S_x_bot")
     singly = top is not None and bot is not None and abs(top.m_as("mm^3") / bot.m_as("mm^3") - 1) > 0.005
+    flange = getattr(ctx, "compression_flange", "top")
     sc["b_fc"], sc["t_fc"] = sc["b_f"], sc["t_f"]
+    ctx.lam_fc = "lambda_f"
     if not singly:
         w.calc("S_xc", "S_x", unit=u["i3"], desc="elastic modulus to the compression flange (doubly symmetric: S_x)")
         w.calc("S_xt", "S_x", unit=u["i3"], desc="elastic modulus to the tension flange (doubly symmetric: S_x)")
@@ -29,18 +34,67 @@ def flange_geometry(ctx):
     for name in ("y_top", "y_c", "y_p"):
         if field(rec, name) is None:
             w.fail(f"a singly symmetric I-shape needs the section record's {name} (use section.ishape or "
-                   f"section.built_up)", param="section")
+                   f"section.built_up, or give it in steel_design.shape)", param="section")
         sc[name] = field(rec, name)
     sc["S_x_top"], sc["S_x_bot"] = top, bot
-    w.note("Singly symmetric I-shape: the top flange is taken as the compression flange (sagging moment); "
-           f"S_xc, h_c and h_p follow from it ({STD} F4, B4.1b case 16).", kind="method")
-    w.calc("S_xc", "S_x_top", unit=u["i3"], desc="elastic modulus to the compression (top) flange")
-    w.calc("S_xt", "S_x_bot", unit=u["i3"], desc="elastic modulus to the tension (bottom) flange")
-    w.calc("h_c", "2*(y_top - t_fc)", unit=u["ln"],
-           desc="h_c: twice the distance from the centroid to the inside face of the compression flange")
-    w.calc("h_p", "2*(y_c + y_top - y_p - t_fc)", unit=u["ln"],
+    if flange == "top":
+        w.note(f"Singly symmetric I-shape, sagging moment: the top flange is the compression flange; S_xc, h_c and "
+               f"h_p follow from it ({STD} F4, B4.1b case 16).", kind="method")
+        w.calc("S_xc", "S_x_top", unit=u["i3"], desc="elastic modulus to the compression (top) flange")
+        w.calc("S_xt", "S_x_bot", unit=u["i3"], desc="elastic modulus to the tension (bottom) flange")
+        w.calc("h_c", "2*(y_top - t_fc)", unit=u["ln"],
+               desc="h_c: twice the distance from the centroid to the inside face of the compression flange")
+        w.calc("h_p", "2*(y_c + y_top - y_p - t_fc)", unit=u["ln"],
+               desc="h_p: twice the distance from the plastic neutral axis to the inside face of the compression flange")
+        return True
+    w.note(f"Singly symmetric I-shape, hogging moment: the bottom flange is the compression flange; S_xc, h_c, h_p "
+           f"and the flange's slenderness follow from it ({STD} F4, B4.1b cases 10/11 and 16).", kind="method")
+    if field(rec, "y_bot") is not None:
+        w.let("y_bot", field(rec, "y_bot"), unit=u["ln"], desc="centroid to the bottom fibre", note="from the section")
+    else:
+        w.calc("y_bot", "d - y_top", unit=u["ln"], desc="centroid to the bottom fibre")
+    _bottom_flange(ctx)
+    w.calc("S_xc", "S_x_bot", unit=u["i3"], desc="elastic modulus to the compression (bottom) flange")
+    w.calc("S_xt", "S_x_top", unit=u["i3"], desc="elastic modulus to the tension (top) flange")
+    w.calc("h_c", "2*(y_bot - t_fc)", unit=u["ln"],
+           desc="h_c: twice the distance from the centroid to the inside face of the compression (bottom) flange")
+    w.calc("h_p", "2*(y_p - (y_c - y_bot) - t_fc)", unit=u["ln"],
            desc="h_p: twice the distance from the plastic neutral axis to the inside face of the compression flange")
+    # B4.1b case 10 (rolled) or 11 (built-up) for the flange that is in compression, against the limits already traced
+    w.calc("lambda_fc", "b_fc/(2*t_fc)", unit="1", desc="compression (bottom) flange slenderness b/t = b_fc/(2t_fc)")
+    lam, lp, lr = (num(sc[n]) for n in ("lambda_fc", "lambda_p_f", "lambda_r_f"))
+    cls = "compact" if lam <= lp else ("noncompact" if lam <= lr else "slender")
+    w.note(f"Compression (bottom) flange in flexure: λ = {lam:.3g}, λ_p = {lp:.3g}, λ_r = {lr:.3g}: {cls} "
+           f"({STD} Table B4.1b).", kind="method")
+    ctx.classes["class_flange_flexure"] = cls
+    ctx.lam_fc = "lambda_fc"
     return True
+
+
+def _bottom_flange(ctx):
+    """b_fc, t_fc of the bottom flange: from the record (b_f_bot, t_f_bot), else from the section's area and
+    centroid for a section of flat plates (no fillets): with D = d − t_f and K = A − b_ft_f − t_wD, the first moment
+    about the bottom fibre, A·y_bot = K·t/2 + t_wD²/2 + b_ft_f(d − t_f/2), is linear in the bottom flange's t."""
+    w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
+    b, t = field(rec, "b_f_bot"), field(rec, "t_f_bot")
+    if b is not None and t is not None:
+        w.let("b_fc", b, unit=u["ln"], desc="width of the compression (bottom) flange", note="from the section")
+        w.let("t_fc", t, unit=u["ln"], desc="thickness of the compression (bottom) flange", note="from the section")
+        return
+    w.calc("K_bf", "A - b_f*t_f - t_w*(d - t_f)", unit=u["ar"],
+           desc="A less the top flange and a web reaching the bottom fibre (plates, no fillets)")
+    if sc["K_bf"].magnitude <= 0:
+        w.fail("the section record gives no bottom flange (b_f_bot, t_f_bot), and its area leaves none: give them "
+               "in steel_design.shape(…)", param="section")
+    w.calc("t_fc", "2*(A*y_bot - t_w*(d - t_f)^2/2 - b_f*t_f*(d - t_f/2))/K_bf", unit=u["ln"],
+           desc="bottom flange thickness from the first moment of area about the bottom fibre (plates, no fillets)")
+    ok = 0 < sc["t_fc"].m_as("mm") < (sc["d"] - sc["t_f"]).m_as("mm")
+    if ok:
+        w.calc("b_fc", "(K_bf + t_w*t_fc)/t_fc", unit=u["ln"], desc="bottom flange width from its area")
+        ok = sc["b_fc"].m_as("mm") > sc["t_w"].m_as("mm")
+    if not ok:
+        w.fail("the bottom flange cannot be recovered from this section record's area and centroid: give b_f_bot "
+               "and t_f_bot in steel_design.shape(…)", param="section")
 
 
 def f4f5(ctx, L_b, C_b):
@@ -125,12 +179,12 @@ def _f4(ctx, singly, ratio, lim):
         states["lateral-torsional buckling, elastic (F4-3)"] = "M_n_LTB"
     fl = ctx.classes["class_flange_flexure"]
     if fl == "noncompact":
-        w.calc("M_n_FLB", "R_pc*M_yc - (R_pc*M_yc - F_L*S_xc)*(lambda_f - lambda_p_f)/(lambda_r_f - lambda_p_f)",
+        w.calc("M_n_FLB", f"R_pc*M_yc - (R_pc*M_yc - F_L*S_xc)*({ctx.lam_fc} - lambda_p_f)/(lambda_r_f - lambda_p_f)",
                unit=u["mo"], desc=f"compression flange local buckling, noncompact flange, {STD} Eq. F4-13")
         states["flange local buckling, noncompact (F4-13)"] = "M_n_FLB"
     elif fl == "slender":
         w.calc("k_c", "max(0.35, min(0.76, 4/sqrt(h/t_w)))", unit="1", desc=f"k_c = 4/√(h/t_w), 0.35 ≤ k_c ≤ 0.76 ({STD} F4.3)")
-        w.calc("M_n_FLB", "0.9*E*k_c*S_xc/lambda_f^2", unit=u["mo"],
+        w.calc("M_n_FLB", f"0.9*E*k_c*S_xc/{ctx.lam_fc}^2", unit=u["mo"],
                desc=f"compression flange local buckling, slender flange, {STD} Eq. F4-14")
         states["flange local buckling, slender (F4-14)"] = "M_n_FLB"
     else:
@@ -171,11 +225,11 @@ def _f5(ctx, singly):
         states[f"lateral-torsional buckling, {branch} (F5-2)"] = "M_n_LTB"
     fl = ctx.classes["class_flange_flexure"]
     if fl == "noncompact":
-        w.calc("F_cr_FLB", "F_y - 0.3*F_y*(lambda_f - lambda_p_f)/(lambda_r_f - lambda_p_f)", unit=u["st"],
+        w.calc("F_cr_FLB", f"F_y - 0.3*F_y*({ctx.lam_fc} - lambda_p_f)/(lambda_r_f - lambda_p_f)", unit=u["st"],
                desc=f"critical stress, noncompact flange, {STD} Eq. F5-8")
     elif fl == "slender":
         w.calc("k_c", "max(0.35, min(0.76, 4/sqrt(h/t_w)))", unit="1", desc=f"k_c = 4/√(h/t_w), 0.35 ≤ k_c ≤ 0.76 ({STD} F5.3)")
-        w.calc("F_cr_FLB", "0.9*E*k_c/lambda_f^2", unit=u["st"], desc=f"critical stress, slender flange, {STD} Eq. F5-9")
+        w.calc("F_cr_FLB", f"0.9*E*k_c/{ctx.lam_fc}^2", unit=u["st"], desc=f"critical stress, slender flange, {STD} Eq. F5-9")
     else:
         w.note(f"Compact compression flange: flange local buckling does not apply ({STD} F5.3(a)).", kind="method")
     if fl in ("noncompact", "slender"):

@@ -44,19 +44,80 @@ def angle_geometry(ctx):
     ctx.radii()
 
 
+def double_angle_geometry(ctx):
+    """Two angles back to back (the y axis their axis of symmetry, between the vertical legs): properties of the
+    pair as given (A, I_x, I_y, J about the pair's centroid), legs d (vertical) and b_f (horizontal) and t of one
+    angle, ȳ (y_bar, the outer face of the horizontal legs to the centroid) or the shear centre y_0."""
+    w, u = ctx.work, ctx.u
+    ctx.props([("A", "ar", "gross area of the pair A_g"), ("d", "ln", "vertical leg of one angle (back to back)"),
+               ("b_f", "ln", "horizontal (outstanding) leg of one angle"), ("t", "ln", "leg thickness"),
+               ("I_x", "i4", "I of the pair about x"), ("I_y", "i4", "I of the pair about y (axis of symmetry)"),
+               ("J", "i4", "torsional constant of the pair")])
+    if ctx.prop("C_w", "i6", "warping constant", required=False) is None:
+        w.let("C_w", w.q(0.0, u["i6"]), desc="warping constant of a double angle", note="taken as 0 (common practice)")
+    ctx.radii()
+
+
+def e6(ctx, a, r_i, connectors):
+    """The modified slenderness of a double angle for buckling about y (E6.1), or the stated assumption."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    d = aisc()["E6"]
+    w.calc("lambda_o", "L_cy/r_y", unit="1", desc="slenderness of the built-up member acting as a unit about y, (L_c/r)_o")
+    if a is None:
+        w.note(f"No connector spacing a given: the two angles are taken to act as a unit, (L_c/r)_m = (L_c/r)_o — "
+               f"true only for connectors close enough (welded or pretensioned with a/r_i ≤ 40, {STD} E6-2a); give "
+               f"a=… and connectors=… for {STD} E6.1.", kind="method")
+        w.warn(f"double angle without a=…: the modified slenderness of {STD} E6.1 is not applied (assumed a/r_i ≤ 40 "
+               f"with welded or pretensioned connectors)", param="L")
+        w.calc("lambda_m", "lambda_o", unit="1", desc="(L_c/r)_m = (L_c/r)_o (assumed, see the note)")
+        return
+    if connectors is None:
+        w.fail(f"with a=… give connectors=\"snug-tight\", \"welded\" or \"pretensioned\" ({STD} E6.1)", param="connectors")
+    sc["a"] = a
+    if r_i is not None:
+        sc["r_i"] = r_i
+    elif field(ctx.section, "r_i") is not None:
+        w.let("r_i", field(ctx.section, "r_i"), unit=u["ln"], desc="least radius of gyration of one angle (r_z)",
+              note="from the section")
+    else:
+        w.fail(f"{STD} E6 needs r_i, the least radius of gyration of one angle (its r_z): give r_i=… or the "
+               f"record's r_i", param="r_i")
+    w.calc("lambda_i", "a/r_i", unit="1", desc="slenderness of one angle between connectors, a/r_i")
+    if connectors == "snug-tight":
+        w.calc("lambda_m", "sqrt(lambda_o^2 + lambda_i^2)", unit="1",
+               desc=f"modified slenderness, snug-tight bolted connectors, {STD} Eq. E6-1")
+    elif num(sc["lambda_i"]) <= d["a_over_ri_limit"]:
+        w.calc("lambda_m", "lambda_o", unit="1",
+               desc=f"a/r_i ≤ {d['a_over_ri_limit']:g}, {connectors} connectors: (L_c/r)_m = (L_c/r)_o, {STD} Eq. E6-2a")
+    else:
+        w.let("K_i", w.q(d["K_i_angles"], ""), desc=f"K_i for angles back to back, {STD} E6.1")
+        w.calc("lambda_m", "sqrt(lambda_o^2 + (K_i*lambda_i)^2)", unit="1",
+               desc=f"modified slenderness, {connectors} connectors, a/r_i > {d['a_over_ri_limit']:g}, {STD} Eq. E6-2b")
+    ki = d["K_i_angles"] if connectors != "snug-tight" else 1.0
+    gov = max(num(sc["lambda_m"]), sc["L_cx"].m_as("m") / sc["r_x"].m_as("m"))
+    if ki * num(sc["lambda_i"]) > d["component_limit"] * gov:
+        w.warn(f"K_i·a/r_i = {ki * num(sc['lambda_i']):.1f} exceeds 3/4 of the member's governing slenderness "
+               f"{gov:.1f} ({STD} E6.2): add connectors", param="a")
+
+
 def shear_centre(ctx):
     """x_o, y_o from the section record (or, for a tee, from ȳ − t_f/2)."""
     w, sc, u, rec = ctx.work, ctx.sc, ctx.u, ctx.section
     x0, y0 = field(rec, "x_0"), field(rec, "y_0")
-    if ctx.form == "T" and y0 is None and field(rec, "y_bar") is not None:
+    if ctx.form in ("T", "2L") and y0 is None and field(rec, "y_bar") is not None:
         sc["y_bar"] = field(rec, "y_bar")
-        w.calc("y_o", "y_bar - t_f/2", unit=u["ln"], desc="shear centre of a tee: at the flange mid-thickness, "
-                                                        "y_o = ȳ − t_f/2 (common practice)")
+        if ctx.form == "T":
+            w.calc("y_o", "y_bar - t_f/2", unit=u["ln"], desc="shear centre of a tee: at the flange mid-thickness, "
+                                                            "y_o = ȳ − t_f/2 (common practice)")
+        else:
+            w.calc("y_o", "y_bar - t/2", unit=u["ln"], desc="shear centre of a double angle: on the axis of symmetry "
+                                                          "at the horizontal legs' mid-thickness, y_o = ȳ − t/2 "
+                                                          "(common practice)")
         w.let("x_o", w.q(0.0, u["ln"]), desc="x_o = 0 (on the axis of symmetry)")
         return
     if x0 is None or y0 is None:
         w.fail(f"{STD} E4 needs the shear centre (x_0, y_0 from the centroid) of this "
-               f"{ {'C': 'channel', 'T': 'tee', 'L': 'angle', 'I': 'singly symmetric I-shape'}[ctx.form]}; use a "
+               f"{ {'C': 'channel', 'T': 'tee', 'L': 'angle', '2L': 'double angle', 'I': 'singly symmetric I-shape'}[ctx.form]}; use a "
                f"section record that gives it (section.rolled, the section shape functions) or give x_0, y_0 in "
                f"steel_design.shape(…)", param="section")
     scale = max(field(rec, "d").m_as("mm") if field(rec, "d") is not None else 1.0, 1.0)
@@ -82,7 +143,7 @@ def e4(ctx, candidates):
         return _e4_cubic(ctx, candidates)
     axis = "x" if ctx.form == "C" else "y"
     other = "y" if axis == "x" else "x"
-    what = {"C": "channel", "T": "tee", "I": "singly symmetric I-shape"}[ctx.form]
+    what = {"C": "channel", "T": "tee", "2L": "double angle", "I": "singly symmetric I-shape"}[ctx.form]
     w.note(f"E4 applies: a {what} is singly symmetric about its {axis} axis; flexural buckling about {axis} couples "
            f"with twisting (flexural-torsional buckling, {STD} Eq. E4-3 with the {axis} axis the axis of symmetry); "
            f"flexural buckling about {other} stays uncoupled (E3).", kind="method")
@@ -233,8 +294,8 @@ def f10(ctx, L_b, C_b, toe, restraint):
     if L_b is not None and L_b.magnitude > 0:
         if abs(sc["d"].m_as("mm") - sc["b_f"].m_as("mm")) > 1e-6 * sc["d"].m_as("mm"):
             w.fail(f"lateral-torsional buckling of an unequal-leg angle bent about a geometric axis is not built "
-                   f"({STD} F10.2 requires principal-axis bending for it); give L_b=0 for a continuously "
-                   f"restrained angle, or use an equal-leg angle", param="L_b")
+                   f"({STD} F10.2 requires principal-axis bending for it: give axes=\"principal\" with the principal-axis "
+                   f"moments); give L_b=0 for a continuously restrained angle, or use an equal-leg angle", param="L_b")
         sc["L_b"], sc["C_b"] = L_b, C_b
         sc["b_leg"] = sc["d"]
         if restraint == "none":
@@ -285,6 +346,158 @@ def f10(ctx, L_b, C_b, toe, restraint):
     else:
         w.note(f"The toe is in tension: leg local buckling does not apply ({STD} F10.3).", kind="method")
     return states
+
+
+def leg_geometry(d, b, t):
+    """Principal-axis geometry of an angle of flat legs (vertical leg d along +y, horizontal leg b along +x, heel
+    at the origin; fillets and toe roundings left out — common practice), by Gauss–Legendre integration over the
+    two leg rectangles (3 points a side: exact for the cubic integrands). Returns θ (x to the major axis w), the
+    corners' (w, z) coordinates keyed heel / v_toe (the vertical leg's toe corners) / h_toe, and |β_w| =
+    |(1/I_w)∫z(w² + z²)dA − 2z_0| (AISC 360-16 F10.2), z_0 the shear centre (the legs' midline intersection)."""
+    rects = [(0.0, t, 0.0, d), (t, b, 0.0, t)]
+    g, wg = np.polynomial.legendre.leggauss(3)
+
+    def integ(fn):
+        tot = 0.0
+        for x0, x1, y0, y1 in rects:
+            for gi, wi in zip(g, wg):
+                for gj, wj in zip(g, wg):
+                    x, y = (x0 + x1) / 2 + (x1 - x0) / 2 * gi, (y0 + y1) / 2 + (y1 - y0) / 2 * gj
+                    tot += wi * wj * (x1 - x0) * (y1 - y0) / 4 * fn(x, y)
+        return tot
+
+    A = integ(lambda x, y: 1.0)
+    xc, yc = integ(lambda x, y: x) / A, integ(lambda x, y: y) / A
+    Ix, Iy = integ(lambda x, y: (y - yc) ** 2), integ(lambda x, y: (x - xc) ** 2)
+    Ixy = integ(lambda x, y: (x - xc) * (y - yc))
+    th = 0.5 * math.atan2(-2 * Ixy, Ix - Iy)
+    c, s_ = math.cos(th), math.sin(th)
+    W = lambda x, y: (x - xc) * c + (y - yc) * s_  # noqa: E731
+    Z = lambda x, y: -(x - xc) * s_ + (y - yc) * c  # noqa: E731
+    Iw = integ(lambda x, y: Z(x, y) ** 2)
+    beta = integ(lambda x, y: Z(x, y) * (W(x, y) ** 2 + Z(x, y) ** 2)) / Iw - 2 * Z(t / 2, t / 2)
+    pts = {"heel": [(0.0, 0.0)], "v_toe": [(0.0, d), (t, d)], "h_toe": [(b, 0.0), (b, t)]}
+    return th, {k: [(W(x, y), Z(x, y)) for x, y in v] for k, v in pts.items()}, abs(beta), (xc, yc)
+
+
+def _principal_geometry(ctx, toe):
+    """Moduli about the principal axes to the heel and the toes, and β_w signed by the leg whose toe is in
+    compression under the major-axis moment ("toe" is the vertical leg's toe, as for the geometric axis)."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    if "S_w_min" in sc:
+        return
+    d_, b_, t_ = (sc[n].m_as("mm") for n in ("d", "b_f", "t"))
+    th, pts, beta, (xc, yc) = leg_geometry(d_, b_, t_)
+    mm = lambda v: w.q(v, "mm").to(u["ln"])  # noqa: E731
+    src = "from the flat legs (fillets left out, common practice), integrated exactly"
+    w.let("x_bar", mm(xc), unit=u["ln"], desc="centroid from the back of the vertical leg", note=src)
+    w.let("y_bar", mm(yc), unit=u["ln"], desc="centroid from the back of the horizontal leg", note=src)
+    w.let("alpha_w", w.q(math.degrees(th), "deg"), desc="angle from x to the major principal axis w", note=src)
+    zmax = max(abs(z) for v in pts.values() for _w, z in v)
+    wmax = max(abs(w_) for v in pts.values() for w_, _z in v)
+    w.let("z_max", mm(zmax), unit=u["ln"], desc="the farthest corner from the major principal axis w", note=src)
+    w.let("w_max", mm(wmax), unit=u["ln"], desc="the farthest corner from the minor principal axis z", note=src)
+    w.calc("S_w_min", "I_1/z_max", unit=u["i3"], desc="least elastic modulus about w (first yield)")
+    w.calc("S_z_min", "I_2/w_max", unit=u["i3"], desc="least elastic modulus about z (first yield)")
+    # the side of w in compression: the vertical leg's toe side (toe="compression") or the other
+    zv = pts["v_toe"][0][1]
+    side = (1 if zv > 0 else -1) * (1 if toe == "compression" else -1)
+    ctx.toes_c = [k for k in ("v_toe", "h_toe") if any(z * side > 1e-9 * max(d_, b_) for _w, z in pts[k])]
+    for k in ctx.toes_c:
+        zc = max(abs(z) for _w, z in pts[k])
+        w.let(f"z_{k}", mm(zc), unit=u["ln"], desc=f"the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe "
+                                                  f"to w", note=src)
+        w.calc(f"S_w_{k}", f"I_1/z_{k}", unit=u["i3"], desc=f"elastic modulus about w to the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe (in compression)")
+    for k in ("v_toe", "h_toe"):
+        wc = max(abs(w_) for w_, _z in pts[k])
+        w.let(f"w_{k}", mm(wc), unit=u["ln"], desc=f"the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe to z",
+              note=src)
+        w.calc(f"S_z_{k}", f"I_2/w_{k}", unit=u["i3"], desc=f"elastic modulus about z to the {'vertical' if k == 'v_toe' else 'horizontal'} leg's toe")
+    equal = abs(d_ - b_) <= 1e-6 * d_
+    if equal:
+        w.let("beta_w", w.q(0.0, u["ln"]), desc=f"β_w = 0 for an equal-leg angle ({STD} F10.2)")
+        return
+    short_toe = "v_toe" if d_ < b_ else "h_toe"
+    short_c = short_toe in ctx.toes_c
+    w.let("beta_w", mm(beta if short_c else -beta), unit=u["ln"],
+          desc=f"β_w = (1/I_w)∫z(w² + z²)dA − 2z_0, {'positive: the short leg in compression' if short_c else 'negative: the long leg in compression'} ({STD} F10.2)",
+          note=src)
+
+
+def f10_principal(ctx, L_b, C_b, toe):
+    """F10 for a single angle bent about its major principal axis w."""
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    d = aisc()["F10"]
+    _principal_geometry(ctx, toe)
+    w.note(f"Single angle bent about its major principal axis w, the vertical leg's toe in {toe}: {STD} F10 "
+           f"(yielding, lateral-torsional buckling by F10-4, leg local buckling of a leg whose toe is in "
+           f"compression).", kind="method")
+    w.calc("M_y", "F_y*S_w_min", unit=u["mo"], desc="yield moment about w (first yield)")
+    w.calc("M_n_Y", f"{d['yield_factor']:g}*M_y", unit=u["mo"], desc=f"yielding, {STD} Eq. F10-1")
+    states = {"yielding (F10-1)": "M_n_Y"}
+    if L_b is not None and L_b.magnitude > 0:
+        sc["L_b"], sc["C_b"] = L_b, C_b
+        w.calc("C_b_F10", f"min(C_b, {d['Cb_max']:g})", unit="1", desc=f"C_b ≤ {d['Cb_max']:g} ({STD} F10.2)")
+        w.calc("r_z", "sqrt(I_2/A)", unit=u["ln"], desc="radius of gyration about the minor principal axis z")
+        w.calc("M_cr", "9*E*A*r_z*t*C_b_F10/(8*L_b)*(sqrt(1 + (4.4*beta_w*r_z/(L_b*t))^2) + 4.4*beta_w*r_z/(L_b*t))",
+               unit=u["mo"], desc=f"elastic LTB moment, major principal axis, {STD} Eq. F10-4")
+        ratio = sc["M_y"].m_as("N*m") / sc["M_cr"].m_as("N*m")
+        if ratio <= 1:
+            w.calc("M_n_LTB", "min((1.92 - 1.17*sqrt(M_y/M_cr))*M_y, 1.5*M_y)", unit=u["mo"],
+                   desc=f"M_y/M_cr = {ratio:.3f} ≤ 1: lateral-torsional buckling, {STD} Eq. F10-2")
+            states["lateral-torsional buckling (F10-2)"] = "M_n_LTB"
+        else:
+            w.calc("M_n_LTB", "(0.92 - 0.17*M_cr/M_y)*M_cr", unit=u["mo"],
+                   desc=f"M_y/M_cr = {ratio:.3f} > 1: lateral-torsional buckling, {STD} Eq. F10-3")
+            states["lateral-torsional buckling (F10-3)"] = "M_n_LTB"
+    else:
+        w.note(f"L_b = 0 (continuously restrained): lateral-torsional buckling does not apply ({STD} F10.2).",
+               kind="method")
+    if not ctx.toes_c:
+        w.note(f"No toe is in compression: leg local buckling does not apply ({STD} F10.3).", kind="method")
+    for k in ctx.toes_c:
+        _leg_local(ctx, f"S_w_{k}", states, "w", k)
+    return states
+
+
+def f10_minor(ctx):
+    """F10 for a single angle bent about its minor principal axis z; the moment's sign is not asked, so the leg
+    local buckling of both toes is checked (the lesser governs, conservative for an unequal-leg angle)."""
+    w = ctx.work
+    d = aisc()["F10"]
+    w.note(f"Single angle bent about its minor principal axis z: yielding and leg local buckling of either toe "
+           f"({STD} F10.1, F10.3); no lateral-torsional buckling about the minor axis.", kind="method")
+    w.calc("M_y_z", "F_y*S_z_min", unit=ctx.u["mo"], desc="yield moment about z (first yield)")
+    w.calc("M_n_Yz", f"{d['yield_factor']:g}*M_y_z", unit=ctx.u["mo"], desc=f"yielding about z, {STD} Eq. F10-1")
+    states = {"yielding (F10-1)": "M_n_Yz"}
+    for k in ("v_toe", "h_toe"):
+        _leg_local(ctx, f"S_z_{k}", states, "z", k)
+    return states
+
+
+def _leg_local(ctx, modulus, states, axis, toe):
+    w, sc, u = ctx.work, ctx.sc, ctx.u
+    leg = "d" if toe == "v_toe" else "b_f"
+    lam_name = f"lambda_{toe}"
+    if lam_name not in sc:
+        w.calc(lam_name, f"{leg}/t", unit="1", desc=f"b/t of the {'vertical' if leg == 'd' else 'horizontal'} leg")
+    lam = num(sc[lam_name])
+    lp, lr = num(sc["lambda_p_f"]), num(sc["lambda_r_f"])
+    tag = f"{axis}_{toe}"
+    where = f"about {axis}, {'vertical' if leg == 'd' else 'horizontal'} leg"
+    if lam <= lp:
+        w.note(f"Compact leg ({where}: b/t = {lam:.2f} ≤ λ_p = {lp:.2f}): leg local buckling does not apply "
+               f"({STD} F10.3(a)).", kind="method")
+    elif lam <= lr:
+        w.calc(f"M_n_LLB_{tag}", f"F_y*{modulus}*(2.43 - 1.72*{lam_name}*sqrt(F_y/E))", unit=u["mo"],
+               desc=f"leg local buckling, noncompact leg ({where}), {STD} Eq. F10-6")
+        states[f"leg local buckling, noncompact, {where} (F10-6)"] = f"M_n_LLB_{tag}"
+    else:
+        if f"F_cr_LLB_{toe}" not in sc:
+            w.calc(f"F_cr_LLB_{toe}", f"0.71*E/{lam_name}^2", unit=u["st"], desc=f"{STD} Eq. F10-8")
+        w.calc(f"M_n_LLB_{tag}", f"F_cr_LLB_{toe}*{modulus}", unit=u["mo"],
+               desc=f"leg local buckling, slender leg ({where}), {STD} Eq. F10-7")
+        states[f"leg local buckling, slender, {where} (F10-7)"] = f"M_n_LLB_{tag}"
 
 
 # ---------------------------------------------------------------- Chapter G3

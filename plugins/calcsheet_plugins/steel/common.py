@@ -16,6 +16,8 @@ ALIASES = {
     "S_y": ("S_y", "W_el_z"), "Z_y": ("Z_y", "W_pl_z"), "r_x": ("r_x", "i_y"), "r_y": ("r_y", "i_z"),
     "J": ("J", "I_t"), "C_w": ("C_w", "I_w"), "h_o": ("h_o",), "r_ts": ("r_ts",),
     "B": ("B", "b", "width"), "H": ("H", "h", "d", "depth"), "t": ("t", "t_des"), "D": ("D", "d", "depth"),
+    "r_i": ("r_i", "r_z_single"),
+    "b_f_bot": ("b_f_bot", "b_bot"), "t_f_bot": ("t_f_bot", "t_fb"),
     "x_0": ("x_0",), "y_0": ("y_0",), "I_1": ("I_1",), "I_2": ("I_2",), "theta_p": ("theta_p",),
 }
 
@@ -49,6 +51,14 @@ def field(rec, name):
 
 
 FORMS = ("I", "C", "T", "L", "RHS", "CHS")
+# forms a sheet may name but no check is built for: each refused with the clauses it would need
+REFUSED_FORMS = {}
+# forms built for some checks only: the message for the checks that refuse them
+PARTIAL_FORMS = {
+    "2L": "flexure and shear of double angles are not built: AISC 360-16 F9 (2L: F9.2(b) lateral-torsional "
+          "buckling with the web legs in compression, F9.4(b) web-leg local buckling) and G3 for 2L are outside "
+          "what is implemented; double angles in compression are checked by aisc_column (E3, E4, E6)",
+}
 _WORDS = {"I-shape": "I", "channel": "C", "tee": "T", "angle": "L", "box": "RHS", "tube": "CHS"}
 _PREFIX = (("MC", "C"), ("WT", "T"), ("MT", "T"), ("ST", "T"), ("HSS", None), ("HP", "I"), ("W", "I"), ("M", "I"),
            ("S", "I"), ("C", "C"), ("L", "L"), ("IPE", "I"), ("HE", "I"))
@@ -67,13 +77,15 @@ def form_of(rec, given: str | None) -> str:
     if rec is None:
         return ""
     shape = str(rec.fields.get("shape", ""))
-    if shape in FORMS:
+    if shape in FORMS or shape in REFUSED_FORMS or shape in PARTIAL_FORMS:
         return shape
     first = shape.split(" ")[0] if shape else ""
     if first in _WORDS:
         return _WORDS[first]
     f = rec.fields
     desig = str(f.get("designation", "")).upper()
+    if desig.startswith("2L") or str(f.get("name", "")).upper().startswith("2L"):
+        return "2L"
     if desig:
         for prefix, form in _PREFIX:
             if desig.startswith(prefix) and prefix != "HSS" and (len(desig) == len(prefix) or

@@ -64,3 +64,14 @@ def from_beam(work, beam, combo, start, end, unit):
         x = a + frac * (b - a)
         work.let(nm, q(abs(M(x))), unit=unit, desc=f"|M| at the {where} of the segment", note=f"{src}, at x = {at(x)}")
     return name
+
+
+def segment_sign(work, beam, combo, start, end) -> float:
+    """+1 if the moment where |M| is largest over the segment is sagging, −1 if hogging (the beam's convention)."""
+    from calcsheet_plugins.beam.query import moment_diagram
+
+    M, L, _name, pieces = moment_diagram(work, beam, combo)
+    a = 0.0 if start is None else float(start.m_as("m"))
+    b = L if end is None else min(float(end.m_as("m")), L)
+    _m, x = segment_max(M, pieces, a, b)
+    return 1.0 if M(x) >= 0 else -1.0

@@ -9,7 +9,7 @@ from __future__ import annotations
 from calcsheet.plugin import Field, Param
 
 from . import namespace
-from .common import FORMS
+from .common import FORMS, PARTIAL_FORMS, REFUSED_FORMS
 
 _PROPS = [
     ("A", "[length]**2", "gross area"),
@@ -36,6 +36,15 @@ _PROPS = [
     ("B", "[length]", "HSS overall width"),
     ("t", "[length]", "HSS design wall thickness"),
     ("D", "[length]", "round HSS / pipe outside diameter"),
+    ("S_x_top", "[length]**3", "singly symmetric I: elastic modulus to the top fibre"),
+    ("S_x_bot", "[length]**3", "singly symmetric I: elastic modulus to the bottom fibre"),
+    ("y_top", "[length]", "singly symmetric I: the centroid to the top fibre"),
+    ("y_bot", "[length]", "singly symmetric I: the centroid to the bottom fibre (default d − y_top)"),
+    ("y_c", "[length]", "singly symmetric I: the centroid, measured upwards (same origin as y_p)"),
+    ("y_p", "[length]", "singly symmetric I: the plastic neutral axis, measured upwards (same origin as y_c)"),
+    ("r_i", "[length]", "double angles: least radius of gyration of one angle (its r_z), for E6"),
+    ("b_f_bot", "[length]", "singly symmetric I: bottom flange width (b_f, t_f are the top flange's)"),
+    ("t_f_bot", "[length]", "singly symmetric I: bottom flange thickness"),
     ("x_0", "[length]", "shear centre from the centroid along x (channels: behind the web, negative)"),
     ("y_0", "[length]", "shear centre from the centroid along y (tees: towards the flange)"),
     ("y_bar", "[length]", "tees: the outer face of the flange to the centroid (AISC ȳ)"),
@@ -45,7 +54,10 @@ _PROPS = [
 ]
 
 PARAMS = [Param("name", kind="text", doc="designation, as printed (e.g. \"W18X50\")"),
-          Param("form", kind="text", choices=FORMS, doc="I (I/H, W), C (channel), T (tee), L (single angle), RHS (rectangular/square HSS), "
+          Param("form", kind="text", choices=FORMS + tuple(PARTIAL_FORMS) + tuple(REFUSED_FORMS),
+                doc="I (I/H, W), C (channel), T (tee), L (single angle), 2L (double angles, back to back: compression "
+                    "only), "
+                    "RHS (rectangular/square HSS), "
                     "CHS (round)"),
           Param("fabrication", kind="text", choices=("rolled", "welded", "hot-finished", "cold-formed"),
                 doc="how the section is made (buckling curves, G2.1(a))", default="rolled")]

@@ -85,3 +85,17 @@ def test_the_working_names_the_support_that_holds_the_member(supports, held):
     assert r.ok, r.diagnostics
     (step,) = [s for s in r.values["b"].working.items if getattr(s, "name", None) == "N_max"]
     assert f"support {held} holds the member" in step.note
+
+
+def test_a_force_close_to_the_left_end_starts_the_compressed_stretch_where_it_acts():
+    # held at B (x = 6 m), 10 kN toward +x at x = 0.5 m pushes 0.5–6 m into B: compression 10 kN there, nothing
+    # on 0–0.5 m; the largest compression is first reached at the force (statics of the part left of a section)
+    b = fields(solve("roller, pinned", "beam.axial(F=10 kN, x=0.5 m)"))
+    assert b["N_max"].m_as("kN") == pytest.approx(10.0) and b["x_N_max"].m_as("m") == pytest.approx(0.5)
+
+
+def test_a_pull_close_to_the_left_end_leaves_the_stretch_before_it_unloaded():
+    # held at B, 10 kN toward −x at x = 0.5 m pulls 0.5–6 m in tension (−10 kN); 0–0.5 m carries nothing, so the
+    # largest compression is 0, at the left end
+    b = fields(solve("roller, pinned", "beam.axial(F=-10 kN, x=0.5 m)"))
+    assert b["N_max"].m_as("kN") == pytest.approx(0.0) and b["x_N_max"].m_as("m") == pytest.approx(0.0)

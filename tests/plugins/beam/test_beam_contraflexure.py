@@ -65,3 +65,34 @@ def test_where_the_moment_ends_on_a_cantilever_is_reported_as_its_point_of_zero_
     # fixed at A, P at mid-span: M = −P(L/2 − x) up to the load and nothing beyond it (statics of the free end):
     # the moment reaches zero at the load and stays zero, and that place is reported (the ends are not)
     assert result("6 m", "fixed, free", "beam.point(P=10 kN, x=3 m)") == pytest.approx([3.0], rel=1e-12)
+
+
+def test_a_trapezoidal_load_against_a_hogging_overhang_changes_sign_where_the_cubic_moment_vanishes():
+    # pinned at A (x = 0), roller at B (x = 6 m), free tip at 8 m with P = 20 kN; w = 5 → 15 kN/m over A–B.
+    # On A–B the moment is a cubic with every coefficient non-zero (shear, uniform part, growing part); its
+    # root inside the span, from the statics of the free body 0–x solved by sympy (independent of the solver):
+    import sympy as sp
+
+    x, s = sp.symbols("x s", real=True)
+    w = 5 + sp.Rational(10, 6) * s  # kN/m
+    P, a, Lt = 20, 6, 8
+    R_B = (sp.integrate(w * s, (s, 0, a)) + P * Lt) / a  # ΣM about A = 0
+    R_A = sp.integrate(w, (s, 0, a)) + P - R_B  # ΣF = 0
+    M = R_A * x - sp.integrate(w * (x - s), (s, 0, x))  # the free body 0–x
+    assert sp.simplify(M.subs(x, a) + P * (Lt - a)) == 0  # M_B = −P·2 m, the overhang's statics
+    roots = [float(r) for r in sp.solve(sp.Eq(M, 0), x) if r.is_real and 0 < float(r) < a]
+    assert len(roots) == 1
+    got = result("6 m, 2 m", "pinned, roller, free",
+                 "beam.varying(w_1=5 kN/m, w_2=15 kN/m, start=0 m, end=6 m), beam.point(P=20 kN, x=8 m)")
+    assert got == pytest.approx(roots, rel=1e-9)
+
+
+@pytest.mark.parametrize("supports", ["fixed, free", "free, fixed"])
+@pytest.mark.parametrize("x", [1.5, 2.0, 2.5, 3.0, 3.5])
+@pytest.mark.parametrize("P", [7.0, 10.0, 12.5])
+def test_where_the_moment_ends_on_a_cantilever_is_reported_whichever_end_is_fixed(supports, x, P):
+    # statics of the free end: M = −P·(distance from the load toward the fixed end) on the loaded side of the
+    # load and exactly nothing between the load and the free end, so the moment ends at the load, with a
+    # non-zero slope there (common practice). Round-off leaves ±1e-12 kN·m on the unloaded side, of either
+    # sign, or exactly zero: the place is reported whatever that remnant is.
+    assert result("6 m", supports, f"beam.point(P={P} kN, x={x} m)") == pytest.approx([x], rel=1e-12)

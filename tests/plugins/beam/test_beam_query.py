@@ -192,3 +192,39 @@ def test_an_indeterminate_beam_says_which_stiffness_it_needs():
     msgs = [d.message for d in r.diagnostics if d.severity == "error"]
     assert msgs and "statically indeterminate" in msgs[0] and "give I (or section=…)" in msgs[0]
     assert "give E" not in msgs[0]
+
+
+def test_the_slope_at_a_hinge_is_the_slope_just_to_its_right():
+    # fixed at A, an internal hinge at B (4 m), roller at C (8 m), w = 10 kN/m throughout. Statics: B–C is a
+    # simple span carried by A–B at the hinge, so A–B is a cantilever with its own load and P = w·b/2 at its tip.
+    # Roark Table 8.1 (from memory): the cantilever's tip deflection and slope δ_B = w·a⁴/8EI + P·a³/3EI,
+    # θ_B⁻ = w·a³/6EI + P·a²/2EI; B–C turns as a rigid body by −δ_B/b and bends as a simple span, end slope
+    # w·b³/24EI; θ_B⁺ = w·b³/24EI − δ_B/b (downward deflection positive). The field is documented as θ_B⁺.
+    w, a, b = 10e3, 4.0, 4.0
+    P = w * b / 2
+    d_B = w * a**4 / (8 * EI) + P * a**3 / (3 * EI)
+    left = w * a**3 / (6 * EI) + P * a**2 / (2 * EI)
+    right = w * b**3 / (24 * EI) - d_B / b
+    r = run(f"""
+        g = beam.solve(spans=[4 m, 4 m], supports="fixed, hinge, roller", {STIFF}, loads=[beam.udl(w=10 kN/m)])
+        rg = beam.result(member=g)
+    """)
+    assert f(r, "rg", "theta_B", "rad") == pytest.approx(right, rel=1e-9)
+    assert abs(right - left) > 0.5 * abs(left)  # the two sides really differ: reading the left would fail
+    # the last support has nothing to its right: its slope is the one just to its left, the simple span's
+    # far-end slope plus the same rigid turn, θ_C = −w·b³/24EI − δ_B/b
+    assert f(r, "rg", "theta_C", "rad") == pytest.approx(-w * b**3 / (24 * EI) - d_B / b, rel=1e-9)
+
+
+def test_an_overhang_beyond_a_loaded_span_lifts_by_the_supports_rotation_times_its_length():
+    # simple span L = 6 m under w = 10 kN/m, a 2 m overhang a unloaded: it turns rigidly with the span's end
+    # slope wL³/24EI, so its tip rises wL³a/24EI = 9 mm; the span sags 5wL⁴/384EI = 8.4375 mm at mid-span
+    # (AISC Manual Table 3-23, beam overhanging one support, uniform load between supports; from memory)
+    r = run(f"""
+        b = beam.solve(spans=[6 m, 2 m], supports="pinned, roller, free", {STIFF},
+                       loads=[beam.udl(w=10 kN/m, start=0 m, end=6 m)])
+    """)
+    w, L, a = 10e3, 6.0, 2.0
+    assert f(r, "b", "delta_up", "m") == pytest.approx(w * L**3 * a / (24 * EI), rel=1e-9)
+    assert f(r, "b", "x_delta_up", "m") == pytest.approx(8.0)
+    assert f(r, "b", "delta_down", "m") == pytest.approx(5 * w * L**4 / (384 * EI), rel=1e-9)

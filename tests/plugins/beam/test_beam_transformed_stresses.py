@@ -97,3 +97,33 @@ def test_a_one_material_section_keeps_the_plain_flexure_formula():
     assert f["n_materials"].m_as("") == 1 and "n_1" not in f
     # σ = M/(b·h²/6) = 20e6/(100·200²/6) = 30 MPa (rectangle section modulus, any mechanics text)
     assert f["sigma_max"].m_as("MPa") == pytest.approx(30.0, rel=1e-9)
+
+
+def _n_descriptions(r):
+    from calcsheet.trace import Step
+
+    return {s.name: s.description for s in r.values["st"].working.items
+            if isinstance(s, Step) and s.name.startswith("n_") and s.name[2:].isdigit()}
+
+
+def test_each_materials_modular_ratio_names_the_parts_of_that_material(run):
+    d = _n_descriptions(run)
+    assert "(left ply, right ply)" in d["n_1"], d
+    assert "(flitch plate)" in d["n_2"], d
+
+
+def test_a_material_of_exactly_three_parts_names_all_three_without_an_ellipsis():
+    sheet = (f"E_t = {E_t} MPa\nE_s = {E_s} MPa\n"
+             f'ply = section.rectangle(b={b_t} mm, h={h_t} mm, detail="brief")\n'
+             f'plate = section.rectangle(b={t_p} mm, h={h_p} mm, detail="brief")\n'
+             'p1 = section.part(shape=ply, x=0 mm, y=0 mm, E=E_t, name="ply 1")\n'
+             f'p2 = section.part(shape=ply, x={b_t} mm, y=0 mm, E=E_t, name="ply 2")\n'
+             f'pl = section.part(shape=plate, x={2 * b_t} mm, y={e_p} mm, E=E_s, name="plate")\n'
+             f'p3 = section.part(shape=ply, x={2 * b_t + t_p} mm, y=0 mm, E=E_t, name="ply 3")\n'
+             "fb = section.built_up(parts=[p1, p2, pl, p3], E_ref=E_t)\n"
+             f'b = beam.solve(spans=[{L} m], supports="pinned, roller", loads=[beam.udl(w={w} kN/m)])\n'
+             "st = beam.stresses(member=b, section=fb)\n")
+    r = calcsheet.run(sheet)
+    assert not r.errors, [e.message for e in r.errors]
+    d = _n_descriptions(r)
+    assert "(ply 1, ply 2, ply 3)" in d["n_1"] and "…" not in d["n_1"], d

@@ -228,15 +228,22 @@ def test_with_many_combinations_equilibrium_is_tabulated_and_a_couple_adds_no_fo
                       'beam.axial(F=-7 kN, x=8 m, case="D"), '
                       f'beam.point(P=3 kN, x=6 m, case="L")], combos=[{combos}])\n')
     assert r.ok, r.diagnostics
-    t = _table(r.values["b"].working.items, "Equilibrium by combination")
+    items = r.values["b"].working.items
+    t = _table(items, "Equilibrium by combination")
     assert len(t.rows) == 9
+    # one row per combination: its reactions beside the sums, so there is no separate reactions table
+    assert t.columns == ["Combination", "R_A", "R_B", "R_C", "ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"]
+    assert not [i for i in items if isinstance(i, Table) and i.title.startswith("Reactions")]
     for k, row in enumerate(t.rows):
+        cell = dict(zip(t.columns, row))
         fD, fL = 1 + k / 10, k / 4
         W = fD * 2 * 8 + fL * 3  # kN: the uniform load over 8 m and the point load; the couple adds nothing
-        assert row[0] == f"C{k}"
-        assert row[1].m_as("kN") == pytest.approx(W, rel=1e-12) and row[2].m_as("kN") == pytest.approx(W, rel=1e-9)
+        assert cell["Combination"] == f"C{k}"
+        assert cell["ΣW"].m_as("kN") == pytest.approx(W, rel=1e-12)
+        assert cell["ΣR"].m_as("kN") == pytest.approx(W, rel=1e-9)
+        assert sum(cell[R].m_as("kN") for R in ("R_A", "R_B", "R_C")) == pytest.approx(W, rel=1e-9)
         # moments about A, clockwise positive: w·8·4 + the couple + P·6
-        assert row[3].m_as("kN*m") == pytest.approx(fD * (2 * 8 * 4 + 5) + fL * 3 * 6, rel=1e-12)
+        assert cell["ΣW·a"].m_as("kN*m") == pytest.approx(fD * (2 * 8 * 4 + 5) + fL * 3 * 6, rel=1e-12)
 
 
 def test_the_slopes_at_the_supports_of_a_simple_span():
@@ -294,3 +301,29 @@ def test_a_traced_step_never_reuses_a_fields_name_for_another_quantity():
     for s in rec.working.items:
         if isinstance(s, Step) and s.name in rec.fields and hasattr(rec.fields[s.name], "m_as"):
             assert s.value.m_as(rec.fields[s.name].units) == pytest.approx(rec.fields[s.name].magnitude, abs=1e-9)
+
+
+def test_a_reaction_exactly_at_the_section_of_the_largest_moment_has_no_arm_and_no_term():
+    # pinned A, roller B at 4 m, an upward 10 kN at the tip (6 m): M = R_A·x on A–B, largest (20 kN·m sagging)
+    # at B itself, x₀ = 4 m. The forces to the left of x₀ are R_A alone; R_B acts at x₀ (statics: no arm)
+    r = calcsheet.run('b = beam.solve(spans=[4 m, 2 m], supports="pinned, roller, free", E=200 GPa, I=1e8 mm^4, '
+                      'loads=[beam.point(P=-10 kN, x=6 m)])\n')
+    assert r.ok, r.diagnostics
+    items = r.values["b"].working.items
+    assert r.values["b"].fields["x_M_max"].m_as("m") == pytest.approx(4.0)
+    f = _formula(items, "M_0")
+    assert "R_A" in f and "R_B" not in f, f
+    # and the place was found where the shear changes sign across the support's reaction, not at a root of V
+    (x0,) = [s for s in items if isinstance(s, Step) and s.name == "x_0"]
+    assert "changes sign" in (x0.note or ""), x0.note
+
+
+def test_a_beam_solved_by_statics_alone_keeps_its_handbook_cross_check_of_forces_and_has_none_of_deflection():
+    # no E, no I: reactions and moments still follow from statics, R = wL/2 = 30 kN, M = wL²/8 = 45 kN·m (AISC
+    # Manual Table 3-23, simple beam, uniform load); a deflection needs EI, so its cross-check is left out
+    r = calcsheet.run('b = beam.solve(spans=[6 m], supports="pinned, roller", loads=[beam.udl(w=10 kN/m)])\n')
+    assert r.ok, r.diagnostics
+    steps = {s.name: s.value for s in r.values["b"].working.items if isinstance(s, Step)}
+    assert steps["R_hb"].m_as("kN") == pytest.approx(30.0) and steps["M_hb"].m_as("kN*m") == pytest.approx(45.0)
+    assert steps["R_sol"].m_as("kN") == pytest.approx(30.0) and steps["M_sol"].m_as("kN*m") == pytest.approx(45.0)
+    assert not any(name.startswith("delta_hb") or name.startswith("delta_sol") for name in steps)

@@ -75,7 +75,9 @@ def test_equilibrium_holds_for_every_combination():
     assert len(checks) == 2 and all(c.ok for c in checks)  # many combinations: the worst residual is checked
     table = next(it for it in rec.working.items if isinstance(it, Table) and it.title.startswith("Equilibrium"))
     assert [row[0] for row in table.rows] == names_of(rec)
-    for name, W, R, MW, MR in table.rows:  # and every row balances
+    for row in table.rows:  # and every row balances (columns read by name: the reactions stand beside the sums)
+        cell = dict(zip(table.columns, row))
+        W, R, MW, MR = (cell[k] for k in ("ΣW", "ΣR", "ΣW·a", "ΣR·a + couples"))
         assert R.m_as("kN") == pytest.approx(W.m_as("kN"), rel=1e-9, abs=1e-9)
         assert MR.m_as("kN*m") == pytest.approx(MW.m_as("kN*m"), rel=1e-9, abs=1e-9)
 

@@ -177,3 +177,38 @@ def test_parallel_axis_about_a_named_axis(run):
     assert s["I_x_ref"].m_as("mm^4") == pytest.approx(I_base, rel=1e-12)
     I_left = 12 * 150**3 / 12 + 1800 * 75**2 + 188 * 10**3 / 12 + 1880 * 75**2
     assert s["I_y_ref"].m_as("mm^4") == pytest.approx(I_left, rel=1e-12)
+
+
+def test_a_stack_of_ten_plates_with_ten_bolt_holes(run):
+    # many parts, most pairs far apart: the pairwise tests must still find every contact and every hole
+    lines = ['pl = section.rectangle(b=300 mm, h=20 mm)', 'ct = section.rectangle(b=22 mm, h=20 mm)']
+    names = []
+    for k in range(10):
+        lines += [f"p{k} = section.part(shape=pl, y={20 * k} mm)",
+                  f"h{k} = section.hole(shape=ct, x=60 mm, y={20 * k + 10} mm)"]
+        names += [f"p{k}", f"h{k}"]
+    r = run("\n".join(lines) + f"\ns = section.built_up(parts=[{', '.join(names)}])\n")
+    assert not [d for d in r.diagnostics if d.severity in ("error", "warning")], r.diagnostics
+    g = r.values["s"].fields
+    # hand calculation: a 300 × 200 block (a part's default anchor is its bottom-left corner: x from 0 to 300)
+    # less a 22 × 200 slot centred on x = 60
+    A = 300 * 200 - 22 * 200
+    x_c = (300 * 200 * 150 - 22 * 200 * 60) / A
+    assert mm(g["A"], "mm^2") == pytest.approx(A, rel=1e-12)
+    assert mm(g["y_c"]) == pytest.approx(100.0, rel=1e-12)
+    assert mm(g["x_c"]) == pytest.approx(x_c, rel=1e-12)
+    assert mm(g["I_x"], "mm^4") == pytest.approx((300 - 22) * 200**3 / 12, rel=1e-12)
+    I_y = 200 * 300**3 / 12 + 300 * 200 * (150 - x_c) ** 2 - (200 * 22**3 / 12 + 22 * 200 * (60 - x_c) ** 2)
+    assert mm(g["I_y"], "mm^4") == pytest.approx(I_y, rel=1e-12)
+
+
+@pytest.mark.parametrize("gap, apart", [("0.001 mm", False), ("0.5 mm", True)])
+def test_parts_count_as_touching_within_the_tolerance_only(run, gap, apart):
+    # touching tolerance 1e-4 of the section's size (100 mm here): 0.01 mm
+    r = run(f"""
+        a = section.part(shape=section.rectangle(b=100 mm, h=10 mm), name="lower")
+        b = section.part(shape=section.rectangle(b=100 mm, h=10 mm), y=10 mm + {gap}, name="upper")
+        s = section.built_up(parts=[a, b])
+    """)
+    warns = [d for d in r.diagnostics if d.severity == "warning" and "not connected" in d.message]
+    assert bool(warns) == apart

@@ -141,9 +141,12 @@ def _model(e):
     if e.model == "I":
         return FL.ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
     if e.model == "I-tapered":
-        return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        return FL.tapered_ishape(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"], g.get("r_toe", 0.0))
     if e.model == "C-tapered":
-        return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], C.AISC_FLANGE_SLOPE)
+        return FL.tapered_channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"], g.get("r_toe", 0.0),
+                                  g.get("u"))
+    if e.model == "T-tapered":
+        return FL.tapered_tee(g["h"], g["b"], g["t_f"], g["t_w"], g["r"], g["slope"], r_toe=g.get("r_toe", 0.0))
     if e.model == "C":
         return FL.channel(g["h"], g["b"], g["t_f"], g["t_w"], g["r"])
     if e.model == "T":
@@ -158,13 +161,14 @@ def _model(e):
 
 # family -> (largest deviation of A, I_x, I_y allowed, share of rows within 1 %): the parallel-flange and hollow
 # families reproduce their tables to the tables' own rounding; angles lack their toe radii; AISC Pipe areas
-# are not all consistent with the tabulated OD and t_des (Pipe10STD: −3.3 %); S and C have tapered flanges
-# and toe radii (the taper is modelled, with the root radius from k_des and the flange's thickness at the web; the
-# toe radii are not tabulated); an MC's flange slope is not modelled at all (I_y up to 25 % off); some M shapes
-# (M8X6.5: I_x +7 %) have fillets from k_des larger than their areas allow.
-FAMILIES = {"S": (0.045, 0.0), "C": (0.04, 0.0), "MC": (0.3, 0.0), "M": (0.075, 0.25), "W": (0.02, 0.85), "HP": (0.035, 0.75), "WT": (0.02, 0.8), "HSS": (0.01, 1.0), "HSS_R": (0.02, 0.9),
-            "PIPE": (0.035, 0.7), "L": (0.035, 0.5), "IPE": (0.01, 1.0), "HEA": (0.01, 1.0), "HEB": (0.01, 1.0),
-            "HEM": (0.01, 1.0), "RHS": (0.01, 1.0), "SHS": (0.01, 1.0), "CHS": (0.01, 1.0)}
+# are not all consistent with the tabulated OD and t_des (Pipe10STD: −3.3 %). S, C, MC and M take root and toe
+# radii (and an MC its slope) derived from the table's own A, I_x, I_y (and x̄), so these three agree to the fit's
+# residual (aisc_v16_derived.csv, at most 1.4 %); ST and MT take the radii of the S or M they are cut from, so for
+# them A, I_x and I_y are an independent check (ST1.5X2.85: I_x +3.5 %, the worst).
+FAMILIES = {"S": (0.01, 1.0), "C": (0.015, 0.9), "MC": (0.01, 1.0), "M": (0.01, 1.0), "ST": (0.035, 0.6),
+            "MT": (0.01, 1.0), "W": (0.02, 0.85), "HP": (0.035, 0.75), "WT": (0.02, 0.8), "HSS": (0.01, 1.0),
+            "HSS_R": (0.02, 0.9), "PIPE": (0.035, 0.7), "L": (0.035, 0.5), "IPE": (0.01, 1.0), "HEA": (0.01, 1.0),
+            "HEB": (0.01, 1.0), "HEM": (0.01, 1.0), "RHS": (0.01, 1.0), "SHS": (0.01, 1.0), "CHS": (0.01, 1.0)}
 
 
 @pytest.mark.parametrize("family", sorted(FAMILIES))
@@ -182,12 +186,13 @@ def test_every_family_agrees_with_its_geometric_model(family):
 
 
 def test_a_deviating_model_is_a_warning_at_the_designation(run):
-    # an MC channel's flange slope is not modelled: its I_y is far off the table's
-    r = run('s = section.rolled(designation="MC12X31")\n')
+    # an AISC C channel's tabulated C_w is the parallel-flange closed form (AISC Design Guide 9), about 20 % above
+    # the warping analysis of its tapered flanges (test_section_sectorial.py): the package warns about C_w only
+    r = run('s = section.rolled(designation="C10X15.3")\n')
     assert not errors(r)
     (w,) = [w for w in warnings(r) if "deviates" in w.message]
-    assert "I_y" in w.message
-    assert r.source[w.span.col - 1:].startswith(('designation', '"MC12X31"'))  # located at the designation
+    assert "C_w" in w.message and "I_y" not in w.message and "A " not in w.message
+    assert r.source[w.span.col - 1:].startswith(('designation', '"C10X15.3"'))  # located at the designation
 
 
 def test_the_record_takes_the_tables_values_and_the_european_aliases(run):
@@ -252,7 +257,9 @@ def test_a_catalogue_section_is_a_part_of_a_built_up_section(run):
 
 def test_the_shear_centre_reproduces_the_published_polar_radius(run):
     # AISC Shapes Database v16.0 tabulates r̄_o = √(x_o² + y_o² + (I_x + I_y)/A) (AISC 360-16 E4-9): our shear
-    # centre closed forms (channel e_o, tee and angle mid-line intersections) reproduce it
+    # centres (tee and angle mid-line intersections; channels by the sectorial integration, which the FE oracle
+    # confirms) reproduce it within 0.5 % here; the table's channel e_o is the parallel-flange closed form, so
+    # for tapered channels the two part by up to 3 % (C3X6: −2.8 %)
     names = ["C10X20", "MC12X31", "L6X4X1/2", "WT9X25"]
     body = "\n".join(f's{k} = section.rolled(designation="{n}")' for k, n in enumerate(names))
     r = run(body + "\n")
@@ -261,4 +268,4 @@ def test_the_shear_centre_reproduces_the_published_polar_radius(run):
         rec = r.values[f"s{k}"]
         (cmp,) = [it for it in rec.working.items if isinstance(it, Table) and it.title.endswith("geometric model")]
         (row,) = [row for row in cmp.rows if row[0] == "r_o"]
-        assert abs(float(row[3].split()[0])) < 0.5, (n, row)
+        assert abs(float(row[3].split()[0])) < (1.0 if n.startswith(("C", "MC")) else 0.5), (n, row)

@@ -62,3 +62,23 @@ def test_an_outline_inside_another_touching_it_at_a_vertex_does_not_cross_it(inn
     for tol in (0.0, 1e-6):
         assert not P.segments_cross(a, b, tol) and not P.segments_cross(b, a, tol)
     assert Polygon(SQUARE).contains(Polygon(inner))  # shapely: inside, boundaries meet at a point
+
+
+def _rect(x0, y0, b, h, sign=1, n=1.0):
+    return P.make_ring([(x0, y0), (x0 + b, y0), (x0 + b, y0 + h), (x0, y0 + h)], sign, n)
+
+
+def test_many_rings_weighted_against_the_closed_form_of_each_rectangle():
+    # five plates, one of them of another material (n = 3), and two holes: moments about the origin,
+    # each rectangle by b·h, A·y_c, b·h³/12 + A·y_c², A·x_c·y_c (any section handbook)
+    rects = [(0, 0, 300, 20, 1, 1.0), (140, 20, 10, 300, 1, 1.0), (0, 320, 300, 20, 1, 1.0),
+             (0, 340, 300, 12, 1, 3.0), (400, 0, 50, 50, 1, 1.0), (40, 2, 22, 16, -1, 1.0), (410, 10, 30, 30, -1, 1.0)]
+    want = np.zeros(6)
+    for x0, y0, b, h, sign, n in rects:
+        A, xc, yc = b * h, x0 + b / 2, y0 + h / 2
+        want += sign * n * np.array([A, A * yc, A * xc, b * h**3 / 12 + A * yc**2, h * b**3 / 12 + A * xc**2,
+                                     A * xc * yc])
+    got = P.region_moments([_rect(*r) for r in rects])
+    assert np.allclose(got.astuple(), want, rtol=1e-12)
+    unweighted = P.region_moments([_rect(*r) for r in rects], weighted=False)
+    assert unweighted.A == pytest.approx(sum(s * b * h for _, _, b, h, s, _ in rects), rel=1e-12)

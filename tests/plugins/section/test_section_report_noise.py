@@ -52,3 +52,11 @@ def test_the_noise_tolerance_is_relative_to_the_section_and_the_power_of_length(
     assert report._noise_free(Q(1e-3, "mm"), size).m_as("mm") == 1e-3  # a real (small) dimension stays
     assert report._noise_free(Q(20.0, "mm^4"), size).m_as("mm^4") == 20.0
     assert report._noise_free(Q(1e-15, "kg/m"), size).m_as("kg/m") == 1e-15  # not a length power: untouched
+
+
+@pytest.mark.parametrize("value, unit", [(1.0, "mm^4"), (-5.0, "mm^4"), (5e-5, "mm^2"), (2e-2, "mm^3")])
+def test_the_noise_bound_grows_with_the_power_of_length_not_with_the_power_itself(value, unit):
+    # NOISE·D^k with D = 300 mm: 8.1 mm⁴, 9e-5 mm², 2.7e-2 mm³ — each value here is below its bound (dust);
+    # a bound of NOISE·D·k (1.2e-6 mm⁴ …) would keep it
+    Q = U.registry().Quantity
+    assert report._noise_free(Q(value, unit), 300.0).m_as(unit) == 0.0

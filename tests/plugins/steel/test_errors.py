@@ -107,3 +107,29 @@ def test_very_slender_aisc_column_warns_at_L():
 def test_open_shapes_and_diagrams_missing_what_they_need_are_located_errors(body, words):
     errs = errors(body, units="US")
     assert errs and words in errs[0].message and errs[0].span is not None, [e.message for e in errs]
+
+
+ANGLE_2L = ('name="2L4X4X1/4", form="2L", A=3.88 in^2, d=4 in, b_f=8.375 in, t=0.25 in, I_x=6.0 in^4, I_y=13.0 in^4, '
+            'S_x=2.06 in^3, S_y=3.1 in^3, J=0.0875 in^4')
+UNEQUAL_L = ('name="L6X4X1/2", form="L", A=4.75 in^2, d=6 in, b_f=4 in, t=0.5 in, I_x=17.3 in^4, I_y=6.22 in^4, '
+             'S_x=4.34 in^3, S_y=2.08 in^3, J=0.396 in^4, x_0=0.737 in, y_0=1.74 in, I_1=19.8 in^4, I_2=3.64 in^4, '
+             'theta_p=23.6 deg')
+
+
+@pytest.mark.parametrize("body, clauses", [
+    # double angles in flexure (compression is built: test_aisc_double_angle.py), by form and by the call's form=
+    (f's = steel_design.shape({ANGLE_2L})\nb = steel_design.aisc_beam(section=s, F_y=36 ksi, L_b=6 ft)',
+     ("F9.2(b)", "F9.4(b)")),
+    (f's = steel_design.shape({W18X50})\nc = steel_design.aisc_flexure(section=s, F_y=50 ksi, L_b=6 ft, form="2L")',
+     ("F9",)),
+    # single angles: LTB of an unequal-leg angle about a geometric axis (principal-axis bending, F10.2), and M_ry
+    (f's = steel_design.shape({UNEQUAL_L})\nb = steel_design.aisc_beam(section=s, F_y=36 ksi, L_b=6 ft)',
+     ("F10.2", "principal")),
+    (f's = steel_design.shape({UNEQUAL_L})\nb = steel_design.aisc_beam(section=s, F_y=36 ksi, L_b=0 ft, '
+     f'M_ry=2 kip*ft)', ("F10",)),
+])
+def test_shapes_outside_what_is_built_are_located_errors_naming_the_clause(body, clauses):
+    errs = errors(body, units="US")
+    assert errs and errs[0].span is not None, [e.message for e in errs]
+    assert all(c in errs[0].message for c in clauses), errs[0].message
+    assert "Traceback" not in errs[0].message
