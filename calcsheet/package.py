@@ -79,8 +79,8 @@ def _too_many_pages(pages: int, what: str) -> "PackageTooLarge":
 
 def pdf_bytes(html: str) -> bytes:
     """The PDF of a package page. Refused before any layout when even the lower bound of its pages is over
-    the cap ``PDF_PAGES`` (WeasyPrint holds every page in memory, about 1–2 MB each, so the page cap bounds
-    the memory too), and again with the exact count before anything is written.
+    the cap ``PDF_PAGES``, and again with the exact count before anything is written. A long page is laid out
+    a chunk at a time (``paged``), so its memory is bounded by a chunk, not by the page count.
 
     The bundled stylesheet, which the page carries inline so the HTML file stands alone, is taken out of the
     page and given to WeasyPrint already parsed: it is parsed once per process, not once per PDF."""

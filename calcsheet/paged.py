@@ -3,8 +3,9 @@
 WeasyPrint keeps every laid-out page of a document until it has written the PDF (a few MB a page). A page
 longer than two ``CHUNK_CHARS`` (a figure's SVG counted at a flat rate) is therefore cut into its blocks
 (the children of ``<main>``, and of the calculation's ``<section class="calc">``), and laid out a chunk at a
-time: each chunk is written to PDF bytes and freed before the next is laid out. The chunks are joined with pypdf. What crosses chunks is put
-back by this module, from WeasyPrint's own record of each page (``Page.anchors``, ``links``, ``bookmarks``):
+time: each chunk is written to PDF bytes and freed before the next is laid out. The chunks are joined with
+pypdf. What crosses chunks is put back by this module, from WeasyPrint's own record of each page
+(``Page.anchors``, ``links``, ``bookmarks``):
 
 - **Pagination as one document.** A chunk's last page is not kept: the blocks on it (from the first block
   that reaches it, found by its anchor) are laid out again at the start of the next chunk, so every page
@@ -20,7 +21,8 @@ back by this module, from WeasyPrint's own record of each page (``Page.anchors``
   joined PDF, at the positions WeasyPrint laid them out.
 
 The one difference from a single layout: what follows the contents (the inputs) starts on a new page.
-A page that is short, or not a package page (no ``<main>``), is laid out in one piece as before.
+A page that is short, or not a calculation package (no ``<section class="calc">``: a schedule's or a sweep's
+page), is laid out in one piece as before.
 """
 from __future__ import annotations
 
@@ -102,14 +104,16 @@ def weight(html: str) -> int:
 
 
 class _Block:
-    __slots__ = ("html", "anchor", "calc", "weight")
+    """One block of the page: its HTML, the anchor that finds it on a laid-out page, and the containers it
+    sits in (``wrap``: (a number for each container, its start tag), outermost first)."""
+    __slots__ = ("html", "anchor", "wrap", "weight")
 
-    def __init__(self, html: str, anchor: str, calc: bool):
-        self.html, self.anchor, self.calc = html, anchor, calc
+    def __init__(self, html: str, anchor: str, wrap: tuple = ()):
+        self.html, self.anchor, self.wrap = html, anchor, wrap
         self.weight = weight(html)
 
 
-def _block(fragment: str, n: int, calc: bool) -> _Block:
+def _block(fragment: str, n: int, wrap: tuple = ()) -> _Block:
     start = _START.match(fragment)
     if start is None:
         raise _Unsplittable("a block that is not an element")
@@ -117,14 +121,20 @@ def _block(fragment: str, n: int, calc: bool) -> _Block:
     found = _ID.search(fragment, 0, head_end)
     if found:
         return _Block(fragment, _html.unescape(found.group(1) if found.group(1) is not None else found.group(2)),
-                      calc)
+                      wrap)
     anchor = f"{_OWN}{n}"
-    return _Block(fragment[:start.end()] + f' id="{anchor}"' + fragment[start.end():], anchor, calc)
+    return _Block(fragment[:start.end()] + f' id="{anchor}"' + fragment[start.end():], anchor, wrap)
+
+
+# The containers whose children are blocks of their own (a working can run to several pages): their start
+# tag exactly as the package page prints it, and their end tag.
+_CONTAINERS = {'<section class="calc">': "</section>", '<div class="working">': "</div>"}
 
 
 def blocks(page: str) -> tuple[str, list[_Block], list[_Block], str]:
     """The page cut into (head up to ``<main>``, the front blocks, the body blocks, the tail from ``</main>``).
-    Front: the front page and the contents; body: every other block, the calculation's one by one."""
+    Front: the front page and the contents; body: every other block, the calculation's (and its workings')
+    one by one."""
     try:
         main_start = page.index("<main>") + len("<main>")
         main_end = page.rindex("</main>")
@@ -132,40 +142,51 @@ def blocks(page: str) -> tuple[str, list[_Block], list[_Block], str]:
         raise _Unsplittable("no <main>") from None
     front: list[_Block] = []
     body: list[_Block] = []
-    n = 0
+    count = [0]
+
+    def expand(s: int, e: int, wrap: tuple) -> None:
+        for open_tag, close_tag in _CONTAINERS.items():
+            if page.startswith(open_tag, s):
+                count[0] += 1
+                inner = (count[0], open_tag)
+                for cs, ce in _children(page, s + len(open_tag), page.rindex(close_tag, s, e)):
+                    expand(cs, ce, wrap + (inner,))
+                return
+        count[0] += 1
+        body.append(_block(page[s:e], count[0], wrap))
+
     for s, e in _children(page, main_start, main_end):
-        fragment = page[s:e]
-        if fragment.startswith('<section class="calc">'):
-            inner_start = s + len('<section class="calc">')
-            inner_end = page.rindex("</section>", s, e)
-            for cs, ce in _children(page, inner_start, inner_end):
-                body.append(_block(page[cs:ce], n, True))
-                n += 1
-        elif (fragment.startswith('<section class="front">') or fragment.startswith("<nav class='contents'>")) \
+        if (page.startswith('<section class="front">', s) or page.startswith("<nav class='contents'>", s)) \
                 and not body:
-            front.append(_block(fragment, n, False))
-            n += 1
+            count[0] += 1
+            front.append(_block(page[s:e], count[0]))
         else:
-            body.append(_block(fragment, n, False))
-            n += 1
-    if not body:
-        raise _Unsplittable("no body")
+            expand(s, e, ())
+    if not any(b.wrap for b in body):  # not a calculation package (a schedule's or a sweep's page)
+        raise _Unsplittable("no calculation")
     return page[:main_start], front, body, page[main_end:]
 
 
 def _join(chunk: list[_Block], top: bool) -> str:
-    """The blocks of a chunk as HTML, the calculation's wrapped in their section again."""
-    out, in_calc = [], False
-    for i, b in enumerate(chunk):
-        if b.calc and not in_calc:
-            out.append('<section class="calc cs-top">' if top and i == 0 else '<section class="calc">')
-            in_calc = True
-        elif not b.calc and in_calc:
-            out.append("</section>")
-            in_calc = False
+    """The blocks of a chunk as HTML, each in its containers again (a container cut between chunks is opened
+    again in the next; ``top``: the chunk continues the calculation, which then has no top margin)."""
+    out: list[str] = []
+    open_now: list = []
+    for b in chunk:
+        same = 0
+        while same < min(len(open_now), len(b.wrap)) and open_now[same] == b.wrap[same]:
+            same += 1
+        while len(open_now) > same:
+            out.append(_CONTAINERS[open_now.pop()[1]])
+        for container in b.wrap[same:]:
+            tag = container[1]
+            if top and not out and tag == '<section class="calc">':
+                tag = '<section class="calc cs-top">'
+            out.append(tag)
+            open_now.append(container)
         out.append(b.html)
-    if in_calc:
-        out.append("</section>")
+    while open_now:
+        out.append(_CONTAINERS[open_now.pop()[1]])
     return "\n".join(out)
 
 
@@ -211,6 +232,19 @@ def render_chunked(page: str, render, stylesheet, cap: int, too_many) -> bytes |
     except _Unsplittable:
         return None
     chunk_css, front_css = stylesheet(CHUNK_CSS), stylesheet(FRONT_CSS)
+    # what lives before the first chunk is not looked at by the collections that free each chunk
+    frozen = not gc.get_freeze_count()
+    if frozen:
+        gc.freeze()
+    try:
+        return _render_chunks(page, head, front, body, tail, render, stylesheet, cap, too_many,
+                              chunk_css, front_css)
+    finally:
+        if frozen:
+            gc.unfreeze()
+
+
+def _render_chunks(page, head, front, body, tail, render, stylesheet, cap, too_many, chunk_css, front_css):
 
     pdfs: list[bytes] = []
     kept: list[_Kept] = []
@@ -221,7 +255,7 @@ def render_chunked(page: str, render, stylesheet, cap: int, too_many) -> bytes |
             size += body[end].weight
             end += 1
         chunk = body[start:end]
-        doc = render(head + _join(chunk, top=start > 0 and chunk[0].calc) + tail, [chunk_css])
+        doc = render(head + _join(chunk, top=start > 0 and bool(chunk[0].wrap)) + tail, [chunk_css])
         pages = doc.pages
         first = {}
         for i, p in enumerate(pages):
@@ -287,7 +321,7 @@ def _number_contents(b: _Block, where: dict[str, int], offset: int) -> _Block:
         page = where.get(target)
         return m.group(0) + (f' data-page="{page + offset + 1}"' if page is not None else ' data-page=""')
 
-    return _Block(re.sub(r"""<a href=(['"])#(.*?)\1""", number, b.html), b.anchor, b.calc)
+    return _Block(re.sub(r"""<a href=(['"])#(.*?)\1""", number, b.html), b.anchor)
 
 
 def _assemble(pdfs: list[bytes], overlay_pdf: bytes, pages: list[_Kept]) -> bytes:

@@ -230,3 +230,86 @@ def test_an_error_already_located_outside_the_body_stays_where_it_is():
     for span in (Span(5, 1, 5, 4), Span(1, 8, 1, 15, path="other.calc")):  # another line; another file
         exc = B.at_call(NumericError("a table's unit is unknown", span), fd, call)
         assert exc.message == "a table's unit is unknown" and exc.span == span
+
+
+# ---------------------------------------------------------------- words of an offset-temperature error
+
+@pytest.mark.parametrize("text, ending", [
+    ("20 degC * 2", "it cannot be multiplied"),
+    ("20 degC / 2", "it cannot be divided"),
+    ("20 degC ^ 2", "it cannot be raised to a power"),
+    ("20 degC + 5 K", "it cannot be added to another value"),
+])
+def test_an_offset_temperature_error_says_what_cannot_be_done_with_it(text, ending):
+    with pytest.raises(OffsetTemperatureError) as info:
+        ev(text)
+    assert str(info.value).endswith(ending), str(info.value)
+
+
+# ---------------------------------------------------------------- a table's value
+
+def test_two_tables_are_equal_when_their_shape_units_and_rows_are():
+    # what the incremental rebuild compares to know whether a table changed
+    from calcsheet import nodes as N
+    from calcsheet.parser import parse_sheet
+
+    def table(text):
+        sheet, diagnostics = parse_sheet(text)
+        assert not diagnostics
+        (td,) = [s for s in sheet.body if isinstance(s, N.TableDef)]
+        return B.make_table(td)
+
+    base = "t =\n| x | y |\n| m | kN |\n| 1 | 2 |\n| 2 | 3 |\n"
+    assert table(base) == table(base)
+    assert table(base) != table(base.replace("| 2 | 3 |", "| 2 | 4 |"))    # a row differs
+    assert table(base) != table(base.replace("| m | kN |", "| mm | kN |"))  # a unit differs
+    assert table(base) != table(base.replace("| x | y |", "| x | z |"))    # a column's name differs
+
+
+def test_a_definition_whose_value_is_not_of_its_declared_unit_is_refused_at_the_unit():
+    # the evaluator itself (no checker in front): M [kN*m] = 2 kN is a force where a moment is declared; the
+    # error points at the declared unit "[kN*m]", the place to change
+    from calcsheet.errors import CalcError
+    from calcsheet.parser import parse_statement
+
+    stmt = parse_statement("M [kN*m] = 2 kN")
+    with pytest.raises(CalcError) as info:
+        Evaluator().evaluate_definition(stmt, {}, {})
+    assert "declared [kN*m]" in str(info.value)
+    assert info.value.span == stmt.unit_span and stmt.unit_span != stmt.span
+
+
+# ---------------------------------------------------------------- unknown operands in min/max and lists
+
+def test_min_and_max_take_the_dimension_of_their_known_arguments():
+    nodes = [parse_expression(t) for t in ("a", "b", "c")]
+    assert B._same_dims("min", [LENGTH, LENGTH, LENGTH], nodes) == LENGTH
+    assert B._same_dims("max", [None, LENGTH, None], nodes) == LENGTH
+    assert B._same_dims("max", [LENGTH, None], nodes[:2]) == LENGTH
+    assert B._same_dims("min", [None, None], nodes[:2]) is None
+    with pytest.raises(DimensionError):
+        B._same_dims("min", [LENGTH, TEMP], nodes[:2])
+
+
+def test_a_list_with_unknown_elements_takes_its_known_elements_dimension():
+    node = parse_expression("[a, b, c]")
+    assert B.rule_list_items([LENGTH, None, LENGTH], [False] * 3, node) == LENGTH
+    assert B.rule_list_items([None, LENGTH, None], [False] * 3, node) == LENGTH
+    with pytest.raises(DimensionError, match="element 3 of the list"):
+        B.rule_list_items([LENGTH, None, TEMP], [False] * 3, node)
+
+
+def test_zero_with_units_to_a_fractional_power_is_zero():
+    # √(0 m²) = 0 m: zero is not negative (common practice)
+    assert ev("(0 m^2)^0.5").m_as("m") == 0.0
+    assert list(ev("[0 m^2, 4 m^2]^0.5").m_as("m")) == [0.0, 2.0]
+
+
+def test_a_check_with_no_demand_holds_with_a_utilisation_of_zero():
+    # utilisation = demand / capacity = 0 / 10 kN = 0 (common practice): a zero demand is no sign error
+    from calcsheet.parser import parse_statement
+
+    env = {"V_Ed": U.Quantity(0.0, "kN"), "V_Rd": U.Quantity(10.0, "kN")}
+    for text in ("check V_Ed <= V_Rd", "check V_Rd >= V_Ed"):
+        c = Evaluator().evaluate_check(parse_statement(text), env)
+        assert c.ok and c.ratio == 0.0, (text, c)

@@ -378,6 +378,31 @@ def test_a_ratio_is_not_formed_against_a_zero_or_negative_capacity():
     assert _check("<=", (0.0, "kN"), (5.0, "kN")).ratio == 0.0
 
 
+def _list_check(op, a, b):
+    env = {"a": U.Quantity([a[0], 1.0], a[1]), "b": U.Quantity([b[0], 5.0], b[1])}
+    return Evaluator().evaluate_check(parse_statement(f"check a {op} b"), env)
+
+
+@pytest.mark.parametrize("check", [_check, _list_check], ids=["one value", "a list"])
+def test_a_zero_side_makes_a_sign_check_judged_by_its_comparison_with_no_ratio(check):
+    # a no-uplift check (the least reaction at or above zero) is a sign check: OK/NG as written, no
+    # utilisation (common practice). Zero demand against a negative capacity is simply NG; a negative
+    # demand against zero capacity (a compressive or downward value held at or below zero) is OK.
+    ng = check("<=", (0.0, "kN"), (-5.0, "kN"))
+    assert ng.ok is False
+    ok = check("<=", (-3.0, "kN"), (0.0, "kN"))
+    assert ok.ok is True
+    uplift = check(">=", (-2.0, "kN"), (0.0, "kN"))  # least reaction -2 kN >= 0: uplift, NG
+    assert uplift.ok is False
+
+
+def test_a_zero_side_check_forms_no_ratio():
+    assert _check("<=", (0.0, "kN"), (-5.0, "kN")).ratio is None
+    assert _check("<=", (-3.0, "kN"), (0.0, "kN")).ratio is None
+    with pytest.raises(CheckSignError):  # a nonzero demand against a negative capacity is never judged
+        _check("<=", (1.0, "kN"), (-5.0, "kN"))
+
+
 def test_a_check_across_dimensions_is_an_error():
     with pytest.raises(DimensionError):
         _check("<=", (1.0, "m"), (1.0, "s"))

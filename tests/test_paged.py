@@ -101,12 +101,19 @@ def test_the_long_page_was_laid_out_in_several_chunks(pdfs):
 
 def test_every_block_is_printed_once_and_in_order(pdfs):
     chunked, whole = pdfs
+    from collections import Counter
 
-    def step_numbers(reader):  # the step numbers down the left of every page, in reading order
-        return re.findall(r"(?m)^\s*(\d+\.\d+)\s", "\n".join(_texts(reader)))
+    def numbers(reader):  # every step number and value printed (a lost or doubled block changes the count)
+        return Counter(re.findall(r"(?<![\d.])\d+\.\d+(?![\d.])", "\n".join(_texts(reader))))
 
-    assert step_numbers(chunked) == step_numbers(whole)
-    assert len(step_numbers(whole)) >= 9 * 8
+    ours, theirs = numbers(chunked), numbers(whole)
+    assert ours == theirs
+    assert sum(ours[f"{i}.{k}"] for i in range(1, 10) for k in range(2, 9)) >= 9 * 7
+
+    def headings(reader):
+        return re.findall(r"(?m)^\s*\d\s+Joist (J-\d)\s*$", "\n".join(_texts(reader)))
+
+    assert headings(chunked) == headings(whole) == [f"J-{i}" for i in range(1, 10)]
 
 
 def test_every_page_has_its_title_block_and_sheet_n_of_m(pdfs):
@@ -210,3 +217,29 @@ def test_a_chunk_that_fails_leaves_the_old_package(tmp_path, monkeypatch):
         package.write_package(calcsheet.run(src), tmp_path, ["html", "pdf"])
     after = {p.name: p.read_bytes() for p in tmp_path.rglob("joists.*") if p.suffix != ".calc"}
     assert after == before
+
+
+def test_a_working_cut_between_chunks_is_opened_again_in_the_next():
+    """A plugin's working can run to several pages: its records are blocks of their own, and a chunk that
+    starts inside it opens the working (and the calculation) again, so every tag is balanced."""
+    r = calcsheet.run("plate = section.rectangle(b=180 mm, h=12 mm)   -- flange plate\nx = 2 m\n", path="w.calc")
+    assert r.ok, r.format_diagnostics()
+    head, front, body, tail = paged.blocks(str(PackageDocument(r).html()))
+    inside = [k for k, b in enumerate(body) if any(tag == '<div class="working">' for _, tag in b.wrap)]
+    assert len(inside) >= 3 and body[inside[0] - 1].anchor == "v-plate"
+    later = body[inside[1]:]  # a chunk that starts at the working's second record
+    html = paged._join(later, top=True)
+    assert html.startswith('<section class="calc cs-top">\n<div class="working">')
+    assert html.count("<div") == html.count("</div>") and html.count("<section") == html.count("</section>")
+    # the whole body joined again is the page's calculation, block for block
+    assert paged._join(body, top=False).count('<div class="working">') == 1
+
+
+def test_a_schedule_page_is_not_cut():
+    """Only a calculation package is cut: a schedule's page (one long table in its front section) keeps its
+    single layout."""
+    page = ("<html><head></head><body><main><section class='front'><table>"
+            + "<tr><td>member</td></tr>" * 30_000 + "</table></section></main></body></html>")
+    with pytest.raises(paged._Unsplittable):
+        paged.blocks(page)
+    assert paged.render_chunked(page, None, None, 10, ValueError) is None

@@ -308,3 +308,10 @@ def test_a_csv_table_is_read_through_the_size_cap_and_strict_utf8(tmp_path, monk
 def test_an_unknown_unit_of_a_two_way_table_is_located_at_its_own_cell(units, col):
     text = "t =\n| h \\ b | 1 | 2 |\n" + units + "\n| 1 | 1 | 2 |\n| 2 | 3 | 4 |\n"
     assert both(text) == ([("unknown-unit", 3, col)], [("unknown-unit", 3, col)])
+
+
+def test_a_two_way_tables_keys_read_as_lists_are_its_row_keys_and_its_column_keys():
+    r = calcsheet.run(TWO_WAY + "hs = c_t.h\nbs = c_t.b\n")
+    assert r.ok, r.format_diagnostics()
+    assert list(r.values["hs"].m_as("mm")) == [100, 200]       # the first column, down
+    assert list(r.values["bs"].m_as("mm")) == [100, 200, 300]  # the header row, across

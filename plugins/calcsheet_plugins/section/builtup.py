@@ -139,12 +139,10 @@ def _overlap(a: Shape, b: Shape, tol: float) -> bool:
     for u, v in ((a, b), (b, a)):
         vert = _sample(P.Ring(np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])), 512)
         cx, cy = _rows_centroid(u)
-        px, py = np.concatenate([vert.x, cx]), np.concatenate([vert.y, cy])
-        if _in_material(px, py, v, tol, strict=True).any() and _in_material(cx, cy, u, tol, strict=True).any():
-            # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
-            if _in_material(vert.x, vert.y, v, tol, strict=True).any() or _in_material(cx, cy, v, tol,
-                                                                                     strict=True).any():
-                return True
+        # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
+        if _in_material(vert.x, vert.y, v, tol, strict=True).any() or (
+                _in_material(cx, cy, u, tol, strict=True).any() and _in_material(cx, cy, v, tol, strict=True).any()):
+            return True
     return False
 
 

@@ -127,6 +127,9 @@ def test_the_least_radius_of_gyration_of_a_small_square_is_a_side_over_root_twel
     # r = √(I/A) = √((a⁴/12)/a²) = a/√12 for a square of side a (common practice), here a = 1 mm: I₂ < 1 mm⁴
     f = record("section.rectangle(b=1 mm, h=1 mm)").fields
     assert f["r_min"].m_as("mm") == pytest.approx(1 / 12**0.5, rel=1e-12)
+    # and the plain-Python pass that drawings read (properties()) gives the same, not a clamped one
+    from calcsheet_plugins.section import properties as PR, shapes as S
+    assert PR.properties(S.rectangle(1.0, 1.0))["r_min"] == pytest.approx(1 / 12**0.5, rel=1e-12)
 
 
 def test_the_first_moment_above_the_centroid_of_a_triangle_with_a_unit_rise_edge():
@@ -178,3 +181,41 @@ def test_the_parts_tables_of_an_angle_add_up_to_its_second_moments():
 def test_a_section_of_one_material_says_nothing_of_a_transformed_section():
     rec = record("section.rectangle(b=100 mm, h=200 mm)")
     assert not any("transformed" in str(getattr(i, "text", "")).lower() for i in rec.working.items)
+
+
+def test_a_part_wholly_inside_another_is_refused_as_overlapping():
+    # an angle placed inside a 200 × 200 mm plate: no edges cross, and the angle's centroid lies outside its own
+    # material (in the corner between its legs), yet every point of the angle is plate: its material would count
+    # twice (A would be 40 000 + 1 650 mm²)
+    r = calcsheet.run("p = section.part(shape=section.rectangle(b=200 mm, h=200 mm), x=0 mm, y=0 mm)\n"
+                      'a = section.part(shape=section.angle(h=100 mm, b=75 mm, t=10 mm, detail="brief"), '
+                      "x=50 mm, y=50 mm)\n"
+                      "g = section.built_up(parts=[p, a])\n")
+    (err,) = r.errors
+    assert "overlap" in err.message and "g" not in r.values
+
+
+def test_a_bar_in_the_hole_of_a_tube_is_not_an_overlap():
+    # the tube's material is its wall: a 100 mm bar inside its 180 mm bore shares no material with it
+    r = calcsheet.run('t = section.part(shape=section.tube(d=200 mm, t=10 mm), x=0 mm, y=0 mm, anchor="centre")\n'
+                      'c = section.part(shape=section.circle(d=100 mm), x=0 mm, y=0 mm, anchor="centre")\n'
+                      "g = section.built_up(parts=[t, c])\n")
+    assert not r.errors, [e.message for e in r.errors]
+    assert r.values["g"].fields["A"].m_as("mm^2") == pytest.approx(
+        3.141592653589793 / 4 * (200**2 - 180**2 + 100**2), rel=1e-12)  # π/4·(D² − d² + d_bar²)
+
+
+def test_a_mirrored_triangle_part_has_the_opposite_product_of_area_in_its_parts_table_too():
+    # right triangle, legs b = 60 mm along x and h = 90 mm along y: I_xy about its centroid is −b²h²/72 with the
+    # right angle at the lower left (a standard table of plane areas; from memory); mirrored up-down, +b²h²/72.
+    # Its parts (the fan's triangles) carry their own products, which the mirror must turn over as well
+    pts = "points=[(0 mm, 0 mm), (60 mm, 0 mm), (0 mm, 90 mm)]"
+    r = calcsheet.run(f"T = section.polygon({pts})\n"
+                      "a = section.built_up(parts=[section.part(shape=T, x=0 mm, y=0 mm)])\n"
+                      'b = section.built_up(parts=[section.part(shape=T, x=0 mm, y=0 mm, mirror="up-down")])\n')
+    assert r.ok, r.diagnostics
+    want = 60**2 * 90**2 / 72
+    assert r.values["a"].fields["I_xy"].m_as("mm^4") == pytest.approx(-want, rel=1e-9)
+    assert r.values["b"].fields["I_xy"].m_as("mm^4") == pytest.approx(want, rel=1e-9)
+    (foot,) = table(r.values["b"], "Parts table: product of area").footer
+    assert foot[1].m_as("mm^4") + foot[4].m_as("mm^4") == pytest.approx(want, rel=1e-9)
