@@ -8,7 +8,7 @@ from the built LALR parser, so the two cannot drift apart on what a number, a un
 The contract is one-sided: ``parse`` returns either ``None`` or the very node the grammar would build, spans
 included. Anything it does not know, anything unusual and every error (a syntax error, a unit that does not
 read, a number too long) gives ``None``, and the statement goes through the grammar, which owns every
-diagnostic and its location. A sheet's own functions, lists and tuples always take that road.
+diagnostic and its location. Lists and tuples always take that road.
 ``tests/parser/test_fast.py`` holds the two readers to agreement on generated and real statements.
 """
 from __future__ import annotations
@@ -217,28 +217,52 @@ class _Reader:
             sp = _join(left.span, right.span)
             return N.Check(left=left, op=_CMP.get(op, op), right=right, span=Span(sp.line, 1, sp.end_line, sp.end_col))
         name_span = self.span(a, b)
-        unit = unit_text = unit_span = None
+        params = None
         ch = self.peek()
-        if ch == "[":
+        if ch == "(":  # a sheet's own function: NAME ( param ("," param)* ) [unit] = expr
             self.pos += 1
-            self.skip()
-            c = self.text[self.pos:self.pos + 1]
-            if c.isdigit():
-                decl, da, db = self.word(self.p.number)
-            else:
-                decl, da, db = self.word(self.p.unit)
-            self.expect("]")
-            unit_span = self.span(da, db)
-            unit = _declared(decl)
-            unit_text = decl.strip()
-            ch = self.peek()
-        if ch != "=" or self.text.startswith("==", self.pos):
-            raise _Bail  # a sheet's own function, or not a definition: the grammar reads it
+            params = []
+            while True:
+                pname, pa, pb = self.word(self.p.name)
+                self.plain(pname)
+                pspan = self.span(pa, pb)
+                punit, ptext, pspan_u = self.unit_decl()
+                params.append(N.Param(name=pname, unit=punit, unit_text=ptext,
+                                      span=_join(pspan, pspan_u) if pspan_u is not None else pspan,
+                                      unit_span=pspan_u))
+                ch = self.peek()
+                if ch == ",":
+                    self.pos += 1
+                    continue
+                if ch == ")":
+                    self.pos += 1
+                    break
+                raise _Bail
+        unit, unit_text, unit_span = self.unit_decl()
+        if self.peek() != "=" or self.text.startswith("==", self.pos):
+            raise _Bail  # not a definition: the grammar reads (and words) it
         self.pos += 1
         expr = self.expr()
         self.end()
+        if params is not None:
+            return N.FunctionDef(name=name, params=tuple(params), expr=expr, unit=unit, unit_text=unit_text,
+                                 span=_join(name_span, expr.span), name_span=name_span, unit_span=unit_span)
         return N.Definition(name=name, expr=expr, unit=unit, unit_text=unit_text, span=_join(name_span, expr.span),
                             name_span=name_span, unit_span=unit_span)
+
+    def unit_decl(self) -> tuple:
+        """An optional declared unit ``[kN/m]`` (or ``[1]``): (factors, text, span), or three Nones."""
+        if self.peek() != "[":
+            return None, None, None
+        self.pos += 1
+        self.skip()
+        c = self.text[self.pos:self.pos + 1]
+        if c.isdigit():
+            decl, da, db = self.word(self.p.number)
+        else:
+            decl, da, db = self.word(self.p.unit)
+        self.expect("]")
+        return _declared(decl), decl.strip(), self.span(da, db)
 
     def end(self):
         self.skip()

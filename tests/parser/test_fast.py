@@ -71,6 +71,10 @@ def test_the_quick_reader_is_on_for_this_grammar():
     "u = max(a, b)",
     "v = if(a <= b, 1 m, 2 m)",
     "    indented = 3 kN   ",
+    "f(x [m]) [m] = 2*x",  # a sheet's own function
+    "M_ss(w [kN/m], L [m]) [kN*m] = w*L^2/8",
+    "g( a , b [ mm ] ) = a * b",
+    "k(n [1]) = n + 1",
 ])
 def test_everyday_statements_are_read_quickly_and_identically(text):
     assert agree(text, 41)
@@ -86,7 +90,11 @@ def test_statements_over_several_lines_keep_lark_positions(text):
 
 
 @pytest.mark.parametrize("text", [
-    "f(x [m]) [m] = 2*x",  # a sheet's own function
+    "f() = 1",  # a sheet's function needs a parameter
+    "f(x,) = x",
+    "f(x [2 m]) = x",
+    "f(check) = 1",
+    "f(x) == x",
     "p = (1 m, 2 m)",  # a point
     "l = [a, b]",  # a list
     "x = 1e999",  # overflow: the grammar's callback words it
