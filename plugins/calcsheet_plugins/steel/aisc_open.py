@@ -313,15 +313,7 @@ def f10(ctx, L_b, C_b, toe, restraint):
                desc=f"elastic LTB moment, equal-leg angle, geometric axis, {STD} Eq. "
                     f"{'F10-5a (toe in compression)' if compression else 'F10-5b (toe in tension)'}"
                     + (" × 1.25 (restraint at the point of maximum moment)" if k else ""))
-        ratio = sc["M_y_LTB"].m_as("N*m") / sc["M_cr"].m_as("N*m")
-        if ratio <= 1:
-            w.calc("M_n_LTB", "min((1.92 - 1.17*sqrt(M_y_LTB/M_cr))*M_y_LTB, 1.5*M_y_LTB)", unit=u["mo"],
-                   desc=f"M_y/M_cr = {ratio:.3f} ≤ 1: lateral-torsional buckling, {STD} Eq. F10-2")
-            states["lateral-torsional buckling (F10-2)"] = "M_n_LTB"
-        else:
-            w.calc("M_n_LTB", "(0.92 - 0.17*M_cr/M_y_LTB)*M_cr", unit=u["mo"],
-                   desc=f"M_y/M_cr = {ratio:.3f} > 1: lateral-torsional buckling, {STD} Eq. F10-3")
-            states["lateral-torsional buckling (F10-3)"] = "M_n_LTB"
+        _ltb_from_mcr(w, sc, states, u, "M_y_LTB")
     else:
         w.note(f"L_b = 0 (continuously restrained): lateral-torsional buckling does not apply ({STD} F10.2).",
                kind="method")
@@ -441,15 +433,7 @@ def f10_principal(ctx, L_b, C_b, toe):
         w.calc("r_z", "sqrt(I_2/A)", unit=u["ln"], desc="radius of gyration about the minor principal axis z")
         w.calc("M_cr", "9*E*A*r_z*t*C_b_F10/(8*L_b)*(sqrt(1 + (4.4*beta_w*r_z/(L_b*t))^2) + 4.4*beta_w*r_z/(L_b*t))",
                unit=u["mo"], desc=f"elastic LTB moment, major principal axis, {STD} Eq. F10-4")
-        ratio = sc["M_y"].m_as("N*m") / sc["M_cr"].m_as("N*m")
-        if ratio <= 1:
-            w.calc("M_n_LTB", "min((1.92 - 1.17*sqrt(M_y/M_cr))*M_y, 1.5*M_y)", unit=u["mo"],
-                   desc=f"M_y/M_cr = {ratio:.3f} ≤ 1: lateral-torsional buckling, {STD} Eq. F10-2")
-            states["lateral-torsional buckling (F10-2)"] = "M_n_LTB"
-        else:
-            w.calc("M_n_LTB", "(0.92 - 0.17*M_cr/M_y)*M_cr", unit=u["mo"],
-                   desc=f"M_y/M_cr = {ratio:.3f} > 1: lateral-torsional buckling, {STD} Eq. F10-3")
-            states["lateral-torsional buckling (F10-3)"] = "M_n_LTB"
+        _ltb_from_mcr(w, sc, states, u, "M_y")
     else:
         w.note(f"L_b = 0 (continuously restrained): lateral-torsional buckling does not apply ({STD} F10.2).",
                kind="method")
@@ -522,3 +506,17 @@ def g3(ctx):
         w.calc("C_v2", "1.51*k_v*E/(lambda_v^2*F_y)", unit="1", desc=f"{STD} Eq. G2-11")
     w.calc("V_n", "0.6*F_y*b_v*t_v*C_v2", unit=u["fo"], desc=f"nominal shear strength, {STD} Eq. G3-1")
     return "shear", f"shear of the {'tee stem' if ctx.form == 'T' else 'angle leg'} (G3)"
+
+
+def _ltb_from_mcr(w, sc, states, u, m_y: str) -> None:
+    """M_n for lateral-torsional buckling of an angle from M_cr and the yield moment named ``m_y``
+    (AISC 360-16 Eq. F10-2 where M_y/M_cr ≤ 1, else Eq. F10-3)."""
+    ratio = sc[m_y].m_as("N*m") / sc["M_cr"].m_as("N*m")
+    if ratio <= 1:
+        w.calc("M_n_LTB", f"min((1.92 - 1.17*sqrt({m_y}/M_cr))*{m_y}, 1.5*{m_y})", unit=u["mo"],
+               desc=f"M_y/M_cr = {ratio:.3f} ≤ 1: lateral-torsional buckling, {STD} Eq. F10-2")
+        states["lateral-torsional buckling (F10-2)"] = "M_n_LTB"
+    else:
+        w.calc("M_n_LTB", f"(0.92 - 0.17*M_cr/{m_y})*M_cr", unit=u["mo"],
+               desc=f"M_y/M_cr = {ratio:.3f} > 1: lateral-torsional buckling, {STD} Eq. F10-3")
+        states["lateral-torsional buckling (F10-3)"] = "M_n_LTB"
