@@ -54,3 +54,21 @@ def test_sheet_text_reaches_the_page_only_escaped(run):
     for raw in ("<b>P</b>", "<i>H</i>", "<script>x</script>", "<u>d</u>"):
         assert raw not in page
     assert "&lt;script&gt;x&lt;/script&gt;" in page and "&lt;i&gt;H&lt;/i&gt;" in page
+
+
+def test_numbering_copies_each_record_as_dataclasses_replace_would():
+    # number_items copies records without re-running __init__; that equals dataclasses.replace only while
+    # the trace records have no __post_init__, no init-only fields and no __slots__ — held here
+    import dataclasses
+
+    from calcsheet.render.document import _with
+    from calcsheet.trace import CheckResult, Heading, Step
+
+    for cls in (Step, CheckResult, Heading):
+        assert not hasattr(cls, "__post_init__") and not hasattr(cls, "__slots__")
+        assert all(f.init and not isinstance(f.type, dataclasses.InitVar) for f in dataclasses.fields(cls))
+    h = Heading(text="Beam", level=1)
+    assert _with(h, number="2", anchor="s-2") == dataclasses.replace(h, number="2", anchor="s-2")
+    assert h.number == ""  # the record given is not changed
+    s = Step(name="M", expr=None, value=1.0)
+    assert _with(s, number="2.1") == dataclasses.replace(s, number="2.1") and s.number != "2.1"
