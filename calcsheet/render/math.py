@@ -249,8 +249,8 @@ def _evaluator():
     return _EVALUATOR
 
 
-def _rounded(value, unit, sigfigs: int):
-    """The value as printed at ``sigfigs`` figures, as a quantity (None when it is not a scalar)."""
+def _printed_scalar(value, unit):
+    """(magnitude, units, quantity class) of a scalar value in the unit it is printed in, or None."""
     if isinstance(value, (int, float)) and not isinstance(value, bool):
         value = _evaluator().number(value)
     if not isinstance(value, pint.Quantity):
@@ -262,8 +262,14 @@ def _rounded(value, unit, sigfigs: int):
         return None
     if not math.isfinite(mag):
         return None
+    return mag, q.units, q.__class__
+
+
+def _at_sigfigs(printed, sigfigs: int):
+    """A printed scalar (``_printed_scalar``) rounded to ``sigfigs`` figures as the page prints it."""
+    mag, units, cls = printed
     text, exp = split_number(mag, sigfigs)
-    return q.__class__(float(text) * (10.0 ** exp if exp else 1.0), q.units)
+    return cls(float(text) * (10.0 ** exp if exp else 1.0), units)
 
 
 def _replace_symbols(node, keys: dict):
@@ -298,9 +304,9 @@ def reproducing_sigfigs(node, values: dict, exact: dict, result, sigfigs: int) -
     into ``node`` such that recomputing it from the printed numbers (inputs exactly as written) gives
     the printed result to its last digit; 0 when nothing needs it or it cannot be recomputed."""
     value, unit = result
-    target = _rounded(value, unit, sigfigs)
+    result_printed = _printed_scalar(value, unit)
     calculated = [k for k in values if k not in exact]
-    if target is None or not calculated or _has_plugin_call(node):
+    if result_printed is None or not calculated or _has_plugin_call(node):
         return 0
     keys = {k: f"__sub{i}" for i, k in enumerate(values)}
     formula = _replace_symbols(node, keys)
@@ -312,23 +318,26 @@ def reproducing_sigfigs(node, values: dict, exact: dict, result, sigfigs: int) -
                 fixed[keys[k]] = ev.eval(exact[k], {})
             except Exception:
                 return 0
+    printed = {}  # each calculated value in its printed unit, converted once for every number of figures
+    for k in calculated:
+        printed[k] = _printed_scalar(values[k][0], values[k][1])
+        if printed[k] is None:
+            return 0
+    want = split_number(result_printed[0], sigfigs)
     for p in range(sigfigs, _MAX_SIGFIGS + 1):
         env = dict(fixed)
         for k in calculated:
-            r = _rounded(values[k][0], values[k][1], p)
-            if r is None:
-                return 0
-            env[keys[k]] = r
+            env[keys[k]] = _at_sigfigs(printed[k], p)
         try:
             got = ev.eval(formula, env)
             got = got.to(value.units) if isinstance(got, pint.Quantity) else None
         except Exception:
             return 0
-        if got is None or _rounded(got, unit, sigfigs) is None:
+        got_printed = None if got is None else _printed_scalar(got, unit)
+        if got_printed is None:
             return 0
-        shown_got = float(shown(got, unit).magnitude)
+        shown_got = got_printed[0]
         # the printed numbers must give the printed result clearly, not by a tie a calculator rounds otherwise
-        if all(split_number(shown_got * f, sigfigs) == split_number(float(shown(value, unit).magnitude), sigfigs)
-               for f in (1 - 1e-9, 1.0, 1 + 1e-9)):
+        if all(split_number(shown_got * f, sigfigs) == want for f in (1 - 1e-9, 1.0, 1 + 1e-9)):
             return p if p > sigfigs else 0
     return _MAX_SIGFIGS
