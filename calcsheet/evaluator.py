@@ -453,7 +453,7 @@ class Evaluator:
         shown = unit_of(key, demand) if key != "value" else None
         shown = shown or self.policy.unit_for(demand)
         if shown is not None:
-            demand, capacity = _to(demand, shown), _to(capacity, shown)
+            demand, capacity = U.convert(demand, shown), U.convert(capacity, shown)
         return CheckResult(left=stmt.left, op=stmt.op, right=stmt.right, demand=demand, capacity=capacity,
                            ok=ok, ratio=ratio, text="", used={k: (v, unit_of(k, v)) for k, v in used.items()},
                            description=stmt.description, span=stmt.span)
@@ -542,11 +542,6 @@ class Evaluator:
 
 _DISPATCH: dict = {}
 MAX_CHECK_ROWS = 50  # a check over a longer list shows this many elements (those with the highest utilisation)
-
-
-def _to(q: pint.Quantity, unit) -> pint.Quantity:
-    """``q.to(unit)``, skipping pint's conversion machinery when ``q`` is already in that unit."""
-    return q if q._units == getattr(unit, "_units", None) else U.convert(q, unit)
 
 
 def _sign_error(stmt: N.Check, demand, capacity, element: int | None = None) -> CheckSignError:
