@@ -24,6 +24,10 @@ SUB = {"compression": "c", "flexure": "b", "shear": "v", "shear_rolled_I": "v", 
 
 
 class _Ctx:
+    # single angles (F10): the axes of bending and the vertical leg's toe; a beam or beam-column run sets them
+    axes = "geometric"
+    toe = "compression"
+
     def __init__(self, work, section, material, form, method, F_y, E, G, fabrication=None):
         self.work, self.sc, self.u = work, work.scope, units(work)
         self.method = method
@@ -361,7 +365,7 @@ class _Ctx:
             states = aisc_f4f5.f4f5(self, L_b, C_b)
         elif self.form == "T":
             states = aisc_open.f9(self, L_b, stem)
-        elif self.form == "L" and getattr(self, "axes", "geometric") == "principal":
+        elif self.form == "L" and self.axes == "principal":
             states = aisc_open.f10_principal(self, L_b, C_b, toe)
         elif self.form == "L":
             states = aisc_open.f10(self, L_b, C_b, toe, restraint)
@@ -427,7 +431,7 @@ class _Ctx:
                unit=u["mo"], desc="nominal flexural strength: the least of the applicable limit states")
         gov = min(states, key=lambda k: sc[states[k]].m_as("N*m"))
         axis = name[-1]
-        if getattr(self, "axes", "geometric") == "principal":
+        if self.axes == "principal":
             axis = {"x": "w (major principal axis)", "y": "z (minor principal axis)"}[axis]
         w.note(f"{gov[0].upper() + gov[1:]} governs the flexural strength about {axis} ({STD} F1).", kind="method")
         return gov
@@ -516,8 +520,8 @@ class _Ctx:
 
     def flexure_minor(self):
         w, sc, u = self.work, self.sc, self.u
-        if self.form == "L" and getattr(self, "axes", "geometric") == "principal":
-            aisc_open._principal_geometry(self, getattr(self, "toe", "compression"))
+        if self.form == "L" and self.axes == "principal":
+            aisc_open._principal_geometry(self, self.toe)
             return self.governing_moment("M_ny", aisc_open.f10_minor(self))
         if self.form in ("T", "L"):
             return None
@@ -753,7 +757,7 @@ def _collect(ctx, out, utils):
     if utils:
         name = max(utils, key=lambda k: num(sc[utils[k]]))
         out["util"] = out[name]
-        principal = getattr(ctx, "axes", "geometric") == "principal"
+        principal = ctx.axes == "principal"
         out["governing"] = {"util_axial": "axial compression",
                             "util_flexure": "flexure about w (major principal axis)" if principal else "flexure about x",
                             "util_flexure_y": "flexure about z (minor principal axis)" if principal else "flexure about y", "util_shear": "shear",
