@@ -10,7 +10,7 @@ from __future__ import annotations
 
 
 from .. import nodes as N
-from ..trace import CheckResult, Heading, Step
+from ..trace import CheckResult, Heading, Step, copied
 from .base import Printer
 from .math import is_literal
 
@@ -51,21 +51,12 @@ def number_items(items: list) -> list:
                 counters[i] = 0
             current = ".".join(str(c) for c in counters[:level])
             step_no = 0
-            item = _with(item, number=current, anchor="s-" + current)
+            item = copied(item, number=current, anchor="s-" + current)
         elif isinstance(item, (Step, CheckResult)):
             step_no += 1
-            item = _with(item, number=f"{current}.{step_no}" if current != "0" else str(step_no))
+            item = copied(item, number=f"{current}.{step_no}" if current != "0" else str(step_no))
         out.append(item)
     return out
-
-
-def _with(item, **changes):
-    """A copy of a trace record with ``changes``: what dataclasses.replace gives for these plain records (no
-    __post_init__, no init-only fields), without re-running __init__ for each of a long sheet's steps."""
-    new = object.__new__(type(item))
-    new.__dict__.update(item.__dict__)
-    new.__dict__.update(changes)
-    return new
 
 
 def exact_inputs(items: list) -> dict:

@@ -57,18 +57,18 @@ def test_sheet_text_reaches_the_page_only_escaped(run):
 
 
 def test_numbering_copies_each_record_as_dataclasses_replace_would():
-    # number_items copies records without re-running __init__; that equals dataclasses.replace only while
-    # the trace records have no __post_init__, no init-only fields and no __slots__ — held here
+    # number_items (and the fast rebuild) copy records without re-running __init__ (trace.copied); that equals
+    # dataclasses.replace only while the trace records have no __post_init__, no init-only fields and no
+    # __slots__ — held here
     import dataclasses
 
-    from calcsheet.render.document import _with
-    from calcsheet.trace import CheckResult, Heading, Step
+    from calcsheet.trace import CheckResult, FunctionStep, Heading, Step, copied
 
-    for cls in (Step, CheckResult, Heading):
+    for cls in (Step, FunctionStep, CheckResult, Heading):
         assert not hasattr(cls, "__post_init__") and not hasattr(cls, "__slots__")
         assert all(f.init and not isinstance(f.type, dataclasses.InitVar) for f in dataclasses.fields(cls))
     h = Heading(text="Beam", level=1)
-    assert _with(h, number="2", anchor="s-2") == dataclasses.replace(h, number="2", anchor="s-2")
+    assert copied(h, number="2", anchor="s-2") == dataclasses.replace(h, number="2", anchor="s-2")
     assert h.number == ""  # the record given is not changed
     s = Step(name="M", expr=None, value=1.0)
-    assert _with(s, number="2.1") == dataclasses.replace(s, number="2.1") and s.number != "2.1"
+    assert copied(s, number="2.1") == dataclasses.replace(s, number="2.1") and s.number != "2.1"
