@@ -71,6 +71,7 @@ class T:
         t = _OF.get((arg, many))
         if t is None:
             t = _OF[(arg, many)] = T("q", arg.dim, offset=arg.offset, many=many)
+            _SHARED.add(id(t))
         return t
 
     def word(self):
@@ -92,6 +93,11 @@ _OF: dict = {}
 ANY = T("any")
 TEXT = T("text")
 NUMBER = T("q", U.DIMENSIONLESS)
+# the ids of the types that live as long as the process (those of T.of, and the constants above): a type
+# is one of these whenever inference has it from a rule, so a cache may be keyed by their ids (never reused)
+_SHARED: set[int] = {id(ANY), id(TEXT), id(NUMBER)}
+_BINOP_TYPES: dict = {}  # (operator, id of left type, id of right type) -> result type, for shared types
+_DECLARED_ARGS: dict = {}  # a declared unit's factors -> its Arg (units that read; errors are never kept)
 
 
 class ValueTypes(Mapping):
@@ -137,7 +143,7 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
     return ANY
 
 
-_INFER: dict = {}  # (checker class, node class) -> its _infer_ method
+_INFER: dict = {}  # checker class -> {node class -> its _infer_ method}
 _NUMBER_TYPES: dict = {}  # a literal's unit factors -> its type
 
 
@@ -160,6 +166,7 @@ class Checker:
         # whose pass over it then landed on whatever ran next)
         self.consts = lint.Constants(weakref.proxy(self))
         self.functions: dict[str, N.FunctionDef] = {}  # the sheet's own functions that check clean
+        self._dispatch = _INFER.setdefault(type(self), {})  # node class -> this class's _infer_ method
 
     # ------------------------------------------------------------ statements
     def check_sheet(self, sheet: N.Sheet, res: Resolution) -> list[Diagnostic]:
@@ -201,8 +208,10 @@ class Checker:
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = ANY
                 continue
-            diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
-            diags.extend(self._pending)
+            if self._shadows:
+                diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
+            if self._pending:
+                diags.extend(self._pending)
             if isinstance(stmt, N.Definition):
                 diags.extend(lint.definition_findings(stmt, self.types[stmt.name], self, self.path))
             else:
@@ -316,11 +325,15 @@ class Checker:
         t = self.infer(stmt.expr)
         if stmt.unit is None:
             return t
-        try:
-            unit = U.build_unit(stmt.unit) if stmt.unit else None
-        except CalcError as exc:
-            raise exc.with_span(stmt.unit_span or stmt.span)
-        want = B.unit_arg(unit) if unit is not None else B.NUMBER
+        want = _DECLARED_ARGS.get(stmt.unit)
+        if want is None:
+            try:
+                unit = U.build_unit(stmt.unit) if stmt.unit else None
+            except CalcError as exc:
+                raise exc.with_span(stmt.unit_span or stmt.span)
+            want = B.unit_arg(unit) if unit is not None else B.NUMBER
+            if len(_DECLARED_ARGS) < 4096:
+                _DECLARED_ARGS[stmt.unit] = want
         if t.kind not in ("q", "any"):
             raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
                                     stmt.unit_span or stmt.span)
@@ -344,14 +357,13 @@ class Checker:
 
     # ------------------------------------------------------------ expressions
     def infer(self, node: N.Expr) -> T:
-        key = (type(self), type(node))
-        method = _INFER.get(key)
+        method = self._dispatch.get(type(node))
         if method is None:  # the first node of its class: find its method up the MRO, once
             for cls in type(node).__mro__:
                 method = getattr(type(self), "_infer_" + cls.__name__, None)
                 if method:
                     break
-            _INFER[key] = method
+            self._dispatch[type(node)] = method
         return method(self, node)
 
     def _quantity(self, t: T, node) -> T:
@@ -415,12 +427,24 @@ class Checker:
     def _infer_BinOp(self, node: N.BinOp) -> T:
         a = self._quantity(self.infer(node.left), node.left)
         b = self._quantity(self.infer(node.right), node.right)
-        if node.op == "^":  # the written power matters only for a base with units
+        op = node.op
+        if op == "^":  # the written power matters only for a base with units
             p = B.written_power(node.right) if a.kind == "q" and a.dim != U.DIMENSIONLESS else None
             t = T.of(B.rule_pow(a.arg, b.arg, node, p), many=a.many)
             B.rule_scalar(b.many, node.right, "an exponent")
             return t
-        return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node), many=a.many or b.many)
+        # + - * /: the result depends on the operator and the two types only; a rule that refuses raises
+        # (and is asked again next time, so each error keeps its own node), one that passes is remembered
+        ia, ib = id(a), id(b)
+        if ia in _SHARED and ib in _SHARED:
+            key = (op, ia, ib)
+            t = _BINOP_TYPES.get(key)
+            if t is None:
+                t = T.of(B.OPERATORS[op].rule(op, a.arg, b.arg, node), many=a.many or b.many)
+                if len(_BINOP_TYPES) < 65536:
+                    _BINOP_TYPES[key] = t
+            return t
+        return T.of(B.OPERATORS[op].rule(op, a.arg, b.arg, node), many=a.many or b.many)
 
     def _infer_FieldAccess(self, node: N.FieldAccess) -> T:
         obj = self.infer(node.obj)
