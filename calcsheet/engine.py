@@ -10,7 +10,7 @@ import gc
 import hashlib
 import os
 import threading
-from contextlib import contextmanager
+from contextlib import contextmanager, nullcontext
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
@@ -184,9 +184,46 @@ def fewer_collections():
                 _GC_SAVED = None
 
 
+_PAUSE_DEPTH = 0
+_PAUSE_RESUME = False  # whether the collector was on when the first concurrent pause began
+
+
+@contextmanager
+def collections_paused():
+    """The cyclic collector paused while a static check runs; what it made then goes straight to the
+    oldest generation.
+
+    Parse, resolve and check build trees (nodes, spans, types): many objects, no reference cycles, alive
+    until the result is dropped and then freed by reference counting. Young collections walking them as
+    they were made found nothing and cost 10 % of a check at 10⁴ lines and near 30 % at 10⁵ (gen-1 passes
+    over a growing young heap). While paused nothing is walked; on resuming, ``gc.freeze()`` then
+    ``gc.unfreeze()`` move every tracked object into the oldest generation (a splice of lists, no walk, the
+    young counts reset), where only a full collection looks at them; a cycle among them is freed there.
+    Nested and concurrent pauses are counted under the same lock as ``fewer_collections``; a process that
+    froze objects itself (a pre-fork server) keeps them frozen (then nothing is moved).
+    """
+    global _PAUSE_DEPTH, _PAUSE_RESUME
+    with _GC_LOCK:
+        if _PAUSE_DEPTH == 0:
+            _PAUSE_RESUME = gc.isenabled()
+            gc.disable()
+        _PAUSE_DEPTH += 1
+    try:
+        yield
+    finally:
+        with _GC_LOCK:
+            _PAUSE_DEPTH -= 1
+            if _PAUSE_DEPTH == 0:
+                if gc.get_freeze_count() == 0:
+                    gc.freeze()
+                    gc.unfreeze()
+                if _PAUSE_RESUME:
+                    gc.enable()
+
+
 def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | None = None,
         plugins: PluginRegistry | None = None, evaluate: bool = True) -> Result:
-    with fewer_collections():
+    with fewer_collections(), (nullcontext() if evaluate else collections_paused()):
         return _run(path_or_text, overrides, path=path, plugins=plugins, evaluate=evaluate)
 
 
