@@ -6,8 +6,9 @@ import dataclasses
 from .. import nodes as N
 from ..errors import CalcError, Diagnostic, SheetErrors, SheetSyntaxError, Span, TooComplexError
 from .includes import INCLUDE, IncludeState, include
-from .lines import HEADING, front_matter, statement_lines
-from .statement import parse_statement
+from . import fast, grammar
+from .lines import HEADING, bracket_delta, front_matter, statement_lines
+from .statement import MAX_DEPTH, parse_statement
 from .tables import FILE_TABLE, file_table, pipe_table, starts_table
 from .lines import strip_trailing
 from .. import reading
@@ -57,7 +58,11 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             prose_buf = []
 
     max_items, max_problems = reading.limit("STATEMENTS"), reading.limit("PROBLEMS")
-    while i < len(lines):
+    if not fast.decided():
+        grammar.prepare_fast()
+    quick = fast.parse
+    n_lines = len(lines)
+    while i < n_lines:
         if len(diags) >= max_problems or len(body) >= max_items:
             cap = "PROBLEMS" if len(diags) >= max_problems else "STATEMENTS"
             what = (f"{len(diags):,} problems" if cap == "PROBLEMS" else f"{len(body):,} statements")
@@ -98,9 +103,10 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
             continue
-        if starts_table(lines, i) or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
+        pipe = i + 1 < n_lines and lines[i + 1].lstrip().startswith("|") and starts_table(lines, i)
+        if pipe or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
             try:
-                if starts_table(lines, i):
+                if pipe:
                     i, table = pipe_table(lines, i, path)
                 else:
                     table = file_table(lines, i, path, state)
@@ -116,14 +122,24 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             body.append(table)
             continue
         # a statement, continuing over lines while brackets are open
-        i, stmt_text, descs, comments = statement_lines(lines, i)
-        try:
-            stmt = parse_statement(stmt_text, line_offset=lineno - 1)
-        except CalcError as exc:
-            if not collect:
-                raise SheetErrors([exc.diagnostic(path)], source) from None
-            diags.append(exc.diagnostic(path))
-            continue
+        if "--" not in raw and "//" not in raw and (
+                raw.count("(") + raw.count("[") <= raw.count(")") + raw.count("]") if '"' not in raw
+                else bracket_delta(raw) <= 0):  # one line, no description or comment: statement_lines' answer
+            i += 1
+            stmt_text, descs, comments = raw, None, None
+        else:
+            i, stmt_text, descs, comments = statement_lines(lines, i)
+        # a short statement the quick reader reads is what parse_statement gives (no size or depth limit
+        # reaches it); anything else, and every error, goes through parse_statement
+        stmt = quick(stmt_text, lineno - 1) if len(stmt_text) <= MAX_DEPTH else None
+        if stmt is None:
+            try:
+                stmt = parse_statement(stmt_text, line_offset=lineno - 1)
+            except CalcError as exc:
+                if not collect:
+                    raise SheetErrors([exc.diagnostic(path)], source) from None
+                diags.append(exc.diagnostic(path))
+                continue
         extra = {}
         if descs:
             extra["description"] = " ".join(descs)
