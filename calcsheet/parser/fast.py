@@ -337,8 +337,23 @@ class _Reader:
                 return operand
             sp = operand.span
             return N.Neg(operand, Span(sp.line, sp.col - 1, sp.end_line, sp.end_col))
-        node = self.atom(k, i)
-        k = kinds[self.i]
+        if k == _NAME and self.newlines is None:  # the everyday operand, on one line: atom() written out
+            m = self.matches[i]
+            word = m.group(_NAME)
+            if word in self.keywords:
+                raise _Bail
+            i += 1
+            self.i = i
+            a, b = m.span(_NAME)
+            line = self.line0
+            node = N.Name(word, Span(line, a + 1, line, b + 1))
+            k = kinds[i]
+            if k == _MUL or k == _DIV or k == _PLUS or k == _MINUS or k == _END or k == _RPAR or k == _COMMA \
+                    or k == _COMPARE:
+                return node  # no field, call or power follows
+        else:
+            node = self.atom(k, i)
+            k = kinds[self.i]
         while k == _DOT or k == _LPAR:
             if k == _DOT:
                 self.i += 1
@@ -367,7 +382,11 @@ class _Reader:
             if word in self.keywords:
                 raise _Bail
             self.i = i + 1
-            return N.Name(word, self.span(m.start(_NAME), m.end(_NAME)))
+            a, b = m.span(_NAME)
+            if self.newlines is None:
+                line = self.line0
+                return N.Name(word, Span(line, a + 1, line, b + 1))
+            return N.Name(word, self.span(a, b))
         if k == _NUM or k == _NUMU:
             m = self.matches[i]
             num = m.group(_NUM)
@@ -378,10 +397,17 @@ class _Reader:
                 if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
                     raise _Bail  # overflow or underflow: the grammar's callback words it
             self.i = i + 1
+            a = m.start(_NUM)
             if k == _NUMU:
                 utext = m.group(_NUMU)
-                return N.Number(value, num, _split(utext), utext, self.span(m.start(_NUM), m.end(_NUMU)))
-            return N.Number(value, num, (), "", self.span(m.start(_NUM), m.end(_NUM)))
+                unit = _split_cache.get(utext) or _split(utext)
+                b = m.end(_NUMU)
+            else:
+                utext, unit, b = "", (), m.end(_NUM)
+            if self.newlines is None:
+                line = self.line0
+                return N.Number(value, num, unit, utext, Span(line, a + 1, line, b + 1))
+            return N.Number(value, num, unit, utext, self.span(a, b))
         if k == _LPAR:
             start = self.matches[i].start(_LPAR)
             self.i = i + 1
