@@ -173,28 +173,38 @@ class Checker:
         self.res = res
         self.defined = res.defined_at
         diags: list[Diagnostic] = []
+        broken, types, path = res.broken, self.types, self.path
+        definition_findings, check_findings = lint.definition_findings, lint.check_findings
         for stmt in sheet.body:
-            if isinstance(stmt, N.FunctionDef):
+            cls = type(stmt)
+            if cls is N.Definition:  # the everyday statements first (the classes are disjoint)
+                key = stmt.name
+            elif cls is N.Check:
+                key = check_key(stmt)
+            elif isinstance(stmt, N.FunctionDef):
                 diags.extend(self._function_statement(stmt, res))
                 continue
-            if isinstance(stmt, N.TableDef):
+            elif isinstance(stmt, N.TableDef):
                 diags.extend(self._table_statement(stmt, res))
                 continue
-            if isinstance(stmt, N.Definition):
+            elif isinstance(stmt, N.Definition):
                 key = stmt.name
             elif isinstance(stmt, N.Check):
                 key = check_key(stmt)
             else:
                 continue
-            if key in res.broken:
+            if key in broken:
                 if isinstance(stmt, N.Definition):
-                    self.types.setdefault(stmt.name, ANY)
+                    types.setdefault(stmt.name, ANY)
                 continue
-            self._shadows, self._pending = [], []
+            if self._shadows:  # each statement starts with none (an empty list is reused)
+                self._shadows = []
+            if self._pending:
+                self._pending = []
             self.user_calls = 0
             try:
                 if isinstance(stmt, N.Definition):
-                    self.types[stmt.name] = self.definition(stmt)
+                    t = types[key] = self.definition(stmt)
                 else:
                     self.check(stmt)
             except Broken:
@@ -212,10 +222,10 @@ class Checker:
                 diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
             if self._pending:
                 diags.extend(self._pending)
-            if isinstance(stmt, N.Definition):
-                diags.extend(lint.definition_findings(stmt, self.types[stmt.name], self, self.path))
-            else:
-                diags.extend(lint.check_findings(stmt, self, self.path))
+            found = definition_findings(stmt, t, self, path) if isinstance(stmt, N.Definition) else \
+                check_findings(stmt, self, path)
+            if found:
+                diags.extend(found)
         diags.extend(lint.unused_inputs(res, self.path, skip=self.shadowed))
         return diags
 
@@ -408,8 +418,8 @@ class Checker:
         return TEXT
 
     def _infer_Name(self, node: N.Name) -> T:
-        if node.id in self.types:
-            t = self.types[node.id]
+        t = self.types.get(node.id)
+        if t is not None:
             if t.kind == "any":
                 raise Broken()
             return t
@@ -425,8 +435,16 @@ class Checker:
         return T.of(B.rule_neg(t.arg, node), many=t.many)
 
     def _infer_BinOp(self, node: N.BinOp) -> T:
-        a = self._quantity(self.infer(node.left), node.left)
-        b = self._quantity(self.infer(node.right), node.right)
+        dispatch = self._dispatch
+        left, right = node.left, node.right
+        method = dispatch.get(type(left))
+        a = method(self, left) if method is not None else self.infer(left)
+        if a.kind != "q" and a.kind != "any":
+            self._quantity(a, left)
+        method = dispatch.get(type(right))
+        b = method(self, right) if method is not None else self.infer(right)
+        if b.kind != "q" and b.kind != "any":
+            self._quantity(b, right)
         op = node.op
         if op == "^":  # the written power matters only for a base with units
             p = B.written_power(node.right) if a.kind == "q" and a.dim != U.DIMENSIONLESS else None
