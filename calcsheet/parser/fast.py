@@ -242,7 +242,8 @@ class _Reader:
                 raise _Bail
             a, b = left.span, right.span
             return N.Check(left=left, op=_CMP.get(op, op), right=right, span=Span(a.line, 1, b.end_line, b.end_col))
-        name_span = self.span(m.start(_NAME), m.end(_NAME))
+        a, b = m.span(_NAME)
+        name_span = self.span(a, b)
         params = None
         if kinds[1] == _LPAR:  # a sheet's own function: NAME ( param ("," param)* ) [unit] = expr
             self.i = 2
@@ -287,7 +288,11 @@ class _Reader:
         if k == _DUNIT and decl[0].isdigit():
             raise _Bail  # a digit the number pattern does not read (²): the grammar says what it is
         self.i = i + 1
-        return _declared(decl), decl.strip(), self.span(m.start(k), m.end(k))
+        a, b = m.span(k)
+        if self.newlines is None:
+            line = self.line0
+            return _decl_cache.get(decl) or _declared(decl), decl.strip(), Span(line, a + 1, line, b + 1)
+        return _declared(decl), decl.strip(), self.span(a, b)
 
     # ------------------------------------------------------------ expressions
     def expr(self) -> N.Expr:
