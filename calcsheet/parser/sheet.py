@@ -13,7 +13,8 @@ from .tables import FILE_TABLE, file_table, pipe_table, starts_table
 from .lines import strip_trailing
 from .. import reading
 
-MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]  # the default; reading.limit("SHEET_BYTES") is the cap
+MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]
+_MARKS = ("", "/")  # the first characters of a line that is blank or a comment  # the default; reading.limit("SHEET_BYTES") is the cap
 
 
 def read_sheet(path) -> str:
@@ -73,7 +74,8 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
         raw = lines[i]
         lineno = i + 1
         text = raw.strip()
-        if text.startswith(">"):
+        first = text[:1]
+        if first == ">":
             if not prose_buf:
                 prose_start = lineno
             prose_buf.append(text[1:].strip())
@@ -81,10 +83,10 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             continue
         if prose_buf:
             flush_prose()
-        if not text or text.startswith("//"):
+        if first in _MARKS and (not text or text.startswith("//")):
             i += 1
             continue
-        inc = INCLUDE.match(text) if text.startswith("include") else None
+        inc = INCLUDE.match(text) if first == "i" and text.startswith("include") else None
         if inc:
             span = Span(lineno, 1, lineno, len(raw) + 1)
             stmts, sub_diags = include(inc.group(1), span, path, state, parse_sheet)
@@ -92,13 +94,13 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             diags.extend(sub_diags)
             i += 1
             continue
-        m = HEADING.match(text) if text.startswith("#") else None
+        m = HEADING.match(text) if first == "#" else None
         if m:
             body.append(N.Heading(level=len(m.group(1)), text=m.group(2).strip(),
                                   span=Span(lineno, 1, lineno, len(raw) + 1)))
             i += 1
             continue
-        if text.startswith("#"):
+        if first == "#":
             diags.append(SheetSyntaxError("a heading needs a space after '#'", Span(lineno, 1, lineno, 2),
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
@@ -140,12 +142,12 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
                     raise SheetErrors([exc.diagnostic(path)], source) from None
                 diags.append(exc.diagnostic(path))
                 continue
-        extra = {}
-        if descs:
-            extra["description"] = " ".join(descs)
-        if comments:
-            extra["comment"] = " ".join(comments)
-        if extra:
+        if descs or comments:
+            extra = {}
+            if descs:
+                extra["description"] = " ".join(descs)
+            if comments:
+                extra["comment"] = " ".join(comments)
             stmt = dataclasses.replace(stmt, **extra)
         body.append(stmt)
     flush_prose()
