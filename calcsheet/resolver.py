@@ -116,16 +116,17 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
             errors.extend(_param_errors(stmt, plugins))
         if cls is not Check and isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)):
             name = stmt.name
-            if name in defined_at and (name in functions) != isinstance(stmt, N.FunctionDef):
-                was = "a function" if name in functions else "a value"
-                errors.append(RedefinitionError(
-                    f"'{name}' is already {was} (defined on {def_spans[name].where()}); "
-                    f"a name is either a function or a value", stmt.name_span,
-                    hint="give one of them another name"))
-            elif name in defined_at:
-                errors.append(RedefinitionError(
-                    f"'{name}' is already defined on {def_spans[name].where()}", stmt.name_span,
-                    hint="give the new value its own name (e.g. a subscript: M_2)"))
+            if name in defined_at:
+                if (name in functions) != isinstance(stmt, N.FunctionDef):
+                    was = "a function" if name in functions else "a value"
+                    errors.append(RedefinitionError(
+                        f"'{name}' is already {was} (defined on {def_spans[name].where()}); "
+                        f"a name is either a function or a value", stmt.name_span,
+                        hint="give one of them another name"))
+                else:
+                    errors.append(RedefinitionError(
+                        f"'{name}' is already defined on {def_spans[name].where()}", stmt.name_span,
+                        hint="give the new value its own name (e.g. a subscript: M_2)"))
             elif name in FUNCTIONS or name in CONSTANTS:  # builtins.is_builtin
                 errors.append(RedefinitionError(f"'{name}' is a built-in name", stmt.name_span,
                                                 hint="choose another name"))
@@ -136,7 +137,7 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
         calls_plugin = False
         # every node of the expressions, in source order (nodes.walk, written out: most nodes are the
         # operators, names and numbers of an everyday formula, handled without a generator or a call)
-        stack = list(reversed(exprs))
+        stack = [exprs[0]] if len(exprs) == 1 else list(reversed(exprs))
         pop, push = stack.pop, stack.append
         while stack:
             node = pop()
