@@ -163,12 +163,16 @@ def _declared(text: str) -> tuple:
     return hit
 
 
-def parse(text: str, line_offset: int = 0) -> N.Statement | None:
-    """The statement's node, exactly as the grammar builds it, or None to let the grammar read it."""
+def parse(text: str, line_offset: int = 0, description: str | None = None,
+          comment: str | None = None) -> N.Statement | None:
+    """The statement's node, exactly as the grammar builds it, or None to let the grammar read it.
+
+    ``description`` and ``comment`` (cut off the line by ``lines``) go into the node as it is made: the
+    same node as ``dataclasses.replace`` of the grammar's, without making it twice."""
     if _patterns is None:
         return None
     try:
-        return _Reader(text, line_offset, _patterns).statement()
+        return _Reader(text, line_offset, _patterns).statement(description, comment)
     except (_Bail, RecursionError):
         return None
     except Exception:  # a callback's error (unit, number): the grammar raises it, in its own order
@@ -221,7 +225,7 @@ class _Reader:
         return word, self.span(m.start(_NAME), m.end(_NAME))
 
     # ------------------------------------------------------------ statements
-    def statement(self) -> N.Statement:
+    def statement(self, description: str | None = None, comment: str | None = None) -> N.Statement:
         kinds = self.kinds
         if kinds[0] != _NAME:
             raise _Bail
@@ -241,7 +245,8 @@ class _Reader:
             if kinds[self.i] != _END:
                 raise _Bail
             a, b = left.span, right.span
-            return N.Check(left=left, op=_CMP.get(op, op), right=right, span=Span(a.line, 1, b.end_line, b.end_col))
+            return N.Check(left=left, op=_CMP.get(op, op), right=right, span=Span(a.line, 1, b.end_line, b.end_col),
+                           description=description, comment=comment)
         a, b = m.span(_NAME)
         name_span = self.span(a, b)
         params = None
@@ -272,10 +277,10 @@ class _Reader:
         if params is not None:
             return N.FunctionDef(name=name, params=tuple(params), expr=expr, unit=unit, unit_text=unit_text,
                                  span=Span(name_span.line, name_span.col, es.end_line, es.end_col),
-                                 name_span=name_span, unit_span=unit_span)
+                                 name_span=name_span, unit_span=unit_span, description=description, comment=comment)
         return N.Definition(name=name, expr=expr, unit=unit, unit_text=unit_text,
                             span=Span(name_span.line, name_span.col, es.end_line, es.end_col),
-                            name_span=name_span, unit_span=unit_span)
+                            name_span=name_span, unit_span=unit_span, description=description, comment=comment)
 
     def unit_decl(self) -> tuple:
         """An optional declared unit ``[kN/m]`` (or ``[1]``): (factors, text, span), or three Nones."""

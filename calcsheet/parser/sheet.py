@@ -133,7 +133,9 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             i, stmt_text, descs, comments = statement_lines(lines, i)
         # a short statement the quick reader reads is what parse_statement gives (no size or depth limit
         # reaches it); anything else, and every error, goes through parse_statement
-        stmt = quick(stmt_text, lineno - 1) if len(stmt_text) <= MAX_DEPTH else None
+        desc = " ".join(descs) if descs else None
+        comment = " ".join(comments) if comments else None
+        stmt = quick(stmt_text, lineno - 1, desc, comment) if len(stmt_text) <= MAX_DEPTH else None
         if stmt is None:
             try:
                 stmt = parse_statement(stmt_text, line_offset=lineno - 1)
@@ -142,13 +144,13 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
                     raise SheetErrors([exc.diagnostic(path)], source) from None
                 diags.append(exc.diagnostic(path))
                 continue
-        if descs or comments:
-            extra = {}
-            if descs:
-                extra["description"] = " ".join(descs)
-            if comments:
-                extra["comment"] = " ".join(comments)
-            stmt = dataclasses.replace(stmt, **extra)
+            if desc is not None or comment is not None:
+                extra = {}
+                if desc is not None:
+                    extra["description"] = desc
+                if comment is not None:
+                    extra["comment"] = comment
+                stmt = dataclasses.replace(stmt, **extra)
         body.append(stmt)
     flush_prose()
     sheet = N.Sheet(meta=tuple(meta.items()), body=tuple(body), path=path, source=source,
