@@ -170,6 +170,9 @@ def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diag
     return out
 
 
+_USUAL: dict = {}  # (kind, declared unit's factors) -> whether the unit is a usual one for the kind
+
+
 def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: str) -> list[Diagnostic]:
     out: list[Diagnostic] = []
     if t.kind != "q":
@@ -178,8 +181,12 @@ def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: st
     if kind is None:
         return out  # a name that says nothing of its value: no unit or range to hold it to
     if stmt.unit and kind.usual_units:
-        unit = U.build_unit(stmt.unit)
-        if not P.is_usual_unit(kind, unit):
+        usual = _USUAL.get((kind.key, stmt.unit))
+        if usual is None:  # once per kind and declared unit (the checker has read the unit)
+            usual = P.is_usual_unit(kind, U.build_unit(stmt.unit))
+            if len(_USUAL) < 4096:
+                _USUAL[(kind.key, stmt.unit)] = usual
+        if not usual:
             out.append(UnusualUnitInfo(
                 f"{stmt.name} is declared [{stmt.unit_text}]; {_article(kind.words)} {kind.words} is usually given in "
                 + ", ".join(kind.usual_units[:5]), stmt.unit_span or stmt.span,
@@ -255,7 +262,10 @@ def _fold_from_inputs(node, checker: "Checker"):
     """
     res = checker.res
     inputs = res.input_set() if res else frozenset()
-    if any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
+    if type(node) is N.Name:  # the everyday demand, one name: no walk
+        if node.id not in CONSTANTS and node.id not in inputs:
+            return None
+    elif any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
         return None
     return checker.consts.of(node)
 
