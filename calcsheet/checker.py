@@ -98,6 +98,7 @@ NUMBER = T("q", U.DIMENSIONLESS)
 _SHARED: set[int] = {id(ANY), id(TEXT), id(NUMBER)}
 _BINOP_TYPES: dict = {}  # (operator, id of left type, id of right type) -> result type, for shared types
 _DECLARED_ARGS: dict = {}  # a declared unit's factors -> its Arg (units that read; errors are never kept)
+_DECLARED_TYPES: dict = {}  # (id of a shared type, declared unit's factors) -> the definition's type
 
 
 class ValueTypes(Mapping):
@@ -335,6 +336,11 @@ class Checker:
         t = self.infer(stmt.expr)
         if stmt.unit is None:
             return t
+        shared = id(t) in _SHARED
+        if shared:  # a declared unit over a process-lifetime type: the rule's answer depends on the two only
+            known = _DECLARED_TYPES.get((id(t), stmt.unit))
+            if known is not None:
+                return known
         want = _DECLARED_ARGS.get(stmt.unit)
         if want is None:
             try:
@@ -358,7 +364,10 @@ class Checker:
             specialise(exc, want.dim, t.dim, _operand(stmt.expr, "the expression"))
             return exc
 
-        return T.of(B.rule_declared(t.arg, want, stmt, mismatch), many=t.many)
+        result = T.of(B.rule_declared(t.arg, want, stmt, mismatch), many=t.many)
+        if shared and len(_DECLARED_TYPES) < 65536:
+            _DECLARED_TYPES[(id(t), stmt.unit)] = result  # only a rule that passed is remembered
+        return result
 
     def check(self, stmt: N.Check) -> None:
         a = self._quantity(self.infer(stmt.left), stmt.left)
@@ -384,10 +393,13 @@ class Checker:
     def _infer_Number(self, node: N.Number) -> T:
         if not node.unit:
             return NUMBER
-        shadow = lint.shadowing_factor(node, self.defined)
-        if shadow is not None:
-            self._shadows.append(node)
-            self.shadowed.add(shadow[0])
+        defined = self.defined
+        for name, _ in node.unit:
+            if name in defined:  # a unit name that is also a variable of the sheet (lint words it)
+                shadow = lint.shadowing_factor(node, defined)
+                self._shadows.append(node)
+                self.shadowed.add(shadow[0])
+                break
         known = _NUMBER_TYPES.get(node.unit)
         if known is not None:
             return known
