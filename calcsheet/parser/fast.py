@@ -13,7 +13,8 @@ a number is its unit and a word inside ``[…]`` a declared unit, as the grammar
 The contract is one-sided: ``parse`` returns either ``None`` or the very node the grammar would build, spans
 included. Anything it does not know, anything unusual and every error (a syntax error, a unit that does not
 read, a number too long) gives ``None``, and the statement goes through the grammar, which owns every
-diagnostic and its location. Lists and tuples always take that road.
+diagnostic and its location. Tuples and a list of one item (which reads like a declared ``[unit]``) always
+take that road.
 ``tests/parser/test_fast.py`` holds the two readers to agreement on generated and real statements.
 """
 from __future__ import annotations
@@ -34,9 +35,9 @@ _WS_CHARS = " \t\f\r\n"  # the characters the grammar's WS matches (checked in _
 # token kinds: the number of the master pattern's group that matched (``Match.lastindex``)
 _END = 0  # past the last token
 _NUM, _NUMU, _NAME, _COMPARE, _STRING, _DNUM, _DUNIT = 1, 2, 3, 4, 5, 6, 7
-_PLUS, _MINUS, _MUL, _DIV, _POW, _LPAR, _RPAR, _COMMA, _DOT, _EQ, _OTHER = range(8, 19)
+_PLUS, _MINUS, _MUL, _DIV, _POW, _LPAR, _RPAR, _COMMA, _DOT, _EQ, _LSQB, _RSQB, _OTHER = range(8, 21)
 _SINGLE = ((_PLUS, r"\+"), (_MINUS, "-"), (_MUL, "[*·×]"), (_DIV, "/"), (_POW, r"\^"), (_LPAR, r"\("),
-           (_RPAR, r"\)"), (_COMMA, ","), (_DOT, r"\."), (_EQ, "="))
+           (_RPAR, r"\)"), (_COMMA, ","), (_DOT, r"\."), (_EQ, "="), (_LSQB, r"\["), (_RSQB, r"\]"))
 
 
 class _Bail(Exception):
@@ -61,8 +62,8 @@ def _master(ws: str, number: str, unit: str, name: str, compare: str, string: st
         f"({compare})",  # 4
         f"({string})",  # 5
         rf"\[{w}(?:((?=[0-9])(?:{number}))|({unit})){w}\]",  # 6 a declared [number], 7 a declared [unit]
-        *(f"({p})" for _, p in _SINGLE),  # 8 … 17
-        r"([\s\S])",  # 18 anything else: the grammar's business
+        *(f"({p})" for _, p in _SINGLE),  # 8 … 19 (a '[' here opens a list: a [unit] was tried first)
+        r"([\s\S])",  # 20 anything else: the grammar's business
     ]
     return w + "(?:" + "|".join(alts) + ")"
 
@@ -431,7 +432,27 @@ class _Reader:
             m = self.matches[i]
             self.i = i + 1
             return N.Text(m.group(_STRING)[1:-1], self.span(m.start(_STRING), m.end(_STRING)))
-        raise _Bail  # a list, the end, or a character the grammar reports
+        if k == _LSQB:  # a list: [a, b, c], [a, b,] or []
+            kinds = self.kinds
+            start = self.matches[i].start(_LSQB)
+            self.i = i + 1
+            items = []
+            if kinds[self.i] != _RSQB:
+                while True:
+                    items.append(self.expr())
+                    k = kinds[self.i]
+                    if k == _COMMA:
+                        self.i += 1
+                        if kinds[self.i] == _RSQB:
+                            break
+                        continue
+                    if k == _RSQB:
+                        break
+                    raise _Bail
+            close = self.i
+            self.i = close + 1
+            return N.ListExpr(tuple(items), self.span(start, self.matches[close].end(_RSQB)))
+        raise _Bail  # a one-item list, the end, or a character the grammar reports
 
     def call(self, callee: N.Expr) -> N.Expr:
         kinds = self.kinds
