@@ -362,6 +362,29 @@ class _Reader:
             if k == _MUL or k == _DIV or k == _PLUS or k == _MINUS or k == _END or k == _RPAR or k == _COMMA \
                     or k == _COMPARE:
                 return node  # no field, call or power follows
+        elif (k == _NUMU or k == _NUM) and self.newlines is None:  # a number on one line: atom() written out
+            m = self.matches[i]
+            num = m.group(_NUM)
+            if len(num) > 40:
+                raise _Bail  # too long: the grammar's callback says so
+            value = float(num)
+            if value == 0.0 or value != value or value == _INF or value == -_INF:
+                if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
+                    raise _Bail  # overflow or underflow: the grammar's callback words it
+            i += 1
+            self.i = i
+            line = self.line0
+            if k == _NUMU:
+                utext = m.group(_NUMU)
+                node = N.Number(value, num, _split_cache.get(utext) or _split(utext), utext,
+                                Span(line, m.start(_NUM) + 1, line, m.end(_NUMU) + 1))
+            else:
+                a, b = m.span(_NUM)
+                node = N.Number(value, num, (), "", Span(line, a + 1, line, b + 1))
+            k = kinds[i]
+            if k == _MUL or k == _DIV or k == _PLUS or k == _MINUS or k == _END or k == _RPAR or k == _COMMA \
+                    or k == _COMPARE:
+                return node  # no field, call or power follows
         else:
             node = self.atom(k, i)
             k = kinds[self.i]
