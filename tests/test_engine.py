@@ -302,3 +302,60 @@ def test_a_run_puts_the_garbage_collector_back_as_it_found_it():
     assert calcsheet_result.ok
     assert gc.get_threshold() == before and gc.isenabled()
     assert inside[0][0] >= max(before[0], 1) and inside[0] == inside[1]
+
+
+def test_a_static_check_pauses_the_collector_and_puts_it_back_as_it_found_it():
+    import gc
+
+    from calcsheet import engine
+
+    assert gc.isenabled()
+    with engine.collections_paused():
+        assert not gc.isenabled()
+        with engine.collections_paused():  # nested or concurrent checks: resumed once, by the last
+            pass
+        assert not gc.isenabled()
+    assert gc.isenabled()
+    result = engine.run("x = 1 m\ncheck x <= 2 m\n", evaluate=False)
+    assert result.ok and gc.isenabled() and gc.get_freeze_count() == 0
+    gc.disable()
+    try:
+        with engine.collections_paused():
+            pass
+        assert not gc.isenabled()  # a collector the caller had switched off stays off
+    finally:
+        gc.enable()
+
+
+def test_what_a_paused_stretch_made_waits_for_a_full_collection_where_its_cycles_are_freed():
+    import gc
+    import weakref
+
+    from calcsheet import engine
+
+    class Cycle:
+        pass
+
+    with engine.collections_paused():
+        a = Cycle()
+        a.me = a
+        ref = weakref.ref(a)
+        del a
+    assert ref() is not None and gc.get_count()[0] < 50  # in the oldest generation, young counts reset
+    gc.collect()
+    assert ref() is None
+
+
+def test_objects_a_process_froze_itself_stay_frozen_through_a_check():
+    import gc
+
+    from calcsheet import engine
+
+    gc.freeze()  # e.g. a server before it forks
+    try:
+        frozen = gc.get_freeze_count()
+        assert frozen > 0
+        engine.run("x = 1 m\ncheck x <= 2 m\n", evaluate=False)
+        assert gc.get_freeze_count() > 0  # unfreeze() would have thawed them all
+    finally:
+        gc.unfreeze()
