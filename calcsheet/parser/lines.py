@@ -37,7 +37,7 @@ def strip_trailing(line: str) -> tuple[str, str | None, str | None]:
                 comment_at = j if j >= 0 else None
                 break
         pos += len(part) + 1
-    code_end = min(x for x in (desc_at, comment_at, len(line)) if x is not None)
+    code_end = desc_at if desc_at is not None else comment_at if comment_at is not None else len(line)
     desc = None
     comment = None
     if desc_at is not None:
