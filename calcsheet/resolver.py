@@ -87,6 +87,8 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     all_defs: dict[str, int] = {}
     all_functions: set[str] = set()
     for stmt in sheet.body:
+        if type(stmt) is N.Check:
+            continue
         if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) and stmt.name not in all_defs:
             all_defs[stmt.name] = stmt.span
             if isinstance(stmt, N.FunctionDef):
