@@ -13,8 +13,8 @@ from .tables import FILE_TABLE, file_table, pipe_table, starts_table
 from .lines import strip_trailing
 from .. import reading
 
-MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]
-_MARKS = ("", "/")  # the first characters of a line that is blank or a comment  # the default; reading.limit("SHEET_BYTES") is the cap
+MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]  # the default; reading.limit("SHEET_BYTES") is the cap
+_MARKS = ("", "/")  # the first characters of a line that is blank or a comment
 
 
 def read_sheet(path) -> str:
