@@ -105,7 +105,8 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
             continue
-        pipe = i + 1 < n_lines and lines[i + 1].lstrip().startswith("|") and starts_table(lines, i)
+        pipe = i + 1 < n_lines and "|" in lines[i + 1] and lines[i + 1].lstrip().startswith("|") and \
+            starts_table(lines, i)
         if pipe or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
             try:
                 if pipe:
