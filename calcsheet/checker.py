@@ -11,6 +11,7 @@ inputs, checks without a utilisation, unusual declared units.
 from __future__ import annotations
 
 import weakref
+from collections import ChainMap
 from collections.abc import Mapping
 from dataclasses import dataclass
 from functools import cached_property
@@ -248,7 +249,7 @@ class Checker:
             want = declared.pop(stmt.name)
             if all(p.unit is not None for p in stmt.params):
                 saved = self.types
-                self.types = {**saved, **{k: T.of(a) for k, a in declared.items()}}
+                self.types = ChainMap({k: T.of(a) for k, a in declared.items()}, saved)  # no copy of the sheet's
                 try:
                     t = self._quantity(self.infer(stmt.expr), stmt.expr)
                 finally:
@@ -313,7 +314,7 @@ class Checker:
                 raise Broken()
             local[p.name] = t
         saved = self.types
-        self.types = {**saved, **local}
+        self.types = ChainMap(local, saved)  # the parameters over the sheet's types, without copying them
         try:
             body = self._quantity(self.infer(fd.expr), fd.expr)
         except CalcError as exc:
