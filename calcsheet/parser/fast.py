@@ -249,7 +249,8 @@ class _Reader:
             return N.Check(left=left, op=_CMP.get(op, op), right=right, span=Span(a.line, 1, b.end_line, b.end_col),
                            description=description, comment=comment)
         a, b = m.span(_NAME)
-        name_span = self.span(a, b)
+        line = self.line0
+        name_span = Span(line, a + 1, line, b + 1) if self.newlines is None else self.span(a, b)
         params = None
         if kinds[1] == _LPAR:  # a sheet's own function: NAME ( param ("," param)* ) [unit] = expr
             self.i = 2
