@@ -196,11 +196,13 @@ def collections_paused():
     Parse, resolve and check build trees (nodes, spans, types): many objects, no reference cycles, alive
     until the result is dropped and then freed by reference counting. Young collections walking them as
     they were made found nothing and cost 10 % of a check at 10⁴ lines and near 30 % at 10⁵ (gen-1 passes
-    over a growing young heap). While paused nothing is walked; on resuming, ``gc.freeze()`` then
-    ``gc.unfreeze()`` move every tracked object into the oldest generation (a splice of lists, no walk, the
-    young counts reset), where only a full collection looks at them; a cycle among them is freed there.
-    Nested and concurrent pauses are counted under the same lock as ``fewer_collections``; a process that
-    froze objects itself (a pre-fork server) keeps them frozen (then nothing is moved).
+    over a growing young heap). While paused nothing is walked; on resuming after a large check (at least
+    ``RUN_GC_THRESHOLD`` new objects), ``gc.freeze()`` then ``gc.unfreeze()`` move every tracked object into
+    the oldest generation (a splice of lists, no walk, the young counts reset), where only a full
+    collection looks at them; a cycle among them is freed there. After a small check (one changed line of
+    the live preview) the young generation is left as it is, for the next young collection. Nested and
+    concurrent pauses are counted under the same lock as ``fewer_collections``; a process that froze
+    objects itself (a pre-fork server) keeps them frozen (then nothing is moved).
     """
     global _PAUSE_DEPTH, _PAUSE_RESUME
     with _GC_LOCK:
@@ -214,7 +216,7 @@ def collections_paused():
         with _GC_LOCK:
             _PAUSE_DEPTH -= 1
             if _PAUSE_DEPTH == 0:
-                if gc.get_freeze_count() == 0:
+                if gc.get_count()[0] >= RUN_GC_THRESHOLD and gc.get_freeze_count() == 0:
                     gc.freeze()
                     gc.unfreeze()
                 if _PAUSE_RESUME:

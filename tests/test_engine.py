@@ -327,22 +327,42 @@ def test_a_static_check_pauses_the_collector_and_puts_it_back_as_it_found_it():
         gc.enable()
 
 
-def test_what_a_paused_stretch_made_waits_for_a_full_collection_where_its_cycles_are_freed():
-    import gc
+class _Cycle:
+    pass
+
+
+def _cycle():
     import weakref
+
+    a = _Cycle()
+    a.me = a
+    return weakref.ref(a)
+
+
+def test_what_a_large_paused_stretch_made_waits_for_a_full_collection_where_its_cycles_are_freed():
+    import gc
 
     from calcsheet import engine
 
-    class Cycle:
-        pass
-
     with engine.collections_paused():
-        a = Cycle()
-        a.me = a
-        ref = weakref.ref(a)
-        del a
-    assert ref() is not None and gc.get_count()[0] < 50  # in the oldest generation, young counts reset
+        ref = _cycle()
+        kept = [[i] for i in range(engine.RUN_GC_THRESHOLD)]  # a large check's trees
+    assert gc.get_count()[0] < 1000  # moved to the oldest generation: the young counts start again
+    gc.collect(1)
+    assert ref() is not None  # young collections no longer walk it
     gc.collect()
+    assert ref() is None and len(kept) == engine.RUN_GC_THRESHOLD
+
+
+def test_what_a_small_paused_stretch_made_stays_young():
+    import gc
+
+    from calcsheet import engine
+
+    gc.collect()
+    with engine.collections_paused():
+        ref = _cycle()
+    gc.collect(0)
     assert ref() is None
 
 
