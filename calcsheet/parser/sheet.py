@@ -125,17 +125,20 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             body.append(table)
             continue
         # a statement, continuing over lines while brackets are open
-        if "--" not in raw and "//" not in raw and (
-                raw.count("(") + raw.count("[") <= raw.count(")") + raw.count("]") if '"' not in raw
-                else bracket_delta(raw) <= 0):  # one line, no description or comment: statement_lines' answer
+        if "--" in raw or "//" in raw:
+            code, desc, comment = strip_trailing(raw)
+        else:
+            code, desc, comment = raw, None, None
+        if (code.count("(") + code.count("[") <= code.count(")") + code.count("]") if '"' not in code
+                else bracket_delta(code) <= 0):  # a statement on one line: statement_lines' answer, directly
             i += 1
-            stmt_text, descs, comments = raw, None, None
+            stmt_text = code
         else:
             i, stmt_text, descs, comments = statement_lines(lines, i)
+            desc = " ".join(descs) if descs else None
+            comment = " ".join(comments) if comments else None
         # a short statement the quick reader reads is what parse_statement gives (no size or depth limit
         # reaches it); anything else, and every error, goes through parse_statement
-        desc = " ".join(descs) if descs else None
-        comment = " ".join(comments) if comments else None
         stmt = quick(stmt_text, lineno - 1, desc, comment) if len(stmt_text) <= MAX_DEPTH else None
         if stmt is None:
             try:
