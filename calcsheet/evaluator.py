@@ -18,6 +18,7 @@ import collections
 import dataclasses
 import math
 import weakref
+from math import isfinite as _isfinite
 from typing import Any, Callable
 
 import pint
@@ -101,7 +102,9 @@ class Evaluator:
         """The one finiteness rule of evaluation: no literal, operand, intermediate or check side is
         infinite, NaN or complex (a literal is held to it by the parser first, where its text is known)."""
         if isinstance(value, pint.Quantity):
-            m = value.magnitude
+            m = value._magnitude
+            if type(m) is float and _isfinite(m):  # the common case: one float, finite
+                return value
             if isinstance(m, complex):
                 raise NumericError(f"{what} is a complex number", span)
             try:
@@ -135,7 +138,7 @@ class Evaluator:
 
     def _eval_Number(self, node: N.Number, env, used):
         unit = U.build_unit(node.unit) if node.unit else self._dimensionless
-        return self._finite(self.reg.Quantity(node.value, unit), node.span, "the number")
+        return self._finite(U.quantity(node.value, unit._units), node.span, "the number")
 
     def _eval_Text(self, node, env, used):
         return node.value
