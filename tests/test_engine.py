@@ -294,11 +294,44 @@ def test_a_run_puts_the_garbage_collector_back_as_it_found_it():
     before = gc.get_threshold()
     inside = []
     with engine.fewer_collections():
-        inside.append(gc.get_threshold())
-        with engine.fewer_collections():  # nested or concurrent runs: restored once, by the last
+        inside.append(gc.isenabled())
+        with engine.fewer_collections():  # nested or concurrent runs: put back once, by the last
             pass
-        inside.append(gc.get_threshold())
+        inside.append(gc.isenabled())
     calcsheet_result = engine.run("x = 1 m\ncheck x <= 2 m\n")
     assert calcsheet_result.ok
-    assert gc.get_threshold() == before and gc.isenabled()
-    assert inside[0][0] >= max(before[0], 1) and inside[0] == inside[1]
+    assert inside == [False, False]  # no collection walks the run's objects while it runs
+    assert gc.get_threshold() == before and gc.isenabled() and gc.get_freeze_count() == 0
+
+
+def test_a_run_leaves_a_collector_switched_off_off_and_objects_frozen_by_others_frozen():
+    import gc
+
+    from calcsheet import engine
+
+    gc.disable()
+    try:
+        assert engine.run("x = 1 m\n").ok
+        assert not gc.isenabled()
+    finally:
+        gc.enable()
+    gc.freeze()
+    try:
+        frozen = gc.get_freeze_count()
+        assert frozen > 0 and engine.run("x = 1 m\n").ok
+        assert gc.get_freeze_count() == frozen and gc.isenabled()
+    finally:
+        gc.unfreeze()
+
+
+def test_what_a_run_holds_is_left_in_the_oldest_generation_for_the_next_collection_to_skip():
+    import gc
+
+    from calcsheet import engine
+
+    gc.collect()
+    result = engine.run("".join(f"x_{i} = {i + 1} m\ncheck x_{i} <= 1 km\n" for i in range(200)))
+    assert result.ok
+    assert gc.get_count()[0] < 50  # the young generation starts empty again
+    step = result.steps["x_7"]
+    assert gc.is_tracked(step) and not any(step is o for o in gc.get_objects(generation=0))
