@@ -169,12 +169,24 @@ def convert(q: pint.Quantity, unit) -> pint.Quantity:
     unit by ``magnitude * factor``; the factor of each pair of units is taken from pint once (as the conversion
     of 1) and reused. A pair whose conversion is not a plain factor (°C, °F) always goes through pint."""
     src, dst = q._units, getattr(unit, "_units", unit)
-    if src == dst:
+    if src is dst:
         return q
-    f = factor(src, dst)
-    if f is None:
+    hit = _CONVERSIONS.get((id(src), id(dst)))
+    if hit is None:  # once per pair of containers: equal (nothing to do), a plain factor, or pint's path
+        how = _SAME if src == dst else factor(src, dst)
+        if len(_CONVERSIONS) >= _KEEP:
+            _CONVERSIONS.clear()
+        hit = _CONVERSIONS[(id(src), id(dst))] = (src, dst, how)
+    how = hit[2]
+    if how is _SAME:
+        return q
+    if how is None:
         return q.to(unit)
-    return quantity(q._magnitude * f, dst)
+    return quantity(q._magnitude * how, dst)
+
+
+_SAME = object()
+_CONVERSIONS: dict = {}  # (id(src), id(dst)) -> (src, dst, _SAME | factor | None): held, so the ids stay theirs
 
 
 def factor(src, dst) -> float | None:
