@@ -362,11 +362,15 @@ def _document_class():
             return hit
 
         def blocks(self, items):
-            return self._reuse(("blocks",), self.result.items, [getattr(i, "number", None) for i in items], items,
-                               self._block)
+            records = self.result.items  # numbered one for one into items
+            if len(records) != len(items):
+                return super().blocks(items)
+            return self._reuse(("blocks",), records, [getattr(i, "number", None) for i in items], items, self._block)
 
         def summary_rows(self, checks):
-            records = [i for i in self.result.items if isinstance(i, CheckResult)]  # as numbered into checks
+            records = [i for i in self.result.items if isinstance(i, CheckResult)]  # numbered into checks
+            if len(records) != len(checks):
+                return super().summary_rows(checks)
             return self._reuse(("summary",), records, [c.number for c in checks], checks, self._summary_row)
 
         def input_rows(self, names):
