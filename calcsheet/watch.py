@@ -416,7 +416,8 @@ def _document_class():
             return row, ck[1][0].names, key
 
         def _input_row(self, name):
-            # the row shows its record and the literal the sheet wrote for it (the record's own formula)
+            # the row shows its record and the literal the sheet wrote for it, which is the record's own
+            # formula (``exact_inputs``): it shows no other name, so only a new record is printed again
             step = self.result.steps[name]
             value, overridden = _value_key(step.value), _value_key(step.overridden)
             key = (None if value is None or overridden is None else
