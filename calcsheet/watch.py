@@ -304,6 +304,30 @@ def _stale_names(previous: tuple, current: tuple) -> set[str] | None:
     return stale
 
 
+def _renumbered(items: list, old_items: list, old_numbered: list) -> list | None:
+    """``number_items(items)`` from the last page's numbering of ``old_items``, or None when it cannot be.
+
+    The numbers depend only on where the headings (and their levels) and the steps and checks stand, so
+    when every place holds the same record as before, or a step or check where one stood, or an unnumbered
+    record where one stood, each place keeps its number: a kept record its numbered copy, a new one a copy
+    under the old number.
+    """
+    from .trace import CheckResult, Heading, Step, copied
+
+    counted, numbered = (Step, CheckResult), (Heading, Step, CheckResult)
+    out = []
+    for item, old, done in zip(items, old_items, old_numbered):
+        if item is old:
+            out.append(done)
+        elif isinstance(item, counted) and isinstance(old, counted):
+            out.append(copied(item, number=done.number))
+        elif not isinstance(item, numbered) and not isinstance(old, numbered):
+            out.append(item)
+        else:
+            return None
+    return out
+
+
 def _document_class():
     from .render.page import PackageDocument
     from .trace import CheckResult, Heading, Prose, Step
@@ -320,14 +344,23 @@ def _document_class():
         records find again; failing that it is printed. Each block's content key is kept for the next page.
         """
 
-        memo: PartsMemo
-
-        def _start(self, memo: PartsMemo) -> None:
+        def __init__(self, result, memo: PartsMemo, **options):
             self.memo = memo
+            super().__init__(result, **options)
             self.printer = _MemoPrinter(self.printer, memo)
             context = (self.printer._settings, self.anchors, self.exact, frozenset(self.changed))
             self._stale = _stale_names(memo.previous.get(_PAGE), context)
             memo.current[_PAGE] = context
+
+        def number(self, items):
+            """The numbered records of the last page where the same records stand in the same places."""
+            memo = self.memo
+            prev = memo.previous.get(("numbered",))
+            out = None if prev is None or len(prev[0]) != len(items) else _renumbered(items, *prev)
+            if out is None:
+                out = super().number(items)
+            memo.current[("numbered",)] = (list(items), out)
+            return out
 
         # ---------------------------------------------------------------- lists of blocks
         def _reuse(self, kind, records, numbers, items, make):
@@ -449,9 +482,7 @@ def preview_document(result, memo: PartsMemo | None = None, **options):
     global _PreviewDocument
     if _PreviewDocument is None:
         _PreviewDocument = _document_class()
-    doc = _PreviewDocument(result, **options)
-    doc._start(memo)
-    return doc
+    return _PreviewDocument(result, memo, **options)
 
 
 _PreviewDocument = None

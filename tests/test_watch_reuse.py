@@ -74,6 +74,9 @@ EDITS = [
                  id="a line added: the later steps renumber"),
     pytest.param(("L_2 = 3 m            -- span 2\n", ""), False, id="a line removed"),
     pytest.param(("# Trimmer\n", ""), False, id="a heading removed: the trimmer's steps renumber"),
+    pytest.param(("# Trimmer\n", "L_9 = 1 m\n"), False, id="a heading become a step: as many records, renumbered"),
+    pytest.param(("# Trimmer\n", "> Trimmer notes\n"), False, id="a heading become prose"),
+    pytest.param(("# Trimmer\n", "## Trimmer\n"), False, id="a heading one level down"),
     pytest.param(("check s_2 <= 12 MPa", "check s_2 <= 10 MPa"), False, id="a check's limit"),
     pytest.param(("-- joist 1", "-- joist one"), False, id="only a description"),
 ]

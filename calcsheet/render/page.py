@@ -144,7 +144,7 @@ class PackageDocument(DocumentPrinter):
         self.extra_front = Html() if extra_front is None else extra_front  # the "changes since" page; a str is escaped
         self.changed = changed or set()
         self.watch_script = Html() if watch_script is None else watch_script
-        self.numbered = number_items(result.items)
+        self.numbered = self.number(result.items)
         self.exact = exact_inputs(result.items)
         self.appendix: list = []  # (owner, working title, records) of cross-checks, filled by body()
         # a plugin warning allowed with a reason is listed once, with the suppressed findings, not inline
@@ -152,6 +152,10 @@ class PackageDocument(DocumentPrinter):
                         - {d.message for d in result.diagnostics if not d.suppressed})
         self.checks = [i for i in self.numbered if isinstance(i, CheckResult)]
         self.anchors = {name: step.anchor for name, step in result.steps.items()}
+
+    def number(self, items: list) -> list:
+        """The records numbered for this package (``number_items``)."""
+        return number_items(items)
 
     def link(self, name: str):
         return self.anchors.get(name)
