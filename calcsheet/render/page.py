@@ -250,6 +250,7 @@ class PackageDocument(DocumentPrinter):
                              signoff=self.signoff(), basis=self.design_basis())
 
     def summary_rows(self, checks: list) -> list[Html]:
+        """The summary's rows, one a check (a list, so the live preview can reuse the rows a save left alone)."""
         return [self.summary_row(c) for c in checks]
 
     def summary_row(self, c: CheckResult) -> Html:
@@ -317,7 +318,7 @@ class PackageDocument(DocumentPrinter):
         return Html("\n").join([Html('<section class="calc">'), *self.blocks(self.numbered), Html("</section>")])
 
     def blocks(self, items: list) -> list[Html]:
-        """The printed records of the calculation, in order."""
+        """The printed records of the calculation, in order (a list, as ``summary_rows``)."""
         return [self.record(i) for i in items]
 
     # ------------------------------------------------------------ trace records
@@ -466,6 +467,7 @@ class PackageDocument(DocumentPrinter):
                     "</tbody></table>{}</section>").format(Html("").join(rows), sup)
 
     def input_rows(self, names: list[str]) -> list[Html]:
+        """The inputs table's rows, one an input (a list, as ``summary_rows``)."""
         steps = self.result.steps
         return [self.input_row(name, steps[name]) for name in names]
 
