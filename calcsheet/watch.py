@@ -154,7 +154,8 @@ class PartsMemo:
     exactly as before. A part is reused only when everything it prints from is equal: the record's formula,
     values, units and substituted values, the literals the substitution shows for inputs, the links of the
     names it shows, and the printer's settings. Records with a plugin's working, or with values other
-    than scalars and text, are always printed afresh. Only the parts used by the latest page are kept.
+    than scalars and text, are always printed afresh. Only the parts used by the latest page are kept,
+    with the page's lists of blocks beside the records that printed them (see ``PreviewDocument``).
     """
 
     def __init__(self):
