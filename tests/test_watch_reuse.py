@@ -59,7 +59,8 @@ class Saves:
     def save(self, text):
         out = rebuild(self.result, text)
         self.result = out.result
-        self.page(self.result)
+        page = self.page(self.result)
+        assert page == PackageDocument(calcsheet.run(text, path="joists.calc")).html()  # a first build's page
         return out
 
 
