@@ -177,6 +177,19 @@ def _apart(a, b, d: float) -> bool:
     return a[1] + d < b[0] or b[1] + d < a[0] or a[3] + d < b[2] or b[3] + d < a[2]
 
 
+def _deep(a, b, d: float) -> bool:
+    """The boxes overlap by more than ``d`` along x *and* along y: only then can the overlap test find anything.
+
+    ``_overlap(u, v, d)`` looks for a point of one shape's material farther than d inside the other's, or for
+    edges crossing each other by more than d on both sides. Where the boxes overlap by d or less along one
+    axis (parts stacked edge to edge, the commonest built-up section), every point of u inside v lies within
+    d of the side of v's box it is near, so a straight path of length ≤ d leaves v's material: the point is
+    within d of v's boundary, not farther; and two edges that cross by more than d each side reach more than
+    d past each other along both axes. The full test would answer "no overlap"; this says so without it.
+    """
+    return min(a[1], b[1]) - max(a[0], b[0]) > d and min(a[3], b[3]) - max(a[2], b[2]) > d
+
+
 def _collapse(name: str, shape: Shape, sign: int, n: float, rho) -> Row:
     """One parts-table row for a whole placed shape: its own area, centroid and centroidal moments."""
     b = tabular(shape.rows)
@@ -224,7 +237,7 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
     box = [_box(p.shape.rings) for p in solids]  # a shape's material lies inside its outer rings' box
     for i in range(len(solids)):
         for j in range(i + 1, len(solids)):
-            if not _apart(box[i], box[j], 0.0) and _overlap(solids[i].shape, solids[j].shape, tol + sag):
+            if _deep(box[i], box[j], tol + sag) and _overlap(solids[i].shape, solids[j].shape, tol + sag):
                 raise ShapeError(f"parts '{solids[i].name}' and '{solids[j].name}' overlap: material would count "
                                  "twice (cut a hole in one where the other sits)", "parts")
     # connectivity (union-find over touching parts)
@@ -287,12 +300,12 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
             raise ShapeError(f"hole '{h.name}' crosses parts of different materials: split it into one hole per part",
                              "parts")
         for o_i, other in enumerate(holes[:h_i]):
-            if not _apart(hb, hole_box[o_i], 0.0) and _overlap(h.shape, other.shape, tol + sag):
+            if _deep(hb, hole_box[o_i], tol + sag) and _overlap(h.shape, other.shape, tol + sag):
                 raise ShapeError(f"holes '{other.name}' and '{h.name}' overlap: material would be removed twice",
                                  "parts")
         for p in solids:
             for r in p.shape.rings:
-                if r.sign < 0 and not _apart(hb, _box([r]), 0.0):
+                if r.sign < 0 and _deep(hb, _box([r]), tol + sag):
                     void = replace(p.shape, rings=[P.Ring(r.x, r.y, 1, 1.0)])
                     if _overlap(h.shape, void, tol + sag):
                         raise ShapeError(f"hole '{h.name}' overlaps the open inside of part '{p.name}'", "parts")
