@@ -126,6 +126,32 @@ def _inside_near(px, py, shape: Shape, tol: float) -> tuple[np.ndarray, np.ndarr
     return _inside(px, py, shape), _near(px, py, shape, tol)
 
 
+_BATCH = 2_000_000  # points × edges a batched inside/near test may hold at once (a few arrays of this many floats)
+
+
+def _inside_near_each(px, py, shapes: list[Shape], tol: float) -> list[tuple[np.ndarray, np.ndarray]]:
+    """``_inside_near`` against each of several shapes: one vectorised pass over all their rings when the
+    arrays stay small (a hole and the few parts around it), else shape by shape. The same answers."""
+    rings = [r for s in shapes for r in s.rings]
+    if not rings or len(px) * sum(len(r.x) for r in rings) > _BATCH:
+        return [_inside_near(px, py, s, tol) for s in shapes]
+    in_ring = P.point_in_rings(px, py, rings)
+    dist = P.distance_to_rings(px, py, [_sample(r, 1024) for r in rings])
+    out, k = [], 0
+    for s in shapes:
+        inside = np.zeros(len(px), bool)
+        for j, r in enumerate(s.rings, k):
+            if r.sign > 0:
+                inside |= in_ring[:, j]
+        for j, r in enumerate(s.rings, k):
+            if r.sign < 0:
+                inside &= ~in_ring[:, j]
+        near = (dist[:, k:k + len(s.rings)] <= tol).any(axis=1)
+        k += len(s.rings)
+        out.append((inside, near))
+    return out
+
+
 def _rows_centroid(shape: Shape):
     b = tabular(shape.rows)
     return np.array([b.x_c]), np.array([b.y_c])
@@ -146,16 +172,17 @@ def _overlap(a: Shape, b: Shape, tol: float) -> bool:
     return False
 
 
-def _gap(a: Shape, b: Shape) -> float:
-    best = math.inf
-    for ra in (r for r in a.rings if r.sign > 0):
-        for rb in (r for r in b.rings if r.sign > 0):
-            sa, sb = _sample(ra), _sample(rb)
-            if P.segments_cross(sa, sb, 0.0):
-                return 0.0
-            best = min(best, float(P.distance_to_ring(sa.x, sa.y, sb).min()),
-                       float(P.distance_to_ring(sb.x, sb.y, sa).min()))
-    return best
+def _touch(a: Shape, b: Shape, d: float) -> bool:
+    """The outlines of a and b come within d of each other: a vertex of one within d of the other's outline,
+    or edges crossing. (Each outline thinned to 256 points a ring, as the overlap test does.)"""
+    sa = [_sample(r) for r in a.rings if r.sign > 0]
+    sb = [_sample(r) for r in b.rings if r.sign > 0]
+    if not sa or not sb:
+        return False
+    for u, v in ((sa, sb), (sb, sa)):
+        if float(P.distance_to_rings(np.concatenate([r.x for r in u]), np.concatenate([r.y for r in u]), v).min()) <= d:
+            return True
+    return any(P.segments_cross(ra, rb, 0.0) for ra in sa for rb in sb)
 
 
 def _box(rings) -> tuple[float, float, float, float]:
@@ -249,10 +276,10 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
             k = parent[k]
         return k
 
-    outer = [_box(r for r in p.shape.rings if r.sign > 0) for p in solids]  # _gap measures between these
+    outer = [_box(r for r in p.shape.rings if r.sign > 0) for p in solids]  # _touch measures between these
     for i in range(len(solids)):
         for j in range(i + 1, len(solids)):
-            if not _apart(outer[i], outer[j], touch_tol) and _gap(solids[i].shape, solids[j].shape) <= touch_tol:
+            if not _apart(outer[i], outer[j], touch_tol) and _touch(solids[i].shape, solids[j].shape, touch_tol):
                 parent[root(i)] = root(j)
     groups = {}
     for k in range(len(solids)):
@@ -282,10 +309,8 @@ def assemble(parts: list[Placed], E_ref: float | None = None) -> Assembly:
         qx, qy = np.concatenate([px, cx]), np.concatenate([py, cy])
         where = np.full(len(px), -1)
         cut = []
-        for k, p in enumerate(solids):
-            if _apart(hb, box[k], touch_tol):  # no point of the hole is in or near this part
-                continue
-            inside, near = _inside_near(qx, qy, p.shape, touch_tol)
+        nearby = [k for k in range(len(solids)) if not _apart(hb, box[k], touch_tol)]  # others: no point in or near
+        for k, (inside, near) in zip(nearby, _inside_near_each(qx, qy, [solids[k].shape for k in nearby], touch_tol)):
             m = (inside | near)[:len(px)] & (where < 0)  # the boundary points in the material, or on its edge
             where[m] = k
             if (inside & ~near).any():

@@ -1,9 +1,11 @@
-"""The box test in front of the built-up overlap test gives the answer the full test gives.
+"""The short cuts of the built-up assembly give the answers of the full tests they stand in front of.
 
 ``builtup._deep`` lets a pair of parts skip the overlap test when their boxes overlap by no more than the
 tolerance along x or along y (parts stacked edge to edge). Held here: for random star-shaped outlines placed
 so, the full test (``builtup._overlap``) also finds no overlap; and for pairs the box test lets through,
 shapely (an independent library) agrees with the full test wherever the overlap is clear of the tolerance.
+The batched point tests (every point against every ring of the nearby parts at once) equal the one-ring
+tests exactly, and their distances equal shapely's.
 """
 import math
 
@@ -13,6 +15,7 @@ import shapely
 from hypothesis import given, settings, strategies as st
 
 from calcsheet_plugins.section import builtup as B
+from calcsheet_plugins.section import polygon as P
 from calcsheet_plugins.section import shapes as S
 
 
@@ -92,3 +95,35 @@ def test_a_stack_of_plates_edge_to_edge_still_finds_a_plate_pushed_into_its_neig
     plates[3] = B.Placed("plate 3", "part", B.place(S.rectangle(300.0, 20.0), 10.0, 20.0 * 3 - 0.5))
     with pytest.raises(S.ShapeError, match="'plate 2' and 'plate 3' overlap"):
         B.assemble(plates)
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.lists(star_points(), min_size=1, max_size=4), st.lists(st.floats(-120.0, 120.0), min_size=2, max_size=2))
+def test_the_batched_point_tests_are_the_one_ring_tests_ring_by_ring(outlines, shift):
+    rings = [P.make_ring(pts + [30.0 * k, shift[0] * (k % 2)], sign=(-1) ** k) for k, pts in enumerate(outlines)]
+    rng = np.random.default_rng(len(outlines))
+    px, py = rng.uniform(-150, 250, 300), rng.uniform(-150, 150, 300)
+    px[:len(rings[0].x)], py[:len(rings[0].x)] = rings[0].x, rings[0].y  # vertices: on the boundary exactly
+    inside, dist = P.point_in_rings(px, py, rings), P.distance_to_rings(px, py, rings)
+    for j, r in enumerate(rings):
+        assert np.array_equal(inside[:, j], P.point_in_ring(px, py, r))
+        assert np.array_equal(dist[:, j], P.distance_to_ring(px, py, r))
+    # and shapely (an independent library) agrees on the distances
+    for j, r in enumerate(rings):
+        ring = shapely.LinearRing(np.column_stack([r.x, r.y]))
+        assert dist[:, j] == pytest.approx(shapely.distance(shapely.points(px, py), ring), abs=1e-9)
+
+
+def test_holes_among_many_parts_are_assigned_as_part_by_part():
+    # a hole straddling the joint of two plates of one material and one wholly in a third: the batched test of
+    # the nearby parts finds the same parts as asking each part alone
+    plates = [B.Placed(f"plate {k}", "part", B.place(S.rectangle(100.0, 10.0), 0.0, 10.0 * k)) for k in range(3)]
+    holes = [B.Placed("across", "hole", B.place(S.rectangle(10.0, 6.0), 30.0, 10.0, "centroid"), None),
+             B.Placed("inside", "hole", B.place(S.rectangle(10.0, 4.0), 70.0, 25.0, "centroid"), None)]
+    asm = B.assemble(plates + holes)
+    assert asm.part_of_row == [0, 1, 2, 0, 2]  # 'across' charged to the first part it cuts, 'inside' to plate 2
+    pts = np.array([[30.0, 7.0], [30.0, 10.0], [70.0, 25.0], [150.0, 5.0]])
+    each = B._inside_near_each(pts[:, 0], pts[:, 1], [p.shape for p in plates], 0.01)
+    for k, p in enumerate(plates):
+        inside, near = B._inside_near(pts[:, 0], pts[:, 1], p.shape, 0.01)
+        assert np.array_equal(each[k][0], inside) and np.array_equal(each[k][1], near)
