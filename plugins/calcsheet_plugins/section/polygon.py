@@ -297,42 +297,65 @@ def _moments_above(rings, c: float, weighted: bool = True, edges=None) -> Moment
     return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep], w[keep])
 
 
+def _area_above(c: float, edges) -> float:
+    """``_moments_above(..., edges).A`` alone: the same clipping and the same sum, without the five other
+    moments (the plastic axis's search asks only for areas)."""
+    x0, y0, x1, y1, w = edges
+    y0 = y0 - c
+    y1 = y1 - c
+    in0, in1 = y0 >= 0, y1 >= 0
+    dy = y1 - y0
+    with np.errstate(divide="ignore", invalid="ignore"):
+        t = np.where(dy != 0, -y0 / dy, 0.0)
+    xi = x0 + t * (x1 - x0)
+    keep = in0 | in1
+    ax = np.where(in0, x0, xi)[keep]
+    ay = np.where(in0, y0, 0.0)[keep]
+    bx = np.where(in1, x1, xi)[keep]
+    by = np.where(in1, y1, 0.0)[keep]
+    cross = ax * by - bx * ay
+    if isinstance(w, float):
+        return w * float(cross.sum() / 2.0)
+    cross *= w[keep]
+    return float(cross.sum() / 2.0)
+
+
 def _swap(rings):
     """Reflect across y = x (keeps each ring anticlockwise by reversing it)."""
     return [Ring(r.y[::-1].copy(), r.x[::-1].copy(), r.sign, r.n) for r in rings]
 
 
 def area_above(rings, c: float, weighted: bool = True, edges=None) -> float:
-    return _moments_above(rings, c, weighted, edges).A
+    return _area_above(c, _edges(rings, weighted) if edges is None else edges)
 
 
-def first_moment_above(rings, c: float, weighted: bool = True) -> float:
+def first_moment_above(rings, c: float, weighted: bool = True, edges=None) -> float:
     """Q = ∬_{y>c} (y - c) dA."""
-    return _moments_above(rings, c, weighted).Sx
+    return _moments_above(rings, c, weighted, edges).Sx
 
 
-def plastic_axis(rings, weighted: bool = True) -> float:
+def plastic_axis(rings, weighted: bool = True, edges=None, total: Moments | None = None) -> float:
     """The horizontal line that halves the (transformed) area, found exactly.
 
     The area above y = c is piecewise quadratic in c with breaks at the vertex
     heights: bisect over the sorted heights, then solve the quadratic in the
-    bracket (fitted exactly from three evaluations).
+    bracket (fitted exactly from three evaluations). ``edges`` (from ``_edges``) and ``total`` (the region's
+    moments) may be passed by a caller that has them already.
     """
-    total = region_moments(rings, weighted).A
-    half = total / 2.0
-    edges = _edges(rings, weighted)
+    half = (region_moments(rings, weighted) if total is None else total).A / 2.0
+    edges = _edges(rings, weighted) if edges is None else edges
     ys = np.unique(edges[1])
     lo, hi = 0, len(ys) - 1  # area_above(ys[lo]) >= half >= area_above(ys[hi])
     while hi - lo > 1:
         mid = (lo + hi) // 2
-        if area_above(rings, ys[mid], weighted, edges) >= half:
+        if _area_above(ys[mid], edges) >= half:
             lo = mid
         else:
             hi = mid
     a, b = ys[lo], ys[hi]
-    fa, fb = area_above(rings, a, weighted, edges), area_above(rings, b, weighted, edges)
+    fa, fb = _area_above(a, edges), _area_above(b, edges)
     m = 0.5 * (a + b)
-    fm = area_above(rings, m, weighted, edges)
+    fm = _area_above(m, edges)
     # f(s) = fa + p s + q s^2 on s in [0, 1]
     p = 4 * fm - 3 * fa - fb
     q = 2 * fa + 2 * fb - 4 * fm
@@ -348,9 +371,10 @@ def plastic_axis(rings, weighted: bool = True) -> float:
 
 def plastic_modulus(rings, weighted: bool = True) -> tuple[float, float]:
     """(Z about the horizontal plastic axis, its height y_p): Z = ∬|y - y_p| dA."""
-    yp = plastic_axis(rings, weighted)
     total = region_moments(rings, weighted)
-    above = first_moment_above(rings, yp, weighted)
+    edges = _edges(rings, weighted)
+    yp = plastic_axis(rings, weighted, edges, total)
+    above = first_moment_above(rings, yp, weighted, edges)
     all_about = total.Sx - yp * total.A  # ∬(y - y_p) dA
     return 2 * above - all_about, yp
 
