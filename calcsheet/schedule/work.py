@@ -122,25 +122,38 @@ def content_hash(fingerprint: dict, member: str, overrides: dict[str, str], pape
 _WORKER_READY = False
 
 
-def init_worker(pdf: bool = False) -> None:
-    """Pool initializer: import pint, lark and (when PDFs are written) WeasyPrint once per process,
-    and build the unit registry, the grammar and the plugin table before the first row arrives."""
-    global _WORKER_READY
+def prepare(pdf: bool = False) -> None:
+    """What every row needs, made ready in this process: pint and the unit registry, the statement reader
+    and (when PDFs are written) WeasyPrint. A pool that forks its workers calls this first, so each worker
+    starts with it all in place (shared with this process) instead of building it again."""
     import pint  # noqa: F401
 
     from .. import engine, units  # the engine imports the parser, the one module that imports lark
-    from ..plugin import default_registry
 
     units.registry()
-    engine.parse_statement("x = 1 m")  # builds the statement grammar
-    reg = default_registry()
-    for name in reg.names():
-        try:
-            reg.namespace(name)
-        except Exception:  # reported, located, by the sheet that calls it
-            pass
+    engine.parse_statement("x = 1 m")  # makes the statement reader ready
     if pdf:
         import weasyprint  # noqa: F401
+
+
+def init_worker(pdf: bool = False, forked: bool = False) -> None:
+    """Pool initializer, before the first row arrives.
+
+    A worker forked from a process that ran ``prepare`` has everything already: it starts at once (the
+    plugins the sheet calls were loaded by the calling process when it checked the sheet). A fresh
+    interpreter (spawned, or a cluster worker) imports and builds it all here, every plugin included.
+    """
+    global _WORKER_READY
+    if not forked:
+        from ..plugin import default_registry
+
+        prepare(pdf)
+        reg = default_registry()
+        for name in reg.names():
+            try:
+                reg.namespace(name)
+            except Exception:  # reported, located, by the sheet that calls it
+                pass
     _WORKER_READY = True
 
 
