@@ -127,7 +127,8 @@ def _table_steps(work, shape, transformed: bool) -> None:
         label = _label(r)
         body_x.append([label, _q(vals[0], "mm^4"), _q(dy, "mm"), _q(vals[1], "mm^4"), _q(vals[0] + vals[1], "mm^4")])
         body_y.append([label, _q(vals[2], "mm^4"), _q(dx, "mm"), _q(vals[3], "mm^4"), _q(vals[2] + vals[3], "mm^4")])
-        body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
+        if product:  # the table of products is shown only then
+            body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
     times_n = "; Iₒ and A count n times" if tr else ""
     work.table("Parts table: second moments about the centroidal x axis (parallel-axis theorem)",
                ["Part", "I_o,x,i", "d_y,i", "A_i·d_y,i²", "I_x,i"], body_x,
