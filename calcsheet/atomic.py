@@ -39,6 +39,23 @@ def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
     _fsync_dir(path.parent)
 
 
+def write_atomic_files(files, mode: int = 0o644) -> None:
+    """Several ``(path, bytes)`` files, each written as ``write_atomic`` writes one (temporary file, fsync,
+    rename), and each folder holding them synced once at the end rather than once per file (a member of a
+    schedule is two or three files: one folder sync where there were as many as files)."""
+    folders: list[Path] = []
+    try:
+        for path, data in files:
+            path = Path(path)
+            with atomic_stream(path, mode, binary=True) as fh:
+                fh.write(data)
+            if path.parent not in folders:
+                folders.append(path.parent)
+    finally:  # the renames already made are made durable even when a later file fails
+        for folder in folders:
+            _fsync_dir(folder)
+
+
 # ---------------------------------------------------------------- a package: several files as one unit
 #
 # out/<stem>.html, .pdf, .json are symbolic links into out/.calcsheet/<stem>/current/, and

@@ -280,7 +280,7 @@ def build_task(task: Task) -> Outcome:
 
 def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Path]:
     """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written."""
-    from ..atomic import write_atomic
+    from ..atomic import write_atomic_files
 
     written = []
     for fmt in ("html", "pdf", "json"):
@@ -290,8 +290,8 @@ def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Pa
         path = out_dir / f"{member}.{fmt}"
         if path.resolve().parent != out_dir.resolve():  # member names are validated; this is a second lock
             raise OSError(f"refusing to write outside the output folder: {path}")
-        write_atomic(path, data)
         written.append(path)
+    write_atomic_files([(path, files[path.suffix[1:]]) for path in written])  # the folder synced once
     return written
 
 

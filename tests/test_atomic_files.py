@@ -1,0 +1,41 @@
+"""Several files written atomically together: each file as ``write_atomic`` writes one, the folder synced once
+at the end (not once per file), and a failure part-way leaves the failed file's old bytes and no temporary
+file, with the files already renamed made durable."""
+import os
+import stat
+
+import pytest
+
+import calcsheet.atomic as atomic
+from calcsheet.atomic import write_atomic_files
+
+
+def test_each_file_has_its_bytes_and_the_folder_is_synced_once(tmp_path, monkeypatch):
+    synced, fsyncs = [], []
+    real_sync_dir, real_fsync = atomic._fsync_dir, os.fsync
+    monkeypatch.setattr(atomic, "_fsync_dir", lambda folder: (synced.append(folder), real_sync_dir(folder)))
+    monkeypatch.setattr(os, "fsync", lambda fd: (fsyncs.append(fd), real_fsync(fd)))
+    files = [(tmp_path / "B-1.html", b"<html>1</html>"), (tmp_path / "B-1.json", b'{"a": 1}\n')]
+    write_atomic_files(files)
+    assert {p.name: p.read_bytes() for p in tmp_path.iterdir()} == {p.name: d for p, d in files}  # no temp files
+    assert all(stat.S_IMODE(p.stat().st_mode) == 0o644 for p, _ in files)
+    assert synced == [tmp_path]  # one folder sync for both files
+    assert len(fsyncs) == 2 + 1  # each file's data, then the folder (through _fsync_dir)
+
+
+def test_a_failure_in_the_second_file_keeps_its_old_bytes_and_the_first_file_durable(tmp_path, monkeypatch):
+    (tmp_path / "B-1.json").write_bytes(b"old\n")
+    synced = []
+    monkeypatch.setattr(atomic, "_fsync_dir", synced.append)
+    real = os.replace
+
+    def refuse_json(src, dst):
+        if str(dst).endswith(".json"):
+            raise OSError(28, "No space left on device")
+        return real(src, dst)
+
+    monkeypatch.setattr(os, "replace", refuse_json)
+    with pytest.raises(OSError):
+        write_atomic_files([(tmp_path / "B-1.html", b"new html"), (tmp_path / "B-1.json", b"new json")])
+    assert {p.name: p.read_bytes() for p in tmp_path.iterdir()} == {"B-1.html": b"new html", "B-1.json": b"old\n"}
+    assert synced == [tmp_path]
