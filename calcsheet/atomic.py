@@ -39,10 +39,14 @@ def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
     _fsync_dir(path.parent)
 
 
-def write_atomic_files(files, mode: int = 0o644) -> None:
+def write_atomic_files(files, mode: int = 0o644, sync_folders: bool = True) -> None:
     """Several ``(path, bytes)`` files, each written as ``write_atomic`` writes one (temporary file, fsync,
     rename), and each folder holding them synced once at the end rather than once per file (a member of a
-    schedule is two or three files: one folder sync where there were as many as files)."""
+    schedule is two or three files: one folder sync where there were as many as files).
+
+    ``sync_folders=False`` leaves the folder sync to a caller that syncs the folder itself once it has
+    written everything that goes there (``sync_folder``): each file is still replaced atomically, whole.
+    """
     folders: list[Path] = []
     try:
         for path, data in files:
@@ -52,8 +56,13 @@ def write_atomic_files(files, mode: int = 0o644) -> None:
             if path.parent not in folders:
                 folders.append(path.parent)
     finally:  # the renames already made are made durable even when a later file fails
-        for folder in folders:
+        for folder in folders if sync_folders else ():
             _fsync_dir(folder)
+
+
+def sync_folder(folder: Path) -> None:
+    """Make the renames made in ``folder`` durable (fsync the folder)."""
+    _fsync_dir(Path(folder))
 
 
 # ---------------------------------------------------------------- a package: several files as one unit

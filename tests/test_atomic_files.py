@@ -39,3 +39,13 @@ def test_a_failure_in_the_second_file_keeps_its_old_bytes_and_the_first_file_dur
         write_atomic_files([(tmp_path / "B-1.html", b"new html"), (tmp_path / "B-1.json", b"new json")])
     assert {p.name: p.read_bytes() for p in tmp_path.iterdir()} == {"B-1.html": b"new html", "B-1.json": b"old\n"}
     assert synced == [tmp_path]
+
+
+def test_a_caller_that_syncs_the_folder_itself_can_leave_it_to_the_end(tmp_path, monkeypatch):
+    synced = []
+    monkeypatch.setattr(atomic, "_fsync_dir", synced.append)
+    write_atomic_files([(tmp_path / "B-1.html", b"1")], sync_folders=False)
+    write_atomic_files([(tmp_path / "B-2.html", b"2")], sync_folders=False)
+    assert synced == [] and (tmp_path / "B-2.html").read_bytes() == b"2"
+    atomic.sync_folder(tmp_path)
+    assert synced == [tmp_path]

@@ -188,7 +188,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
             summary.files += outcome.written  # written by the worker (serial runs and the pool)
             if outcome.ok and not outcome.skipped and outcome.files:  # returned as bytes (a cluster's workers)
                 try:
-                    summary.files += len(write_member(out_dir, outcome))
+                    summary.files += len(write_member(out_dir, outcome, sync_folder=False))  # synced at the end
                 except OSError as exc:
                     outcome.ok = False
                     outcome.errors.append(f"{row.where}: error: cannot write the package of {row.member}: {exc}")

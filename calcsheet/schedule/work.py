@@ -268,7 +268,8 @@ def build_task(task: Task) -> Outcome:
             return out
     if task.write_to:
         try:
-            out.written = len(write_member(Path(task.write_to), task.member, out.files))
+            # the schedule syncs its output folder once, when it ends (ScheduleWriter.close)
+            out.written = len(write_member(Path(task.write_to), task.member, out.files, sync_folder=False))
         except OSError as exc:
             out.errors.append(f"{task.where}: error: cannot write the package of {task.member}: {exc}")
             return out
@@ -278,8 +279,9 @@ def build_task(task: Task) -> Outcome:
     return out
 
 
-def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Path]:
-    """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written."""
+def write_member(out_dir: Path, member: str, files: dict[str, bytes], sync_folder: bool = True) -> list[Path]:
+    """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written.
+    ``sync_folder=False``: the caller syncs ``out_dir`` once it has written every member there."""
     from ..atomic import write_atomic_files
 
     written = []
@@ -291,7 +293,7 @@ def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Pa
         if path.resolve().parent != out_dir.resolve():  # member names are validated; this is a second lock
             raise OSError(f"refusing to write outside the output folder: {path}")
         written.append(path)
-    write_atomic_files([(path, files[path.suffix[1:]]) for path in written])  # the folder synced once
+    write_atomic_files([(path, files[path.suffix[1:]]) for path in written], sync_folders=sync_folder)
     return written
 
 
