@@ -49,3 +49,36 @@ def test_a_caller_that_syncs_the_folder_itself_can_leave_it_to_the_end(tmp_path,
     assert synced == [] and (tmp_path / "B-2.html").read_bytes() == b"2"
     atomic.sync_folder(tmp_path)
     assert synced == [tmp_path]
+
+
+def test_a_staged_file_changes_nothing_until_it_is_committed_whole(tmp_path, monkeypatch):
+    target = tmp_path / "B-1.html"
+    target.write_bytes(b"old")
+    tmp = atomic.stage_file(target, b"new bytes")
+    assert target.read_bytes() == b"old" and tmp.parent == tmp_path and tmp.name.endswith(atomic.STAGED_SUFFIX)
+    fsyncs = []
+    real = os.fsync
+    monkeypatch.setattr(os, "fsync", lambda fd: (fsyncs.append(fd), real(fd)))
+    atomic.commit_staged(tmp, target)
+    assert target.read_bytes() == b"new bytes" and stat.S_IMODE(target.stat().st_mode) == 0o644
+    assert len(fsyncs) == 1 and not tmp.exists()
+
+
+def test_a_commit_that_fails_keeps_the_old_file_and_removes_the_staged_one(tmp_path, monkeypatch):
+    target = tmp_path / "B-1.html"
+    target.write_bytes(b"old")
+    tmp = atomic.stage_file(target, b"new")
+    monkeypatch.setattr(os, "replace", lambda a, b: (_ for _ in ()).throw(OSError(28, "No space left on device")))
+    with pytest.raises(OSError):
+        atomic.commit_staged(tmp, target)
+    assert [p.name for p in tmp_path.iterdir()] == ["B-1.html"] and target.read_bytes() == b"old"
+
+
+def test_staged_files_left_behind_are_swept_by_age(tmp_path):
+    old, new = atomic.stage_file(tmp_path / "a.html", b"1"), atomic.stage_file(tmp_path / "b.html", b"2")
+    os.utime(old, (1, 1))  # staged long ago, by a build that was killed
+    (tmp_path / "keep.html").write_bytes(b"k")
+    atomic.sweep_staged(tmp_path, older_than=600)
+    assert sorted(p.name for p in tmp_path.iterdir()) == sorted(["keep.html", new.name])
+    atomic.sweep_staged(tmp_path)
+    assert [p.name for p in tmp_path.iterdir()] == ["keep.html"]

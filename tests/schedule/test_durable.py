@@ -24,3 +24,41 @@ def test_the_output_folder_is_synced_once_after_everything_is_in_it(beam, table,
     syncs = [files for folder, files in seen if folder == out]
     assert syncs == [sorted([f"B-{k}.{x}" for k in (1, 2, 3) for x in ("html", "json")]
                             + ["schedule.csv", "schedule.html", "schedule.json"])]
+
+
+def test_workers_stage_the_members_files_and_the_calling_process_commits_them(beam, table, tmp_path):
+    from calcsheet.schedule.work import Task, build_task, commit_member
+
+    out = tmp_path / "out"
+    out.mkdir()
+    task = Task(index=0, sheet=str(beam), source=beam.read_text(encoding="utf-8"), member="B-1",
+                cells=(("L", "4 m", "t.csv:2"),), content_hash="0" * 64, label="row 1 (B-1)", where="t.csv:2",
+                write_to=str(out), stage=True)
+    o = build_task(task)
+    assert o.ok and o.files == {} and o.written == 0
+    assert sorted(target for _, target in o.staged) == [str(out / "B-1.html"), str(out / "B-1.json")]
+    assert not (out / "B-1.html").exists()  # nothing at the targets until the caller commits
+    assert commit_member(o.staged) == 2
+    assert sorted(p.name for p in out.iterdir()) == ["B-1.html", "B-1.json"]  # and nothing staged is left
+
+
+def test_a_build_that_stops_part_way_leaves_no_staged_file(beam, table, tmp_path):
+    from calcsheet.schedule.runner import run_serial
+
+    t = table("member,L\nB-1,3 m\nB-2,4 m\nB-3,5 m\n")
+    out = tmp_path / "out"
+
+    def stops_after_two(log):
+        def run(items):
+            for k, outcome in enumerate(run_serial(items)):
+                if k == 2:  # the third row was built and its files staged; then the build is interrupted
+                    assert outcome.staged
+                    raise KeyboardInterrupt
+                yield outcome
+        return run
+
+    with pytest.raises(KeyboardInterrupt):
+        build_schedule(beam, t, out, ["html", "json"], force=True, progress=False, out=lambda m: None,
+                       runner=stops_after_two)
+    names = sorted(p.name for p in out.iterdir() if not p.name.startswith(".schedule."))
+    assert names == ["B-1.html", "B-1.json", "B-2.html", "B-2.json"]
