@@ -52,7 +52,7 @@ section.calc.cs-top { margin-top: 0; }
 """
 # The front page and contents: the contents' page numbers are written in.
 FRONT_CSS = CHUNK_CSS + """
-nav.contents a::after { content: leader(".") attr(data-page); }
+nav.contents a::after { content: leader("..") attr(data-page); }
 """
 # The overlay: the running title block and stamp on M empty pages.
 OVERLAY_CSS = """
