@@ -218,12 +218,17 @@ def bench_pdf_memory(n_lines: int) -> bool:
 
 def _plain_printer_class():
     """The same markup as ``HtmlMathPrinter``, built with ``html.escape`` and ``str.join`` only."""
-    from calcsheet.display import unit_factors
+    from calcsheet.display import superscript, unit_factors
     from calcsheet.render import html as H
     from calcsheet.render.base import split_name
 
     esc = html.escape
     cmp = {"<=": "≤", ">=": "≥", "<": "&lt;", ">": "&gt;"}
+
+    def power(exponent):  # a whole number as superscript characters, anything else raised
+        if re.fullmatch(r"[−-]?[0-9]+", exponent):
+            return superscript(int(exponent.replace("−", "-")))
+        return "<sup>" + exponent + "</sup>"
 
     def sym(name):
         head, subs = split_name(name)
@@ -243,13 +248,13 @@ def _plain_printer_class():
 
         def m_number(self, text, exp):
             text = esc(text).replace("-", "−")
-            return text if exp is None else text + "×10<sup>" + str(exp).replace("-", "−") + "</sup>"
+            return text if exp is None else text + "×10" + power(str(exp))
 
         def m_unit(self, unit):
             num, den = unit_factors(unit)
 
             def part(items):
-                return "·".join(esc(s) + ("<sup>" + H._exp(e) + "</sup>" if e != 1 else "") for s, e in items)
+                return "·".join(esc(s) + (power(H._exp(e)) if e != 1 else "") for s, e in items)
 
             top = part(num) or ("1" if den else "")
             if not den:
@@ -269,7 +274,7 @@ def _plain_printer_class():
         def m_frac(self, num, den):
             return '<span class="frac"><span class="fn">' + num + '</span><span class="fd">' + den + "</span></span>"
 
-        def m_pow(self, base, exponent): return base + "<sup>" + exponent + "</sup>"
+        def m_pow(self, base, exponent): return base + power(exponent)
         def m_sqrt(self, inner): return '<span class="sqrt">√<span class="radicand">' + inner + "</span></span>"
         def m_abs(self, inner): return "|" + inner + "|"
 

@@ -101,14 +101,15 @@ def pdf_bytes(html: str) -> bytes:
         doc = weasyprint.HTML(string=text, base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
         return doc.render(stylesheets=stylesheets + list(extra))
 
-    # a long page is laid out a chunk at a time: its memory is bounded by a chunk (calcsheet/paged.py)
-    chunked = paged.render_chunked(html, render, _stylesheet, cap, lambda n: _too_many_pages(n, "at least "))
-    if chunked is not None:
-        return chunked
-    rendered = render(html)
-    if len(rendered.pages) > cap:
-        raise _too_many_pages(len(rendered.pages), "")
-    return rendered.write_pdf()
+    with paged.few_collections():  # the layout's objects are not walked by the collector again and again
+        # a long page is laid out a chunk at a time: its memory is bounded by a chunk (calcsheet/paged.py)
+        chunked = paged.render_chunked(html, render, _stylesheet, cap, lambda n: _too_many_pages(n, "at least "))
+        if chunked is not None:
+            return chunked
+        rendered = render(html)
+        if len(rendered.pages) > cap:
+            raise _too_many_pages(len(rendered.pages), "")
+        return rendered.write_pdf()
 
 
 def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None, *, html=None,

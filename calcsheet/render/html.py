@@ -21,7 +21,7 @@ from __future__ import annotations
 
 import re
 
-from ..display import unit_factors
+from ..display import superscript, unit_factors
 from ..trace import CheckResult, FunctionStep, Step
 from .base import split_name
 from .markup import Html, anchor_id, esc, piece as _m, wrap as _wrap
@@ -92,7 +92,7 @@ class HtmlMathPrinter(MathPrinter):
         text = _m(text).replace("-", "−")
         if exp is None:
             return _wrap(text)
-        return _cat(text, "×10<sup>", _m(str(exp)).replace("-", "−"), "</sup>")
+        return _cat(text, "×10", _power(str(exp)))
 
     def m_unit(self, unit):
         done = self._units.get(unit)
@@ -100,8 +100,7 @@ class HtmlMathPrinter(MathPrinter):
             num, den = unit_factors(unit)
 
             def part(items):
-                return "·".join([_join((_m(s), "<sup>", _m(_exp(e)), "</sup>")) if e != 1 else _m(s)
-                                 for s, e in items])
+                return "·".join([_join((_m(s), _power(_exp(e)))) if e != 1 else _m(s) for s, e in items])
 
             top = part(num) or ("1" if den else "")
             if den:
@@ -136,7 +135,7 @@ class HtmlMathPrinter(MathPrinter):
                     "</span></span>")
 
     def m_pow(self, base, exponent):
-        return _cat(_m(base), "<sup>", _m(exponent), "</sup>")
+        return _cat(_m(base), _power(exponent))
 
     def m_sqrt(self, inner):
         return _cat('<span class="sqrt">√<span class="radicand">', _m(inner), "</span></span>")
@@ -214,6 +213,18 @@ _TAG = re.compile(r"<[^>]+>")
 
 def _plain(markup: str) -> str:
     return _TAG.sub("", str(markup)).replace(NNBSP, " ").replace(THIN, " ")
+
+
+_WHOLE = re.compile(r"[−-]?[0-9]+")
+
+
+def _power(exponent) -> str:
+    """An exponent: a whole number as superscript characters (m², 10⁻³: part of the text, not a box of its
+    own for the typesetter), anything else raised in a ``<sup>``."""
+    text = str(exponent)
+    if _WHOLE.fullmatch(text):
+        return superscript(int(text.replace("−", "-")))
+    return _join(("<sup>", _m(exponent), "</sup>"))
 
 
 def _exp(e) -> str:

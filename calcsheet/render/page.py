@@ -564,8 +564,8 @@ def _header(text: str) -> Html:
         return esc(text)
     if "·" in text:  # a product of symbols: n·A_i·y_i
         return Html("·").join(_header(piece) for piece in text.split("·"))
-    power = Html()
-    if text[-1] in "²³⁴":  # a squared symbol: d_y,i²
-        text, power = text[:-1], Html("<sup>{}</sup>").format("234"["²³⁴".index(text[-1])])
+    power = ""
+    if text[-1] in "²³⁴":  # a squared symbol: d_y,i² (the square stays a character, as in the formulas)
+        text, power = text[:-1], text[-1]
     head, subs = split_name(text)
     return Html("<var>{}</var>").format(head) + (Html("<sub>{}</sub>").format(",".join(subs)) if subs else "") + power
