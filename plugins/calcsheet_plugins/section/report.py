@@ -31,24 +31,16 @@ def unit(text: str):
 
 
 @lru_cache(maxsize=None)
-def _quantity_parts(unit_text: str):
-    """The registry's quantity class and the units container of ``unit_text`` (looked up once per unit)."""
-    return U.registry().Quantity, unit(unit_text)._units
+def _units_of(unit_text: str):
+    """The units container of ``unit_text`` (looked up once per unit)."""
+    return unit(unit_text)._units
 
 
 def _q(value: float, unit_text: str):
-    """``registry().Quantity(float(value), unit(unit_text))``, the same object made directly.
-
-    pint's constructor, given a float and a unit, stores exactly these two attributes; on the way it creates
-    a throw-away registry object and runs an import statement per quantity, which made it the larger part of a
-    built-up section's parts tables (hundreds of cells). tests/plugins/section/test_section_quantities.py holds
-    the two constructions equal.
-    """
-    cls, units = _quantity_parts(unit_text)
-    q = object.__new__(cls)
-    q._magnitude = float(value)
-    q._units = units
-    return q
+    """``registry().Quantity(float(value), unit(unit_text))``, made by ``units.quantity`` (the same object,
+    without pint's constructor's checks: a built-up section's parts tables hold hundreds of these).
+    tests/plugins/section/test_section_quantities.py holds the two equal."""
+    return U.quantity(float(value), _units_of(unit_text))
 
 
 def _mm(q) -> float | None:
