@@ -39,6 +39,94 @@ def write_atomic(path: Path, data: bytes, mode: int = 0o644) -> None:
     _fsync_dir(path.parent)
 
 
+def write_atomic_files(files, mode: int = 0o644, sync_folders: bool = True) -> None:
+    """Several ``(path, bytes)`` files, each written as ``write_atomic`` writes one (temporary file, fsync,
+    rename), and each folder holding them synced once at the end rather than once per file (a member of a
+    schedule is two or three files: one folder sync where there were as many as files).
+
+    ``sync_folders=False`` leaves the folder sync to a caller that syncs the folder itself once it has
+    written everything that goes there (``sync_folder``): each file is still replaced atomically, whole.
+    """
+    folders: list[Path] = []
+    try:
+        for path, data in files:
+            path = Path(path)
+            with atomic_stream(path, mode, binary=True) as fh:
+                fh.write(data)
+            if path.parent not in folders:
+                folders.append(path.parent)
+    finally:  # the renames already made are made durable even when a later file fails
+        for folder in folders if sync_folders else ():
+            _fsync_dir(folder)
+
+
+def sync_folder(folder: Path) -> None:
+    """Make the renames made in ``folder`` durable (fsync the folder)."""
+    _fsync_dir(Path(folder))
+
+
+# ---------------------------------------------------------------- a file written in two halves
+#
+# ``write_atomic`` split in two for a writer that hands the second half to another process: ``stage_file``
+# writes the bytes to a temporary file beside the target (nothing at the target changes), ``commit_staged``
+# fsyncs it, sets its mode and renames it over the target, whole. A schedule's pool workers stage their
+# members' files and the calling process commits them, so the fsyncs come from one process, one after
+# another, instead of from every worker at once (where each waited on the others' journal commits).
+
+STAGED_SUFFIX = ".staged"
+
+
+def stage_file(path: Path, data: bytes) -> Path:
+    """The bytes in a new temporary file beside ``path`` (not yet synced); its path. ``path`` is untouched."""
+    path = Path(path)
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=STAGED_SUFFIX, dir=path.parent)
+    try:
+        with os.fdopen(fd, "wb") as fh:
+            fh.write(data)
+    except BaseException:
+        discard_staged([tmp])
+        raise
+    return Path(tmp)
+
+
+def commit_staged(tmp: Path, path: Path, mode: int = 0o644) -> None:
+    """Finish a staged file as ``write_atomic`` finishes one: fsync, set the mode, rename over ``path``.
+    On failure the staged file is removed and ``path`` keeps its old bytes."""
+    try:
+        fd = os.open(tmp, os.O_RDWR)
+        try:
+            os.fsync(fd)
+        finally:
+            os.close(fd)
+        os.chmod(tmp, mode)
+        os.replace(tmp, path)
+    except BaseException:
+        discard_staged([tmp])
+        raise
+
+
+def discard_staged(tmps) -> None:
+    for tmp in tmps:
+        try:
+            os.unlink(tmp)
+        except FileNotFoundError:
+            pass
+
+
+def sweep_staged(folder: Path, older_than: float = 0.0) -> None:
+    """Remove the staged files left in ``folder`` (by a build that stopped before committing them), those
+    older than ``older_than`` seconds."""
+    import time
+
+    now = time.time()
+    for p in Path(folder).glob(f".*{STAGED_SUFFIX}"):
+        try:
+            if now - p.stat().st_mtime >= older_than:
+                p.unlink()
+        except FileNotFoundError:
+            pass
+
+
 # ---------------------------------------------------------------- a package: several files as one unit
 #
 # out/<stem>.html, .pdf, .json are symbolic links into out/.calcsheet/<stem>/current/, and

@@ -215,7 +215,10 @@ def _pow_impl(a, b, node: N.BinOp, p: float):
         raise NumericError("a negative quantity to a fractional power is not real", node.span)
     if p < 0 and ((m == 0) if scalar else np.any(m == 0)):
         raise DivisionByZeroError("zero to a negative power", node.span)
-    return a**p
+    try:
+        return a**p
+    except OverflowError:  # a float power beyond ±1.8e308 raises (an array's gives inf, refused after)
+        raise NumericError("the power overflows", node.span) from None
 
 
 def _div_impl(a, b, node: N.BinOp):
@@ -308,14 +311,34 @@ def scale_binop(node: N.BinOp, q: pint.Quantity, x: float, literal_right: bool):
     right operand when ``literal_right``): the operator's rule with a dimensionless operand, then the
     arithmetic with the float itself, which gives what multiplying by a dimensionless quantity gives."""
     op = node.op
-    if literal_right:
+    m = q._magnitude
+    if type(m) is float and type(x) is float:
+        ua = q._units
+        entry = _FAST.get(("scale", op, literal_right, id(ua)))
+        if entry is None:
+            entry = _learn_scale(node, q, literal_right)
+        units = entry[1]
+        if units is not None:  # what pint computes for these units, from the float magnitudes
+            if op == "*":
+                return U.quantity(m * x, units)
+            if literal_right:
+                if x == 0:
+                    raise DivisionByZeroError("division by zero", node.right.span,
+                                              hint="the divisor evaluates to zero")
+                return U.quantity(m / x, units)
+            if m == 0:
+                raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
+            return U.quantity(x / m, units)
+    elif literal_right:
         OPERATORS[op].rule(op, arg_of(q), NUMBER, node)
+    else:
+        OPERATORS[op].rule(op, NUMBER, arg_of(q), node)
+    if literal_right:
         if op == "*":
             return q * x
         if x == 0:
             raise DivisionByZeroError("division by zero", node.right.span, hint="the divisor evaluates to zero")
         return q / x
-    OPERATORS[op].rule(op, NUMBER, arg_of(q), node)
     if op == "*":
         return x * q
     return _div_impl(x, q, node)
@@ -324,13 +347,52 @@ def scale_binop(node: N.BinOp, q: pint.Quantity, x: float, literal_right: bool):
 def power_binop(node: N.BinOp, a: pint.Quantity, p: float):
     """``a ^ p`` where ``p`` is a plain-number literal of the sheet: what ``apply_binop`` does with the
     literal as a dimensionless quantity (its written power is its value), without making one."""
-    rule_pow(arg_of(a), NUMBER, node, p if arg_of(a).dim != U.DIMENSIONLESS else None)
-    return _pow_impl(a, None, node, float(p))
+    p = float(p)
+    m = a._magnitude
+    if type(m) is float:
+        entry = _FAST.get(("power", p, id(a._units)))
+        if entry is None:
+            entry = _learn_power(node, a, p)
+        units = entry[1]
+        if units is not None:  # the checks and the arithmetic of _pow_impl and pint's power, on the float
+            if p == 1:
+                return a  # pint gives the quantity itself
+            if m < 0 and not p.is_integer():
+                raise NumericError("a negative quantity to a fractional power is not real", node.span)
+            if m == 0 and p < 0:
+                raise DivisionByZeroError("zero to a negative power", node.span)
+            try:
+                return U.quantity(m**p, units)
+            except OverflowError:
+                raise NumericError("the power overflows", node.span) from None
+    else:
+        rule_pow(arg_of(a), NUMBER, node, p if arg_of(a).dim != U.DIMENSIONLESS else None)
+    return _pow_impl(a, None, node, p)
 
 
 def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
     """Rule, then implementation, of one binary operator on two quantities (the evaluator and the folder)."""
     op = OPERATORS[node.op]
+    if node.op != "^":
+        ma, mb = a._magnitude, b._magnitude
+        if type(ma) is float and type(mb) is float:
+            entry = _FAST.get((node.op, id(a._units), id(b._units)))
+            if entry is None:
+                entry = _learn_binop(node, a, b)
+            how = entry[2]
+            if how is None:
+                return op.impl(a, b, node)  # the rule passed for these units; pint computes
+            if node.op == "*":
+                return U.quantity(ma * mb, how)
+            if node.op == "/":
+                if mb == 0:
+                    raise DivisionByZeroError("division by zero", node.right.span,
+                                              hint="the divisor evaluates to zero")
+                return U.quantity(ma / mb, how)
+            units, f = how  # + and −: the right operand in the left one's units, as pint converts it
+            if f is not None:
+                mb = mb * f
+            return U.quantity(ma + mb if node.op == "+" else ma - mb, units)
     if node.op == "^":
         p = written_power(node.right) if arg_of(a).dim != U.DIMENSIONLESS else None
         rule_pow(arg_of(a), arg_of(b), node, p)
@@ -340,6 +402,63 @@ def apply_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
     if is_list(a) and is_list(b):
         rule_lengths([len(a.magnitude), len(b.magnitude)], [node.left, node.right], node)
     return op.impl(a, b, node)
+
+
+# An operator's rule depends only on its operands' units, so once it has passed for a pair of units
+# containers it is remembered as passed for that pair (a rule that fails is never remembered: it raises its
+# located error every time). For two float magnitudes of multiplicative units the entry also says what pint
+# computes: the result's units container, and for + and − the factor pint converts the right operand by;
+# arithmetic is then done on the floats. Keyed by the containers' identity (each entry holds them, so an id
+# is never reused while its entry lives); what pint would do differently (°C/°F, delta and logarithmic
+# units) keeps pint's own path.
+_FAST: dict = {}
+_FAST_KEEP = 4096
+
+
+def _remember(key, entry):
+    if len(_FAST) >= _FAST_KEEP:
+        _FAST.clear()
+    _FAST[key] = entry
+    return entry
+
+
+def _learn_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):
+    op = node.op
+    OPERATORS[op].rule(op, arg_of(a), arg_of(b), node)
+    ua, ub = a._units, b._units
+    how = None
+    if U.multiplicative(ua) and U.multiplicative(ub):
+        if op in ("*", "/"):
+            how = U.units_op(op, ua, ub)
+        elif ua == ub:  # pint adds the magnitudes as they are
+            how = (ua, None)
+        else:
+            f = U.factor(ub, ua)
+            how = None if f is None else (ua, f)
+    return _remember((op, id(ua), id(ub)), (ua, ub, how))
+
+
+def _learn_scale(node: N.BinOp, q: pint.Quantity, literal_right: bool):
+    op, ua = node.op, q._units
+    if literal_right:
+        OPERATORS[op].rule(op, arg_of(q), NUMBER, node)
+    else:
+        OPERATORS[op].rule(op, NUMBER, arg_of(q), node)
+    units = None
+    if U.multiplicative(ua):
+        # q * x, x * q and q / x keep q's units (pint: q's units times no units); x / q has their reciprocal
+        units = U.units_op("inv", ua, None) if op == "/" and not literal_right else ua
+    return _remember(("scale", op, literal_right, id(ua)), (ua, units))
+
+
+def _learn_power(node: N.BinOp, a: pint.Quantity, p: float):
+    ua = a._units
+    dimensionless = arg_of(a).dim == U.DIMENSIONLESS
+    rule_pow(arg_of(a), NUMBER, node, None if dimensionless else p)
+    units = None
+    if not dimensionless and p != 0 and U.multiplicative(ua):  # a plain number is converted first: pint's path
+        units = U.units_op("^", ua, p)
+    return _remember(("power", p, id(ua)), (ua, units))
 
 
 # ================================================================ functions

@@ -11,6 +11,7 @@ inputs, checks without a utilisation, unusual declared units.
 from __future__ import annotations
 
 import weakref
+from collections import ChainMap
 from collections.abc import Mapping
 from dataclasses import dataclass
 from functools import cached_property
@@ -71,6 +72,7 @@ class T:
         t = _OF.get((arg, many))
         if t is None:
             t = _OF[(arg, many)] = T("q", arg.dim, offset=arg.offset, many=many)
+            _SHARED.add(id(t))
         return t
 
     def word(self):
@@ -92,6 +94,12 @@ _OF: dict = {}
 ANY = T("any")
 TEXT = T("text")
 NUMBER = T("q", U.DIMENSIONLESS)
+# the ids of the types that live as long as the process (those of T.of, and the constants above): a type
+# is one of these whenever inference has it from a rule, so a cache may be keyed by their ids (never reused)
+_SHARED: set[int] = {id(ANY), id(TEXT), id(NUMBER)}
+_BINOP_TYPES: dict = {}  # (operator, id of left type, id of right type) -> result type, for shared types
+_DECLARED_ARGS: dict = {}  # a declared unit's factors -> its Arg (units that read; errors are never kept)
+_DECLARED_TYPES: dict = {}  # (id of a shared type, declared unit's factors) -> the definition's type
 
 
 class ValueTypes(Mapping):
@@ -137,7 +145,7 @@ def type_of_value(value, plugins: PluginRegistry) -> T:
     return ANY
 
 
-_INFER: dict = {}  # (checker class, node class) -> its _infer_ method
+_INFER: dict = {}  # checker class -> {node class -> its _infer_ method}
 _NUMBER_TYPES: dict = {}  # a literal's unit factors -> its type
 
 
@@ -160,34 +168,45 @@ class Checker:
         # whose pass over it then landed on whatever ran next)
         self.consts = lint.Constants(weakref.proxy(self))
         self.functions: dict[str, N.FunctionDef] = {}  # the sheet's own functions that check clean
+        self._dispatch = _INFER.setdefault(type(self), {})  # node class -> this class's _infer_ method
 
     # ------------------------------------------------------------ statements
     def check_sheet(self, sheet: N.Sheet, res: Resolution) -> list[Diagnostic]:
         self.res = res
         self.defined = res.defined_at
         diags: list[Diagnostic] = []
+        broken, types, path = res.broken, self.types, self.path
+        definition_findings, check_findings = lint.definition_findings, lint.check_findings
         for stmt in sheet.body:
-            if isinstance(stmt, N.FunctionDef):
+            cls = type(stmt)
+            if cls is N.Definition:  # the everyday statements first (the classes are disjoint)
+                key = stmt.name
+            elif cls is N.Check:
+                key = check_key(stmt)
+            elif isinstance(stmt, N.FunctionDef):
                 diags.extend(self._function_statement(stmt, res))
                 continue
-            if isinstance(stmt, N.TableDef):
+            elif isinstance(stmt, N.TableDef):
                 diags.extend(self._table_statement(stmt, res))
                 continue
-            if isinstance(stmt, N.Definition):
+            elif isinstance(stmt, N.Definition):
                 key = stmt.name
             elif isinstance(stmt, N.Check):
                 key = check_key(stmt)
             else:
                 continue
-            if key in res.broken:
+            if key in broken:
                 if isinstance(stmt, N.Definition):
-                    self.types.setdefault(stmt.name, ANY)
+                    types.setdefault(stmt.name, ANY)
                 continue
-            self._shadows, self._pending = [], []
+            if self._shadows:  # each statement starts with none (an empty list is reused)
+                self._shadows = []
+            if self._pending:
+                self._pending = []
             self.user_calls = 0
             try:
                 if isinstance(stmt, N.Definition):
-                    self.types[stmt.name] = self.definition(stmt)
+                    t = types[key] = self.definition(stmt)
                 else:
                     self.check(stmt)
             except Broken:
@@ -201,12 +220,14 @@ class Checker:
                 if isinstance(stmt, N.Definition):
                     self.types[stmt.name] = ANY
                 continue
-            diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
-            diags.extend(self._pending)
-            if isinstance(stmt, N.Definition):
-                diags.extend(lint.definition_findings(stmt, self.types[stmt.name], self, self.path))
-            else:
-                diags.extend(lint.check_findings(stmt, self, self.path))
+            if self._shadows:
+                diags.extend(lint.shadow_warnings(self._shadows, self.defined, self.path))
+            if self._pending:
+                diags.extend(self._pending)
+            found = definition_findings(stmt, t, self, path) if isinstance(stmt, N.Definition) else \
+                check_findings(stmt, self, path)
+            if found:
+                diags.extend(found)
         diags.extend(lint.unused_inputs(res, self.path, skip=self.shadowed))
         return diags
 
@@ -228,7 +249,7 @@ class Checker:
             want = declared.pop(stmt.name)
             if all(p.unit is not None for p in stmt.params):
                 saved = self.types
-                self.types = {**saved, **{k: T.of(a) for k, a in declared.items()}}
+                self.types = ChainMap({k: T.of(a) for k, a in declared.items()}, saved)  # no copy of the sheet's
                 try:
                     t = self._quantity(self.infer(stmt.expr), stmt.expr)
                 finally:
@@ -293,7 +314,7 @@ class Checker:
                 raise Broken()
             local[p.name] = t
         saved = self.types
-        self.types = {**saved, **local}
+        self.types = ChainMap(local, saved)  # the parameters over the sheet's types, without copying them
         try:
             body = self._quantity(self.infer(fd.expr), fd.expr)
         except CalcError as exc:
@@ -316,11 +337,20 @@ class Checker:
         t = self.infer(stmt.expr)
         if stmt.unit is None:
             return t
-        try:
-            unit = U.build_unit(stmt.unit) if stmt.unit else None
-        except CalcError as exc:
-            raise exc.with_span(stmt.unit_span or stmt.span)
-        want = B.unit_arg(unit) if unit is not None else B.NUMBER
+        shared = id(t) in _SHARED
+        if shared:  # a declared unit over a process-lifetime type: the rule's answer depends on the two only
+            known = _DECLARED_TYPES.get((id(t), stmt.unit))
+            if known is not None:
+                return known
+        want = _DECLARED_ARGS.get(stmt.unit)
+        if want is None:
+            try:
+                unit = U.build_unit(stmt.unit) if stmt.unit else None
+            except CalcError as exc:
+                raise exc.with_span(stmt.unit_span or stmt.span)
+            want = B.unit_arg(unit) if unit is not None else B.NUMBER
+            if len(_DECLARED_ARGS) < 4096:
+                _DECLARED_ARGS[stmt.unit] = want
         if t.kind not in ("q", "any"):
             raise DeclaredUnitError(f"{stmt.name} is a {t.describe()}; it cannot have a unit",
                                     stmt.unit_span or stmt.span)
@@ -335,23 +365,27 @@ class Checker:
             specialise(exc, want.dim, t.dim, _operand(stmt.expr, "the expression"))
             return exc
 
-        return T.of(B.rule_declared(t.arg, want, stmt, mismatch), many=t.many)
+        result = T.of(B.rule_declared(t.arg, want, stmt, mismatch), many=t.many)
+        if shared and len(_DECLARED_TYPES) < 65536:
+            _DECLARED_TYPES[(id(t), stmt.unit)] = result  # only a rule that passed is remembered
+        return result
 
     def check(self, stmt: N.Check) -> None:
         a = self._quantity(self.infer(stmt.left), stmt.left)
         b = self._quantity(self.infer(stmt.right), stmt.right)
+        if a is b and a.kind == "q":
+            return  # one type on both sides: the same dimension (what rule_compare asks)
         B.rule_compare(a.arg, b.arg, stmt, stmt.left, stmt.right)
 
     # ------------------------------------------------------------ expressions
     def infer(self, node: N.Expr) -> T:
-        key = (type(self), type(node))
-        method = _INFER.get(key)
+        method = self._dispatch.get(type(node))
         if method is None:  # the first node of its class: find its method up the MRO, once
             for cls in type(node).__mro__:
                 method = getattr(type(self), "_infer_" + cls.__name__, None)
                 if method:
                     break
-            _INFER[key] = method
+            self._dispatch[type(node)] = method
         return method(self, node)
 
     def _quantity(self, t: T, node) -> T:
@@ -362,10 +396,13 @@ class Checker:
     def _infer_Number(self, node: N.Number) -> T:
         if not node.unit:
             return NUMBER
-        shadow = lint.shadowing_factor(node, self.defined)
-        if shadow is not None:
-            self._shadows.append(node)
-            self.shadowed.add(shadow[0])
+        defined = self.defined
+        for name, _ in node.unit:
+            if name in defined:  # a unit name that is also a variable of the sheet (lint words it)
+                shadow = lint.shadowing_factor(node, defined)
+                self._shadows.append(node)
+                self.shadowed.add(shadow[0])
+                break
         known = _NUMBER_TYPES.get(node.unit)
         if known is not None:
             return known
@@ -396,8 +433,8 @@ class Checker:
         return TEXT
 
     def _infer_Name(self, node: N.Name) -> T:
-        if node.id in self.types:
-            t = self.types[node.id]
+        t = self.types.get(node.id)
+        if t is not None:
             if t.kind == "any":
                 raise Broken()
             return t
@@ -413,14 +450,34 @@ class Checker:
         return T.of(B.rule_neg(t.arg, node), many=t.many)
 
     def _infer_BinOp(self, node: N.BinOp) -> T:
-        a = self._quantity(self.infer(node.left), node.left)
-        b = self._quantity(self.infer(node.right), node.right)
-        if node.op == "^":  # the written power matters only for a base with units
+        dispatch = self._dispatch
+        left, right = node.left, node.right
+        method = dispatch.get(type(left))
+        a = method(self, left) if method is not None else self.infer(left)
+        if a.kind != "q" and a.kind != "any":
+            self._quantity(a, left)
+        method = dispatch.get(type(right))
+        b = method(self, right) if method is not None else self.infer(right)
+        if b.kind != "q" and b.kind != "any":
+            self._quantity(b, right)
+        op = node.op
+        if op == "^":  # the written power matters only for a base with units
             p = B.written_power(node.right) if a.kind == "q" and a.dim != U.DIMENSIONLESS else None
             t = T.of(B.rule_pow(a.arg, b.arg, node, p), many=a.many)
             B.rule_scalar(b.many, node.right, "an exponent")
             return t
-        return T.of(B.OPERATORS[node.op].rule(node.op, a.arg, b.arg, node), many=a.many or b.many)
+        # + - * /: the result depends on the operator and the two types only; a rule that refuses raises
+        # (and is asked again next time, so each error keeps its own node), one that passes is remembered
+        ia, ib = id(a), id(b)
+        if ia in _SHARED and ib in _SHARED:
+            key = (op, ia, ib)
+            t = _BINOP_TYPES.get(key)
+            if t is None:
+                t = T.of(B.OPERATORS[op].rule(op, a.arg, b.arg, node), many=a.many or b.many)
+                if len(_BINOP_TYPES) < 65536:
+                    _BINOP_TYPES[key] = t
+            return t
+        return T.of(B.OPERATORS[op].rule(op, a.arg, b.arg, node), many=a.many or b.many)
 
     def _infer_FieldAccess(self, node: N.FieldAccess) -> T:
         obj = self.infer(node.obj)

@@ -18,6 +18,7 @@ import collections
 import dataclasses
 import math
 import weakref
+from math import isfinite as _isfinite
 from typing import Any, Callable
 
 import pint
@@ -101,7 +102,9 @@ class Evaluator:
         """The one finiteness rule of evaluation: no literal, operand, intermediate or check side is
         infinite, NaN or complex (a literal is held to it by the parser first, where its text is known)."""
         if isinstance(value, pint.Quantity):
-            m = value.magnitude
+            m = value._magnitude
+            if type(m) is float and _isfinite(m):  # the common case: one float, finite
+                return value
             if isinstance(m, complex):
                 raise NumericError(f"{what} is a complex number", span)
             try:
@@ -135,7 +138,7 @@ class Evaluator:
 
     def _eval_Number(self, node: N.Number, env, used):
         unit = U.build_unit(node.unit) if node.unit else self._dimensionless
-        return self._finite(self.reg.Quantity(node.value, unit), node.span, "the number")
+        return self._finite(U.quantity(node.value, unit._units), node.span, "the number")
 
     def _eval_Text(self, node, env, used):
         return node.value
@@ -394,12 +397,13 @@ class Evaluator:
     def evaluate_definition(self, stmt: N.Definition, env: dict, display: dict) -> Step:
         used: dict = {}
         value = self.eval(stmt.expr, env, used)
-        if isinstance(value, pint.Quantity):
+        quantity = isinstance(value, pint.Quantity)
+        if quantity:
             self._finite(value, stmt.expr.span)
         unit = None
         if stmt.unit is not None:
             unit = U.build_unit(stmt.unit) if stmt.unit else self._dimensionless
-            if not isinstance(value, pint.Quantity):
+            if not quantity:
                 raise DeclaredUnitError(f"{stmt.name} is a {kind_of(value)}; it cannot have a unit",
                                         stmt.unit_span or stmt.span)
 
@@ -412,15 +416,16 @@ class Evaluator:
             B.rule_declared(B.arg_of(value), B.unit_arg(unit), stmt, mismatch)
             if not stmt.unit:
                 unit = None
-        elif isinstance(value, pint.Quantity):
+        elif quantity:
             if B.arg_of(value).offset:  # a °C/°F temperature keeps its scale (in K it would lose it)
                 unit = value.units
             else:
                 unit = literal_unit(stmt.expr) or self.policy.unit_for(value)
-        if unit is not None and isinstance(value, pint.Quantity) and value._units != unit._units:
-            value = U.convert(value, unit)  # downstream substitutions read the value as shown
+        if unit is not None and quantity:
+            value = U.convert(value, unit)  # downstream substitutions read the value as shown (itself if in it)
+        unit_for = self.policy.unit_for
         step = Step(name=stmt.name, expr=stmt.expr, value=value, display_unit=unit,
-                    used={k: (v, display.get(k) if k in display else self.policy.unit_for(v)
+                    used={k: (v, display[k] if k in display else unit_for(v)
                               if isinstance(v, pint.Quantity) else None) for k, v in used.items()},
                     description=stmt.description, span=stmt.span)
         if isinstance(value, Record):

@@ -26,7 +26,7 @@ from .builtins import CONSTANTS
 from .evaluator import Evaluator, SheetFunction, evaluate_statement
 from .parser import parse_sheet
 from .plugin import Record
-from .trace import CheckResult, FunctionStep, Step, copied
+from .trace import CheckResult, FunctionStep, Step
 
 
 @dataclass
@@ -216,24 +216,23 @@ def _reevaluate(prev: Result, new_stmts: dict[str, N.Definition], overrides: dic
     result = Result(path=prev.path, source=source, meta=dict(prev.meta), policy=prev.policy, resolution=res,
                     sheet=sheet, overrides=new_overrides,
                     plugin_versions={**prev.plugin_versions, **ev.plugin_versions})
+    # A kept record is the previous run's own object, not a copy: a record is finished when its run ends
+    # (numbering copies it, no printer changes it), and the live preview knows an unchanged record by its
+    # identity, so it reuses the record's printed block without working out what it prints from.
+    steps, values, checks, items = result.steps, result.values, result.checks, result.items
     for item in prev.items:
-        if isinstance(item, Step) and item.name in new_steps:
-            item = new_steps[item.name]
-        elif isinstance(item, Step):
-            item = copied(item)  # numbering is per package: do not share the old record
+        if isinstance(item, Step):
+            item = new_steps.get(item.name, item)
+            if not isinstance(item, FunctionStep):  # a function is not a value
+                steps[item.name] = item
+                values[item.name] = item.value
         elif isinstance(item, CheckResult):
-            key = f"check@{item.span.line}"  # lines do not move on the fast path
-            fresh = new_checks.get(key)
+            fresh = new_checks.get(f"check@{item.span.line}")  # lines do not move on the fast path
             if fresh is not None:
                 fresh.anchor = item.anchor
                 item = fresh
-            else:
-                item = copied(item)
-            result.checks.append(item)
-        result.items.append(item)
-        if isinstance(item, Step) and not isinstance(item, FunctionStep):  # a function is not a value
-            result.steps[item.name] = item
-            result.values[item.name] = item.value
+            checks.append(item)
+        items.append(item)
     dirty_lines = [(res.statements[k].span.line, res.statements[k].span.end_line) for k in dirty_order]
     keep = [d for d in prev.diagnostics if not (d.code == "plugin-warning" and any(
         a <= d.span.line <= b for a, b in dirty_lines))]

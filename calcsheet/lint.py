@@ -170,20 +170,29 @@ def value_findings(name: str, expr: N.Expr, value, span, path: str) -> list[Diag
     return out
 
 
+_USUAL: dict = {}  # (kind, declared unit's factors) -> whether the unit is a usual one for the kind
+
+
 def definition_findings(stmt: N.Definition, t: "T", checker: "Checker", path: str) -> list[Diagnostic]:
     out: list[Diagnostic] = []
     if t.kind != "q":
         return out
     kind = P.kind_of(stmt.name, t.dim)
-    if stmt.unit:
-        unit = U.build_unit(stmt.unit)
-        if kind is not None and kind.usual_units and not P.is_usual_unit(kind, unit):
+    if kind is None:
+        return out  # a name that says nothing of its value: no unit or range to hold it to
+    if stmt.unit and kind.usual_units:
+        usual = _USUAL.get((kind.key, stmt.unit))
+        if usual is None:  # once per kind and declared unit (the checker has read the unit)
+            usual = P.is_usual_unit(kind, U.build_unit(stmt.unit))
+            if len(_USUAL) < 4096:
+                _USUAL[(kind.key, stmt.unit)] = usual
+        if not usual:
             out.append(UnusualUnitInfo(
                 f"{stmt.name} is declared [{stmt.unit_text}]; {_article(kind.words)} {kind.words} is usually given in "
                 + ", ".join(kind.usual_units[:5]), stmt.unit_span or stmt.span,
                 hint="the unit is valid, but a reviewer may misread it; declare a usual one unless "
                      "there is a reason").diagnostic(path))
-    if kind is not None and (kind.ranges or kind.slip):
+    if kind.ranges or kind.slip:
         value = checker.consts.of_name(stmt.name)
         if value is not None:
             out.extend(value_findings(stmt.name, stmt.expr, value, stmt.expr.span or stmt.span, path))
@@ -206,11 +215,15 @@ def argument_findings(param: str, value_node: N.Expr, checker: "Checker", path: 
 def check_findings(stmt: N.Check, checker: "Checker", path: str) -> list[Diagnostic]:
     """A check whose capacity side is a constant zero or negative has no utilisation."""
     demand_node, capacity_node = (stmt.left, stmt.right) if stmt.op in ("<=", "<") else (stmt.right, stmt.left)
-    capacity = checker.consts.of(capacity_node)
-    demand = _fold_from_inputs(demand_node, checker)
     out = []
+    cap_m = _literal_magnitude(capacity_node)  # the everyday capacity, a literal: its sign needs no pint
+    capacity = None
+    if cap_m is None:
+        capacity = checker.consts.of(capacity_node)
+    demand = _fold_from_inputs(demand_node, checker)
     try:
-        cap_m = None if capacity is None else float(capacity.magnitude)
+        if capacity is not None:
+            cap_m = float(capacity.magnitude)
         dem_m = None if demand is None else float(demand.magnitude)
     except (TypeError, ValueError):
         return out
@@ -227,6 +240,18 @@ def check_findings(stmt: N.Check, checker: "Checker", path: str) -> list[Diagnos
     return out
 
 
+def _literal_magnitude(node) -> float | None:
+    """The magnitude ``builtins.fold`` gives a literal (``Quantity(value, unit)``: its own value) without
+    making the quantity; None for anything else, and for a °C/°F literal (which ``fold`` does not fold). The
+    literal's unit reads: the checker has typed it before any lint runs."""
+    if type(node) is not N.Number:
+        return None
+    for name, _ in node.unit:
+        if U.VOCABULARY.get(name) in U.OFFSET_UNITS:
+            return None
+    return float(node.value)
+
+
 def _fold_from_inputs(node, checker: "Checker"):
     """The constant value of a side that reads only literals and inputs, else None.
 
@@ -237,7 +262,10 @@ def _fold_from_inputs(node, checker: "Checker"):
     """
     res = checker.res
     inputs = res.input_set() if res else frozenset()
-    if any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
+    if type(node) is N.Name:  # the everyday demand, one name: no walk
+        if node.id not in CONSTANTS and node.id not in inputs:
+            return None
+    elif any(isinstance(n, N.Name) and n.id not in CONSTANTS and n.id not in inputs for n in N.walk(node)):
         return None
     return checker.consts.of(node)
 

@@ -87,91 +87,129 @@ def resolve(sheet: N.Sheet, plugins: PluginRegistry) -> Resolution:
     all_defs: dict[str, int] = {}
     all_functions: set[str] = set()
     for stmt in sheet.body:
+        if type(stmt) is N.Check:
+            continue
         if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)) and stmt.name not in all_defs:
             all_defs[stmt.name] = stmt.span
             if isinstance(stmt, N.FunctionDef):
                 all_functions.add(stmt.name)
+    defined_at, functions, statements, precedents = res.defined_at, res.functions, res.statements, res.precedents
+    dependents, broken, def_spans = res.dependents, res.broken, res.def_spans
+    Definition, Check, Number, Name = N.Definition, N.Check, N.Number, N.Name
+    binops = frozenset(N.BINOPS.values())
     for stmt in sheet.body:
         params: tuple[str, ...] = ()
-        if isinstance(stmt, (N.Definition, N.FunctionDef)):
+        cls = type(stmt)
+        if cls is Definition or isinstance(stmt, (N.Definition, N.FunctionDef)):
             key = stmt.name
-            exprs = [stmt.expr]
+            exprs = (stmt.expr,)
             if isinstance(stmt, N.FunctionDef):
                 params = stmt.param_names
         elif isinstance(stmt, N.TableDef):
             key = stmt.name
-            exprs = []
-        elif isinstance(stmt, N.Check):
+            exprs = ()
+        elif cls is Check or isinstance(stmt, N.Check):
             key = check_key(stmt)
-            exprs = [stmt.left, stmt.right]
+            exprs = (stmt.left, stmt.right)
         else:
             continue
         errors: list[CalcError] = []
-        if isinstance(stmt, N.FunctionDef):
+        if cls is not Definition and isinstance(stmt, N.FunctionDef):
             errors.extend(_param_errors(stmt, plugins))
-        if isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)):
-            if stmt.name in res.defined_at and (stmt.name in res.functions) != isinstance(stmt, N.FunctionDef):
-                was = "a function" if stmt.name in res.functions else "a value"
-                errors.append(RedefinitionError(
-                    f"'{stmt.name}' is already {was} (defined on {res.def_spans[stmt.name].where()}); "
-                    f"a name is either a function or a value", stmt.name_span,
-                    hint="give one of them another name"))
-            elif stmt.name in res.defined_at:
-                errors.append(RedefinitionError(
-                    f"'{stmt.name}' is already defined on {res.def_spans[stmt.name].where()}", stmt.name_span,
-                    hint="give the new value its own name (e.g. a subscript: M_2)"))
-            elif is_builtin(stmt.name):
-                errors.append(RedefinitionError(f"'{stmt.name}' is a built-in name", stmt.name_span,
+        if cls is not Check and isinstance(stmt, (N.Definition, N.FunctionDef, N.TableDef)):
+            name = stmt.name
+            if name in defined_at:
+                if (name in functions) != isinstance(stmt, N.FunctionDef):
+                    was = "a function" if name in functions else "a value"
+                    errors.append(RedefinitionError(
+                        f"'{name}' is already {was} (defined on {def_spans[name].where()}); "
+                        f"a name is either a function or a value", stmt.name_span,
+                        hint="give one of them another name"))
+                else:
+                    errors.append(RedefinitionError(
+                        f"'{name}' is already defined on {def_spans[name].where()}", stmt.name_span,
+                        hint="give the new value its own name (e.g. a subscript: M_2)"))
+            elif name in FUNCTIONS or name in CONSTANTS:  # builtins.is_builtin
+                errors.append(RedefinitionError(f"'{name}' is a built-in name", stmt.name_span,
                                                 hint="choose another name"))
-            elif plugins.is_namespace(stmt.name):
-                errors.append(RedefinitionError(f"'{stmt.name}' is the name of a plugin", stmt.name_span,
+            elif plugins.is_namespace(name):
+                errors.append(RedefinitionError(f"'{name}' is the name of a plugin", stmt.name_span,
                                                 hint="choose another name"))
         reads: list[str] = []
         calls_plugin = False
-        defined_at, functions = res.defined_at, res.functions
-        for expr in exprs:
-            for node in N.walk(expr):
-                cls = type(node)
-                if cls is N.Number:
-                    continue  # a literal names nothing
-                if cls is N.Name:
-                    nid = node.id
-                    if nid in defined_at and nid != key and nid not in functions and nid not in CONSTANTS and \
-                            nid not in params:  # the everyday read of an earlier value
-                        if nid not in reads:
-                            reads.append(nid)
-                        continue
-                if isinstance(node, N.PluginCall):
-                    calls_plugin = True
-                if isinstance(node, N.Name) and node.id in params:
-                    continue  # a parameter of the function being defined
-                err = _check_node(node, res, all_defs, plugins, key, all_functions)
-                if err is not None:
-                    errors.append(err)
-                if isinstance(node, N.Name) and node.id not in CONSTANTS and node.id in res.defined_at:
-                    if node.id not in reads:
-                        reads.append(node.id)
-                if isinstance(node, N.Call) and node.func in res.functions and node.func not in reads:
-                    reads.append(node.func)  # a call depends on the function (and what its body reads)
-        res.statements[key] = stmt
-        res.precedents[key] = reads
+        # every node of the expressions, in source order (nodes.walk, written out: most nodes are the
+        # operators, names and numbers of an everyday formula, handled without a generator or a call)
+        stack = [exprs[0]] if len(exprs) == 1 else list(reversed(exprs))
+        pop, push = stack.pop, stack.append
+        while stack:
+            node = pop()
+            ncls = type(node)
+            if ncls is Number:
+                continue  # a literal names nothing
+            if ncls is Name:
+                nid = node.id
+                if nid in defined_at and nid != key and nid not in functions and nid not in CONSTANTS and \
+                        nid not in params:  # the everyday read of an earlier value
+                    if nid not in reads:
+                        reads.append(nid)
+                    continue
+            elif ncls in binops:
+                push(node.right)
+                push(node.left)
+                continue
+            else:
+                names = node._children
+                for attr in reversed(names):
+                    value = getattr(node, attr)
+                    if isinstance(value, tuple):
+                        for v in reversed(value):
+                            if isinstance(v, N.Node):
+                                push(v)
+                    elif isinstance(value, N.Node):
+                        push(value)
+            if isinstance(node, N.PluginCall):
+                calls_plugin = True
+            if isinstance(node, N.Name) and node.id in params:
+                continue  # a parameter of the function being defined
+            err = _check_node(node, res, all_defs, plugins, key, all_functions)
+            if err is not None:
+                errors.append(err)
+            if isinstance(node, N.Name) and node.id not in CONSTANTS and node.id in defined_at:
+                if node.id not in reads:
+                    reads.append(node.id)
+            if isinstance(node, N.Call) and node.func in functions and node.func not in reads:
+                reads.append(node.func)  # a call depends on the function (and what its body reads)
+        statements[key] = stmt
+        precedents[key] = reads
         for name in reads:
-            res.dependents.setdefault(name, []).append(key)
-        if isinstance(stmt, N.FunctionDef):
-            if stmt.name not in res.defined_at:
-                res.functions[stmt.name] = stmt
-            res.defined_at.setdefault(stmt.name, stmt.span.line)
-            res.def_spans.setdefault(stmt.name, stmt.span)
-        if isinstance(stmt, (N.Definition, N.TableDef)):
-            res.defined_at.setdefault(stmt.name, stmt.span.line)
-            res.def_spans.setdefault(stmt.name, stmt.span)
+            dep = dependents.get(name)
+            if dep is None:
+                dependents[name] = [key]
+            else:
+                dep.append(key)
+        if cls is Definition:
+            defined_at.setdefault(key, stmt.span.line)
+            def_spans.setdefault(key, stmt.span)
+            if not reads and not calls_plugin:
+                res.inputs.append(key)
+        elif isinstance(stmt, N.FunctionDef):
+            if stmt.name not in defined_at:
+                functions[stmt.name] = stmt
+            defined_at.setdefault(stmt.name, stmt.span.line)
+            def_spans.setdefault(stmt.name, stmt.span)
+        elif isinstance(stmt, (N.Definition, N.TableDef)):
+            defined_at.setdefault(stmt.name, stmt.span.line)
+            def_spans.setdefault(stmt.name, stmt.span)
             if isinstance(stmt, N.Definition) and not reads and not calls_plugin:
                 res.inputs.append(stmt.name)
         if errors:
-            res.broken.add(key)
+            broken.add(key)
             res.diagnostics.append(errors[0].diagnostic(path))
-        elif any(r in res.broken for r in reads):
-            res.broken.add(key)  # upstream error: reported once, at its root
+        elif broken:
+            for r in reads:
+                if r in broken:
+                    broken.add(key)  # upstream error: reported once, at its root
+                    break
     return res
 
 

@@ -44,8 +44,65 @@ def registry() -> pint.UnitRegistry:
                 reg.define(line)
         reg.formatter.default_format = "~"
         pint.set_application_registry(reg)
+        global _QUANTITY
+        _QUANTITY = reg.Quantity
         _registry = reg
     return _registry
+
+
+# ---------------------------------------------------------------- quantities without pint's generic paths
+# Evaluation makes a quantity for every literal and every operation. pint's constructor sniffs its arguments
+# (strings to parse, units to coerce, upcast types) and its operators recheck offset units on every call;
+# for a float magnitude and a units container that passed our rules the outcome is always the same two
+# attributes. The helpers below set them directly, and cache what depends only on the units.
+
+_QUANTITY: type | None = None  # the registry's Quantity class, set with the registry
+_new = object.__new__
+
+
+def quantity(magnitude, units) -> pint.Quantity:
+    """``registry().Quantity(magnitude, units)`` for a float (or ndarray) magnitude and a pint units container
+    (``unit._units``): the same object pint's constructor makes, without its argument checks."""
+    q = _new(_QUANTITY or registry().Quantity)
+    q._magnitude = magnitude
+    q._units = units
+    return q
+
+
+_KEEP = 4096  # entries a units cache holds before it starts again (a sheet uses a few dozen units)
+_UNIT_OPS: dict = {}  # (op, id(a), id(b) or power) -> (a, b, result): held, so the ids stay theirs
+
+
+def units_op(op: str, a, b):
+    """pint's own units container of ``a * b`` (op ``"*"``), ``a / b`` (``"/"``), ``b / a`` (``"inv"``: the
+    reciprocal, ``b`` unused) or ``a ** b`` (``"^"``, ``b`` a float), worked out once per pair of containers.
+
+    Keyed by the containers' identity, not equality: ``{m: 2}`` and ``{m: 2.0}`` are equal to pint but are not
+    the same container, and the result is exactly the one pint makes from these operands."""
+    key = (op, id(a), b if op == "^" else id(b))
+    hit = _UNIT_OPS.get(key)
+    if hit is not None:
+        return hit[2]
+    if op == "*":
+        out = a * b
+    elif op == "/":
+        out = a / b
+    elif op == "inv":
+        out = 1 / a
+    else:
+        out = a ** b
+    if len(_UNIT_OPS) >= _KEEP:
+        _UNIT_OPS.clear()
+    _UNIT_OPS[key] = (a, b, out)
+    return out
+
+
+@lru_cache(maxsize=4096)
+def multiplicative(units) -> bool:
+    """Whether pint computes with these units by plain multiplication: no offset (°C/°F) unit, no logarithmic
+    or other non-multiplicative unit, and no delta unit (pint gives a sum with one the other side's unit)."""
+    q = quantity(1.0, units)
+    return not q._get_non_multiplicative_units() and not q._get_delta_units()
 
 
 def Quantity(value, unit):
@@ -112,17 +169,36 @@ def convert(q: pint.Quantity, unit) -> pint.Quantity:
     unit by ``magnitude * factor``; the factor of each pair of units is taken from pint once (as the conversion
     of 1) and reused. A pair whose conversion is not a plain factor (°C, °F) always goes through pint."""
     src, dst = q._units, getattr(unit, "_units", unit)
-    if src == dst:
+    if src is dst:
         return q
+    hit = _CONVERSIONS.get((id(src), id(dst)))
+    if hit is None:  # once per pair of containers: equal (nothing to do), a plain factor, or pint's path
+        how = _SAME if src == dst else factor(src, dst)
+        if len(_CONVERSIONS) >= _KEEP:
+            _CONVERSIONS.clear()
+        hit = _CONVERSIONS[(id(src), id(dst))] = (src, dst, how)
+    how = hit[2]
+    if how is _SAME:
+        return q
+    if how is None:
+        return q.to(unit)
+    return quantity(q._magnitude * how, dst)
+
+
+_SAME = object()
+_CONVERSIONS: dict = {}  # (id(src), id(dst)) -> (src, dst, _SAME | factor | None): held, so the ids stay theirs
+
+
+def factor(src, dst) -> float | None:
+    """The factor pint converts ``src`` to ``dst`` units containers by (``value * factor``), taken from pint
+    once per pair; None when the conversion is not a plain factor (°C, °F)."""
     key = (src, dst)
     f = _FACTORS.get(key, False)
     if f is False:
         f = _factor(src, dst)
         if len(_FACTORS) < 4096:
             _FACTORS[key] = f
-    if f is None:
-        return q.to(unit)
-    return registry().Quantity(q._magnitude * f, dst)
+    return f
 
 
 def _factor(src, dst) -> float | None:

@@ -154,7 +154,8 @@ class PartsMemo:
     exactly as before. A part is reused only when everything it prints from is equal: the record's formula,
     values, units and substituted values, the literals the substitution shows for inputs, the links of the
     names it shows, and the printer's settings. Records with a plugin's working, or with values other
-    than scalars and text, are always printed afresh. Only the parts used by the latest page are kept.
+    than scalars and text, are always printed afresh. Only the parts used by the latest page are kept,
+    with the page's lists of blocks beside the records that printed them (see ``PreviewDocument``).
     """
 
     def __init__(self):
@@ -191,6 +192,10 @@ class _MemoPrinter:
         self._printer = printer
         self._memo = memo
         self._settings = tuple(sorted(printer.settings.items()))
+        # the printer's own calls too (a value substituted into a formula is most often a value some step
+        # printed as its result): this printer belongs to one page, so its method is shadowed, not changed
+        self._value = printer.value
+        printer.value = self.value
 
     def __getattr__(self, name):
         return getattr(self._printer, name)
@@ -198,7 +203,7 @@ class _MemoPrinter:
     def value(self, value, unit=None, sigfigs=None):
         vk = _value_key(value)
         key = None if vk is None else ("value", vk, unit, sigfigs, self._settings)
-        return self._memo.get(key, lambda: self._printer.value(value, unit, sigfigs))
+        return self._memo.get(key, lambda: self._value(value, unit, sigfigs))
 
     def expr(self, node, values=None, link=None, **kw):
         if values is None and not kw and node is not None:  # a formula as written, no values substituted
@@ -276,31 +281,195 @@ class _MemoPrinter:
         return self._memo.get(self.check_key(check, link, exact),
                               lambda: type(self._printer).check_parts(self, check, link, exact))
 
+    def check_symbol(self, check, link=None):
+        return type(self._printer).check_symbol(self, check, link)  # its two formulas are memo entries
+
+
+_PAGE = ("page",)  # the memo's entry for what every block of a page prints from: settings, links, literals, marks
+
+
+def _stale_names(previous: tuple, current: tuple) -> set[str] | None:
+    """The names whose link, literal or "changed" mark differ between two pages' contexts; None when the
+    printer's settings differ (then nothing printed on the previous page may be reused by identity)."""
+    if previous is None or previous[0] != current[0]:
+        return None
+    stale = set(previous[3].symmetric_difference(current[3]))
+    for old, new in ((previous[1], current[1]), (previous[2], current[2])):  # links, literals of inputs
+        if old is new:
+            continue
+        for name, v in new.items():
+            o = old.get(name)
+            if o is not v and (o is None or o != v):
+                stale.add(name)
+        stale.update(old.keys() - new.keys())
+    return stale
+
+
+def _renumbered(items: list, old_items: list, old_numbered: list) -> list | None:
+    """``number_items(items)`` from the last page's numbering of ``old_items``, or None when it cannot be.
+
+    The numbers depend only on where the headings (and their levels) and the steps and checks stand, so
+    when every place holds the same record as before, or a step or check where one stood, or an unnumbered
+    record where one stood, each place keeps its number: a kept record its numbered copy, a new one a copy
+    under the old number.
+    """
+    from .trace import CheckResult, Heading, Step, copied
+
+    counted, numbered = (Step, CheckResult), (Heading, Step, CheckResult)
+    out = []
+    for item, old, done in zip(items, old_items, old_numbered):
+        if item is old:
+            out.append(done)
+        elif isinstance(item, counted) and isinstance(old, counted):
+            out.append(copied(item, number=done.number))
+        elif not isinstance(item, numbered) and not isinstance(old, numbered):
+            out.append(item)
+        else:
+            return None
+    return out
+
 
 def _document_class():
     from .render.page import PackageDocument
-    from .trace import Step
+    from .trace import CheckResult, Heading, Prose, Step
 
     class PreviewDocument(PackageDocument):
-        """The package document, reusing a step's or check's whole printed block when nothing it shows
-        changed (its parts, number, anchor, description, marks and verdict)."""
+        """The package document, reusing a record's whole printed block when nothing it shows changed.
 
-        memo: PartsMemo
+        A list of blocks (the calculation's records, the summary's rows, the inputs' rows) is laid beside
+        the same list of the last page: a block whose place holds the very record that printed it there,
+        under the same number, is taken as it was unless a name it shows has a new link, literal or
+        "changed" mark (a fast rebuild keeps an unchanged record's object, so after an edit only the
+        records it reached are looked at). Any other block is found by what it prints from (its content
+        key: formula parts, values, number, anchor, description, marks, verdict), which a full run's
+        records find again; failing that it is printed. Each block's content key is kept for the next page.
+        """
 
-        def _print_Step(self, step, inner: bool = False):
-            pk = None if inner or type(step) is not Step else self.printer.step_key(step, self.link, self.exact)
+        def __init__(self, result, memo: PartsMemo, **options):
+            self.memo = memo
+            super().__init__(result, **options)
+            self.printer = _MemoPrinter(self.printer, memo)
+            context = (self.printer._settings, self.anchors, self.exact, frozenset(self.changed))
+            self._stale = _stale_names(memo.previous.get(_PAGE), context)
+            memo.current[_PAGE] = context
+
+        def number(self, items):
+            """The numbered records of the last page where the same records stand in the same places."""
+            memo = self.memo
+            prev = memo.previous.get(("numbered",))
+            out = None if prev is None or len(prev[0]) != len(items) else _renumbered(items, *prev)
+            if out is None:
+                out = super().number(items)
+            memo.current[("numbered",)] = (list(items), out)
+            return out
+
+        # ---------------------------------------------------------------- lists of blocks
+        def _reuse(self, kind, records, numbers, items, make):
+            """The blocks of ``items``; ``records[i]`` is item i as the run made it (before numbering),
+            ``numbers[i]`` what places it (its number; an input row's name). ``make(item)`` prints one:
+            (markup, the names it shows or None when it may not be reused by its record, content key)."""
+            memo = self.memo
+            prev = memo.previous.get(kind)
+            n = len(items)
+            stale = self._stale
+            if prev is not None and stale is not None and len(prev[0]) == n:
+                blocks, names, keys = list(prev[2]), list(prev[3]), list(prev[4])
+                redo = [i for i, same, number, shown in zip(range(n), map(operator.is_, records, prev[0]),
+                                                           map(operator.eq, numbers, prev[1]), names)
+                        if not (same and number) or shown is None or (stale and not stale.isdisjoint(shown))]
+            else:
+                blocks, names, keys = [None] * n, [None] * n, [None] * n
+                redo = range(n)
+            for i in redo:
+                blocks[i], names[i], keys[i] = make(items[i])
+            memo.current[kind] = (list(records), list(numbers), blocks, names, keys)
+            memo.current.update(filter(operator.itemgetter(0), zip(keys, blocks)))  # found by content next time
+            return list(blocks)  # the caller's to extend
+
+        def _content_block(self, key, make):
+            memo = self.memo
+            hit = memo.current.get(key)
+            if hit is None:
+                hit = memo.previous.get(key)
+                if hit is None:
+                    hit = make()
+            return hit
+
+        def blocks(self, items):
+            records = self.result.items  # numbered one for one into items
+            if len(records) != len(items):
+                return super().blocks(items)
+            return self._reuse(("blocks",), records, [getattr(i, "number", None) for i in items], items, self._block)
+
+        def summary_rows(self, checks):
+            records = [i for i in self.result.items if isinstance(i, CheckResult)]  # numbered into checks
+            if len(records) != len(checks):
+                return super().summary_rows(checks)
+            return self._reuse(("summary",), records, [c.number for c in checks], checks, self._summary_row)
+
+        def input_rows(self, names):
+            steps = self.result.steps
+            return self._reuse(("inputs",), [steps[n] for n in names], names, names, self._input_row)
+
+        # ---------------------------------------------------------------- one block
+        def _block(self, item):
+            cls = type(item)
+            if cls is Step:
+                return self._step_block(item)
+            if cls is CheckResult:
+                return self._check_block(item)
+            # a heading prints its text under its number; prose its text
+            return self.record(item), (() if cls is Heading or cls is Prose else None), None
+
+        def _step_block(self, step):
+            pk = self.printer.step_key(step, self.link, self.exact)
             if pk is None:
+                return PackageDocument._print_Step(self, step), None, None
+            token = pk[2][0]
+            key = _Token(("step-block", pk, step.number, step.anchor, step.is_input, step.description, step.note,
+                          step.name in self.changed), ())
+            block = self._content_block(key, lambda: PackageDocument._print_Step(self, step))
+            return block, (None if step.after else (step.name, *token.names)), key
+
+        def _check_block(self, c):
+            ck = self.printer.check_key(c, self.link, self.exact)
+            if ck is None:
+                return PackageDocument._print_CheckResult(self, c), None, None
+            key = _Token(("check-block", ck, c.number, c.anchor, c.ok, c.ratio, c.description), ())
+            block = self._content_block(key, lambda: PackageDocument._print_CheckResult(self, c))
+            return block, (None if c.after else ck[1][0].names), key
+
+        def _summary_row(self, c):
+            ck = self.printer.check_key(c, self.link)
+            if ck is None:
+                return PackageDocument.summary_row(self, c), None, None
+            demand, capacity = _value_key(c.demand), _value_key(c.capacity)
+            key = (None if demand is None or capacity is None else
+                   _Token(("summary-row", ck, c.number, c.anchor, c.ok, c.ratio, c.description, demand, capacity), ()))
+            row = self._content_block(key, lambda: PackageDocument.summary_row(self, c))
+            return row, ck[1][0].names, key
+
+        def _input_row(self, name):
+            # the row shows its record and the literal the sheet wrote for it, which is the record's own
+            # formula (``exact_inputs``): it shows no other name, so only a new record is printed again
+            step = self.result.steps[name]
+            value, overridden = _value_key(step.value), _value_key(step.overridden)
+            key = (None if value is None or overridden is None else
+                   _Token(("input-row", name, step.anchor, step.description, value, step.display_unit, overridden,
+                           _known(self.exact.get(name)), self.printer._settings), ()))
+            row = self._content_block(key, lambda: PackageDocument.input_row(self, name, step))
+            return row, (), key
+
+        # ---------------------------------------------------------------- a record printed alone
+        def _print_Step(self, step, inner: bool = False):
+            if inner or type(step) is not Step:
                 return super()._print_Step(step, inner)
-            key = ("step-block", pk, step.number, step.anchor, step.is_input, step.description, step.note,
-                   step.name in self.changed)
-            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_Step(step, inner))
+            return self._step_block(step)[0]
 
         def _print_CheckResult(self, c, inner: bool = False):
-            ck = None if inner else self.printer.check_key(c, self.link, self.exact)
-            if ck is None:
+            if inner:
                 return super()._print_CheckResult(c, inner)
-            key = ("check-block", ck, c.number, c.anchor, c.ok, c.ratio, c.description)
-            return self.memo.get(key, lambda: super(PreviewDocument, self)._print_CheckResult(c, inner))
+            return self._check_block(c)[0]
 
     return PreviewDocument
 
@@ -314,10 +483,7 @@ def preview_document(result, memo: PartsMemo | None = None, **options):
     global _PreviewDocument
     if _PreviewDocument is None:
         _PreviewDocument = _document_class()
-    doc = _PreviewDocument(result, **options)
-    doc.memo = memo
-    doc.printer = _MemoPrinter(doc.printer, memo)
-    return doc
+    return _PreviewDocument(result, memo, **options)
 
 
 _PreviewDocument = None

@@ -294,11 +294,87 @@ def test_a_run_puts_the_garbage_collector_back_as_it_found_it():
     before = gc.get_threshold()
     inside = []
     with engine.fewer_collections():
-        inside.append(gc.get_threshold())
-        with engine.fewer_collections():  # nested or concurrent runs: restored once, by the last
+        inside.append(gc.isenabled())
+        with engine.fewer_collections():  # nested or concurrent runs: put back once, by the last
             pass
-        inside.append(gc.get_threshold())
-    calcsheet_result = engine.run("x = 1 m\ncheck x <= 2 m\n")
-    assert calcsheet_result.ok
-    assert gc.get_threshold() == before and gc.isenabled()
-    assert inside[0][0] >= max(before[0], 1) and inside[0] == inside[1]
+        inside.append(gc.isenabled())
+    assert engine.run("x = 1 m\ncheck x <= 2 m\n").ok
+    assert engine.run("x = 1 m\ncheck x <= 2 m\n", evaluate=False).ok  # a static check too
+    assert inside == [False, False]  # no collection walks the run's objects while it runs
+    assert gc.get_threshold() == before and gc.isenabled() and gc.get_freeze_count() == 0
+
+
+def test_a_run_leaves_a_collector_switched_off_off_and_objects_frozen_by_others_frozen():
+    import gc
+
+    from calcsheet import engine
+
+    gc.disable()
+    try:
+        assert engine.run("x = 1 m\n").ok
+        assert engine.run("x = 1 m\n", evaluate=False).ok
+        assert not gc.isenabled()
+    finally:
+        gc.enable()
+    gc.freeze()  # e.g. a server before it forks
+    try:
+        frozen = gc.get_freeze_count()
+        assert frozen > 0 and engine.run("x = 1 m\n").ok
+        kept = [[i] for i in range(engine.RUN_GC_THRESHOLD)]
+        with engine.fewer_collections():
+            kept += [[i] for i in range(engine.RUN_GC_THRESHOLD)]  # large, yet unfreeze() would thaw them all
+        assert gc.get_freeze_count() == frozen and gc.isenabled()
+    finally:
+        gc.unfreeze()
+
+
+class _Cycle:
+    pass
+
+
+def _cycle():
+    import weakref
+
+    a = _Cycle()
+    a.me = a
+    return weakref.ref(a)
+
+
+def test_what_a_large_run_made_waits_for_a_full_collection_where_its_cycles_are_freed():
+    import gc
+
+    from calcsheet import engine
+
+    with engine.fewer_collections():
+        ref = _cycle()
+        kept = [[i] for i in range(engine.RUN_GC_THRESHOLD)]  # a large run's trees and records
+    assert gc.get_count()[0] < 1000  # moved to the oldest generation: the young counts start again
+    gc.collect(1)
+    assert ref() is not None  # young collections no longer walk it
+    gc.collect()
+    assert ref() is None and len(kept) == engine.RUN_GC_THRESHOLD
+
+
+def test_what_a_large_sheet_holds_is_left_in_the_oldest_generation_for_the_next_collection_to_skip():
+    import gc
+
+    from calcsheet import engine
+
+    gc.collect()
+    result = engine.run("".join(f"x_{i} = {i + 1} m\ncheck x_{i} <= 1 km\n" for i in range(3000)))
+    assert result.ok
+    assert gc.get_count()[0] < 50  # the young generation starts empty again
+    step = result.steps["x_7"]
+    assert gc.is_tracked(step) and not any(step is o for o in gc.get_objects(generation=0))
+
+
+def test_what_a_small_run_made_stays_young():
+    import gc
+
+    from calcsheet import engine
+
+    gc.collect()
+    with engine.fewer_collections():
+        ref = _cycle()
+    gc.collect(0)
+    assert ref() is None

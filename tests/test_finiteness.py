@@ -53,6 +53,9 @@ def test_zero_and_the_extreme_finite_literals_are_accepted(text):
 @pytest.mark.parametrize("sheet, line", [
     ("a = 1e300 m\nb = a * 1e300\ncheck b <= 1 m\n", 2),
     ("a = 1e200\nb = a^2\n", 2),
+    ("a = 1e200 m\nb = a^2\n", 2),  # a quantity with units: its float power overflows too
+    ("a = 1e-200 m\nb = a^-2\n", 2),
+    ("a = 1e200 m\nb = a^(1+1)\n", 2),
     ("a = 1e300\nb = exp(a)\n", 2),
     ("a = 1e300\nb = -a * 1e10\n", 2),
     ("a = 1e300\nc = ceil(a * 1e300)\n", 2),

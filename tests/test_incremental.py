@@ -9,6 +9,7 @@ from calcsheet import evaluator
 from calcsheet.evaluator import Evaluator
 from calcsheet.incremental import rebuild, recompute
 from calcsheet.render.page import PackageDocument
+from calcsheet.trace import CheckResult, Step
 
 SHEET = textwrap.dedent("""\
     ---
@@ -187,3 +188,45 @@ def test_a_sheet_with_functions_rebuilds_fast_and_like_a_full_run(edit):
     assert "M_ss" not in fast.result.values
     assert PackageDocument(fast.result).html() == PackageDocument(full).html()
     assert fast.result.to_json() == full.to_json()
+
+
+def _groups(n: int) -> str:
+    """Groups of a span, a load, a moment, a stress and a check; every third group's load reads k_sh."""
+    lines = ["# Members", "k_sh = 1.1          -- shared load factor"]
+    for i in range(n):
+        factor = "k_sh*" if i % 3 == 0 else ""
+        lines += [f"L_{i} = {3 + i % 4} m", f"w_{i} [kN/m] = {factor}1.2*{1 + i % 5} kPa * 0.6 m + 1.5 kN/m",
+                  f"M_{i} [kN*m] = w_{i}*L_{i}^2/8", f"s_{i} [MPa] = M_{i} / 2.5e5 mm^3",
+                  f"check s_{i} <= 250 MPa  -- bending"]
+    return "\n".join(lines) + "\n"
+
+
+@pytest.mark.parametrize("old, new", [("k_sh = 1.1 ", "k_sh = 1.35 "), ("L_4 = 3 m", "L_4 = 3.5 m")],
+                         ids=["a shared input (the worst edit)", "one span (the best edit)"])
+def test_the_worst_and_the_best_edit_render_exactly_like_a_full_run(old, new):
+    sheet = _groups(12)
+    edited = sheet.replace(old, new)
+    fast = rebuild(calcsheet.run(sheet, path="g.calc"), edited)
+    full = calcsheet.run(edited, path="g.calc")
+    assert not fast.full, fast.reason
+    assert PackageDocument(fast.result).html() == PackageDocument(full).html()
+    assert fast.result.to_json() == full.to_json()
+
+
+def test_a_rebuild_keeps_the_records_it_did_not_evaluate_again_and_makes_new_ones_for_the_rest():
+    # the live preview knows an unchanged step by its record: a kept record must be the previous run's own
+    # object, and a step evaluated again must never be
+    sheet = _groups(6)
+    first = calcsheet.run(sheet, path="g.calc")
+    out = rebuild(first, sheet.replace("k_sh = 1.1 ", "k_sh = 1.35 "))
+    again = set(out.recomputed)
+    assert again == {"k_sh", "w_0", "M_0", "s_0", "w_3", "M_3", "s_3", "check@7", "check@22"}
+    for old, new in zip(first.items, out.result.items, strict=True):
+        if isinstance(new, Step):
+            key = new.name
+        elif isinstance(new, CheckResult):
+            key = f"check@{new.span.line}"
+        else:
+            key = None  # a heading
+        assert (new is old) is (key not in again), key
+    assert all(out.result.steps[n] is s for n, s in first.steps.items() if n not in again)

@@ -126,3 +126,47 @@ def test_convert_leaves_temperatures_on_a_scale_to_pint_and_refuses_another_dime
     assert U.convert(t, reg.Unit("K")).magnitude == pytest.approx(293.15)
     with pytest.raises(pint.DimensionalityError):
         U.convert(reg.Quantity(1.0, reg.Unit("m")), reg.Unit("s"))
+
+
+def test_convert_to_units_equal_to_its_own_gives_the_quantity_itself():
+    reg = U.registry()
+    m = reg.Unit("m")
+    q2 = reg.Quantity(4.0, m**2)
+    for _ in range(2):  # the first meeting of the pair decides; the second is remembered
+        assert U.convert(q2, m**2.0) is q2 and U.convert(q2, (m**2)._units) is q2
+
+
+def test_the_conversion_memory_stays_bounded_and_answers_alike_after_it_starts_again():
+    reg = U.registry()
+    q = reg.Quantity(1500.0, reg.Unit("mm"))
+    first = U.convert(q, reg.Unit("m"))
+    for i in range(U._KEEP + 5):  # new containers each time: each a pair of its own
+        U.convert(reg.Quantity(1.0, reg.Unit("mm")._units * reg.Unit("s")._units), reg.Unit("m") * reg.Unit("s"))
+    assert len(U._CONVERSIONS) <= U._KEEP
+    again = U.convert(q, reg.Unit("m"))
+    assert again.magnitude == first.magnitude == q.to("m").magnitude and again.units == first.units
+
+
+def test_quantity_makes_what_pints_constructor_makes():
+    reg = U.registry()
+    units = U.build_unit((("kN", 1.0), ("m", -1.0)))._units
+    fast, slow = U.quantity(2.5, units), reg.Quantity(2.5, units)
+    assert type(fast) is type(slow) and vars(fast) == vars(slow)
+    assert fast == slow and f"{fast:~P}" == f"{slow:~P}" and fast.to("N/mm").magnitude == slow.to("N/mm").magnitude
+
+
+@pytest.mark.parametrize("text, plain", [
+    ("kN*m", True), ("mm^4", True), ("deg", True), ("%", True), ("degC", False), ("degF", False),
+])
+def test_multiplicative_says_which_units_pint_computes_with_by_plain_multiplication(text, plain):
+    assert U.multiplicative(U.build_unit(U.split_unit(text))._units) is plain
+    assert U.multiplicative(U.registry().Unit("delta_degC")._units) is False  # pint's sums treat it apart
+
+
+def test_units_op_is_pints_units_arithmetic():
+    reg = U.registry()
+    a, b = reg.Unit("kN")._units, (reg.Unit("m") ** 2.0)._units
+    for _ in range(2):
+        assert U.units_op("*", a, b) == a * b and U.units_op("/", a, b) == a / b
+        assert U.units_op("inv", b, None) == 1 / b and U.units_op("^", b, 0.5) == b**0.5
+        assert dict(U.units_op("^", b, 0.5)) == {"meter": 1.0}

@@ -73,7 +73,7 @@ def write_terminals() -> str:
     return str(path)
 
 
-def _prepare_fast() -> None:
+def prepare_fast() -> None:
     """On first use: the quick reader's patterns from the stored table, else from the built parser."""
     with _READY:
         if fast.decided():
@@ -90,7 +90,7 @@ def parse(text: str, line_offset: int = 0) -> N.Statement:
     else, and every error, goes through the LALR parser.
     """
     if not fast.decided():
-        _prepare_fast()
+        prepare_fast()
     node = fast.parse(text, line_offset)
     if node is not None:
         return node

@@ -19,24 +19,25 @@ def strip_trailing(line: str) -> tuple[str, str | None, str | None]:
     """Blank out ``-- description`` and ``// comment`` outside strings; keep columns."""
     if "--" not in line and "//" not in line:
         return line, None, None
-    in_str = False
     desc_at = comment_at = None
-    i = 0
-    while i < len(line):
-        ch = line[i]
-        if ch == '"':
-            in_str = not in_str
-        elif not in_str and line.startswith("//", i) and comment_at is None:
-            comment_at = i
-            break
-        elif not in_str and line.startswith("--", i) and desc_at is None:
-            desc_at = i
-            # a description runs to a comment marker or the end
-            j = line.find("//", i + 2)
-            comment_at = j if j >= 0 else None
-            break
-        i += 1
-    code_end = min(x for x in (desc_at, comment_at, len(line)) if x is not None)
+    # the first "//" or "--" outside a string: text between an even and an odd '"' is inside one, and a
+    # marker never spans a quote, so each stretch outside strings is searched whole (str.find, not a
+    # character loop)
+    pos = 0
+    for k, part in enumerate(line.split('"') if '"' in line else (line,)):
+        if k % 2 == 0:
+            c, d = part.find("//"), part.find("--")
+            if c >= 0 and (d < 0 or c < d):
+                comment_at = pos + c
+                break
+            if d >= 0:
+                desc_at = pos + d
+                # a description runs to a comment marker or the end
+                j = line.find("//", desc_at + 2)
+                comment_at = j if j >= 0 else None
+                break
+        pos += len(part) + 1
+    code_end = desc_at if desc_at is not None else comment_at if comment_at is not None else len(line)
     desc = None
     comment = None
     if desc_at is not None:

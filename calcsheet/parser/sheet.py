@@ -6,13 +6,15 @@ import dataclasses
 from .. import nodes as N
 from ..errors import CalcError, Diagnostic, SheetErrors, SheetSyntaxError, Span, TooComplexError
 from .includes import INCLUDE, IncludeState, include
-from .lines import HEADING, front_matter, statement_lines
-from .statement import parse_statement
+from . import fast, grammar
+from .lines import HEADING, bracket_delta, front_matter, statement_lines
+from .statement import MAX_DEPTH, parse_statement
 from .tables import FILE_TABLE, file_table, pipe_table, starts_table
 from .lines import strip_trailing
 from .. import reading
 
 MAX_SHEET_BYTES = reading.LIMITS["SHEET_BYTES"][0]  # the default; reading.limit("SHEET_BYTES") is the cap
+_MARKS = ("", "/")  # the first characters of a line that is blank or a comment
 
 
 def read_sheet(path) -> str:
@@ -57,7 +59,11 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             prose_buf = []
 
     max_items, max_problems = reading.limit("STATEMENTS"), reading.limit("PROBLEMS")
-    while i < len(lines):
+    if not fast.decided():
+        grammar.prepare_fast()
+    quick = fast.parse
+    n_lines = len(lines)
+    while i < n_lines:
         if len(diags) >= max_problems or len(body) >= max_items:
             cap = "PROBLEMS" if len(diags) >= max_problems else "STATEMENTS"
             what = (f"{len(diags):,} problems" if cap == "PROBLEMS" else f"{len(body):,} statements")
@@ -68,7 +74,8 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
         raw = lines[i]
         lineno = i + 1
         text = raw.strip()
-        if text.startswith(">"):
+        first = text[:1]
+        if first == ">":
             if not prose_buf:
                 prose_start = lineno
             prose_buf.append(text[1:].strip())
@@ -76,10 +83,10 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             continue
         if prose_buf:
             flush_prose()
-        if not text or text.startswith("//"):
+        if first in _MARKS and (not text or text.startswith("//")):
             i += 1
             continue
-        inc = INCLUDE.match(text) if text.startswith("include") else None
+        inc = INCLUDE.match(text) if first == "i" and text.startswith("include") else None
         if inc:
             span = Span(lineno, 1, lineno, len(raw) + 1)
             stmts, sub_diags = include(inc.group(1), span, path, state, parse_sheet)
@@ -87,20 +94,22 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             diags.extend(sub_diags)
             i += 1
             continue
-        m = HEADING.match(text) if text.startswith("#") else None
+        m = HEADING.match(text) if first == "#" else None
         if m:
             body.append(N.Heading(level=len(m.group(1)), text=m.group(2).strip(),
                                   span=Span(lineno, 1, lineno, len(raw) + 1)))
             i += 1
             continue
-        if text.startswith("#"):
+        if first == "#":
             diags.append(SheetSyntaxError("a heading needs a space after '#'", Span(lineno, 1, lineno, 2),
                                           hint="write '# Loads'").diagnostic(path))
             i += 1
             continue
-        if starts_table(lines, i) or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
+        pipe = i + 1 < n_lines and "|" in lines[i + 1] and lines[i + 1].lstrip().startswith("|") and \
+            starts_table(lines, i)
+        if pipe or ("table" in raw and FILE_TABLE.fullmatch(strip_trailing(raw)[0])):  # a table bound to a name
             try:
-                if starts_table(lines, i):
+                if pipe:
                     i, table = pipe_table(lines, i, path)
                 else:
                     table = file_table(lines, i, path, state)
@@ -116,21 +125,36 @@ def parse_sheet(source: str, path: str = "<sheet>", collect: bool = True, *,
             body.append(table)
             continue
         # a statement, continuing over lines while brackets are open
-        i, stmt_text, descs, comments = statement_lines(lines, i)
-        try:
-            stmt = parse_statement(stmt_text, line_offset=lineno - 1)
-        except CalcError as exc:
-            if not collect:
-                raise SheetErrors([exc.diagnostic(path)], source) from None
-            diags.append(exc.diagnostic(path))
-            continue
-        extra = {}
-        if descs:
-            extra["description"] = " ".join(descs)
-        if comments:
-            extra["comment"] = " ".join(comments)
-        if extra:
-            stmt = dataclasses.replace(stmt, **extra)
+        if "--" in raw or "//" in raw:
+            code, desc, comment = strip_trailing(raw)
+        else:
+            code, desc, comment = raw, None, None
+        if (code.count("(") + code.count("[") <= code.count(")") + code.count("]") if '"' not in code
+                else bracket_delta(code) <= 0):  # a statement on one line: statement_lines' answer, directly
+            i += 1
+            stmt_text = code
+        else:
+            i, stmt_text, descs, comments = statement_lines(lines, i)
+            desc = " ".join(descs) if descs else None
+            comment = " ".join(comments) if comments else None
+        # a short statement the quick reader reads is what parse_statement gives (no size or depth limit
+        # reaches it); anything else, and every error, goes through parse_statement
+        stmt = quick(stmt_text, lineno - 1, desc, comment) if len(stmt_text) <= MAX_DEPTH else None
+        if stmt is None:
+            try:
+                stmt = parse_statement(stmt_text, line_offset=lineno - 1)
+            except CalcError as exc:
+                if not collect:
+                    raise SheetErrors([exc.diagnostic(path)], source) from None
+                diags.append(exc.diagnostic(path))
+                continue
+            if desc is not None or comment is not None:
+                extra = {}
+                if desc is not None:
+                    extra["description"] = desc
+                if comment is not None:
+                    extra["comment"] = comment
+                stmt = dataclasses.replace(stmt, **extra)
         body.append(stmt)
     flush_prose()
     sheet = N.Sheet(meta=tuple(meta.items()), body=tuple(body), path=path, source=source,

@@ -194,9 +194,15 @@ class HtmlMathPrinter(MathPrinter):
             parts.append(result)
         return parts
 
-    def check_parts(self, check: CheckResult, link=None, exact: dict | None = None) -> tuple[Html, Html]:
+    def check_symbol(self, check: CheckResult, link=None) -> Html:
+        """The check as the sheet wrote it: ``left ≤ right``."""
         cmp = _join((NNBSP, _CMP[check.op], THIN))
-        sym = _cat(_m(self.expr(check.left, link=link)), cmp, _m(self.expr(check.right, link=link)))
+        return _cat(_m(self.expr(check.left, link=link)), cmp, _m(self.expr(check.right, link=link)))
+
+    def check_parts(self, check: CheckResult, link=None, exact: dict | None = None) -> tuple[Html, Html]:
+        """The check as written, and with its values substituted."""
+        cmp = _join((NNBSP, _CMP[check.op], THIN))
+        sym = self.check_symbol(check, link)
         sub = _cat(_m(self.expr(check.shown_left or check.left, values=check.used, exact=exact)), cmp,
                    _m(self.expr(check.shown_right or check.right, values=check.used, exact=exact)))
         return sym, sub

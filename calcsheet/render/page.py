@@ -144,7 +144,7 @@ class PackageDocument(DocumentPrinter):
         self.extra_front = Html() if extra_front is None else extra_front  # the "changes since" page; a str is escaped
         self.changed = changed or set()
         self.watch_script = Html() if watch_script is None else watch_script
-        self.numbered = number_items(result.items)
+        self.numbered = self.number(result.items)
         self.exact = exact_inputs(result.items)
         self.appendix: list = []  # (owner, working title, records) of cross-checks, filled by body()
         # a plugin warning allowed with a reason is listed once, with the suppressed findings, not inline
@@ -152,6 +152,10 @@ class PackageDocument(DocumentPrinter):
                         - {d.message for d in result.diagnostics if not d.suppressed})
         self.checks = [i for i in self.numbered if isinstance(i, CheckResult)]
         self.anchors = {name: step.anchor for name, step in result.steps.items()}
+
+    def number(self, items: list) -> list:
+        """The records numbered for this package (``number_items``)."""
+        return number_items(items)
 
     def link(self, name: str):
         return self.anchors.get(name)
@@ -236,16 +240,7 @@ class PackageDocument(DocumentPrinter):
             status, cls = f"NG — {n_ng} of {len(checks)} checks not satisfied", "ng"
         else:
             status, cls = f"OK — all {len(checks)} checks satisfied", "ok"
-        rows = []
-        for c in checks:
-            sym, _ = self.printer.check_parts(c, self.link)
-            rows.append(Html(
-                '<tr class="{}"><td><a href="#{}">{}</a></td><td>{}</td><td class=\'math\'>{}</td>'
-                "<td class='numcol'>{}</td><td class='numcol'>{}</td><td class='numcol'>{}</td>"
-                "<td class='status'>{}</td></tr>").format(
-                "ok" if c.ok else "ng", c.anchor, c.number, c.description or sym, sym,
-                self.printer.value(c.demand), self.printer.value(c.capacity, _unit(c.demand)),
-                f"{c.ratio:.2f}" if c.ratio is not None else "—", "OK" if c.ok else "NG"))
+        rows = self.summary_rows(checks)
         table = (Html("<table class='summary'><thead><tr><th>Step</th><th>Check</th><th>Condition</th>"
                       "<th>Demand</th><th>Capacity</th><th>Ratio</th><th></th></tr></thead><tbody>{}"
                       "</tbody></table>").format(Html("").join(rows))
@@ -253,6 +248,21 @@ class PackageDocument(DocumentPrinter):
         return _FRONT.format(title=self.meta.get("subject") or Path(r.path).stem, project=self.meta.get("project", ""),
                              cls=cls, status=status, table=table, revs=self.revisions(), caution=CAUTION,
                              signoff=self.signoff(), basis=self.design_basis())
+
+    def summary_rows(self, checks: list) -> list[Html]:
+        """The summary's rows, one a check (a list, so the live preview can reuse the rows a save left alone)."""
+        return [self.summary_row(c) for c in checks]
+
+    def summary_row(self, c: CheckResult) -> Html:
+        """One check's row of the summary table."""
+        sym = self.printer.check_symbol(c, self.link)
+        return Html(
+            '<tr class="{}"><td><a href="#{}">{}</a></td><td>{}</td><td class=\'math\'>{}</td>'
+            "<td class='numcol'>{}</td><td class='numcol'>{}</td><td class='numcol'>{}</td>"
+            "<td class='status'>{}</td></tr>").format(
+            "ok" if c.ok else "ng", c.anchor, c.number, c.description or sym, sym,
+            self.printer.value(c.demand), self.printer.value(c.capacity, _unit(c.demand)),
+            f"{c.ratio:.2f}" if c.ratio is not None else "—", "OK" if c.ok else "NG")
 
     def signoff(self) -> Html:
         """Prepared / checked / approved, with names and dates from the front matter."""
@@ -305,8 +315,11 @@ class PackageDocument(DocumentPrinter):
                     "<th>By</th><th>Description</th></tr></thead><tbody>{}</tbody></table>").format(Html("").join(rows))
 
     def body(self) -> Html:
-        return Html("\n").join([Html('<section class="calc">'), *(self.record(i) for i in self.numbered),
-                                Html("</section>")])
+        return Html("\n").join([Html('<section class="calc">'), *self.blocks(self.numbered), Html("</section>")])
+
+    def blocks(self, items: list) -> list[Html]:
+        """The printed records of the calculation, in order (a list, as ``summary_rows``)."""
+        return [self.record(i) for i in items]
 
     # ------------------------------------------------------------ trace records
     def _print_Heading(self, item: Heading, inner: bool = False) -> Html:
@@ -431,19 +444,7 @@ class PackageDocument(DocumentPrinter):
     # ------------------------------------------------------------ back matter
     def inputs_list(self) -> Html:
         r = self.result
-        rows = []
-        for name in r.inputs:
-            step = r.steps.get(name)
-            if step is None:
-                continue
-            mark = Html()
-            if step.overridden is not None:
-                mark = Html("<span class='mark override'>set for this build (sheet: {})</span>").format(
-                    self.printer.value(step.overridden, step.display_unit))
-            rows.append(Html("<tr><td><a href='#{}'>{}</a></td><td>{}</td><td class='numcol'>{}</td><td>{}</td></tr>"
-                             ).format(anchor_id(step.anchor), self.printer.m_name(name), step.description or "",
-                                      self.printer.expr(self.exact[name]) if name in self.exact
-                                      else self.printer.value(step.value, step.display_unit), mark))
+        rows = self.input_rows([name for name in r.inputs if name in r.steps])
         for step in r.steps.values():  # the literal values a sheet passes to a plugin are inputs too
             if isinstance(step.expr, N.PluginCall):
                 for kw in step.expr.kwargs:
@@ -464,6 +465,22 @@ class PackageDocument(DocumentPrinter):
         return Html("<section class='inputs'><h2 class='sec' id='inputs'>Inputs</h2><table class='inputs'><thead><tr>"
                     "<th>Symbol</th><th>Description</th><th>Value</th><th></th></tr></thead><tbody>{}"
                     "</tbody></table>{}</section>").format(Html("").join(rows), sup)
+
+    def input_rows(self, names: list[str]) -> list[Html]:
+        """The inputs table's rows, one an input (a list, as ``summary_rows``)."""
+        steps = self.result.steps
+        return [self.input_row(name, steps[name]) for name in names]
+
+    def input_row(self, name: str, step: Step) -> Html:
+        """One input's row of the inputs table: its value as the sheet wrote it (or as set for this build)."""
+        mark = Html()
+        if step.overridden is not None:
+            mark = Html("<span class='mark override'>set for this build (sheet: {})</span>").format(
+                self.printer.value(step.overridden, step.display_unit))
+        return Html("<tr><td><a href='#{}'>{}</a></td><td>{}</td><td class='numcol'>{}</td><td>{}</td></tr>"
+                    ).format(anchor_id(step.anchor), self.printer.m_name(name), step.description or "",
+                             self.printer.expr(self.exact[name]) if name in self.exact
+                             else self.printer.value(step.value, step.display_unit), mark)
 
     def diagnostics(self) -> Html:
         diags = [d for d in self.result.diagnostics if not d.suppressed]

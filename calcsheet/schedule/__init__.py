@@ -123,7 +123,7 @@ def _tasks(sheet: SheetInfo, rows: Iterable[Row], out_dir: Path, formats: list[s
             continue
         yield row, Task(index=index, sheet=sheet.path, source=sheet.source, member=row.member, cells=tuple(cells),
                         formats=tuple(formats), paper=paper, content_hash=h, label=label, where=row.where,
-                        subject_suffix=f"member {row.member}", write_to=str(out_dir))
+                        subject_suffix=f"member {row.member}", write_to=str(out_dir), stage=True)
 
 
 def _unchanged_files(out_dir: Path, member: str, formats: list[str], h: str) -> bool:
@@ -145,7 +145,9 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
 
     ``runner(log)`` may supply the function that turns items into outcomes (embedding, tests).
     """
+    from ..atomic import STALE_SECONDS, sweep_staged
     from .output import ScheduleWriter, load_previous, write_member
+    from .work import commit_member
 
     sheet = load_sheet(sheet_path)
     if sheet.errors:
@@ -158,6 +160,7 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
         if name not in sheet.inputs:
             raise ScheduleError("--set", f"{name!r} is not an input of the sheet")
     out_dir.mkdir(parents=True, exist_ok=True)
+    sweep_staged(out_dir, older_than=STALE_SECONDS)  # left by a build that was killed
     previous, labels = ({}, {}) if force else load_previous(out_dir)
     total = None
     bar_on = sys.stderr.isatty() if progress is None else progress
@@ -177,18 +180,26 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
             yield item
 
     run = runner(bar.log) if runner else executor(jobs, cluster, "pdf" in formats, bar.log)
+    outcomes = run(items())
     try:
-        for outcome in run(items()):
+        for outcome in outcomes:
             row = rows_by_index.pop(outcome.index)
             for w in outcome.warnings:
                 if "built on attempt" in w or "worker died" in w:
                     bar.log(w)
+            if outcome.staged:  # staged by the worker (serial runs and the pool): fsynced and renamed here
+                try:
+                    summary.files += commit_member(outcome.staged)
+                except OSError as exc:
+                    outcome.ok = False
+                    outcome.errors.append(f"{row.where}: error: cannot write the package of {row.member}: {exc}")
+                outcome.staged = []
             for e in outcome.errors:
                 bar.log(e)
-            summary.files += outcome.written  # written by the worker (serial runs and the pool)
+            summary.files += outcome.written  # written by the worker itself
             if outcome.ok and not outcome.skipped and outcome.files:  # returned as bytes (a cluster's workers)
                 try:
-                    summary.files += len(write_member(out_dir, outcome))
+                    summary.files += len(write_member(out_dir, outcome, sync_folder=False))  # synced at the end
                 except OSError as exc:
                     outcome.ok = False
                     outcome.errors.append(f"{row.where}: error: cannot write the package of {row.member}: {exc}")
@@ -206,6 +217,12 @@ def build_schedule(sheet_path: Path, table: Path, out_dir: Path, formats: list[s
                 else:
                     summary.built += 1
             bar.step()
+    except BaseException:
+        close = getattr(outcomes, "close", None)
+        if close is not None:
+            close()  # the runner stops its workers; then nothing is left half-way
+        sweep_staged(out_dir)
+        raise
     finally:
         bar.close()
     summary.schedule_files = writer.close()

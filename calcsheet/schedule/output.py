@@ -17,6 +17,7 @@ from pathlib import Path
 
 from .. import __version__
 from ..atomic import atomic_stream, write_atomic
+from ..atomic import sync_folder as sync_out_dir
 from ..render import schedule as RS
 from .work import CheckLine, Outcome
 
@@ -26,11 +27,12 @@ N_BINS = 16  # 0.0–1.5 and ≥ 1.5
 MAX_ERRORS_LISTED = 50
 
 
-def write_member(out_dir: Path, outcome: Outcome) -> list[Path]:
-    """Write the rendered files an outcome carries (a cluster's, or sizing's), each atomically."""
+def write_member(out_dir: Path, outcome: Outcome, sync_folder: bool = True) -> list[Path]:
+    """Write the rendered files an outcome carries (a cluster's, or sizing's), each atomically
+    (``sync_folder=False``: the caller syncs ``out_dir`` at the end, as ``ScheduleWriter.close`` does)."""
     from .work import write_member as write
 
-    return write(out_dir, outcome.member, outcome.files)
+    return write(out_dir, outcome.member, outcome.files, sync_folder)
 
 
 def record_of(outcome: Outcome, row: int, where: str, formats: list[str]) -> dict:
@@ -123,9 +125,13 @@ class ScheduleWriter:
                 yield json.loads(line)
 
     def close(self) -> list[Path]:
+        """Write the schedule package, then sync the output folder once: every member's files (renamed into
+        it as they arrived, each whole) and the schedule's own files are then durable together."""
         self.spool.close()
         try:
-            return self._write_all()
+            written = self._write_all()
+            sync_out_dir(self.out_dir)
+            return written
         finally:
             try:
                 os.unlink(self.spool_path)

@@ -12,7 +12,7 @@ import sys
 from collections import deque
 from typing import Callable, Iterable, Iterator
 
-from .work import Outcome, Task, build_task, init_worker
+from .work import Outcome, Task, build_task, init_worker, prepare
 
 CHUNK = 2  # rows per round trip to a pool worker (small: the last round trips leave a worker idle)
 RETRIES = 2  # a row whose worker process died is run again this many times before it is reported as failed
@@ -65,9 +65,13 @@ def run_pool(items: Iterable, jobs: int, *, pdf: bool = False, log: Callable[[st
     window = window or 2 * jobs + 2
     chunk = max(1, chunk)
     ctx = pool_context()
+    forked = ctx.get_start_method() == "fork"
+    if forked:
+        prepare(pdf)  # once, here: the workers inherit it and start at once
 
     def new_pool():
-        return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx, initializer=init_worker, initargs=(pdf,))
+        return ProcessPoolExecutor(max_workers=jobs, mp_context=ctx, initializer=init_worker,
+                                   initargs=(pdf, forked))
 
     pool = new_pool()
     pending: deque = deque()  # [Outcome] (known already) or [tasks, future, attempts]

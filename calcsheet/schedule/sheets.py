@@ -57,13 +57,17 @@ def build_sheets(args, formats: list[str], overrides: dict, jobs: int) -> int:
     from concurrent.futures import ProcessPoolExecutor
 
     from .runner import pool_context
-    from .work import init_worker
+    from .work import init_worker, prepare
 
     sheets = [str(s) for s in args.sheets]
     if jobs <= 1:
         return _report(sheets, (build_one(s, overrides, str(args.out), formats, args.paper) for s in sheets), args)
-    with ProcessPoolExecutor(max_workers=min(jobs, len(sheets)), mp_context=pool_context(),
-                             initializer=init_worker, initargs=("pdf" in formats,)) as pool:
+    ctx = pool_context()
+    forked = ctx.get_start_method() == "fork"
+    if forked:
+        prepare("pdf" in formats)  # the workers inherit it (each loads the plugins its sheets call)
+    with ProcessPoolExecutor(max_workers=min(jobs, len(sheets)), mp_context=ctx,
+                             initializer=init_worker, initargs=("pdf" in formats, forked)) as pool:
         futures = deque(pool.submit(build_one, s, overrides, str(args.out), formats, args.paper) for s in sheets)
         return _report(sheets, (futures.popleft().result() for _ in sheets), args)
 

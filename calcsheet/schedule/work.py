@@ -33,6 +33,7 @@ class Task:
     extra_front: str = ""  # an escaped HTML page put after the summary (auto-sizing's selection page)
     extra_json: tuple = ()  # (key, JSON-able value) pairs added to the package's JSON
     write_to: str = ""  # when set, the worker writes the member's files into this folder and returns none
+    stage: bool = False  # with write_to: the worker only stages the files (Outcome.staged); the caller commits
 
 
 @dataclass
@@ -58,6 +59,7 @@ class Outcome:
     content_hash: str = ""
     worker: str = ""  # which worker built it (cluster runs)
     written: int = 0  # files the worker wrote itself (Task.write_to)
+    staged: list = field(default_factory=list)  # (staged file, target) pairs for the caller to commit (Task.stage)
 
     @property
     def all_ok(self) -> bool:
@@ -122,25 +124,38 @@ def content_hash(fingerprint: dict, member: str, overrides: dict[str, str], pape
 _WORKER_READY = False
 
 
-def init_worker(pdf: bool = False) -> None:
-    """Pool initializer: import pint, lark and (when PDFs are written) WeasyPrint once per process,
-    and build the unit registry, the grammar and the plugin table before the first row arrives."""
-    global _WORKER_READY
+def prepare(pdf: bool = False) -> None:
+    """What every row needs, made ready in this process: pint and the unit registry, the statement reader
+    and (when PDFs are written) WeasyPrint. A pool that forks its workers calls this first, so each worker
+    starts with it all in place (shared with this process) instead of building it again."""
     import pint  # noqa: F401
 
     from .. import engine, units  # the engine imports the parser, the one module that imports lark
-    from ..plugin import default_registry
 
     units.registry()
-    engine.parse_statement("x = 1 m")  # builds the statement grammar
-    reg = default_registry()
-    for name in reg.names():
-        try:
-            reg.namespace(name)
-        except Exception:  # reported, located, by the sheet that calls it
-            pass
+    engine.parse_statement("x = 1 m")  # makes the statement reader ready
     if pdf:
         import weasyprint  # noqa: F401
+
+
+def init_worker(pdf: bool = False, forked: bool = False) -> None:
+    """Pool initializer, before the first row arrives.
+
+    A worker forked from a process that ran ``prepare`` has everything already: it starts at once (the
+    plugins the sheet calls were loaded by the calling process when it checked the sheet). A fresh
+    interpreter (spawned, or a cluster worker) imports and builds it all here, every plugin included.
+    """
+    global _WORKER_READY
+    if not forked:
+        from ..plugin import default_registry
+
+        prepare(pdf)
+        reg = default_registry()
+        for name in reg.names():
+            try:
+                reg.namespace(name)
+            except Exception:  # reported, located, by the sheet that calls it
+                pass
     _WORKER_READY = True
 
 
@@ -255,7 +270,10 @@ def build_task(task: Task) -> Outcome:
             return out
     if task.write_to:
         try:
-            out.written = len(write_member(Path(task.write_to), task.member, out.files))
+            if task.stage:  # the caller commits them (fsync, rename), one process for every worker's files
+                out.staged = stage_member(Path(task.write_to), task.member, out.files)
+            else:  # the schedule syncs its output folder once, when it ends (ScheduleWriter.close)
+                out.written = len(write_member(Path(task.write_to), task.member, out.files, sync_folder=False))
         except OSError as exc:
             out.errors.append(f"{task.where}: error: cannot write the package of {task.member}: {exc}")
             return out
@@ -265,20 +283,56 @@ def build_task(task: Task) -> Outcome:
     return out
 
 
-def write_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Path]:
-    """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written."""
-    from ..atomic import write_atomic
-
-    written = []
+def _member_paths(out_dir: Path, member: str, files: dict[str, bytes]) -> list[Path]:
+    paths = []
     for fmt in ("html", "pdf", "json"):
-        data = files.get(fmt)
-        if data is None:
+        if files.get(fmt) is None:
             continue
         path = out_dir / f"{member}.{fmt}"
         if path.resolve().parent != out_dir.resolve():  # member names are validated; this is a second lock
             raise OSError(f"refusing to write outside the output folder: {path}")
-        write_atomic(path, data)
-        written.append(path)
+        paths.append(path)
+    return paths
+
+
+def stage_member(out_dir: Path, member: str, files: dict[str, bytes]) -> list[tuple[str, str]]:
+    """Stage a member's rendered files beside their targets (``atomic.stage_file``): (staged, target) pairs,
+    for ``commit_member``. On failure nothing stays staged."""
+    from ..atomic import discard_staged, stage_file
+
+    staged: list[tuple[str, str]] = []
+    try:
+        for path in _member_paths(out_dir, member, files):
+            staged.append((str(stage_file(path, files[path.suffix[1:]])), str(path)))
+    except BaseException:
+        discard_staged([tmp for tmp, _ in staged])
+        raise
+    return staged
+
+
+def commit_member(staged: list[tuple[str, str]]) -> int:
+    """Commit a member's staged files (fsync, rename over the target, each whole); how many. On failure the
+    files not yet committed are discarded and the error raised."""
+    from ..atomic import commit_staged, discard_staged
+
+    done = 0
+    try:
+        for tmp, path in staged:
+            commit_staged(Path(tmp), Path(path))
+            done += 1
+    except BaseException:
+        discard_staged([tmp for tmp, _ in staged[done:]])
+        raise
+    return done
+
+
+def write_member(out_dir: Path, member: str, files: dict[str, bytes], sync_folder: bool = True) -> list[Path]:
+    """Write a member's rendered files (each atomically); only names directly in ``out_dir`` are written.
+    ``sync_folder=False``: the caller syncs ``out_dir`` once it has written every member there."""
+    from ..atomic import write_atomic_files
+
+    written = _member_paths(out_dir, member, files)
+    write_atomic_files([(path, files[path.suffix[1:]]) for path in written], sync_folders=sync_folder)
     return written
 
 

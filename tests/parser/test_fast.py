@@ -75,6 +75,13 @@ def test_the_quick_reader_is_on_for_this_grammar():
     "M_ss(w [kN/m], L [m]) [kN*m] = w*L^2/8",
     "g( a , b [ mm ] ) = a * b",
     "k(n [1]) = n + 1",
+    "L = [3.6 m, 4.2 m, 4.5 m]",  # lists
+    "s = section.built_up(parts=[web, cover], detail=\"brief\")",
+    "b = beam.solve(spans=[6.0 m, 4.8 m], loads=[beam.udl(w=w_u)])",
+    "e = []",
+    "l = [3 m]",
+    "t = [a, b,] ",
+    "n = max([1 m, 2 m]) + [a, [b, c]].x",
 ])
 def test_everyday_statements_are_read_quickly_and_identically(text):
     assert agree(text, 41)
@@ -96,7 +103,10 @@ def test_statements_over_several_lines_keep_lark_positions(text):
     "f(check) = 1",
     "f(x) == x",
     "p = (1 m, 2 m)",  # a point
-    "l = [a, b]",  # a list
+    "l = [a]",  # a list of one item reads like a declared unit
+    "l = [,]",
+    "l = [a,,b]",
+    "l = [a b]",
     "x = 1e999",  # overflow: the grammar's callback words it
     "x = 1e-999",
     "x = " + "9" * 45,

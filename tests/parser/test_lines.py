@@ -67,3 +67,47 @@ def test_unclosed_bracket_does_not_swallow_the_next_definition():
 def test_huge_sheet_is_refused():
     with pytest.raises(SheetErrors):
         parse_sheet("x = 1\n" * 400_000)
+
+
+def _strip_by_characters(line: str):
+    """The rule read one character at a time (the oracle): outside a string, the first ``//`` starts the
+    comment; the first ``--`` starts the description, which runs to the next ``//`` (quoted or not)."""
+    in_str = False
+    desc_at = comment_at = None
+    for i, ch in enumerate(line):
+        if ch == '"':
+            in_str = not in_str
+        elif not in_str and line.startswith("//", i):
+            comment_at = i
+            break
+        elif not in_str and line.startswith("--", i):
+            desc_at = i
+            j = line.find("//", i + 2)
+            comment_at = j if j >= 0 else None
+            break
+    code_end = min(x for x in (desc_at, comment_at, len(line)) if x is not None)
+    desc = line[desc_at + 2:comment_at if comment_at is not None else len(line)].strip() or None \
+        if desc_at is not None else None
+    comment = line[comment_at + 2:].strip() or None if comment_at is not None else None
+    return line[:code_end] + " " * (len(line) - code_end), desc, comment
+
+
+@pytest.mark.parametrize("line", [
+    'x = 1 m -- span // why', 'x = "a--b" -- d', 'x = "a//b" // c', 'x = "open -- d', '-//', '--/', '/--',
+    'x = "a" "b" -- d', '"--"--"//"', 'q = "x" // c -- not a description', '---', '////', 'x = 1',
+])
+def test_descriptions_and_comments_are_cut_where_a_character_by_character_reading_cuts_them(line):
+    from calcsheet.parser.lines import strip_trailing
+
+    assert strip_trailing(line) == _strip_by_characters(line)
+
+
+def test_descriptions_and_comments_cut_alike_on_generated_lines():
+    import random
+
+    from calcsheet.parser.lines import strip_trailing
+
+    rng = random.Random(15)
+    for _ in range(20_000):
+        line = "".join(rng.choice('"/- ax') for _ in range(rng.randint(0, 12)))
+        assert strip_trailing(line) == _strip_by_characters(line), line

@@ -107,7 +107,8 @@ def properties(shape, x_ref: float | None = None, y_ref: float | None = None) ->
     y_top, y_bot = y_max - b.y_c, b.y_c - y_min
     x_left, x_right = b.x_c - x_min, x_max - b.x_c
     Zx, y_p = P.plastic_modulus(rings)
-    Zy, x_p = P.plastic_modulus_y(rings)
+    swapped = P._swap(rings)  # x and y exchanged: the y-axis properties as the x-axis ones of this (mirrored once)
+    Zy, x_p = P.plastic_modulus(swapped)  # P.plastic_modulus_y
     out = dict(
         A=b.A, x_c=b.x_c, y_c=b.y_c, I_x=b.I_x, I_y=b.I_y, I_xy=b.I_xy, I_1=I1, I_2=I2, theta_p=th,
         y_top=y_top, y_bot=y_bot, x_left=x_left, x_right=x_right, y_min=y_min, y_max=y_max, x_min=x_min,
@@ -116,7 +117,7 @@ def properties(shape, x_ref: float | None = None, y_ref: float | None = None) ->
         Z_x=Zx, Z_y=Zy, y_p=y_p, x_p=x_p,
         r_x=math.sqrt(b.I_x / b.A), r_y=math.sqrt(b.I_y / b.A), r_min=math.sqrt(max(I2, 0.0) / b.A),
         Q_x=P.first_moment_above(rings, b.y_c), t_x=P.width_at(rings, b.y_c, weighted=True),
-        Q_y=P.first_moment_above_y(rings, b.x_c), t_y=P.width_at_x(rings, b.x_c, weighted=True),
+        Q_y=P.first_moment_above(swapped, b.x_c), t_y=P.width_at(swapped, b.x_c, weighted=True),  # _y, _at_x
         J=shape.J, depth=y_max - y_min, width=x_max - x_min, mass=mass_per_length(shape.rows),
     )
     out["S_x"] = min(out["S_x_top"], out["S_x_bot"])

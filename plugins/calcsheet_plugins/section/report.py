@@ -30,8 +30,25 @@ def unit(text: str):
     return U.registry().Unit(text)
 
 
+@lru_cache(maxsize=None)
+def _quantity_parts(unit_text: str):
+    """The registry's quantity class and the units container of ``unit_text`` (looked up once per unit)."""
+    return U.registry().Quantity, unit(unit_text)._units
+
+
 def _q(value: float, unit_text: str):
-    return U.registry().Quantity(float(value), unit(unit_text))
+    """``registry().Quantity(float(value), unit(unit_text))``, the same object made directly.
+
+    pint's constructor, given a float and a unit, stores exactly these two attributes; on the way it creates
+    a throw-away registry object and runs an import statement per quantity, which made it the larger part of a
+    built-up section's parts tables (hundreds of cells). tests/plugins/section/test_section_quantities.py holds
+    the two constructions equal.
+    """
+    cls, units = _quantity_parts(unit_text)
+    q = object.__new__(cls)
+    q._magnitude = float(value)
+    q._units = units
+    return q
 
 
 def _mm(q) -> float | None:
@@ -127,7 +144,8 @@ def _table_steps(work, shape, transformed: bool) -> None:
         label = _label(r)
         body_x.append([label, _q(vals[0], "mm^4"), _q(dy, "mm"), _q(vals[1], "mm^4"), _q(vals[0] + vals[1], "mm^4")])
         body_y.append([label, _q(vals[2], "mm^4"), _q(dx, "mm"), _q(vals[3], "mm^4"), _q(vals[2] + vals[3], "mm^4")])
-        body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
+        if product:  # the table of products is shown only then
+            body_p.append([label, _q(vals[4], "mm^4"), _q(dx, "mm"), _q(dy, "mm"), _q(vals[5], "mm^4")])
     times_n = "; Iₒ and A count n times" if tr else ""
     work.table("Parts table: second moments about the centroidal x axis (parallel-axis theorem)",
                ["Part", "I_o,x,i", "d_y,i", "A_i·d_y,i²", "I_x,i"], body_x,
