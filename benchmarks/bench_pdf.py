@@ -185,7 +185,8 @@ def bench_pdf_per_page(n_lines: int) -> bool:
     plain = plain_document(page)
     ours_pages = _pages(pdf_bytes(page))
     plain_pages = _pages(weasyprint.HTML(string=plain, url_fetcher=make_fetcher()).write_pdf())
-    # garbage is collected (untimed) before every run, so neither side pays for what the other left
+    # garbage is collected (untimed) before every run: neither side pays for what the other left, and each
+    # document, garbage once written, is freed outside the timing on both sides alike
     ours, base = paired(lambda: pdf_bytes(page), lambda: weasyprint.HTML(string=plain, url_fetcher=make_fetcher())
                         .write_pdf(), repeat=3, warm=False, between=gc.collect)
     print(f"{n_lines}-line sheet: package {ours_pages} pages in {ours:.2f} s; plain document {plain_pages} pages "
