@@ -109,7 +109,9 @@ def pdf_bytes(html: str) -> bytes:
         rendered = render(html)
         if len(rendered.pages) > cap:
             raise _too_many_pages(len(rendered.pages), "")
-        return rendered.write_pdf()
+        pdf = rendered.write_pdf()
+        del rendered  # collected as the block ends
+    return pdf
 
 
 def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None, *, html=None,

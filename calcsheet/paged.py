@@ -73,7 +73,9 @@ def few_collections():
     A layout makes millions of small objects, nearly all alive until the PDF is written; with the default
     thresholds the collector walks them (and everything the process held before, the sheet's result and the
     unit registry included) again and again, for a quarter or more of the time of a PDF. Here what lives
-    before the layout is frozen (never walked) and the thresholds are raised; both are put back after."""
+    before the layout is frozen (never walked) and the thresholds are raised; both are put back after. The
+    laid-out document (a web of cycles) is garbage once dropped; the collector frees it on its usual
+    schedule after the block, as it would have without it (a chunked layout frees each chunk at once)."""
     freeze = not gc.get_freeze_count()
     old = gc.get_threshold()
     if freeze:
