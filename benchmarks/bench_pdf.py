@@ -176,7 +176,7 @@ def _pages(pdf: bytes) -> int:
 def bench_pdf_per_page(n_lines: int) -> bool:
     import weasyprint
 
-    from calcsheet import paged
+    from calcsheet import collector
     from calcsheet.package import make_fetcher, pdf_bytes
 
     result = calcsheet.run(make_sheet(n_lines), path="bench.calc")
@@ -194,11 +194,11 @@ def bench_pdf_per_page(n_lines: int) -> bool:
     ok = report("PDF seconds per page ÷ plain WeasyPrint document", (ours / ours_pages) / (base / plain_pages),
                 1.5, note=f"{ours / ours_pages:.3f} s/page against {base / plain_pages:.3f}")
 
-    # The package lays out with few garbage collections (paged.few_collections); the figure above compares it
+    # The package lays out with few garbage collections (collector.layout_pause); the figure above compares it
     # with WeasyPrint as a plain call runs it. This one gives the plain document the same collections, so what
     # is left is the cost of the package's markup and stylesheet alone.
     def plain_few():
-        with paged.few_collections():
+        with collector.layout_pause():
             return weasyprint.HTML(string=plain, url_fetcher=make_fetcher()).write_pdf()
 
     ours, base = paired(lambda: pdf_bytes(page), plain_few, repeat=3, warm=False, between=gc.collect)

@@ -21,7 +21,8 @@ import pint
 from . import nodes as N
 from . import units as U
 from .checker import Checker
-from .engine import Result, _check_text, fewer_collections, parse_override, run
+from . import collector
+from .engine import Result, _check_text, parse_override, run
 from .errors import CalcError, Diagnostic
 from .builtins import CONSTANTS
 from .evaluator import Evaluator, SheetFunction, evaluate_statement
@@ -49,7 +50,7 @@ class _FullRun(Exception):
 
 def recompute(previous: Result, overrides: dict[str, Any] | None, *, plugins=None) -> Rebuild:
     """The previous run with a new set of overrides, re-evaluating only what they reach."""
-    with fewer_collections():  # as a full run: no collection walks the heap meanwhile
+    with collector.run_pause():  # as a full run: no collection walks the heap meanwhile
         return _recompute(previous, overrides, plugins)
 
 
@@ -72,7 +73,7 @@ def _recompute(previous: Result, overrides: dict[str, Any] | None, plugins) -> R
 def rebuild(previous: Result | None, source: str, *, overrides: dict[str, Any] | None = None,
             plugins=None) -> Rebuild:
     """The sheet after an edit; when only input lines changed, only their dependents are evaluated."""
-    with fewer_collections():  # as a full run: no collection walks the heap meanwhile
+    with collector.run_pause():  # as a full run: no collection walks the heap meanwhile
         return _rebuild(previous, source, overrides, plugins)
 
 
