@@ -26,11 +26,12 @@ def best(fn, repeat: int = 3) -> float:
     return min(times)
 
 
-def paired(ours, baseline, repeat: int = 5, warm: bool = True) -> tuple[float, float]:
+def paired(ours, baseline, repeat: int = 5, warm: bool = True, between=None) -> tuple[float, float]:
     """Median seconds of ``ours`` and of ``baseline``, measured by the same method in the same run.
 
     Both are warmed once (when ``warm``), then timed ``repeat`` times each, alternating which runs first, so
-    a slow patch of the machine hits both sides alike.
+    a slow patch of the machine hits both sides alike. ``between`` (untimed) runs before every timed call of
+    either side: e.g. ``gc.collect``, so neither side pays for the garbage the other left.
     """
     if warm:
         ours()
@@ -39,6 +40,8 @@ def paired(ours, baseline, repeat: int = 5, warm: bool = True) -> tuple[float, f
     for i in range(repeat):
         pair = ((ours, a), (baseline, b)) if i % 2 == 0 else ((baseline, b), (ours, a))
         for fn, times in pair:
+            if between is not None:
+                between()
             t = time.perf_counter()
             fn()
             times.append(time.perf_counter() - t)

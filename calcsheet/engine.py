@@ -6,18 +6,15 @@ skipped rather than reported again.
 """
 from __future__ import annotations
 
-import gc
 import hashlib
 import os
-import threading
-from contextlib import contextmanager
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
 import pint
 
-from . import __version__
+from . import __version__, collector
 from . import nodes as N
 from . import trace as TR
 from . import units as U
@@ -152,51 +149,9 @@ def parse_override(name: str, text: str) -> N.Expr:
     return stmt.expr
 
 
-_GC_LOCK = threading.Lock()
-_GC_DEPTH = 0
-_GC_WAS_ENABLED = True
-RUN_GC_THRESHOLD = 50_000  # new objects after which a finished run's objects move to the oldest generation
-
-
-@contextmanager
-def fewer_collections():
-    """While a sheet runs (or is only checked), the cyclic garbage collector does not.
-
-    A run allocates many objects that stay alive to its end (nodes, spans, types, records, quantities) and
-    leaves no reference cycles (the folder and the plugin host hold their owners weakly), so a collection
-    during a run frees nothing: it only walks the growing heap, again for each generation an object passes
-    through (a third of a 3·10⁴-line run, 10 % of a check at 10⁴ lines and near 30 % at 10⁵, a cost that grows
-    faster than the sheet). The collector is switched off when the first of any concurrent runs starts and
-    put back as it was when the last ends. After a large run (at least ``RUN_GC_THRESHOLD`` new objects)
-    ``gc.freeze()`` then ``gc.unfreeze()`` move every tracked object into the oldest generation (a splice of
-    lists, no walk, the young counts reset), so the next young collection, in whatever the caller does next,
-    does not walk them; a cycle among them is freed by the next full collection. After a small run (the live
-    preview's one changed line) the young generation is left as it is, for the next young collection, so a
-    watch process does not push each save's garbage out of the young generations. A process that froze
-    objects itself (a pre-fork server, a PDF laid out in chunks) keeps them frozen (then nothing is moved).
-    """
-    global _GC_DEPTH, _GC_WAS_ENABLED
-    with _GC_LOCK:
-        if _GC_DEPTH == 0:
-            _GC_WAS_ENABLED = gc.isenabled()
-            gc.disable()
-        _GC_DEPTH += 1
-    try:
-        yield
-    finally:
-        with _GC_LOCK:
-            _GC_DEPTH -= 1
-            if _GC_DEPTH == 0:
-                if gc.get_count()[0] >= RUN_GC_THRESHOLD and gc.get_freeze_count() == 0:
-                    gc.freeze()
-                    gc.unfreeze()
-                if _GC_WAS_ENABLED:
-                    gc.enable()
-
-
 def run(path_or_text, overrides: dict[str, Any] | None = None, *, path: str | None = None,
         plugins: PluginRegistry | None = None, evaluate: bool = True) -> Result:
-    with fewer_collections():
+    with collector.run_pause():
         return _run(path_or_text, overrides, path=path, plugins=plugins, evaluate=evaluate)
 
 

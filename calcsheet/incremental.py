@@ -10,6 +10,7 @@ the one a full run would give.
 """
 from __future__ import annotations
 
+import bisect
 import copy
 import dataclasses
 from dataclasses import dataclass, field
@@ -20,6 +21,7 @@ import pint
 from . import nodes as N
 from . import units as U
 from .checker import Checker
+from . import collector
 from .engine import Result, _check_text, parse_override, run
 from .errors import CalcError, Diagnostic
 from .builtins import CONSTANTS
@@ -48,6 +50,11 @@ class _FullRun(Exception):
 
 def recompute(previous: Result, overrides: dict[str, Any] | None, *, plugins=None) -> Rebuild:
     """The previous run with a new set of overrides, re-evaluating only what they reach."""
+    with collector.run_pause():  # as a full run: no collection walks the heap meanwhile
+        return _recompute(previous, overrides, plugins)
+
+
+def _recompute(previous: Result, overrides: dict[str, Any] | None, plugins) -> Rebuild:
     overrides = dict(overrides or {})
     try:
         if not _clean(previous):
@@ -66,6 +73,11 @@ def recompute(previous: Result, overrides: dict[str, Any] | None, *, plugins=Non
 def rebuild(previous: Result | None, source: str, *, overrides: dict[str, Any] | None = None,
             plugins=None) -> Rebuild:
     """The sheet after an edit; when only input lines changed, only their dependents are evaluated."""
+    with collector.run_pause():  # as a full run: no collection walks the heap meanwhile
+        return _rebuild(previous, source, overrides, plugins)
+
+
+def _rebuild(previous: Result | None, source: str, overrides: dict[str, Any] | None, plugins) -> Rebuild:
     overrides = dict(overrides or {})
     source = source.replace("\r\n", "\n").replace("\r", "\n")
     if source.startswith("\ufeff"):
@@ -122,8 +134,7 @@ def _edited_inputs(previous: Result, source: str, plugins) -> tuple[dict[str, N.
     inputs = set(res.inputs)
     owners: dict[str, N.Definition] = {}
     for line in changed:
-        owner = next((s for s in previous.sheet.body if isinstance(s, N.Definition) and s.span is not None
-                      and s.span.line <= line <= s.span.end_line), None)
+        owner = _owner(previous.sheet.body, line)
         if owner is None or owner.name not in inputs:
             raise _FullRun(f"line {line} is not an input definition")
         owners[owner.name] = owner
@@ -158,6 +169,21 @@ def _edited_inputs(previous: Result, source: str, plugins) -> tuple[dict[str, N.
         new_stmts[name] = new
     body = tuple(new_stmts.get(s.name, s) if isinstance(s, N.Definition) else s for s in previous.sheet.body)
     return new_stmts, dataclasses.replace(previous.sheet, body=body, source=source)
+
+
+def _owner(body, line: int) -> N.Definition | None:
+    """The definition whose lines hold ``line``, or None.
+
+    Statements stand in the order of their lines and never overlap, so the last one starting at or before
+    ``line`` is found by bisection; a body out of that order (a statement without a place) is searched whole.
+    """
+    def covers(s):
+        return isinstance(s, N.Definition) and s.span is not None and s.span.line <= line <= s.span.end_line
+
+    at = bisect.bisect_right(body, line, key=lambda s: s.span.line if s.span is not None else 0) - 1
+    if at >= 0 and covers(body[at]):
+        return body[at]
+    return next((s for s in body if covers(s)), None)
 
 
 def _registry():

@@ -11,7 +11,7 @@ from __future__ import annotations
 import os
 from pathlib import Path
 
-from . import paged, reading
+from . import collector, paged, reading
 from .atomic import publish_package
 from .render.json import JsonPrinter, dumps
 from .render.page import ASSETS, PackageDocument
@@ -101,7 +101,7 @@ def pdf_bytes(html: str) -> bytes:
         doc = weasyprint.HTML(string=text, base_url=str(ASSETS) + os.sep, url_fetcher=make_fetcher())
         return doc.render(stylesheets=stylesheets + list(extra))
 
-    with paged.few_collections():  # the layout's objects are not walked by the collector again and again
+    with collector.layout_pause():  # the layout's objects are not walked by the collector again and again
         # a long page is laid out a chunk at a time: its memory is bounded by a chunk (calcsheet/paged.py)
         chunked = paged.render_chunked(html, render, _stylesheet, cap, lambda n: _too_many_pages(n, "at least "))
         if chunked is not None:
@@ -109,7 +109,9 @@ def pdf_bytes(html: str) -> bytes:
         rendered = render(html)
         if len(rendered.pages) > cap:
             raise _too_many_pages(len(rendered.pages), "")
-        return rendered.write_pdf()
+        pdf = rendered.write_pdf()
+        del rendered  # collected as the block ends
+    return pdf
 
 
 def write_package(result, out_dir: Path, formats: list[str], stem: str | None = None, *, html=None,

@@ -30,9 +30,8 @@ import gc
 import html as _html
 import io
 import re
-from contextlib import contextmanager
 
-__all__ = ["CHUNK_CHARS", "blocks", "few_collections", "render_chunked"]
+__all__ = ["CHUNK_CHARS", "blocks", "render_chunked"]
 
 # About 20 pages of a calculation: the chunk size that bounds the memory (a laid-out page holds 3–4 MB).
 # A page of less than two chunks is laid out in one piece.
@@ -58,33 +57,6 @@ nav.contents a::after { content: leader("..") attr(data-page); }
 OVERLAY_CSS = """
 main > .cs-page + .cs-page { break-before: page; }
 """
-
-
-# While a page is laid out: the young generation collected once per this many new objects, and the older ones
-# (whose collection walks every object the layout has made so far) only at every 50th and then never; a
-# chunked layout still frees each chunk with its own full collection.
-LAYOUT_THRESHOLDS = (100_000, 50, 100)
-
-
-@contextmanager
-def few_collections():
-    """Lay out and write a PDF with few garbage collections.
-
-    A layout makes millions of small objects, nearly all alive until the PDF is written; with the default
-    thresholds the collector walks them (and everything the process held before, the sheet's result and the
-    unit registry included) again and again, for a quarter or more of the time of a PDF. Here what lives
-    before the layout is frozen (never walked) and the thresholds are raised; both are put back after."""
-    freeze = not gc.get_freeze_count()
-    old = gc.get_threshold()
-    if freeze:
-        gc.freeze()
-    gc.set_threshold(*LAYOUT_THRESHOLDS)
-    try:
-        yield
-    finally:
-        gc.set_threshold(*old)
-        if freeze:
-            gc.unfreeze()
 
 
 class _Unsplittable(Exception):

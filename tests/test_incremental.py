@@ -230,3 +230,18 @@ def test_a_rebuild_keeps_the_records_it_did_not_evaluate_again_and_makes_new_one
             key = None  # a heading
         assert (new is old) is (key not in again), key
     assert all(out.result.steps[n] is s for n, s in first.steps.items() if n not in again)
+
+
+def test_the_definition_an_edited_line_belongs_to_is_the_one_whose_lines_hold_it():
+    from calcsheet import nodes as N
+    from calcsheet.incremental import _owner
+
+    sheet = calcsheet.run(SHEET + "k [kN/m] = (w +\n    1 kN/m)   -- two lines: a bracket is open\n> prose\n").sheet
+    body = sheet.body
+    for line in range(1, len(sheet.source.split("\n")) + 1):
+        every = [s for s in body if isinstance(s, N.Definition) and s.span.line <= line <= s.span.end_line]
+        assert _owner(body, line) is (every[0] if every else None), line
+    assert _owner(body, SHEET.count("\n") + 2).name == "k"  # the second line of a definition
+    b = next(s for s in body if getattr(s, "name", "") == "b")
+    shuffled = (*(s for s in body if s is not b), b)  # out of the order of their lines: still found
+    assert _owner(shuffled, b.span.line) is b

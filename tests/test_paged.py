@@ -255,18 +255,6 @@ def test_a_schedule_page_is_not_cut():
     assert paged.render_chunked(page, None, None, 10, ValueError) is None
 
 
-def test_a_layout_runs_with_few_collections_and_puts_the_collector_back():
-    import gc
-
-    before = (gc.get_threshold(), gc.get_freeze_count())
-    with paged.few_collections():
-        # what lived before is frozen (never walked during the layout); the thresholds are raised
-        assert gc.get_freeze_count() > 0
-        assert gc.get_threshold() == paged.LAYOUT_THRESHOLDS
-        assert gc.get_threshold()[0] > before[0][0]
-    assert (gc.get_threshold(), gc.get_freeze_count()) == before
-
-
 def test_a_layout_that_fails_still_puts_the_collector_back(monkeypatch):
     import gc
 

@@ -9,6 +9,7 @@ import json
 
 import pint
 
+from .. import collector
 from ..builtins import TableValue
 from ..display import pint_unit_string, portable_unit_string, shown
 from ..plugin import Record
@@ -61,6 +62,7 @@ class JsonPrinter(Printer):
             out["column_keys"] = [float(x) for x in tv.col_keys]
         return out
 
+    @collector.run_pause()  # a walk of the result that makes no cycles: as a run, no collection meanwhile
     def result(self, result) -> dict:
         values = {}
         for name, step in result.steps.items():

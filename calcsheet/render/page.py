@@ -14,7 +14,7 @@ from pathlib import Path
 
 import pint
 
-from .. import __version__
+from .. import __version__, collector
 from ..display import split_number, unit_text
 from ..trace import CheckResult, Figure, Heading, Note, Prose, Step, Table, Working
 from .base import split_name
@@ -164,6 +164,7 @@ class PackageDocument(DocumentPrinter):
         return Html("").join(pieces)
 
     # ------------------------------------------------------------ document
+    @collector.run_pause()  # printing makes many objects and no cycles: as a run, no collection meanwhile
     def html(self) -> Html:
         css = (ASSETS / "package.css").read_text(encoding="utf-8")
         size = "letter" if self.paper.lower() in ("letter", "us-letter") else "A4"
