@@ -163,10 +163,13 @@ def _overlap(a: Shape, b: Shape, tol: float) -> bool:
             if P.segments_cross(_sample(ra), _sample(rb), tol):
                 return True
     for u, v in ((a, b), (b, a)):
-        vert = _sample(P.Ring(np.concatenate([r.x for r in u.rings]), np.concatenate([r.y for r in u.rings])), 512)
+        # vertices and points along every edge: two parts of one width stacked with one pushed into the
+        # other share no vertex deep inside and no crossing edges, but the pushed edge runs deep inside
+        pts = [_boundary_points(r) for r in u.rings]
+        px, py = np.concatenate([x for x, _ in pts]), np.concatenate([y for _, y in pts])
         cx, cy = _rows_centroid(u)
-        # a point of u (a vertex, or u's centroid when it lies in u's own material) is deep inside v
-        if _in_material(vert.x, vert.y, v, tol, strict=True).any() or (
+        # a point of u's outline (or u's centroid when it lies in u's own material) is deep inside v
+        if _in_material(px, py, v, tol, strict=True).any() or (
                 _in_material(cx, cy, u, tol, strict=True).any() and _in_material(cx, cy, v, tol, strict=True).any()):
             return True
     return False

@@ -95,6 +95,12 @@ def test_a_stack_of_plates_edge_to_edge_still_finds_a_plate_pushed_into_its_neig
     plates[3] = B.Placed("plate 3", "part", B.place(S.rectangle(300.0, 20.0), 10.0, 20.0 * 3 - 0.5))
     with pytest.raises(S.ShapeError, match="'plate 2' and 'plate 3' overlap"):
         B.assemble(plates)
+    # pushed 0.5 mm straight down, not along: no corner inside plate 2 and no edges crossing (the sides are
+    # collinear), yet 300 mm × 0.5 mm of steel would count twice; plate 3's lower edge runs inside plate 2
+    plates[3] = B.Placed("plate 3", "part", B.place(S.rectangle(300.0, 20.0), 0.0, 20.0 * 3 - 0.5))
+    with pytest.raises(S.ShapeError, match="'plate 2' and 'plate 3' overlap"):
+        B.assemble(plates)
+    assert shapely.box(-150, 40, 150, 60).intersection(shapely.box(-150, 59.5, 150, 79.5)).area == 150.0
 
 
 @settings(max_examples=60, deadline=None)
