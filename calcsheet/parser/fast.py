@@ -183,6 +183,18 @@ def parse(text: str, line_offset: int = 0, description: str | None = None,
 _INF = float("inf")
 
 
+
+def _float_of(num: str) -> float:
+    """A number literal's value; a literal the grammar's callback words an error for (too long, overflowing
+    or underflowing) is left to the grammar."""
+    if len(num) > 40:
+        raise _Bail  # too long: the grammar's callback says so
+    value = float(num)
+    if value == 0.0 or value != value or value == _INF or value == -_INF:
+        if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
+            raise _Bail  # overflow or underflow: the grammar's callback words it
+    return value
+
 class _Reader:
     """One statement's tokens (``kinds``, ``matches``) and the place ``i`` reached in them."""
 
@@ -366,12 +378,7 @@ class _Reader:
         elif (k == _NUMU or k == _NUM) and self.newlines is None:  # a number on one line: atom() written out
             m = self.matches[i]
             num = m.group(_NUM)
-            if len(num) > 40:
-                raise _Bail  # too long: the grammar's callback says so
-            value = float(num)
-            if value == 0.0 or value != value or value == _INF or value == -_INF:
-                if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
-                    raise _Bail  # overflow or underflow: the grammar's callback words it
+            value = _float_of(num)
             i += 1
             self.i = i
             line = self.line0
@@ -425,12 +432,7 @@ class _Reader:
         if k == _NUM or k == _NUMU:
             m = self.matches[i]
             num = m.group(_NUM)
-            if len(num) > 40:
-                raise _Bail  # too long: the grammar's callback says so
-            value = float(num)
-            if value == 0.0 or value != value or value == _INF or value == -_INF:
-                if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
-                    raise _Bail  # overflow or underflow: the grammar's callback words it
+            value = _float_of(num)
             self.i = i + 1
             a = m.start(_NUM)
             if k == _NUMU:

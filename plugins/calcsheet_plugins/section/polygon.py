@@ -278,28 +278,15 @@ def _moments_above(rings, c: float, weighted: bool = True, edges=None) -> Moment
     All rings' edges are clipped in one vectorised pass (``edges``, from ``_edges``, when the caller
     cuts the same region many times).
     """
-    x0, y0, x1, y1, w = _edges(rings, weighted) if edges is None else edges
-    y0 = y0 - c
-    y1 = y1 - c
-    in0, in1 = y0 >= 0, y1 >= 0
-    dy = y1 - y0
-    with np.errstate(divide="ignore", invalid="ignore"):
-        t = np.where(dy != 0, -y0 / dy, 0.0)
-    xi = x0 + t * (x1 - x0)
-    # clipped endpoints
-    ax = np.where(in0, x0, xi)
-    ay = np.where(in0, y0, 0.0)
-    bx = np.where(in1, x1, xi)
-    by = np.where(in1, y1, 0.0)
-    keep = in0 | in1
+    ax, ay, bx, by, w = _clipped_above(c, _edges(rings, weighted) if edges is None else edges)
     if isinstance(w, float):
-        return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep]).scaled(w)
-    return _edge_moments(ax[keep], ay[keep], bx[keep], by[keep], w[keep])
+        return _edge_moments(ax, ay, bx, by).scaled(w)
+    return _edge_moments(ax, ay, bx, by, w)
 
 
-def _area_above(c: float, edges) -> float:
-    """``_moments_above(..., edges).A`` alone: the same clipping and the same sum, without the five other
-    moments (the plastic axis's search asks only for areas)."""
+def _clipped_above(c: float, edges):
+    """Every edge clipped to y >= c, in coordinates y' = y - c: the kept edges' endpoints (ax, ay, bx, by)
+    and their weights (a float for all, or one per kept edge)."""
     x0, y0, x1, y1, w = edges
     y0 = y0 - c
     y1 = y1 - c
@@ -309,14 +296,18 @@ def _area_above(c: float, edges) -> float:
         t = np.where(dy != 0, -y0 / dy, 0.0)
     xi = x0 + t * (x1 - x0)
     keep = in0 | in1
-    ax = np.where(in0, x0, xi)[keep]
-    ay = np.where(in0, y0, 0.0)[keep]
-    bx = np.where(in1, x1, xi)[keep]
-    by = np.where(in1, y1, 0.0)[keep]
+    return (np.where(in0, x0, xi)[keep], np.where(in0, y0, 0.0)[keep], np.where(in1, x1, xi)[keep],
+            np.where(in1, y1, 0.0)[keep], w if isinstance(w, float) else w[keep])
+
+
+def _area_above(c: float, edges) -> float:
+    """``_moments_above(..., edges).A`` alone: the same clipping and the same sum, without the five other
+    moments (the plastic axis's search asks only for areas)."""
+    ax, ay, bx, by, w = _clipped_above(c, edges)
     cross = ax * by - bx * ay
     if isinstance(w, float):
         return w * float(cross.sum() / 2.0)
-    cross *= w[keep]
+    cross *= w
     return float(cross.sum() / 2.0)
 
 
