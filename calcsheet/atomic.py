@@ -24,10 +24,7 @@ def atomic_stream(path: Path, mode: int = 0o644, binary: bool = False):
         os.chmod(tmp, mode)
         os.replace(tmp, path)
     except BaseException:
-        try:
-            os.unlink(tmp)
-        except FileNotFoundError:
-            pass
+        discard_staged([tmp])
         raise
 
 
@@ -106,6 +103,7 @@ def commit_staged(tmp: Path, path: Path, mode: int = 0o644) -> None:
 
 
 def discard_staged(tmps) -> None:
+    """Remove these temporary files (those already gone are no error)."""
     for tmp in tmps:
         try:
             os.unlink(tmp)

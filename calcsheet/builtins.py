@@ -416,10 +416,7 @@ _FAST_KEEP = 4096
 
 
 def _remember(key, entry):
-    if len(_FAST) >= _FAST_KEEP:
-        _FAST.clear()
-    _FAST[key] = entry
-    return entry
+    return U.remember(_FAST, key, entry, _FAST_KEEP)
 
 
 def _learn_binop(node: N.BinOp, a: pint.Quantity, b: pint.Quantity):

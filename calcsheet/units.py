@@ -70,6 +70,17 @@ def quantity(magnitude, units) -> pint.Quantity:
 
 
 _KEEP = 4096  # entries a units cache holds before it starts again (a sheet uses a few dozen units)
+
+
+def remember(cache: dict, key, entry, keep: int = _KEEP):
+    """``cache[key] = entry`` for the caches keyed by units containers' identity (here and in builtins); a full
+    cache starts again, dropping each entry with the containers it holds, so an id is never taken for another's."""
+    if len(cache) >= keep:
+        cache.clear()
+    cache[key] = entry
+    return entry
+
+
 _UNIT_OPS: dict = {}  # (op, id(a), id(b) or power) -> (a, b, result): held, so the ids stay theirs
 
 
@@ -91,9 +102,7 @@ def units_op(op: str, a, b):
         out = 1 / a
     else:
         out = a ** b
-    if len(_UNIT_OPS) >= _KEEP:
-        _UNIT_OPS.clear()
-    _UNIT_OPS[key] = (a, b, out)
+    remember(_UNIT_OPS, key, (a, b, out))
     return out
 
 
@@ -173,10 +182,7 @@ def convert(q: pint.Quantity, unit) -> pint.Quantity:
         return q
     hit = _CONVERSIONS.get((id(src), id(dst)))
     if hit is None:  # once per pair of containers: equal (nothing to do), a plain factor, or pint's path
-        how = _SAME if src == dst else factor(src, dst)
-        if len(_CONVERSIONS) >= _KEEP:
-            _CONVERSIONS.clear()
-        hit = _CONVERSIONS[(id(src), id(dst))] = (src, dst, how)
+        hit = remember(_CONVERSIONS, (id(src), id(dst)), (src, dst, _SAME if src == dst else factor(src, dst)))
     how = hit[2]
     if how is _SAME:
         return q
