@@ -69,6 +69,9 @@ def _texts(reader):
     return [p.extract_text() for p in reader.pages]
 
 
+_STEP_ID = re.compile(r'<div\b[^>]*\bclass="step[^"]*"[^>]*><span class="stepno" id="(v-[^"]*)"')
+
+
 def test_a_package_page_is_cut_into_its_front_and_its_blocks(page):
     head, front, body, tail = paged.blocks(page)
     assert head.endswith("<main>") and tail.startswith("</main>")
@@ -76,7 +79,8 @@ def test_a_package_page_is_cut_into_its_front_and_its_blocks(page):
     anchors = [b.anchor for b in body]
     assert len(anchors) == len(set(anchors))
     # every step and heading of the calculation is a block of its own, in the sheet's order
-    steps = [b.anchor for b in body if b.anchor.startswith("v-")]
+    # (a step's anchor is on its number, the block's first element: see render/page.py _number)
+    steps = [m.group(1) for b in body if (m := _STEP_ID.match(b.html))]
     assert steps[:3] == ["v-L_1", "v-w_1", "v-M_1"] and "v-s_9" in steps
     # nothing is lost: the blocks hold every id of the page's <main>
     ids = set(re.findall(r"""\sid=["']([^"']+)""", page[page.index("<main>"):]))
@@ -236,7 +240,7 @@ def test_a_working_cut_between_chunks_is_opened_again_in_the_next():
     assert r.ok, r.format_diagnostics()
     head, front, body, tail = paged.blocks(str(PackageDocument(r).html()))
     inside = [k for k, b in enumerate(body) if any(tag == '<div class="working">' for _, tag in b.wrap)]
-    assert len(inside) >= 3 and body[inside[0] - 1].anchor == "v-plate"
+    assert len(inside) >= 3 and _STEP_ID.match(body[inside[0] - 1].html).group(1) == "v-plate"
     later = body[inside[1]:]  # a chunk that starts at the working's second record
     html = paged._join(later, top=True)
     assert html.startswith('<section class="calc cs-top">\n<div class="working">')

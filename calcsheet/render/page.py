@@ -365,11 +365,10 @@ class PackageDocument(DocumentPrinter):
         if step.name in self.changed and not inner:
             marks.append(Html('<span class="mark changed">changed</span>'))
         note = Html('<div class="method">{}</div>').format(step.note) if step.note else Html()
-        ident = Html(' id="{}"').format(anchor_id(step.anchor)) if step.anchor and not inner else Html()
-        number = Html('<span class="stepno">{}</span>').format(step.number) if step.number else Html()
+        number = _number(step.number, anchor_id(step.anchor) if step.anchor and not inner else None)
         desc = Html('<div class="desc">{}</div>').format(step.description) if step.description else Html()
-        out = Html('<div class="step{}"{}>{}{}<div class="math">{}</div>{}{}</div>').format(
-            " input" if step.is_input else "", ident, number, desc, chain, note, Html("").join(marks))
+        out = Html('<div class="step{}">{}{}<div class="math">{}</div>{}{}</div>').format(
+            " input" if step.is_input else "", number, desc, chain, note, Html("").join(marks))
         if step.working is not None:
             out += self._print_Working(step.working, owner=step.name)
         return out + self._after(step)
@@ -382,13 +381,12 @@ class PackageDocument(DocumentPrinter):
     def _print_CheckResult(self, c: CheckResult, inner: bool = False) -> Html:
         sym, sub = self.printer.check_parts(c, None if inner else self.link, None if inner else self.exact)
         ratio = f"ratio {c.ratio:.2f}" if c.ratio is not None else "ratio cannot be formed"
-        ident = Html(' id="{}"').format(c.anchor) if c.anchor and not inner else Html()
-        number = Html('<span class="stepno">{}</span>').format(c.number) if c.number else Html()
+        number = _number(c.number, c.anchor if c.anchor and not inner else None)
         desc = Html('<div class="desc">{}</div>').format(c.description) if c.description else Html()
-        return Html('<div class="step check {}"{}>{}{}'
+        return Html('<div class="step check {}">{}{}'
                     '<div class="math"><span class="kwd">check</span> {}&#160;: {}'
                     ' <span class="verdict">{}</span> <span class="ratio">{}</span></div></div>').format(
-            "ok" if c.ok else "ng", ident, number, desc, sym, sub, "OK" if c.ok else "NG", ratio) + self._after(c)
+            "ok" if c.ok else "ng", number, desc, sym, sub, "OK" if c.ok else "NG", ratio) + self._after(c)
 
     def _print_Table(self, t: Table, inner: bool = False) -> Html:
         def cell(v, unit=None):
@@ -539,6 +537,18 @@ def repeat_width(columns: list[str]) -> int:
         if n % k == 0 and list(columns) == list(columns[:k]) * (n // k):
             return k
     return 0
+
+
+def _number(number: str, anchor: str | None) -> Html:
+    """A step's number, first in its block, carrying the step's anchor (the target of the links to it).
+
+    The anchor is on the number, not on the step's block: WeasyPrint computes one style for all the elements
+    that match the same rules under the same parent style, and an ``id`` makes its element's style (and so the
+    styles of everything inside it) its own. On the block, each step's formula would be styled afresh, element
+    by element; on the number, only the number is."""
+    if anchor is None:
+        return Html('<span class="stepno">{}</span>').format(number) if number else Html()
+    return Html('<span class="stepno" id="{}">{}</span>').format(anchor, number or "")
 
 
 def _split_cross_checks(items: list) -> tuple[list, list]:
