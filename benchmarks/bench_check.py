@@ -9,6 +9,10 @@
    bench_engine's plain pint baseline (the same values computed with pint directly), so the cost of
    parse + resolve + check is held to an absolute yardstick that a faster evaluation does not move (the
    ratio to a full run above grows worse as evaluation gets cheaper). Timed by ``timing.paired``.
+   For scale, CPython's own ``compile()`` of the same arithmetic written as a Python script (its parser and
+   compiler are C) is timed the same way and printed beside it, per line: the floor a pure-Python reader
+   and checker is measured against. ``check`` ÷ full run ≤ ⅓ asks parse + resolve + check to cost half
+   of evaluation + trace, which is now cheaper than pint itself; this line shows what that would ask.
 3. Cold start: `calcsheet check` of a small sheet in a fresh process against `python -c "import pint;
    pint.UnitRegistry(cache_folder=':auto:')"` — the same pint disk cache our registry uses, warmed for both
    by one untimed run each (which also fills one bytecode cache for both), then timed alternately the same
@@ -32,6 +36,21 @@ from calcsheet.engine import run
 from timing import paired, report
 
 REPO = Path(__file__).resolve().parents[1]
+
+
+def python_script(n: int) -> str:
+    """make_sheet's arithmetic as Python: the same names, literals, operators and comparisons, a unit as a
+    name multiplied in (what Python's compiler must read of it), the check as an assertion."""
+    lines = []
+    for i in range(n // 5):
+        lines += [
+            f"L_{i} = {3 + i % 7} * m",
+            f"w_{i} = 1.2*{1 + i % 5} * kPa * 0.6 * m + 1.5 * kN/m",
+            f"M_{i} = w_{i}*L_{i}**2/8",
+            f"s_{i} = M_{i} / (2.5e5 * mm**3)",
+            f"assert s_{i} <= 250 * MPa",
+        ]
+    return "\n".join(lines) + "\n"
 
 
 def ratio(source, repeat: int) -> tuple[float, float, float]:
@@ -62,6 +81,13 @@ def main() -> None:
     t_check, t_pint = paired(lambda: run(text, evaluate=False), lambda: plain_pint(10_000), repeat=5)
     report("check ÷ plain pint script, 10,000 lines", t_check / t_pint, 0.8,
            note=f"{t_check:.3f} s vs {t_pint:.3f} s, {t_check / 10_000 * 1e6:.1f} µs/line")
+    script = python_script(10_000)
+    t_check, t_compile = paired(lambda: run(text, evaluate=False), lambda: compile(script, "<bench>", "exec"),
+                                repeat=5)
+    t_eval = tr - tc  # evaluation + trace of the plain-arithmetic sheet, from the first figure
+    print(f"    for scale, per line: check {t_check / 10_000 * 1e6:.1f} µs; CPython's C compile() of the same "
+          f"arithmetic as Python {t_compile / 10_000 * 1e6:.1f} µs; a full run's evaluation + trace "
+          f"{t_eval / 10_000 * 1e6:.1f} µs, so check ≤ ⅓ of a run asks ≤ {t_eval / 2 / 10_000 * 1e6:.1f} µs")
     worst = (0.0, "")
     for sheet in sorted((REPO / "sheets").glob("*.calc")):
         r, _, _ = ratio(sheet, repeat=3)
