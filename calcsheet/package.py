@@ -15,7 +15,7 @@ from . import collector, paged, reading
 from .atomic import publish_package
 from .render.json import JsonPrinter, dumps
 from .render.page import ASSETS, PackageDocument
-from .render.printed import print_symbols
+from .render.printed import for_print
 
 __all__ = ["ASSETS", "PackageDocument", "PackageTooLarge", "make_fetcher", "pdf_bytes", "write_package"]
 
@@ -87,7 +87,7 @@ def pdf_bytes(html: str) -> bytes:
     page and given to WeasyPrint already parsed: it is parsed once per process, not once per PDF."""
     import weasyprint  # imported here: ~0.5 s, needed only when a PDF is written
 
-    html = print_symbols(str(html))  # a formula's Latin symbols as italic letters: one element less each
+    html = for_print(str(html))  # a formula's symbols as italic letters (one element less each), spaces as characters
     cap = reading.limit("PDF_PAGES")
     at_least = estimated_pages(html)
     if at_least > cap:

@@ -7,7 +7,7 @@ import pypdf
 import calcsheet
 from calcsheet.package import pdf_bytes
 from calcsheet.render.page import PackageDocument
-from calcsheet.render.printed import italic_letters, print_symbols
+from calcsheet.render.printed import for_print, italic_letters, print_spaces, print_symbols
 
 
 def test_letters_become_their_mathematical_italic_forms():
@@ -35,3 +35,11 @@ def test_the_pdf_prints_a_symbol_in_italic_letters_and_the_html_keeps_its_var():
     assert "<var>M</var><sub>Ed</sub>" in html and "<var>σ</var>" in html
     text = "".join(p.extract_text() for p in pypdf.PdfReader(io.BytesIO(pdf_bytes(html))).pages)
     assert italic_letters("M") + "Ed" in text.replace(" ", "") and italic_letters("σ") in text
+
+
+def test_a_formulas_spaces_are_printed_as_characters_and_markup_references_stay():
+    page = '<div class="math">2&#8239;m&#8239;&#160;=&#8194;<var>a</var>&#8239;+&#8201;b &amp; &lt;c&gt;</div>'
+    out = for_print(page)
+    assert out == ('<div class="math">2\u202fm\u202f\u00a0=\u2002' + italic_letters("a")
+                   + '\u202f+\u2009b &amp; &lt;c&gt;</div>')
+    assert print_spaces("&#8239;&#160;&#8194;&#8201;") == "\u202f\u00a0\u2002\u2009"
