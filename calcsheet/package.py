@@ -87,7 +87,7 @@ def pdf_bytes(html: str) -> bytes:
     page and given to WeasyPrint already parsed: it is parsed once per process, not once per PDF."""
     import weasyprint  # imported here: ~0.5 s, needed only when a PDF is written
 
-    html = for_print(str(html))  # a formula's symbols as italic letters (one element less each), spaces as characters
+    html = for_print(str(html))  # a formula's spaces as characters, not references (parsed faster)
     cap = reading.limit("PDF_PAGES")
     at_least = estimated_pages(html)
     if at_least > cap:
