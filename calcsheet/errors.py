@@ -5,15 +5,28 @@ offending source line and a caret, whichever stage raised it.
 """
 from __future__ import annotations
 
+from collections import OrderedDict
 from dataclasses import dataclass, field
-from functools import lru_cache
+
+_LINES: OrderedDict = OrderedDict()  # id(source) -> (source, its lines): the last few sources split
+_LINES_KEPT = 8
 
 
-@lru_cache(maxsize=8)
 def source_lines(source: str) -> list[str]:
-    """The lines of a source, split once however many diagnostics point into it (a str caches its hash,
-    so a hit costs no rescan): formatting n diagnostics is linear in the sheet, not quadratic."""
-    return source.splitlines()
+    """The lines of a source, split once however many diagnostics point into it: formatting n diagnostics
+    is linear in the sheet, not quadratic. The source is found by identity (the very string object, kept
+    alive beside its lines), not by equality: an equal text read anew by a later run in the same process
+    would otherwise be compared character by character with the kept one at every diagnostic."""
+    key = id(source)
+    hit = _LINES.get(key)
+    if hit is not None and hit[0] is source:
+        return hit[1]
+    lines = source.splitlines()
+    _LINES[key] = (source, lines)
+    _LINES.move_to_end(key)
+    while len(_LINES) > _LINES_KEPT:
+        _LINES.popitem(last=False)
+    return lines
 
 
 @dataclass(frozen=True)

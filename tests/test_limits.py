@@ -8,7 +8,7 @@ from pathlib import Path
 import pytest
 
 import calcsheet
-from calcsheet import errors, reading
+from calcsheet import reading
 from calcsheet.cli import main
 
 DOC = (Path(__file__).parents[1] / "docs" / "limits.md").read_text(encoding="utf-8")
@@ -26,15 +26,43 @@ def test_a_cap_is_raised_by_its_environment_variable(monkeypatch):
     assert reading.limit("PROBLEMS") == reading.LIMITS["PROBLEMS"][0]
 
 
+class CountedText(str):
+    """A sheet's text that counts how often it is split into lines and compared with another text."""
+    splits = 0
+    comparisons = 0
+
+    def splitlines(self, *args):
+        CountedText.splits += 1
+        return super().splitlines(*args)
+
+    def __eq__(self, other):
+        CountedText.comparisons += 1
+        return super().__eq__(other)
+
+    __hash__ = str.__hash__
+
+
 def test_formatting_many_diagnostics_splits_the_source_once():
     source = "x =\n" * 5_000
     r = calcsheet.run(source, evaluate=False)
     assert len(r.errors) == 1_001  # 1,000 problems, then the PROBLEMS cap
-    errors.source_lines.cache_clear()
-    text = r.format_diagnostics()
-    info = errors.source_lines.cache_info()
-    assert info.misses == 1 and info.hits == len(r.diagnostics) - 1
+    CountedText.splits = CountedText.comparisons = 0
+    counted = CountedText(r.source)
+    text = "\n".join(d.format(counted) for d in r.diagnostics)
+    assert CountedText.splits == 1
     assert text.count("\n   ") >= 1_000
+
+
+def test_an_equal_text_read_again_is_never_compared_with_the_kept_one():
+    # a long-lived process (the live preview, a schedule, the benchmarks) checks the same file again: the
+    # new text equals the kept one but is another string; comparing them at every diagnostic cost O(sheet)
+    r = calcsheet.run("x =\n" * 2_000, evaluate=False)
+    first, again = CountedText(r.source), CountedText(r.source)
+    CountedText.splits = CountedText.comparisons = 0
+    for text in (first, again, first):
+        for d in r.diagnostics[:50]:
+            d.format(text)
+    assert CountedText.splits == 2 and CountedText.comparisons == 0
 
 
 def test_a_sheet_of_900000_hashes_stops_at_the_problems_cap_and_says_so(tmp_path, capsys):
