@@ -1,4 +1,5 @@
-"""The evaluation-alone benchmark times its three sides by one method: equally often, each first in turn."""
+"""The evaluation-alone benchmark times its sides by one method (equally often, each first in turn) and times the
+work a run does after its check, not something else."""
 import importlib.util
 import os
 import sys
@@ -30,3 +31,14 @@ def test_rotating_times_each_side_equally_often_and_each_goes_first_in_turn():
     rounds = [calls[3 + 3 * i: 6 + 3 * i] for i in range(3)]
     assert rounds == [["a", "b", "c"], ["b", "c", "a"], ["c", "a", "b"]]
     assert len(medians) == 3 and all(m >= 0 for m in medians)
+
+
+def test_the_timed_evaluation_is_the_one_a_run_does_after_its_check():
+    bench = _load()
+    text = bench.make_sheet(50)
+    fresh = bench.evaluation_of(text)()
+    full = bench.calcsheet.run(text)
+    assert fresh.values.keys() == full.values.keys() and len(fresh.values) == 40
+    assert all(fresh.values[k] == full.values[k] for k in full.values)
+    assert [c.ok for c in fresh.checks] == [c.ok for c in full.checks] and len(full.checks) == 10
+    assert len(fresh.items) == len(full.items) and not fresh.diagnostics
