@@ -5,11 +5,13 @@ offending source line and a caret, whichever stage raised it.
 """
 from __future__ import annotations
 
+import threading
 from collections import OrderedDict
 from dataclasses import dataclass, field
 
 _LINES: OrderedDict = OrderedDict()  # id(source) -> (source, its lines): the last few sources split
 _LINES_KEPT = 8
+_LINES_LOCK = threading.Lock()  # the live preview formats from more than one thread
 
 
 def source_lines(source: str) -> list[str]:
@@ -18,15 +20,16 @@ def source_lines(source: str) -> list[str]:
     alive beside its lines), not by equality: an equal text read anew by a later run in the same process
     would otherwise be compared character by character with the kept one at every diagnostic."""
     key = id(source)
-    hit = _LINES.get(key)
-    if hit is not None and hit[0] is source:
-        return hit[1]
-    lines = source.splitlines()
-    _LINES[key] = (source, lines)
-    _LINES.move_to_end(key)
-    while len(_LINES) > _LINES_KEPT:
-        _LINES.popitem(last=False)
-    return lines
+    with _LINES_LOCK:
+        hit = _LINES.get(key)
+        if hit is not None and hit[0] is source:
+            return hit[1]
+        lines = source.splitlines()
+        _LINES[key] = (source, lines)
+        _LINES.move_to_end(key)
+        while len(_LINES) > _LINES_KEPT:
+            _LINES.popitem(last=False)
+        return lines
 
 
 @dataclass(frozen=True)
