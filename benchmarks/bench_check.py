@@ -32,7 +32,7 @@ import time
 from pathlib import Path
 
 from bench_engine import make_sheet, plain_pint
-from bench_evaluation import evaluation_of
+from bench_evaluation import evaluation_of, rotating
 from calcsheet.engine import run
 from timing import paired, report
 
@@ -83,9 +83,9 @@ def main() -> None:
     report("check ÷ plain pint script, 10,000 lines", t_check / t_pint, 0.8,
            note=f"{t_check:.3f} s vs {t_pint:.3f} s, {t_check / 10_000 * 1e6:.1f} µs/line")
     script = python_script(10_000)
-    t_check, t_compile = paired(lambda: run(text, evaluate=False), lambda: compile(script, "<bench>", "exec"),
-                                repeat=5)
-    _, t_eval = paired(lambda: None, evaluation_of(text), repeat=3)  # what a run adds to a check, timed alone
+    # check, CPython's compile() and what a run adds to a check (evaluation + trace, timed alone), one method
+    t_check, t_compile, t_eval = rotating([lambda: run(text, evaluate=False),
+                                           lambda: compile(script, "<bench>", "exec"), evaluation_of(text)], 5)
     print(f"    for scale, per line: check {t_check / 10_000 * 1e6:.1f} µs; CPython's C compile() of the same "
           f"arithmetic as Python {t_compile / 10_000 * 1e6:.1f} µs; a full run's evaluation + trace "
           f"{t_eval / 10_000 * 1e6:.1f} µs, so check ≤ ⅓ of a run asks ≤ {t_eval / 2 / 10_000 * 1e6:.1f} µs")

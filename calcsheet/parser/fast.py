@@ -183,7 +183,6 @@ def parse(text: str, line_offset: int = 0, description: str | None = None,
 _INF = float("inf")
 
 
-
 def _float_of(num: str) -> float:
     """A number literal's value; a literal the grammar's callback words an error for (too long, overflowing
     or underflowing) is left to the grammar."""
@@ -194,6 +193,7 @@ def _float_of(num: str) -> float:
         if value != 0.0 or any(c in "123456789" for c in num.lower().partition("e")[0]):
             raise _Bail  # overflow or underflow: the grammar's callback words it
     return value
+
 
 class _Reader:
     """One statement's tokens (``kinds``, ``matches``) and the place ``i`` reached in them."""
